@@ -1,0 +1,84 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ZodType } from 'zod';
+import { z } from 'zod';
+
+/** An error meant for the client: status, a stable code, a plain message and optional details. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details?: unknown,
+    readonly headers?: Record<string, string>,
+  ) {
+    super(message);
+  }
+}
+
+export const badRequest = (message: string, details?: unknown) => new HttpError(400, 'invalid_input', message, details);
+export const notFound = (what = 'Not found') => new HttpError(404, 'not_found', what);
+export const forbidden = (message = 'You do not have permission to do that.') => new HttpError(403, 'forbidden', message);
+export const unauthorized = (message = 'Sign in to continue.') => new HttpError(401, 'unauthorized', message);
+export const conflict = (message: string, details?: unknown) => new HttpError(409, 'conflict', message, details);
+
+export interface FieldIssue {
+  path: string;
+  message: string;
+}
+
+/** Turns zod issues into `{ path, message }` pairs with dotted paths such as `engine.displacement`. */
+export function issuesOf(error: z.ZodError): FieldIssue[] {
+  return error.issues.map((issue) => ({
+    path: issue.path.map(String).join('.') || '(body)',
+    message: issue.message,
+  }));
+}
+
+/** Parses a value with a zod schema or throws a 400 naming every bad field. */
+export function parseOr400<T>(schema: ZodType<T>, value: unknown, what = 'request body'): T {
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    const issues = issuesOf(result.error);
+    const first = issues[0];
+    throw new HttpError(400, 'invalid_input', `Invalid ${what}: ${first.path}: ${first.message}`, { issues });
+  }
+  return result.data;
+}
+
+/** Express middleware: validate `req.body` and put the parsed value in `res.locals.body`. */
+export function validateBody<T>(schema: ZodType<T>): RequestHandler {
+  return (req, res, next) => {
+    res.locals.body = parseOr400(schema, req.body ?? {});
+    next();
+  };
+}
+
+export const notFoundHandler: RequestHandler = (_req, _res, next) => {
+  next(new HttpError(404, 'not_found', 'No such API route.'));
+};
+
+/** The one error handler: known errors keep their status; anything else is logged and answered 500 without details. */
+export function errorHandler(log: { error: (obj: unknown, msg?: string) => void }): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    let httpError: HttpError;
+    if (err instanceof HttpError) {
+      httpError = err;
+    } else if (err && typeof err === 'object' && 'type' in err && (err as { type: string }).type === 'entity.too.large') {
+      httpError = new HttpError(413, 'too_large', 'The request body is too large.');
+    } else if (err && typeof err === 'object' && 'type' in err && (err as { type: string }).type === 'entity.parse.failed') {
+      httpError = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
+    } else if (err && typeof err === 'object' && 'status' in err && typeof (err as { status: unknown }).status === 'number' && (err as { status: number }).status >= 400 && (err as { status: number }).status < 500) {
+      const status = (err as { status: number }).status;
+      httpError = new HttpError(status, 'bad_request', status === 413 ? 'The request body is too large.' : 'The request could not be read.');
+    } else {
+      log.error({ err, url: req.originalUrl }, 'unhandled error');
+      httpError = new HttpError(500, 'internal', 'Something went wrong on our side. It has been logged.');
+    }
+    if (httpError.headers) res.set(httpError.headers);
+    const body: { error: { code: string; message: string; details?: unknown } } = {
+      error: { code: httpError.code, message: httpError.message },
+    };
+    if (httpError.details !== undefined) body.error.details = httpError.details;
+    res.status(httpError.status).json(body);
+  };
+}

@@ -1,0 +1,73 @@
+import { all, create, type Unit } from 'mathjs';
+
+/**
+ * The one mathjs instance of the project. Everything inside shared/ is SI; this module is the
+ * edge where user units (kPa, psi, °F, lb/min, cfm, …) become SI and back.
+ */
+export const math = create(all, {});
+
+// mathjs has neither inHg nor cfm. inHg is conventional inch of mercury at 0 °C
+// (NIST SP 811, Appendix B.8: 3.386389 kPa); cfm is cubic feet per minute.
+math.createUnit('inHg', { definition: '3386.389 Pa', aliases: ['inhg'] });
+math.createUnit('cfm', { definition: '1 ft^3/min' });
+// Shaft and engine speeds stay in rpm inside shared/ (the trade's unit); krpm is common on maps.
+math.createUnit('rpm', { definition: '1/min' });
+math.createUnit('krpm', { definition: '1000 rpm' });
+
+/** The SI unit each physical quantity kind is stored in inside shared/. */
+export const siUnitOf = {
+  pressure: 'Pa',
+  temperature: 'K',
+  massFlow: 'kg/s',
+  volumeFlow: 'm^3/s',
+  volume: 'm^3',
+  power: 'W',
+  torque: 'N m',
+  length: 'm',
+  area: 'm^2',
+  density: 'kg/m^3',
+  speed: 'rpm',
+  energyPerMass: 'J/kg',
+} as const;
+export type QuantityKind = keyof typeof siUnitOf;
+
+/** Thrown when a unit name is unknown or does not measure the expected kind of quantity. */
+export class UnitError extends Error {}
+
+function unitOf(value: number, unitName: string): Unit {
+  try {
+    return math.unit(value, unitName);
+  } catch {
+    throw new UnitError(`unknown unit "${unitName}"`);
+  }
+}
+
+/** Converts a value in `unitName` to the SI unit of `kind`; refuses units of another dimension. */
+export function toSI(value: number, unitName: string, kind: QuantityKind): number {
+  const u = unitOf(value, unitName);
+  try {
+    return u.toNumber(siUnitOf[kind]);
+  } catch {
+    throw new UnitError(`unit "${unitName}" does not measure ${kind}`);
+  }
+}
+
+/** Converts an SI value of `kind` to `unitName`. */
+export function fromSI(value: number, unitName: string, kind: QuantityKind): number {
+  const u = unitOf(value, siUnitOf[kind]);
+  try {
+    return u.toNumber(unitName);
+  } catch {
+    throw new UnitError(`unit "${unitName}" does not measure ${kind}`);
+  }
+}
+
+/** True when `unitName` is a known unit measuring `kind`. */
+export function isUnitOf(unitName: string, kind: QuantityKind): boolean {
+  try {
+    toSI(1, unitName, kind);
+    return true;
+  } catch {
+    return false;
+  }
+}

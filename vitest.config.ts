@@ -1,0 +1,28 @@
+import { defineConfig } from 'vitest/config';
+
+// Unit and API tests. Node for shared/ and server/, jsdom for React components.
+// API tests need DATABASE_URL pointing at a migrated, disposable database: `npm test` sets it.
+export default defineConfig({
+  test: {
+    projects: [
+      {
+        test: {
+          name: 'node',
+          environment: 'node',
+          include: ['tests/unit/**/*.test.ts', 'tests/api/**/*.test.ts'],
+          setupFiles: ['tests/setup/fail-on-console-error.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        test: {
+          name: 'jsdom',
+          environment: 'jsdom',
+          include: ['tests/unit/**/*.test.tsx'],
+          setupFiles: ['tests/setup/fail-on-console-error.ts'],
+        },
+      },
+    ],
+  },
+});
