@@ -1,0 +1,130 @@
+import { z } from 'zod';
+
+// Request and response shapes of the account and team API, shared by the client and the server.
+// Request objects are strict: an unknown key is refused by name (no mass assignment).
+
+export const emailSchema = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .max(254, 'must be at most 254 characters')
+  .pipe(z.email('must be an e-mail address'));
+
+/** Length-based password policy (OWASP ASVS 5.0 6.2.1: at least 8; 6.2.9: allow at least 64). */
+export const passwordSchema = z
+  .string()
+  .min(8, 'must be at least 8 characters')
+  .max(128, 'must be at most 128 characters');
+
+export const displayNameSchema = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
+
+export const unitSystemSchema = z.enum(['si', 'us']);
+export type UnitSystem = z.infer<typeof unitSystemSchema>;
+
+export const roleSchema = z.enum(['owner', 'editor', 'viewer']);
+export type Role = z.infer<typeof roleSchema>;
+
+export const signUpSchema = z.strictObject({
+  email: emailSchema,
+  password: passwordSchema,
+  name: displayNameSchema,
+});
+export const signInSchema = z.strictObject({
+  email: emailSchema,
+  password: z.string().min(1, 'is required').max(128, 'must be at most 128 characters'),
+});
+export const resetRequestSchema = z.strictObject({ email: emailSchema });
+export const resetConfirmSchema = z.strictObject({
+  token: z.string().min(10).max(200),
+  password: passwordSchema,
+});
+export const changePasswordSchema = z.strictObject({
+  currentPassword: z.string().min(1, 'is required').max(128),
+  newPassword: passwordSchema,
+});
+export const updateProfileSchema = z.strictObject({
+  name: displayNameSchema.optional(),
+  unitSystem: unitSystemSchema.optional(),
+});
+
+export const userSchema = z.object({
+  id: z.string(),
+  email: z.string(),
+  name: z.string(),
+  isAdmin: z.boolean(),
+  unitSystem: unitSystemSchema,
+});
+export type User = z.infer<typeof userSchema>;
+
+export const teamSummarySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  personal: z.boolean(),
+  /** The signed-in user's role; null when a site admin sees a team they are not in. */
+  role: roleSchema.nullable(),
+});
+export type TeamSummary = z.infer<typeof teamSummarySchema>;
+
+export const meSchema = z.object({ user: userSchema, teams: z.array(teamSummarySchema) });
+export type Me = z.infer<typeof meSchema>;
+
+export const teamNameSchema = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
+export const createTeamSchema = z.strictObject({ name: teamNameSchema });
+export const renameTeamSchema = z.strictObject({ name: teamNameSchema });
+
+export const memberSchema = z.object({
+  userId: z.string(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  joinedAt: z.string(),
+});
+export type Member = z.infer<typeof memberSchema>;
+
+export const invitationSchema = z.object({
+  id: z.string(),
+  email: z.string(),
+  role: roleSchema,
+  invitedBy: z.string(),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+});
+export type Invitation = z.infer<typeof invitationSchema>;
+
+export const createInvitationSchema = z.strictObject({ email: emailSchema, role: roleSchema });
+export const changeRoleSchema = z.strictObject({ role: roleSchema });
+
+export const teamDetailSchema = z.object({
+  team: teamSummarySchema,
+  members: z.array(memberSchema),
+  /** Pending invitations; only owners see them (empty otherwise). */
+  invitations: z.array(invitationSchema),
+});
+export type TeamDetail = z.infer<typeof teamDetailSchema>;
+
+/** What the invitation page shows before the invitee joins. */
+export const invitationPreviewSchema = z.object({
+  teamName: z.string(),
+  role: roleSchema,
+  email: z.string(),
+  invitedBy: z.string(),
+  expiresAt: z.string(),
+});
+export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
+
+export const outboxSummarySchema = z.object({
+  id: z.string(),
+  from: z.string(),
+  to: z.string(),
+  subject: z.string(),
+  receivedAt: z.string(),
+});
+export const outboxMessageSchema = outboxSummarySchema.extend({ text: z.string(), html: z.string().nullable() });
+export type OutboxMessage = z.infer<typeof outboxMessageSchema>;
+
+export const healthSchema = z.object({
+  status: z.enum(['ok', 'degraded']),
+  server: z.literal('up'),
+  database: z.enum(['up', 'down']),
+  time: z.string(),
+});
