@@ -57,6 +57,19 @@ export const notFoundHandler: RequestHandler = (_req, _res, next) => {
   next(new HttpError(404, 'not_found', 'No such API route.'));
 };
 
+// Connection refused or reset, and PostgreSQL's admin-shutdown / cannot-connect-now / connection-failure codes.
+const UNAVAILABLE_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', '57P01', '57P02', '57P03', '08000', '08001', '08003', '08006']);
+
+function isDatabaseUnavailable(err: unknown): boolean {
+  if (!err || typeof err !== 'object') return false;
+  const code = (err as { code?: unknown }).code;
+  if (typeof code === 'string' && UNAVAILABLE_CODES.has(code)) return true;
+  const message = (err as { message?: unknown }).message;
+  if (typeof message === 'string' && /Connection terminated|timeout exceeded when trying to connect/i.test(message)) return true;
+  const cause = (err as { cause?: unknown }).cause;
+  return cause !== undefined && cause !== err && isDatabaseUnavailable(cause);
+}
+
 /** The one error handler: known errors keep their status; anything else is logged and answered 500 without details. */
 export function errorHandler(log: { error: (obj: unknown, msg?: string) => void }): ErrorRequestHandler {
   return (err, req, res, _next) => {
@@ -70,6 +83,9 @@ export function errorHandler(log: { error: (obj: unknown, msg?: string) => void 
     } else if (err && typeof err === 'object' && 'status' in err && typeof (err as { status: unknown }).status === 'number' && (err as { status: number }).status >= 400 && (err as { status: number }).status < 500) {
       const status = (err as { status: number }).status;
       httpError = new HttpError(status, 'bad_request', status === 413 ? 'The request body is too large.' : 'The request could not be read.');
+    } else if (isDatabaseUnavailable(err)) {
+      log.error({ err: { message: (err as Error).message, code: (err as { code?: string }).code }, url: req.originalUrl }, 'database unavailable');
+      httpError = new HttpError(503, 'unavailable', 'The database is not reachable right now. Try again in a few seconds.', undefined, { 'Retry-After': '5' });
     } else {
       log.error({ err, url: req.originalUrl }, 'unhandled error');
       httpError = new HttpError(500, 'internal', 'Something went wrong on our side. It has been logged.');

@@ -1,0 +1,92 @@
+/**
+ * `npm start` after dependencies: local PostgreSQL (or DATABASE_URL), migrations, demo data,
+ * the client build, then the server on PORT (default 3000) at HOST (default 127.0.0.1).
+ */
+import { existsSync, mkdirSync, readFileSync, readdirSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { ADMIN_USER, DEMO_USER } from '../server/db/seed';
+import { prepareDatabase } from './lib/database';
+import { SetupError } from './lib/postgres';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const port = Number(process.env.PORT ?? 3000);
+const host = process.env.HOST ?? '127.0.0.1';
+const pidFile = path.join(root, '.data', `server-${port}.pid`);
+
+function alive(pid: number) {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+async function alreadyRunning(): Promise<string | null> {
+  if (existsSync(pidFile)) {
+    const pid = Number(readFileSync(pidFile, 'utf8'));
+    if (pid && alive(pid)) return `pid ${pid}`;
+  }
+  try {
+    const res = await fetch(`http://${host === '0.0.0.0' ? '127.0.0.1' : host}:${port}/api/health`, { signal: AbortSignal.timeout(1500) });
+    if (res.ok || res.status === 503) return 'answering on that port';
+  } catch {
+    // nothing there
+  }
+  return null;
+}
+
+function newestMtime(p: string): number {
+  if (!existsSync(p)) return 0;
+  const s = statSync(p);
+  if (!s.isDirectory()) return s.mtimeMs;
+  return Math.max(0, ...readdirSync(p).map((f) => newestMtime(path.join(p, f))));
+}
+
+async function buildClientIfStale() {
+  const built = path.join(root, 'dist', 'client', 'index.html');
+  const sources = ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'].map((p) => newestMtime(path.join(root, p)));
+  if (existsSync(built) && statSync(built).mtimeMs > Math.max(...sources)) return;
+  console.log('[setup] building the client…');
+  const { build } = await import('vite');
+  await build({ root, logLevel: 'warn', configFile: path.join(root, 'vite.config.ts') });
+}
+
+async function main() {
+  const running = await alreadyRunning();
+  if (running) {
+    console.error(`Spoolbook is already running on port ${port} (${running}). Open http://${host}:${port}, stop it first, or start another one with PORT=<other port> npm start.`);
+    process.exit(1);
+  }
+  const databaseUrl = await prepareDatabase(root, {});
+  console.log('[setup] database migrated and demo data in place');
+  await buildClientIfStale();
+  process.env.DATABASE_URL = databaseUrl;
+  process.env.NODE_ENV ??= 'production';
+  const { startServer } = await import('../server/index');
+  const server = await startServer();
+  mkdirSync(path.dirname(pidFile), { recursive: true });
+  writeFileSync(pidFile, String(process.pid));
+  process.on('exit', () => {
+    try {
+      unlinkSync(pidFile);
+    } catch {
+      // already gone
+    }
+  });
+  console.log(`
+  Spoolbook is running at ${server.url}
+
+  Demo sign-in:  ${DEMO_USER.email}  /  ${DEMO_USER.password}
+  Site admin:    ${ADMIN_USER.email}  /  ${ADMIN_USER.password}   (mail outbox under Admin)
+
+  Stop with Ctrl-C.
+`);
+}
+
+main().catch((err) => {
+  if (err instanceof SetupError) console.error(`[setup] ${err.message}`);
+  else console.error(err);
+  process.exit(1);
+});

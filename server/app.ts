@@ -1,0 +1,112 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import pino, { type Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import { randomUUID } from 'node:crypto';
+import { createLucia, type Auth } from './auth/lucia';
+import { sessionMiddleware } from './auth/session';
+import type { Config } from './config';
+import type { Database, Db } from './db/client';
+import { errorHandler, notFoundHandler } from './http/errors';
+import { requireSameOrigin } from './http/origin';
+import type { Mailer } from './mail/mailer';
+import { adminRouter } from './routes/admin';
+import { authRouter } from './routes/auth';
+import { computeRouter } from './routes/compute';
+import { healthRouter } from './routes/health';
+import { invitationsRouter } from './routes/invitations';
+import { teamsRouter } from './routes/teams';
+
+export interface AppDeps {
+  db: Db;
+  pool: Database['pool'];
+  config: Config;
+  mailer: Mailer;
+  logger: Logger;
+  auth: Auth;
+}
+
+export interface CreateAppOptions {
+  database: Database;
+  config: Config;
+  mailer: Mailer;
+  logger?: Logger;
+}
+
+const defaultClientDir = fileURLToPath(new URL('../dist/client', import.meta.url));
+
+/** Builds the whole app without listening, so tests can drive it with supertest. */
+export function createApp({ database, config, mailer, logger = pino({ level: config.logLevel }) }: CreateAppOptions): { app: Express; deps: AppDeps } {
+  const auth = createLucia(database.db, config);
+  const deps: AppDeps = { db: database.db, pool: database.pool, config, mailer, logger, auth };
+  const app = express();
+  app.disable('x-powered-by');
+  if (config.trustProxy) app.set('trust proxy', config.trustProxy);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // React and the plotting library set inline styles.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          workerSrc: ["'self'", 'blob:'],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: config.secureCookies ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.secureCookies,
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const id = randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      serializers: {
+        req: (req) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res) => ({ statusCode: res.statusCode }),
+      },
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(requireSameOrigin(config.allowedOrigins, auth.sessionCookieName));
+  api.use(sessionMiddleware(auth, config.sessionAbsoluteMs));
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  api.use('/health', healthRouter(deps));
+  api.use('/auth', authRouter(deps));
+  api.use('/teams', teamsRouter(deps));
+  api.use('/invitations', invitationsRouter(deps));
+  api.use('/admin', adminRouter(deps));
+  api.use('/compute', computeRouter());
+  api.use(notFoundHandler);
+  app.use('/api', api);
+
+  const clientDir = config.clientDir ?? defaultClientDir;
+  if (existsSync(path.join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // Every other GET is a client route: the single-page app decides what to show.
+    app.get('/{*splat}', (_req, res) => {
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(path.join(clientDir, 'index.html'));
+    });
+  }
+  app.use(errorHandler(logger));
+  return { app, deps };
+}

@@ -1,0 +1,63 @@
+import { and, eq } from 'drizzle-orm';
+import type { User } from 'lucia';
+import type { Role } from '../../shared/schemas/account';
+import type { Db } from '../db/client';
+import { teamMembers, teams } from '../db/schema';
+import { forbidden, notFound } from '../http/errors';
+
+/** Everything a member may do in a team, as `area:action` strings. */
+export type Permission =
+  | 'team:read'
+  | 'team:rename'
+  | 'team:delete'
+  | 'members:list'
+  | 'members:invite'
+  | 'members:change-role'
+  | 'members:remove'
+  | 'team:leave'
+  | 'content:read'
+  | 'content:write';
+
+const viewer: Permission[] = ['team:read', 'members:list', 'team:leave', 'content:read'];
+const editor: Permission[] = [...viewer, 'content:write'];
+const owner: Permission[] = [...editor, 'team:rename', 'team:delete', 'members:invite', 'members:change-role', 'members:remove'];
+
+export const rolePermissions: Record<Role, ReadonlySet<Permission>> = {
+  viewer: new Set(viewer),
+  editor: new Set(editor),
+  owner: new Set(owner),
+};
+
+/** What a site admin may do in a team they are not a member of: look, never change. */
+const adminPermissions: ReadonlySet<Permission> = new Set(['team:read', 'members:list', 'content:read']);
+
+export function can(role: Role | null, permission: Permission, isAdmin = false): boolean {
+  if (role && rolePermissions[role].has(permission)) return true;
+  return isAdmin && adminPermissions.has(permission);
+}
+
+export interface TeamAccess {
+  teamId: string;
+  teamName: string;
+  personal: boolean;
+  /** The user's role; null for a site admin who is not a member. */
+  role: Role | null;
+}
+
+/**
+ * The one place that decides access to a team's data. A team the user cannot see answers 404
+ * (its existence does not leak); a team they can see but not change answers 403.
+ */
+export async function requireTeamPermission(db: Db, user: User, teamId: string, permission: Permission): Promise<TeamAccess> {
+  const rows = await db
+    .select({ teamId: teams.id, teamName: teams.name, personal: teams.personal, role: teamMembers.role })
+    .from(teams)
+    .leftJoin(teamMembers, and(eq(teamMembers.teamId, teams.id), eq(teamMembers.userId, user.id)))
+    .where(eq(teams.id, teamId))
+    .limit(1);
+  const row = rows[0];
+  if (!row || (!row.role && !user.isAdmin)) throw notFound('No such team.');
+  const access: TeamAccess = { teamId: row.teamId, teamName: row.teamName, personal: row.personal, role: row.role };
+  if (!can(access.role, permission, user.isAdmin)) throw forbidden();
+  return access;
+}

@@ -1,0 +1,77 @@
+import { z } from 'zod';
+
+const port = z.coerce.number().int().min(0).max(65535);
+
+/** Every environment variable the server reads, checked once at start-up. See README "Configuration". */
+const envSchema = z.object({
+  DATABASE_URL: z.string().url('must be a postgres:// URL'),
+  PORT: port.default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  /** The address people open; links in e-mails start with it. */
+  PUBLIC_URL: z.string().url().optional(),
+  /** Comma-separated origins allowed to send state-changing requests (besides PUBLIC_URL's). */
+  APP_ORIGIN: z.string().optional(),
+  /** A real SMTP relay (smtp:// or smtps://). Unset: a local fake SMTP server stores mail in the outbox. */
+  SMTP_URL: z.string().url().optional(),
+  FAKE_SMTP_PORT: port.default(2526),
+  MAIL_FROM: z.string().default('Spoolbook <no-reply@spoolbook.test>'),
+  SESSION_IDLE_HOURS: z.coerce.number().positive().default(24 * 7),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().positive().default(24 * 30),
+  AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(10),
+  TRUST_PROXY: z.string().optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  NODE_ENV: z.string().default('development'),
+  CLIENT_DIR: z.string().optional(),
+});
+
+export interface Config {
+  databaseUrl: string;
+  port: number;
+  host: string;
+  publicUrl: string;
+  allowedOrigins: string[];
+  secureCookies: boolean;
+  smtpUrl: string | null;
+  fakeSmtpPort: number;
+  mailFrom: string;
+  sessionIdleMs: number;
+  sessionAbsoluteMs: number;
+  authRateLimit: number;
+  trustProxy: string | false;
+  logLevel: string;
+  production: boolean;
+  clientDir: string | null;
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    throw new Error(`Invalid configuration:\n${lines}`);
+  }
+  const e = parsed.data;
+  const shownHost = e.HOST === '0.0.0.0' || e.HOST === '::' ? '127.0.0.1' : e.HOST;
+  const publicUrl = (e.PUBLIC_URL ?? `http://${shownHost}:${e.PORT}`).replace(/\/$/, '');
+  const allowedOrigins = new Set([new URL(publicUrl).origin]);
+  allowedOrigins.add(`http://127.0.0.1:${e.PORT}`);
+  allowedOrigins.add(`http://localhost:${e.PORT}`);
+  for (const o of (e.APP_ORIGIN ?? '').split(',').map((s) => s.trim()).filter(Boolean)) allowedOrigins.add(new URL(o).origin);
+  return {
+    databaseUrl: e.DATABASE_URL,
+    port: e.PORT,
+    host: e.HOST,
+    publicUrl,
+    allowedOrigins: [...allowedOrigins],
+    secureCookies: publicUrl.startsWith('https:'),
+    smtpUrl: e.SMTP_URL ?? null,
+    fakeSmtpPort: e.FAKE_SMTP_PORT,
+    mailFrom: e.MAIL_FROM,
+    sessionIdleMs: e.SESSION_IDLE_HOURS * 3600_000,
+    sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3600_000,
+    authRateLimit: e.AUTH_RATE_LIMIT,
+    trustProxy: e.TRUST_PROXY ?? false,
+    logLevel: e.LOG_LEVEL,
+    production: e.NODE_ENV === 'production',
+    clientDir: e.CLIENT_DIR ?? null,
+  };
+}

@@ -1,0 +1,116 @@
+import { sql } from 'drizzle-orm';
+import { boolean, index, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+
+const createdAt = () => timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow();
+
+export const users = pgTable(
+  'users',
+  {
+    id: text('id').primaryKey(),
+    /** Stored lower-cased; unique. */
+    email: text('email').notNull(),
+    name: text('name').notNull(),
+    passwordHash: text('password_hash').notNull(),
+    isAdmin: boolean('is_admin').notNull().default(false),
+    unitSystem: text('unit_system', { enum: ['si', 'us'] }).notNull().default('si'),
+    createdAt: createdAt(),
+    passwordChangedAt: timestamp('password_changed_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('users_email_unique').on(t.email)],
+);
+
+/** lucia sessions; `createdAt` caps a session's absolute lifetime beside lucia's sliding expiry. */
+export const sessions = pgTable(
+  'sessions',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('sessions_user_idx').on(t.userId)],
+);
+
+export const teams = pgTable('teams', {
+  id: text('id').primaryKey(),
+  name: text('name').notNull(),
+  /** Every account has one personal team, made at sign-up; it cannot be deleted. */
+  personal: boolean('personal').notNull().default(false),
+  createdAt: createdAt(),
+});
+
+export const teamMembers = pgTable(
+  'team_members',
+  {
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    role: text('role', { enum: ['owner', 'editor', 'viewer'] }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.teamId, t.userId] }), index('team_members_user_idx').on(t.userId)],
+);
+
+export const invitations = pgTable(
+  'invitations',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    role: text('role', { enum: ['owner', 'editor', 'viewer'] }).notNull(),
+    /** SHA-256 of the token in the e-mailed link; the token itself is never stored. */
+    tokenHash: text('token_hash').notNull(),
+    invitedBy: text('invited_by')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    acceptedAt: timestamp('accepted_at', { withTimezone: true, mode: 'date' }),
+    cancelledAt: timestamp('cancelled_at', { withTimezone: true, mode: 'date' }),
+  },
+  (t) => [
+    uniqueIndex('invitations_token_unique').on(t.tokenHash),
+    uniqueIndex('invitations_pending_unique')
+      .on(t.teamId, t.email)
+      .where(sql`accepted_at IS NULL AND cancelled_at IS NULL`),
+  ],
+);
+
+export const passwordResets = pgTable(
+  'password_resets',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull(),
+    createdAt: createdAt(),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true, mode: 'date' }),
+  },
+  (t) => [uniqueIndex('password_resets_token_unique').on(t.tokenHash)],
+);
+
+/** Messages accepted by the local fake SMTP server (development and tests). */
+export const outbox = pgTable(
+  'outbox',
+  {
+    id: text('id').primaryKey(),
+    from: text('from').notNull(),
+    to: text('to').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    html: text('html'),
+    raw: text('raw').notNull(),
+    headers: jsonb('headers').$type<Record<string, string>>().notNull().default({}),
+    receivedAt: timestamp('received_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [index('outbox_received_idx').on(t.receivedAt)],
+);

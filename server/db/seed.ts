@@ -1,0 +1,37 @@
+import { and, eq } from 'drizzle-orm';
+import type { Db } from './client';
+import { teamMembers, teams, users } from './schema';
+import { createAccount } from '../services/accounts';
+import { newId } from '../auth/tokens';
+
+/** The demo sign-ins, also printed by `npm start` and given in the README. Invented people. */
+export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', name: 'Dana Whitlock' };
+export const ADMIN_USER = { email: 'admin@spoolbook.test', password: 'spoolbook-admin', name: 'Site Admin' };
+export const DEMO_TEAM_NAME = 'Harrow Hill Motorsport';
+const DEMO_MEMBERS = [
+  { email: 'rafael@spoolbook.test', password: 'spoolbook-demo', name: 'Rafael Okonkwo-Lind', role: 'editor' as const },
+  { email: 'mei@spoolbook.test', password: 'spoolbook-demo', name: 'Mei Sato-Brennan', role: 'viewer' as const },
+];
+
+async function ensureUser(db: Db, u: { email: string; password: string; name: string }, isAdmin = false): Promise<string> {
+  const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, u.email));
+  if (existing) return existing.id;
+  return (await createAccount(db, { ...u, isAdmin })).userId;
+}
+
+/** Idempotent: a second run finds everything in place and changes nothing. */
+export async function seedDemo(db: Db) {
+  await ensureUser(db, ADMIN_USER, true);
+  const demoId = await ensureUser(db, DEMO_USER);
+  let [team] = await db.select({ id: teams.id }).from(teams).where(and(eq(teams.name, DEMO_TEAM_NAME), eq(teams.personal, false)));
+  if (!team) {
+    team = { id: newId() };
+    await db.insert(teams).values({ id: team.id, name: DEMO_TEAM_NAME, personal: false });
+  }
+  await db.insert(teamMembers).values({ teamId: team.id, userId: demoId, role: 'owner' }).onConflictDoNothing();
+  for (const m of DEMO_MEMBERS) {
+    const id = await ensureUser(db, m);
+    await db.insert(teamMembers).values({ teamId: team.id, userId: id, role: m.role }).onConflictDoNothing();
+  }
+  return { demoTeamId: team.id };
+}

@@ -1,0 +1,181 @@
+import { and, eq, isNull } from 'drizzle-orm';
+import { Router } from 'express';
+import { changeRoleSchema, createInvitationSchema, createTeamSchema, renameTeamSchema } from '../../shared/schemas/account';
+import { requireTeamPermission } from '../auth/access';
+import { requireUser } from '../auth/session';
+import { newId, newToken } from '../auth/tokens';
+import { invitations, teamMembers, teams, users } from '../db/schema';
+import { HttpError, notFound, parseOr400 } from '../http/errors';
+import { invitationMail } from '../mail/templates';
+import { teamsOf } from '../services/accounts';
+import { assertOwnerRemains, INVITATION_VALID_DAYS, membersOf, pendingInvitationsOf } from '../services/teams';
+import type { AppDeps } from '../app';
+
+export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
+  const router = Router();
+
+  async function sendInvitation(email: string, token: string, teamName: string, inviterName: string, role: string) {
+    const link = `${config.publicUrl}/invitations/${token}`;
+    try {
+      await mailer.send(invitationMail(email, link, teamName, inviterName, role, INVITATION_VALID_DAYS));
+    } catch (err) {
+      logger.error({ err }, 'invitation mail was not sent');
+      throw new HttpError(502, 'mail_failed', 'The invitation was saved but the e-mail could not be sent. Try "Resend" in a moment.');
+    }
+  }
+
+  router.get('/', async (_req, res) => {
+    const user = requireUser(res);
+    const mine = await teamsOf(db, user.id);
+    if (!user.isAdmin) return void res.json({ teams: mine });
+    const all = await db.select({ id: teams.id, name: teams.name, personal: teams.personal }).from(teams).orderBy(teams.name);
+    const roles = new Map(mine.map((t) => [t.id, t.role]));
+    res.json({ teams: all.map((t) => ({ ...t, role: roles.get(t.id) ?? null })) });
+  });
+
+  router.post('/', async (req, res) => {
+    const user = requireUser(res);
+    const input = parseOr400(createTeamSchema, req.body);
+    const id = newId();
+    await db.transaction(async (tx) => {
+      await tx.insert(teams).values({ id, name: input.name, personal: false });
+      await tx.insert(teamMembers).values({ teamId: id, userId: user.id, role: 'owner' });
+    });
+    res.status(201).json({ team: { id, name: input.name, personal: false, role: 'owner' } });
+  });
+
+  router.get('/:teamId', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'team:read');
+    const isOwner = access.role === 'owner';
+    res.json({
+      team: { id: access.teamId, name: access.teamName, personal: access.personal, role: access.role },
+      members: await membersOf(db, access.teamId),
+      invitations: isOwner ? await pendingInvitationsOf(db, access.teamId) : [],
+    });
+  });
+
+  router.patch('/:teamId', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'team:rename');
+    const input = parseOr400(renameTeamSchema, req.body);
+    await db.update(teams).set({ name: input.name }).where(eq(teams.id, access.teamId));
+    res.json({ team: { id: access.teamId, name: input.name, personal: access.personal, role: access.role } });
+  });
+
+  router.delete('/:teamId', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'team:delete');
+    if (access.personal) throw new HttpError(400, 'personal_team', 'A personal team cannot be deleted.');
+    await db.delete(teams).where(eq(teams.id, access.teamId));
+    res.status(204).end();
+  });
+
+  router.get('/:teamId/members', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'members:list');
+    res.json({ members: await membersOf(db, access.teamId) });
+  });
+
+  router.patch('/:teamId/members/:userId', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'members:change-role');
+    const input = parseOr400(changeRoleSchema, req.body);
+    await db.transaction(async (tx) => {
+      await assertOwnerRemains(tx, access.teamId, req.params.userId, input.role);
+      await tx.update(teamMembers).set({ role: input.role }).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, req.params.userId)));
+    });
+    const member = (await membersOf(db, access.teamId)).find((m) => m.userId === req.params.userId);
+    res.json({ member });
+  });
+
+  router.delete('/:teamId/members/:userId', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'members:remove');
+    await db.transaction(async (tx) => {
+      await assertOwnerRemains(tx, access.teamId, req.params.userId, null);
+      await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, req.params.userId)));
+    });
+    res.status(204).end();
+  });
+
+  router.post('/:teamId/leave', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'team:leave');
+    if (access.personal) throw new HttpError(400, 'personal_team', 'You cannot leave your personal team.');
+    await db.transaction(async (tx) => {
+      await assertOwnerRemains(tx, access.teamId, user.id, null);
+      await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, user.id)));
+    });
+    res.status(204).end();
+  });
+
+  router.get('/:teamId/invitations', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'members:invite');
+    res.json({ invitations: await pendingInvitationsOf(db, access.teamId) });
+  });
+
+  router.post('/:teamId/invitations', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'members:invite');
+    const input = parseOr400(createInvitationSchema, req.body);
+    const [already] = await db
+      .select({ userId: users.id })
+      .from(teamMembers)
+      .innerJoin(users, eq(users.id, teamMembers.userId))
+      .where(and(eq(teamMembers.teamId, access.teamId), eq(users.email, input.email)));
+    if (already) {
+      throw new HttpError(409, 'already_member', `${input.email} is already a member of this team.`, { issues: [{ path: 'email', message: 'is already a member' }] });
+    }
+    // A new invitation replaces any earlier pending one for the same address.
+    await db
+      .update(invitations)
+      .set({ cancelledAt: new Date() })
+      .where(and(eq(invitations.teamId, access.teamId), eq(invitations.email, input.email), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt)));
+    const { token, tokenHash } = newToken();
+    const id = newId();
+    await db.insert(invitations).values({
+      id,
+      teamId: access.teamId,
+      email: input.email,
+      role: input.role,
+      tokenHash,
+      invitedBy: user.id,
+      expiresAt: new Date(Date.now() + INVITATION_VALID_DAYS * 86_400_000),
+    });
+    await sendInvitation(input.email, token, access.teamName, user.name, input.role);
+    const invitation = (await pendingInvitationsOf(db, access.teamId)).find((i) => i.id === id);
+    res.status(201).json({ invitation });
+  });
+
+  router.post('/:teamId/invitations/:invitationId/resend', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'members:invite');
+    const { token, tokenHash } = newToken();
+    const rows = await db
+      .update(invitations)
+      .set({ tokenHash, expiresAt: new Date(Date.now() + INVITATION_VALID_DAYS * 86_400_000) })
+      .where(and(eq(invitations.id, req.params.invitationId), eq(invitations.teamId, access.teamId), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt)))
+      .returning();
+    const row = rows[0];
+    if (!row) throw notFound('No such pending invitation.');
+    await sendInvitation(row.email, token, access.teamName, user.name, row.role);
+    const invitation = (await pendingInvitationsOf(db, access.teamId)).find((i) => i.id === row.id);
+    res.json({ invitation });
+  });
+
+  router.delete('/:teamId/invitations/:invitationId', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'members:invite');
+    const rows = await db
+      .update(invitations)
+      .set({ cancelledAt: new Date() })
+      .where(and(eq(invitations.id, req.params.invitationId), eq(invitations.teamId, access.teamId), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt)))
+      .returning({ id: invitations.id });
+    if (rows.length === 0) throw notFound('No such pending invitation.');
+    res.status(204).end();
+  });
+
+  return router;
+}

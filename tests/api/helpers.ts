@@ -1,0 +1,88 @@
+import { desc, eq } from 'drizzle-orm';
+import { randomUUID } from 'node:crypto';
+import pino from 'pino';
+import request from 'supertest';
+import { createApp } from '../../server/app';
+import { loadConfig, type Config } from '../../server/config';
+import { connectDatabase, type Database } from '../../server/db/client';
+import { outbox } from '../../server/db/schema';
+import { startFakeSmtp } from '../../server/mail/fake-smtp';
+import { createMailer } from '../../server/mail/mailer';
+
+export const ORIGIN = 'http://127.0.0.1:3000';
+
+export interface TestApp {
+  app: ReturnType<typeof createApp>['app'];
+  database: Database;
+  config: Config;
+  close: () => Promise<void>;
+}
+
+/** The real app over the real (disposable) test database, with mail caught by the real fake SMTP server. */
+export async function startTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
+  if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the API tests through `npm test`.');
+  const config = { ...loadConfig({ ...process.env, PORT: '3000', HOST: '127.0.0.1', PUBLIC_URL: ORIGIN }), authRateLimit: 1000, ...overrides };
+  const database = connectDatabase(config.databaseUrl, { max: 5 });
+  const smtp = await startFakeSmtp(database.db, 0);
+  const mailer = createMailer(`smtp://127.0.0.1:${smtp.port}`, config.mailFrom);
+  const { app } = createApp({ database, config, mailer, logger: pino({ level: 'silent' }) });
+  return {
+    app,
+    database,
+    config,
+    close: async () => {
+      mailer.close();
+      await smtp.close();
+      await database.pool.end();
+    },
+  };
+}
+
+export function uniqueEmail(prefix = 'user') {
+  return `${prefix}-${randomUUID().slice(0, 8)}@example.test`;
+}
+
+/** A browser-like client: keeps cookies and sends our Origin on every request. */
+export function client(t: TestApp) {
+  const agent = request.agent(t.app);
+  const withOrigin = <T extends { set: (k: string, v: string) => T }>(r: T) => r.set('Origin', ORIGIN);
+  return {
+    agent,
+    get: (url: string) => agent.get(url),
+    post: (url: string, body?: object) => withOrigin(agent.post(url)).send(body),
+    patch: (url: string, body?: object) => withOrigin(agent.patch(url)).send(body),
+    delete: (url: string) => withOrigin(agent.delete(url)),
+  };
+}
+export type Client = ReturnType<typeof client>;
+
+export const PASSWORD = 'correct horse battery';
+
+/** Signs a new account up and returns the signed-in client with its user and personal team. */
+export async function signedUp(t: TestApp, prefix = 'user') {
+  const c = client(t);
+  const email = uniqueEmail(prefix);
+  const res = await c.post('/api/auth/sign-up', { email, password: PASSWORD, name: `${prefix} ${email.slice(-14, -13)}` });
+  if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return { c, email, user: res.body.user as { id: string }, personalTeamId: res.body.teams[0].id as string };
+}
+
+/** The newest message the fake SMTP server stored for `to`. */
+export async function latestMailTo(t: TestApp, to: string) {
+  const [row] = await t.database.db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt)).limit(1);
+  if (!row) throw new Error(`no mail to ${to} in the outbox`);
+  return row;
+}
+
+export function linkIn(text: string, pathPrefix: string): string {
+  const m = text.match(new RegExp(`https?://[^\\s]+${pathPrefix.replace(/[?/]/g, (c) => `\\${c}`)}[^\\s]+`));
+  if (!m) throw new Error(`no ${pathPrefix} link in: ${text}`);
+  return m[0];
+}
+
+export function expectErrorShape(body: unknown) {
+  const b = body as { error?: { code?: unknown; message?: unknown } };
+  if (!b?.error || typeof b.error.code !== 'string' || typeof b.error.message !== 'string') {
+    throw new Error(`not the error shape: ${JSON.stringify(body)}`);
+  }
+}
