@@ -1,0 +1,57 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { desc, eq } from 'drizzle-orm';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { inject } from 'vitest';
+import { connectDatabase, type Database } from '../../server/db/client';
+import { outbox } from '../../server/db/schema';
+
+export const screenshotDir = path.resolve(import.meta.dirname, '..', '..', 'test-results', 'screenshots');
+
+export function baseUrl(): string {
+  return inject('baseUrl');
+}
+
+/** Debian's chromium with the flags this machine needs (no sandbox as root, no background traffic). */
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run', '--disable-sync', '--disable-quic'],
+  });
+}
+
+export async function screenshot(page: Page, name: string) {
+  mkdirSync(screenshotDir, { recursive: true });
+  await page.screenshot({ path: path.join(screenshotDir, `${name}.png`), fullPage: true });
+}
+
+let database: Database | null = null;
+export function testDatabase(): Database {
+  database ??= connectDatabase(process.env.DATABASE_URL!, { max: 2 });
+  return database;
+}
+export async function closeTestDatabase() {
+  await database?.pool.end();
+  database = null;
+}
+
+/** The newest link with `pathPrefix` in a message the local mail catcher stored for `to`. */
+export async function linkFromOutbox(to: string, pathPrefix: string): Promise<string> {
+  for (let i = 0; i < 40; i++) {
+    const [row] = await testDatabase().db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt)).limit(1);
+    const m = row?.text.match(new RegExp(`https?://\\S+${pathPrefix}\\S+`));
+    if (m) return m[0];
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`no mail to ${to} with a ${pathPrefix} link`);
+}
+
+/** Fails the test on any uncaught page error or console error (a broken bundle shows up here). */
+export function watchForPageErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(`pageerror: ${e.message}`));
+  page.on('console', (m) => {
+    if (m.type() === 'error' && !/Failed to load resource: the server responded with a status of 4\d\d/.test(m.text())) errors.push(`console: ${m.text()}`);
+  });
+  return errors;
+}
