@@ -1,0 +1,42 @@
+import { Link } from 'react-router';
+import { Alert } from '../../../components/Alert';
+import { Badge } from '../../../components/Badge';
+import { Loading } from '../../../components/Page';
+import { Table, td, th } from '../../../components/Table';
+import { roleNames } from '../../../lib/format';
+import { paths } from '../../../lib/paths';
+import { useAllTeams } from '../api/get-all-teams';
+
+export function AllTeamsTable() {
+  const teams = useAllTeams();
+  if (teams.isPending) return <Loading label="Loading teams…" />;
+  if (teams.isError) return <Alert tone="error">{teams.error.message}</Alert>;
+  return (
+    <Table
+      caption={`${teams.data.length} ${teams.data.length === 1 ? 'team' : 'teams'}`}
+      head={
+        <tr>
+          <th scope="col" className={th}>
+            Team
+          </th>
+          <th scope="col" className={th}>
+            Kind
+          </th>
+          <th scope="col" className={th}>
+            Your role
+          </th>
+        </tr>
+      }
+    >
+      {teams.data.map((team) => (
+        <tr key={team.id}>
+          <th scope="row" className={`${td} font-semibold`}>
+            <Link to={paths.team.href(team.id)}>{team.name}</Link>
+          </th>
+          <td className={td}>{team.personal ? <Badge>Personal</Badge> : 'Shared'}</td>
+          <td className={`${td} text-ink-soft`}>{team.role ? roleNames[team.role] : 'Not a member'}</td>
+        </tr>
+      ))}
+    </Table>
+  );
+}

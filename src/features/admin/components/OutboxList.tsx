@@ -1,0 +1,44 @@
+import { Link } from 'react-router';
+import { Alert } from '../../../components/Alert';
+import { Loading } from '../../../components/Page';
+import { Table, td, th } from '../../../components/Table';
+import { formatDateTime } from '../../../lib/format';
+import { paths } from '../../../lib/paths';
+import { useOutbox } from '../api/get-outbox';
+
+export function OutboxList() {
+  const outbox = useOutbox();
+  if (outbox.isPending) return <Loading label="Loading the outbox…" />;
+  if (outbox.isError) return <Alert tone="error">{outbox.error.message}</Alert>;
+  if (outbox.data.length === 0) return <p className="text-ink-soft">No mail has been sent yet.</p>;
+  return (
+    <Table
+      caption="Captured messages, newest first"
+      head={
+        <tr>
+          <th scope="col" className={th}>
+            Received
+          </th>
+          <th scope="col" className={th}>
+            To
+          </th>
+          <th scope="col" className={th}>
+            Subject
+          </th>
+        </tr>
+      }
+    >
+      {outbox.data.map((message) => (
+        <tr key={message.id}>
+          <td className={`${td} whitespace-nowrap text-ink-soft`}>
+            <time dateTime={message.receivedAt}>{formatDateTime(message.receivedAt)}</time>
+          </td>
+          <td className={td}>{message.to}</td>
+          <th scope="row" className={`${td} font-normal`}>
+            <Link to={paths.adminOutboxMessage.href(message.id)}>{message.subject || '(no subject)'}</Link>
+          </th>
+        </tr>
+      ))}
+    </Table>
+  );
+}

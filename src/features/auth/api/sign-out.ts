@@ -1,0 +1,15 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import { endSession } from '../../../lib/session';
+
+export function signOut() {
+  return api.post('/api/auth/sign-out');
+}
+
+export function useSignOut() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: signOut,
+    onSuccess: () => endSession(queryClient),
+  });
+}

@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import { meSchema, updateProfileSchema } from '../../../../shared/schemas/account';
+import { api } from '../../../lib/api-client';
+import { meQueryOptions } from '../../../lib/session';
+
+export type UpdateProfileInput = z.infer<typeof updateProfileSchema>;
+
+/** Changes the display name and/or the unit system; the answer is the new `me`. */
+export function updateProfile(input: UpdateProfileInput) {
+  return api.patch('/api/auth/me', input, meSchema);
+}
+
+export function useUpdateProfile() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: updateProfile,
+    onSuccess: (me) => queryClient.setQueryData(meQueryOptions().queryKey, me),
+  });
+}

@@ -1,0 +1,51 @@
+import { useState } from 'react';
+import { changePasswordSchema } from '../../../../shared/schemas/account';
+import { Alert } from '../../../components/Alert';
+import { Button } from '../../../components/Button';
+import { Form, FormActions } from '../../../components/Form';
+import { TextField } from '../../../components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
+import { useChangePassword } from '../api/change-password';
+
+const FIELDS = ['currentPassword', 'newPassword', 'confirmPassword'] as const;
+
+export function ChangePasswordForm() {
+  const change = useChangePassword();
+  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
+
+  function submit(form: HTMLFormElement) {
+    const values = formValues(form);
+    const parsed = parseForm(
+      changePasswordSchema,
+      { currentPassword: values.currentPassword ?? '', newPassword: values.newPassword ?? '' },
+      FIELDS,
+    );
+    if (!parsed.ok) return setErrors(parsed.errors);
+    if (values.newPassword !== values.confirmPassword) {
+      return setErrors({ form: null, fields: { confirmPassword: 'Does not match the new password.' } });
+    }
+    setErrors(noFormErrors);
+    change.mutate(parsed.data, {
+      onSuccess: () => form.reset(),
+      onError: (error) => setErrors(formErrorsFrom(error, FIELDS)),
+    });
+  }
+
+  return (
+    <Form errors={errors} onSubmit={submit} aria-label="Change password">
+      <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" error={errors.fields.currentPassword} required />
+      <TextField label="New password" name="newPassword" type="password" autoComplete="new-password" hint="At least 8 characters." error={errors.fields.newPassword} required />
+      <TextField label="Repeat the new password" name="confirmPassword" type="password" autoComplete="new-password" error={errors.fields.confirmPassword} required />
+      {change.isSuccess && !change.isPending && (
+        <Alert tone="success" title="Password changed">
+          Every other session of this account was signed out; this one stays signed in.
+        </Alert>
+      )}
+      <FormActions>
+        <Button type="submit" variant="primary" pending={change.isPending}>
+          Change password
+        </Button>
+      </FormActions>
+    </Form>
+  );
+}

@@ -1,0 +1,22 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api, segment } from '../../../lib/api-client';
+import { meQueryOptions } from '../../../lib/session';
+import { teamsQueryOptions } from './get-teams';
+
+export function leaveTeam(teamId: string) {
+  return api.post(`/api/teams/${segment(teamId)}/leave`);
+}
+
+export function useLeaveTeam(teamId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => leaveTeam(teamId),
+    // Only the list (exact key): refetching this team's own page now would flash a 404 before
+    // the page navigates away; its stale copy is collected later.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: teamsQueryOptions().queryKey, exact: true }),
+        queryClient.invalidateQueries({ queryKey: meQueryOptions().queryKey }),
+      ]),
+  });
+}

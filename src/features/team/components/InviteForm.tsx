@@ -1,0 +1,51 @@
+import { useState } from 'react';
+import { createInvitationSchema } from '../../../../shared/schemas/account';
+import { Alert } from '../../../components/Alert';
+import { Button } from '../../../components/Button';
+import { Form, FormActions } from '../../../components/Form';
+import { SelectField } from '../../../components/SelectField';
+import { TextField } from '../../../components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
+import { roleDescriptions } from '../../../lib/format';
+import { useCreateInvitation } from '../api/create-invitation';
+import { roleOptions } from './MembersTable';
+
+const FIELDS = ['email', 'role'] as const;
+
+export function InviteForm({ teamId }: { teamId: string }) {
+  const invite = useCreateInvitation(teamId);
+  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
+  const [sentTo, setSentTo] = useState<string | null>(null);
+
+  function submit(form: HTMLFormElement) {
+    const parsed = parseForm(createInvitationSchema, formValues(form), FIELDS);
+    if (!parsed.ok) return setErrors(parsed.errors);
+    setErrors(noFormErrors);
+    setSentTo(null);
+    invite.mutate(parsed.data, {
+      onSuccess: (invitation) => {
+        setSentTo(invitation.email);
+        form.reset();
+      },
+      onError: (error) => setErrors(formErrorsFrom(error, FIELDS)),
+    });
+  }
+
+  return (
+    <Form errors={errors} onSubmit={submit} aria-label="Invite someone">
+      <div className="grid gap-4 sm:grid-cols-[1fr_12rem]">
+        <TextField label="E-mail to invite" name="email" type="email" autoComplete="off" error={errors.fields.email} required />
+        <SelectField label="Role" name="role" options={roleOptions} defaultValue="editor" error={errors.fields.role} />
+      </div>
+      <p className="text-sm text-ink-soft">
+        Owner: {roleDescriptions.owner}. Editor: {roleDescriptions.editor}. Viewer: {roleDescriptions.viewer}.
+      </p>
+      {sentTo && <Alert tone="success">Invitation sent to {sentTo}.</Alert>}
+      <FormActions>
+        <Button type="submit" variant="primary" pending={invite.isPending}>
+          Send invitation
+        </Button>
+      </FormActions>
+    </Form>
+  );
+}

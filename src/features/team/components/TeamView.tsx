@@ -1,0 +1,138 @@
+import { Link } from 'react-router';
+import type { TeamDetail } from '../../../../shared/schemas/account';
+import { Alert } from '../../../components/Alert';
+import { Badge } from '../../../components/Badge';
+import { Card } from '../../../components/Card';
+import { ConfirmButton } from '../../../components/ConfirmButton';
+import { Loading, Page } from '../../../components/Page';
+import { isApiError } from '../../../lib/api-client';
+import { roleDescriptions, roleNames } from '../../../lib/format';
+import { paths } from '../../../lib/paths';
+import { useMe } from '../../../lib/session';
+import { useDeleteTeam } from '../api/delete-team';
+import { useTeam } from '../api/get-team';
+import { useLeaveTeam } from '../api/leave-team';
+import { InviteForm } from './InviteForm';
+import { MembersTable } from './MembersTable';
+import { PendingInvitations } from './PendingInvitations';
+import { RenameTeamForm } from './RenameTeamForm';
+
+/**
+ * A team's page. What it offers follows the user's role: owners manage members, invitations
+ * and the team; editors and viewers see the members and may leave; a site admin who is not a
+ * member only looks.
+ */
+export function TeamView({ teamId, onGone }: { teamId: string; onGone: () => void }) {
+  const team = useTeam(teamId);
+
+  if (team.isPending) return <Loading label="Loading the team…" />;
+  if (team.isError) {
+    const missing = isApiError(team.error) && (team.error.status === 404 || team.error.status === 403);
+    return (
+      <Page title={missing ? 'Team not found' : 'Team'}>
+        <Alert tone="error" title={missing ? 'This team does not exist, or you are not a member of it.' : 'Could not load the team.'}>
+          {!missing && <p>{team.error.message}</p>}
+          <p>
+            <Link to={paths.teams.href()}>Back to your teams</Link>
+          </p>
+        </Alert>
+      </Page>
+    );
+  }
+  return <TeamDetailView detail={team.data} onGone={onGone} />;
+}
+
+function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => void }) {
+  const { team, members, invitations } = detail;
+  const me = useMe();
+  const isOwner = team.role === 'owner';
+  const canLeave = team.role !== null && !(team.personal && isOwner);
+
+  return (
+    <Page
+      eyebrow="Team"
+      title={team.name}
+      description={
+        team.role ? (
+          <>
+            You are {team.role === 'owner' ? 'an' : 'a'} {roleNames[team.role].toLowerCase()} here: you {roleDescriptions[team.role]}.
+          </>
+        ) : (
+          'You are not a member of this team; as a site admin you can see it.'
+        )
+      }
+      actions={team.personal ? <Badge>Personal team</Badge> : undefined}
+    >
+      <Card title={`Members (${members.length})`}>
+        <MembersTable teamId={team.id} members={members} currentUserId={me.data?.user.id ?? null} canManage={isOwner} />
+      </Card>
+
+      {isOwner && (
+        <Card title="Invitations">
+          <div className="space-y-6">
+            <InviteForm teamId={team.id} />
+            <PendingInvitations teamId={team.id} invitations={invitations} />
+          </div>
+        </Card>
+      )}
+
+      {isOwner && (
+        <Card title="Team name">
+          <RenameTeamForm key={team.name} team={team} />
+        </Card>
+      )}
+
+      {(canLeave || isOwner) && (
+        <Card title="Leave or delete">
+          <div className="flex flex-wrap items-start gap-6">
+            {canLeave && <LeaveTeam teamId={team.id} teamName={team.name} onLeft={onGone} />}
+            {isOwner &&
+              (team.personal ? (
+                <p className="text-sm text-ink-soft">Your personal team cannot be deleted.</p>
+              ) : (
+                <DeleteTeam teamId={team.id} teamName={team.name} onDeleted={onGone} />
+              ))}
+          </div>
+        </Card>
+      )}
+    </Page>
+  );
+}
+
+function LeaveTeam({ teamId, teamName, onLeft }: { teamId: string; teamName: string; onLeft: () => void }) {
+  const leave = useLeaveTeam(teamId);
+  return (
+    <div className="space-y-2">
+      <ConfirmButton
+        title={`Leave ${teamName}?`}
+        description="You lose access to this team's studies and maps. An owner can invite you again."
+        confirmLabel="Leave team"
+        cancelLabel="Stay"
+        onConfirm={async () => {
+          await leave.mutateAsync();
+          onLeft();
+        }}
+      >
+        Leave team
+      </ConfirmButton>
+    </div>
+  );
+}
+
+function DeleteTeam({ teamId, teamName, onDeleted }: { teamId: string; teamName: string; onDeleted: () => void }) {
+  const remove = useDeleteTeam(teamId);
+  return (
+    <ConfirmButton
+      title={`Delete ${teamName}?`}
+      description="The team, its studies and its maps are deleted for every member. This cannot be undone."
+      confirmLabel="Delete team"
+      cancelLabel="Keep team"
+      onConfirm={async () => {
+        await remove.mutateAsync();
+        onDeleted();
+      }}
+    >
+      Delete team
+    </ConfirmButton>
+  );
+}

@@ -1,0 +1,54 @@
+// Every route path of the client in one place: `path` for the router, `href()` for links.
+
+export const paths = {
+  home: { path: '/', href: () => '/' },
+
+  signIn: {
+    path: '/sign-in',
+    href: (next?: string | null) => (next ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
+  },
+  signUp: {
+    path: '/sign-up',
+    href: (next?: string | null) => (next ? `/sign-up?next=${encodeURIComponent(next)}` : '/sign-up'),
+  },
+  forgotPassword: { path: '/forgot-password', href: () => '/forgot-password' },
+  /** The link the password-reset mail carries: `/reset-password?token=…`. */
+  resetPassword: {
+    path: '/reset-password',
+    href: (token?: string) => (token ? `/reset-password?token=${encodeURIComponent(token)}` : '/reset-password'),
+  },
+  /** The link the invitation mail carries. */
+  invitation: {
+    path: '/invitations/:token',
+    href: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
+
+  studies: { path: '/studies', href: () => '/studies' },
+  maps: { path: '/maps', href: () => '/maps' },
+  learn: { path: '/learn', href: () => '/learn' },
+  teams: { path: '/teams', href: () => '/teams' },
+  team: { path: '/teams/:teamId', href: (teamId: string) => `/teams/${encodeURIComponent(teamId)}` },
+  settings: { path: '/settings', href: () => '/settings' },
+
+  admin: { path: '/admin', href: () => '/admin' },
+  adminTeams: { path: '/admin/teams', href: () => '/admin/teams' },
+  adminOutbox: { path: '/admin/outbox', href: () => '/admin/outbox' },
+  adminOutboxMessage: {
+    path: '/admin/outbox/:messageId',
+    href: (messageId: string) => `/admin/outbox/${encodeURIComponent(messageId)}`,
+  },
+} as const;
+
+/** Where a signed-in user lands by default. */
+export const homeAfterSignIn = paths.studies.href();
+
+/**
+ * The `next` parameter, if it names a page of this app; anything else (another site,
+ * `//host`, `javascript:`) falls back to the default so sign-in cannot be used to bounce
+ * users to a foreign page.
+ */
+export function safeNext(next: string | null | undefined, fallback: string = homeAfterSignIn): string {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return fallback;
+  if (next === paths.signIn.path || next.startsWith(`${paths.signIn.path}?`)) return fallback;
+  return next;
+}

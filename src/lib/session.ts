@@ -1,0 +1,48 @@
+import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
+import { meSchema, type Me } from '../../shared/schemas/account';
+import { api, isApiError, onUnauthorized } from './api-client';
+
+/**
+ * Who is signed in, or null when nobody is. Shared by every feature (features may not import
+ * each other, and the unit system, the navigation and the guards all need it).
+ */
+export async function getMe(): Promise<Me | null> {
+  try {
+    return await api.get('/api/auth/me', meSchema);
+  } catch (error) {
+    if (isApiError(error) && error.status === 401) return null;
+    throw error;
+  }
+}
+
+export const meQueryOptions = () =>
+  queryOptions({
+    queryKey: ['auth', 'me'] as const,
+    queryFn: getMe,
+    staleTime: 5 * 60_000,
+    // Coming back to the tab re-checks the session, so an expired one sends the user to sign-in.
+    refetchOnWindowFocus: true,
+  });
+
+export function useMe() {
+  return useQuery(meQueryOptions());
+}
+
+/** Stores a fresh `me` after signing in or up; drops everything cached for whoever came before. */
+export function startSession(queryClient: QueryClient, me: Me): void {
+  queryClient.clear();
+  queryClient.setQueryData(meQueryOptions().queryKey, me);
+}
+
+/** Forgets the signed-in user and every cached answer that belonged to them. */
+export function endSession(queryClient: QueryClient): void {
+  queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== 'auth' });
+  queryClient.setQueryData(meQueryOptions().queryKey, null);
+}
+
+/** When any request finds the session gone, forget the user; the route guards do the rest. */
+export function installSessionExpiry(queryClient: QueryClient): () => void {
+  return onUnauthorized(() => {
+    if (queryClient.getQueryData(meQueryOptions().queryKey)) endSession(queryClient);
+  });
+}

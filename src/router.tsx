@@ -1,0 +1,104 @@
+import { createBrowserRouter, Navigate } from 'react-router';
+import { Loading } from './components/Page';
+import { paths } from './lib/paths';
+import { queryClient } from './lib/query-client';
+import { meQueryOptions } from './lib/session';
+import { AdminLayout } from './routes/admin-layout';
+import { AdminOutboxMessageRoute } from './routes/admin-outbox-message';
+import { AdminOutboxRoute } from './routes/admin-outbox';
+import { AdminTeamsRoute } from './routes/admin-teams';
+import { ForgotPasswordRoute } from './routes/forgot-password';
+import { RequireAdmin, RequireSignedIn, RequireSignedOut } from './routes/guards';
+import { HomeRoute } from './routes/home';
+import { InvitationRoute } from './routes/invitation';
+import { AppLayout, PublicLayout, RootLayout, SessionLayout } from './routes/layouts';
+import { LearnRoute } from './routes/learn';
+import { MapsRoute } from './routes/maps';
+import { NotFoundRoute } from './routes/not-found';
+import { ResetPasswordRoute } from './routes/reset-password';
+import { RouteError } from './routes/route-error';
+import { SettingsRoute } from './routes/settings';
+import { SignInRoute } from './routes/sign-in';
+import { SignUpRoute } from './routes/sign-up';
+import { StudiesRoute } from './routes/studies';
+import { TeamRoute } from './routes/team';
+import { TeamsRoute } from './routes/teams';
+
+/** Strips the leading slash: child routes are relative to their parent. */
+const child = (path: string) => path.replace(/^\//, '');
+
+export const routes = [
+  {
+    path: '/',
+    element: <RootLayout />,
+    errorElement: <RouteError />,
+    hydrateFallbackElement: <Loading />,
+    // Knowing who is signed in before the first paint lets every guard decide at once.
+    loader: async () => {
+      await queryClient.ensureQueryData(meQueryOptions());
+      return null;
+    },
+    children: [
+      { index: true, element: <HomeRoute /> },
+      {
+        element: <PublicLayout />,
+        children: [
+          {
+            element: <RequireSignedOut />,
+            children: [
+              { path: child(paths.signIn.path), element: <SignInRoute /> },
+              { path: child(paths.signUp.path), element: <SignUpRoute /> },
+            ],
+          },
+        ],
+      },
+      {
+        element: <SessionLayout />,
+        children: [
+          { path: child(paths.forgotPassword.path), element: <ForgotPasswordRoute /> },
+          { path: child(paths.resetPassword.path), element: <ResetPasswordRoute /> },
+          { path: child(paths.invitation.path), element: <InvitationRoute /> },
+        ],
+      },
+      {
+        element: <RequireSignedIn />,
+        children: [
+          {
+            element: <AppLayout />,
+            children: [
+              { path: child(paths.studies.path), element: <StudiesRoute /> },
+              { path: child(paths.maps.path), element: <MapsRoute /> },
+              { path: child(paths.learn.path), element: <LearnRoute /> },
+              { path: child(paths.teams.path), element: <TeamsRoute /> },
+              { path: child(paths.team.path), element: <TeamRoute /> },
+              { path: child(paths.settings.path), element: <SettingsRoute /> },
+              {
+                path: child(paths.admin.path),
+                element: <RequireAdmin />,
+                children: [
+                  {
+                    element: <AdminLayout />,
+                    children: [
+                      { index: true, element: <Navigate to={paths.adminTeams.href()} replace /> },
+                      { path: child(paths.adminTeams.path), element: <AdminTeamsRoute /> },
+                      { path: child(paths.adminOutbox.path), element: <AdminOutboxRoute /> },
+                      { path: child(paths.adminOutboxMessage.path), element: <AdminOutboxMessageRoute /> },
+                    ],
+                  },
+                ],
+              },
+            ],
+          },
+        ],
+      },
+      {
+        element: <SessionLayout />,
+        children: [{ path: '*', element: <NotFoundRoute /> }],
+      },
+    ],
+  },
+];
+
+export function createRouter() {
+  return createBrowserRouter(routes);
+}

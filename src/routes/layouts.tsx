@@ -1,0 +1,78 @@
+import { Link, Outlet, ScrollRestoration, useNavigate } from 'react-router';
+import { BrandMark, BrandWord } from '../components/Brand';
+import { Nav, SkipLink, type NavItem } from '../components/Nav';
+import { SignOutButton } from '../features/auth/components/SignOutButton';
+import { UnitSwitch } from '../features/auth/components/UnitSwitch';
+import { homeAfterSignIn, paths } from '../lib/paths';
+import { useMe } from '../lib/session';
+
+const areas: readonly NavItem[] = [
+  { to: paths.studies.href(), label: 'Studies' },
+  { to: paths.maps.href(), label: 'Maps' },
+  { to: paths.learn.href(), label: 'Learn' },
+  { to: paths.teams.href(), label: 'Team' },
+];
+
+/** The top of the tree: scroll restoration and nothing else. */
+export function RootLayout() {
+  return (
+    <>
+      <ScrollRestoration />
+      <Outlet />
+    </>
+  );
+}
+
+/** Signed-in pages: the header with the areas, the unit switch and the account. */
+export function AppLayout() {
+  const me = useMe();
+  const navigate = useNavigate();
+  const user = me.data?.user;
+  return (
+    <div className="flex min-h-screen flex-col">
+      <SkipLink />
+      <Nav
+        homeHref={homeAfterSignIn}
+        items={user?.isAdmin ? [...areas, { to: paths.admin.href(), label: 'Admin' }] : areas}
+        end={
+          <>
+            <UnitSwitch />
+            <Link to={paths.settings.href()} className="text-sm font-semibold" title="Account settings">
+              {user?.name ?? 'Account'}
+            </Link>
+            <SignOutButton onSignedOut={() => navigate(paths.signIn.href(), { replace: true })} />
+          </>
+        }
+      />
+      <main id="main" tabIndex={-1} className="flex-1 px-4 py-8 focus:outline-none">
+        <Outlet />
+      </main>
+    </div>
+  );
+}
+
+/** Pages for visitors (sign-in, password reset): the brand and one column. */
+export function PublicLayout() {
+  return (
+    <div className="flex min-h-screen flex-col">
+      <SkipLink />
+      <header className="px-4 py-4">
+        <div className="mx-auto flex max-w-5xl items-center">
+          <Link to={paths.home.href()} className="flex items-center gap-2 rounded-md py-1 pr-1 no-underline hover:no-underline" aria-label="Spoolbook home">
+            <BrandMark className="size-8" />
+            <BrandWord className="text-2xl" />
+          </Link>
+        </div>
+      </header>
+      <main id="main" tabIndex={-1} className="flex-1 px-4 pb-12 pt-4 focus:outline-none">
+        <Outlet />
+      </main>
+    </div>
+  );
+}
+
+/** Pages anyone may open (an invitation, a reset link): the app's header when signed in. */
+export function SessionLayout() {
+  const me = useMe();
+  return me.data ? <AppLayout /> : <PublicLayout />;
+}

@@ -1,0 +1,26 @@
+import { useNavigate } from 'react-router';
+import { Alert } from '../components/Alert';
+import { Card } from '../components/Card';
+import { Loading, Page } from '../components/Page';
+import { CreateTeamForm } from '../features/team/components/CreateTeamForm';
+import { TeamList } from '../features/team/components/TeamList';
+import { useTeams } from '../features/team/api/get-teams';
+import { paths } from '../lib/paths';
+
+export function TeamsRoute() {
+  const teams = useTeams();
+  const navigate = useNavigate();
+  return (
+    <Page title="Teams" description="A team shares its studies and maps. Owners invite people and choose what each may do.">
+      <Card title="Your teams">
+        {teams.isPending && <Loading label="Loading teams…" />}
+        {teams.isError && <Alert tone="error">{teams.error.message}</Alert>}
+        {/* A site admin is answered every team; this page lists only the ones they belong to. */}
+        {teams.data && <TeamList teams={teams.data.filter((team) => team.role !== null)} />}
+      </Card>
+      <Card title="Create a team">
+        <CreateTeamForm onCreated={(team) => navigate(paths.team.href(team.id))} />
+      </Card>
+    </Page>
+  );
+}
