@@ -2,7 +2,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { Role, TeamDetail } from '../../../shared/schemas/account';
+import type { Me, Role, TeamDetail } from '../../../shared/schemas/account';
 import { TeamView } from '../../../src/features/team/components/TeamView';
 import { teamQueryOptions } from '../../../src/features/team/api/get-team';
 import { meQueryOptions } from '../../../src/lib/session';
@@ -33,10 +33,11 @@ function detail(role: Role): TeamDetail {
 
 function renderTeam(role: Role) {
   const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false } } });
-  queryClient.setQueryData(meQueryOptions().queryKey, {
+  const me: Me = {
     user: { id: 'u1', email: 'ada@example.test', name: 'Ada', isAdmin: false, unitSystem: 'si' },
     teams: [detail(role).team],
-  });
+  };
+  queryClient.setQueryData(meQueryOptions().queryKey, me);
   queryClient.setQueryData(teamQueryOptions('t1').queryKey, detail(role));
   render(
     <QueryClientProvider client={queryClient}>
