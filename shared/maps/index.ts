@@ -1,0 +1,27 @@
+/**
+ * Compressor and turbine maps: the Spoolbook map file format (read, check, write), the parsed
+ * map model in SI units, interpolation on a map and the margins of an operating point.
+ * Pure: no I/O; the server hands in an upload's bytes, the browser a file's text.
+ */
+export * from './format';
+export type * from './types';
+export { parseMapFile } from './parse';
+export { writeMapFile, ESCAPE_FORMULAE } from './write';
+export { compressorModelFromMap, type CompressorModelOptions } from './model';
+export { triangulate, type TriangulatedSurface } from './interpolate';
+export {
+  surgeMargin,
+  chokeMargin,
+  speedMargin,
+  marginsAt,
+  marginLines,
+  piecewiseLinear,
+  type Margins,
+  type MarginLines,
+  type PiecewiseLinear,
+} from './margins';
+export { locateOnEdges, mapEdges, type MapEdges } from './location';
+export { withReference, withCompressorFileUnits, withTurbineFileUnits, withMetadata } from './convert';
+export { referenceDensity } from './scales';
+export { readUnit, mapValueToSI, mapValueFromSI, FLOW_PARAMETER_SI_UNIT } from './units';
+export { nameProblem } from './header';

@@ -1,0 +1,121 @@
+import type { CompressorCurve, CompressorMap } from './types';
+
+/**
+ * Margins of an operating point on a compressor map (docs/map-format.md, "Margins"):
+ *   surge margin  = (ṁc − ṁc,surge(PR)) / ṁc   — flow distance to the surge line at the same PR
+ *   choke margin  = (ṁc,choke(PR) − ṁc) / ṁc   — flow distance to the choke limit at the same PR
+ *   speed margin  = (Nmax − N) / Nmax
+ * Positive is safe; negative says how far past the limit the point is. ṁc is corrected mass flow
+ * at the map's reference conditions, so the margins do not depend on the map's units.
+ */
+
+/** A polyline y(x) with x strictly increasing, read by linear interpolation. */
+export interface PiecewiseLinear {
+  readonly xMin: number;
+  readonly xMax: number;
+  /** y at x; null outside [xMin, xMax] (no extrapolation). */
+  at(x: number): number | null;
+  /** y at x, holding the end values beyond the ends (for deciding which side of a line a point is). */
+  clamped(x: number): number;
+}
+
+export function piecewiseLinear(xs: readonly number[], ys: readonly number[]): PiecewiseLinear {
+  if (xs.length < 2 || xs.length !== ys.length) throw new Error('piecewiseLinear needs at least two points and one y per x');
+  for (let i = 1; i < xs.length; i++) {
+    if (!(xs[i] > xs[i - 1])) throw new Error('piecewiseLinear needs strictly increasing x');
+  }
+  const x = Float64Array.from(xs);
+  const y = Float64Array.from(ys);
+  const last = x.length - 1;
+  function interpolate(at: number): number {
+    let low = 0;
+    let high = last;
+    while (high - low > 1) {
+      const mid = (low + high) >> 1;
+      if (x[mid] <= at) low = mid;
+      else high = mid;
+    }
+    const share = (at - x[low]) / (x[high] - x[low]);
+    return y[low] + share * (y[high] - y[low]);
+  }
+  return {
+    xMin: x[0],
+    xMax: x[last],
+    at(at) {
+      if (!(at >= x[0] && at <= x[last])) return null;
+      return interpolate(at);
+    },
+    clamped(at) {
+      if (at <= x[0]) return y[0];
+      if (at >= x[last]) return y[last];
+      return interpolate(at);
+    },
+  };
+}
+
+/** (ṁc − ṁc,surge) / ṁc; both corrected mass flows in kg/s at the map's reference. */
+export function surgeMargin(correctedMassFlow: number, surgeFlow: number): number {
+  return (correctedMassFlow - surgeFlow) / correctedMassFlow;
+}
+
+/** (ṁc,choke − ṁc) / ṁc; both corrected mass flows in kg/s at the map's reference. */
+export function chokeMargin(correctedMassFlow: number, chokeFlow: number): number {
+  return (chokeFlow - correctedMassFlow) / correctedMassFlow;
+}
+
+/** (Nmax − N) / Nmax; both shaft speeds in rpm. */
+export function speedMargin(shaftSpeed: number, maxSpeed: number): number {
+  return (maxSpeed - shaftSpeed) / maxSpeed;
+}
+
+/** Corrected mass flow (kg/s) of a surge or choke line as a function of pressure ratio. */
+export function flowByPressureRatio(curve: CompressorCurve): PiecewiseLinear {
+  return piecewiseLinear(
+    curve.points.map((p) => p.pressureRatio),
+    curve.points.map((p) => p.correctedMassFlow),
+  );
+}
+
+/** Pressure ratio of a speed line as a function of corrected mass flow (kg/s). */
+export function pressureRatioByFlow(curve: CompressorCurve): PiecewiseLinear {
+  return piecewiseLinear(
+    curve.points.map((p) => p.correctedMassFlow),
+    curve.points.map((p) => p.pressureRatio),
+  );
+}
+
+/** The lines margins are measured to; a valid compressor map has all of them. */
+export interface MarginLines {
+  surge: PiecewiseLinear;
+  choke: PiecewiseLinear;
+}
+
+export function marginLines(map: CompressorMap): MarginLines {
+  const surge = map.curves.find((c) => c.kind === 'surge');
+  const choke = map.curves.find((c) => c.kind === 'choke');
+  if (!surge || !choke) throw new Error(`map "${map.name}" has no ${surge ? 'choke' : 'surge'} line`);
+  return { surge: flowByPressureRatio(surge), choke: flowByPressureRatio(choke) };
+}
+
+/** The three margins of one point; null where the map gives no line at this pressure ratio or no speed. */
+export interface Margins {
+  surgeMargin: number | null;
+  chokeMargin: number | null;
+  speedMargin: number | null;
+}
+
+export function marginsAt(
+  lines: MarginLines,
+  correctedMassFlow: number,
+  pressureRatio: number,
+  shaftSpeed: number | null,
+  maxSpeed: number | null,
+): Margins {
+  const surgeFlow = lines.surge.at(pressureRatio);
+  const chokeFlow = lines.choke.at(pressureRatio);
+  return {
+    surgeMargin: surgeFlow === null ? null : surgeMargin(correctedMassFlow, surgeFlow),
+    chokeMargin: chokeFlow === null ? null : chokeMargin(correctedMassFlow, chokeFlow),
+    speedMargin: shaftSpeed === null || maxSpeed === null ? null : speedMargin(shaftSpeed, maxSpeed),
+  };
+}
