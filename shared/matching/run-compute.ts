@@ -1,0 +1,104 @@
+/**
+ * The compute contract (`POST /api/compute`): single points with their own manifold temperature,
+ * no study around them. Same solver as the study; the answer carries exactly the contract's fields.
+ */
+import { efficiencyFromBsfc, fuelProperties, type FuelChoice } from '../physics';
+import { STANDARD_REFERENCE, type ComputeRequest, type ComputeResponse, type ComputeResultPoint } from '../schemas/compute';
+import { resolveAmbient } from './ambient';
+import { pointWorking } from './explain-point';
+import { DEFAULT_COMPRESSOR_EFFICIENCY, solvePoint } from './run-point';
+import type { LineContext, OperatingPoint } from './types';
+import type { WorkingStep } from './working';
+
+/** Refused compute request: a point that passed the schema yet has no physical state. */
+export class ComputeError extends Error {}
+
+/** The line context of a compute request (fixed manifold temperature per point). */
+export function computeContext(req: ComputeRequest): LineContext {
+  const f = req.fuel;
+  const choice: FuelChoice | null = f ? (f.kind === 'ethanol-blend' ? { kind: 'ethanol-blend', ethanolPercent: f.ethanolPercent ?? 0 } : { kind: f.kind }) : null;
+  const properties = choice ? fuelProperties(choice) : null;
+  let power: LineContext['power'] = null;
+  if (f && properties && (f.brakeThermalEfficiency !== undefined || f.bsfc !== undefined)) {
+    power =
+      f.bsfc !== undefined
+        ? { basis: 'bsfc', brakeThermalEfficiency: efficiencyFromBsfc(f.bsfc, properties.lowerHeatingValue), bsfc: f.bsfc, drivetrainLoss: f.drivetrainLoss ?? null }
+        : { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: f.brakeThermalEfficiency!, bsfc: null, drivetrainLoss: f.drivetrainLoss ?? null };
+  }
+  const reference = req.mapReference ?? STANDARD_REFERENCE;
+  return {
+    engine: { displacement: req.engine.displacement, cylinders: req.engine.cylinders, strokes: req.engine.strokes, limits: {} },
+    tables: { volumetricEfficiency: null, boost: null, lambda: null },
+    fuel: choice && properties ? { choice, properties } : null,
+    injectors: null,
+    pumpFlowAvailable: null,
+    power,
+    losses: { inlet: req.losses?.inlet ?? 0, chargeCooler: req.losses?.chargeCooler ?? 0, inletTemperatureRise: 0 },
+    // Each point states its own manifold temperature; this placeholder is never read.
+    intercooler: { kind: 'effectiveness', effectiveness: 0 },
+    ambient: resolveAmbient(req.ambient),
+    plan: {
+      name: 'compute request',
+      turbochargers: req.turbochargers ?? 1,
+      compressorEfficiency: DEFAULT_COMPRESSOR_EFFICIENCY,
+      mapReference: { temperature: reference.temperature, pressure: reference.pressure },
+    },
+    reference: { temperature: reference.temperature, pressure: reference.pressure },
+    referenceFrom: req.mapReference ? 'plan' : 'standard',
+    hasMap: false,
+  };
+}
+
+/** Solves every point of a (parsed) compute request, with the engine's full result per point. */
+export function solveComputeRequest(req: ComputeRequest): { context: LineContext; points: OperatingPoint[] } {
+  const context = computeContext(req);
+  const lambda = req.fuel?.lambda ?? null;
+  const points = req.points.map((p, i) =>
+    solvePoint(
+      context,
+      null,
+      {
+        rpm: p.rpm,
+        volumetricEfficiency: p.volumetricEfficiency,
+        boost: p.boost,
+        lambda,
+        manifoldTemperature: p.manifoldTemperature,
+        ...(p.compressorEfficiency !== undefined ? { compressorEfficiency: p.compressorEfficiency } : {}),
+      },
+      { firstOfLine: i === 0 },
+    ),
+  );
+  return { context, points };
+}
+
+/** The Working of one point of a compute request. */
+export function computePointWorking(context: LineContext, point: OperatingPoint): WorkingStep[] {
+  return pointWorking(context, point, { fixedManifoldTemperature: true });
+}
+
+/** Answers a parsed compute request with exactly the contract's result fields. */
+export function runComputeRequest(req: ComputeRequest): ComputeResponse {
+  const { points } = solveComputeRequest(req);
+  return {
+    points: points.map((point, i): ComputeResultPoint => {
+      if (!point.solved) throw new ComputeError(`points.${i}: ${point.findings[0]?.message ?? 'cannot be solved'}`);
+      const v = point.values;
+      const out: ComputeResultPoint = {
+        rpm: v.rpm,
+        manifoldPressure: v.manifoldPressure,
+        airDensity: v.airDensity,
+        massFlow: v.massFlow,
+        correctedMassFlow: v.correctedMassFlow,
+        compressorInletPressure: v.compressorInletPressure,
+        compressorOutletPressure: v.compressorOutletPressure,
+        pressureRatio: v.pressureRatio,
+        compressorOutletTemperature: v.compressorOutletTemperature,
+        compressorPower: v.compressorPower,
+      };
+      if (v.fuelMassFlow !== null) out.fuelMassFlow = v.fuelMassFlow;
+      if (v.brakePower !== null) out.brakePower = v.brakePower;
+      if (v.wheelPower !== null) out.wheelPower = v.wheelPower;
+      return out;
+    }),
+  };
+}

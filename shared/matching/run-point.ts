@@ -1,0 +1,320 @@
+/**
+ * One operating point: from ambient, boost and the engine's breathing to the compressor's
+ * pressure ratio, corrected flow, outlet temperature and power, then fuel, power and injectors.
+ * Each point is solved on its own (quasi-steady), as the trade does by hand.
+ */
+import {
+  AIR_CP,
+  AIR_GAS_CONSTANT,
+  injectorPressureDifference as injectorPressureDifferenceOf,
+  isentropicTemperatureRatio,
+  railGaugePressure,
+  revolutionsPerCycle,
+  setCapacity,
+} from '../physics';
+import type { CompressorModel, CompressorReading, MapLocation } from './compressor-model';
+import { lineInputFindings, pointFindings, unsolvableFinding } from './findings';
+import type { EfficiencySource, Finding, LineContext, OperatingPoint, PointValues } from './types';
+import { fmt } from './working';
+
+/** Compressor efficiency used when neither a point, a Plan nor a map gives one, fraction (from memory: a mid-island figure). */
+export const DEFAULT_COMPRESSOR_EFFICIENCY = 0.7;
+/** Most passes of the manifold-temperature fixed point. */
+export const MAX_ITERATIONS = 40;
+/** The fixed point has settled when the efficiency changes by less than this between passes (fraction). */
+export const EFFICIENCY_TOLERANCE = 1e-7;
+/** From this pass on, each new efficiency is averaged with the last to damp any back-and-forth at a map edge. */
+const DAMPING_FROM_PASS = 10;
+
+/** The inputs of one point that vary with rpm. */
+export interface PointOperation {
+  /** Engine speed, rpm. */
+  rpm: number;
+  /** Volumetric efficiency, fraction. */
+  volumetricEfficiency: number;
+  /** Boost target, Pa gauge. */
+  boost: number;
+  /** Lambda target; null when no fuel is given. */
+  lambda: number | null;
+  /** Manifold temperature, K, given for this point (overrides the intercooler). */
+  manifoldTemperature?: number;
+  /** Compressor efficiency, fraction, given for this point (overrides map and Plan). */
+  compressorEfficiency?: number;
+}
+
+const positive = (x: number | null | undefined): x is number => typeof x === 'number' && Number.isFinite(x) && x > 0;
+const finiteOrNull = (x: number | null | undefined): number | null => (typeof x === 'number' && Number.isFinite(x) ? x : null);
+const locations: readonly MapLocation[] = ['inside', 'left-of-surge', 'beyond-choke', 'above-top-speed', 'below-map', 'off-map'];
+
+/** A map reading with anything non-finite or impossible turned to null, so a faulty map cannot leak NaN. */
+function readMap(model: CompressorModel, correctedMassFlow: number, pressureRatio: number): CompressorReading {
+  const r = model.read(correctedMassFlow, pressureRatio);
+  const efficiency = finiteOrNull(r.efficiency);
+  return {
+    efficiency: efficiency !== null && efficiency > 0 && efficiency <= 1 ? efficiency : null,
+    shaftSpeed: finiteOrNull(r.shaftSpeed),
+    surgeMargin: finiteOrNull(r.surgeMargin),
+    chokeMargin: finiteOrNull(r.chokeMargin),
+    speedMargin: finiteOrNull(r.speedMargin),
+    location: locations.includes(r.location) ? r.location : 'off-map',
+  };
+}
+
+/** Reasons the line's own inputs give no physical state (checked once per line). */
+export function lineProblems(ctx: LineContext): string[] {
+  const problems: string[] = [];
+  const { pressure, temperature } = ctx.ambient;
+  if (!positive(pressure)) problems.push(`Ambient pressure ${fmt(pressure)} Pa is not positive.`);
+  if (!positive(temperature)) problems.push(`Ambient temperature ${fmt(temperature)} K is not positive.`);
+  const p1 = pressure - ctx.losses.inlet;
+  if (!positive(p1)) problems.push(`The inlet loss ${fmt(ctx.losses.inlet)} Pa leaves no pressure at the compressor inlet.`);
+  if (!positive(temperature + ctx.losses.inletTemperatureRise)) problems.push('Compressor inlet temperature is not positive.');
+  if (!(ctx.losses.chargeCooler >= 0)) problems.push('Charge-cooler loss is negative.');
+  if (!positive(ctx.engine.displacement)) problems.push('Displacement is not positive.');
+  if (!(Number.isInteger(ctx.plan.turbochargers) && ctx.plan.turbochargers >= 1)) problems.push('Turbocharger count is not a whole number of at least 1.');
+  if (!(positive(ctx.plan.compressorEfficiency) && ctx.plan.compressorEfficiency <= 1)) problems.push('Plan compressor efficiency is not between 0 and 1.');
+  if (!positive(ctx.reference.temperature) || !positive(ctx.reference.pressure)) problems.push('The map reference temperature and pressure must be positive.');
+  const ic = ctx.intercooler;
+  if (ic.kind === 'fixed' && !positive(ic.manifoldTemperature)) problems.push('Manifold temperature is not positive.');
+  if (ic.kind === 'effectiveness' && !(ic.effectiveness >= 0 && ic.effectiveness <= 1)) problems.push('Intercooler effectiveness is not between 0 and 1.');
+  if (ic.kind === 'effectiveness' && ic.coolantTemperature !== undefined && !positive(ic.coolantTemperature)) problems.push('Coolant temperature is not positive.');
+  if (ctx.fuel && !(positive(ctx.fuel.properties.stoichiometricAfr) && positive(ctx.fuel.properties.lowerHeatingValue) && positive(ctx.fuel.properties.density)))
+    problems.push('The fuel properties are not positive (ethanol percent outside 0–100?).');
+  if (ctx.power && !(positive(ctx.power.brakeThermalEfficiency) && ctx.power.brakeThermalEfficiency <= 1)) problems.push('Brake thermal efficiency is not between 0 and 1.');
+  if (ctx.power && ctx.power.drivetrainLoss !== null && !(ctx.power.drivetrainLoss >= 0 && ctx.power.drivetrainLoss < 1)) problems.push('Drivetrain loss is not between 0 and 1.');
+  const inj = ctx.injectors;
+  if (inj) {
+    const sets = inj.secondary ? [inj.primary, inj.secondary] : [inj.primary];
+    for (const s of sets) if (!(positive(s.count) && positive(s.ratedFlow) && positive(s.ratedPressure))) problems.push('An injector set has a non-positive count, flow or rated pressure.');
+    if (!positive(inj.fuelPressure)) problems.push('Fuel pressure is not positive.');
+  }
+  return problems;
+}
+
+function unsolved(rpm: number, reasons: string[]): OperatingPoint {
+  return { solved: false, rpm, values: null, findings: reasons.map((r) => unsolvableFinding(rpm, r)) };
+}
+
+/**
+ * Solves one point. `model` is the Plan's compressor map when there is one. `firstOfLine` adds the
+ * findings about the line's own inputs. `checked` skips lineProblems when the caller ran it once.
+ */
+export function solvePoint(
+  ctx: LineContext,
+  model: CompressorModel | null,
+  op: PointOperation,
+  options: { firstOfLine?: boolean; lineChecked?: boolean } = {},
+): OperatingPoint {
+  const { rpm, volumetricEfficiency: ve, boost, lambda } = op;
+  const problems = options.lineChecked ? [] : lineProblems(ctx);
+  if (!positive(rpm)) problems.push(`Engine speed ${fmt(rpm)} rpm is not positive.`);
+  if (!positive(ve)) problems.push(`Volumetric efficiency ${fmt(ve)} is not positive.`);
+  if (!Number.isFinite(boost)) problems.push('Boost is not a number.');
+  if (lambda !== null && !positive(lambda)) problems.push(`Lambda ${fmt(lambda)} is not positive.`);
+  if (op.manifoldTemperature !== undefined && !positive(op.manifoldTemperature)) problems.push('Manifold temperature is not positive.');
+  if (op.compressorEfficiency !== undefined && !(positive(op.compressorEfficiency) && op.compressorEfficiency <= 1))
+    problems.push('Compressor efficiency is not between 0 and 1.');
+
+  const ambientPressure = ctx.ambient.pressure;
+  const ambientTemperature = ctx.ambient.temperature;
+  const manifoldPressure = ambientPressure + boost;
+  if (problems.length === 0 && !positive(manifoldPressure))
+    problems.push(`Boost ${fmt(boost / 1000)} kPa makes the manifold pressure ${fmt(manifoldPressure / 1000)} kPa, which is not positive.`);
+  if (problems.length > 0) return unsolved(rpm, problems);
+
+  const p1 = ambientPressure - ctx.losses.inlet;
+  const t1 = ambientTemperature + ctx.losses.inletTemperatureRise;
+  const p2Unthrottled = manifoldPressure + ctx.losses.chargeCooler;
+  // The throttle sits after the compressor: below the compressor inlet pressure it takes the drop.
+  const throttled = p2Unthrottled < p1;
+  const p2 = throttled ? p1 : p2Unthrottled;
+  const pressureRatio = p2 / p1;
+  const inletDensity = p1 / (AIR_GAS_CONSTANT * t1);
+  const temperatureRatio = isentropicTemperatureRatio(pressureRatio);
+  const isentropicOutletTemperature = t1 * temperatureRatio;
+  const turbochargers = ctx.plan.turbochargers;
+  // Volume of manifold-density air the engine swallows per second, m³/s.
+  const sweptFlow = (ve * ctx.engine.displacement * rpm) / (60 * revolutionsPerCycle(ctx.engine.strokes));
+  const refTemperature = ctx.reference.temperature;
+  const refPressure = ctx.reference.pressure;
+  const correctionFactor = Math.sqrt(t1 / refTemperature) / (p1 / refPressure);
+
+  const fallback = op.compressorEfficiency ?? ctx.plan.compressorEfficiency;
+  const fallbackSource: EfficiencySource = op.compressorEfficiency !== undefined ? 'point' : 'plan';
+  const efficiencyFromMap = model !== null && op.compressorEfficiency === undefined;
+  const outletTemperatureAt = (eta: number) => t1 * (1 + (temperatureRatio - 1) / eta);
+
+  let manifoldTemperature: number;
+  let efficiency = fallback;
+  let iterations = 1;
+  let converged = true;
+  let reading: CompressorReading | null = null;
+  const fixedTemperature = op.manifoldTemperature ?? (ctx.intercooler.kind === 'fixed' ? ctx.intercooler.manifoldTemperature : null);
+  const ic = ctx.intercooler;
+  const effectiveness = ic.kind === 'effectiveness' ? ic.effectiveness : 0;
+  const coolantTemperature = ic.kind === 'effectiveness' ? (ic.coolantTemperature ?? ambientTemperature) : ambientTemperature;
+  const cooled = (eta: number) => {
+    const t2 = outletTemperatureAt(eta);
+    return t2 - effectiveness * (t2 - coolantTemperature);
+  };
+  const correctedAt = (tMan: number) => ((sweptFlow * manifoldPressure) / (AIR_GAS_CONSTANT * tMan) / turbochargers) * correctionFactor;
+
+  if (fixedTemperature !== null) {
+    manifoldTemperature = fixedTemperature;
+    if (model) reading = readMap(model, correctedAt(manifoldTemperature), pressureRatio);
+  } else if (!efficiencyFromMap) {
+    manifoldTemperature = cooled(efficiency);
+    if (model) reading = readMap(model, correctedAt(manifoldTemperature), pressureRatio);
+  } else {
+    // T_man depends on T2, T2 on the efficiency, and the efficiency on where the flow (set by
+    // T_man) lands on the map: iterate to the fixed point.
+    converged = false;
+    manifoldTemperature = cooled(efficiency);
+    for (iterations = 1; iterations <= MAX_ITERATIONS; iterations++) {
+      manifoldTemperature = cooled(efficiency);
+      reading = readMap(model!, correctedAt(manifoldTemperature), pressureRatio);
+      const next = reading.efficiency ?? fallback;
+      if (Math.abs(next - efficiency) <= EFFICIENCY_TOLERANCE) {
+        converged = true;
+        break;
+      }
+      efficiency = iterations < DAMPING_FROM_PASS ? next : 0.5 * (efficiency + next);
+    }
+    if (!converged) {
+      iterations = MAX_ITERATIONS;
+      manifoldTemperature = cooled(efficiency);
+      reading = readMap(model!, correctedAt(manifoldTemperature), pressureRatio);
+    }
+  }
+  let efficiencySource: EfficiencySource = fallbackSource;
+  if (efficiencyFromMap && reading && reading.efficiency !== null) {
+    if (fixedTemperature !== null) efficiency = reading.efficiency;
+    efficiencySource = 'map';
+  } else if (efficiencyFromMap && fixedTemperature === null) {
+    // Off the map at the settled point: the fallback holds, and the state must match it.
+    efficiency = fallback;
+    manifoldTemperature = cooled(efficiency);
+  }
+
+  const airDensity = manifoldPressure / (AIR_GAS_CONSTANT * manifoldTemperature);
+  const engineMassFlow = sweptFlow * airDensity;
+  const massFlow = engineMassFlow / turbochargers;
+  const correctedMassFlow = massFlow * correctionFactor;
+  const compressorOutletTemperature = outletTemperatureAt(efficiency);
+  const compressorPower = massFlow * AIR_CP * (compressorOutletTemperature - t1);
+
+  const planMax = positive(ctx.plan.maxShaftSpeed) ? ctx.plan.maxShaftSpeed : null;
+  const mapMax = model && positive(model.maxSpeed) ? model.maxSpeed : null;
+  const maxShaftSpeed = planMax !== null && mapMax !== null ? Math.min(planMax, mapMax) : (planMax ?? mapMax);
+  const shaftSpeed = reading?.shaftSpeed ?? null;
+  const speedMargin = shaftSpeed !== null && maxShaftSpeed !== null ? (maxShaftSpeed - shaftSpeed) / maxShaftSpeed : (reading?.speedMargin ?? null);
+
+  const values: PointValues = {
+    rpm,
+    volumetricEfficiency: ve,
+    boost,
+    lambda,
+    ambientPressure,
+    ambientTemperature,
+    compressorInletPressure: p1,
+    compressorInletTemperature: t1,
+    inletDensity,
+    manifoldPressure,
+    manifoldTemperature,
+    airDensity,
+    engineMassFlow,
+    massFlow,
+    correctedMassFlow,
+    inletVolumeFlow: massFlow / inletDensity,
+    compressorOutletPressure: p2,
+    pressureRatio,
+    throttled,
+    compressorEfficiency: efficiency,
+    efficiencySource,
+    isentropicOutletTemperature,
+    compressorOutletTemperature,
+    compressorPower,
+    iterations,
+    converged,
+    mapLocation: reading?.location ?? null,
+    shaftSpeed,
+    surgeMargin: reading?.surgeMargin ?? null,
+    chokeMargin: reading?.chokeMargin ?? null,
+    speedMargin,
+    maxShaftSpeed,
+    stoichiometricAfr: null,
+    lowerHeatingValue: null,
+    fuelDensity: null,
+    fuelMassFlow: null,
+    fuelVolumeFlow: null,
+    brakeThermalEfficiency: null,
+    brakePower: null,
+    wheelPower: null,
+    torque: null,
+    apparentBsfc: null,
+    injectorPressureDifference: null,
+    injectorStage: null,
+    injectorCapacity: null,
+    injectorDuty: null,
+    railPressure: null,
+    pumpFlowRequired: null,
+  };
+
+  if (ctx.fuel && lambda !== null) addFuel(values, ctx, lambda);
+
+  // Inputs inside the schema cannot get here, but a direct caller might pass extreme numbers.
+  const bad = nonFiniteKeys(values);
+  if (bad.length > 0) return unsolved(rpm, [`The inputs lead to numbers too large to compute (${bad.join(', ')}).`]);
+
+  const findings: Finding[] = options.firstOfLine ? lineInputFindings(ctx, rpm) : [];
+  findings.push(...pointFindings(values, ctx));
+  return { solved: true, rpm, values, findings };
+}
+
+function nonFiniteKeys(values: PointValues): string[] {
+  const bad: string[] = [];
+  for (const [key, value] of Object.entries(values)) if (typeof value === 'number' && !Number.isFinite(value)) bad.push(key);
+  return bad;
+}
+
+/** Fuel flow, power and injectors of a solved point (in place: the point is still being built). */
+function addFuel(v: PointValues, ctx: LineContext, lambda: number): void {
+  const { stoichiometricAfr, lowerHeatingValue, density } = ctx.fuel!.properties;
+  v.stoichiometricAfr = stoichiometricAfr;
+  v.lowerHeatingValue = lowerHeatingValue;
+  v.fuelDensity = density;
+  const fuelMassFlow = v.engineMassFlow / (lambda * stoichiometricAfr);
+  const fuelVolumeFlow = fuelMassFlow / density;
+  v.fuelMassFlow = fuelMassFlow;
+  v.fuelVolumeFlow = fuelVolumeFlow;
+  v.pumpFlowRequired = fuelVolumeFlow;
+  if (ctx.power) {
+    const eta = ctx.power.brakeThermalEfficiency;
+    const brakePower = (eta * v.engineMassFlow * lowerHeatingValue) / stoichiometricAfr;
+    v.brakeThermalEfficiency = eta;
+    v.brakePower = brakePower;
+    v.wheelPower = ctx.power.drivetrainLoss === null ? null : brakePower * (1 - ctx.power.drivetrainLoss);
+    v.torque = brakePower / ((2 * Math.PI * v.rpm) / 60);
+    v.apparentBsfc = brakePower > 0 ? fuelMassFlow / brakePower : null;
+  }
+  const inj = ctx.injectors;
+  if (inj) {
+    const dp = injectorPressureDifferenceOf({
+      regulator: inj.regulator,
+      fuelPressure: inj.fuelPressure,
+      manifoldPressure: v.manifoldPressure,
+      ambientPressure: v.ambientPressure,
+    });
+    v.injectorPressureDifference = dp;
+    v.railPressure = railGaugePressure(inj.regulator, inj.fuelPressure, v.boost);
+    const both = inj.secondary !== undefined && v.rpm >= inj.secondary.switchOverRpm;
+    v.injectorStage = both ? 'both' : 'primary';
+    if (dp > 0) {
+      const capacity = setCapacity(inj.primary, dp) + (both ? setCapacity(inj.secondary!, dp) : 0);
+      v.injectorCapacity = capacity;
+      v.injectorDuty = fuelVolumeFlow / capacity;
+    } else {
+      v.injectorCapacity = 0;
+    }
+  }
+}

@@ -1,0 +1,399 @@
+/**
+ * The study input the engine runs (SI throughout) and what it returns. The Study screen edits
+ * the input; the zod schemas in shared/schemas/compute.ts check it at every edge.
+ */
+import type { FuelChoice, FuelProperties, FuelRegulator, Strokes } from '../physics';
+import type { MapLocation, MapReference } from './compressor-model';
+import type { WorkingKind, WorkingStep } from './working';
+
+/** One row of a table by engine speed: rpm and the value at that speed (unit set by the table). */
+export interface RpmRow {
+  rpm: number;
+  value: number;
+}
+/**
+ * A table by engine speed, rows in increasing rpm. Read by linear interpolation between rows and
+ * held flat (first or last value) outside their range.
+ */
+export type RpmTable = RpmRow[];
+
+/** The engine speeds to compute, rpm: an explicit list, or min to max in steps. */
+export type RpmPoints = { kind: 'list'; values: number[] } | { kind: 'range'; min: number; max: number; step: number };
+
+/** Limits the builder states for the engine; each one crossed is a finding with severity "limit". */
+export interface EngineLimits {
+  /** Highest allowed engine speed, rpm. */
+  maxRpm?: number;
+  /** Highest allowed manifold pressure, Pa absolute. */
+  maxManifoldPressure?: number;
+  /** Highest allowed compressor outlet temperature, K. */
+  maxCompressorOutletTemperature?: number;
+}
+
+export interface EngineInput {
+  /** Total swept volume of all cylinders, m³. */
+  displacement: number;
+  /** Number of cylinders. */
+  cylinders: number;
+  /** 2 or 4 stroke cycle. */
+  strokes: Strokes;
+  rpm: RpmPoints;
+  /** Volumetric efficiency (fraction, referred to manifold density) by rpm. */
+  volumetricEfficiency: RpmTable;
+  limits?: EngineLimits;
+}
+
+/** A set of identical injectors. */
+export interface InjectorSetInput {
+  count: number;
+  /** Rated flow of ONE injector, m³/s, at `ratedPressure`. */
+  ratedFlow: number;
+  /** Pressure difference across the injector at which `ratedFlow` holds, Pa. */
+  ratedPressure: number;
+}
+
+/** The staged secondary set: opens together with the primaries from `switchOverRpm` up. */
+export interface SecondaryInjectorSetInput extends InjectorSetInput {
+  /** Engine speed from which the secondaries inject too, rpm. */
+  switchOverRpm: number;
+}
+
+export interface InjectorsInput {
+  primary: InjectorSetInput;
+  secondary?: SecondaryInjectorSetInput;
+  /** Base fuel pressure, Pa gauge: above the manifold (1:1 regulator) or above the atmosphere (fixed rail). */
+  fuelPressure: number;
+  regulator: FuelRegulator;
+}
+
+export interface FuelSystemInput {
+  fuel: FuelChoice;
+  /** Lambda target (air-fuel ratio over stoichiometric, dimensionless) by rpm. */
+  lambda: RpmTable;
+  injectors: InjectorsInput;
+  /** Flow the fuel pump delivers at the rail pressure it must hold, m³/s, when known. */
+  pumpFlowAvailable?: number;
+}
+
+/** How brake power follows from air: a brake thermal efficiency, or a BSFC referred to the fuel that burns. */
+export type PowerAssumptions =
+  | {
+      basis: 'brake-thermal-efficiency';
+      /** Brake thermal efficiency, fraction. */
+      brakeThermalEfficiency: number;
+      /** Drivetrain loss, fraction of brake power. */
+      drivetrainLoss: number;
+    }
+  | {
+      basis: 'bsfc';
+      /** Brake specific fuel consumption, kg/J, referred to the stoichiometric share of the fuel. */
+      bsfc: number;
+      /** Drivetrain loss, fraction of brake power. */
+      drivetrainLoss: number;
+    };
+
+export interface LossesInput {
+  /** Filter and intake pressure loss before the compressor, Pa. */
+  inlet: number;
+  /** Pressure loss from compressor outlet to manifold (charge cooler and pipes), Pa. */
+  chargeCooler: number;
+  /** Heating of the air before the compressor (under-bonnet intake), K. Default 0. */
+  inletTemperatureRise?: number;
+}
+
+/** Manifold temperature: stated, or from an intercooler's effectiveness. */
+export type IntercoolerInput =
+  | {
+      kind: 'fixed';
+      /** Manifold air temperature, K. */
+      manifoldTemperature: number;
+    }
+  | {
+      kind: 'effectiveness';
+      /** Intercooler effectiveness, fraction (0 means no cooling). */
+      effectiveness: number;
+      /** Coolant temperature, K; when absent the scenario's ambient temperature (air-to-air). */
+      coolantTemperature?: number;
+    };
+
+/** Ambient conditions: barometric pressure and temperature, or altitude with the ISA filling what is not given. */
+export type AmbientInput =
+  | {
+      /** Barometric pressure, Pa absolute. */
+      pressure: number;
+      /** Air temperature, K. */
+      temperature: number;
+      altitude?: undefined;
+    }
+  | {
+      /** Altitude, m, taken as geopotential height in the ISA troposphere. */
+      altitude: number;
+      /** Air temperature, K; ISA temperature at the altitude when absent. */
+      temperature?: number;
+      pressure?: undefined;
+    };
+
+export type BoostRowKind = 'full-load' | 'gear' | 'part-throttle';
+
+/** One row of a boost schedule: its own operating line. */
+export interface BoostRowInput {
+  label: string;
+  kind: BoostRowKind;
+  /** Gear number when kind is "gear". */
+  gear?: number;
+  /** Boost target (manifold pressure over ambient, Pa gauge) by rpm. */
+  boost: RpmTable;
+}
+
+export interface ScenarioInput {
+  name: string;
+  ambient: AmbientInput;
+  boostSchedule: BoostRowInput[];
+}
+
+export interface PlanInput {
+  name: string;
+  /** Number of identical turbochargers sharing the airflow in parallel. */
+  turbochargers: number;
+  /** Compressor isentropic efficiency, fraction, used when there is no map or the point is off it. */
+  compressorEfficiency: number;
+  /** The wheel's rated speed limit, rpm, when known (the lower of this and the map's applies). */
+  maxShaftSpeed?: number;
+  /** Reference of corrected flow when no compressor model is supplied; ISA sea level when absent. */
+  mapReference?: MapReference;
+}
+
+export interface StudyInput {
+  engine: EngineInput;
+  fuelSystem: FuelSystemInput;
+  power: PowerAssumptions;
+  losses: LossesInput;
+  intercooler: IntercoolerInput;
+  scenarios: ScenarioInput[];
+  plans: PlanInput[];
+}
+
+// ——— results ———
+
+export type Severity = 'info' | 'warning' | 'limit';
+
+export type FindingCode =
+  | 'unsolvable'
+  | 'input-out-of-range'
+  | 'injector-duty-high'
+  | 'injector-duty-limit'
+  | 'injector-saturated'
+  | 'injector-no-flow'
+  | 'fuel-pump-short'
+  | 'fuel-pump-near-limit'
+  | 'compressor-outlet-temperature-high'
+  | 'compressor-outlet-temperature-limit'
+  | 'efficiency-off-map'
+  | 'map-left-of-surge'
+  | 'map-beyond-choke'
+  | 'map-above-top-speed'
+  | 'map-below-map'
+  | 'map-off-map'
+  | 'overspeed'
+  | 'throttled'
+  | 'not-converged'
+  | 'rpm-limit'
+  | 'manifold-pressure-limit';
+
+export interface Finding {
+  code: FindingCode;
+  severity: Severity;
+  /** Plain words, SI values; `value`, `threshold` and `kind` let a screen re-word it in the user's units. */
+  message: string;
+  /** Engine speed of the point, rpm. */
+  rpm: number;
+  value?: number;
+  threshold?: number;
+  kind?: WorkingKind;
+}
+
+/** Where the compressor efficiency of a point came from. */
+export type EfficiencySource = 'map' | 'plan' | 'point';
+
+/** Every value of one solved operating point, SI. Values that do not apply are null. */
+export interface PointValues {
+  /** Engine speed, rpm. */
+  rpm: number;
+  /** Volumetric efficiency, fraction. */
+  volumetricEfficiency: number;
+  /** Boost target, Pa gauge. */
+  boost: number;
+  /** Lambda target, dimensionless; null without a fuel. */
+  lambda: number | null;
+  /** Ambient pressure, Pa absolute. */
+  ambientPressure: number;
+  /** Ambient temperature, K. */
+  ambientTemperature: number;
+  /** Compressor inlet pressure p1, Pa absolute. */
+  compressorInletPressure: number;
+  /** Compressor inlet temperature T1, K. */
+  compressorInletTemperature: number;
+  /** Air density at compressor inlet, kg/m³. */
+  inletDensity: number;
+  /** Manifold pressure, Pa absolute. */
+  manifoldPressure: number;
+  /** Manifold temperature, K. */
+  manifoldTemperature: number;
+  /** Air density in the manifold, kg/m³. */
+  airDensity: number;
+  /** Air mass flow of the whole engine, kg/s. */
+  engineMassFlow: number;
+  /** Air mass flow through ONE turbocharger, kg/s. */
+  massFlow: number;
+  /** Corrected mass flow of one turbocharger against the map's reference, kg/s. */
+  correctedMassFlow: number;
+  /** Volume flow at the inlet of one compressor, m³/s. */
+  inletVolumeFlow: number;
+  /** Compressor outlet pressure p2, Pa absolute. */
+  compressorOutletPressure: number;
+  /** Pressure ratio p2/p1. */
+  pressureRatio: number;
+  /** True when the manifold is below compressor inlet pressure: the throttle takes the drop, PR is 1. */
+  throttled: boolean;
+  /** Compressor isentropic efficiency used, fraction. */
+  compressorEfficiency: number;
+  efficiencySource: EfficiencySource;
+  /** Isentropic outlet temperature T2s, K. */
+  isentropicOutletTemperature: number;
+  /** Compressor outlet temperature T2, K. */
+  compressorOutletTemperature: number;
+  /** Shaft power of one compressor, W. */
+  compressorPower: number;
+  /** Passes of the manifold-temperature fixed point (1 when no iteration was needed). */
+  iterations: number;
+  converged: boolean;
+  /** Where the point lands on the map; null without a map. */
+  mapLocation: MapLocation | null;
+  /** Turbocharger shaft speed, rpm, from the map. */
+  shaftSpeed: number | null;
+  /** Surge margin (ṁc − ṁc,surge(PR))/ṁc, fraction. */
+  surgeMargin: number | null;
+  /** Choke margin (ṁc,choke(PR) − ṁc)/ṁc, fraction. */
+  chokeMargin: number | null;
+  /** Speed margin (Nmax − N)/Nmax, fraction. */
+  speedMargin: number | null;
+  /** Shaft speed limit applied (the lower of plan and map), rpm. */
+  maxShaftSpeed: number | null;
+  /** Stoichiometric air-fuel ratio of the fuel. */
+  stoichiometricAfr: number | null;
+  /** Lower heating value of the fuel, J/kg. */
+  lowerHeatingValue: number | null;
+  /** Fuel density, kg/m³. */
+  fuelDensity: number | null;
+  /** Fuel mass flow of the engine, kg/s. */
+  fuelMassFlow: number | null;
+  /** Fuel volume flow of the engine, m³/s. */
+  fuelVolumeFlow: number | null;
+  /** Brake thermal efficiency used, fraction. */
+  brakeThermalEfficiency: number | null;
+  /** Brake power, W. */
+  brakePower: number | null;
+  /** Wheel power, W. */
+  wheelPower: number | null;
+  /** Brake torque, N·m. */
+  torque: number | null;
+  /** Fuel actually injected per brake power, kg/J (higher than the burnt-fuel BSFC when rich). */
+  apparentBsfc: number | null;
+  /** Pressure difference across the injectors, Pa. */
+  injectorPressureDifference: number | null;
+  /** Which injectors are open: primaries alone or both sets. */
+  injectorStage: 'primary' | 'both' | null;
+  /** Flow the open injectors deliver at 100 % duty, m³/s. */
+  injectorCapacity: number | null;
+  /** Injector duty cycle, fraction. */
+  injectorDuty: number | null;
+  /** Rail pressure the pump must hold, Pa gauge. */
+  railPressure: number | null;
+  /** Fuel flow the pump must deliver, m³/s (the engine's fuel volume flow). */
+  pumpFlowRequired: number | null;
+}
+
+export interface SolvedPoint {
+  solved: true;
+  rpm: number;
+  values: PointValues;
+  findings: Finding[];
+  /** Present when runStudy was asked for eager Working; otherwise build it with pointWorking(). */
+  working?: WorkingStep[];
+}
+
+/** A point whose inputs make no physical state (e.g. non-positive pressure): findings say why. */
+export interface UnsolvedPoint {
+  solved: false;
+  rpm: number;
+  values: null;
+  findings: Finding[];
+  working?: WorkingStep[];
+}
+
+export type OperatingPoint = SolvedPoint | UnsolvedPoint;
+
+/** What an operating line was computed with: plain data, enough to rebuild any point's Working. */
+export interface LineContext {
+  engine: {
+    /** Total swept volume, m³. */
+    displacement: number;
+    cylinders: number;
+    strokes: Strokes;
+    limits: EngineLimits;
+  };
+  /** The Study tables the point inputs were read from; null where the value was given per point. */
+  tables: {
+    volumetricEfficiency: RpmTable | null;
+    boost: RpmTable | null;
+    lambda: RpmTable | null;
+  };
+  fuel: { choice: FuelChoice; properties: FuelProperties } | null;
+  injectors: InjectorsInput | null;
+  /** Pump flow available, m³/s. */
+  pumpFlowAvailable: number | null;
+  power: {
+    basis: PowerAssumptions['basis'];
+    /** Brake thermal efficiency used, fraction (from the BSFC when that is the basis). */
+    brakeThermalEfficiency: number;
+    /** The BSFC given, kg/J, when that is the basis. */
+    bsfc: number | null;
+    /** Drivetrain loss, fraction; null when wheel power is not wanted. */
+    drivetrainLoss: number | null;
+  } | null;
+  losses: Required<LossesInput>;
+  intercooler: IntercoolerInput;
+  ambient: {
+    input: AmbientInput;
+    /** Ambient pressure, Pa absolute. */
+    pressure: number;
+    /** Ambient temperature, K. */
+    temperature: number;
+    pressureFrom: 'given' | 'isa';
+    temperatureFrom: 'given' | 'isa';
+  };
+  plan: PlanInput;
+  /** Reference of corrected flow used, and where it came from. */
+  reference: MapReference;
+  referenceFrom: 'map' | 'plan' | 'standard';
+  hasMap: boolean;
+}
+
+export interface OperatingLine {
+  planIndex: number;
+  planName: string;
+  scenarioIndex: number;
+  scenarioName: string;
+  rowIndex: number;
+  rowLabel: string;
+  rowKind: BoostRowKind;
+  gear: number | null;
+  context: LineContext;
+  points: OperatingPoint[];
+  /** The most severe finding on the line, or null when there is none. */
+  worstSeverity: Severity | null;
+}
+
+export interface StudyResult {
+  lines: OperatingLine[];
+}
