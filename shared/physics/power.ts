@@ -4,6 +4,13 @@
  * flow but not power.
  */
 
+/**
+ * A starting brake thermal efficiency for a boosted spark-ignition engine at full load, fraction
+ * (from memory: such engines run about 0.30–0.35). With it, petrol gives about 10 hp per lb/min
+ * of air, the trade's rule of thumb.
+ */
+export const DEFAULT_BRAKE_THERMAL_EFFICIENCY = 0.33;
+
 /** Brake power, W: P_b = η_b·ṁ_air·LHV/AFR_s, with brake thermal efficiency η_b as a fraction. */
 export function brakePowerFromAir(airMassFlow: number, brakeThermalEfficiency: number, lowerHeatingValue: number, stoichiometricAfr: number): number {
   return (brakeThermalEfficiency * airMassFlow * lowerHeatingValue) / stoichiometricAfr;

@@ -13,6 +13,8 @@ math.createUnit('cfm', { definition: '1 ft^3/min' });
 // Shaft and engine speeds stay in rpm inside shared/ (the trade's unit); krpm is common on maps.
 math.createUnit('rpm', { definition: '1/min' });
 math.createUnit('krpm', { definition: '1000 rpm' });
+// Engine builders write displacement in cubic inches as "ci"; mathjs only knows "cuin".
+math.createUnit('ci', { definition: '1 cuin' });
 
 /** The SI unit each physical quantity kind is stored in inside shared/. */
 export const siUnitOf = {
