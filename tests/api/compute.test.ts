@@ -1,0 +1,102 @@
+import express from 'express';
+import request from 'supertest';
+import { describe, expect, it } from 'vitest';
+import { errorHandler } from '../../server/http/errors';
+import { computeRouter } from '../../server/routes/compute';
+import { computeResponseSchema, MAX_COMPUTE_POINTS } from '../../shared/schemas/compute';
+import { expectClose } from '../unit/physics/expect-close';
+
+function appWith(options?: Parameters<typeof computeRouter>[0]) {
+  const logged: unknown[] = [];
+  const app = express();
+  app.use(express.json({ limit: '1mb' }));
+  app.use('/api/compute', computeRouter(options));
+  app.use(errorHandler({ error: (obj: unknown) => void logged.push(obj) }));
+  return { app, logged };
+}
+
+const body = {
+  engine: { displacement: 0.002, cylinders: 4, strokes: 4 },
+  ambient: { pressure: 100_000, temperature: 288.15 },
+  points: [
+    { rpm: 6000, volumetricEfficiency: 0.9, boost: 100_000, manifoldTemperature: 320, compressorEfficiency: 0.75 },
+    { rpm: 3000, volumetricEfficiency: 0.85, boost: 50_000, manifoldTemperature: 310 },
+  ],
+};
+
+describe('POST /api/compute', () => {
+  it('answers one result per point with exactly the contract fields, SI', async () => {
+    const { app, logged } = appWith();
+    const res = await request(app).post('/api/compute').send(body);
+    expect(res.status).toBe(200);
+    const parsed = computeResponseSchema.parse(res.body); // strict: no field beyond the contract
+    expect(parsed.points).toHaveLength(2);
+    expectClose(parsed.points[0].airDensity, 2.1773, 2e-5); // physics note check table, engine airflow row
+    expectClose(parsed.points[0].massFlow, 0.19596, 2e-5); // Heywood (1988) §2.10, physics note check table
+    expectClose(parsed.points[0].compressorOutletTemperature, 372.3, 2e-5); // isentropic relation, physics note check table (PR 2, η 0.75)
+    expect(parsed.points[1].rpm).toBe(3000); // order kept
+    expect(logged).toEqual([]);
+  });
+
+  it('adds fuel flow and power when a fuel is given', async () => {
+    const { app } = appWith();
+    const res = await request(app)
+      .post('/api/compute')
+      .send({ ...body, fuel: { kind: 'ethanol-blend', ethanolPercent: 85, lambda: 0.8, brakeThermalEfficiency: 0.33, drivetrainLoss: 0.12 } });
+    expect(res.status).toBe(200);
+    const p = res.body.points[0];
+    expectClose(p.fuelMassFlow, 0.19596 / (0.8 * 9.8141), 1e-4); // ṁ_air/(λ·AFR_s), E85 AFR_s 9.814 (blend by mass of Heywood App. D values)
+    expectClose(p.wheelPower, 0.88 * p.brakePower, 1e-12); // drivetrain loss (definition)
+  });
+
+  it('refuses an unknown field by name with a 400', async () => {
+    const { app } = appWith();
+    const res = await request(app)
+      .post('/api/compute')
+      .send({ ...body, engine: { ...body.engine, displacment: 0.002 } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('invalid_input');
+    expect(res.body.error.details.issues[0]).toEqual({ path: 'engine', message: 'Unrecognized key: "displacment"' }); // zod 4 strict object wording
+    expect(res.body.error.message).toMatch(/displacment/);
+  });
+
+  const bad: [string, unknown, string][] = [
+    ['negative displacement', { ...body, engine: { ...body.engine, displacement: -1 } }, 'engine.displacement'],
+    ['efficiency over 1', { ...body, points: [{ ...body.points[0], compressorEfficiency: 1.5 }] }, 'points.0.compressorEfficiency'],
+    ['boost that makes manifold pressure non-positive', { ...body, points: [{ ...body.points[0], boost: -120_000 }] }, 'points.0.boost'],
+    ['empty points', { ...body, points: [] }, 'points'],
+    ['too many points', { ...body, points: Array.from({ length: MAX_COMPUTE_POINTS + 1 }, () => body.points[1]) }, 'points'],
+    ['no body at all', undefined, 'engine'],
+  ];
+  for (const [what, payload, path] of bad) {
+    it(`answers 400 naming ${path} for ${what}`, async () => {
+      const { app, logged } = appWith();
+      const req = request(app).post('/api/compute');
+      const res = payload === undefined ? await req : await req.send(payload as object);
+      expect(res.status).toBe(400);
+      expect(res.body.error.code).toBe('invalid_input');
+      expect(res.body.error.details.issues.map((i: { path: string }) => i.path)).toContain(path);
+      expect(logged).toEqual([]); // a client error is not logged as a server fault
+    });
+  }
+
+  it('answers 400 for malformed JSON and 413 for a body over 1 MB', async () => {
+    const { app } = appWith();
+    const malformed = await request(app).post('/api/compute').set('Content-Type', 'application/json').send('{"engine":');
+    expect(malformed.status).toBe(400);
+    expect(malformed.body.error.code).toBe('malformed_json');
+    const huge = await request(app)
+      .post('/api/compute')
+      .send({ ...body, padding: 'x'.repeat(1_100_000) });
+    expect(huge.status).toBe(413);
+  });
+
+  it('rate-limits each client, answering 429 with the standard headers', async () => {
+    const { app } = appWith({ rateLimitPerMinute: 3 });
+    for (let i = 0; i < 3; i++) expect((await request(app).post('/api/compute').send(body)).status).toBe(200);
+    const limited = await request(app).post('/api/compute').send(body);
+    expect(limited.status).toBe(429);
+    expect(limited.body.error).toEqual({ code: 'rate_limited', message: 'Too many compute requests; try again in a minute.' });
+    expect(limited.headers['ratelimit-policy']).toMatch(/q=3/); // IETF draft 8 header (express-rate-limit docs)
+  });
+});
