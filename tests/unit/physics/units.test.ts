@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, it } from 'vitest';
 import { fromSI, math, toSI } from '../../../shared/units';
 import { expectClose } from './expect-close';
 
