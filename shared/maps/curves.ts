@@ -8,6 +8,8 @@ export interface RowGroup {
   curve: string;
   label: string;
   rows: DataRow[];
+  /** A second polyline under a label already used: reported once, then left out of other checks. */
+  duplicate: boolean;
 }
 
 const CURVE_WORDS: Record<string, string> = {
@@ -47,6 +49,7 @@ export function groupRows(rows: DataRow[], singleCurves: readonly string[], prob
     }
     const key = `${row.curve}\u0001${row.label}`;
     const earlier = seen.get(key);
+    const single = singleCurves.includes(row.curve) && firstOfCurve.has(row.curve);
     if (earlier) {
       problems.add(
         'duplicate-label',
@@ -54,7 +57,7 @@ export function groupRows(rows: DataRow[], singleCurves: readonly string[], prob
         2,
         `${curveName(row)} appears again here, apart from its first rows (${lineSpan(earlier.rows)}); keep each line's rows together and give every line its own label`,
       );
-    } else if (singleCurves.includes(row.curve) && firstOfCurve.has(row.curve)) {
+    } else if (single) {
       const first = firstOfCurve.get(row.curve)!;
       problems.add(
         'duplicate-label',
@@ -63,12 +66,32 @@ export function groupRows(rows: DataRow[], singleCurves: readonly string[], prob
         `a map has one ${CURVE_WORDS[row.curve]}; this row starts a second one (label ${quoteCell(row.label)}; the first starts on line ${first.rows[0].line})`,
       );
     }
-    current = { curve: row.curve, label: row.label, rows: [row] };
+    current = { curve: row.curve, label: row.label, rows: [row], duplicate: earlier !== undefined || single };
     groups.push(current);
     if (!earlier) seen.set(key, current);
     if (!firstOfCurve.has(row.curve)) firstOfCurve.set(row.curve, current);
   }
   return groups;
+}
+
+/**
+ * A whole column on the wrong scale (every efficiency above 1 in a fraction file, or at most 1 in a
+ * percent file) is one slip in the header, reported once on the header line instead of on every row.
+ * Returns true when it reported one.
+ */
+export function checkEfficiencyScale(rows: DataRow[], scale: EfficiencyScale | null, headerLine: number | null, problems: ProblemList): boolean {
+  if (scale === null || headerLine === null) return false;
+  const values = rows.map((r) => r.values[2]).filter((e): e is number => e !== null);
+  if (values.length === 0) return false;
+  if (scale === 'percent' && values.every((e) => e > 0 && e <= 1)) {
+    problems.add('efficiency-scale', headerLine, null, 'the header says efficiency is in percent, but every efficiency is at most 1; write "# efficiency: fraction" or give percent values');
+    return true;
+  }
+  if (scale === 'fraction' && values.every((e) => e > 1 && e <= 100)) {
+    problems.add('efficiency-scale', headerLine, null, 'the header says efficiency is a fraction, but every efficiency is above 1; write "# efficiency: percent" or give fractions');
+    return true;
+  }
+  return false;
 }
 
 /** Checks an efficiency cell against the file's scale; returns false when it is out of range. */
@@ -122,6 +145,7 @@ export function checkPointCount(group: RowGroup, minimum: number, problems: Prob
 export function checkDistinctSpeeds(groups: RowGroup[], problems: ProblemList): void {
   const bySpeed = new Map<number, RowGroup>();
   for (const group of groups) {
+    if (group.duplicate) continue;
     const speed = group.rows.find((r) => r.values[3] !== null)?.values[3];
     if (speed === undefined || speed === null) continue;
     const other = bySpeed.get(speed);

@@ -1,6 +1,7 @@
 import { COMPRESSOR_OPTIONAL_KEYS, COMPRESSOR_REQUIRED_KEYS, HEADER_KEYS } from './format';
 import {
   checkDistinctSpeeds,
+  checkEfficiencyScale,
   checkEfficiency,
   checkIncreasing,
   checkPointCount,
@@ -121,10 +122,13 @@ export function readCompressor(
   const reference = readReference(section, problems);
   const maxSpeed = readMaxSpeed(section, problems);
 
-  for (const row of rows) checkRow(row, common, problems);
+  const scaleLine = section.entries.get(HEADER_KEYS.efficiency)?.line ?? null;
+  const wrongScale = checkEfficiencyScale(rows, common.efficiency, scaleLine, problems);
+  for (const row of rows) checkRow(row, wrongScale ? { ...common, efficiency: null } : common, problems);
   const groups = groupRows(rows, ['surge', 'choke'], problems);
   const closedRows = new Map<object, DataRow[]>();
   for (const group of groups) {
+    if (group.duplicate) continue;
     if (group.curve === 'island') {
       checkSameAlongLine(group, 5, 'efficiency', problems);
       if (distinctPointCount(group.rows) < 3) {
@@ -154,10 +158,6 @@ export function readCompressor(
     const efficiencies = rows.map((r) => r.values[2]).filter((e): e is number => e !== null);
     if (efficiencies.length === 0 && rows.length > 0) {
       problems.add('missing-curve', null, null, 'no row gives an efficiency; add efficiencies on the speed lines or efficiency islands');
-    }
-    const scaleEntry = section.entries.get(HEADER_KEYS.efficiency);
-    if (common.efficiency === 'percent' && efficiencies.length > 0 && efficiencies.every((e) => e <= 1) && scaleEntry) {
-      problems.add('efficiency-scale', scaleEntry.line, null, 'the header says efficiency is in percent, but every efficiency is at most 1; write "# efficiency: fraction" or give percent values');
     }
   }
 

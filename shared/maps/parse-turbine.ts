@@ -1,5 +1,5 @@
 import { HEADER_KEYS, HOUSINGS, TURBINE_OPTIONAL_KEYS, TURBINE_REQUIRED_KEYS, type Housing, type ScrollFeed } from './format';
-import { checkDistinctSpeeds, checkEfficiency, checkIncreasing, checkPointCount, checkSameAlongLine, groupRows } from './curves';
+import { checkDistinctSpeeds, checkEfficiency, checkEfficiencyScale, checkIncreasing, checkPointCount, checkSameAlongLine, groupRows } from './curves';
 import { checkKeysForKind, parseDecimal, readUnitValue, type CommonHeader, type HeaderSection } from './header';
 import { quoteCell, type ProblemList } from './problems';
 import type { DataRow } from './rows';
@@ -79,19 +79,17 @@ export function readTurbine(section: HeaderSection, common: CommonHeader, rows: 
   const scrollFeed = readScrollFeed(section, housing, problems);
   const areaRatio = readAreaRatio(section, problems);
 
-  for (const row of rows) checkRow(row, common, problems);
+  const scaleLine = section.entries.get(HEADER_KEYS.efficiency)?.line ?? null;
+  const wrongScale = checkEfficiencyScale(rows, common.efficiency, scaleLine, problems);
+  for (const row of rows) checkRow(row, wrongScale ? { ...common, efficiency: null } : common, problems);
   const groups = groupRows(rows, [], problems);
   for (const group of groups) {
+    if (group.duplicate) continue;
     checkPointCount(group, 2, problems);
     checkSameAlongLine(group, 6, 'speed', problems);
     checkIncreasing(group, 3, 'expansion ratio', 'list a flow line\'s points from low to high expansion ratio', problems);
   }
   checkDistinctSpeeds(groups, problems);
-  const scaleEntry = section.entries.get(HEADER_KEYS.efficiency);
-  const efficiencies = rows.map((r) => r.values[2]).filter((e): e is number => e !== null);
-  if (common.efficiency === 'percent' && efficiencies.length > 0 && efficiencies.every((e) => e <= 1) && scaleEntry) {
-    problems.add('efficiency-scale', scaleEntry.line, null, 'the header says efficiency is in percent, but every efficiency is at most 1; write "# efficiency: fraction" or give percent values');
-  }
 
   if (!problems.isEmpty || !flowParameterUnit || !housing || scrollFeed === undefined || areaRatio === undefined || !common.name || !common.efficiency) {
     return null;

@@ -109,7 +109,8 @@ export function parseMapFile(input: string | Uint8Array): MapParseResult {
     return refuse(problems);
   }
 
-  const rows = readDataRows(lines, firstDataIndex, COLUMNS[kind], CURVES[kind], problems);
+  const read = readDataRows(lines, firstDataIndex, COLUMNS[kind], CURVES[kind], problems);
+  const rows = read.complete ? read.rows : [];
   const notes: MapProblem[] = [];
   const map = kind === 'compressor' ? readCompressor(section, common, rows, problems, notes) : readTurbine(section, common, rows, problems);
   if (!problems.isEmpty) return refuse(problems);

@@ -46,7 +46,9 @@ function readNumberCell(cell: string, line: number, column: number, columnName: 
 
 /**
  * Reads the rows after the column names with papaparse. Rows keep their file line so that every
- * problem can be placed; a row with any unreadable cell is reported and left out.
+ * problem can be placed; a row with any unreadable cell is reported and left out. `complete` is
+ * false when an unclosed quote swallowed the rest of the file, so that checks of whole lines are
+ * skipped instead of reporting the damage as more problems.
  */
 export function readDataRows(
   lines: string[],
@@ -54,7 +56,7 @@ export function readDataRows(
   columns: readonly string[],
   curveKinds: readonly string[],
   problems: ProblemList,
-): DataRow[] {
+): { rows: DataRow[]; complete: boolean } {
   const dataText = lines.slice(firstDataIndex).join('\n');
   const parsed = Papa.parse<string[]>(dataText, { delimiter: ',', newline: '\n', quoteChar: '"', skipEmptyLines: false });
   const rows: DataRow[] = [];
@@ -82,7 +84,7 @@ export function readDataRows(
     const errorLine = typeof error.row === 'number' ? (rowLines[error.row] ?? null) : null;
     problems.add('unclosed-quote', errorLine, null, 'a quote mark is missing or misplaced in this row; quote whole cells only, and close every quote on its own line');
   }
-  return rows;
+  return { rows, complete: !quoteReported };
 }
 
 function readRow(
