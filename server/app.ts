@@ -18,6 +18,7 @@ import { authRouter } from './routes/auth';
 import { computeRouter } from './routes/compute';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
+import { mapsRouter } from './routes/maps';
 import { teamsRouter } from './routes/teams';
 
 export interface AppDeps {
@@ -91,6 +92,7 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   });
   api.use('/health', healthRouter(deps));
   api.use('/auth', authRouter(deps));
+  api.use('/teams/:teamId/maps', mapsRouter(deps));
   api.use('/teams', teamsRouter(deps));
   api.use('/invitations', invitationsRouter(deps));
   api.use('/admin', adminRouter(deps));

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { boolean, index, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { boolean, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 
 const createdAt = () => timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow();
 
@@ -113,4 +113,26 @@ export const outbox = pgTable(
     receivedAt: timestamp('received_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
   },
   (t) => [index('outbox_received_idx').on(t.receivedAt)],
+);
+
+/** A team's compressor and turbine maps. `parsed` is the SI map model; `fileText` the upload as it came. */
+export const maps = pgTable(
+  'maps',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    kind: text('kind', { enum: ['compressor', 'turbine'] }).notNull(),
+    name: text('name').notNull(),
+    notes: text('notes').notNull().default(''),
+    parsed: jsonb('parsed').notNull(),
+    fileText: text('file_text').notNull(),
+    fileName: text('file_name').notNull(),
+    revision: integer('revision').notNull().default(1),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [index('maps_team_idx').on(t.teamId, t.kind, t.name)],
 );
