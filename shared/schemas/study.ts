@@ -1,0 +1,202 @@
+/**
+ * The study document: one zod schema used by the client's forms, the API and the database (jsonb).
+ * It is the engine's study input (SI) plus what a saved study needs around it: a schema version,
+ * a label for the engine (searched in the study list), notes, and each plan's map references.
+ */
+import { z } from 'zod';
+import type { StudyInput } from '../matching/types';
+import { planSchema, studyInputSchema } from './compute';
+
+export const STUDY_SCHEMA_VERSION = 1;
+
+export const studyTitleSchema = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
+
+/** A plan as saved: the engine's plan plus a stable id and the map it is judged on. */
+export const studyPlanSchema = planSchema.extend({
+  /** Stable within the study, so Side by side and findings can point at a plan across edits. */
+  id: z.string().min(1).max(64),
+  /** A map library id (a team map or a built-in `builtin-…` one); null judges the plan without a map. */
+  compressorMapId: z.string().min(1).max(80).nullable(),
+});
+export type StudyPlan = z.output<typeof studyPlanSchema>;
+
+const documentShape = z.strictObject({
+  schemaVersion: z.literal(STUDY_SCHEMA_VERSION, { error: `schemaVersion must be ${STUDY_SCHEMA_VERSION}` }),
+  /** A short description of the engine, e.g. "2.0 L four, hill-climb"; the study list searches it. */
+  engineLabel: z.string().trim().max(120, 'engineLabel must be at most 120 characters'),
+  notes: z.string().max(10_000, 'notes must be at most 10 000 characters'),
+  engine: z.unknown(),
+  fuelSystem: z.unknown(),
+  power: z.unknown(),
+  losses: z.unknown(),
+  intercooler: z.unknown(),
+  scenarios: z.unknown(),
+  plans: z.array(studyPlanSchema.passthrough()).min(1, 'a study needs at least one plan').max(10, 'at most 10 plans'),
+});
+
+/** The engine's view of a document: plans without their ids and map references. */
+export function studyInputOf(doc: { engine: unknown; fuelSystem: unknown; power: unknown; losses: unknown; intercooler: unknown; scenarios: unknown; plans: unknown[] }): unknown {
+  return {
+    engine: doc.engine,
+    fuelSystem: doc.fuelSystem,
+    power: doc.power,
+    losses: doc.losses,
+    intercooler: doc.intercooler,
+    scenarios: doc.scenarios,
+    plans: doc.plans.map((p) => {
+      if (!p || typeof p !== 'object') return p;
+      const { id: _id, compressorMapId: _map, ...plan } = p as Record<string, unknown>;
+      return plan;
+    }),
+  };
+}
+
+/**
+ * The whole document, checked by the engine's own input schema so that a saved study always
+ * computes. Issue paths are the document's paths (`plans.1.turbochargers`).
+ */
+export const studyDocumentSchema = documentShape
+  .superRefine((doc, ctx) => {
+    const plans = studyPlanSchema.array().safeParse(doc.plans);
+    if (!plans.success) for (const issue of plans.error.issues) ctx.addIssue({ ...issue, path: ['plans', ...issue.path] } as never);
+    const ids = new Set<string>();
+    doc.plans.forEach((p, i) => {
+      if (ids.has(p.id)) ctx.addIssue({ code: 'custom', path: ['plans', i, 'id'], message: 'two plans share this id' });
+      ids.add(p.id);
+    });
+    const input = studyInputSchema.safeParse(studyInputOf(doc));
+    if (!input.success) for (const issue of input.error.issues) ctx.addIssue(issue as never);
+  })
+  .transform((doc) => {
+    const input = studyInputSchema.parse(studyInputOf(doc)) as StudyInput;
+    const plans = doc.plans.map((p, i) => ({ ...input.plans[i], id: p.id, compressorMapId: p.compressorMapId }));
+    return { schemaVersion: doc.schemaVersion, engineLabel: doc.engineLabel, notes: doc.notes, ...input, plans } as StudyDocument;
+  });
+
+export interface StudyDocument extends Omit<StudyInput, 'plans'> {
+  schemaVersion: typeof STUDY_SCHEMA_VERSION;
+  engineLabel: string;
+  notes: string;
+  plans: StudyPlan[];
+}
+
+/** The engine input of a valid document. */
+export function toStudyInput(doc: StudyDocument): StudyInput {
+  return studyInputOf(doc) as StudyInput;
+}
+
+export class StudyVersionError extends Error {}
+
+/**
+ * Brings a stored document of any earlier schema version up to the current one. Version 0 is the
+ * pre-release shape without `schemaVersion`, `engineLabel` or `notes`, whose plans named their map
+ * in `mapId` and had no ids.
+ */
+export function migrateStudyDocument(raw: unknown): unknown {
+  if (!raw || typeof raw !== 'object' || Array.isArray(raw)) return raw;
+  const doc = { ...(raw as Record<string, unknown>) };
+  const version = doc.schemaVersion ?? 0;
+  if (typeof version !== 'number' || !Number.isInteger(version) || version < 0) return raw;
+  if (version > STUDY_SCHEMA_VERSION) {
+    throw new StudyVersionError(`this study was saved by a newer Spoolbook (document version ${version}; this one reads up to ${STUDY_SCHEMA_VERSION})`);
+  }
+  if (version === 0) {
+    doc.schemaVersion = 1;
+    doc.engineLabel ??= '';
+    doc.notes ??= '';
+    if (Array.isArray(doc.plans)) {
+      doc.plans = doc.plans.map((p, i) => {
+        if (!p || typeof p !== 'object') return p;
+        const { mapId, ...rest } = p as Record<string, unknown>;
+        return { id: `plan-${i + 1}`, compressorMapId: typeof mapId === 'string' ? mapId : null, ...rest };
+      });
+    }
+  }
+  return doc;
+}
+
+// ——— API shapes ———
+
+export const createStudySchema = z.strictObject({
+  title: studyTitleSchema,
+  /** A document to start from; absent starts from the demo study's engine and plans. */
+  document: z.unknown().optional(),
+});
+export const saveStudySchema = z.strictObject({
+  baseRevision: z.number().int().min(1),
+  document: z.unknown(),
+  message: z.string().trim().max(200, 'message must be at most 200 characters').optional(),
+});
+export const updateStudyMetaSchema = z
+  .strictObject({ title: studyTitleSchema.optional(), archived: z.boolean().optional() })
+  .refine((v) => v.title !== undefined || v.archived !== undefined, 'give a title or archived to change');
+export const duplicateStudySchema = z.strictObject({ title: studyTitleSchema.optional() });
+export const restoreRevisionSchema = z.strictObject({ baseRevision: z.number().int().min(1) });
+export const createShareLinkSchema = z.strictObject({
+  /** Days until the link stops working; absent never expires (it can still be revoked). */
+  expiresInDays: z.number().int().min(1).max(365).optional(),
+});
+export const studyListQuerySchema = z.strictObject({
+  q: z.string().trim().max(100).optional(),
+  author: z.string().max(64).optional(),
+  archived: z.enum(['false', 'true', 'all']).default('false'),
+  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+});
+
+export const studySummarySchema = z.object({
+  id: z.string(),
+  title: z.string(),
+  engineLabel: z.string(),
+  revision: z.number(),
+  archived: z.boolean(),
+  createdBy: z.string().nullable(),
+  updatedBy: z.string().nullable(),
+  updatedAt: z.string(),
+});
+export type StudySummary = z.infer<typeof studySummarySchema>;
+
+export const studyListSchema = z.object({
+  studies: z.array(studySummarySchema),
+  total: z.number(),
+  page: z.number(),
+  pageSize: z.number(),
+  authors: z.array(z.object({ id: z.string(), name: z.string() })),
+});
+
+export const studyDetailSchema = studySummarySchema.extend({
+  teamId: z.string(),
+  createdAt: z.string(),
+  /** The saved document (already migrated to the current version). */
+  document: z.unknown(),
+  /** The caller may edit (owner or editor). */
+  canEdit: z.boolean(),
+});
+export type StudyDetail = z.infer<typeof studyDetailSchema>;
+
+export const revisionSummarySchema = z.object({
+  revision: z.number(),
+  message: z.string(),
+  author: z.string().nullable(),
+  createdAt: z.string(),
+});
+export const revisionDetailSchema = revisionSummarySchema.extend({ document: z.unknown() });
+
+export const shareLinkSchema = z.object({
+  id: z.string(),
+  createdAt: z.string(),
+  createdBy: z.string().nullable(),
+  expiresAt: z.string().nullable(),
+  revokedAt: z.string().nullable(),
+  /** Present only in the answer that created the link: the token is stored hashed and never shown again. */
+  url: z.string().optional(),
+});
+
+export const sharedStudySchema = z.object({
+  title: z.string(),
+  revision: z.number(),
+  updatedAt: z.string(),
+  document: z.unknown(),
+  /** The maps the plans use, by id, so the shared view computes without access to the team library. */
+  maps: z.record(z.string(), z.unknown()),
+});
