@@ -24,9 +24,8 @@ import { StudiesRoute } from './routes/studies';
 import { TeamRoute } from './routes/team';
 import { TeamsRoute } from './routes/teams';
 
-/** Strips the leading slash: child routes are relative to their parent. */
-const child = (path: string) => path.replace(/^\//, '');
-
+// Route paths are absolute (from lib/paths); React Router accepts them in nested routes
+// because each starts with its parent's path.
 export const routes = [
   {
     path: '/',
@@ -46,8 +45,8 @@ export const routes = [
           {
             element: <RequireSignedOut />,
             children: [
-              { path: child(paths.signIn.path), element: <SignInRoute /> },
-              { path: child(paths.signUp.path), element: <SignUpRoute /> },
+              { path: paths.signIn.path, element: <SignInRoute /> },
+              { path: paths.signUp.path, element: <SignUpRoute /> },
             ],
           },
         ],
@@ -55,9 +54,9 @@ export const routes = [
       {
         element: <SessionLayout />,
         children: [
-          { path: child(paths.forgotPassword.path), element: <ForgotPasswordRoute /> },
-          { path: child(paths.resetPassword.path), element: <ResetPasswordRoute /> },
-          { path: child(paths.invitation.path), element: <InvitationRoute /> },
+          { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
+          { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
+          { path: paths.invitation.path, element: <InvitationRoute /> },
         ],
       },
       {
@@ -66,23 +65,23 @@ export const routes = [
           {
             element: <AppLayout />,
             children: [
-              { path: child(paths.studies.path), element: <StudiesRoute /> },
-              { path: child(paths.maps.path), element: <MapsRoute /> },
-              { path: child(paths.learn.path), element: <LearnRoute /> },
-              { path: child(paths.teams.path), element: <TeamsRoute /> },
-              { path: child(paths.team.path), element: <TeamRoute /> },
-              { path: child(paths.settings.path), element: <SettingsRoute /> },
+              { path: paths.studies.path, element: <StudiesRoute /> },
+              { path: paths.maps.path, element: <MapsRoute /> },
+              { path: paths.learn.path, element: <LearnRoute /> },
+              { path: paths.teams.path, element: <TeamsRoute /> },
+              { path: paths.team.path, element: <TeamRoute /> },
+              { path: paths.settings.path, element: <SettingsRoute /> },
               {
-                path: child(paths.admin.path),
+                path: paths.admin.path,
                 element: <RequireAdmin />,
                 children: [
                   {
                     element: <AdminLayout />,
                     children: [
                       { index: true, element: <Navigate to={paths.adminTeams.href()} replace /> },
-                      { path: child(paths.adminTeams.path), element: <AdminTeamsRoute /> },
-                      { path: child(paths.adminOutbox.path), element: <AdminOutboxRoute /> },
-                      { path: child(paths.adminOutboxMessage.path), element: <AdminOutboxMessageRoute /> },
+                      { path: paths.adminTeams.path, element: <AdminTeamsRoute /> },
+                      { path: paths.adminOutbox.path, element: <AdminOutboxRoute /> },
+                      { path: paths.adminOutboxMessage.path, element: <AdminOutboxMessageRoute /> },
                     ],
                   },
                 ],

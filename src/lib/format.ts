@@ -8,9 +8,9 @@ export function formatDateTime(iso: string): string {
 
 export const roleNames = { owner: 'Owner', editor: 'Editor', viewer: 'Viewer' } as const;
 
-/** What each role may do, in a line, for pickers and the invitation page. */
-export const roleDescriptions = {
-  owner: 'manages members, invitations and the team itself',
-  editor: 'creates and changes studies and maps',
-  viewer: 'reads studies and maps',
+/** What each role may do, to follow "can": "an editor can create and change studies and maps". */
+export const roleAbilities = {
+  owner: 'manage members, invitations and the team, and create and change studies and maps',
+  editor: 'create and change studies and maps',
+  viewer: 'read studies and maps',
 } as const;

@@ -30,13 +30,19 @@ export function useMe() {
 
 /** Stores a fresh `me` after signing in or up; drops everything cached for whoever came before. */
 export function startSession(queryClient: QueryClient, me: Me): void {
-  queryClient.clear();
+  // Not queryClient.clear(): mounted observers of `me` would keep watching the removed query
+  // and never see the new user.
+  forgetUserData(queryClient);
   queryClient.setQueryData(meQueryOptions().queryKey, me);
+}
+
+function forgetUserData(queryClient: QueryClient): void {
+  queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== meQueryOptions().queryKey[0] });
 }
 
 /** Forgets the signed-in user and every cached answer that belonged to them. */
 export function endSession(queryClient: QueryClient): void {
-  queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== 'auth' });
+  forgetUserData(queryClient);
   queryClient.setQueryData(meQueryOptions().queryKey, null);
 }
 

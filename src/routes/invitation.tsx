@@ -14,7 +14,7 @@ export function InvitationRoute() {
     <InvitationPanel
       token={token}
       onAccepted={(team) => navigate(paths.team.href(team.id), { replace: true })}
-      signOutButton={<SignOutButton variant="secondary" />}
+      signOutButton={<SignOutButton variant="secondary" landing="here" />}
       signedOutActions={(email) => (
         <div className="grid gap-4 md:grid-cols-2">
           <Card title="New to Spoolbook?" titleAs="h2">

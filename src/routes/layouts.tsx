@@ -1,4 +1,4 @@
-import { Link, Outlet, ScrollRestoration, useNavigate } from 'react-router';
+import { Link, Outlet, ScrollRestoration } from 'react-router';
 import { BrandMark, BrandWord } from '../components/Brand';
 import { Nav, SkipLink, type NavItem } from '../components/Nav';
 import { SignOutButton } from '../features/auth/components/SignOutButton';
@@ -26,7 +26,6 @@ export function RootLayout() {
 /** Signed-in pages: the header with the areas, the unit switch and the account. */
 export function AppLayout() {
   const me = useMe();
-  const navigate = useNavigate();
   const user = me.data?.user;
   return (
     <div className="flex min-h-screen flex-col">
@@ -37,10 +36,11 @@ export function AppLayout() {
         end={
           <>
             <UnitSwitch />
-            <Link to={paths.settings.href()} className="text-sm font-semibold" title="Account settings">
-              {user?.name ?? 'Account'}
+            {user && <span className="hidden text-sm text-ink-soft lg:inline">{user.name}</span>}
+            <Link to={paths.settings.href()} className="text-sm font-semibold">
+              Account
             </Link>
-            <SignOutButton onSignedOut={() => navigate(paths.signIn.href(), { replace: true })} />
+            <SignOutButton />
           </>
         }
       />

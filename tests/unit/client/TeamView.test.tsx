@@ -70,7 +70,7 @@ describe('team page by role', () => {
     // Owners leave by handing over and using Leave, never by removing themselves.
     expect(screen.queryByRole('button', { name: 'Remove Ada' })).toBeNull();
     expect(screen.getByRole('button', { name: 'Send invitation' })).toBeTruthy();
-    expect(screen.getByRole('button', { name: 'Resend invitation to cy@example.test' })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Resend link to cy@example.test' })).toBeTruthy();
     expect(screen.getByRole('button', { name: 'Cancel invitation to cy@example.test' })).toBeTruthy();
     expect(screen.getByRole('button', { name: 'Rename team' })).toBeTruthy();
     expect(screen.getByRole('button', { name: 'Delete team' })).toBeTruthy();

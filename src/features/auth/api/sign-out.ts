@@ -1,15 +1,18 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { endSession } from '../../../lib/session';
 
 export function signOut() {
   return api.post('/api/auth/sign-out');
 }
 
-export function useSignOut() {
-  const queryClient = useQueryClient();
+/**
+ * Signs out, then loads `landing` afresh. A full page load is the surest way to forget every
+ * cached answer of the user, and it avoids a race with the route guards, which would otherwise
+ * see the user vanish and redirect before the chosen landing page.
+ */
+export function useSignOut(landing: () => string) {
   return useMutation({
     mutationFn: signOut,
-    onSuccess: () => endSession(queryClient),
+    onSuccess: () => window.location.assign(landing()),
   });
 }

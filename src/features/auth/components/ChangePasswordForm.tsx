@@ -35,7 +35,7 @@ export function ChangePasswordForm() {
     <Form errors={errors} onSubmit={submit} aria-label="Change password">
       <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" error={errors.fields.currentPassword} required />
       <TextField label="New password" name="newPassword" type="password" autoComplete="new-password" hint="At least 8 characters." error={errors.fields.newPassword} required />
-      <TextField label="Repeat the new password" name="confirmPassword" type="password" autoComplete="new-password" error={errors.fields.confirmPassword} required />
+      <TextField label="Confirm password" name="confirmPassword" type="password" autoComplete="new-password" error={errors.fields.confirmPassword} required />
       {change.isSuccess && !change.isPending && (
         <Alert tone="success" title="Password changed">
           Every other session of this account was signed out; this one stays signed in.

@@ -51,7 +51,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
   }
 
   return (
-    <Form errors={errors} onSubmit={submit} aria-label="Choose a new password">
+    <Form errors={errors} onSubmit={submit} aria-label="Password reset">
       <TextField
         label="New password"
         name="password"
@@ -62,7 +62,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
         required
       />
       <TextField
-        label="Repeat the new password"
+        label="Confirm password"
         name="confirmPassword"
         type="password"
         autoComplete="new-password"

@@ -1,11 +1,14 @@
 import { Button, type ButtonVariant } from '../../../components/Button';
+import { paths } from '../../../lib/paths';
 import { useSignOut } from '../api/sign-out';
 
-/** Ends the session; `onSignedOut` says where to go (the invitation page stays put). */
-export function SignOutButton({ onSignedOut, variant = 'quiet' }: { onSignedOut?: () => void; variant?: ButtonVariant }) {
-  const signOut = useSignOut();
+/** Ends the session and opens `landing` (sign-in unless told; the invitation page stays put). */
+export function SignOutButton({ landing = 'sign-in', variant = 'quiet' }: { landing?: 'sign-in' | 'here'; variant?: ButtonVariant }) {
+  const signOut = useSignOut(() =>
+    landing === 'here' ? `${window.location.pathname}${window.location.search}` : paths.signIn.href(),
+  );
   return (
-    <Button variant={variant} pending={signOut.isPending} onClick={() => signOut.mutate(undefined, { onSuccess: onSignedOut })}>
+    <Button variant={variant} pending={signOut.isPending || signOut.isSuccess} onClick={() => signOut.mutate()}>
       Sign out
     </Button>
   );

@@ -16,7 +16,7 @@ export function UnitSwitch() {
           key={system}
           type="button"
           aria-pressed={shown === system}
-          title={`Show ${unitSystemNames[system]} units`}
+          aria-label={`${unitSystemNames[system]} units`}
           disabled={update.isPending}
           onClick={() => shown !== system && update.mutate({ unitSystem: system })}
           className={`rounded px-2 py-1 transition-colors ${shown === system ? 'bg-teal text-white' : 'text-ink-soft hover:text-ink'}`}

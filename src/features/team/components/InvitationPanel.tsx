@@ -6,7 +6,7 @@ import { Button } from '../../../components/Button';
 import { Card } from '../../../components/Card';
 import { Loading, Page } from '../../../components/Page';
 import { isApiError } from '../../../lib/api-client';
-import { formatDateTime, roleDescriptions, roleNames } from '../../../lib/format';
+import { formatDateTime, roleAbilities, roleNames } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useMe } from '../../../lib/session';
 import { useAcceptInvitation } from '../api/accept-invitation';
@@ -78,7 +78,7 @@ function InvitationSummary({ preview }: { preview: InvitationPreview }) {
         <dd className="font-semibold">{preview.teamName}</dd>
         <dt className="text-sm font-semibold text-ink-soft">Role</dt>
         <dd>
-          {roleNames[preview.role]} <span className="text-ink-soft">({roleDescriptions[preview.role]})</span>
+          {roleNames[preview.role]} <span className="text-ink-soft">(can {roleAbilities[preview.role]})</span>
         </dd>
         <dt className="text-sm font-semibold text-ink-soft">Invited address</dt>
         <dd>{preview.email}</dd>

@@ -6,7 +6,7 @@ import { Form, FormActions } from '../../../components/Form';
 import { SelectField } from '../../../components/SelectField';
 import { TextField } from '../../../components/TextField';
 import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
-import { roleDescriptions } from '../../../lib/format';
+import { roleAbilities } from '../../../lib/format';
 import { useCreateInvitation } from '../api/create-invitation';
 import { roleOptions } from './MembersTable';
 
@@ -38,7 +38,7 @@ export function InviteForm({ teamId }: { teamId: string }) {
         <SelectField label="Role" name="role" options={roleOptions} defaultValue="editor" error={errors.fields.role} />
       </div>
       <p className="text-sm text-ink-soft">
-        Owner: {roleDescriptions.owner}. Editor: {roleDescriptions.editor}. Viewer: {roleDescriptions.viewer}.
+        Viewers can {roleAbilities.viewer}. Editors can {roleAbilities.editor}. Owners can {roleAbilities.owner}.
       </p>
       {sentTo && <Alert tone="success">Invitation sent to {sentTo}.</Alert>}
       <FormActions>

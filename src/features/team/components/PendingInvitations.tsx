@@ -60,7 +60,7 @@ function InvitationRow({ teamId, invitation }: { teamId: string; invitation: Inv
           <Button
             pending={resend.isPending}
             onClick={() => resend.mutate(invitation.id)}
-            aria-label={`Resend invitation to ${invitation.email}`}
+            aria-label={`Resend link to ${invitation.email}`}
           >
             Resend
           </Button>

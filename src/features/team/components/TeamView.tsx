@@ -6,7 +6,7 @@ import { Card } from '../../../components/Card';
 import { ConfirmButton } from '../../../components/ConfirmButton';
 import { Loading, Page } from '../../../components/Page';
 import { isApiError } from '../../../lib/api-client';
-import { roleDescriptions, roleNames } from '../../../lib/format';
+import { roleAbilities, roleNames } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useMe } from '../../../lib/session';
 import { useDeleteTeam } from '../api/delete-team';
@@ -55,7 +55,7 @@ function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => 
       description={
         team.role ? (
           <>
-            You are {team.role === 'owner' ? 'an' : 'a'} {roleNames[team.role].toLowerCase()} here: you {roleDescriptions[team.role]}.
+            You are {team.role === 'owner' ? 'an' : 'a'} {roleNames[team.role].toLowerCase()} here: you can {roleAbilities[team.role]}.
           </>
         ) : (
           'You are not a member of this team; as a site admin you can see it.'
@@ -83,7 +83,7 @@ function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => 
       )}
 
       {(canLeave || isOwner) && (
-        <Card title="Leave or delete">
+        <Card title={isOwner && !team.personal ? 'Leave or delete' : 'Leave the team'}>
           <div className="flex flex-wrap items-start gap-6">
             {canLeave && <LeaveTeam teamId={team.id} teamName={team.name} onLeft={onGone} />}
             {isOwner &&
