@@ -67,7 +67,8 @@ export function readDataRows(
     const rowLine = line;
     rowLines.push(rowLine);
     // A quoted cell that runs past the end of its line shifts every later line: count them.
-    const breaks = cells.reduce((n, c) => n + (c.split('\n').length - 1), 0);
+    let breaks = 0;
+    for (const c of cells) for (let at = c.indexOf('\n'); at !== -1; at = c.indexOf('\n', at + 1)) breaks++;
     line += 1 + breaks;
     if (breaks > 0) {
       problems.add('unclosed-quote', rowLine, null, 'a quoted cell runs past the end of the line (a missing closing quote?); the rest of the file could not be read');
@@ -95,7 +96,8 @@ function readRow(
   curveKinds: readonly string[],
   problems: ProblemList,
 ): DataRow | null {
-  if (raw.trim().startsWith('#') || raw.trim().startsWith('"#')) {
+  const first = raw.trimStart();
+  if (first.startsWith('#') || first.startsWith('"#')) {
     problems.add('header-after-data', line, null, 'header lines ("# key: value") go above the column names, not among the data rows');
     return null;
   }
