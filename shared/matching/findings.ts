@@ -106,6 +106,10 @@ export function lineInputFindings(ctx: LineContext, rpm: number): Finding[] {
   return out;
 }
 
+function dutyQuantity(value: number, threshold: number): { value: number; threshold: number; kind: WorkingKind } {
+  return { value, threshold, kind: 'fraction' };
+}
+
 /** Findings of one solved point. */
 export function pointFindings(v: PointValues, ctx: LineContext): Finding[] {
   const out: Finding[] = [];
@@ -219,13 +223,12 @@ export function pointFindings(v: PointValues, ctx: LineContext): Finding[] {
   }
   if (v.injectorDuty !== null) {
     const duty = v.injectorDuty;
-    const quantity = (threshold: number) => ({ value: duty, threshold, kind: 'fraction' as const });
     if (duty >= INJECTOR_DUTY_SATURATED) {
-      out.push(finding('injector-saturated', 'limit', `Injector duty ${pct(duty)}: the injectors are saturated and cannot deliver the fuel.`, rpm, quantity(INJECTOR_DUTY_SATURATED)));
+      out.push(finding('injector-saturated', 'limit', `Injector duty ${pct(duty)}: the injectors are saturated and cannot deliver the fuel.`, rpm, dutyQuantity(duty, INJECTOR_DUTY_SATURATED)));
     } else if (duty > INJECTOR_DUTY_LIMIT) {
-      out.push(finding('injector-duty-limit', 'limit', `Injector duty ${pct(duty)} is over the ${pct(INJECTOR_DUTY_LIMIT)} limit (common practice).`, rpm, quantity(INJECTOR_DUTY_LIMIT)));
+      out.push(finding('injector-duty-limit', 'limit', `Injector duty ${pct(duty)} is over the ${pct(INJECTOR_DUTY_LIMIT)} limit (common practice).`, rpm, dutyQuantity(duty, INJECTOR_DUTY_LIMIT)));
     } else if (duty > INJECTOR_DUTY_WARNING) {
-      out.push(finding('injector-duty-high', 'warning', `Injector duty ${pct(duty)} is over the usual ${pct(INJECTOR_DUTY_WARNING)} (common practice).`, rpm, quantity(INJECTOR_DUTY_WARNING)));
+      out.push(finding('injector-duty-high', 'warning', `Injector duty ${pct(duty)} is over the usual ${pct(INJECTOR_DUTY_WARNING)} (common practice).`, rpm, dutyQuantity(duty, INJECTOR_DUTY_WARNING)));
     }
   }
   if (ctx.pumpFlowAvailable !== null && v.pumpFlowRequired !== null) {

@@ -3,19 +3,19 @@
  * pressure ratio, corrected flow, outlet temperature and power, then fuel, power and injectors.
  * Each point is solved on its own (quasi-steady), as the trade does by hand.
  */
-import {
-  AIR_CP,
-  AIR_GAS_CONSTANT,
-  injectorPressureDifference as injectorPressureDifferenceOf,
-  isentropicTemperatureRatio,
-  railGaugePressure,
-  revolutionsPerCycle,
-  setCapacity,
-} from '../physics';
+// Imported from the modules themselves, not the physics index: re-export chains cost on the hot path.
+import { revolutionsPerCycle } from '../physics/airflow';
+import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT, isentropicExponent } from '../physics/gas';
+import { injectorPressureDifference as injectorPressureDifferenceOf, railGaugePressure, setCapacity } from '../physics/injectors';
 import type { CompressorModel, CompressorReading, MapLocation } from './compressor-model';
 import { lineInputFindings, pointFindings, unsolvableFinding } from './findings';
 import type { EfficiencySource, Finding, LineContext, OperatingPoint, PointValues } from './types';
 import { fmt } from './working';
+
+// Module-level copies: the solver reads them for every point.
+const R = AIR_GAS_CONSTANT;
+const CP = AIR_CP;
+const AIR_ISENTROPIC_EXPONENT = isentropicExponent(AIR_GAMMA);
 
 /** Compressor efficiency used when neither a point, a Plan nor a map gives one, fraction (from memory: a mid-island figure). */
 export const DEFAULT_COMPRESSOR_EFFICIENCY = 0.7;
@@ -129,8 +129,8 @@ export function solvePoint(
   const throttled = p2Unthrottled < p1;
   const p2 = throttled ? p1 : p2Unthrottled;
   const pressureRatio = p2 / p1;
-  const inletDensity = p1 / (AIR_GAS_CONSTANT * t1);
-  const temperatureRatio = isentropicTemperatureRatio(pressureRatio);
+  const inletDensity = p1 / (R * t1);
+  const temperatureRatio = Math.pow(pressureRatio, AIR_ISENTROPIC_EXPONENT);
   const isentropicOutletTemperature = t1 * temperatureRatio;
   const turbochargers = ctx.plan.turbochargers;
   // Volume of manifold-density air the engine swallows per second, m³/s.
@@ -142,7 +142,8 @@ export function solvePoint(
   const fallback = op.compressorEfficiency ?? ctx.plan.compressorEfficiency;
   const fallbackSource: EfficiencySource = op.compressorEfficiency !== undefined ? 'point' : 'plan';
   const efficiencyFromMap = model !== null && op.compressorEfficiency === undefined;
-  const outletTemperatureAt = (eta: number) => t1 * (1 + (temperatureRatio - 1) / eta);
+  // Corrected flow per kelvin of manifold temperature: ṁc = flowPerKelvin / T_man.
+  const flowPerKelvin = ((sweptFlow * manifoldPressure) / R / turbochargers) * correctionFactor;
 
   let manifoldTemperature: number;
   let efficiency = fallback;
@@ -153,26 +154,21 @@ export function solvePoint(
   const ic = ctx.intercooler;
   const effectiveness = ic.kind === 'effectiveness' ? ic.effectiveness : 0;
   const coolantTemperature = ic.kind === 'effectiveness' ? (ic.coolantTemperature ?? ambientTemperature) : ambientTemperature;
-  const cooled = (eta: number) => {
-    const t2 = outletTemperatureAt(eta);
-    return t2 - effectiveness * (t2 - coolantTemperature);
-  };
-  const correctedAt = (tMan: number) => ((sweptFlow * manifoldPressure) / (AIR_GAS_CONSTANT * tMan) / turbochargers) * correctionFactor;
 
   if (fixedTemperature !== null) {
     manifoldTemperature = fixedTemperature;
-    if (model) reading = readMap(model, correctedAt(manifoldTemperature), pressureRatio);
+    if (model) reading = readMap(model, flowPerKelvin / manifoldTemperature, pressureRatio);
   } else if (!efficiencyFromMap) {
-    manifoldTemperature = cooled(efficiency);
-    if (model) reading = readMap(model, correctedAt(manifoldTemperature), pressureRatio);
+    manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+    if (model) reading = readMap(model, flowPerKelvin / manifoldTemperature, pressureRatio);
   } else {
     // T_man depends on T2, T2 on the efficiency, and the efficiency on where the flow (set by
     // T_man) lands on the map: iterate to the fixed point.
     converged = false;
-    manifoldTemperature = cooled(efficiency);
+    manifoldTemperature = t1;
     for (iterations = 1; iterations <= MAX_ITERATIONS; iterations++) {
-      manifoldTemperature = cooled(efficiency);
-      reading = readMap(model!, correctedAt(manifoldTemperature), pressureRatio);
+      manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+      reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
       const next = reading.efficiency ?? fallback;
       if (Math.abs(next - efficiency) <= EFFICIENCY_TOLERANCE) {
         converged = true;
@@ -182,8 +178,8 @@ export function solvePoint(
     }
     if (!converged) {
       iterations = MAX_ITERATIONS;
-      manifoldTemperature = cooled(efficiency);
-      reading = readMap(model!, correctedAt(manifoldTemperature), pressureRatio);
+      manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+      reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
     }
   }
   let efficiencySource: EfficiencySource = fallbackSource;
@@ -193,15 +189,15 @@ export function solvePoint(
   } else if (efficiencyFromMap && fixedTemperature === null) {
     // Off the map at the settled point: the fallback holds, and the state must match it.
     efficiency = fallback;
-    manifoldTemperature = cooled(efficiency);
+    manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
   }
 
-  const airDensity = manifoldPressure / (AIR_GAS_CONSTANT * manifoldTemperature);
+  const airDensity = manifoldPressure / (R * manifoldTemperature);
   const engineMassFlow = sweptFlow * airDensity;
   const massFlow = engineMassFlow / turbochargers;
   const correctedMassFlow = massFlow * correctionFactor;
-  const compressorOutletTemperature = outletTemperatureAt(efficiency);
-  const compressorPower = massFlow * AIR_CP * (compressorOutletTemperature - t1);
+  const compressorOutletTemperature = t1 * (1 + (temperatureRatio - 1) / efficiency);
+  const compressorPower = massFlow * CP * (compressorOutletTemperature - t1);
 
   const planMax = positive(ctx.plan.maxShaftSpeed) ? ctx.plan.maxShaftSpeed : null;
   const mapMax = model && positive(model.maxSpeed) ? model.maxSpeed : null;
@@ -263,18 +259,33 @@ export function solvePoint(
   if (ctx.fuel && lambda !== null) addFuel(values, ctx, lambda);
 
   // Inputs inside the schema cannot get here, but a direct caller might pass extreme numbers.
-  const bad = nonFiniteKeys(values);
+  // One sum carries any NaN or Infinity; only then name the culprits.
+  const sum =
+    pressureRatio + compressorPower + compressorOutletTemperature + correctedMassFlow + manifoldTemperature + airDensity + inletDensity +
+    (values.fuelVolumeFlow ?? 0) + (values.brakePower ?? 0) + (values.torque ?? 0) + (values.injectorDuty ?? 0) + (values.apparentBsfc ?? 0) +
+    (values.speedMargin ?? 0) + (values.surgeMargin ?? 0) + (values.chokeMargin ?? 0) + (values.shaftSpeed ?? 0);
+  const bad = Number.isFinite(sum) ? NONE : nonFiniteKeys(values);
   if (bad.length > 0) return unsolved(rpm, [`The inputs lead to numbers too large to compute (${bad.join(', ')}).`]);
 
-  const findings: Finding[] = options.firstOfLine ? lineInputFindings(ctx, rpm) : [];
-  findings.push(...pointFindings(values, ctx));
+  const findings: Finding[] = pointFindings(values, ctx);
+  if (options.firstOfLine) findings.unshift(...lineInputFindings(ctx, rpm));
   return { solved: true, rpm, values, findings };
 }
 
 function nonFiniteKeys(values: PointValues): string[] {
-  const bad: string[] = [];
-  for (const [key, value] of Object.entries(values)) if (typeof value === 'number' && !Number.isFinite(value)) bad.push(key);
-  return bad;
+  let bad: string[] | null = null;
+  for (const key in values) {
+    const value = values[key as keyof PointValues];
+    if (typeof value === 'number' && !Number.isFinite(value)) (bad ??= []).push(key);
+  }
+  return bad ?? NONE;
+}
+const NONE: string[] = [];
+
+/** Manifold temperature after the intercooler, K, from T1 (K), the isentropic temperature ratio and the efficiency. */
+function cooledTemperature(t1: number, temperatureRatio: number, efficiency: number, effectiveness: number, coolantTemperature: number): number {
+  const t2 = t1 * (1 + (temperatureRatio - 1) / efficiency);
+  return t2 - effectiveness * (t2 - coolantTemperature);
 }
 
 /** Fuel flow, power and injectors of a solved point (in place: the point is still being built). */

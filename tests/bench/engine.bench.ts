@@ -1,0 +1,92 @@
+/**
+ * Speed of the matching engine: one whole study (3 plans × 4 scenarios × 60 rpm points) end to
+ * end, as the Study screen recomputes it on every keystroke. Target: under 2 ms median, far
+ * inside one 16 ms frame. Prints the figures; asserts nothing.
+ *
+ *   npx tsx tests/bench/engine.bench.ts
+ */
+import { performance } from 'node:perf_hooks';
+import { pointWorking, runStudy, type RunStudyOptions, type StudyInput } from '../../shared/matching';
+import { studyInputSchema } from '../../shared/schemas/compute';
+import { CC_PER_MIN, fakeModel } from '../unit/matching/fixtures';
+
+function benchStudy(): StudyInput {
+  const boostRow = (peak: number) => [
+    { rpm: 2000, value: 30_000 },
+    { rpm: 3500, value: peak * 0.8 },
+    { rpm: 4500, value: peak },
+    { rpm: 8000, value: peak * 0.9 },
+  ];
+  return {
+    engine: {
+      displacement: 0.002,
+      cylinders: 4,
+      strokes: 4,
+      rpm: { kind: 'range', min: 2000, max: 8000 - 100, step: 100 }, // 60 points
+      volumetricEfficiency: [
+        { rpm: 2000, value: 0.86 },
+        { rpm: 4000, value: 0.97 },
+        { rpm: 6000, value: 1.02 },
+        { rpm: 8000, value: 0.95 },
+      ],
+      limits: { maxRpm: 8500, maxCompressorOutletTemperature: 470 },
+    },
+    fuelSystem: {
+      fuel: { kind: 'ethanol-blend', ethanolPercent: 85 },
+      lambda: [
+        { rpm: 2000, value: 0.9 },
+        { rpm: 5000, value: 0.8 },
+      ],
+      injectors: {
+        primary: { count: 4, ratedFlow: 1000 * CC_PER_MIN, ratedPressure: 3e5 },
+        secondary: { count: 4, ratedFlow: 1000 * CC_PER_MIN, ratedPressure: 3e5, switchOverRpm: 5000 },
+        fuelPressure: 4e5,
+        regulator: 'manifold-referenced',
+      },
+      pumpFlowAvailable: 1e-4,
+    },
+    power: { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: 0.33, drivetrainLoss: 0.12 },
+    losses: { inlet: 2500, chargeCooler: 10_000 },
+    intercooler: { kind: 'effectiveness', effectiveness: 0.75 },
+    scenarios: [
+      { name: 'Sea level, mild', ambient: { pressure: 101_325, temperature: 293.15 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
+      { name: 'Hot day', ambient: { pressure: 100_000, temperature: 313.15 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
+      { name: 'Mountain pass', ambient: { altitude: 2200 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
+      { name: 'Gear 1', ambient: { pressure: 101_325, temperature: 293.15 }, boostSchedule: [{ label: 'Gear 1', kind: 'gear', gear: 1, boost: boostRow(90_000) }] },
+    ],
+    plans: [
+      { name: 'Small', turbochargers: 1, compressorEfficiency: 0.72, maxShaftSpeed: 190_000 },
+      { name: 'Large', turbochargers: 1, compressorEfficiency: 0.74 },
+      { name: 'Twin', turbochargers: 2, compressorEfficiency: 0.7 },
+    ],
+  };
+}
+
+function measure(name: string, run: () => void, runs: number, warmUp = 100): void {
+  for (let i = 0; i < warmUp; i++) run();
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    run();
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  const at = (q: number) => times[Math.min(times.length - 1, Math.floor(q * times.length))];
+  const ms = (x: number) => x.toFixed(3);
+  console.log(`${name.padEnd(58)} median ${ms(at(0.5))} ms   p10–p90 ${ms(at(0.1))}–${ms(at(0.9))} ms   runs ${runs}`);
+}
+
+const study = benchStudy();
+const models = [fakeModel(), fakeModel({ surgeSlope: 0.08, chokeFlow: 0.5 }), fakeModel({ chokeFlow: 0.3 })];
+const check = runStudy(study);
+const points = check.lines.reduce((n, l) => n + l.points.length, 0);
+console.log(`study: ${study.plans.length} plans × ${study.scenarios.length} scenarios × ${check.lines[0].points.length} rpm points = ${points} points (Node ${process.version})`);
+
+const whole = (options: RunStudyOptions) => () => void runStudy(study, options);
+measure('whole study, validated, Working lazy (the keystroke case)', whole({}), 1000);
+measure('whole study, validated, stand-in compressor maps', whole({ compressorModels: models }), 1000);
+measure('whole study, input already validated', whole({ validate: false }), 1000);
+measure('whole study, validated, Working built for every point', whole({ working: 'eager' }), 300);
+measure('schema validation of the study alone', () => void studyInputSchema.parse(study), 1000);
+const line = check.lines[0];
+measure('Working of one point, on demand', () => void pointWorking(line.context, line.points[40]), 5000);
