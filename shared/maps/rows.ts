@@ -29,8 +29,7 @@ export function splitCsvLine(line: string): string[] {
   return Papa.parse<string[]>(line, { delimiter: ',', quoteChar: '"' }).data[0] ?? [];
 }
 
-function readNumberCell(cell: string, line: number, column: number, columnName: string, problems: ProblemList): number | null | undefined {
-  const text = cell.trim();
+function readNumberCell(text: string, line: number, column: number, columnName: string, problems: ProblemList): number | null | undefined {
   if (text === '') return null;
   const value = parseDecimal(text);
   if (value !== null) return value;
@@ -108,22 +107,23 @@ function readRow(
     problems.add('column-count', line, null, `this row has ${width} columns; a map row has ${COLUMN_COUNT} (${columns.join(',')})${hint}`);
     return null;
   }
-  const cell = (i: number) => (cells[i] ?? '').trim();
+  const text: string[] = [];
+  for (let i = 0; i < COLUMN_COUNT; i++) text.push((cells[i] ?? '').trim());
   let readable = true;
 
-  const curve = cell(0).toLowerCase();
+  const curve = text[0].toLowerCase();
   if (curve === '') {
     problems.add('missing-value', line, 1, `curve is empty; use one of ${curveKinds.join(', ')}`);
     readable = false;
-  } else if (FORMULA_START.test(cells[0] ?? '') || FORMULA_START.test(cell(0))) {
-    problems.add('formula-cell', line, 1, `curve ${quoteCell(cell(0))} looks like a spreadsheet formula; use one of ${curveKinds.join(', ')}`);
+  } else if (FORMULA_START.test(cells[0] ?? '') || FORMULA_START.test(text[0])) {
+    problems.add('formula-cell', line, 1, `curve ${quoteCell(text[0])} looks like a spreadsheet formula; use one of ${curveKinds.join(', ')}`);
     readable = false;
   } else if (!curveKinds.includes(curve)) {
-    problems.add('unknown-curve', line, 1, `curve ${quoteCell(cell(0))} is not one Spoolbook knows; use one of ${curveKinds.join(', ')}`);
+    problems.add('unknown-curve', line, 1, `curve ${quoteCell(text[0])} is not one Spoolbook knows; use one of ${curveKinds.join(', ')}`);
     readable = false;
   }
 
-  const label = cell(1);
+  const label = text[1];
   if (FORMULA_START.test(cells[1] ?? '') || FORMULA_START.test(label)) {
     problems.add('formula-cell', line, 2, `label ${quoteCell(cells[1])} starts with =, +, -, @ or a tab, which a spreadsheet would run as a formula; start it with a letter or digit`);
     readable = false;
@@ -134,7 +134,7 @@ function readRow(
 
   const values: DataRow['values'] = [null, null, null, null];
   for (let i = 0; i < 4; i++) {
-    const value = readNumberCell(cell(i + 2), line, i + 3, columns[i + 2], problems);
+    const value = readNumberCell(text[i + 2], line, i + 3, columns[i + 2], problems);
     if (value === undefined) readable = false;
     else values[i] = value;
   }
