@@ -19,6 +19,8 @@ import { computeRouter } from './routes/compute';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
 import { mapsRouter } from './routes/maps';
+import { shareRouter } from './routes/share';
+import { studiesRouter } from './routes/studies';
 import { teamsRouter } from './routes/teams';
 
 export interface AppDeps {
@@ -93,6 +95,8 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   api.use('/health', healthRouter(deps));
   api.use('/auth', authRouter(deps));
   api.use('/teams/:teamId/maps', mapsRouter(deps));
+  api.use('/teams/:teamId/studies', studiesRouter(deps));
+  api.use('/share', shareRouter(deps));
   api.use('/teams', teamsRouter(deps));
   api.use('/invitations', invitationsRouter(deps));
   api.use('/admin', adminRouter(deps));

@@ -136,3 +136,59 @@ export const maps = pgTable(
   },
   (t) => [index('maps_team_idx').on(t.teamId, t.kind, t.name)],
 );
+
+/** A team's studies. `document` is the current revision's study document (shared/schemas/study.ts). */
+export const studies = pgTable(
+  'studies',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    title: text('title').notNull(),
+    /** Copied from the document on every save, for the list's search. */
+    engineLabel: text('engine_label').notNull().default(''),
+    document: jsonb('document').notNull(),
+    revision: integer('revision').notNull().default(1),
+    archived: boolean('archived').notNull().default(false),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    updatedBy: text('updated_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [index('studies_team_list_idx').on(t.teamId, t.archived, t.updatedAt), index('studies_team_author_idx').on(t.teamId, t.createdBy)],
+);
+
+/** Every saved revision of a study, the first included; never changed after insert. */
+export const studyRevisions = pgTable(
+  'study_revisions',
+  {
+    studyId: text('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    revision: integer('revision').notNull(),
+    document: jsonb('document').notNull(),
+    title: text('title').notNull(),
+    message: text('message').notNull().default(''),
+    authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.studyId, t.revision] })],
+);
+
+/** Read-only links to one study; the token is stored hashed. */
+export const shareLinks = pgTable(
+  'share_links',
+  {
+    id: text('id').primaryKey(),
+    studyId: text('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull(),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }),
+    revokedAt: timestamp('revoked_at', { withTimezone: true, mode: 'date' }),
+  },
+  (t) => [uniqueIndex('share_links_token_unique').on(t.tokenHash), index('share_links_study_idx').on(t.studyId)],
+);

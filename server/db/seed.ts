@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import type { Db } from './client';
-import { teamMembers, teams, users } from './schema';
+import { studies, studyRevisions, teamMembers, teams, users } from './schema';
+import { demoStudyDocument } from '../services/studies';
 import { createAccount } from '../services/accounts';
 import { newId } from '../auth/tokens';
 
@@ -8,6 +9,7 @@ import { newId } from '../auth/tokens';
 export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', name: 'Dana Whitlock' };
 export const ADMIN_USER = { email: 'admin@spoolbook.test', password: 'spoolbook-admin', name: 'Site Admin' };
 export const DEMO_TEAM_NAME = 'Harrow Hill Motorsport';
+export const DEMO_STUDY_TITLE = 'Hill-climb 2.0: which compressor?';
 const DEMO_MEMBERS = [
   { email: 'rafael@spoolbook.test', password: 'spoolbook-demo', name: 'Rafael Okonkwo-Lind', role: 'editor' as const },
   { email: 'mei@spoolbook.test', password: 'spoolbook-demo', name: 'Mei Sato-Brennan', role: 'viewer' as const },
@@ -32,6 +34,15 @@ export async function seedDemo(db: Db) {
   for (const m of DEMO_MEMBERS) {
     const id = await ensureUser(db, m);
     await db.insert(teamMembers).values({ teamId: team.id, userId: id, role: m.role }).onConflictDoNothing();
+  }
+  const [study] = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.teamId, team.id), eq(studies.title, DEMO_STUDY_TITLE)));
+  if (!study) {
+    const document = demoStudyDocument();
+    const id = newId();
+    await db.transaction(async (tx) => {
+      await tx.insert(studies).values({ id, teamId: team.id, title: DEMO_STUDY_TITLE, engineLabel: document.engineLabel, document, createdBy: demoId, updatedBy: demoId });
+      await tx.insert(studyRevisions).values({ studyId: id, revision: 1, document, title: DEMO_STUDY_TITLE, message: 'Demo study', authorId: demoId });
+    });
   }
   return { demoTeamId: team.id };
 }

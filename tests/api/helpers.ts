@@ -50,6 +50,7 @@ export function client(t: TestApp) {
     agent,
     get: (url: string) => agent.get(url),
     post: (url: string, body?: object) => withOrigin(agent.post(url)).send(body),
+    put: (url: string, body?: object) => withOrigin(agent.put(url)).send(body),
     patch: (url: string, body?: object) => withOrigin(agent.patch(url)).send(body),
     delete: (url: string) => withOrigin(agent.delete(url)),
   };

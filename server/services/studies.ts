@@ -1,0 +1,93 @@
+import { and, eq, inArray } from 'drizzle-orm';
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import Papa from 'papaparse';
+import { ESCAPE_FORMULAE } from '../../shared/maps';
+import type { SpoolbookMap } from '../../shared/maps/types';
+import { runStudyDocument } from '../../shared/study/run';
+import { resultRecords } from '../../shared/matching/results-table';
+import { migrateStudyDocument, studyDocumentSchema, StudyVersionError, type StudyDocument } from '../../shared/schemas/study';
+import type { Db } from '../db/client';
+import { maps, studies, users } from '../db/schema';
+import { HttpError, issuesOf } from '../http/errors';
+import { builtinMap, BUILTIN_PREFIX } from './builtin-maps';
+
+const demoPath = fileURLToPath(new URL('../../data/demo/hillclimb-study.json', import.meta.url));
+
+/** The invented demo study document shipped in data/demo/. */
+export function demoStudyDocument(): StudyDocument {
+  return studyDocumentSchema.parse(JSON.parse(readFileSync(demoPath, 'utf8')));
+}
+
+/**
+ * Checks a document from a client (or an older stored one) and returns it at the current version,
+ * or throws a 400 whose issue paths start with `document.`.
+ */
+export function validDocument(raw: unknown): StudyDocument {
+  let migrated: unknown;
+  try {
+    migrated = migrateStudyDocument(raw);
+  } catch (err) {
+    if (err instanceof StudyVersionError) throw new HttpError(400, 'invalid_input', err.message, { issues: [{ path: 'document.schemaVersion', message: err.message }] });
+    throw err;
+  }
+  const parsed = studyDocumentSchema.safeParse(migrated);
+  if (!parsed.success) {
+    const issues = issuesOf(parsed.error).map((i) => ({ path: i.path === '(body)' ? 'document' : `document.${i.path}`, message: i.message }));
+    throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
+  }
+  return parsed.data;
+}
+
+/** Plans may only name maps of the same team (or built-in ones), and only compressor maps. */
+export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocument) {
+  const ids = [...new Set(doc.plans.map((p) => p.compressorMapId).filter((id): id is string => !!id))];
+  const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
+  const found = teamIds.length
+    ? await db.select({ id: maps.id, kind: maps.kind }).from(maps).where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)))
+    : [];
+  const kinds = new Map(found.map((m) => [m.id, m.kind]));
+  const issues: { path: string; message: string }[] = [];
+  doc.plans.forEach((p, i) => {
+    const id = p.compressorMapId;
+    if (!id) return;
+    const kind = id.startsWith(BUILTIN_PREFIX) ? builtinMap(id)?.map.kind : kinds.get(id);
+    if (!kind) issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'no such map in this team\'s library' });
+    else if (kind !== 'compressor') issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'is a turbine map; a plan\'s compressor needs a compressor map' });
+  });
+  if (issues.length) throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
+}
+
+/** The parsed maps a study's plans use, by id. */
+export async function mapsOfStudy(db: Db, teamId: string, doc: StudyDocument): Promise<Record<string, SpoolbookMap>> {
+  const ids = [...new Set(doc.plans.map((p) => p.compressorMapId).filter((id): id is string => !!id))];
+  const out: Record<string, SpoolbookMap> = {};
+  for (const id of ids) {
+    if (id.startsWith(BUILTIN_PREFIX)) {
+      const b = builtinMap(id);
+      if (b) out[id] = b.map;
+    }
+  }
+  const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
+  if (teamIds.length) {
+    const rows = await db.select({ id: maps.id, parsed: maps.parsed }).from(maps).where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)));
+    for (const r of rows) out[r.id] = r.parsed as SpoolbookMap;
+  }
+  return out;
+}
+
+/** The results of a study as CSV (SI, units in the headers), spreadsheet formulas neutralised. */
+export function resultsCsv(doc: StudyDocument, mapsById: Record<string, SpoolbookMap>): string {
+  const result = runStudyDocument(doc, mapsById);
+  const { fields, data } = resultRecords(result);
+  return Papa.unparse({ fields, data }, { escapeFormulae: ESCAPE_FORMULAE, newline: '\r\n' });
+}
+
+export async function studyAuthors(db: Db, teamId: string) {
+  const rows = await db
+    .selectDistinct({ id: users.id, name: users.name })
+    .from(studies)
+    .innerJoin(users, eq(users.id, studies.createdBy))
+    .where(eq(studies.teamId, teamId));
+  return rows.sort((a, b) => a.name.localeCompare(b.name));
+}

@@ -1,0 +1,109 @@
+import { siUnitOf } from '../units';
+import type { OperatingLine, PointValues, StudyResult } from './types';
+import type { WorkingKind } from './working';
+
+/**
+ * The columns of a study's results, in reading order, each with its quantity kind so a screen can
+ * show it in the user's units. The CSV export writes the same columns in SI.
+ */
+export interface ResultColumn {
+  key: keyof PointValues;
+  label: string;
+  kind: WorkingKind;
+  /** Pressure columns that are gauge say so; the rest are absolute. */
+  gauge?: boolean;
+}
+
+export const RESULT_COLUMNS: ResultColumn[] = [
+  { key: 'rpm', label: 'Engine speed', kind: 'speed' },
+  { key: 'boost', label: 'Boost target', kind: 'pressure', gauge: true },
+  { key: 'manifoldPressure', label: 'Manifold pressure', kind: 'pressure' },
+  { key: 'manifoldTemperature', label: 'Manifold temperature', kind: 'temperature' },
+  { key: 'volumetricEfficiency', label: 'Volumetric efficiency', kind: 'fraction' },
+  { key: 'engineMassFlow', label: 'Engine air flow', kind: 'massFlow' },
+  { key: 'massFlow', label: 'Air flow per turbocharger', kind: 'massFlow' },
+  { key: 'correctedMassFlow', label: 'Corrected mass flow', kind: 'massFlow' },
+  { key: 'inletVolumeFlow', label: 'Inlet volume flow', kind: 'volumeFlow' },
+  { key: 'compressorInletPressure', label: 'Compressor inlet pressure', kind: 'pressure' },
+  { key: 'compressorOutletPressure', label: 'Compressor outlet pressure', kind: 'pressure' },
+  { key: 'pressureRatio', label: 'Pressure ratio', kind: 'ratio' },
+  { key: 'compressorEfficiency', label: 'Compressor efficiency', kind: 'fraction' },
+  { key: 'compressorOutletTemperature', label: 'Compressor outlet temperature', kind: 'temperature' },
+  { key: 'compressorPower', label: 'Compressor power', kind: 'power' },
+  { key: 'shaftSpeed', label: 'Shaft speed', kind: 'speed' },
+  { key: 'surgeMargin', label: 'Surge margin', kind: 'fraction' },
+  { key: 'chokeMargin', label: 'Choke margin', kind: 'fraction' },
+  { key: 'speedMargin', label: 'Speed margin', kind: 'fraction' },
+  { key: 'lambda', label: 'Lambda', kind: 'ratio' },
+  { key: 'fuelMassFlow', label: 'Fuel mass flow', kind: 'massFlow' },
+  { key: 'fuelVolumeFlow', label: 'Fuel volume flow', kind: 'volumeFlow' },
+  { key: 'brakePower', label: 'Crank power', kind: 'power' },
+  { key: 'wheelPower', label: 'Wheel power', kind: 'power' },
+  { key: 'torque', label: 'Crank torque', kind: 'torque' },
+  { key: 'injectorDuty', label: 'Injector duty', kind: 'fraction' },
+  { key: 'pumpFlowRequired', label: 'Pump flow needed', kind: 'volumeFlow' },
+];
+
+/** The SI unit text written beside a column in exports. */
+export function siUnitText(column: ResultColumn): string {
+  switch (column.kind) {
+    case 'ratio':
+    case 'count':
+    case 'none':
+      return '';
+    case 'fraction':
+      return 'fraction';
+    default: {
+      const unit = siUnitOf[column.kind];
+      return column.gauge ? `${unit} gauge` : unit;
+    }
+  }
+}
+
+export interface ResultRow {
+  plan: string;
+  scenario: string;
+  row: string;
+  line: OperatingLine;
+  values: PointValues | null;
+  /** The point's findings as one text, most severe first. */
+  findings: string;
+}
+
+/** One row per operating point of every line, in plan, scenario, boost-row, rpm order. */
+export function resultRows(result: StudyResult): ResultRow[] {
+  const order = { limit: 0, warning: 1, info: 2 } as const;
+  return result.lines.flatMap((line) =>
+    line.points.map((p) => ({
+      plan: line.planName,
+      scenario: line.scenarioName,
+      row: line.rowLabel,
+      line,
+      values: p.values,
+      findings: [...p.findings]
+        .sort((a, b) => order[a.severity] - order[b.severity])
+        .map((f) => `${f.severity}: ${f.message}`)
+        .join('; '),
+    })),
+  );
+}
+
+/** The results as plain records for a CSV writer: headers carry SI units; numbers stay numbers. */
+export function resultRecords(result: StudyResult): { fields: string[]; data: (string | number | null)[][] } {
+  const head = RESULT_COLUMNS.map((c) => {
+    const unit = siUnitText(c);
+    return unit ? `${c.label} (${unit})` : c.label;
+  });
+  const fields = ['Plan', 'Scenario', 'Boost row', ...head, 'Findings'];
+  const data = resultRows(result).map((r) => [
+    r.plan,
+    r.scenario,
+    r.row,
+    ...RESULT_COLUMNS.map((c) => {
+      const v = r.values?.[c.key];
+      return typeof v === 'number' ? v : v === null || v === undefined ? null : String(v);
+    }),
+    r.findings,
+  ]);
+  return { fields, data };
+}

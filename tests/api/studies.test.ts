@@ -1,0 +1,320 @@
+import { eq } from 'drizzle-orm';
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import Papa from 'papaparse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { shareLinks, studies, studyRevisions, teamMembers } from '../../server/db/schema';
+import { client, expectErrorShape, ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
+
+const demo = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'demo', 'hillclimb-study.json'), 'utf8'));
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+async function teamWithStudy() {
+  const owner = await signedUp(t, 'study-owner');
+  const teamId = (await owner.c.post('/api/teams', { name: 'Study team' })).body.team.id as string;
+  const created = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Hill-climb plan', document: demo });
+  if (created.status !== 201) throw new Error(JSON.stringify(created.body));
+  return { owner, teamId, study: created.body.study as { id: string; revision: number; document: typeof demo } };
+}
+
+async function member(teamId: string, role: 'viewer' | 'editor' | 'owner') {
+  const m = await signedUp(t, role);
+  await t.database.db.insert(teamMembers).values({ teamId, userId: m.user.id, role });
+  return m;
+}
+
+describe('create, read, save, revisions', () => {
+  it('creates at revision 1 with a first revision row, and reads it back migrated and valid', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    expect(study.revision).toBe(1);
+    const got = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}`);
+    expect(got.body.study.document.plans).toHaveLength(3);
+    expect(got.body.study.canEdit).toBe(true);
+    const revs = await t.database.db.select().from(studyRevisions).where(eq(studyRevisions.studyId, study.id));
+    expect(revs.map((r) => r.revision)).toEqual([1]);
+  });
+
+  it('creates from the demo when no document is given', async () => {
+    const owner = await signedUp(t, 'from-demo');
+    const res = await owner.c.post(`/api/teams/${owner.personalTeamId}/studies`, { title: 'From the demo' });
+    expect(res.status).toBe(201);
+    expect(res.body.study.engineLabel).toBe(demo.engineLabel);
+  });
+
+  it('saves a new revision, lists history newest first, reads an old revision, restores it as a new one', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const changed = structuredClone(demo);
+    changed.engine.displacement = 0.0022;
+    const saved = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: changed, message: 'Stroker crank' });
+    expect(saved.status).toBe(200);
+    expect(saved.body.study.revision).toBe(2);
+    const history = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}/revisions`);
+    expect(history.body.revisions.map((r: { revision: number }) => r.revision)).toEqual([2, 1]);
+    expect(history.body.revisions[0].message).toBe('Stroker crank');
+    const one = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}/revisions/1`);
+    expect(one.body.revision.document.engine.displacement).toBe(demo.engine.displacement);
+    const restored = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/revisions/1/restore`, { baseRevision: 2 });
+    expect(restored.status).toBe(200);
+    expect(restored.body.study.revision).toBe(3);
+    expect(restored.body.study.document.engine.displacement).toBe(demo.engine.displacement);
+  });
+
+  it('refuses a bad document with the field path, and saves nothing', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const bad = structuredClone(demo);
+    bad.engine.displacement = -1;
+    bad.plans[1].turbochargers = 0;
+    const res = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: bad });
+    expect(res.status).toBe(400);
+    const paths = res.body.error.details.issues.map((i: { path: string }) => i.path);
+    expect(paths).toContain('document.engine.displacement');
+    expect(paths).toContain('document.plans.1.turbochargers');
+    const [row] = await t.database.db.select().from(studies).where(eq(studies.id, study.id));
+    expect(row.revision).toBe(1);
+  });
+
+  it('refuses an unknown field in the document by name', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const bad = { ...structuredClone(demo), turboSize: 'big' };
+    const res = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: bad });
+    expect(res.status).toBe(400);
+    expect(JSON.stringify(res.body.error.details)).toContain('turboSize');
+  });
+
+  it('refuses a plan that names a map of another team, or a turbine map', async () => {
+    const { owner, teamId } = await teamWithStudy();
+    const other = await signedUp(t, 'other-team');
+    const upload = await other.c.agent
+      .post(`/api/teams/${other.personalTeamId}/maps`)
+      .set('Origin', ORIGIN)
+      .attach('file', readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'maps', 'compressor-s44.csv')), 'x.csv');
+    const foreign = structuredClone(demo);
+    foreign.plans[0].compressorMapId = upload.body.map.id;
+    const res = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Borrowed map', document: foreign });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details.issues[0].path).toBe('document.plans.0.compressorMapId');
+    const turbine = structuredClone(demo);
+    turbine.plans[0].compressorMapId = 'builtin-turbine-t64-ar064-single';
+    expect((await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Wrong kind', document: turbine })).status).toBe(400);
+  });
+
+  it('brings a version-0 document up to date, and refuses one from a newer version', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const old = structuredClone(demo);
+    delete old.schemaVersion;
+    delete old.engineLabel;
+    delete old.notes;
+    old.plans = old.plans.map(({ id: _id, compressorMapId, ...p }: Record<string, unknown>) => ({ ...p, mapId: compressorMapId }));
+    const res = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: old });
+    expect(res.status).toBe(200);
+    expect(res.body.study.document.schemaVersion).toBe(1);
+    expect(res.body.study.document.plans[0]).toMatchObject({ id: 'plan-1', compressorMapId: demo.plans[0].compressorMapId });
+    const future = { ...structuredClone(demo), schemaVersion: 99 };
+    const refused = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 2, document: future });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.message).toMatch(/newer Spoolbook/);
+  });
+});
+
+describe('two people saving the same base revision', () => {
+  it('exactly one wins; the other gets 409 with the newer revision; nothing is lost silently', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const editor = await member(teamId, 'editor');
+    const mine = structuredClone(demo);
+    mine.engine.displacement = 0.0021;
+    const theirs = structuredClone(demo);
+    theirs.engine.displacement = 0.0019;
+    const [a, b] = await Promise.all([
+      owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: mine, message: 'mine' }),
+      editor.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: theirs, message: 'theirs' }),
+    ]);
+    const statuses = [a.status, b.status].sort();
+    expect(statuses).toEqual([200, 409]);
+    const loser = a.status === 409 ? a : b;
+    const winner = a.status === 200 ? a : b;
+    expect(loser.body.error.code).toBe('stale_revision');
+    expect(loser.body.error.details.current.revision).toBe(2);
+    expect(loser.body.error.details.current.document.engine.displacement).toBe(winner.body.study.document.engine.displacement);
+    const revs = await t.database.db.select().from(studyRevisions).where(eq(studyRevisions.studyId, study.id));
+    expect(revs).toHaveLength(2);
+    // The loser keeps their work as a copy: a new study, the original untouched.
+    const copy = await (a.status === 409 ? owner.c : editor.c).post(`/api/teams/${teamId}/studies`, {
+      title: 'Hill-climb plan (my version)',
+      document: a.status === 409 ? mine : theirs,
+    });
+    expect(copy.status).toBe(201);
+    const [original] = await t.database.db.select().from(studies).where(eq(studies.id, study.id));
+    expect(original.revision).toBe(2);
+  });
+});
+
+describe('list, search, filter, paginate', () => {
+  it('searches title and engine, filters by author and archived, pages on the server, newest change first', async () => {
+    const owner = await signedUp(t, 'lister');
+    const teamId = (await owner.c.post('/api/teams', { name: 'List team' })).body.team.id;
+    const editor = await member(teamId, 'editor');
+    for (let i = 1; i <= 5; i++) {
+      const doc = { ...structuredClone(demo), engineLabel: i % 2 ? '3.0 L six, endurance' : '2.0 L four, hill-climb' };
+      await (i === 5 ? editor.c : owner.c).post(`/api/teams/${teamId}/studies`, { title: `Study ${i}`, document: doc });
+    }
+    const all = await owner.c.get(`/api/teams/${teamId}/studies?pageSize=2`);
+    expect(all.body.total).toBe(5);
+    expect(all.body.studies.map((s: { title: string }) => s.title)).toEqual(['Study 5', 'Study 4']);
+    const page3 = await owner.c.get(`/api/teams/${teamId}/studies?pageSize=2&page=3`);
+    expect(page3.body.studies.map((s: { title: string }) => s.title)).toEqual(['Study 1']);
+    const six = await owner.c.get(`/api/teams/${teamId}/studies?q=${encodeURIComponent('six')}`);
+    expect(six.body.total).toBe(3);
+    const byTitle = await owner.c.get(`/api/teams/${teamId}/studies?q=Study%204`);
+    expect(byTitle.body.studies.map((s: { title: string }) => s.title)).toEqual(['Study 4']);
+    const byEditor = await owner.c.get(`/api/teams/${teamId}/studies?author=${editor.user.id}`);
+    expect(byEditor.body.studies.map((s: { title: string }) => s.title)).toEqual(['Study 5']);
+    const target = all.body.studies[0].id;
+    await owner.c.patch(`/api/teams/${teamId}/studies/${target}`, { archived: true });
+    expect((await owner.c.get(`/api/teams/${teamId}/studies`)).body.total).toBe(4);
+    expect((await owner.c.get(`/api/teams/${teamId}/studies?archived=true`)).body.total).toBe(1);
+    expect((await owner.c.get(`/api/teams/${teamId}/studies?archived=all`)).body.total).toBe(5);
+    const wild = await owner.c.get(`/api/teams/${teamId}/studies?q=%25`);
+    expect(wild.body.total).toBe(0); // a literal %, not a wildcard
+  });
+
+  it('refuses a bad query with the parameter named', async () => {
+    const owner = await signedUp(t, 'badquery');
+    const res = await owner.c.get(`/api/teams/${owner.personalTeamId}/studies?pageSize=1000`);
+    expect(res.status).toBe(400);
+    expect(res.body.error.details.issues[0].path).toBe('pageSize');
+  });
+});
+
+describe('duplicate, rename, archive, delete', () => {
+  it('duplicates with its own history, renames, deletes', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const dup = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/duplicate`, {});
+    expect(dup.status).toBe(201);
+    expect(dup.body.study.title).toBe('Hill-climb plan (copy)');
+    expect(dup.body.study.revision).toBe(1);
+    const renamed = await owner.c.patch(`/api/teams/${teamId}/studies/${dup.body.study.id}`, { title: 'Second opinion' });
+    expect(renamed.body.study.title).toBe('Second opinion');
+    expect((await owner.c.delete(`/api/teams/${teamId}/studies/${dup.body.study.id}`)).status).toBe(204);
+    expect((await owner.c.get(`/api/teams/${teamId}/studies/${dup.body.study.id}`)).status).toBe(404);
+  });
+});
+
+describe('maps in use', () => {
+  it('a map used by a study cannot be deleted; the answer lists the studies', async () => {
+    const owner = await signedUp(t, 'mapuse');
+    const teamId = owner.personalTeamId;
+    const up = await owner.c.agent
+      .post(`/api/teams/${teamId}/maps`)
+      .set('Origin', ORIGIN)
+      .attach('file', readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'maps', 'compressor-m58.csv')), 'm.csv');
+    const doc = structuredClone(demo);
+    doc.plans[1].compressorMapId = up.body.map.id;
+    const created = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Uses my map', document: doc });
+    const res = await owner.c.delete(`/api/teams/${teamId}/maps/${up.body.map.id}`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.details.studies).toEqual([{ id: created.body.study.id, title: 'Uses my map' }]);
+    await owner.c.delete(`/api/teams/${teamId}/studies/${created.body.study.id}`);
+    expect((await owner.c.delete(`/api/teams/${teamId}/maps/${up.body.map.id}`)).status).toBe(204);
+  });
+});
+
+describe('share links', () => {
+  it('opens signed out and read-only; revoked and expired links answer 404', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const made = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/share-links`, { expiresInDays: 7 });
+    expect(made.status).toBe(201);
+    const token = made.body.shareLink.url.split('/share/')[1];
+    const anon = client(t);
+    const shared = await anon.get(`/api/share/${token}`);
+    expect(shared.status).toBe(200);
+    expect(shared.body.title).toBe('Hill-climb plan');
+    expect(Object.keys(shared.body.maps).sort()).toEqual(demo.plans.map((p: { compressorMapId: string }) => p.compressorMapId).sort());
+    // Nothing about the share link lets its holder change the study.
+    expect((await anon.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: demo })).status).toBe(401);
+    expect((await anon.agent.put(`/api/share/${token}`).set('Origin', ORIGIN).send({ document: demo })).status).toBe(404);
+    const [stored] = await t.database.db.select().from(shareLinks).where(eq(shareLinks.id, made.body.shareLink.id));
+    expect(stored.tokenHash).not.toBe(token);
+
+    expect((await owner.c.delete(`/api/teams/${teamId}/studies/${study.id}/share-links/${made.body.shareLink.id}`)).status).toBe(204);
+    expect((await anon.get(`/api/share/${token}`)).status).toBe(404);
+
+    const second = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/share-links`, { expiresInDays: 1 });
+    const token2 = second.body.shareLink.url.split('/share/')[1];
+    await t.database.db.update(shareLinks).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(shareLinks.id, second.body.shareLink.id));
+    const expired = await anon.get(`/api/share/${token2}`);
+    expect(expired.status).toBe(404);
+    expectErrorShape(expired.body);
+  });
+});
+
+describe('CSV export', () => {
+  it('writes every point with SI units in the headers and neutralises formula-looking cells (ASVS 5.0 1.2.10)', async () => {
+    const { owner, teamId } = await teamWithStudy();
+    const doc = structuredClone(demo);
+    doc.plans[0].name = '=HYPERLINK("http://x")';
+    doc.plans[1].name = '+cmd';
+    doc.plans[2].name = '@sum';
+    doc.scenarios[0].name = '-1 bar day';
+    const created = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Formula names', document: doc });
+    const res = await owner.c.get(`/api/teams/${teamId}/studies/${created.body.study.id}/results.csv`);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/csv/);
+    const parsed = Papa.parse<string[]>(res.text.trim(), { skipEmptyLines: true });
+    const [head, ...rows] = parsed.data;
+    expect(head).toContain('Manifold pressure (Pa)');
+    expect(head).toContain('Boost target (Pa gauge)');
+    // Points: 3 plans × 6 boost rows × 23 rpm points (2500 to 8000 by 250) in the demo study.
+    expect(rows).toHaveLength(3 * 6 * 23);
+    for (const row of rows) {
+      for (const cell of row.slice(0, 3)) expect(cell).not.toMatch(/^[=+\-@]/);
+    }
+    expect(rows.some((r) => r[0] === "'=HYPERLINK(\"http://x\")")).toBe(true);
+    expect(rows.some((r) => r[1] === "'-1 bar day")).toBe(true);
+  });
+});
+
+describe('role matrix for study actions', () => {
+  type Role = 'none' | 'viewer' | 'editor' | 'owner';
+  const expectStatus: Record<string, Record<Role, number>> = {
+    list: { none: 404, viewer: 200, editor: 200, owner: 200 },
+    read: { none: 404, viewer: 200, editor: 200, owner: 200 },
+    create: { none: 404, viewer: 403, editor: 201, owner: 201 },
+    save: { none: 404, viewer: 403, editor: 200, owner: 200 },
+    rename: { none: 404, viewer: 403, editor: 200, owner: 200 },
+    duplicate: { none: 404, viewer: 403, editor: 201, owner: 201 },
+    revisions: { none: 404, viewer: 200, editor: 200, owner: 200 },
+    restore: { none: 404, viewer: 403, editor: 200, owner: 200 },
+    'share-link': { none: 404, viewer: 403, editor: 201, owner: 201 },
+    export: { none: 404, viewer: 200, editor: 200, owner: 200 },
+    delete: { none: 404, viewer: 403, editor: 204, owner: 204 },
+  };
+  const act: Record<string, (c: Client, teamId: string, id: string) => Promise<{ status: number }>> = {
+    list: (c, team) => c.get(`/api/teams/${team}/studies`),
+    read: (c, team, id) => c.get(`/api/teams/${team}/studies/${id}`),
+    create: (c, team) => c.post(`/api/teams/${team}/studies`, { title: 'New', document: demo }),
+    save: (c, team, id) => c.put(`/api/teams/${team}/studies/${id}`, { baseRevision: 1, document: demo }),
+    rename: (c, team, id) => c.patch(`/api/teams/${team}/studies/${id}`, { title: 'Renamed' }),
+    duplicate: (c, team, id) => c.post(`/api/teams/${team}/studies/${id}/duplicate`, {}),
+    revisions: (c, team, id) => c.get(`/api/teams/${team}/studies/${id}/revisions`),
+    restore: (c, team, id) => c.post(`/api/teams/${team}/studies/${id}/revisions/1/restore`, { baseRevision: 1 }),
+    'share-link': (c, team, id) => c.post(`/api/teams/${team}/studies/${id}/share-links`, {}),
+    export: (c, team, id) => c.get(`/api/teams/${team}/studies/${id}/results.csv`),
+    delete: (c, team, id) => c.delete(`/api/teams/${team}/studies/${id}`),
+  };
+  for (const [action, byRole] of Object.entries(expectStatus)) {
+    for (const [role, status] of Object.entries(byRole) as [Role, number][]) {
+      it(`${role} → ${action} → ${status}`, async () => {
+        const { owner, teamId, study } = await teamWithStudy();
+        const actor = role === 'owner' ? owner.c : role === 'none' ? (await signedUp(t, 'stranger')).c : (await member(teamId, role)).c;
+        expect((await act[action](actor, teamId, study.id)).status).toBe(status);
+      });
+    }
+  }
+});
