@@ -5,6 +5,7 @@
  *
  *   npx tsx tests/bench/engine.bench.ts
  */
+import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { pointWorking, runStudy, type RunStudyOptions, type StudyInput } from '../../shared/matching';
 import { studyInputSchema } from '../../shared/schemas/compute';
@@ -90,3 +91,16 @@ measure('whole study, validated, Working built for every point', whole({ working
 measure('schema validation of the study alone', () => void studyInputSchema.parse(study), 1000);
 const line = check.lines[0];
 measure('Working of one point, on demand', () => void pointWorking(line.context, line.points[40]), 5000);
+
+// The demo compressor maps through the maps module, when it is there to read them.
+try {
+  const { compressorModelFromMap, parseMapFile } = await import('../../shared/maps');
+  const demo = ['s44', 'm58', 'l76'].map((name) => {
+    const parsed = parseMapFile(readFileSync(new URL(`../../data/maps/compressor-${name}.csv`, import.meta.url), 'utf8'));
+    if (!('map' in parsed) || !parsed.map || parsed.map.kind !== 'compressor') throw new Error(`demo map ${name} did not parse`);
+    return compressorModelFromMap(parsed.map);
+  });
+  measure('whole study, validated, demo compressor maps (maps module)', whole({ compressorModels: demo }), 1000);
+} catch (err) {
+  console.log(`whole study with the demo compressor maps: skipped (${(err as Error).message})`);
+}
