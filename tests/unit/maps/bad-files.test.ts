@@ -78,7 +78,7 @@ describe('bad map files', () => {
       }
       expect(result.problems).toHaveLength(wanted.length);
       for (const p of result.problems) {
-        expect(p.message.length).toBeGreaterThan(10);
+        expect(p.message.length).toBeGreaterThan(10); // a sentence in words, not a bare code (common practice, no source)
         expect(p.message).not.toMatch(/NaN|undefined|\[object/);
       }
     });

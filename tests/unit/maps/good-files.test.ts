@@ -13,7 +13,8 @@ function sameMapBut(name: string) {
 describe('good map files', () => {
   it('reads the minimal compressor file into SI', () => {
     expect(minimal.reference).toEqual({ temperature: 298, pressure: 100_000 }); // 298 K, 100 kPa as written
-    expect(minimal.maxSpeed).toBe(150_000);
+    expect(minimal.maxSpeed).toBe(150_000); // "# max speed: 150000 rpm" in the fixture
+    // the fixture's lines and their row counts, in file order
     expect(minimal.curves.map((c) => `${c.kind}:${c.label}:${c.points.length}`)).toEqual([
       'surge::3',
       'choke::3',
@@ -46,7 +47,7 @@ describe('good map files', () => {
   it('accepts Windows line endings', () => {
     const bytes = readBytes(path.join(goodFixtures, 'windows-line-endings.csv'));
     const text = new TextDecoder().decode(bytes);
-    expect(text.split('\r\n').length).toBeGreaterThan(20); // the fixture really has CRLF line ends
+    expect(text.split('\r\n').length).toBe(29); // the fixture's 28 lines, each ended by CRLF
     expect(text.replace(/\r\n/g, '')).not.toContain('\n');
     expect(parseOk(bytes)).toEqual(sameMapBut('Fixture compressor with Windows line endings'));
   });
@@ -61,11 +62,11 @@ describe('good map files', () => {
     const map = turbineOf(parseOk(readBytes(path.join(goodFixtures, 'turbine-divided.csv'))));
     expect(map.housing).toBe('divided');
     expect(map.scrollFeed).toBe('per-scroll');
-    expect(map.areaRatio).toBe(0.82);
-    expect(map.curves).toHaveLength(2);
+    expect(map.areaRatio).toBe(0.82); // "# a/r: 0.82" in the fixture
+    expect(map.curves).toHaveLength(2); // the fixture's 80000 and 120000 rpm lines
     // 0.0195 kg/s·K^0.5/kPa = 1.95e-5 kg·K^0.5/(s·Pa): 1 kPa = 1000 Pa (SI definition)
     expectClose(map.curves[0].points[0].flowParameter, 1.95e-5, 1e-12);
-    expect(map.curves[0].points[0].expansionRatio).toBe(1.4);
+    expect(map.curves[0].points[0].expansionRatio).toBe(1.4); // the fixture's first row
   });
 
   it('converts a volume-flow map to corrected mass flow with the reference density', () => {

@@ -13,11 +13,11 @@ describe('round trip: parse → write → parse', () => {
     const compressors = maps.filter((m) => m.kind === 'compressor');
     const turbines = maps.filter((m) => m.kind === 'turbine');
     expect(compressors.length).toBeGreaterThanOrEqual(4); // three sizes plus one in volume flow
-    expect(compressors.filter((m) => m.fileUnits.flowAxis === 'volume')).toHaveLength(1);
+    expect(compressors.filter((m) => m.fileUnits.flowAxis === 'volume')).toHaveLength(1); // one map in volume flow (the maps task)
     expect(compressors.every((m) => m.maxSpeed !== null)).toBe(true);
     expect(turbines).toHaveLength(4); // two A/R sizes, each single and divided per scroll
-    expect(new Set(turbines.map((t) => t.areaRatio)).size).toBe(2);
-    expect(turbines.filter((t) => t.housing === 'divided' && t.scrollFeed === 'per-scroll')).toHaveLength(2);
+    expect(new Set(turbines.map((t) => t.areaRatio)).size).toBe(2); // two A/R sizes (the maps task)
+    expect(turbines.filter((t) => t.housing === 'divided' && t.scrollFeed === 'per-scroll')).toHaveLength(2); // one divided file per A/R
     // Clearly different sizes: the largest top-speed choke flow is well over twice the smallest.
     const chokeFlows = compressors.map((m) => Math.max(...m.curves.filter((c) => c.kind === 'choke')[0].points.map((p) => p.correctedMassFlow)));
     expect(Math.max(...chokeFlows) / Math.min(...chokeFlows)).toBeGreaterThan(2);
@@ -56,6 +56,7 @@ describe('writing map files', () => {
   it('writes numbers as plain numbers, in the file units, with the full header', () => {
     const text = writeMapFile(minimal);
     const lines = text.split('\n');
+    // the fixture's header, plus the speed unit every written file states
     expect(lines.slice(0, 10)).toEqual([
       '# spoolbook-map: 1',
       '# kind: compressor',
@@ -69,7 +70,7 @@ describe('writing map files', () => {
       'curve,label,flow,pressure_ratio,efficiency,speed',
     ]);
     expect(lines).toContain('speed,80000,0.05,1.2,65,80000'); // the row "speed,80000,0.05,1.20,65,80000" of the fixture
-    expect(lines).toContain('surge,,0.05,1.2,,');
+    expect(lines).toContain('surge,,0.05,1.2,,'); // the fixture's "surge,,0.05,1.20,,"
     expect(text).not.toContain('"');
   });
 
