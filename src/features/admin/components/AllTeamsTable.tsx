@@ -9,8 +9,9 @@ import { useAllTeams } from '../api/get-all-teams';
 
 export function AllTeamsTable() {
   const teams = useAllTeams();
-  if (teams.isPending) return <Loading label="Loading teams…" />;
-  if (teams.isError) return <Alert tone="error">{teams.error.message}</Alert>;
+  if (teams.data === undefined) {
+    return teams.isError ? <Alert tone="error">{teams.error.message}</Alert> : <Loading label="Loading teams…" />;
+  }
   return (
     <Table
       caption={`${teams.data.length} ${teams.data.length === 1 ? 'team' : 'teams'}`}

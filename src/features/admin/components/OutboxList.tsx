@@ -8,8 +8,10 @@ import { useOutbox } from '../api/get-outbox';
 
 export function OutboxList() {
   const outbox = useOutbox();
-  if (outbox.isPending) return <Loading label="Loading the outbox…" />;
-  if (outbox.isError) return <Alert tone="error">{outbox.error.message}</Alert>;
+  // A failed background poll keeps the list on screen; only a first load that fails shows the error.
+  if (outbox.data === undefined) {
+    return outbox.isError ? <Alert tone="error">{outbox.error.message}</Alert> : <Loading label="Loading the outbox…" />;
+  }
   if (outbox.data.length === 0) return <p className="text-ink-soft">No mail has been sent yet.</p>;
   return (
     <Table

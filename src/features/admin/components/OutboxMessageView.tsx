@@ -12,21 +12,19 @@ import { useOutboxMessage } from '../api/get-outbox-message';
 /** One captured message, with its links clickable so a developer can follow reset and invitation mails. */
 export function OutboxMessageView({ messageId }: { messageId: string }) {
   const message = useOutboxMessage(messageId);
+  if (message.data !== undefined) return <MessageDetail message={message.data} />;
   if (message.isPending) return <Loading label="Loading the message…" />;
-  if (message.isError) {
-    const missing = isApiError(message.error) && message.error.status === 404;
-    return (
-      <Page title="Message">
-        <Alert tone="error" title={missing ? 'No such message' : 'Could not load the message'}>
-          {!missing && <p>{message.error.message}</p>}
-          <p>
-            <Link to={paths.adminOutbox.href()}>Back to the outbox</Link>
-          </p>
-        </Alert>
-      </Page>
-    );
-  }
-  return <MessageDetail message={message.data} />;
+  const missing = isApiError(message.error) && message.error.status === 404;
+  return (
+    <Page title="Message">
+      <Alert tone="error" title={missing ? 'No such message' : 'Could not load the message'}>
+        {!missing && <p>{message.error.message}</p>}
+        <p>
+          <Link to={paths.adminOutbox.href()}>Back to the outbox</Link>
+        </p>
+      </Alert>
+    </Page>
+  );
 }
 
 function MessageDetail({ message }: { message: OutboxMessage }) {

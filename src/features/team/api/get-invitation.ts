@@ -8,7 +8,7 @@ export function getInvitation(token: string) {
 }
 
 export const invitationQueryOptions = (token: string) =>
-  queryOptions({ queryKey: ['invitations', token] as const, queryFn: () => getInvitation(token), staleTime: 0 });
+  queryOptions({ queryKey: ['invitations', token] as const, queryFn: () => getInvitation(token) });
 
 export function useInvitation(token: string) {
   return useQuery(invitationQueryOptions(token));

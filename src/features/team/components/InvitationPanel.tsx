@@ -32,9 +32,9 @@ export function InvitationPanel({
   const invitation = useInvitation(token);
   const me = useMe();
 
-  if (invitation.isPending || me.isPending) return <Loading label="Loading the invitation…" />;
+  if (me.isPending || (invitation.data === undefined && invitation.isPending)) return <Loading label="Loading the invitation…" />;
 
-  if (invitation.isError) {
+  if (invitation.data === undefined) {
     const gone = isApiError(invitation.error) && invitation.error.status === 404;
     return (
       <Page title="Invitation" width="narrow">

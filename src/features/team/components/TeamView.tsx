@@ -25,21 +25,20 @@ import { RenameTeamForm } from './RenameTeamForm';
 export function TeamView({ teamId, onGone }: { teamId: string; onGone: () => void }) {
   const team = useTeam(teamId);
 
+  // Data first: a failed background refetch keeps the page; the next action reports the problem.
+  if (team.data !== undefined) return <TeamDetailView detail={team.data} onGone={onGone} />;
   if (team.isPending) return <Loading label="Loading the team…" />;
-  if (team.isError) {
-    const missing = isApiError(team.error) && (team.error.status === 404 || team.error.status === 403);
-    return (
-      <Page title={missing ? 'Team not found' : 'Team'}>
-        <Alert tone="error" title={missing ? 'This team does not exist, or you are not a member of it.' : 'Could not load the team.'}>
-          {!missing && <p>{team.error.message}</p>}
-          <p>
-            <Link to={paths.teams.href()}>Back to your teams</Link>
-          </p>
-        </Alert>
-      </Page>
-    );
-  }
-  return <TeamDetailView detail={team.data} onGone={onGone} />;
+  const missing = isApiError(team.error) && (team.error.status === 404 || team.error.status === 403);
+  return (
+    <Page title={missing ? 'Team not found' : 'Team'}>
+      <Alert tone="error" title={missing ? 'This team does not exist, or you are not a member of it.' : 'Could not load the team.'}>
+        {!missing && <p>{team.error.message}</p>}
+        <p>
+          <Link to={paths.teams.href()}>Back to your teams</Link>
+        </p>
+      </Alert>
+    </Page>
+  );
 }
 
 function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => void }) {

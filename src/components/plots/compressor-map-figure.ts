@@ -1,0 +1,312 @@
+import type { Annotation, Data, Layout } from 'plotly.js-dist-min';
+import { referenceDensity } from '../../../shared/maps/scales';
+import type { CompressorCurve, CompressorMap } from '../../../shared/maps/types';
+import { fromSI } from '../../../shared/units';
+import { displayUnitOf, type UnitSystem } from '../../lib/units';
+import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
+import { planColour, planMarker, plotColours, plotFont, scenarioDash } from './style';
+import type { CompressorMapPlotProps, OperatingLineView, OperatingPointView } from './types';
+
+/** What plotly draws: traces and layout. Built by a pure function so it can be checked without a browser. */
+export interface PlotFigure {
+  data: Data[];
+  layout: Partial<Layout>;
+}
+
+type FigureInput = Pick<CompressorMapPlotProps, 'map' | 'lines' | 'flowAxis' | 'unitSystem' | 'highlight'> & { height: number };
+
+/** How flows are put on the x axis: the unit shown and the factors from the SI values. */
+export interface FlowScale {
+  axis: 'corrected' | 'volume';
+  /** mathjs unit name of the axis. */
+  unit: string;
+  /** Axis units per kg/s of the map's corrected mass flow. */
+  perCorrectedMassFlow: number;
+  /** Axis units per m³/s of inlet volume flow (volume axis only; NaN otherwise). */
+  perVolumeFlow: number;
+  /** Reference density the map's flows are turned into volume with, kg/m³ (volume axis with a map only). */
+  referenceDensity: number | null;
+}
+
+export function flowScale(map: CompressorMap | null, axis: 'corrected' | 'volume', system: UnitSystem): FlowScale {
+  if (axis === 'volume') {
+    const unit = displayUnitOf('volumeFlow', system);
+    const perVolumeFlow = fromSI(1, unit, 'volumeFlow');
+    // The map's corrected flow is mass flow at its reference conditions: as a volume it is
+    // Q = ṁc/ρ_ref with ρ_ref = p_ref/(R·T_ref), R = 287.05287 J/(kg·K) (docs/map-format.md).
+    const density = map ? referenceDensity(map.reference) : null;
+    return { axis, unit, perVolumeFlow, perCorrectedMassFlow: density ? perVolumeFlow / density : Number.NaN, referenceDensity: density };
+  }
+  const unit = displayUnitOf('massFlow', system);
+  return { axis, unit, perCorrectedMassFlow: fromSI(1, unit, 'massFlow'), perVolumeFlow: Number.NaN, referenceDensity: null };
+}
+
+export function flowAxisTitle(scale: FlowScale, system: UnitSystem): string {
+  const unit = unitLabel(scale.unit);
+  if (scale.axis === 'corrected') return `Corrected mass flow (${unit})`;
+  if (scale.referenceDensity === null) return `Inlet volume flow (${unit})`;
+  const density = formatQuantity(scale.referenceDensity, 'density', system);
+  return `Inlet volume flow (${unit}; map flows at its reference density ${density})`;
+}
+
+function operatingX(point: OperatingPointView, scale: FlowScale): number {
+  return scale.axis === 'volume' ? point.volumeFlow * scale.perVolumeFlow : point.correctedMassFlow * scale.perCorrectedMassFlow;
+}
+
+function curveEfficiency(curve: CompressorCurve): number | null {
+  return curve.points.find((p) => p.efficiency !== null)?.efficiency ?? null;
+}
+
+function curveSpeed(curve: CompressorCurve): number | null {
+  return curve.points.find((p) => p.speed !== null)?.speed ?? null;
+}
+
+/** Speed lines at or above the wheel's rated speed are drawn as limits. */
+function isOverspeed(map: CompressorMap, speed: number | null): boolean {
+  return map.maxSpeed !== null && speed !== null && speed >= map.maxSpeed * (1 - 1e-9);
+}
+
+function mapPointHover(title: string, x: number, pressureRatio: number, efficiency: number | null, scale: FlowScale): string {
+  const lines = [`<b>${plotText(title)}</b>`, `Flow ${formatNumber(x)} ${unitLabel(scale.unit)}`, `Pressure ratio ${formatNumber(pressureRatio)}`];
+  if (efficiency !== null) lines.push(`Efficiency ${percentLabel(efficiency)}`);
+  return lines.join('<br>');
+}
+
+function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annotations: Partial<Annotation>[] } {
+  const data: Data[] = [];
+  const annotations: Partial<Annotation>[] = [];
+  const xs = (curve: CompressorCurve) => curve.points.map((p) => p.correctedMassFlow * scale.perCorrectedMassFlow);
+  const ys = (curve: CompressorCurve) => curve.points.map((p) => p.pressureRatio);
+
+  // Islands first, so lines and points draw over their faint fill.
+  const islands = map.curves.filter((c) => c.kind === 'island');
+  islands.forEach((curve, i) => {
+    const x = xs(curve);
+    const y = ys(curve);
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name: 'Efficiency islands',
+      legendgroup: 'islands',
+      showlegend: i === 0,
+      x,
+      y,
+      fill: 'toself',
+      fillcolor: plotColours.tealFill,
+      line: { color: plotColours.teal, width: 1, shape: 'linear' },
+      hoverinfo: 'skip',
+    });
+    const efficiency = curveEfficiency(curve);
+    if (efficiency !== null && y.length > 0) {
+      const top = y.indexOf(Math.max(...y));
+      annotations.push({
+        x: x[top],
+        y: y[top],
+        text: percentLabel(efficiency),
+        showarrow: false,
+        yanchor: 'bottom',
+        yshift: 1,
+        font: { ...plotFont, size: 10, color: plotColours.tealDark },
+        bgcolor: 'rgba(255, 253, 248, 0.75)',
+        borderpad: 1,
+      });
+    }
+  });
+
+  const speedLines = map.curves
+    .filter((c) => c.kind === 'speed')
+    .map((curve) => ({ curve, speed: curveSpeed(curve) }))
+    .sort((a, b) => (a.speed ?? 0) - (b.speed ?? 0));
+  let shownNormal = false;
+  let shownOverspeed = false;
+  for (const { curve, speed } of speedLines) {
+    const overspeed = isOverspeed(map, speed);
+    const name = overspeed ? 'Speed lines at the rated limit' : 'Speed lines';
+    const showlegend = overspeed ? !shownOverspeed : !shownNormal;
+    if (overspeed) shownOverspeed = true;
+    else shownNormal = true;
+    const label = speed !== null ? krpmLabel(speed) : curve.label;
+    const x = xs(curve);
+    const y = ys(curve);
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name,
+      legendgroup: overspeed ? 'overspeed' : 'speed',
+      showlegend,
+      x,
+      y,
+      line: { color: overspeed ? plotColours.limit : plotColours.ink, width: overspeed ? 1.75 : 1.25 },
+      text: curve.points.map((p, i) => mapPointHover(`Speed line ${label}`, x[i], p.pressureRatio, p.efficiency, scale)),
+      hovertemplate: '%{text}<extra></extra>',
+    });
+    const last = x.length - 1;
+    if (last >= 0) {
+      annotations.push({
+        x: x[last],
+        y: y[last],
+        text: plotText(label),
+        showarrow: false,
+        xanchor: 'left',
+        xshift: 4,
+        font: { ...plotFont, size: 10, color: overspeed ? plotColours.limit : plotColours.inkSoft },
+      });
+    }
+  }
+
+  for (const curve of map.curves.filter((c) => c.kind === 'choke')) {
+    const x = xs(curve);
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name: 'Choke limit',
+      legendgroup: 'choke',
+      x,
+      y: ys(curve),
+      line: { color: plotColours.copper, width: 2.25 },
+      text: curve.points.map((p, i) => mapPointHover('Choke limit', x[i], p.pressureRatio, null, scale)),
+      hovertemplate: '%{text}<extra></extra>',
+    });
+  }
+  for (const curve of map.curves.filter((c) => c.kind === 'surge')) {
+    const x = xs(curve);
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name: 'Surge line',
+      legendgroup: 'surge',
+      x,
+      y: ys(curve),
+      line: { color: plotColours.limit, width: 2.5 },
+      text: curve.points.map((p, i) => mapPointHover('Surge line', x[i], p.pressureRatio, null, scale)),
+      hovertemplate: '%{text}<extra></extra>',
+    });
+  }
+  return { data, annotations };
+}
+
+/** Every value of an operating point, in the user's units, for its hover box. */
+export function operatingPointHover(line: OperatingLineView, point: OperatingPointView, scale: FlowScale, system: UnitSystem): string {
+  const rows = [`<b>${plotText(line.label)}</b>`];
+  if (point.hover.length === 0) {
+    rows.push(`Engine speed ${formatQuantity(point.rpm, 'speed', system)}`);
+    rows.push(`Flow ${formatNumber(operatingX(point, scale))} ${unitLabel(scale.unit)}`);
+    rows.push(`Pressure ratio ${formatNumber(point.pressureRatio)}`);
+  }
+  for (const item of point.hover) rows.push(`${plotText(item.label)}: ${formatQuantity(item.value, item.kind, system)}`);
+  return rows.join('<br>');
+}
+
+const SEVERITY_OUTLINE = { limit: plotColours.limit, warning: plotColours.copper, info: plotColours.sheet } as const;
+
+function lineTraces(lines: readonly OperatingLineView[], scale: FlowScale, system: UnitSystem): Data[] {
+  return lines.map((line) => {
+    const colour = planColour(line.planIndex);
+    return {
+      type: 'scatter',
+      mode: 'lines+markers',
+      name: line.label,
+      legendgroup: `line:${line.key}`,
+      x: line.points.map((p) => operatingX(p, scale)),
+      y: line.points.map((p) => p.pressureRatio),
+      line: { color: colour, width: 2, dash: scenarioDash(line.scenarioIndex) },
+      marker: {
+        symbol: planMarker(line.planIndex),
+        size: 9,
+        color: colour,
+        line: {
+          color: line.points.map((p) => SEVERITY_OUTLINE[p.severity ?? 'info']),
+          width: line.points.map((p) => (p.severity === 'limit' || p.severity === 'warning' ? 2.5 : 1)),
+        },
+      },
+      customdata: line.points.map((p) => [line.key, p.rpm]),
+      text: line.points.map((p) => operatingPointHover(line, p, scale, system)),
+      hovertemplate: '%{text}<extra></extra>',
+    } satisfies Data;
+  });
+}
+
+function highlightTrace(lines: readonly OperatingLineView[], highlight: CompressorMapPlotProps['highlight'], scale: FlowScale): Data | null {
+  if (!highlight) return null;
+  const line = lines.find((l) => l.key === highlight.lineKey);
+  const point = line?.points.find((p) => Math.abs(p.rpm - highlight.rpm) <= 1e-6 * Math.max(1, Math.abs(highlight.rpm)));
+  if (!point) return null;
+  return {
+    type: 'scatter',
+    mode: 'markers',
+    name: 'Selected point',
+    showlegend: false,
+    x: [operatingX(point, scale)],
+    y: [point.pressureRatio],
+    marker: { symbol: 'circle-open', size: 24, color: plotColours.ink, line: { width: 2.5, color: plotColours.ink } },
+    hoverinfo: 'skip',
+  };
+}
+
+function finiteMax(values: number[]): number | null {
+  let max: number | null = null;
+  for (const v of values) if (Number.isFinite(v) && (max === null || v > max)) max = v;
+  return max;
+}
+
+/** The compressor map and operating lines as plotly traces and layout, in the user's units. */
+export function compressorMapFigure({ map, lines = [], flowAxis = 'corrected', unitSystem, highlight = null, height }: FigureInput): PlotFigure {
+  const scale = flowScale(map, flowAxis, unitSystem);
+  const drawn = map ? mapTraces(map, scale) : { data: [], annotations: [] };
+  const data: Data[] = [...drawn.data, ...lineTraces(lines, scale, unitSystem)];
+  const ring = highlightTrace(lines, highlight, scale);
+  if (ring) data.push(ring);
+
+  const allX: number[] = [];
+  const allY: number[] = [];
+  for (const trace of data) {
+    if (trace.type === 'scatter' && Array.isArray(trace.x) && Array.isArray(trace.y)) {
+      allX.push(...(trace.x as number[]));
+      allY.push(...(trace.y as number[]));
+    }
+  }
+  const maxX = finiteMax(allX);
+  const maxY = finiteMax(allY);
+  // Room on the right for the speed labels; pressure ratio starts at 1 (no compression).
+  const xRange: [number, number] | undefined = maxX !== null ? [0, maxX * 1.12] : undefined;
+  const yRange: [number, number] | undefined = maxY !== null ? [1, 1 + (maxY - 1) * 1.06 + 0.02] : undefined;
+
+  const axis = {
+    showline: true,
+    linecolor: plotColours.inkSoft,
+    mirror: true,
+    ticks: 'outside' as const,
+    tickcolor: plotColours.inkSoft,
+    gridcolor: plotColours.grid,
+    zeroline: false,
+    automargin: true,
+    title: { font: { ...plotFont, size: 13 } },
+  };
+  return {
+    data,
+    layout: {
+      height,
+      autosize: true,
+      paper_bgcolor: plotColours.paper,
+      plot_bgcolor: plotColours.sheet,
+      font: plotFont,
+      margin: { l: 64, r: 20, t: 16, b: 56 },
+      hovermode: 'closest',
+      hoverlabel: { bgcolor: plotColours.sheet, bordercolor: plotColours.inkSoft, font: { ...plotFont, size: 12 }, align: 'left' },
+      xaxis: { ...axis, title: { ...axis.title, text: flowAxisTitle(scale, unitSystem) }, ...(xRange ? { range: xRange } : { rangemode: 'tozero' }) },
+      yaxis: { ...axis, title: { ...axis.title, text: 'Pressure ratio (total to total)' }, ...(yRange ? { range: yRange } : {}) },
+      legend: {
+        x: 0.01,
+        y: 0.99,
+        xanchor: 'left',
+        yanchor: 'top',
+        bgcolor: 'rgba(255, 253, 248, 0.92)',
+        bordercolor: plotColours.paperLine,
+        borderwidth: 1,
+        font: { ...plotFont, size: 11 },
+      },
+      annotations: drawn.annotations,
+      dragmode: 'zoom',
+    },
+  };
+}

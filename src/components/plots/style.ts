@@ -1,0 +1,51 @@
+// The plot colours of the engineering notebook (product brief, "Design language"), the same
+// values as tailwind.config.ts: plotly draws on canvas and SVG and cannot read Tailwind classes.
+
+export const plotColours = {
+  paper: '#f7f3ea',
+  /** The plot area: a shade lighter than the page, so the map reads as a sheet on it. */
+  sheet: '#fffdf8',
+  grid: '#e8e0cf',
+  paperLine: '#ddd3bf',
+  ink: '#2b2b2b',
+  inkSoft: '#555049',
+  inkFaint: '#8a8377',
+  teal: '#0f766e',
+  tealDark: '#115e59',
+  tealFill: 'rgba(15, 118, 110, 0.06)',
+  copper: '#b4632b',
+  copperInk: '#8f4a1c',
+  /** Hard limits only: surge, overspeed. */
+  limit: '#b91c1c',
+} as const;
+
+/**
+ * Plans are told apart by colour and by marker shape. The colours are the Okabe and Ito (2008)
+ * colour-blind-safe palette, reordered so the first plans get the colours that read best on
+ * paper (yellow last but one) and vermillion, closest to the limit red, comes late.
+ */
+export const planColours = ['#0072B2', '#E69F00', '#009E73', '#CC79A7', '#56B4E9', '#D55E00', '#F0E442', '#000000'] as const;
+
+export const planMarkers = ['circle', 'square', 'diamond', 'triangle-up', 'triangle-down', 'cross', 'x', 'star'] as const;
+
+/** Scenarios are told apart by line dash. */
+export const scenarioDashes = ['solid', 'dash', 'dot', 'dashdot', 'longdash', 'longdashdot'] as const;
+
+export function planColour(planIndex: number): string {
+  return planColours[wrap(planIndex, planColours.length)];
+}
+
+export function planMarker(planIndex: number): (typeof planMarkers)[number] {
+  return planMarkers[wrap(planIndex, planMarkers.length)];
+}
+
+export function scenarioDash(scenarioIndex: number): (typeof scenarioDashes)[number] {
+  return scenarioDashes[wrap(scenarioIndex, scenarioDashes.length)];
+}
+
+function wrap(index: number, length: number): number {
+  const i = Number.isInteger(index) ? index : 0;
+  return ((i % length) + length) % length;
+}
+
+export const plotFont = { family: '"Roboto Flex", system-ui, sans-serif', size: 12, color: plotColours.ink };
