@@ -1,0 +1,137 @@
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { studyDocumentSchema, type StudyDocument } from '../../../shared/schemas/study';
+import { diffDocuments, kindOfPath } from '../../../shared/study/diff';
+
+const demoPath = path.resolve(import.meta.dirname, '..', '..', '..', 'data', 'demo', 'hillclimb-study.json');
+const demoJson = () => JSON.parse(readFileSync(demoPath, 'utf8')) as StudyDocument;
+
+describe('diffDocuments', () => {
+  it('finds nothing between a document and its copy', () => {
+    expect(diffDocuments(demoJson(), demoJson())).toEqual([]);
+  });
+
+  it('names a changed number by a readable path with its kind, before and after in SI', () => {
+    const a = demoJson();
+    const b = demoJson();
+    b.engine.displacement = 0.0021;
+    const changes = diffDocuments(a, b);
+    expect(changes).toEqual([
+      // demo document values (data/demo/hillclimb-study.json), not physics
+      { path: 'Engine › displacement', keys: ['engine', 'displacement'], change: 'changed', before: 0.001998, after: 0.0021, kind: 'volume' },
+    ]);
+  });
+
+  it('matches rows of a table by rpm, so inserting a row is one addition and not a shift of every row', () => {
+    const a = demoJson();
+    const b = demoJson();
+    // Insert a row at 3000 rpm between 2500 and 3500 (demo rows), and change the one at 4500.
+    b.engine.volumetricEfficiency.splice(1, 0, { rpm: 3000, value: 0.93 });
+    b.engine.volumetricEfficiency.find((r) => r.rpm === 4500)!.value = 1.05;
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.change, c.before, c.after, c.kind])).toEqual([
+      ['Engine › volumetric efficiency at 3000 rpm', 'added', undefined, 0.93, 'fraction'],
+      ['Engine › volumetric efficiency at 4500 rpm', 'changed', 1.01, 1.05, 'fraction'],
+    ]);
+    // The keys point at the row in the newer document (index 3 after the insertion).
+    expect(changes[1].keys).toEqual(['engine', 'volumetricEfficiency', 3, 'value']);
+  });
+
+  it('reports a removed table row with its old value', () => {
+    const a = demoJson();
+    const b = demoJson();
+    b.fuelSystem.lambda = b.fuelSystem.lambda.filter((r) => r.rpm !== 4500);
+    expect(diffDocuments(a, b).map((c) => [c.path, c.change, c.before, c.after, c.kind])).toEqual([
+      ['Fuel system › lambda at 4500 rpm', 'removed', 0.8, undefined, 'ratio'],
+    ]);
+  });
+
+  it('names scenarios and boost rows by their names, and boost as gauge pressure', () => {
+    const a = demoJson();
+    const b = demoJson();
+    b.scenarios[2].boostSchedule[1].boost[1].value = 110_000;
+    b.scenarios[1].ambient = { altitude: 1600, temperature: 308.15 };
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.before, c.after, c.kind])).toEqual([
+      ['Scenario 2 “1,500 m, 35 °C” › ambient › altitude', 1500, 1600, 'length'],
+      ['Scenario 3 “Sea level, by gear” › boost row “2nd gear” › boost at 4500 rpm', 100_000, 110_000, 'pressureGauge'],
+    ]);
+  });
+
+  it('matches plans by id, so reordering them is no change and a rename is one change', () => {
+    const a = demoJson();
+    const b = demoJson();
+    b.plans.reverse();
+    expect(diffDocuments(a, b)).toEqual([]);
+    b.plans[0].name = 'L76 race wheel, ported shroud';
+    b.plans[0].maxShaftSpeed = 150_000;
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.change, c.before, c.after, c.kind])).toEqual([
+      ['Plan “L76 race wheel, ported shroud” › name', 'changed', 'L76 race wheel', 'L76 race wheel, ported shroud', 'text'],
+      ['Plan “L76 race wheel, ported shroud” › max wheel speed', 'added', undefined, 150_000, 'speed'],
+    ]);
+  });
+
+  it('reports whole plans and scenarios added or removed as objects', () => {
+    const a = demoJson();
+    const b = demoJson();
+    const removed = b.plans.splice(1, 1)[0];
+    b.scenarios.push({ ...b.scenarios[0], name: 'Cold morning' });
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.change, c.kind])).toEqual([
+      ['Scenario 5 “Cold morning”', 'added', null],
+      ['Plan “M58 mid wheel”', 'removed', null],
+    ]);
+    expect(changes[1].before).toEqual(removed);
+  });
+
+  it('keeps temperature differences apart from temperatures, and follows a switch of the intercooler kind', () => {
+    const a = demoJson();
+    const b = demoJson();
+    b.losses.inletTemperatureRise = 8;
+    b.intercooler = { kind: 'fixed', manifoldTemperature: 318.15 };
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.change, c.before, c.after, c.kind])).toEqual([
+      ['Losses › intake heating', 'changed', 5, 8, 'temperatureDifference'],
+      ['Intercooler › kind', 'changed', 'effectiveness', 'fixed', 'text'],
+      ['Intercooler › effectiveness', 'removed', 0.75, undefined, 'fraction'],
+      ['Intercooler › manifold temperature', 'added', undefined, 318.15, 'temperature'],
+    ]);
+  });
+
+  it('reports a changed rpm list as one change of speeds', () => {
+    const a = demoJson();
+    const b = demoJson();
+    a.engine.rpm = { kind: 'list', values: [3000, 5000] };
+    b.engine.rpm = { kind: 'list', values: [3000, 5000, 7000] };
+    expect(diffDocuments(a, b)).toEqual([
+      { path: 'Engine › rpm points › rpm list', keys: ['engine', 'rpm', 'values'], change: 'changed', before: [3000, 5000], after: [3000, 5000, 7000], kind: 'speed' },
+    ]);
+  });
+
+  it('works on documents that pass the study schema and does not change them', () => {
+    const a = studyDocumentSchema.parse(demoJson());
+    const b = studyDocumentSchema.parse(demoJson());
+    b.fuelSystem.injectors.primary.ratedFlow = 1.8e-5;
+    const frozenA = JSON.stringify(a);
+    const frozenB = JSON.stringify(b);
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.kind])).toEqual([['Fuel system › injectors › primary set › rated flow', 'injectorFlow']]);
+    expect(JSON.stringify(a)).toBe(frozenA);
+    expect(JSON.stringify(b)).toBe(frozenB);
+  });
+});
+
+describe('kindOfPath', () => {
+  it('knows the gauge and absolute pressures of the document apart', () => {
+    expect(kindOfPath(['fuelSystem', 'injectors', 'fuelPressure'])).toBe('pressureGauge');
+    expect(kindOfPath(['scenarios', 0, 'ambient', 'pressure'])).toBe('pressure');
+    expect(kindOfPath(['engine', 'limits', 'maxManifoldPressure'])).toBe('pressure');
+    expect(kindOfPath(['scenarios', 0, 'boostSchedule', 0, 'boost', 2, 'value'])).toBe('pressureGauge');
+  });
+
+  it('gives null for keys it does not know', () => {
+    expect(kindOfPath(['somethingElse'])).toBeNull();
+  });
+});
