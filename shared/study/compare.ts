@@ -1,0 +1,252 @@
+/**
+ * Side by side: the table of differences between two to four operating lines (Plan × Scenario ×
+ * boost row). One row per figure, one cell per line, the best cell of each row marked. Pure and
+ * SI, so the screen, the report and the tests read the same numbers.
+ */
+import type { OperatingLine, PointValues, Severity } from '../matching/types';
+import type { WorkingKind } from '../matching/working';
+
+/** Which end of a row is better; "none" rows are there to read beside another row. */
+export type BestRule = 'highest' | 'lowest' | 'none';
+
+export type CompareRowKey =
+  | 'minSurgeMargin'
+  | 'minChokeMargin'
+  | 'minSpeedMargin'
+  | 'peakShaftSpeed'
+  | 'peakBrakePower'
+  | 'peakBrakePowerRpm'
+  | 'peakWheelPower'
+  | 'peakTorque'
+  | 'peakInjectorDuty'
+  | 'peakCompressorOutletTemperature'
+  | 'peakPressureRatio'
+  | 'limitFindings'
+  | 'warningFindings'
+  | 'infoFindings';
+
+export interface CompareCell {
+  /** SI value of the figure for this line; null when no point of the line gives it (e.g. no map). */
+  value: number | null;
+  /** Engine speed of the point the minimum or peak was found at, rpm; null for counts and for missing values. */
+  rpm: number | null;
+}
+
+export interface CompareRow {
+  key: CompareRowKey;
+  label: string;
+  /** Quantity kind of the value, so a screen shows it in the user's units ("fraction" shows as %). */
+  kind: WorkingKind;
+  best: BestRule;
+  /** Plain words on what "best" means in this row. */
+  bestMeaning: string;
+  /** One cell per line, in the order the lines were given. */
+  cells: CompareCell[];
+  /**
+   * Cells holding the best value (ties all marked). Empty when the row has no best, when fewer
+   * than two lines give a value, or when every value is the same: there is nothing to choose then.
+   */
+  bestIndices: number[];
+}
+
+/** What compareLines reads of a line: its points (a whole OperatingLine fits). */
+export type ComparableLine = Pick<OperatingLine, 'points'>;
+
+type Extreme = 'min' | 'max';
+
+interface ValueRowSpec {
+  key: CompareRowKey;
+  label: string;
+  kind: WorkingKind;
+  best: BestRule;
+  bestMeaning: string;
+  /** Which point of the line gives the cell. */
+  extreme: Extreme;
+  value: (v: PointValues) => number | null;
+}
+
+const valueRows: ValueRowSpec[] = [
+  {
+    key: 'minSurgeMargin',
+    label: 'Smallest surge margin',
+    kind: 'fraction',
+    best: 'highest',
+    bestMeaning: 'highest: the line keeps furthest right of the surge line',
+    extreme: 'min',
+    value: (v) => v.surgeMargin,
+  },
+  {
+    key: 'minChokeMargin',
+    label: 'Smallest choke margin',
+    kind: 'fraction',
+    best: 'highest',
+    bestMeaning: 'highest: the line keeps furthest left of the choke limit',
+    extreme: 'min',
+    value: (v) => v.chokeMargin,
+  },
+  {
+    key: 'minSpeedMargin',
+    label: 'Smallest speed margin',
+    kind: 'fraction',
+    best: 'highest',
+    bestMeaning: 'highest: the wheel stays furthest below its speed limit',
+    extreme: 'min',
+    value: (v) => v.speedMargin,
+  },
+  {
+    key: 'peakShaftSpeed',
+    label: 'Peak shaft speed',
+    kind: 'speed',
+    best: 'lowest',
+    bestMeaning: 'lowest: the wheel spins slowest (judge it against each wheel’s own limit with the speed margin)',
+    extreme: 'max',
+    value: (v) => v.shaftSpeed,
+  },
+  {
+    key: 'peakBrakePower',
+    label: 'Peak crank power',
+    kind: 'power',
+    best: 'highest',
+    bestMeaning: 'highest power',
+    extreme: 'max',
+    value: (v) => v.brakePower,
+  },
+  {
+    key: 'peakWheelPower',
+    label: 'Peak wheel power',
+    kind: 'power',
+    best: 'highest',
+    bestMeaning: 'highest power',
+    extreme: 'max',
+    value: (v) => v.wheelPower,
+  },
+  {
+    key: 'peakTorque',
+    label: 'Peak crank torque',
+    kind: 'torque',
+    best: 'highest',
+    bestMeaning: 'highest torque',
+    extreme: 'max',
+    value: (v) => v.torque,
+  },
+  {
+    key: 'peakInjectorDuty',
+    label: 'Peak injector duty',
+    kind: 'fraction',
+    best: 'lowest',
+    bestMeaning: 'lowest: the most fuel left in hand',
+    extreme: 'max',
+    value: (v) => v.injectorDuty,
+  },
+  {
+    key: 'peakCompressorOutletTemperature',
+    label: 'Peak compressor outlet temperature',
+    kind: 'temperature',
+    best: 'lowest',
+    bestMeaning: 'lowest temperature: less heat for the intercooler and the charge',
+    extreme: 'max',
+    value: (v) => v.compressorOutletTemperature,
+  },
+  {
+    key: 'peakPressureRatio',
+    label: 'Peak pressure ratio',
+    kind: 'ratio',
+    best: 'lowest',
+    bestMeaning: 'lowest: the least work asked of the compressor',
+    extreme: 'max',
+    value: (v) => v.pressureRatio,
+  },
+];
+
+const severityRows: { key: CompareRowKey; label: string; severity: Severity; bestMeaning: string }[] = [
+  { key: 'limitFindings', label: 'Findings at a limit', severity: 'limit', bestMeaning: 'fewest' },
+  { key: 'warningFindings', label: 'Warnings', severity: 'warning', bestMeaning: 'fewest' },
+  { key: 'infoFindings', label: 'Notes (info)', severity: 'info', bestMeaning: 'fewest' },
+];
+
+/** The row keys in the order compareLines returns them. */
+export const COMPARE_ROW_KEYS: readonly CompareRowKey[] = [
+  'minSurgeMargin',
+  'minChokeMargin',
+  'minSpeedMargin',
+  'peakShaftSpeed',
+  'peakBrakePower',
+  'peakBrakePowerRpm',
+  'peakWheelPower',
+  'peakTorque',
+  'peakInjectorDuty',
+  'peakCompressorOutletTemperature',
+  'peakPressureRatio',
+  'limitFindings',
+  'warningFindings',
+  'infoFindings',
+];
+
+/**
+ * The point of a line with the smallest or largest value; the first such point (lowest rpm) on
+ * ties. Unsolved points and values that are null or not finite are skipped.
+ */
+function extremeOf(line: ComparableLine, value: (v: PointValues) => number | null, extreme: Extreme): CompareCell {
+  let best: CompareCell = { value: null, rpm: null };
+  for (const point of line.points) {
+    if (!point.solved) continue;
+    const x = value(point.values);
+    if (x === null || !Number.isFinite(x)) continue;
+    if (best.value === null || (extreme === 'min' ? x < best.value : x > best.value)) best = { value: x, rpm: point.rpm };
+  }
+  return best;
+}
+
+function countFindings(line: ComparableLine, severity: Severity): number {
+  let n = 0;
+  for (const point of line.points) for (const f of point.findings) if (f.severity === severity) n++;
+  return n;
+}
+
+/** Values within this relative distance of each other are a tie (rounding in the engine, not a difference). */
+const TIE_TOLERANCE = 1e-9;
+
+function isTie(a: number, b: number): boolean {
+  return Math.abs(a - b) <= TIE_TOLERANCE * Math.max(1, Math.abs(a), Math.abs(b));
+}
+
+/** Indices of the best cells by the rule; see CompareRow.bestIndices for when there are none. */
+export function bestIndicesOf(cells: readonly CompareCell[], rule: BestRule): number[] {
+  if (rule === 'none') return [];
+  const given = cells.flatMap((c, i) => (c.value === null ? [] : [{ i, value: c.value }]));
+  if (given.length < 2) return [];
+  const target = given.reduce((best, c) => (rule === 'highest' ? Math.max(best, c.value) : Math.min(best, c.value)), given[0].value);
+  const winners = given.filter((c) => isTie(c.value, target)).map((c) => c.i);
+  return winners.length === given.length ? [] : winners;
+}
+
+/**
+ * The table of differences of some operating lines: one row per figure in COMPARE_ROW_KEYS order,
+ * one cell per line in the order given. Minimum margins and peaks come from the solved points;
+ * finding counts from every point.
+ */
+export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
+  const rows: CompareRow[] = [];
+  for (const spec of valueRows) {
+    const cells = lines.map((line) => extremeOf(line, spec.value, spec.extreme));
+    rows.push({ key: spec.key, label: spec.label, kind: spec.kind, best: spec.best, bestMeaning: spec.bestMeaning, cells, bestIndices: bestIndicesOf(cells, spec.best) });
+    if (spec.key === 'peakBrakePower') {
+      // Where the peak comes matters as much as its size, but neither end is "better" by itself.
+      const rpmCells = cells.map((c) => ({ value: c.rpm, rpm: c.rpm }));
+      rows.push({
+        key: 'peakBrakePowerRpm',
+        label: 'Engine speed of peak crank power',
+        kind: 'speed',
+        best: 'none',
+        bestMeaning: 'no best: read it beside the peak crank power',
+        cells: rpmCells,
+        bestIndices: [],
+      });
+    }
+  }
+  for (const spec of severityRows) {
+    const cells = lines.map((line) => ({ value: countFindings(line, spec.severity), rpm: null }));
+    rows.push({ key: spec.key, label: spec.label, kind: 'count', best: 'lowest', bestMeaning: spec.bestMeaning, cells, bestIndices: bestIndicesOf(cells, 'lowest') });
+  }
+  return rows;
+}

@@ -1,0 +1,245 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import type { Finding, OperatingPoint, PointValues, Severity } from '../../../shared/matching/types';
+import { bestIndicesOf, COMPARE_ROW_KEYS, compareLines, type CompareRow, type CompareRowKey, type ComparableLine } from '../../../shared/study/compare';
+
+// Tiny synthetic lines: only the values compareLines reads are set on purpose; the rest are
+// filler of the right type. Every expected number below is hand-read from these points.
+
+const filler: PointValues = {
+  rpm: 0,
+  volumetricEfficiency: 0.9,
+  boost: 100_000,
+  lambda: 0.85,
+  ambientPressure: 101_325,
+  ambientTemperature: 293.15,
+  compressorInletPressure: 99_000,
+  compressorInletTemperature: 293.15,
+  inletDensity: 1.18,
+  manifoldPressure: 201_325,
+  manifoldTemperature: 320,
+  airDensity: 2.19,
+  engineMassFlow: 0.15,
+  massFlow: 0.15,
+  correctedMassFlow: 0.15,
+  inletVolumeFlow: 0.13,
+  compressorOutletPressure: 210_000,
+  pressureRatio: 2,
+  throttled: false,
+  compressorEfficiency: 0.72,
+  efficiencySource: 'map',
+  isentropicOutletTemperature: 357,
+  compressorOutletTemperature: 382,
+  compressorPower: 13_000,
+  iterations: 3,
+  converged: true,
+  mapLocation: 'inside',
+  shaftSpeed: null,
+  surgeMargin: null,
+  chokeMargin: null,
+  speedMargin: null,
+  maxShaftSpeed: null,
+  stoichiometricAfr: 14.7,
+  lowerHeatingValue: 44e6,
+  fuelDensity: 745,
+  fuelMassFlow: 0.012,
+  fuelVolumeFlow: 1.6e-5,
+  brakeThermalEfficiency: 0.33,
+  brakePower: null,
+  wheelPower: null,
+  torque: null,
+  apparentBsfc: 7e-8,
+  injectorPressureDifference: 300_000,
+  injectorStage: 'primary',
+  injectorCapacity: 6e-5,
+  injectorDuty: null,
+  railPressure: 400_000,
+  pumpFlowRequired: 1.6e-5,
+};
+
+function finding(severity: Severity, rpm: number): Finding {
+  return { code: 'input-out-of-range', severity, message: `${severity} at ${rpm}`, rpm };
+}
+
+function solved(rpm: number, values: Partial<PointValues>, findings: Severity[] = []): OperatingPoint {
+  return { solved: true, rpm, values: { ...filler, rpm, ...values }, findings: findings.map((s) => finding(s, rpm)) };
+}
+
+function unsolved(rpm: number, findings: Severity[]): OperatingPoint {
+  return { solved: false, rpm, values: null, findings: findings.map((s) => finding(s, rpm)) };
+}
+
+/** Plan A on a map: margins shrink towards 5000 rpm, choke tightest at 7000 rpm. */
+const lineA: ComparableLine = {
+  points: [
+    solved(3000, { surgeMargin: 0.2, chokeMargin: 0.5, speedMargin: 0.3, shaftSpeed: 100_000, brakePower: 100_000, wheelPower: 85_000, torque: 318, injectorDuty: 0.5, compressorOutletTemperature: 380, pressureRatio: 1.8 }, ['info']),
+    solved(5000, { surgeMargin: 0.12, chokeMargin: 0.25, speedMargin: 0.1, shaftSpeed: 135_000, brakePower: 180_000, wheelPower: 153_000, torque: 344, injectorDuty: 0.82, compressorOutletTemperature: 420, pressureRatio: 2.4 }, ['warning']),
+    solved(7000, { surgeMargin: 0.3, chokeMargin: 0.05, speedMargin: 0.12, shaftSpeed: 132_000, brakePower: 170_000, wheelPower: 144_500, torque: 232, injectorDuty: 0.78, compressorOutletTemperature: 415, pressureRatio: 2.35 }),
+  ],
+};
+
+/** Plan B on another map: left of surge at 3000 rpm, and the 7000 rpm point could not be solved. */
+const lineB: ComparableLine = {
+  points: [
+    solved(3000, { surgeMargin: -0.05, chokeMargin: 0.6, speedMargin: 0.4, shaftSpeed: 90_000, brakePower: 95_000, wheelPower: 80_750, torque: 302, injectorDuty: 0.45, compressorOutletTemperature: 375, pressureRatio: 1.75 }, ['limit', 'info']),
+    solved(5000, { surgeMargin: 0.15, chokeMargin: 0.35, speedMargin: 0.2, shaftSpeed: 120_000, brakePower: 190_000, wheelPower: 161_500, torque: 363, injectorDuty: 0.86, compressorOutletTemperature: 430, pressureRatio: 2.45 }, ['limit']),
+    unsolved(7000, ['limit']),
+  ],
+};
+
+/** Plan C without a map: no margins, no shaft speed; its power peaks twice (first one counts). */
+const lineC: ComparableLine = {
+  points: [
+    solved(4000, { brakePower: 150_000, wheelPower: 127_500, torque: 358, injectorDuty: 0.7, compressorOutletTemperature: 400, pressureRatio: 2.1 }, ['warning', 'warning']),
+    solved(6000, { brakePower: 150_000, wheelPower: 127_500, torque: 239, injectorDuty: 0.75, compressorOutletTemperature: 405, pressureRatio: 2.1 }),
+  ],
+};
+
+function row(rows: CompareRow[], key: CompareRowKey): CompareRow {
+  const found = rows.find((r) => r.key === key);
+  if (!found) throw new Error(`no row ${key}`);
+  return found;
+}
+
+describe('compareLines on three hand-made lines', () => {
+  const rows = compareLines([lineA, lineB, lineC]);
+  const values = (key: CompareRowKey) => row(rows, key).cells.map((c) => c.value);
+  const rpms = (key: CompareRowKey) => row(rows, key).cells.map((c) => c.rpm);
+  const best = (key: CompareRowKey) => row(rows, key).bestIndices;
+
+  it('gives every row once, in the documented order', () => {
+    expect(rows.map((r) => r.key)).toEqual(COMPARE_ROW_KEYS);
+    for (const r of rows) {
+      expect(r.cells).toHaveLength(3);
+      expect(r.bestMeaning.length).toBeGreaterThan(0);
+    }
+  });
+
+  it('takes the smallest margins and where they occur', () => {
+    // Hand-read: A's smallest surge margin 0.12 at 5000 rpm, B's −0.05 at 3000 rpm, C has no map.
+    expect(values('minSurgeMargin')).toEqual([0.12, -0.05, null]);
+    expect(rpms('minSurgeMargin')).toEqual([5000, 3000, null]);
+    expect(best('minSurgeMargin')).toEqual([0]); // highest margin wins: A (hand-read)
+    // Hand-read: A's smallest choke margin 0.05 at 7000 rpm; B's 0.35 at 5000 rpm (7000 unsolved).
+    expect(values('minChokeMargin')).toEqual([0.05, 0.35, null]);
+    expect(rpms('minChokeMargin')).toEqual([7000, 5000, null]);
+    expect(best('minChokeMargin')).toEqual([1]); // hand-read: B
+    // Hand-read: speed margins 0.10 (A, 5000 rpm) and 0.20 (B, 5000 rpm).
+    expect(values('minSpeedMargin')).toEqual([0.1, 0.2, null]);
+    expect(best('minSpeedMargin')).toEqual([1]); // hand-read: B
+  });
+
+  it('takes the peaks, lowest wins for speed, duty, temperature and pressure ratio', () => {
+    // Hand-read: peak shaft speed 135 000 rpm (A) and 120 000 rpm (B); lowest wins: B.
+    expect(values('peakShaftSpeed')).toEqual([135_000, 120_000, null]);
+    expect(best('peakShaftSpeed')).toEqual([1]);
+    // Hand-read: peak injector duty 0.82, 0.86, 0.75; lowest wins: C.
+    expect(values('peakInjectorDuty')).toEqual([0.82, 0.86, 0.75]);
+    expect(best('peakInjectorDuty')).toEqual([2]);
+    // Hand-read: peak compressor outlet temperature 420 K, 430 K, 405 K; lowest wins: C.
+    expect(values('peakCompressorOutletTemperature')).toEqual([420, 430, 405]);
+    expect(best('peakCompressorOutletTemperature')).toEqual([2]);
+    // Hand-read: peak pressure ratio 2.4, 2.45, 2.1; lowest wins: C.
+    expect(values('peakPressureRatio')).toEqual([2.4, 2.45, 2.1]);
+    expect(best('peakPressureRatio')).toEqual([2]);
+  });
+
+  it('takes peak power, its rpm (first point on a tie within a line) and peak torque', () => {
+    // Hand-read: peak crank power 180 kW at 5000 rpm (A), 190 kW at 5000 rpm (B), 150 kW first at 4000 rpm (C).
+    expect(values('peakBrakePower')).toEqual([180_000, 190_000, 150_000]);
+    expect(rpms('peakBrakePower')).toEqual([5000, 5000, 4000]);
+    expect(best('peakBrakePower')).toEqual([1]); // highest wins: B (hand-read)
+    expect(values('peakBrakePowerRpm')).toEqual([5000, 5000, 4000]); // hand-read, as above
+    expect(best('peakBrakePowerRpm')).toEqual([]); // no best by definition of the row
+    // Hand-read: peak wheel power 153 kW, 161.5 kW, 127.5 kW; peak torque 344, 363, 358 N·m.
+    expect(values('peakWheelPower')).toEqual([153_000, 161_500, 127_500]);
+    expect(best('peakWheelPower')).toEqual([1]);
+    expect(values('peakTorque')).toEqual([344, 363, 358]);
+    expect(best('peakTorque')).toEqual([1]);
+  });
+
+  it('counts findings by severity on every point, solved or not', () => {
+    // Hand-counted: A has 0 limit / 1 warning / 1 info; B has 3 limit (one on the unsolved point) / 0 / 1; C has 0 / 2 / 0.
+    expect(values('limitFindings')).toEqual([0, 3, 0]);
+    expect(best('limitFindings')).toEqual([0, 2]); // fewest, tie between A and C (hand-counted)
+    expect(values('warningFindings')).toEqual([1, 0, 2]);
+    expect(best('warningFindings')).toEqual([1]);
+    expect(values('infoFindings')).toEqual([1, 1, 0]);
+    expect(best('infoFindings')).toEqual([2]);
+    expect(rpms('limitFindings')).toEqual([null, null, null]); // counts have no rpm (definition)
+  });
+});
+
+describe('marking the best cell', () => {
+  const cells = (...values: (number | null)[]) => values.map((value) => ({ value, rpm: null }));
+
+  it('marks nothing when all values are the same, or fewer than two lines give one', () => {
+    expect(bestIndicesOf(cells(0.2, 0.2), 'highest')).toEqual([]); // definition: nothing to choose
+    expect(bestIndicesOf(cells(0.2, null, null), 'highest')).toEqual([]); // definition: one value is no comparison
+    expect(bestIndicesOf(cells(null, null), 'lowest')).toEqual([]);
+  });
+
+  it('marks every tied winner, and treats engine rounding as a tie', () => {
+    expect(bestIndicesOf(cells(3, 1, 3, 2), 'highest')).toEqual([0, 2]); // hand-read
+    expect(bestIndicesOf(cells(1 + 1e-12, 1, 2), 'lowest')).toEqual([0, 1]); // 1e-12 is below the 1e-9 tie tolerance
+    expect(bestIndicesOf(cells(1 + 1e-6, 1, 2), 'lowest')).toEqual([1]); // 1e-6 is above it
+  });
+
+  it('never marks a "none" row', () => {
+    expect(bestIndicesOf(cells(1, 2, 3), 'none')).toEqual([]);
+  });
+});
+
+describe('compareLines on edge cases', () => {
+  it('skips values that are not finite and lines whose points are all unsolved', () => {
+    const weird: ComparableLine = { points: [solved(3000, { brakePower: Number.NaN }), solved(4000, { brakePower: 90_000 })] };
+    const dead: ComparableLine = { points: [unsolved(3000, ['limit'])] };
+    const rows = compareLines([weird, dead]);
+    // Hand-read: NaN at 3000 rpm is skipped, 90 kW at 4000 rpm remains; the dead line has no value.
+    expect(row(rows, 'peakBrakePower').cells).toEqual([
+      { value: 90_000, rpm: 4000 },
+      { value: null, rpm: null },
+    ]);
+    expect(row(rows, 'peakBrakePower').bestIndices).toEqual([]); // only one value: no comparison (definition)
+    expect(row(rows, 'limitFindings').cells.map((c) => c.value)).toEqual([0, 1]); // hand-counted
+  });
+
+  it('returns the rows with no cells for no lines', () => {
+    const rows = compareLines([]);
+    expect(rows.map((r) => r.key)).toEqual(COMPARE_ROW_KEYS);
+    for (const r of rows) expect(r.cells).toEqual([]);
+  });
+});
+
+describe('compareLines properties', () => {
+  const maybe = fc.option(fc.double({ min: -1, max: 3, noNaN: true }), { nil: null });
+  const pointArb = fc.record({ rpm: fc.integer({ min: 1000, max: 9000 }), surge: maybe, power: maybe });
+  const lineArb = fc.array(pointArb, { minLength: 0, maxLength: 6 }).map((ps) => ({
+    points: ps.map((p) => solved(p.rpm, { surgeMargin: p.surge, brakePower: p.power })),
+  }));
+
+  it('each cell is the plain minimum or maximum of its line, and the marked cells hold the best of them', () => {
+    fc.assert(
+      fc.property(fc.array(lineArb, { minLength: 1, maxLength: 4 }), (lines) => {
+        const rows = compareLines(lines);
+        const surge = row(rows, 'minSurgeMargin');
+        const power = row(rows, 'peakBrakePower');
+        lines.forEach((line, i) => {
+          const surges = line.points.map((p) => p.values!.surgeMargin).filter((x): x is number => x !== null);
+          const powers = line.points.map((p) => p.values!.brakePower).filter((x): x is number => x !== null);
+          // Definition of the row: Math.min / Math.max over the values present, null when none.
+          expect(surge.cells[i].value).toBe(surges.length ? Math.min(...surges) : null);
+          expect(power.cells[i].value).toBe(powers.length ? Math.max(...powers) : null);
+        });
+        const given = surge.cells.map((c) => c.value).filter((x): x is number => x !== null);
+        // Highest margin wins (definition), ties within the 1e-9 tolerance included.
+        for (const i of surge.bestIndices) expect(Math.abs(surge.cells[i].value! - Math.max(...given))).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(Math.max(...given))));
+        // A cell clearly below the best is never marked.
+        surge.cells.forEach((c, i) => {
+          if (c.value !== null && c.value < Math.max(...given) - 1e-6) expect(surge.bestIndices).not.toContain(i);
+        });
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
