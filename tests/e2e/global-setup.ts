@@ -48,7 +48,8 @@ export async function teardown() {
   if (!server || server.exitCode !== null) return;
   const exited = new Promise((r) => server!.once('exit', r));
   server.kill('SIGTERM');
-  await Promise.race([exited, new Promise((r) => setTimeout(r, 15_000))]);
+  const stopped = await Promise.race([exited.then(() => true), new Promise((r) => setTimeout(() => r(false), 12_000))]);
+  if (!stopped) server.kill('SIGKILL');
 }
 
 declare module 'vitest' {
