@@ -21,14 +21,22 @@ function quantile(sorted: number[], q: number): number {
 function bench(name: string, runs: number, body: () => void): void {
   for (let i = 0; i < Math.min(5, runs); i++) body(); // warm up the JIT
   const times: number[] = [];
+  const cpuTimes: number[] = [];
   for (let i = 0; i < runs; i++) {
+    const cpuStart = process.cpuUsage();
     const start = performance.now();
     body();
     times.push(performance.now() - start);
+    const cpu = process.cpuUsage(cpuStart);
+    cpuTimes.push((cpu.user + cpu.system) / 1000);
   }
   times.sort((a, b) => a - b);
+  cpuTimes.sort((a, b) => a - b);
   const f = (ms: number) => ms.toFixed(3);
-  console.log(`${name.padEnd(48)} median ${f(quantile(times, 0.5))} ms   p10–p90 ${f(quantile(times, 0.1))}–${f(quantile(times, 0.9))} ms   runs ${runs}`);
+  // CPU time beside wall time: on a shared machine the wall clock also counts other people's work.
+  console.log(
+    `${name.padEnd(48)} median ${f(quantile(times, 0.5))} ms   p10–p90 ${f(quantile(times, 0.1))}–${f(quantile(times, 0.9))} ms   runs ${runs}   (CPU median ${f(quantile(cpuTimes, 0.5))} ms)`,
+  );
 }
 
 /** A map file of `speedLines` × `pointsPerLine` speed rows plus surge and choke lines (about 10,000 rows). */
