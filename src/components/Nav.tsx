@@ -8,7 +8,7 @@ export interface NavItem {
 }
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
-  `relative rounded-md px-3 py-1.5 text-sm font-semibold transition-colors ${
+  `relative rounded-md px-3 py-1.5 text-sm font-semibold no-underline transition-colors hover:no-underline ${
     isActive
       ? 'bg-teal-light/70 text-teal-dark after:absolute after:inset-x-3 after:-bottom-[9px] after:h-0.5 after:bg-teal'
       : 'text-ink-soft hover:bg-paper-deep hover:text-ink'
@@ -26,7 +26,8 @@ export function Nav({ homeHref, items, end }: { homeHref: string; items: readonl
           <BrandMark />
           <BrandWord />
         </Link>
-        <nav aria-label="Main" className="flex-1">
+        {/* On narrow screens the areas take their own row below the brand and the account. */}
+        <nav aria-label="Main" className="order-last w-full md:order-none md:w-auto md:flex-1">
           <ul className="flex flex-wrap items-center gap-1">
             {items.map((item) => (
               <li key={item.to}>
@@ -37,7 +38,7 @@ export function Nav({ homeHref, items, end }: { homeHref: string; items: readonl
             ))}
           </ul>
         </nav>
-        {end && <div className="flex flex-wrap items-center gap-3">{end}</div>}
+        {end && <div className="ml-auto flex flex-wrap items-center gap-3 md:ml-0">{end}</div>}
       </div>
     </header>
   );

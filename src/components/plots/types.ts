@@ -37,6 +37,8 @@ export interface CompressorMapPlotProps {
   lines?: OperatingLineView[];
   /** 'corrected' (corrected mass flow) or 'volume' (inlet volume flow). */
   flowAxis?: 'corrected' | 'volume';
+  /** When given, the plot shows a switch between the two flow axes and reports the choice here. */
+  onFlowAxisChange?: (flowAxis: 'corrected' | 'volume') => void;
   unitSystem: UnitSystem;
   /** A point to ring, e.g. the one a clicked finding refers to. */
   highlight?: { lineKey: string; rpm: number } | null;
