@@ -28,6 +28,16 @@ export const paths = {
   learn: { path: '/learn', href: () => '/learn' },
   teams: { path: '/teams', href: () => '/teams' },
   team: { path: '/teams/:teamId', href: (teamId: string) => `/teams/${encodeURIComponent(teamId)}` },
+  /** A team's map library (its maps and the built-in demo maps). */
+  teamMaps: { path: '/teams/:teamId/maps', href: (teamId: string) => `/teams/${encodeURIComponent(teamId)}/maps` },
+  teamMap: {
+    path: '/teams/:teamId/maps/:mapId',
+    href: (teamId: string, mapId: string) => `/teams/${encodeURIComponent(teamId)}/maps/${encodeURIComponent(mapId)}`,
+  },
+  teamStudy: {
+    path: '/teams/:teamId/studies/:studyId',
+    href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}`,
+  },
   settings: { path: '/settings', href: () => '/settings' },
 
   admin: { path: '/admin', href: () => '/admin' },
