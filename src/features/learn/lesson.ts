@@ -1,0 +1,102 @@
+import type { CompressorMap } from '../../../shared/maps/types';
+import { pointWorking } from '../../../shared/matching/explain-point';
+import type { LineContext, OperatingPoint, SolvedPoint } from '../../../shared/matching/types';
+import type { WorkingStep } from '../../../shared/matching/working';
+import type { StudyDocument } from '../../../shared/schemas/study';
+import { runStudyDocument } from '../../../shared/study/run';
+import { LEARN_MAP_ID } from './api/get-demo-map';
+
+/** What the reader moves on the Learn page, SI. */
+export interface LessonInputs {
+  /** Engine speed, rpm. */
+  rpm: number;
+  /** Boost, Pa gauge. */
+  boost: number;
+  /** Altitude, m (ISA geopotential height). */
+  altitude: number;
+  /** Ambient temperature, K. */
+  ambientTemperature: number;
+}
+
+export const DEFAULT_LESSON: LessonInputs = { rpm: 5500, boost: 120_000, altitude: 0, ambientTemperature: 293.15 };
+
+/** The example engine, fixed so the reader watches the air, not the engine. */
+export const LESSON_ENGINE = {
+  /** m³ */
+  displacement: 0.002,
+  cylinders: 4,
+  strokes: 4 as const,
+  /** fraction, referred to manifold density */
+  volumetricEfficiency: 0.95,
+  /** Pa, filter and intake */
+  inletLoss: 2000,
+  /** Pa, intercooler and pipes */
+  chargeCoolerLoss: 10_000,
+  /** K above ambient the intercooler leaves the charge at */
+  intercoolerApproach: 15,
+  /** fraction, used only where the map gives none */
+  fallbackEfficiency: 0.7,
+};
+
+/** The one-point study the example runs through the same engine as every Study. */
+export function lessonDocument(inputs: LessonInputs, withMap: boolean): StudyDocument {
+  const e = LESSON_ENGINE;
+  return {
+    schemaVersion: 1,
+    engineLabel: '2.0 L four, Learn example',
+    notes: '',
+    engine: {
+      displacement: e.displacement,
+      cylinders: e.cylinders,
+      strokes: e.strokes,
+      rpm: { kind: 'list', values: [inputs.rpm] },
+      volumetricEfficiency: [{ rpm: inputs.rpm, value: e.volumetricEfficiency }],
+    },
+    fuelSystem: {
+      fuel: { kind: 'petrol' },
+      lambda: [{ rpm: inputs.rpm, value: 0.85 }],
+      injectors: { primary: { count: 4, ratedFlow: 1e-5, ratedPressure: 300_000 }, fuelPressure: 300_000, regulator: 'manifold-referenced' },
+    },
+    power: { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: 0.33, drivetrainLoss: 0.15 },
+    losses: { inlet: e.inletLoss, chargeCooler: e.chargeCoolerLoss, inletTemperatureRise: 0 },
+    intercooler: { kind: 'fixed', manifoldTemperature: inputs.ambientTemperature + e.intercoolerApproach },
+    scenarios: [
+      {
+        name: 'Your conditions',
+        ambient: { altitude: inputs.altitude, temperature: inputs.ambientTemperature },
+        boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: [{ rpm: inputs.rpm, value: inputs.boost }] }],
+      },
+      {
+        name: 'Standard day at sea level',
+        ambient: { altitude: 0 },
+        boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: [{ rpm: inputs.rpm, value: inputs.boost }] }],
+      },
+    ],
+    plans: [{ id: 'learn', name: 'Demo compressor', turbochargers: 1, compressorEfficiency: e.fallbackEfficiency, compressorMapId: withMap ? LEARN_MAP_ID : null }],
+  };
+}
+
+export interface Lesson {
+  context: LineContext;
+  point: OperatingPoint;
+  /** The same engine and boost on a standard day at sea level, for comparison. */
+  standardDay: OperatingPoint;
+  steps: WorkingStep[];
+}
+
+/** Runs the example and builds its Working. */
+export function runLesson(inputs: LessonInputs, map: CompressorMap | null): Lesson {
+  const result = runStudyDocument(lessonDocument(inputs, map !== null), map ? { [LEARN_MAP_ID]: map } : {});
+  const [yours, standard] = result.lines;
+  const point = yours.points[0];
+  return { context: yours.context, point, standardDay: standard.points[0], steps: pointWorking(yours.context, point) };
+}
+
+export function isSolved(point: OperatingPoint): point is SolvedPoint {
+  return point.solved;
+}
+
+/** The steps of the Working a section of the lesson shows, in the order given (missing ones skipped). */
+export function stepsById(steps: readonly WorkingStep[], ids: readonly string[]): WorkingStep[] {
+  return ids.flatMap((id) => steps.filter((s) => s.id === id));
+}
