@@ -7,6 +7,7 @@ import {
   duplicateStudySchema,
   restoreRevisionSchema,
   saveStudySchema,
+  STUDY_SCHEMA_VERSION,
   studyListQuerySchema,
   updateStudyMetaSchema,
 } from '../../shared/schemas/study';
@@ -61,8 +62,9 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     };
   }
 
-  /** Stored documents are valid when saved; an older version is brought up to date on read. */
+  /** Stored documents were valid when saved; only an older version needs bringing up to date on read. */
   function validDocumentOrRaw(raw: unknown) {
+    if ((raw as { schemaVersion?: unknown } | null)?.schemaVersion === STUDY_SCHEMA_VERSION) return raw;
     try {
       return validDocument(raw);
     } catch {
