@@ -67,6 +67,9 @@ export const routes = [
             children: [
               { path: paths.studies.path, element: <StudiesRoute /> },
               { path: paths.maps.path, element: <MapsRoute /> },
+              // The map pages load with their own code (the map reader, units and plots) on first use.
+              { path: paths.teamMaps.path, lazy: () => import('./routes/maps-library').then((m) => ({ Component: m.MapsLibraryRoute })) },
+              { path: paths.teamMap.path, lazy: () => import('./routes/maps-detail').then((m) => ({ Component: m.MapsDetailRoute })) },
               { path: paths.learn.path, element: <LearnRoute /> },
               { path: paths.teams.path, element: <TeamsRoute /> },
               { path: paths.team.path, element: <TeamRoute /> },

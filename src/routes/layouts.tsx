@@ -1,8 +1,10 @@
 import { Link, Outlet, ScrollRestoration } from 'react-router';
 import { BrandMark, BrandWord } from '../components/Brand';
 import { Nav, SkipLink, type NavItem } from '../components/Nav';
+import { TeamSwitcher } from '../components/TeamSwitcher';
 import { SignOutButton } from '../features/auth/components/SignOutButton';
 import { UnitSwitch } from '../features/auth/components/UnitSwitch';
+import { useCurrentTeamId } from '../lib/current-team';
 import { homeAfterSignIn, paths } from '../lib/paths';
 import { useMe } from '../lib/session';
 
@@ -27,14 +29,18 @@ export function RootLayout() {
 export function AppLayout() {
   const me = useMe();
   const user = me.data?.user;
+  // Maps opens straight in the current team's library.
+  const teamId = useCurrentTeamId();
+  const items = areas.map((item) => (teamId && item.to === paths.maps.href() ? { ...item, to: paths.teamMaps.href(teamId) } : item));
   return (
     <div className="flex min-h-screen flex-col">
       <SkipLink />
       <Nav
         homeHref={homeAfterSignIn}
-        items={user?.isAdmin ? [...areas, { to: paths.admin.href(), label: 'Admin' }] : areas}
+        items={user?.isAdmin ? [...items, { to: paths.admin.href(), label: 'Admin' }] : items}
         end={
           <>
+            <TeamSwitcher />
             <UnitSwitch />
             {user && <span className="hidden text-sm text-ink-soft lg:inline">{user.name}</span>}
             <Link to={paths.settings.href()} className="text-sm font-semibold">

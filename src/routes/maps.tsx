@@ -1,11 +1,16 @@
+import { Navigate } from 'react-router';
+import { Alert } from '../components/Alert';
 import { Page } from '../components/Page';
+import { useCurrentTeamId } from '../lib/current-team';
+import { paths } from '../lib/paths';
 
-/** The Maps area. Its feature fills the page body; the heading and the line stay. */
+/** `/maps`: the map library of the current team (the last one used, else the personal team). */
 export function MapsRoute() {
+  const teamId = useCurrentTeamId();
+  if (teamId) return <Navigate to={paths.teamMaps.href(teamId)} replace />;
   return (
-    <Page
-      title="Maps"
-      description="The map library: your team's compressor and turbine maps, beside the built-in demo maps."
-    />
+    <Page title="Maps">
+      <Alert tone="info">Maps belong to a team. Create a team or accept an invitation to one to start a map library.</Alert>
+    </Page>
   );
 }

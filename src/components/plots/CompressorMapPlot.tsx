@@ -1,0 +1,48 @@
+import { useMemo } from 'react';
+import { compressorMapFigure } from './compressor-map-figure';
+import { FlowAxisSwitch } from './FlowAxisSwitch';
+import { PlotFrame } from './PlotFrame';
+import type { CompressorMapPlotProps } from './types';
+
+const DEFAULT_HEIGHT = 520;
+
+function isLineClick(customdata: unknown): customdata is [string, number] {
+  return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
+}
+
+/**
+ * The compressor map (surge line, choke limit, speed lines, efficiency islands) with the
+ * operating lines of a study over it, in the user's units. plotly.js loads when this first shows.
+ */
+export function CompressorMapPlot({
+  map,
+  lines,
+  flowAxis = 'corrected',
+  onFlowAxisChange,
+  unitSystem,
+  highlight = null,
+  onPointClick,
+  height = DEFAULT_HEIGHT,
+  exportName,
+}: CompressorMapPlotProps) {
+  const figure = useMemo(
+    () => compressorMapFigure({ map, lines, flowAxis, unitSystem, highlight, height }),
+    [map, lines, flowAxis, unitSystem, highlight, height],
+  );
+  return (
+    <PlotFrame
+      figure={figure}
+      height={height}
+      label={map ? `Compressor map: ${map.name}` : 'Operating lines'}
+      exportName={exportName ?? map?.name}
+      controls={onFlowAxisChange ? <FlowAxisSwitch value={flowAxis} onChange={onFlowAxisChange} /> : undefined}
+      onPointClick={
+        onPointClick
+          ? (customdata) => {
+              if (isLineClick(customdata)) onPointClick(customdata[0], customdata[1]);
+            }
+          : undefined
+      }
+    />
+  );
+}

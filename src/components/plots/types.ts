@@ -1,0 +1,50 @@
+import type { CompressorMap } from '../../../shared/maps/types';
+import type { UnitSystem } from '../../../shared/schemas/account';
+
+/**
+ * The contract between the compressor-map plot and the screens that use it (map library preview,
+ * study page, Side by side, report). SI in; the plot converts to the user's units for axes and hover.
+ */
+export interface OperatingPointView {
+  /** Engine speed, rpm. */
+  rpm: number;
+  /** Corrected mass flow of one turbocharger at the map's reference, kg/s. */
+  correctedMassFlow: number;
+  /** Volume flow at the compressor inlet, m³/s (for the volume-flow axis). */
+  volumeFlow: number;
+  pressureRatio: number;
+  /** Every value of the point to show on hover: label → SI value and its quantity kind. */
+  hover: { label: string; value: number | null; kind: string }[];
+  /** The point raised a finding of this severity, if any. */
+  severity?: 'info' | 'warning' | 'limit' | null;
+}
+
+export interface OperatingLineView {
+  /** Stable key, e.g. `${planId}|${scenarioIndex}|${rowIndex}`. */
+  key: string;
+  /** Legend text, e.g. "M58 mid wheel · Sea level · Full load". */
+  label: string;
+  /** Index of the plan: chooses colour (Okabe–Ito palette) and marker shape. */
+  planIndex: number;
+  /** Index of the scenario: chooses line dash. */
+  scenarioIndex: number;
+  points: OperatingPointView[];
+}
+
+export interface CompressorMapPlotProps {
+  /** The map to draw; null draws the operating lines alone on plain axes. */
+  map: CompressorMap | null;
+  lines?: OperatingLineView[];
+  /** 'corrected' (corrected mass flow) or 'volume' (inlet volume flow). */
+  flowAxis?: 'corrected' | 'volume';
+  /** When given, the plot shows a switch between the two flow axes and reports the choice here. */
+  onFlowAxisChange?: (flowAxis: 'corrected' | 'volume') => void;
+  unitSystem: UnitSystem;
+  /** A point to ring, e.g. the one a clicked finding refers to. */
+  highlight?: { lineKey: string; rpm: number } | null;
+  /** Called when the user clicks an operating point. */
+  onPointClick?: (lineKey: string, rpm: number) => void;
+  height?: number;
+  /** Title used for exported PNG/SVG file names. */
+  exportName?: string;
+}

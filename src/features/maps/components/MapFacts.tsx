@@ -1,0 +1,18 @@
+import type { SpoolbookMap } from '../../../../shared/maps/types';
+import type { UnitSystem } from '../../../lib/units';
+import { mapFacts } from '../utils/map-facts';
+
+/** A map's facts as a definition list; `extra` rows (file name, who uploaded it) go after them. */
+export function MapFacts({ map, unitSystem, extra = [] }: { map: SpoolbookMap; unitSystem: UnitSystem; extra?: { term: string; value: string }[] }) {
+  const facts = [...mapFacts(map, unitSystem), ...extra];
+  return (
+    <dl className="grid grid-cols-1 gap-x-4 gap-y-2 text-sm sm:grid-cols-[max-content_1fr]">
+      {facts.map((fact) => (
+        <div key={fact.term} className="contents">
+          <dt className="font-semibold text-ink-soft">{fact.term}</dt>
+          <dd className="numeric text-ink">{fact.value}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}

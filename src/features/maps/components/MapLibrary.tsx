@@ -1,0 +1,88 @@
+import { useState } from 'react';
+import { Link } from 'react-router';
+import { Alert } from '../../../components/Alert';
+import { Badge } from '../../../components/Badge';
+import { Card } from '../../../components/Card';
+import { Loading, Page } from '../../../components/Page';
+import { isApiError } from '../../../lib/api-client';
+import { paths } from '../../../lib/paths';
+import { useUnitSystem } from '../../../lib/units';
+import { useMaps } from '../api/get-maps';
+import { useTeamAccess } from '../hooks/use-team-access';
+import { KindFilter, type KindChoice } from './KindFilter';
+import { MapTable } from './MapTable';
+import { MapUpload } from './MapUpload';
+
+/**
+ * A team's map library: its own maps, the built-in demo maps, and (for editors and owners) the
+ * upload. Viewers see no upload at all.
+ */
+export function MapLibrary({ teamId }: { teamId: string }) {
+  const maps = useMaps(teamId);
+  const { teamName, canEdit } = useTeamAccess(teamId);
+  const unitSystem = useUnitSystem();
+  const [kind, setKind] = useState<KindChoice>('all');
+
+  if (maps.isError) {
+    const missing = isApiError(maps.error) && (maps.error.status === 404 || maps.error.status === 403);
+    return (
+      <Page title={missing ? 'Map library not found' : 'Map library'}>
+        <Alert tone="error" title={missing ? 'This team does not exist, or you are not a member of it.' : 'Could not load the map library.'}>
+          {!missing && <p>{maps.error.message}</p>}
+          <p>
+            <Link to={paths.teams.href()}>Your teams</Link>
+          </p>
+        </Alert>
+      </Page>
+    );
+  }
+
+  const shown = (maps.data ?? []).filter((m) => kind === 'all' || m.kind === kind);
+  const own = shown.filter((m) => !m.builtin);
+  const demo = shown.filter((m) => m.builtin);
+  const kindWords = kind === 'all' ? 'maps' : `${kind} maps`;
+
+  return (
+    <Page
+      eyebrow={teamName ?? 'Team'}
+      title="Map library"
+      description="The team’s compressor and turbine maps, and built-in demo maps to try Spoolbook with. Open a map to see it drawn."
+    >
+      {canEdit && (
+        <Card title="Add a map">
+          <MapUpload teamId={teamId} unitSystem={unitSystem} />
+        </Card>
+      )}
+
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <KindFilter value={kind} onChange={setKind} />
+        {!canEdit && <p className="text-sm text-ink-soft">You can read this team’s maps; editors and owners add and change them.</p>}
+      </div>
+
+      <Card title={`${teamName ?? 'Team'} maps`} actions={maps.data ? <Badge>{own.length}</Badge> : undefined}>
+        {maps.isPending ? (
+          <Loading label="Loading the map library…" />
+        ) : own.length > 0 ? (
+          <MapTable teamId={teamId} maps={own} caption="The team's maps" showUpdated />
+        ) : (
+          <p className="text-sm text-ink-soft">
+            No {kindWords} of this team yet.{canEdit ? ' Add one above, or start from a demo map below.' : ''}
+          </p>
+        )}
+      </Card>
+
+      <Card title="Built-in demo maps" actions={<Badge tone="copper">Invented, for trying Spoolbook</Badge>}>
+        <p className="mb-3 text-sm text-ink-soft">
+          Made by Spoolbook from a simple physical model of a compressor or turbine. They describe no real product: do not choose hardware from them.
+        </p>
+        {maps.isPending ? (
+          <Loading label="Loading the demo maps…" />
+        ) : demo.length > 0 ? (
+          <MapTable teamId={teamId} maps={demo} caption="Built-in demo maps" showUpdated={false} />
+        ) : (
+          <p className="text-sm text-ink-soft">No demo {kindWords}.</p>
+        )}
+      </Card>
+    </Page>
+  );
+}

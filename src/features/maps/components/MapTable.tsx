@@ -1,0 +1,53 @@
+import { Link } from 'react-router';
+import { Table, td, th } from '../../../components/Table';
+import { formatNumber, krpmLabel } from '../../../components/plots/quantities';
+import { formatDateTime } from '../../../lib/format';
+import { paths } from '../../../lib/paths';
+import type { MapSummary } from '../api/schemas';
+import { mapKindNames } from '../utils/map-facts';
+
+/** The short line a map's row carries: its top speed line and rated speed, or its housing. */
+export function mapSummaryText(map: MapSummary): string {
+  const s = map.summary;
+  if (map.kind === 'compressor') {
+    const parts = [];
+    if (s.topSpeed !== null) parts.push(`top speed line ${krpmLabel(s.topSpeed)}`);
+    parts.push(s.maxSpeed !== null ? `rated ${krpmLabel(s.maxSpeed)}` : 'no rated speed given');
+    return parts.join(', ');
+  }
+  const housing = s.housing === 'divided' ? 'divided housing' : 'single-scroll housing';
+  return s.areaRatio !== null ? `${housing}, A/R ${formatNumber(s.areaRatio)}` : housing;
+}
+
+export function MapTable({ teamId, maps, caption, showUpdated }: { teamId: string; maps: readonly MapSummary[]; caption: string; showUpdated: boolean }) {
+  return (
+    <Table
+      caption={caption}
+      captionHidden
+      head={
+        <tr>
+          <th className={th}>Name</th>
+          <th className={th}>Kind</th>
+          <th className={th}>What it holds</th>
+          {showUpdated && <th className={th}>Last changed</th>}
+        </tr>
+      }
+    >
+      {maps.map((map) => (
+        <tr key={map.id}>
+          <td className={`${td} font-semibold`}>
+            <Link to={paths.teamMap.href(teamId, map.id)}>{map.name}</Link>
+          </td>
+          <td className={`${td} whitespace-nowrap text-ink-soft`}>{mapKindNames[map.kind]}</td>
+          <td className={`${td} text-ink-soft`}>{mapSummaryText(map)}</td>
+          {showUpdated && (
+            <td className={`${td} text-ink-soft`}>
+              {map.updatedAt ? <time dateTime={map.updatedAt}>{formatDateTime(map.updatedAt)}</time> : '—'}
+              {map.createdBy && <span className="block text-xs">uploaded by {map.createdBy}</span>}
+            </td>
+          )}
+        </tr>
+      ))}
+    </Table>
+  );
+}
