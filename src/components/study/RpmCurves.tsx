@@ -1,0 +1,79 @@
+import { useMemo, useState } from 'react';
+import type { UnitSystem } from '../../lib/units';
+import { PlotFrame } from '../plots/PlotFrame';
+import type { PointRef, StudyLine } from './lines';
+import { CURVE_VIEWS, rpmCurvesFigure } from './rpm-curves-figure';
+
+function isLineClick(customdata: unknown): customdata is [string, number] {
+  return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
+}
+
+/**
+ * Curves against engine speed, one quantity at a time (boost, pressure ratio, mass flow, power
+ * and torque at crank and wheels, injector duty, compressor outlet temperature): one line per
+ * plan × scenario × boost row, told apart like on the map (colour and marker by plan, dash by
+ * scenario). The selected point is ringed; clicking a point selects it.
+ */
+export function RpmCurves({
+  lines,
+  unitSystem,
+  highlight = null,
+  onPointClick,
+  height = 380,
+  outletTemperatureLimit = null,
+  exportName = 'curves',
+  initialView = 'boost',
+}: {
+  lines: readonly StudyLine[];
+  unitSystem: UnitSystem;
+  highlight?: PointRef | null;
+  onPointClick?: (point: PointRef) => void;
+  height?: number;
+  /** The engine's stated compressor outlet temperature limit, K (drawn as a red guide). */
+  outletTemperatureLimit?: number | null;
+  exportName?: string;
+  initialView?: string;
+}) {
+  const [viewId, setViewId] = useState(initialView);
+  const view = CURVE_VIEWS.find((v) => v.id === viewId) ?? CURVE_VIEWS[0];
+  const legendRows = Math.ceil(lines.length / 2);
+  const plotHeight = height + legendRows * 18;
+  const figure = useMemo(
+    () => rpmCurvesFigure({ lines, view, unitSystem, highlight, height: plotHeight, outletTemperatureLimit }),
+    [lines, view, unitSystem, highlight, plotHeight, outletTemperatureLimit],
+  );
+  return (
+    <div data-testid="rpm-curves">
+      <PlotFrame
+        figure={figure}
+        height={plotHeight}
+        label={`${view.label} against engine speed`}
+        exportName={`${exportName}-${view.id}`}
+        controls={
+          <div role="group" aria-label="Quantity plotted against rpm" className="flex flex-wrap gap-1">
+            {CURVE_VIEWS.map((v) => (
+              <button
+                key={v.id}
+                type="button"
+                aria-pressed={v.id === view.id}
+                onClick={() => setViewId(v.id)}
+                className={`rounded-md border px-2.5 py-1 text-sm font-semibold transition-colors ${
+                  v.id === view.id ? 'border-teal bg-teal-light/80 text-teal-dark' : 'border-ink/20 bg-white/70 text-ink-soft hover:border-teal hover:text-teal-dark'
+                }`}
+              >
+                {v.label}
+              </button>
+            ))}
+          </div>
+        }
+        onPointClick={
+          onPointClick
+            ? (customdata) => {
+                if (isLineClick(customdata)) onPointClick({ lineKey: customdata[0], rpm: customdata[1] });
+              }
+            : undefined
+        }
+      />
+    </div>
+  );
+}

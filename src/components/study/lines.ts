@@ -1,0 +1,88 @@
+import { worstSeverity } from '../../../shared/matching/findings';
+import type { OperatingLine, OperatingPoint, SolvedPoint, StudyResult } from '../../../shared/matching/types';
+import type { OperatingLineView, OperatingPointView } from '../plots/types';
+
+/** One operating line of a study with the key every view of the study uses for it. */
+export interface StudyLine {
+  /** `${planId}|${scenarioIndex}|${rowIndex}`: stable while the plan keeps its id. */
+  key: string;
+  /** "M58 mid wheel · Sea level, 20 °C · Full load". */
+  label: string;
+  planId: string;
+  planIndex: number;
+  scenarioIndex: number;
+  rowIndex: number;
+  line: OperatingLine;
+}
+
+/** A point of the study: its line's key and its engine speed, rpm. */
+export interface PointRef {
+  lineKey: string;
+  rpm: number;
+}
+
+export function lineKeyOf(planId: string, scenarioIndex: number, rowIndex: number): string {
+  return `${planId}|${scenarioIndex}|${rowIndex}`;
+}
+
+/** The lines of a result with their keys; `plans` are the document's plans (for their ids). */
+export function studyLines(result: StudyResult, plans: readonly { id: string }[]): StudyLine[] {
+  return result.lines.map((line) => {
+    const planId = plans[line.planIndex]?.id ?? `plan-${line.planIndex + 1}`;
+    return {
+      key: lineKeyOf(planId, line.scenarioIndex, line.rowIndex),
+      label: `${line.planName} · ${line.scenarioName} · ${line.rowLabel}`,
+      planId,
+      planIndex: line.planIndex,
+      scenarioIndex: line.scenarioIndex,
+      rowIndex: line.rowIndex,
+      line,
+    };
+  });
+}
+
+/** Engine speeds are compared with a tolerance: they come from sums of steps. */
+export function sameRpm(a: number, b: number): boolean {
+  return Math.abs(a - b) <= 1e-6 * Math.max(1, Math.abs(a));
+}
+
+/** The point a reference names, if the lines still have it. */
+export function findPoint(lines: readonly StudyLine[], ref: PointRef | null): { line: StudyLine; point: OperatingPoint } | null {
+  if (!ref) return null;
+  const line = lines.find((l) => l.key === ref.lineKey);
+  const point = line?.line.points.find((p) => sameRpm(p.rpm, ref.rpm));
+  return line && point ? { line, point } : null;
+}
+
+function pointView(point: SolvedPoint): OperatingPointView {
+  const v = point.values;
+  return {
+    rpm: v.rpm,
+    correctedMassFlow: v.correctedMassFlow,
+    volumeFlow: v.inletVolumeFlow,
+    pressureRatio: v.pressureRatio,
+    severity: worstSeverity(point.findings),
+    hover: [
+      { label: 'Engine speed', value: v.rpm, kind: 'speed' },
+      { label: 'Boost (gauge)', value: v.boost, kind: 'pressure' },
+      { label: 'Pressure ratio', value: v.pressureRatio, kind: 'ratio' },
+      { label: 'Corrected mass flow', value: v.correctedMassFlow, kind: 'massFlow' },
+      { label: 'Shaft speed', value: v.shaftSpeed, kind: 'speed' },
+      { label: 'Compressor efficiency', value: v.compressorEfficiency, kind: 'fraction' },
+      { label: 'Surge margin', value: v.surgeMargin, kind: 'fraction' },
+      { label: 'Compressor outlet temperature', value: v.compressorOutletTemperature, kind: 'temperature' },
+      { label: 'Crank power', value: v.brakePower, kind: 'power' },
+    ],
+  };
+}
+
+/** The lines as the compressor-map plot takes them (solved points only: an unsolved one has no place on a map). */
+export function mapLineViews(lines: readonly StudyLine[]): OperatingLineView[] {
+  return lines.map((l) => ({
+    key: l.key,
+    label: l.label,
+    planIndex: l.planIndex,
+    scenarioIndex: l.scenarioIndex,
+    points: l.line.points.filter((p): p is SolvedPoint => p.solved).map(pointView),
+  }));
+}
