@@ -38,6 +38,18 @@ export const paths = {
     path: '/teams/:teamId/studies/:studyId',
     href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}`,
   },
+  /** A team's study list. */
+  teamStudies: { path: '/teams/:teamId/studies', href: (teamId: string) => `/teams/${encodeURIComponent(teamId)}/studies` },
+  /** Side by side: plans and scenarios of one study on one map and in one table. */
+  teamStudyCompare: {
+    path: '/teams/:teamId/studies/:studyId/compare',
+    href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/compare`,
+  },
+  /** The printable report of one study. */
+  teamStudyReport: {
+    path: '/teams/:teamId/studies/:studyId/report',
+    href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/report`,
+  },
   settings: { path: '/settings', href: () => '/settings' },
 
   admin: { path: '/admin', href: () => '/admin' },
