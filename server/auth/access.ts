@@ -16,11 +16,14 @@ export type Permission =
   | 'members:remove'
   | 'team:leave'
   | 'content:read'
-  | 'content:write';
+  | 'content:write'
+  | 'audit:read'
+  | 'team:export'
+  | 'team:import';
 
 const viewer: Permission[] = ['team:read', 'members:list', 'team:leave', 'content:read'];
 const editor: Permission[] = [...viewer, 'content:write'];
-const owner: Permission[] = [...editor, 'team:rename', 'team:delete', 'members:invite', 'members:change-role', 'members:remove'];
+const owner: Permission[] = [...editor, 'team:rename', 'team:delete', 'members:invite', 'members:change-role', 'members:remove', 'audit:read', 'team:export', 'team:import'];
 
 export const rolePermissions: Record<Role, ReadonlySet<Permission>> = {
   viewer: new Set(viewer),

@@ -192,3 +192,24 @@ export const shareLinks = pgTable(
   },
   (t) => [uniqueIndex('share_links_token_unique').on(t.tokenHash), index('share_links_study_idx').on(t.studyId)],
 );
+
+/**
+ * Who did what and when (UTC), without secrets: sign-ins, role changes, invitations, share links,
+ * deletions, imports. Rows outlive the objects they name, so there are no foreign keys.
+ */
+export const auditEvents = pgTable(
+  'audit_events',
+  {
+    id: text('id').primaryKey(),
+    at: timestamp('at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    teamId: text('team_id'),
+    actorId: text('actor_id'),
+    actorEmail: text('actor_email'),
+    action: text('action').notNull(),
+    targetType: text('target_type'),
+    targetId: text('target_id'),
+    details: jsonb('details').$type<Record<string, unknown>>().notNull().default({}),
+    ip: text('ip'),
+  },
+  (t) => [index('audit_team_at_idx').on(t.teamId, t.at), index('audit_at_idx').on(t.at)],
+);

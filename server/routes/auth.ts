@@ -17,6 +17,7 @@ import { HttpError, parseOr400 } from '../http/errors';
 import { passwordResetMail } from '../mail/templates';
 import { consumeResetToken, createAccount, createResetToken, findUserByEmail, meOf, RESET_VALID_MINUTES } from '../services/accounts';
 import type { AppDeps } from '../app';
+import { audit } from '../services/audit';
 
 function limiter(limit: number, windowMs: number, what: string, skipSuccessfulRequests = false) {
   return rateLimit({
@@ -48,6 +49,7 @@ export function authRouter({ db, auth, config, mailer, logger }: AppDeps): Route
       });
     }
     const { userId } = await createAccount(db, input);
+    await audit(db, { action: 'auth.sign-up', actor: { id: userId, email: input.email }, req });
     await startSession(auth, res, userId);
     res.status(201).json(await meOf(db, userId));
   });
@@ -57,16 +59,19 @@ export function authRouter({ db, auth, config, mailer, logger }: AppDeps): Route
     const user = await findUserByEmail(db, input.email);
     const ok = user ? await verifyPassword(user.passwordHash, input.password) : (await burnVerifyTime(input.password), false);
     if (!user || !ok) {
+      await audit(db, { action: 'auth.sign-in-failed', actorEmail: input.email, details: { reason: user ? 'wrong password' : 'unknown e-mail' }, req });
       // One answer for an unknown e-mail and a wrong password (OWASP ASVS 5.0 6.3.8).
       throw new HttpError(401, 'invalid_credentials', 'The e-mail or the password is not right.');
     }
     if (res.locals.session) await auth.invalidateSession(res.locals.session.id);
     await startSession(auth, res, user.id);
+    await audit(db, { action: 'auth.sign-in', actor: user, req });
     res.json(await meOf(db, user.id));
   });
 
   router.post('/sign-out', async (_req, res) => {
     if (res.locals.session) await auth.invalidateSession(res.locals.session.id);
+    if (res.locals.user) await audit(db, { action: 'auth.sign-out', actor: res.locals.user, req: _req });
     res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
     res.status(204).end();
   });
@@ -96,12 +101,14 @@ export function authRouter({ db, auth, config, mailer, logger }: AppDeps): Route
     // A changed password ends every session of the user (OWASP ASVS 5.0 7.4.3); this one gets a new one.
     await auth.invalidateUserSessions(user.id);
     await startSession(auth, res, user.id);
+    await audit(db, { action: 'auth.password-changed', actor: user, details: { otherSessionsEnded: true }, req });
     res.json(await meOf(db, user.id));
   });
 
   router.post('/password-reset', resetLimit, async (req, res) => {
     const input = parseOr400(resetRequestSchema, req.body);
     const user = await findUserByEmail(db, input.email);
+    await audit(db, { action: 'auth.password-reset-requested', actorEmail: input.email, details: { knownAddress: Boolean(user) }, req });
     if (user) {
       const { token, tokenHash } = newToken();
       await createResetToken(db, user.id, tokenHash);
@@ -124,6 +131,7 @@ export function authRouter({ db, auth, config, mailer, logger }: AppDeps): Route
     }
     await db.update(users).set({ passwordHash: await hashPassword(input.password), passwordChangedAt: new Date() }).where(eq(users.id, userId));
     await auth.invalidateUserSessions(userId);
+    await audit(db, { action: 'auth.password-reset', actor: { id: userId, email: (await db.select({ email: users.email }).from(users).where(eq(users.id, userId)))[0].email }, details: { allSessionsEnded: true }, req });
     res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
     res.status(204).end();
   });

@@ -5,6 +5,7 @@ import { hashToken } from '../auth/tokens';
 import { invitations, teamMembers, teams, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import type { AppDeps } from '../app';
+import { audit } from '../services/audit';
 
 /** The invitee's side: read an invitation by the token in its link, and accept it. */
 export function invitationsRouter({ db }: AppDeps): Router {
@@ -50,6 +51,7 @@ export function invitationsRouter({ db }: AppDeps): Router {
         .returning({ id: invitations.id });
       if (used.length === 0) throw notFound('This invitation was used already.');
       await tx.insert(teamMembers).values({ teamId: inv.teamId, userId: user.id, role: inv.role }).onConflictDoNothing();
+      await audit(tx, { action: 'invitation.accepted', teamId: inv.teamId, actor: user, targetType: 'invitation', targetId: inv.id, details: { role: inv.role }, req });
     });
     const [member] = await db
       .select({ role: teamMembers.role })

@@ -13,6 +13,7 @@ import { HttpError, notFound, parseOr400 } from '../http/errors';
 import { builtinMap, builtinMaps, BUILTIN_PREFIX } from '../services/builtin-maps';
 import { studiesUsingMap } from '../services/map-usage';
 import type { AppDeps } from '../app';
+import { audit } from '../services/audit';
 
 const upload = multer({
   storage: multer.memoryStorage(),
@@ -145,6 +146,7 @@ export function mapsRouter({ db }: AppDeps): Router {
         createdBy: user.id,
       })
       .returning();
+    await audit(db, { action: 'map.uploaded', teamId: access.teamId, actor: user, targetType: 'map', targetId: id, details: { name: map.name, kind: map.kind }, req });
     res.status(201).json({ map: detail(row, user.name), notes: result.notes });
   });
 
@@ -206,7 +208,10 @@ export function mapsRouter({ db }: AppDeps): Router {
     if (using.length > 0) {
       throw new HttpError(409, 'map_in_use', `This map is used by ${using.length} ${using.length === 1 ? 'study' : 'studies'}; change their plans first.`, { studies: using });
     }
-    await db.delete(maps).where(eq(maps.id, row.id));
+    await db.transaction(async (tx) => {
+      await tx.delete(maps).where(eq(maps.id, row.id));
+      await audit(tx, { action: 'map.deleted', teamId: access.teamId, actor: user, targetType: 'map', targetId: row.id, details: { name: row.name, kind: row.kind }, req });
+    });
     res.status(204).end();
   });
 

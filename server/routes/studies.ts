@@ -18,6 +18,7 @@ import { shareLinks, studies, studyRevisions, users } from '../db/schema';
 import { HttpError, notFound, parseOr400 } from '../http/errors';
 import { assertMapsUsable, demoStudyDocument, mapsOfStudy, resultsCsv, studyAuthors, validDocument } from '../services/studies';
 import type { AppDeps } from '../app';
+import { audit } from '../services/audit';
 
 const creator = alias(users, 'creator');
 const updater = alias(users, 'updater');
@@ -183,10 +184,14 @@ export function studiesRouter({ db, config }: AppDeps): Router {
   router.delete('/:studyId', async (req, res) => {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, teamIdOf(req.params), 'content:write');
-    const rows = await db
-      .delete(studies)
-      .where(and(eq(studies.id, studyIdOf(req.params)), eq(studies.teamId, access.teamId)))
-      .returning({ id: studies.id });
+    const rows = await db.transaction(async (tx) => {
+      const deleted = await tx
+        .delete(studies)
+        .where(and(eq(studies.id, studyIdOf(req.params)), eq(studies.teamId, access.teamId)))
+        .returning({ id: studies.id, title: studies.title });
+      if (deleted.length) await audit(tx, { action: 'study.deleted', teamId: access.teamId, actor: user, targetType: 'study', targetId: deleted[0].id, details: { title: deleted[0].title }, req });
+      return deleted;
+    });
     if (rows.length === 0) throw notFound('No such study in this team.');
     res.status(204).end();
   });
@@ -285,6 +290,7 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const id = newId();
     const expiresAt = input.expiresInDays ? new Date(Date.now() + input.expiresInDays * 86_400_000) : null;
     const [row] = await db.insert(shareLinks).values({ id, studyId: studyIdOf(req.params), tokenHash, createdBy: user.id, expiresAt }).returning();
+    await audit(db, { action: 'share-link.created', teamId: access.teamId, actor: user, targetType: 'share-link', targetId: id, details: { studyId: studyIdOf(req.params), expiresAt: expiresAt?.toISOString() ?? null }, req });
     res.status(201).json({
       shareLink: {
         id,
@@ -307,6 +313,7 @@ export function studiesRouter({ db, config }: AppDeps): Router {
       .where(and(eq(shareLinks.id, (req.params as { linkId: string }).linkId), eq(shareLinks.studyId, studyIdOf(req.params)), isNull(shareLinks.revokedAt)))
       .returning({ id: shareLinks.id });
     if (rows.length === 0) throw notFound('No such active share link.');
+    await audit(db, { action: 'share-link.revoked', teamId: access.teamId, actor: user, targetType: 'share-link', targetId: rows[0].id, details: { studyId: studyIdOf(req.params) }, req });
     res.status(204).end();
   });
 

@@ -10,6 +10,7 @@ import { invitationMail } from '../mail/templates';
 import { teamsOf } from '../services/accounts';
 import { assertOwnerRemains, INVITATION_VALID_DAYS, membersOf, pendingInvitationsOf } from '../services/teams';
 import type { AppDeps } from '../app';
+import { audit } from '../services/audit';
 
 export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
   const router = Router();
@@ -40,6 +41,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
     await db.transaction(async (tx) => {
       await tx.insert(teams).values({ id, name: input.name, personal: false });
       await tx.insert(teamMembers).values({ teamId: id, userId: user.id, role: 'owner' });
+      await audit(tx, { action: 'team.created', teamId: id, actor: user, targetType: 'team', targetId: id, details: { name: input.name }, req });
     });
     res.status(201).json({ team: { id, name: input.name, personal: false, role: 'owner' } });
   });
@@ -60,6 +62,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, req.params.teamId, 'team:rename');
     const input = parseOr400(renameTeamSchema, req.body);
     await db.update(teams).set({ name: input.name }).where(eq(teams.id, access.teamId));
+    await audit(db, { action: 'team.renamed', teamId: access.teamId, actor: user, targetType: 'team', targetId: access.teamId, details: { from: access.teamName, to: input.name }, req });
     res.json({ team: { id: access.teamId, name: input.name, personal: access.personal, role: access.role } });
   });
 
@@ -67,7 +70,10 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, req.params.teamId, 'team:delete');
     if (access.personal) throw new HttpError(400, 'personal_team', 'A personal team cannot be deleted.');
-    await db.delete(teams).where(eq(teams.id, access.teamId));
+    await db.transaction(async (tx) => {
+      await tx.delete(teams).where(eq(teams.id, access.teamId));
+      await audit(tx, { action: 'team.deleted', teamId: access.teamId, actor: user, targetType: 'team', targetId: access.teamId, details: { name: access.teamName }, req });
+    });
     res.status(204).end();
   });
 
@@ -84,6 +90,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
     await db.transaction(async (tx) => {
       await assertOwnerRemains(tx, access.teamId, req.params.userId, input.role);
       await tx.update(teamMembers).set({ role: input.role }).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, req.params.userId)));
+      await audit(tx, { action: 'member.role-changed', teamId: access.teamId, actor: user, targetType: 'user', targetId: req.params.userId, details: { role: input.role }, req });
     });
     const member = (await membersOf(db, access.teamId)).find((m) => m.userId === req.params.userId);
     res.json({ member });
@@ -95,6 +102,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
     await db.transaction(async (tx) => {
       await assertOwnerRemains(tx, access.teamId, req.params.userId, null);
       await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, req.params.userId)));
+      await audit(tx, { action: 'member.removed', teamId: access.teamId, actor: user, targetType: 'user', targetId: req.params.userId, req });
     });
     res.status(204).end();
   });
@@ -106,6 +114,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
     await db.transaction(async (tx) => {
       await assertOwnerRemains(tx, access.teamId, user.id, null);
       await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, user.id)));
+      await audit(tx, { action: 'member.left', teamId: access.teamId, actor: user, targetType: 'user', targetId: user.id, req });
     });
     res.status(204).end();
   });
@@ -144,6 +153,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
       invitedBy: user.id,
       expiresAt: new Date(Date.now() + INVITATION_VALID_DAYS * 86_400_000),
     });
+    await audit(db, { action: 'invitation.created', teamId: access.teamId, actor: user, targetType: 'invitation', targetId: id, details: { email: input.email, role: input.role }, req });
     await sendInvitation(input.email, token, access.teamName, user.name, input.role);
     const invitation = (await pendingInvitationsOf(db, access.teamId)).find((i) => i.id === id);
     res.status(201).json({ invitation });
@@ -160,6 +170,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
       .returning();
     const row = rows[0];
     if (!row) throw notFound('No such pending invitation.');
+    await audit(db, { action: 'invitation.resent', teamId: access.teamId, actor: user, targetType: 'invitation', targetId: row.id, details: { email: row.email, role: row.role }, req });
     await sendInvitation(row.email, token, access.teamName, user.name, row.role);
     const invitation = (await pendingInvitationsOf(db, access.teamId)).find((i) => i.id === row.id);
     res.json({ invitation });
@@ -174,6 +185,7 @@ export function teamsRouter({ db, config, mailer, logger }: AppDeps): Router {
       .where(and(eq(invitations.id, req.params.invitationId), eq(invitations.teamId, access.teamId), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt)))
       .returning({ id: invitations.id });
     if (rows.length === 0) throw notFound('No such pending invitation.');
+    await audit(db, { action: 'invitation.cancelled', teamId: access.teamId, actor: user, targetType: 'invitation', targetId: req.params.invitationId, req });
     res.status(204).end();
   });
 
