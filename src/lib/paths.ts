@@ -50,6 +50,10 @@ export const paths = {
     path: '/teams/:teamId/studies/:studyId/report',
     href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/report`,
   },
+  /** A study opened through a share link (signed out, read-only). */
+  share: { path: '/share/:token', href: (token: string) => `/share/${encodeURIComponent(token)}` },
+  /** The printable report of a shared study. */
+  shareReport: { path: '/share/:token/report', href: (token: string) => `/share/${encodeURIComponent(token)}/report` },
   settings: { path: '/settings', href: () => '/settings' },
 
   admin: { path: '/admin', href: () => '/admin' },
