@@ -14,6 +14,7 @@ import { errorHandler, notFoundHandler } from './http/errors';
 import { requireSameOrigin } from './http/origin';
 import type { Mailer } from './mail/mailer';
 import { adminRouter } from './routes/admin';
+import { archiveRouter } from './routes/archive';
 import { adminAuditRouter, teamAuditRouter } from './routes/audit';
 import { authRouter } from './routes/auth';
 import { computeRouter } from './routes/compute';
@@ -99,6 +100,7 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   api.use('/teams/:teamId/studies', studiesRouter(deps));
   api.use('/share', shareRouter(deps));
   api.use('/teams/:teamId/audit', teamAuditRouter(deps));
+  api.use('/teams/:teamId/archive', archiveRouter(deps));
   api.use('/admin/audit', adminAuditRouter(deps));
   api.use('/teams', teamsRouter(deps));
   api.use('/invitations', invitationsRouter(deps));
