@@ -1,5 +1,7 @@
 import { sql } from 'drizzle-orm';
-import { boolean, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { boolean, customType, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
 const createdAt = () => timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow();
 
@@ -212,4 +214,49 @@ export const auditEvents = pgTable(
     ip: text('ip'),
   },
   (t) => [index('audit_team_at_idx').on(t.teamId, t.at), index('audit_at_idx').on(t.at)],
+);
+
+/**
+ * Pictures of maps for the Tracer, checked by their bytes (PNG or JPEG) and stored here; served
+ * only with the content type found by that check and a generated name.
+ */
+export const mapImages = pgTable(
+  'map_images',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    /** The map traced from this picture, once saved. */
+    mapId: text('map_id').references(() => maps.id, { onDelete: 'set null' }),
+    contentType: text('content_type', { enum: ['image/png', 'image/jpeg'] }).notNull(),
+    bytes: bytea('bytes').notNull(),
+    byteSize: integer('byte_size').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('map_images_team_idx').on(t.teamId), index('map_images_map_idx').on(t.mapId)],
+);
+
+/** A trace in progress: calibration, curves and points, saved as the user works. */
+export const traceDrafts = pgTable(
+  'trace_drafts',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    imageId: text('image_id')
+      .notNull()
+      .references(() => mapImages.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    state: jsonb('state').notNull(),
+    revision: integer('revision').notNull().default(1),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [index('trace_drafts_team_idx').on(t.teamId, t.updatedAt)],
 );
