@@ -12,7 +12,6 @@ import { RequireAdmin, RequireSignedIn, RequireSignedOut } from './routes/guards
 import { HomeRoute } from './routes/home';
 import { InvitationRoute } from './routes/invitation';
 import { AppLayout, PublicLayout, RootLayout, SessionLayout } from './routes/layouts';
-import { LearnRoute } from './routes/learn';
 import { MapsRoute } from './routes/maps';
 import { NotFoundRoute } from './routes/not-found';
 import { ResetPasswordRoute } from './routes/reset-password';
@@ -62,6 +61,7 @@ export const routes = [
       {
         element: <RequireSignedIn />,
         children: [
+          { path: paths.teamStudyReport.path, lazy: () => import('./routes/report').then((m) => ({ Component: m.ReportRoute })) },
           {
             element: <AppLayout />,
             children: [
@@ -70,7 +70,8 @@ export const routes = [
               // The map pages load with their own code (the map reader, units and plots) on first use.
               { path: paths.teamMaps.path, lazy: () => import('./routes/maps-library').then((m) => ({ Component: m.MapsLibraryRoute })) },
               { path: paths.teamMap.path, lazy: () => import('./routes/maps-detail').then((m) => ({ Component: m.MapsDetailRoute })) },
-              { path: paths.learn.path, element: <LearnRoute /> },
+              { path: paths.learn.path, lazy: () => import('./routes/learn').then((m) => ({ Component: m.LearnRoute })) },
+              { path: paths.teamStudyCompare.path, lazy: () => import('./routes/compare').then((m) => ({ Component: m.CompareRoute })) },
               { path: paths.teams.path, element: <TeamsRoute /> },
               { path: paths.team.path, element: <TeamRoute /> },
               { path: paths.settings.path, element: <SettingsRoute /> },
@@ -93,6 +94,8 @@ export const routes = [
           },
         ],
       },
+      { path: paths.share.path, lazy: () => import('./routes/share').then((m) => ({ Component: m.ShareRoute })) },
+      { path: paths.shareReport.path, lazy: () => import('./routes/share-report').then((m) => ({ Component: m.ShareReportRoute })) },
       {
         element: <SessionLayout />,
         children: [{ path: '*', element: <NotFoundRoute /> }],

@@ -1,0 +1,170 @@
+import { useMemo, useState } from 'react';
+import type { CompressorMap, SpoolbookMap } from '../../../../shared/maps/types';
+import type { StudyDocument } from '../../../../shared/schemas/study';
+import { compareLines } from '../../../../shared/study/compare';
+import { Alert } from '../../../components/Alert';
+import { Card } from '../../../components/Card';
+import { FlowAxisSwitch } from '../../../components/plots/FlowAxisSwitch';
+import { PlotFrame } from '../../../components/plots/PlotFrame';
+import { formatQuantity } from '../../../components/plots/quantities';
+import { planColour } from '../../../components/plots/style';
+import { mapLineViews, studyLines } from '../../../components/study/lines';
+import { runStudyLive } from '../../../components/study/run';
+import { StudyCaution } from '../../../components/study/StudyCaution';
+import type { UnitSystem } from '../../../lib/units';
+import { compareFigure, type OverlaidMap } from '../compare-figure';
+import { allCombinations, MIN_COMBINATIONS, toggleCombination } from '../selection';
+import { CombinationMark, type ChosenLine } from './CombinationMark';
+import { CombinationPicker } from './CombinationPicker';
+import { DifferencesTable } from './DifferencesTable';
+
+const MAP_HEIGHT = 520;
+
+function compressorMap(map: SpoolbookMap | undefined): CompressorMap | null {
+  return map && map.kind === 'compressor' ? map : null;
+}
+
+/**
+ * Side by side: two to four plan × scenario × boost row combinations of one study on one
+ * compressor map (each its own colour, marker and dash) and in one table of differences.
+ */
+export function CompareView({
+  document,
+  mapsById,
+  mapNames,
+  selection,
+  onSelectionChange,
+  system,
+}: {
+  document: StudyDocument;
+  mapsById: Record<string, SpoolbookMap | undefined>;
+  mapNames: Record<string, string>;
+  selection: readonly string[];
+  onSelectionChange: (keys: string[]) => void;
+  system: UnitSystem;
+}) {
+  const lines = useMemo(() => studyLines(runStudyLive(document, mapsById), document.plans), [document, mapsById]);
+  const combinations = useMemo(() => allCombinations(document), [document]);
+  const chosenLines = useMemo(() => selection.flatMap((key) => lines.filter((l) => l.key === key)), [selection, lines]);
+  const chosen: ChosenLine[] = chosenLines.map((l, index) => {
+    const c = combinations.find((x) => x.key === l.key);
+    return { key: l.key, index, planName: l.line.planName, scenarioName: c?.scenarioName ?? l.line.scenarioName, rowLabel: c?.rowLabel ?? l.line.rowLabel };
+  });
+  const rows = useMemo(() => compareLines(chosenLines.map((l) => l.line)), [chosenLines]);
+
+  // The maps the chosen lines were read from, in the order of the lines.
+  const usedMaps = useMemo(() => {
+    const out: { mapId: string; map: CompressorMap; name: string; firstIndex: number }[] = [];
+    chosenLines.forEach((l, i) => {
+      const mapId = document.plans[l.planIndex]?.compressorMapId;
+      const map = mapId ? compressorMap(mapsById[mapId]) : null;
+      if (mapId && map && !out.some((m) => m.mapId === mapId)) out.push({ mapId, map, name: mapNames[mapId] ?? map.name, firstIndex: i });
+    });
+    return out;
+  }, [chosenLines, document, mapsById, mapNames]);
+
+  const [drawnChoice, setDrawnChoice] = useState<string | null>(null);
+  const [showOtherEdges, setShowOtherEdges] = useState(true);
+  const [flowAxis, setFlowAxis] = useState<'corrected' | 'volume'>('corrected');
+  const drawn = usedMaps.find((m) => m.mapId === drawnChoice) ?? usedMaps[0] ?? null;
+  const overlays: OverlaidMap[] = useMemo(
+    () => (showOtherEdges ? usedMaps.filter((m) => m !== drawn).map((m) => ({ map: m.map, name: m.name, colour: planColour(m.firstIndex) })) : []),
+    [showOtherEdges, usedMaps, drawn],
+  );
+
+  // Each chosen line gets its own colour, marker and dash: its place in the comparison picks them.
+  const views = useMemo(
+    () => mapLineViews(chosenLines).map((v, index) => ({ ...v, planIndex: index, scenarioIndex: index })),
+    [chosenLines],
+  );
+  const figure = useMemo(
+    () => compareFigure({ map: drawn?.map ?? null, overlays, lines: views, flowAxis, unitSystem: system, height: MAP_HEIGHT }),
+    [drawn, overlays, views, flowAxis, system],
+  );
+
+  const references = usedMaps.map((m) => `${m.name}: ${formatQuantity(m.map.reference.temperature, 'temperature', system)}, ${formatQuantity(m.map.reference.pressure, 'pressure', system)}`);
+  const referencesDiffer = new Set(usedMaps.map((m) => `${m.map.reference.temperature}|${m.map.reference.pressure}`)).size > 1;
+  const noMapPlans = [...new Set(chosenLines.filter((l) => !compressorMap(mapsById[document.plans[l.planIndex]?.compressorMapId ?? ''])).map((l) => l.line.planName))];
+
+  return (
+    <div className="space-y-6">
+      <StudyCaution />
+      <Card title="What to compare">
+        <CombinationPicker document={document} selected={selection} onToggle={(key) => onSelectionChange(toggleCombination(selection, key))} />
+      </Card>
+
+      {chosenLines.length < MIN_COMBINATIONS ? (
+        <Alert tone="info" title="Choose one more">
+          Side by side needs at least two combinations. Tick another cell above.
+        </Alert>
+      ) : (
+        <>
+          <Card title="On the map">
+            <div className="space-y-3">
+              <div className="flex flex-wrap items-center gap-x-6 gap-y-2 text-sm">
+                {usedMaps.length > 1 && (
+                  <label className="flex items-center gap-2">
+                    <span className="font-semibold text-ink">Map drawn</span>
+                    <select
+                      value={drawn?.mapId ?? ''}
+                      onChange={(e) => setDrawnChoice(e.target.value)}
+                      className="rounded-md border border-ink/25 bg-white px-2 py-1 text-sm"
+                    >
+                      {usedMaps.map((m) => (
+                        <option key={m.mapId} value={m.mapId}>
+                          {m.name}
+                        </option>
+                      ))}
+                    </select>
+                  </label>
+                )}
+                {usedMaps.length > 1 && (
+                  <label className="flex items-center gap-2">
+                    <input type="checkbox" className="size-4 accent-teal" checked={showOtherEdges} onChange={(e) => setShowOtherEdges(e.target.checked)} />
+                    <span>Also draw the surge and choke lines of the other maps</span>
+                  </label>
+                )}
+              </div>
+              <ul className="flex flex-wrap gap-x-5 gap-y-1 text-sm" aria-label="Lines on the map">
+                {chosen.map((c) => (
+                  <li key={c.key} className="flex items-center gap-1.5">
+                    <CombinationMark index={c.index} />
+                    <span>
+                      {c.planName} · {c.scenarioName} · {c.rowLabel}
+                    </span>
+                  </li>
+                ))}
+              </ul>
+              <PlotFrame
+                figure={figure}
+                height={MAP_HEIGHT}
+                label={drawn ? `Compressor map ${drawn.name} with the chosen operating lines` : 'The chosen operating lines'}
+                exportName={`side-by-side${drawn ? `-${drawn.name}` : ''}`}
+                controls={<FlowAxisSwitch value={flowAxis} onChange={setFlowAxis} />}
+              />
+              <p className="text-xs text-ink-soft">
+                {drawn
+                  ? usedMaps.length > 1
+                    ? `The chosen lines use ${usedMaps.length} maps. ${drawn.name} is drawn in full${overlays.length ? '; the other maps’ surge lines are dotted and choke limits dash-dotted, in the colour of their first line' : ''}. Judge each line against its own map’s edges.`
+                    : `All chosen lines are on ${drawn.name}.`
+                  : 'No chosen line has a compressor map: the lines are drawn on plain axes.'}{' '}
+                {referencesDiffer && `Corrected flow is measured against each map’s own reference (${references.join('; ')}), so positions across maps compare only roughly.`}
+                {noMapPlans.length > 0 && ` ${noMapPlans.join(', ')} ${noMapPlans.length === 1 ? 'has' : 'have'} no map: no margins or shaft speed.`}
+              </p>
+            </div>
+          </Card>
+
+          <Card title="Differences">
+            <div className="space-y-3">
+              <p className="text-sm text-ink-soft">
+                Margins are the smallest over the line, the rest the largest (peaks), each with the engine speed it occurs at. The best value of each
+                row is marked; “Best is” says what best means there. Findings are counted at every point of the line.
+              </p>
+              <DifferencesTable rows={rows} chosen={chosen} system={system} />
+            </div>
+          </Card>
+        </>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,71 @@
+import type { StudyDocument } from '../../../../shared/schemas/study';
+import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT } from '../../../../shared/physics';
+import { formatNumber } from '../../../components/plots/quantities';
+import { formatStudyValue } from '../../../components/study/units';
+import type { UnitSystem } from '../../../lib/units';
+import type { MapGroup } from '../study-view';
+
+/**
+ * What the numbers rest on, in plain words: the model, the atmosphere, where each plan's
+ * compressor efficiency comes from and the reference its corrected flow is measured against.
+ */
+export function Assumptions({ document, groups, system }: { document: StudyDocument; groups: readonly MapGroup[]; system: UnitSystem }) {
+  const ic = document.intercooler;
+  const power = document.power;
+  return (
+    <div className="space-y-3 text-sm text-ink">
+      <ul className="list-disc space-y-1.5 pl-5">
+        <li>
+          <strong>Quasi-steady model.</strong> Each engine speed is worked out on its own, as if the engine were held there at the boost
+          target. Spool-up, transients and pulsation are not modelled.
+        </li>
+        <li>
+          <strong>Atmosphere.</strong> Where a scenario gives an altitude, pressure follows the International Standard Atmosphere
+          (ISO 2533 / ICAO Doc 7488, troposphere), with the altitude taken as geopotential height. Air is an ideal gas with R ={' '}
+          {formatNumber(AIR_GAS_CONSTANT, 8)} J/(kg·K), γ = {AIR_GAMMA} and c<sub>p</sub> = {formatNumber(AIR_CP, 5)} J/(kg·K).
+        </li>
+        <li>
+          <strong>Pressures.</strong> Boost is gauge (above the outside air); every other pressure is absolute. Static pressures stand
+          in for total pressures: the air is slow in the pipes.
+        </li>
+        <li>
+          <strong>Engine air flow.</strong> Volumetric efficiency is referred to the density in the intake manifold (Heywood, 1988,
+          §2.10).
+        </li>
+        <li>
+          <strong>Manifold temperature.</strong>{' '}
+          {ic.kind === 'fixed'
+            ? `Stated as ${formatStudyValue(ic.manifoldTemperature, 'temperature', system)} at every point.`
+            : `From the intercooler's effectiveness (${formatStudyValue(ic.effectiveness, 'fraction', system)}); because the compressor outlet temperature depends on where the point lands on the map, the two are solved together by repeated passes.`}
+        </li>
+        <li>
+          <strong>Compressor efficiency.</strong> Read from each plan’s map where the point lands on it; where it does not (or a plan has
+          no map) the plan’s stated efficiency is used, and the findings say so.
+        </li>
+        <li>
+          <strong>Power.</strong>{' '}
+          {power.basis === 'bsfc'
+            ? `From the air that can burn, with a brake specific fuel consumption of ${formatStudyValue(power.bsfc, 'bsfc', system)}`
+            : `From the air that can burn, with a brake thermal efficiency of ${formatStudyValue(power.brakeThermalEfficiency, 'fraction', system)}`}
+          ; wheel power is crank power less a drivetrain loss of {formatStudyValue(power.drivetrainLoss, 'fraction', system)}.
+        </li>
+        <li>
+          <strong>Injectors.</strong> Flow scales with the square root of the pressure difference across them. Duty above 80 % is a
+          warning and above 85 % a limit (common practice, no published source).
+        </li>
+      </ul>
+      <div>
+        <p className="font-semibold">Reference of corrected flow, by map</p>
+        <ul className="list-disc space-y-1 pl-5">
+          {groups.map((g) => (
+            <li key={g.key}>
+              {g.map
+                ? `${g.title} (${g.planNames.join(', ')}): ${formatStudyValue(g.map.reference.temperature, 'temperature', system)} and ${formatStudyValue(g.map.reference.pressure, 'pressure', system)} absolute.`
+                : `${g.planNames.join(', ')}: no map, so corrected flow refers to ISA sea level (15 °C, 101.325 kPa) unless the plan states its own reference.`}
+            </li>
+          ))}
+        </ul>
+      </div>
+    </div>
+  );
+}

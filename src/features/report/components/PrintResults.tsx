@@ -1,0 +1,84 @@
+import { RESULT_COLUMNS, type ResultColumn } from '../../../../shared/matching/results-table';
+import { formatNumber } from '../../../components/plots/quantities';
+import { planColour } from '../../../components/plots/style';
+import type { StudyLine } from '../../../components/study/lines';
+import { cellValue, columnUnit, resultTableRows } from '../../../components/study/result-rows';
+import type { UnitSystem } from '../../../lib/units';
+
+/** Result columns per printed table: the rest go into the next table under it, rpm repeated. */
+export const COLUMNS_PER_PRINTED_TABLE = 9;
+
+/** The result columns after engine speed, split into blocks that fit across a portrait page. */
+export function columnBlocks(columns: readonly ResultColumn[] = RESULT_COLUMNS, size = COLUMNS_PER_PRINTED_TABLE): ResultColumn[][] {
+  const rest = columns.filter((c) => c.key !== 'rpm');
+  const out: ResultColumn[][] = [];
+  for (let i = 0; i < rest.length; i += size) out.push(rest.slice(i, i + size));
+  return out;
+}
+
+function cellText(v: number | null, column: ResultColumn): string {
+  if (v === null) return '—';
+  return column.kind === 'speed' ? formatNumber(Math.round(v), 21) : formatNumber(v, 4);
+}
+
+/**
+ * Every point of every operating line as static tables for paper: one heading per line, its
+ * columns split across as many tables as it takes, engine speed first in each.
+ */
+export function PrintResults({ lines, system }: { lines: readonly StudyLine[]; system: UnitSystem }) {
+  const blocks = columnBlocks();
+  const rpmColumn = RESULT_COLUMNS.find((c) => c.key === 'rpm')!;
+  return (
+    <div className="space-y-6">
+      {lines.map((line) => {
+        const rows = resultTableRows([line]);
+        return (
+          <section key={line.key} className="report-line space-y-2" aria-label={`Results: ${line.label}`}>
+            <h3 className="flex items-center gap-2 text-sm font-semibold text-ink">
+              <span aria-hidden="true" className="inline-block size-2.5 rounded-full" style={{ background: planColour(line.planIndex) }} />
+              {line.label}
+            </h3>
+            {blocks.map((block, b) => (
+              <div key={b} className="overflow-x-auto">
+                <table className="report-results w-full border-collapse text-xs">
+                  <caption className="sr-only">
+                    {line.label}, columns {b + 1} of {blocks.length}
+                  </caption>
+                  <thead>
+                    <tr className="border-b-2 border-ink/25 align-bottom">
+                      <th scope="col" className="px-1.5 py-1 text-left font-semibold">
+                        {rpmColumn.label}
+                        <span className="block font-normal text-ink-soft">rpm</span>
+                      </th>
+                      {block.map((c) => (
+                        <th key={c.key} scope="col" className="px-1.5 py-1 text-right font-semibold">
+                          {c.label}
+                          <span className="block font-normal text-ink-soft">{columnUnit(c, system)}</span>
+                        </th>
+                      ))}
+                    </tr>
+                  </thead>
+                  <tbody className="divide-y divide-paper-line">
+                    {rows.map((r) => (
+                      <tr key={r.id}>
+                        <th scope="row" className="numeric px-1.5 py-0.5 text-left font-medium">
+                          {formatNumber(r.rpm, 21)}
+                          {r.severity === 'limit' && <span className="ml-1 font-bold text-limit" title="A limit is crossed at this point">!</span>}
+                        </th>
+                        {block.map((c) => (
+                          <td key={c.key} className="numeric px-1.5 py-0.5 text-right">
+                            {cellText(cellValue(r, c, system), c)}
+                          </td>
+                        ))}
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+              </div>
+            ))}
+          </section>
+        );
+      })}
+    </div>
+  );
+}

@@ -1,0 +1,115 @@
+import { useMemo, useState } from 'react';
+import { Card } from '../../../components/Card';
+import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
+import { planColour } from '../../../components/plots/style';
+import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
+import { findPoint, mapLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
+import { ResultsTable } from '../../../components/study/ResultsTable';
+import { RpmCurves } from '../../../components/study/RpmCurves';
+import { StudyCaution } from '../../../components/study/StudyCaution';
+import { WorkingPanel } from '../../../components/study/WorkingPanel';
+import type { UnitSystem } from '../../../lib/units';
+import { useComputedStudy, type MapGroup, type StudyViewData } from '../study-view';
+
+/** The point first shown in the Working: where the most severe finding is, else the first point. */
+export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | null {
+  const [worst] = groupFindings(lines).filter((g) => g.severity !== 'info');
+  if (worst) return { lineKey: worst.line.key, rpm: Math.min(...worst.rpms) };
+  const line = lines.find((l) => l.line.points.some((p) => p.solved));
+  const point = line?.line.points.find((p) => p.solved);
+  return line && point ? { lineKey: line.key, rpm: point.rpm } : null;
+}
+
+function MapChooser({ groups, value, onChange }: { groups: readonly MapGroup[]; value: string; onChange: (key: string) => void }) {
+  if (groups.length < 2) return null;
+  return (
+    <div role="radiogroup" aria-label="Compressor map shown" className="flex flex-wrap gap-1.5">
+      {groups.map((g) => (
+        <button
+          key={g.key}
+          type="button"
+          role="radio"
+          aria-checked={g.key === value}
+          onClick={() => onChange(g.key)}
+          className={`rounded-md border px-2.5 py-1 text-sm font-semibold transition-colors ${
+            g.key === value ? 'border-teal bg-teal-light/80 text-teal-dark' : 'border-ink/20 bg-white/70 text-ink-soft hover:border-teal hover:text-teal-dark'
+          }`}
+        >
+          {g.title}
+          <span className="ml-1.5 inline-flex gap-0.5 align-middle" aria-hidden="true">
+            {g.lines
+              .map((l) => l.planIndex)
+              .filter((p, i, all) => all.indexOf(p) === i)
+              .map((p) => (
+                <span key={p} className="inline-block size-2 rounded-full" style={{ background: planColour(p) }} />
+              ))}
+          </span>
+          <span className="sr-only"> ({g.planNames.join(', ')})</span>
+        </button>
+      ))}
+    </div>
+  );
+}
+
+/**
+ * A computed study that nobody can change here: its maps with the operating lines, the curves,
+ * the findings, the Working of a chosen point and the results table. Used by the shared view;
+ * a team's viewers can be shown the same.
+ */
+export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; system: UnitSystem }) {
+  const computed = useComputedStudy(data);
+  const [groupKey, setGroupKey] = useState<string | null>(null);
+  const [picked, setPicked] = useState<PointRef | null>(null);
+  const initial = useMemo(() => firstPointOfInterest(computed.lines), [computed.lines]);
+  const selected = picked ?? initial;
+  const found = findPoint(computed.lines, selected);
+
+  // The map shown follows the selected point unless the reader chose one.
+  const selectedGroup = found ? computed.groups.find((g) => g.lines.some((l) => l.key === found.line.key)) : undefined;
+  const group = computed.groups.find((g) => g.key === groupKey) ?? selectedGroup ?? computed.groups[0];
+  const mapLines = useMemo(() => mapLineViews(group?.lines ?? []), [group]);
+  const limit = data.document.engine.limits?.maxCompressorOutletTemperature ?? null;
+
+  function select(point: PointRef) {
+    setPicked(point);
+    const owner = computed.groups.find((g) => g.lines.some((l) => l.key === point.lineKey));
+    if (owner) setGroupKey(owner.key);
+  }
+
+  return (
+    <div className="space-y-6" data-testid="read-only-study">
+      <StudyCaution />
+      <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
+        <div className="min-w-0 space-y-6">
+          <Card title="Compressor map" actions={group ? <span className="text-sm text-ink-soft">{group.planNames.join(', ')}</span> : undefined}>
+            <div className="space-y-3">
+              <MapChooser groups={computed.groups} value={group?.key ?? ''} onChange={setGroupKey} />
+              {group && (
+                <CompressorMapPlot
+                  map={group.map}
+                  lines={mapLines}
+                  unitSystem={system}
+                  highlight={selected}
+                  onPointClick={(lineKey, rpm) => select({ lineKey, rpm })}
+                  exportName={`${data.title} ${group.title}`}
+                />
+              )}
+            </div>
+          </Card>
+          <Card title="Curves against engine speed">
+            <RpmCurves lines={computed.lines} unitSystem={system} highlight={selected} onPointClick={select} outletTemperatureLimit={limit} exportName={data.title} />
+          </Card>
+        </div>
+        <div className="min-w-0 space-y-6">
+          <Card title="Findings">
+            <FindingsList lines={computed.lines} unitSystem={system} selected={selected} onSelect={select} />
+          </Card>
+          <WorkingPanel line={found?.line ?? null} point={found?.point ?? null} unitSystem={system} />
+        </div>
+      </div>
+      <Card title="Results">
+        <ResultsTable lines={computed.lines} unitSystem={system} selected={selected} onSelect={select} />
+      </Card>
+    </div>
+  );
+}

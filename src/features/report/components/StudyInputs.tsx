@@ -1,0 +1,239 @@
+import type { ReactNode } from 'react';
+import type { RpmTable } from '../../../../shared/matching/types';
+import type { StudyDocument } from '../../../../shared/schemas/study';
+import { formatNumber } from '../../../components/plots/quantities';
+import { planColour } from '../../../components/plots/style';
+import { formatStudyValue, quantityUnit, type StudyQuantity } from '../../../components/study/units';
+import type { UnitSystem } from '../../../lib/units';
+import { mapName, type StudyViewData } from '../study-view';
+
+/** Columns of an rpm table per printed block, so a long table wraps instead of running off the page. */
+const RPM_COLUMNS_PER_BLOCK = 10;
+
+function chunks<T>(items: readonly T[], size: number): T[][] {
+  const out: T[][] = [];
+  for (let i = 0; i < items.length; i += size) out.push(items.slice(i, i + size));
+  return out;
+}
+
+/** A table by rpm laid across the page: engine speeds in the first row, values in the second. */
+export function RpmTableView({ caption, table, quantity, system }: { caption: string; table: RpmTable; quantity: StudyQuantity; system: UnitSystem }) {
+  const unit = quantityUnit(quantity, system);
+  return (
+    <div className="space-y-1">
+      {chunks(table, RPM_COLUMNS_PER_BLOCK).map((block, i) => (
+        <table key={i} className="report-rpm-table border-collapse text-sm">
+          {i === 0 && <caption className="pb-1 text-left text-sm font-semibold text-ink">{caption}</caption>}
+          <tbody>
+            <tr>
+              <th scope="row" className="whitespace-nowrap border border-paper-line bg-paper-deep/50 px-2 py-1 text-left text-xs font-semibold text-ink-soft">
+                Engine speed (rpm)
+              </th>
+              {block.map((row) => (
+                <td key={row.rpm} className="numeric border border-paper-line px-2 py-1 text-right">
+                  {formatNumber(row.rpm, 21)}
+                </td>
+              ))}
+            </tr>
+            <tr>
+              <th scope="row" className="whitespace-nowrap border border-paper-line bg-paper-deep/50 px-2 py-1 text-left text-xs font-semibold text-ink-soft">
+                {unit.label ? `${caption} (${unit.label})` : caption}
+              </th>
+              {block.map((row) => (
+                <td key={row.rpm} className="numeric border border-paper-line px-2 py-1 text-right">
+                  {formatNumber(unit.fromSI(row.value), 4)}
+                </td>
+              ))}
+            </tr>
+          </tbody>
+        </table>
+      ))}
+    </div>
+  );
+}
+
+/** Label–value pairs in two columns. */
+function Facts({ items }: { items: [string, ReactNode][] }) {
+  return (
+    <dl className="report-facts grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2">
+      {items.map(([label, value]) => (
+        <div key={label} className="flex justify-between gap-3 border-b border-paper-line/70 py-1">
+          <dt className="text-ink-soft">{label}</dt>
+          <dd className="numeric text-right font-medium text-ink">{value}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+function InputBlock({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <section className="report-block space-y-2">
+      <h3 className="text-base font-semibold text-ink">{title}</h3>
+      {children}
+    </section>
+  );
+}
+
+function fuelText(fuel: StudyDocument['fuelSystem']['fuel']): string {
+  if (fuel.kind === 'petrol') return 'Petrol';
+  if (fuel.kind === 'methanol') return 'Methanol';
+  return `Ethanol blend, ${formatNumber(fuel.ethanolPercent, 3)} % ethanol by volume`;
+}
+
+function rowKindText(kind: string, gear: number | undefined): string {
+  if (kind === 'gear') return gear !== undefined ? `Gear ${gear}` : 'By gear';
+  if (kind === 'part-throttle') return 'Part throttle';
+  return 'Full load';
+}
+
+/**
+ * Every input of the study in the user's units: engine, fuel system, power assumptions, losses,
+ * intercooler, scenarios with their boost schedules, and plans with their maps. Read-only.
+ */
+export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'>; system: UnitSystem }) {
+  const doc = data.document;
+  const v = (value: unknown, quantity: StudyQuantity) => formatStudyValue(value, quantity, system);
+  const e = doc.engine;
+  const rpmText =
+    e.rpm.kind === 'range'
+      ? `${formatNumber(e.rpm.min, 21)} to ${formatNumber(e.rpm.max, 21)} rpm in steps of ${formatNumber(e.rpm.step, 21)} rpm`
+      : `${e.rpm.values.map((r) => formatNumber(r, 21)).join(', ')} rpm`;
+  const engineFacts: [string, ReactNode][] = [
+    ['Engine', doc.engineLabel || '—'],
+    ['Displacement', v(e.displacement, 'volume')],
+    ['Cylinders', formatNumber(e.cylinders, 21)],
+    ['Cycle', `${e.strokes}-stroke`],
+    ['Engine speeds computed', rpmText],
+  ];
+  if (e.limits?.maxRpm !== undefined) engineFacts.push(['Engine speed limit', v(e.limits.maxRpm, 'speed')]);
+  if (e.limits?.maxManifoldPressure !== undefined) engineFacts.push(['Manifold pressure limit (absolute)', v(e.limits.maxManifoldPressure, 'pressure')]);
+  if (e.limits?.maxCompressorOutletTemperature !== undefined) engineFacts.push(['Compressor outlet temperature limit', v(e.limits.maxCompressorOutletTemperature, 'temperature')]);
+
+  const f = doc.fuelSystem;
+  const inj = f.injectors;
+  const fuelFacts: [string, ReactNode][] = [
+    ['Fuel', fuelText(f.fuel)],
+    ['Primary injectors', `${inj.primary.count} × ${v(inj.primary.ratedFlow, 'injectorFlow')} at ${v(inj.primary.ratedPressure, 'pressure')} difference`],
+  ];
+  if (inj.secondary) {
+    fuelFacts.push([
+      'Secondary injectors',
+      `${inj.secondary.count} × ${v(inj.secondary.ratedFlow, 'injectorFlow')} at ${v(inj.secondary.ratedPressure, 'pressure')} difference, from ${v(inj.secondary.switchOverRpm, 'speed')}`,
+    ]);
+  }
+  fuelFacts.push(['Base fuel pressure', v(inj.fuelPressure, 'pressureGauge')]);
+  fuelFacts.push(['Regulator', inj.regulator === 'manifold-referenced' ? '1:1, referenced to the manifold' : 'Fixed rail pressure (not referenced to boost)']);
+  if (f.pumpFlowAvailable !== undefined) fuelFacts.push(['Fuel pump delivers', v(f.pumpFlowAvailable, 'fuelFlow')]);
+
+  const p = doc.power;
+  const powerFacts: [string, ReactNode][] =
+    p.basis === 'bsfc'
+      ? [
+          ['Power from', 'Brake specific fuel consumption'],
+          ['BSFC', v(p.bsfc, 'bsfc')],
+        ]
+      : [
+          ['Power from', 'Brake thermal efficiency'],
+          ['Brake thermal efficiency', v(p.brakeThermalEfficiency, 'fraction')],
+        ];
+  powerFacts.push(['Drivetrain loss', v(p.drivetrainLoss, 'fraction')]);
+
+  const lossFacts: [string, ReactNode][] = [
+    ['Filter and intake loss (before the compressor)', v(doc.losses.inlet, 'pressure')],
+    ['Intercooler and pipe loss (compressor to manifold)', v(doc.losses.chargeCooler, 'pressure')],
+    ['Intake heating before the compressor', v(doc.losses.inletTemperatureRise ?? 0, 'temperatureDifference')],
+  ];
+  const ic = doc.intercooler;
+  const intercoolerFacts: [string, ReactNode][] =
+    ic.kind === 'fixed'
+      ? [
+          ['Manifold temperature', 'Stated'],
+          ['Manifold air temperature', v(ic.manifoldTemperature, 'temperature')],
+        ]
+      : [
+          ['Manifold temperature', 'From the intercooler’s effectiveness'],
+          ['Effectiveness', v(ic.effectiveness, 'fraction')],
+          ['Coolant', ic.coolantTemperature === undefined ? 'Ambient air (air-to-air)' : v(ic.coolantTemperature, 'temperature')],
+        ];
+
+  return (
+    <div className="space-y-6">
+      <InputBlock title="Engine">
+        <Facts items={engineFacts} />
+        <RpmTableView caption="Volumetric efficiency" table={e.volumetricEfficiency} quantity="fraction" system={system} />
+      </InputBlock>
+      <InputBlock title="Fuel system">
+        <Facts items={fuelFacts} />
+        <RpmTableView caption="Lambda target" table={f.lambda} quantity="ratio" system={system} />
+      </InputBlock>
+      <InputBlock title="Power">
+        <Facts items={powerFacts} />
+      </InputBlock>
+      <InputBlock title="Losses">
+        <Facts items={lossFacts} />
+      </InputBlock>
+      <InputBlock title="Intercooler">
+        <Facts items={intercoolerFacts} />
+      </InputBlock>
+      <InputBlock title="Scenarios">
+        <div className="space-y-4">
+          {doc.scenarios.map((s, i) => {
+            const a = s.ambient;
+            const ambient =
+              a.altitude !== undefined
+                ? `Altitude ${v(a.altitude, 'length')} (standard atmosphere), ${a.temperature !== undefined ? v(a.temperature, 'temperature') : 'standard-day temperature'}`
+                : `Barometric pressure ${v(a.pressure, 'pressure')}, ${v(a.temperature, 'temperature')}`;
+            return (
+              <div key={i} className="report-scenario space-y-2 rounded-md border border-paper-line bg-white/60 p-3">
+                <p className="text-sm">
+                  <span className="font-semibold text-ink">
+                    Scenario {i + 1}: {s.name}
+                  </span>{' '}
+                  <span className="text-ink-soft">· {ambient}</span>
+                </p>
+                {s.boostSchedule.map((row, j) => (
+                  <RpmTableView key={j} caption={`Boost, ${row.label} (${rowKindText(row.kind, row.gear)})`} table={row.boost} quantity="pressureGauge" system={system} />
+                ))}
+              </div>
+            );
+          })}
+        </div>
+      </InputBlock>
+      <InputBlock title="Plans">
+        <table className="w-full border-collapse text-left text-sm">
+          <thead className="border-b-2 border-ink/20 text-xs uppercase tracking-wider text-ink-soft">
+            <tr>
+              <th scope="col" className="px-2 py-1.5">Plan</th>
+              <th scope="col" className="px-2 py-1.5">Compressor map</th>
+              <th scope="col" className="px-2 py-1.5 text-right">Turbochargers</th>
+              <th scope="col" className="px-2 py-1.5 text-right">Efficiency off the map</th>
+              <th scope="col" className="px-2 py-1.5 text-right">Shaft speed limit</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-paper-line">
+            {doc.plans.map((plan, i) => (
+              <tr key={plan.id}>
+                <td className="px-2 py-1.5">
+                  <span className="flex items-center gap-1.5">
+                    <span aria-hidden="true" className="inline-block size-2.5 rounded-full" style={{ background: planColour(i) }} />
+                    {plan.name}
+                  </span>
+                </td>
+                <td className="px-2 py-1.5">{plan.compressorMapId ? mapName(plan.compressorMapId, data.mapsById, data.mapNames) : 'None'}</td>
+                <td className="numeric px-2 py-1.5 text-right">{plan.turbochargers}</td>
+                <td className="numeric px-2 py-1.5 text-right">{v(plan.compressorEfficiency, 'fraction')}</td>
+                <td className="numeric px-2 py-1.5 text-right">{plan.maxShaftSpeed !== undefined ? v(plan.maxShaftSpeed, 'speed') : 'From the map'}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </InputBlock>
+      {doc.notes.trim() && (
+        <InputBlock title="Notes">
+          <p className="whitespace-pre-wrap text-sm text-ink">{doc.notes}</p>
+        </InputBlock>
+      )}
+    </div>
+  );
+}

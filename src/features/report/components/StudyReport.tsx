@@ -1,0 +1,159 @@
+import type { ReactNode } from 'react';
+import { Link } from 'react-router';
+import { BrandMark, BrandWord } from '../../../components/Brand';
+import { Button, buttonClass } from '../../../components/Button';
+import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
+import { mapLineViews } from '../../../components/study/lines';
+import { CURVE_VIEWS } from '../../../components/study/rpm-curves-figure';
+import { RpmCurves } from '../../../components/study/RpmCurves';
+import { StudyCaution } from '../../../components/study/StudyCaution';
+import { useDocumentTitle } from '../../../components/Page';
+import { formatDateTime } from '../../../lib/format';
+import type { UnitSystem } from '../../../lib/units';
+import { unitSystemNames } from '../../../lib/units';
+import { useComputedStudy, type StudyViewData } from '../study-view';
+import { Assumptions } from './Assumptions';
+import { PrintFindings } from './PrintFindings';
+import { PrintResults } from './PrintResults';
+import { StudyInputs } from './StudyInputs';
+
+/** Plot sizes for paper: the report column is as wide as an A4 or Letter page inside its margins. */
+const MAP_HEIGHT = 440;
+const CURVE_HEIGHT = 300;
+
+function ReportSection({ id, title, children, className = '' }: { id: string; title: string; children: ReactNode; className?: string }) {
+  return (
+    <section aria-labelledby={`report-${id}`} className={`report-section space-y-4 ${className}`}>
+      <h2 id={`report-${id}`} className="border-b border-ink/20 pb-1 text-xl font-semibold text-ink">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+/**
+ * The printable report of a study: title, revision and date, the caution, every input, the
+ * assumptions, the maps with every operating line, the curves, the findings and the results of
+ * every point. Made for paper (with src/styles/print.css); on screen it reads as a sheet.
+ */
+export function StudyReport({
+  data,
+  system,
+  backHref,
+  backLabel,
+  source,
+}: {
+  data: StudyViewData;
+  system: UnitSystem;
+  /** Where "back" leads on screen (the study, or the shared view). */
+  backHref: string;
+  backLabel: string;
+  /** A line under the title saying where the report came from (e.g. "From a share link"). */
+  source?: string;
+}) {
+  useDocumentTitle(`${data.title} · report`);
+  const computed = useComputedStudy(data);
+  const printedAt = formatDateTime(new Date().toISOString());
+  const doc = data.document;
+  const limit = doc.engine.limits?.maxCompressorOutletTemperature ?? null;
+
+  return (
+    <div className="sb-report-page min-h-screen px-4 py-6">
+      <div className="report-toolbar mx-auto mb-4 flex max-w-[calc(680px+4rem)] flex-wrap items-center justify-between gap-3">
+        <Link to={backHref} className={buttonClass('quiet', 'px-0')}>
+          ← {backLabel}
+        </Link>
+        <div className="flex items-center gap-3">
+          <span className="text-sm text-ink-soft">Prints on A4 or Letter; choose “Save as PDF” in the print dialog for a file.</span>
+          <Button variant="primary" onClick={() => window.print()}>
+            Print
+          </Button>
+        </div>
+      </div>
+
+      <article className="sb-report mx-auto max-w-[calc(680px+4rem)] space-y-8 rounded-sm bg-white px-8 py-8 shadow-md shadow-paper-line" data-testid="study-report">
+        <header className="space-y-3">
+          <div className="flex items-center justify-between gap-3 text-sm text-ink-soft">
+            <span className="flex items-center gap-2">
+              <BrandMark className="size-6" />
+              <BrandWord className="text-base" />
+              <span>· Study report</span>
+            </span>
+            <span>Units: {unitSystemNames[system]}</span>
+          </div>
+          <h1 className="text-3xl font-semibold tracking-tight text-ink">{data.title}</h1>
+          <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-0.5 text-sm">
+            <dt className="text-ink-soft">Revision</dt>
+            <dd className="text-ink">
+              {data.revision}, saved {formatDateTime(data.updatedAt)}
+            </dd>
+            <dt className="text-ink-soft">Printed</dt>
+            <dd className="text-ink">{printedAt}</dd>
+            {doc.engineLabel && (
+              <>
+                <dt className="text-ink-soft">Engine</dt>
+                <dd className="text-ink">{doc.engineLabel}</dd>
+              </>
+            )}
+            {source && (
+              <>
+                <dt className="text-ink-soft">Source</dt>
+                <dd className="text-ink">{source}</dd>
+              </>
+            )}
+          </dl>
+          <StudyCaution />
+        </header>
+
+        <ReportSection id="inputs" title="1. Inputs" className="report-first">
+          <StudyInputs data={data} system={system} />
+        </ReportSection>
+
+        <ReportSection id="assumptions" title="2. Assumptions">
+          <Assumptions document={doc} groups={computed.groups} system={system} />
+        </ReportSection>
+
+        <ReportSection id="maps" title="3. Compressor maps with every operating line">
+          <p className="text-sm text-ink-soft">
+            Each plan is drawn on its own compressor map. Colour and marker tell the plans apart, the line dash the scenarios; a point
+            ringed in red crosses a limit, in copper raises a warning.
+          </p>
+          {computed.groups.map((g) => (
+            <figure key={g.key} className="report-figure space-y-1">
+              <figcaption className="text-sm font-semibold text-ink">
+                {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
+              </figcaption>
+              <CompressorMapPlot map={g.map} lines={mapLineViews(g.lines)} unitSystem={system} height={MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
+            </figure>
+          ))}
+        </ReportSection>
+
+        <ReportSection id="curves" title="4. Curves against engine speed">
+          {CURVE_VIEWS.map((view) => (
+            <figure key={view.id} className="report-figure space-y-1">
+              <figcaption className="text-sm font-semibold text-ink">{view.label}</figcaption>
+              <RpmCurves lines={computed.lines} unitSystem={system} initialView={view.id} height={CURVE_HEIGHT} outletTemperatureLimit={limit} exportName={data.title} />
+            </figure>
+          ))}
+        </ReportSection>
+
+        <ReportSection id="findings" title="5. Findings">
+          <PrintFindings lines={computed.lines} system={system} />
+        </ReportSection>
+
+        <ReportSection id="results" title="6. Results by operating point">
+          <p className="text-sm text-ink-soft">
+            Every point of every operating line. Columns continue in the table under each one; boost is gauge, other pressures absolute. A
+            red “!” marks a point that crosses a limit.
+          </p>
+          <PrintResults lines={computed.lines} system={system} />
+        </ReportSection>
+
+        <footer className="border-t border-paper-line pt-3 text-xs text-ink-faint">
+          {data.title} · revision {data.revision} · Spoolbook. Results are estimates from a quasi-steady model; see the caution at the top.
+        </footer>
+      </article>
+    </div>
+  );
+}

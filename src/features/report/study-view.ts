@@ -1,0 +1,78 @@
+import { useMemo } from 'react';
+import type { CompressorMap, SpoolbookMap } from '../../../shared/maps/types';
+import type { StudyResult } from '../../../shared/matching/types';
+import type { StudyDocument } from '../../../shared/schemas/study';
+import { studyLines, type StudyLine } from '../../components/study/lines';
+import { runStudyLive } from '../../components/study/run';
+
+/** A study as the read-only views show it: what was saved and the maps its plans use. */
+export interface StudyViewData {
+  title: string;
+  revision: number;
+  /** ISO 8601 time of the revision. */
+  updatedAt: string;
+  document: StudyDocument;
+  mapsById: Record<string, SpoolbookMap | undefined>;
+  /** Names of the maps as the library lists them, by id (the map's own name when absent). */
+  mapNames?: Record<string, string>;
+}
+
+/** The plans that share one compressor map, drawn together on it. */
+export interface MapGroup {
+  key: string;
+  mapId: string | null;
+  /** null: the plans name no map, or it could not be loaded. */
+  map: CompressorMap | null;
+  title: string;
+  planNames: string[];
+  lines: StudyLine[];
+}
+
+/** A map's name for people: the library's name, the map's own, or its id. */
+export function mapName(mapId: string, mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): string {
+  return mapNames[mapId] ?? mapsById[mapId]?.name ?? mapId;
+}
+
+/**
+ * The lines grouped by the compressor map of their plan, in plan order. Plans on different maps
+ * are drawn on separate maps: a point is only meaningful on the map it was read from.
+ */
+export function mapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): MapGroup[] {
+  const groups = new Map<string, MapGroup>();
+  doc.plans.forEach((plan, planIndex) => {
+    const loaded = plan.compressorMapId ? mapsById[plan.compressorMapId] : undefined;
+    const map = loaded && loaded.kind === 'compressor' ? loaded : null;
+    const key = map && plan.compressorMapId ? plan.compressorMapId : '(no map)';
+    let group = groups.get(key);
+    if (!group) {
+      group = {
+        key,
+        mapId: map ? plan.compressorMapId : null,
+        map,
+        title: map && plan.compressorMapId ? mapName(plan.compressorMapId, mapsById, mapNames) : 'Plans without a compressor map',
+        planNames: [],
+        lines: [],
+      };
+      groups.set(key, group);
+    }
+    group.planNames.push(plan.name);
+    group.lines.push(...lines.filter((l) => l.planIndex === planIndex));
+  });
+  return [...groups.values()];
+}
+
+export interface ComputedStudy {
+  result: StudyResult;
+  lines: StudyLine[];
+  groups: MapGroup[];
+}
+
+/** Computes the study in the browser with the same engine as the workspace, once per document and maps. */
+export function useComputedStudy(data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'>): ComputedStudy {
+  const { document, mapsById, mapNames } = data;
+  return useMemo(() => {
+    const result = runStudyLive(document, mapsById);
+    const lines = studyLines(result, document.plans);
+    return { result, lines, groups: mapGroups(document, lines, mapsById, mapNames) };
+  }, [document, mapsById, mapNames]);
+}

@@ -1,0 +1,91 @@
+import { useMemo } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router';
+import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '../../shared/schemas/study';
+import { Alert } from '../components/Alert';
+import { buttonClass } from '../components/Button';
+import { Loading, Page } from '../components/Page';
+import { CompareView } from '../features/compare/components/CompareView';
+import { selectionFromParam, selectionParam } from '../features/compare/selection';
+import { useStudy, useStudyMaps } from '../features/studies/api';
+import { paths } from '../lib/paths';
+import { useUnitSystem } from '../lib/units';
+
+function parseDocument(raw: unknown): StudyDocument | string {
+  try {
+    const parsed = studyDocumentSchema.safeParse(migrateStudyDocument(raw));
+    if (parsed.success) return parsed.data;
+    const issue = parsed.error.issues[0];
+    return `${issue.path.join('.') || 'document'}: ${issue.message}`;
+  } catch (error) {
+    return error instanceof Error ? error.message : 'unreadable document';
+  }
+}
+
+/** `/teams/:teamId/studies/:studyId/compare?lines=…`: Side by side of the saved study. */
+export function CompareRoute() {
+  const { teamId = '', studyId = '' } = useParams();
+  const [searchParams, setSearchParams] = useSearchParams();
+  const study = useStudy(teamId, studyId);
+  const system = useUnitSystem();
+  const parsed = useMemo(() => (study.data ? parseDocument(study.data.document) : null), [study.data]);
+  const document = parsed !== null && typeof parsed !== 'string' ? parsed : null;
+  const maps = useStudyMaps(teamId, document ? document.plans.flatMap((p) => (p.compressorMapId ? [p.compressorMapId] : [])) : []);
+  const selection = useMemo(() => (document ? selectionFromParam(searchParams.get('lines'), document) : []), [document, searchParams]);
+
+  const title = study.data ? `Side by side: ${study.data.title}` : 'Side by side';
+  const actions = (
+    <>
+      <Link to={paths.teamStudy.href(teamId, studyId)} className={buttonClass('secondary')}>
+        Back to the study
+      </Link>
+      <Link to={paths.teamStudyReport.href(teamId, studyId)} className={buttonClass('secondary')}>
+        Printable report
+      </Link>
+    </>
+  );
+  return (
+    <Page
+      title={title}
+      eyebrow="Side by side"
+      description="Two to four plan and scenario combinations of this study on one compressor map and in one table of differences, the best of each figure marked. It compares the saved revision."
+      actions={actions}
+    >
+      {study.isPending || (document && maps.loading) ? (
+        <Loading label="Loading the study and its maps…" />
+      ) : study.error ? (
+        <Alert tone="error" title="The study could not be loaded">
+          {study.error.message}
+        </Alert>
+      ) : !document ? (
+        <Alert tone="error" title="The saved study does not read">
+          {typeof parsed === 'string' ? parsed : 'No study.'}
+        </Alert>
+      ) : (
+        <>
+          {maps.errors.length > 0 && (
+            <Alert tone="error" title="Some maps could not be loaded">
+              {maps.errors.map((e) => `${e.mapId}: ${e.message}`).join(' ')} Their plans are computed without a map.
+            </Alert>
+          )}
+          <CompareView
+            document={document}
+            mapsById={maps.mapsById}
+            mapNames={maps.namesById}
+            selection={selection}
+            onSelectionChange={(keys) =>
+              setSearchParams(
+                (prev) => {
+                  const next = new URLSearchParams(prev);
+                  next.set('lines', selectionParam(keys));
+                  return next;
+                },
+                { replace: true },
+              )
+            }
+            system={system}
+          />
+        </>
+      )}
+    </Page>
+  );
+}

@@ -1,0 +1,39 @@
+import '../styles/print.css';
+import { useParams } from 'react-router';
+import { Alert } from '../components/Alert';
+import { Loading } from '../components/Page';
+import { StudyReport } from '../features/report/components/StudyReport';
+import { isLinkGone, useSharedStudy } from '../features/share/api/get-shared-study';
+import { LinkGone, SharedPage } from '../features/share/components/SharedPage';
+import { paths } from '../lib/paths';
+import { useUnitSystem } from '../lib/units';
+
+/** `/share/:token/report`: the printable report of a shared study. */
+export function ShareReportRoute() {
+  const { token = '' } = useParams();
+  const shared = useSharedStudy(token);
+  const system = useUnitSystem();
+  if (shared.isPending) return <Loading label="Opening the shared study…" />;
+  if (shared.error) {
+    return (
+      <SharedPage>
+        {isLinkGone(shared.error) ? (
+          <LinkGone />
+        ) : (
+          <Alert tone="error" title="The shared study could not be opened">
+            {shared.error.message}
+          </Alert>
+        )}
+      </SharedPage>
+    );
+  }
+  return (
+    <StudyReport
+      data={shared.data}
+      system={system}
+      backHref={paths.share.href(token)}
+      backLabel="Back to the shared study"
+      source="A read-only share link"
+    />
+  );
+}
