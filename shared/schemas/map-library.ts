@@ -1,17 +1,16 @@
 import { z } from 'zod';
+import { mapMetadataUpdateSchema, mapNameSchema, mapNotesSchema } from './map';
 
-// Requests of the map library API (the map file itself is validated by shared/maps).
+// Requests of the map library API (the map file itself is validated by shared/maps; the name and
+// notes rules are those of shared/schemas/map.ts).
 
-export const mapNameSchema = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
-export const mapNotesSchema = z.string().max(5000, 'must be at most 5000 characters');
+export { mapNameSchema, mapNotesSchema };
 
 export const uploadMapFieldsSchema = z.strictObject({
   name: mapNameSchema.optional(),
   notes: mapNotesSchema.optional(),
 });
 
-export const updateMapSchema = z
-  .strictObject({ name: mapNameSchema.optional(), notes: mapNotesSchema.optional() })
-  .refine((v) => v.name !== undefined || v.notes !== undefined, 'give a name or notes to change');
+export const updateMapSchema = mapMetadataUpdateSchema;
 
 export const mapKindQuerySchema = z.strictObject({ kind: z.enum(['compressor', 'turbine']).optional() });
