@@ -80,7 +80,10 @@ type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 async function request<T>(method: Method, path: string, body: unknown, schema: z.ZodType<T> | null): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const init: RequestInit = { method, headers, credentials: 'same-origin' };
-  if (method !== 'GET') {
+  if (body instanceof FormData) {
+    // multipart/form-data: the browser sets the Content-Type with its boundary.
+    init.body = body;
+  } else if (method !== 'GET') {
     headers['Content-Type'] = 'application/json';
     if (body !== undefined) init.body = JSON.stringify(body);
   }
@@ -139,8 +142,15 @@ export const api = {
   post<T = void>(path: string, body?: unknown, schema?: z.ZodType<T>): Promise<T> {
     return request('POST', path, body, schema ?? null);
   },
+  put<T = void>(path: string, body: unknown, schema?: z.ZodType<T>): Promise<T> {
+    return request('PUT', path, body, schema ?? null);
+  },
   patch<T = void>(path: string, body: unknown, schema?: z.ZodType<T>): Promise<T> {
     return request('PATCH', path, body, schema ?? null);
+  },
+  /** POSTs files and fields as multipart/form-data (uploads); answers and errors as for JSON. */
+  upload<T = void>(path: string, form: FormData, schema?: z.ZodType<T>): Promise<T> {
+    return request('POST', path, form, schema ?? null);
   },
   delete<T = void>(path: string, schema?: z.ZodType<T>): Promise<T> {
     return request('DELETE', path, undefined, schema ?? null);
