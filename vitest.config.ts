@@ -21,6 +21,7 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/unit/**/*.test.tsx'],
           setupFiles: ['tests/setup/fail-on-console-error.ts'],
+          testTimeout: 20_000,
         },
       },
     ],

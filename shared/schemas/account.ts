@@ -128,3 +128,23 @@ export const healthSchema = z.object({
   database: z.enum(['up', 'down']),
   time: z.string(),
 });
+
+/** One entry of a team's audit record (who did what, when in UTC). */
+export const auditEventSchema = z.object({
+  id: z.string(),
+  at: z.string(),
+  teamId: z.string().nullable(),
+  actorId: z.string().nullable(),
+  actorEmail: z.string().nullable(),
+  action: z.string(),
+  targetType: z.string().nullable(),
+  targetId: z.string().nullable(),
+  details: z.record(z.string(), z.unknown()),
+  ip: z.string().nullable(),
+});
+export type AuditEventView = z.infer<typeof auditEventSchema>;
+export const auditListSchema = z.object({ events: z.array(auditEventSchema) });
+
+/** What an import brought in. */
+export const importResultSchema = z.object({ imported: z.object({ maps: z.number(), studies: z.number(), revisions: z.number() }) });
+export const importProblemSchema = z.object({ item: z.string(), message: z.string() });

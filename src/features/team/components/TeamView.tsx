@@ -16,6 +16,8 @@ import { InviteForm } from './InviteForm';
 import { MembersTable } from './MembersTable';
 import { PendingInvitations } from './PendingInvitations';
 import { RenameTeamForm } from './RenameTeamForm';
+import { TeamActivity } from './TeamActivity';
+import { TeamArchive } from './TeamArchive';
 
 /**
  * A team's page. What it offers follows the user's role: owners manage members, invitations
@@ -78,6 +80,18 @@ function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => 
       {isOwner && (
         <Card title="Team name">
           <RenameTeamForm key={team.name} team={team} />
+        </Card>
+      )}
+
+      {isOwner && (
+        <Card title="Archive">
+          <TeamArchive teamId={team.id} />
+        </Card>
+      )}
+
+      {isOwner && (
+        <Card title="Activity">
+          <TeamActivity teamId={team.id} />
         </Card>
       )}
 
