@@ -66,6 +66,9 @@ export const routes = [
             element: <AppLayout />,
             children: [
               { path: paths.studies.path, element: <StudiesRoute /> },
+              // The study pages load with their own code (engine, units, table and plots) on first use.
+              { path: paths.teamStudies.path, lazy: () => import('./routes/studies-team').then((m) => ({ Component: m.StudiesTeamRoute })) },
+              { path: paths.teamStudy.path, lazy: () => import('./routes/study').then((m) => ({ Component: m.StudyRoute })) },
               { path: paths.maps.path, element: <MapsRoute /> },
               // The map pages load with their own code (the map reader, units and plots) on first use.
               { path: paths.teamMaps.path, lazy: () => import('./routes/maps-library').then((m) => ({ Component: m.MapsLibraryRoute })) },

@@ -1,11 +1,16 @@
+import { Navigate } from 'react-router';
+import { Alert } from '../components/Alert';
 import { Page } from '../components/Page';
+import { useCurrentTeamId } from '../lib/current-team';
+import { paths } from '../lib/paths';
 
-/** The Studies area. Its feature fills the page body; the heading and the line stay. */
+/** "Studies" opens the current team's study list. */
 export function StudiesRoute() {
+  const teamId = useCurrentTeamId();
+  if (teamId) return <Navigate to={paths.teamStudies.href(teamId)} replace />;
   return (
-    <Page
-      title="Studies"
-      description="A study holds an engine, its fuel system, the scenarios and the plans being judged, and shows whether each plan keeps every operating line inside the compressor map with margin."
-    />
+    <Page title="Studies">
+      <Alert tone="info">Studies belong to a team. Create or join a team first, on the Team page.</Alert>
+    </Page>
   );
 }

@@ -1,0 +1,274 @@
+import { useEffect, useId, useState, type ReactNode } from 'react';
+import { FieldError, inputClass } from '../../../../components/TextField';
+import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity } from '../../../../components/study/units';
+import { asSentence } from '../../../../lib/forms';
+import { getIn, pathKey, type DocPath } from '../../lib/draft';
+import { useEditor } from './context';
+
+const compactInput =
+  'block w-full rounded border border-ink/20 bg-white px-2 py-1 text-right text-sm text-ink focus:border-teal aria-[invalid=true]:border-copper read-only:bg-paper-deep/40';
+
+/**
+ * A number typed in the user's units and stored in SI. What is typed stays as typed while the
+ * field has focus; each valid number is converted and stored at once (the plots follow), a
+ * half-typed or wrong one shows its message and leaves the stored value alone.
+ */
+export function UnitNumberInput({
+  label,
+  value,
+  onChange,
+  quantity,
+  optional = false,
+  error,
+  hint,
+  compact = false,
+  readOnly = false,
+  unitSystem,
+  placeholder,
+  onPaste,
+  testId,
+}: {
+  label: ReactNode;
+  /** SI value; undefined shows an empty box. */
+  value: number | undefined;
+  onChange: (si: number | undefined) => void;
+  quantity: StudyQuantity;
+  optional?: boolean;
+  error?: string | null;
+  hint?: ReactNode;
+  /** Table cell: label for assistive technology only, small box. */
+  compact?: boolean;
+  readOnly?: boolean;
+  unitSystem: 'si' | 'us';
+  placeholder?: string;
+  onPaste?: (event: React.ClipboardEvent<HTMLInputElement>) => void;
+  testId?: string;
+}) {
+  const id = useId();
+  const unit = quantityUnit(quantity, unitSystem);
+  const shown = value === undefined || !Number.isFinite(value) ? '' : inputText(unit.fromSI(value));
+  const [text, setText] = useState(shown);
+  const [focused, setFocused] = useState(false);
+  const [typingError, setTypingError] = useState<string | null>(null);
+
+  // Outside changes (unit switch, another version loaded, an undo) show unless the user is typing.
+  useEffect(() => {
+    if (!focused && typingError === null) setText(shown);
+  }, [shown, focused, typingError]);
+
+  function change(next: string) {
+    setText(next);
+    if (next.trim() === '') {
+      if (optional) {
+        setTypingError(null);
+        onChange(undefined);
+      } else setTypingError('Type a number.');
+      return;
+    }
+    const parsed = parseTypedNumber(next);
+    if (!parsed.ok) {
+      setTypingError(parsed.message);
+      return;
+    }
+    setTypingError(null);
+    const si = unit.toSI(parsed.value);
+    if (Number.isFinite(si)) onChange(si);
+  }
+
+  const message = typingError ?? (error ? asSentence(error) : null);
+  const errorId = message ? `${id}-error` : undefined;
+  const hintId = hint ? `${id}-hint` : undefined;
+  const describedBy = [errorId, hintId].filter(Boolean).join(' ') || undefined;
+  const unitText = unit.label;
+
+  return (
+    <div className={compact ? '' : 'space-y-1'}>
+      <label htmlFor={id} className={compact ? 'sr-only' : 'block text-sm font-semibold text-ink'}>
+        {label}
+        {compact && unitText ? ` (${unitText})` : ''}
+      </label>
+      <div className="relative">
+        <input
+          id={id}
+          inputMode="decimal"
+          autoComplete="off"
+          value={text}
+          placeholder={placeholder}
+          readOnly={readOnly}
+          aria-invalid={message ? true : undefined}
+          aria-describedby={describedBy}
+          data-testid={testId}
+          onChange={(e) => change(e.target.value)}
+          onFocus={() => setFocused(true)}
+          onBlur={() => {
+            setFocused(false);
+            // A number typed as "1." or "+2" reads back in its plain form once the user moves on.
+            if (typingError === null) setText(shown);
+          }}
+          onPaste={onPaste}
+          className={compact ? compactInput : `${inputClass} numeric ${unitText && !compact ? 'pr-20' : ''}`}
+        />
+        {!compact && unitText && (
+          <span aria-hidden="true" className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm text-ink-faint">
+            {unitText}
+          </span>
+        )}
+      </div>
+      {message && (compact ? <p id={errorId} className="mt-0.5 text-left text-xs font-medium text-copper-ink">{message}</p> : <FieldError id={errorId!}>{message}</FieldError>)}
+      {hint && (
+        <p id={hintId} className="text-xs text-ink-soft">
+          {hint}
+        </p>
+      )}
+    </div>
+  );
+}
+
+/** A number field of the document at `path`. */
+export function NumberField({
+  path,
+  label,
+  quantity,
+  optional,
+  hint,
+  placeholder,
+  testId,
+}: {
+  path: DocPath;
+  label: ReactNode;
+  quantity: StudyQuantity;
+  optional?: boolean;
+  hint?: ReactNode;
+  placeholder?: string;
+  testId?: string;
+}) {
+  const editor = useEditor();
+  const raw = getIn(editor.draft, path);
+  return (
+    <UnitNumberInput
+      label={label}
+      value={typeof raw === 'number' ? raw : undefined}
+      onChange={(si) => editor.update(path, si)}
+      quantity={quantity}
+      optional={optional}
+      error={editor.issues[pathKey(path)]}
+      hint={hint}
+      placeholder={placeholder}
+      readOnly={editor.readOnly}
+      unitSystem={editor.unitSystem}
+      testId={testId}
+    />
+  );
+}
+
+/** A whole number (counts, gears): typed and stored as is. */
+export function CountField({ path, label, hint }: { path: DocPath; label: ReactNode; hint?: ReactNode }) {
+  return <NumberField path={path} label={label} quantity="count" hint={hint} />;
+}
+
+/** A line of text of the document at `path`. */
+export function TextInputField({ path, label, hint, maxLength = 120 }: { path: DocPath; label: ReactNode; hint?: ReactNode; maxLength?: number }) {
+  const editor = useEditor();
+  const id = useId();
+  const raw = getIn(editor.draft, path);
+  const error = editor.issues[pathKey(path)];
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <div className="space-y-1">
+      <label htmlFor={id} className="block text-sm font-semibold text-ink">
+        {label}
+      </label>
+      <input
+        id={id}
+        value={typeof raw === 'string' ? raw : ''}
+        maxLength={maxLength}
+        readOnly={editor.readOnly}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={errorId}
+        onChange={(e) => editor.update(path, e.target.value)}
+        className={inputClass}
+      />
+      {error && <FieldError id={errorId!}>{asSentence(error)}</FieldError>}
+      {hint && <p className="text-xs text-ink-soft">{hint}</p>}
+    </div>
+  );
+}
+
+/** A choice among fixed values. `onChoose` replaces the plain write when a choice reshapes the document. */
+export function ChoiceField<T extends string | number>({
+  path,
+  label,
+  options,
+  onChoose,
+  value,
+}: {
+  path: DocPath;
+  label: ReactNode;
+  options: readonly { value: T; label: string }[];
+  onChoose?: (value: T) => void;
+  /** The shown value when it is not the one at `path` (a derived choice). */
+  value?: T;
+}) {
+  const editor = useEditor();
+  const id = useId();
+  const current = value ?? (getIn(editor.draft, path) as T);
+  const error = editor.issues[pathKey(path)];
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <div className="space-y-1">
+      <label htmlFor={id} className="block text-sm font-semibold text-ink">
+        {label}
+      </label>
+      <select
+        id={id}
+        value={String(current)}
+        disabled={editor.readOnly}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={errorId}
+        onChange={(e) => {
+          const option = options.find((o) => String(o.value) === e.target.value);
+          if (!option) return;
+          if (onChoose) onChoose(option.value);
+          else editor.update(path, option.value);
+        }}
+        className={`${inputClass} pr-8`}
+      >
+        {options.map((o) => (
+          <option key={String(o.value)} value={String(o.value)}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+      {error && <FieldError id={errorId!}>{asSentence(error)}</FieldError>}
+    </div>
+  );
+}
+
+/** An on/off choice that adds or removes part of the document. */
+export function ToggleField({ label, checked, onChange, hint }: { label: ReactNode; checked: boolean; onChange: (on: boolean) => void; hint?: ReactNode }) {
+  const editor = useEditor();
+  const id = useId();
+  return (
+    <div className="space-y-0.5">
+      <div className="flex items-center gap-2">
+        <input id={id} type="checkbox" checked={checked} disabled={editor.readOnly} onChange={(e) => onChange(e.target.checked)} className="size-4 accent-teal" />
+        <label htmlFor={id} className="text-sm font-semibold text-ink">
+          {label}
+        </label>
+      </div>
+      {hint && <p className="pl-6 text-xs text-ink-soft">{hint}</p>}
+    </div>
+  );
+}
+
+/** A message beside a part of the form that has no single field (a whole table, a scenario's ambient). */
+export function GroupIssue({ path }: { path: DocPath }) {
+  const editor = useEditor();
+  const error = editor.issues[pathKey(path)];
+  if (!error) return null;
+  return (
+    <p role="alert" className="text-sm font-medium text-copper-ink">
+      ! {asSentence(error)}
+    </p>
+  );
+}

@@ -1,0 +1,124 @@
+import { useId, useState } from 'react';
+import { createShareLinkSchema } from '../../../../../shared/schemas/study';
+import { Alert } from '../../../../components/Alert';
+import { Badge } from '../../../../components/Badge';
+import { Button } from '../../../../components/Button';
+import { ConfirmButton } from '../../../../components/ConfirmButton';
+import { Loading } from '../../../../components/Page';
+import { inputClass } from '../../../../components/TextField';
+import { isApiError } from '../../../../lib/api-client';
+import { formatDateTime } from '../../../../lib/format';
+import { useCreateShareLink } from '../../api/create-share-link';
+import { useShareLinks, type ShareLink } from '../../api/get-share-links';
+import { useRevokeShareLink } from '../../api/revoke-share-link';
+
+function linkState(link: ShareLink): { label: string; tone: 'teal' | 'neutral' | 'copper' } {
+  if (link.revokedAt) return { label: 'revoked', tone: 'neutral' };
+  if (link.expiresAt && new Date(link.expiresAt).getTime() <= Date.now()) return { label: 'expired', tone: 'neutral' };
+  return { label: 'active', tone: 'teal' };
+}
+
+/**
+ * Read-only links to the study for people outside the team. The address is shown once, when
+ * the link is made (only a hash of its token is kept); links can be revoked at any time.
+ */
+export function SharePanel({ teamId, studyId }: { teamId: string; studyId: string }) {
+  const daysId = useId();
+  const links = useShareLinks(teamId, studyId);
+  const create = useCreateShareLink(teamId, studyId);
+  const revoke = useRevokeShareLink(teamId, studyId);
+  const [days, setDays] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const [fresh, setFresh] = useState<string | null>(null);
+  const [copied, setCopied] = useState(false);
+
+  async function make(event: React.FormEvent) {
+    event.preventDefault();
+    setError(null);
+    const input = days.trim() === '' ? {} : { expiresInDays: Number(days) };
+    const parsed = createShareLinkSchema.safeParse(input);
+    if (!parsed.success || (days.trim() !== '' && !/^\d+$/.test(days.trim()))) return setError('Days must be a whole number from 1 to 365, or empty for a link that does not expire.');
+    try {
+      const link = await create.mutateAsync(parsed.data);
+      setFresh(link.url ?? null);
+      setCopied(false);
+    } catch (e) {
+      setError(isApiError(e) ? e.message : 'The link could not be made.');
+    }
+  }
+
+  return (
+    <div className="space-y-4" data-testid="share-panel">
+      <p className="text-sm text-ink-soft">Anyone with a share link can open this study read-only, without signing in: the inputs, plots, results and findings of its latest saved revision.</p>
+      <form onSubmit={make} className="flex flex-wrap items-end gap-2" noValidate>
+        <div className="space-y-1">
+          <label htmlFor={daysId} className="block text-sm font-semibold text-ink">
+            Expires after (days)
+          </label>
+          <input id={daysId} inputMode="numeric" value={days} onChange={(e) => setDays(e.target.value)} placeholder="never" className={`${inputClass} w-32`} />
+        </div>
+        <Button type="submit" variant="primary" pending={create.isPending}>
+          Make a share link
+        </Button>
+      </form>
+      {error && <Alert tone="error">{error}</Alert>}
+      {fresh && (
+        <div className="space-y-2 rounded-md border border-teal/40 bg-teal-light/40 p-3" role="status">
+          <p className="text-sm font-semibold text-ink">Copy the link now: it is shown only this once.</p>
+          <div className="flex flex-wrap items-center gap-2">
+            <input readOnly value={fresh} aria-label="New share link" onFocus={(e) => e.target.select()} className={`${inputClass} min-w-0 flex-1 font-mono text-xs`} data-testid="share-url" />
+            <Button
+              onClick={async () => {
+                try {
+                  await navigator.clipboard.writeText(fresh);
+                  setCopied(true);
+                } catch {
+                  setError('The browser did not allow copying: select the link and copy it by hand.');
+                }
+              }}
+            >
+              {copied ? 'Copied' : 'Copy'}
+            </Button>
+          </div>
+        </div>
+      )}
+      {links.isPending ? (
+        <Loading label="Loading the share links…" />
+      ) : links.isError ? (
+        <Alert tone="error">{links.error.message}</Alert>
+      ) : links.data.length === 0 ? (
+        <p className="text-sm text-ink-soft">No share links yet.</p>
+      ) : (
+        <ul className="divide-y divide-paper-line rounded-md border border-paper-line bg-white/80">
+          {links.data.map((link) => {
+            const state = linkState(link);
+            return (
+              <li key={link.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2 text-sm">
+                <span>
+                  <Badge tone={state.tone}>{state.label}</Badge>{' '}
+                  made {formatDateTime(link.createdAt)}
+                  {link.createdBy ? ` by ${link.createdBy}` : ''}
+                  <span className="block text-ink-soft">
+                    {link.revokedAt ? `Revoked ${formatDateTime(link.revokedAt)}` : link.expiresAt ? `Expires ${formatDateTime(link.expiresAt)}` : 'Does not expire'}
+                  </span>
+                </span>
+                {state.label === 'active' && (
+                  <ConfirmButton
+                    variant="quiet"
+                    title="Revoke this share link?"
+                    description="Anyone holding it loses access at once. Make a new link to share again."
+                    confirmLabel="Revoke link"
+                    cancelLabel="Keep it"
+                    onConfirm={() => revoke.mutateAsync(link.id)}
+                  >
+                    Revoke
+                  </ConfirmButton>
+                )}
+              </li>
+            );
+          })}
+        </ul>
+      )}
+    </div>
+  );
+}

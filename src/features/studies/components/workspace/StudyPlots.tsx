@@ -1,0 +1,171 @@
+import { memo, useCallback, useId, useMemo, useRef, useState } from 'react';
+import type { SpoolbookMap } from '../../../../../shared/maps/types';
+import { Card } from '../../../../components/Card';
+import { CompressorMapPlot } from '../../../../components/plots/CompressorMapPlot';
+import { PlotPlaceholder } from '../../../../components/plots/Plot';
+import { FindingsList } from '../../../../components/study/FindingsList';
+import { findPoint, mapLineViews, type PointRef } from '../../../../components/study/lines';
+import { ResultsTable } from '../../../../components/study/ResultsTable';
+import { RpmCurves } from '../../../../components/study/RpmCurves';
+import { WorkingPanel } from '../../../../components/study/WorkingPanel';
+import type { UnitSystem } from '../../../../lib/units';
+import { PlanSwatch } from '../editor/PlansSection';
+import type { Computed } from './use-study-editor';
+
+const MemoMap = memo(CompressorMapPlot);
+const MemoCurves = memo(RpmCurves);
+const MemoTable = memo(ResultsTable);
+const MemoFindings = memo(FindingsList);
+
+/**
+ * The centre of the study page: the compressor map with the operating lines, the findings and
+ * the Working of the selected point, the curves against rpm and the results table. Everything
+ * here follows `computed`, which the page recomputes on every valid edit.
+ */
+export function StudyPlots({
+  computed,
+  stale,
+  mapsById,
+  namesById,
+  mapErrors,
+  unitSystem,
+  selected,
+  onSelect,
+  title,
+}: {
+  computed: Computed | null;
+  /** The inputs have a problem (or a map is loading): what shows is the last valid result. */
+  stale: boolean;
+  mapsById: Record<string, SpoolbookMap | undefined>;
+  namesById: Record<string, string>;
+  mapErrors: { mapId: string; message: string }[];
+  unitSystem: UnitSystem;
+  selected: PointRef | null;
+  onSelect: (point: PointRef | null) => void;
+  title: string;
+}) {
+  const mapChoiceId = useId();
+  const [mapPlanId, setMapPlanId] = useState<string | null>(null);
+  const [showOthers, setShowOthers] = useState(true);
+  const [flowAxis, setFlowAxis] = useState<'corrected' | 'volume'>('corrected');
+
+  const plans = computed?.doc.plans ?? [];
+  const selectedLine = computed && selected ? computed.lines.find((l) => l.key === selected.lineKey) : undefined;
+  // The plan whose map is drawn: the chosen one, else the selected point's plan, else the first.
+  const drawnPlan = plans.find((p) => p.id === mapPlanId) ?? plans[0];
+  const drawnMapId = drawnPlan?.compressorMapId ?? null;
+  const drawnMap = drawnMapId ? mapsById[drawnMapId] : undefined;
+  const distinctMaps = [...new Set(plans.map((p) => p.compressorMapId ?? ''))];
+  const sharedMap = distinctMaps.length <= 1;
+
+  const mapLines = useMemo(() => {
+    if (!computed) return [];
+    const shown = computed.lines.filter((l) => sharedMap || showOthers || computed.doc.plans[l.planIndex]?.compressorMapId === drawnMapId);
+    return mapLineViews(shown);
+  }, [computed, sharedMap, showOthers, drawnMapId]);
+
+  const selectedPoint = computed ? findPoint(computed.lines, selected) : null;
+  const highlight = useMemo(() => (selected ? { lineKey: selected.lineKey, rpm: selected.rpm } : null), [selected]);
+
+  // One stable handler for the memoised plots and table; it reads the latest state through a ref.
+  const latest = useRef({ computed, drawnMapId, sharedMap, onSelect });
+  latest.current = { computed, drawnMapId, sharedMap, onSelect };
+  const select = useCallback((point: PointRef) => {
+    const { computed: c, drawnMapId: drawn, sharedMap: shared, onSelect: notify } = latest.current;
+    notify(point);
+    // A point of a plan on another map: draw that map, so the ring lands where the point is.
+    const line = c?.lines.find((l) => l.key === point.lineKey);
+    const plan = line ? c?.doc.plans[line.planIndex] : undefined;
+    if (plan && plan.compressorMapId !== drawn && !shared) setMapPlanId(plan.id);
+  }, []);
+  const selectOnMap = useCallback((lineKey: string, rpm: number) => select({ lineKey, rpm }), [select]);
+
+  if (!computed) {
+    return (
+      <div className="space-y-4">
+        <PlotPlaceholder height={520} label={mapErrors.length ? 'A map of the study could not be loaded.' : 'Loading the study’s maps…'} />
+      </div>
+    );
+  }
+
+  const mapMissing = drawnMapId && !drawnMap;
+  const outletLimit = computed.doc.engine.limits?.maxCompressorOutletTemperature ?? null;
+
+  return (
+    <div className={`space-y-5 transition-opacity ${stale ? 'opacity-60' : ''}`} aria-busy={stale}>
+      <Card
+        title="Compressor map"
+        data-testid="study-map"
+        actions={
+          !sharedMap ? (
+            <div className="flex flex-wrap items-end gap-3 text-sm">
+              <div className="space-y-1">
+                <label htmlFor={mapChoiceId} className="block font-semibold text-ink">
+                  Map drawn
+                </label>
+                <select
+                  id={mapChoiceId}
+                  value={drawnPlan?.id ?? ''}
+                  onChange={(e) => setMapPlanId(e.target.value)}
+                  className="rounded-md border border-ink/25 bg-white px-2 py-1.5"
+                >
+                  {plans.map((p) => (
+                    <option key={p.id} value={p.id}>
+                      {p.name}: {p.compressorMapId ? (namesById[p.compressorMapId] ?? p.compressorMapId) : 'no map'}
+                    </option>
+                  ))}
+                </select>
+              </div>
+              <label className="flex items-center gap-2 pb-1.5">
+                <input type="checkbox" checked={showOthers} onChange={(e) => setShowOthers(e.target.checked)} className="size-4 accent-teal" />
+                Other plans’ lines too
+              </label>
+            </div>
+          ) : undefined
+        }
+      >
+        {!sharedMap && showOthers && (
+          <p className="mb-2 text-xs text-ink-soft">
+            The other plans’ lines are placed by their own maps’ corrected flow; read their margins from their own map (choose it above) or in the findings.
+          </p>
+        )}
+        {mapMissing && <p className="mb-2 text-sm text-copper-ink">The map of this plan could not be loaded; its lines are drawn on plain axes.</p>}
+        <div className="mb-2 flex flex-wrap items-center gap-x-4 gap-y-1 text-xs text-ink-soft">
+          {plans.map((p, i) => (
+            <span key={p.id} className="flex items-center gap-1.5">
+              <PlanSwatch index={i} />
+              {p.name}
+            </span>
+          ))}
+          <span>· scenarios by line dash · a red outline marks a point past a limit</span>
+        </div>
+        <MemoMap
+          map={drawnMap && drawnMap.kind === 'compressor' ? drawnMap : null}
+          lines={mapLines}
+          flowAxis={flowAxis}
+          onFlowAxisChange={setFlowAxis}
+          unitSystem={unitSystem}
+          highlight={highlight}
+          onPointClick={selectOnMap}
+          height={540}
+          exportName={`${title} map`}
+        />
+      </Card>
+
+      <div className="grid gap-5 2xl:grid-cols-2">
+        <Card title="Findings">
+          <MemoFindings lines={computed.lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
+        </Card>
+        <WorkingPanel line={selectedPoint?.line ?? selectedLine ?? null} point={selectedPoint?.point ?? null} unitSystem={unitSystem} onClose={() => onSelect(null)} />
+      </div>
+
+      <Card title="Against engine speed">
+        <MemoCurves lines={computed.lines} unitSystem={unitSystem} highlight={highlight} onPointClick={select} outletTemperatureLimit={outletLimit} exportName={title} />
+      </Card>
+
+      <Card title="Results">
+        <MemoTable lines={computed.lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
+      </Card>
+    </div>
+  );
+}

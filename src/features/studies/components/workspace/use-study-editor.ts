@@ -1,0 +1,72 @@
+import { useCallback, useMemo, useRef, useState } from 'react';
+import type { SpoolbookMap } from '../../../../../shared/maps/types';
+import type { StudyResult } from '../../../../../shared/matching/types';
+import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '../../../../../shared/schemas/study';
+import { studyLines, type StudyLine } from '../../../../components/study/lines';
+import { runStudyLive } from '../../../../components/study/run';
+import { issuesByPath, setIn, type DocPath } from '../../lib/draft';
+
+/** What the editor started from: the saved revision its edits will be based on. */
+export interface EditorBase {
+  revision: number;
+  document: Record<string, unknown>;
+}
+
+export interface Computed {
+  doc: StudyDocument;
+  result: StudyResult;
+  lines: StudyLine[];
+}
+
+/** A stored document as the editor holds it: migrated to the current version, plain JSON. */
+export function editableDocument(raw: unknown): Record<string, unknown> {
+  try {
+    const migrated = migrateStudyDocument(raw);
+    return migrated && typeof migrated === 'object' ? (structuredClone(migrated) as Record<string, unknown>) : {};
+  } catch {
+    return {};
+  }
+}
+
+/** The draft document and the saved revision it is based on. */
+export function useDraft(initial: EditorBase) {
+  const [base, setBase] = useState<EditorBase>(initial);
+  const [draft, setDraft] = useState<Record<string, unknown>>(initial.document);
+  const update = useCallback((path: DocPath, value: unknown) => setDraft((d) => setIn(d, path, value)), []);
+  const baseText = useMemo(() => JSON.stringify(base.document), [base]);
+  const dirty = useMemo(() => JSON.stringify(draft) !== baseText, [draft, baseText]);
+
+  /** Starts again from a saved revision (after loading theirs or restoring one). */
+  const reset = useCallback((next: EditorBase) => {
+    setBase(next);
+    setDraft(next.document);
+  }, []);
+
+  /** After a save: the sent document is the new base; anything typed since stays unsaved. */
+  const saved = useCallback((revision: number, document: Record<string, unknown>) => setBase({ revision, document }), []);
+
+  return { base, draft, update, dirty, reset, saved };
+}
+
+/** The plans' map ids named in a draft (valid or not). */
+export function mapIdsOf(draft: Record<string, unknown>): string[] {
+  const plans = Array.isArray(draft.plans) ? draft.plans : [];
+  return plans.map((p) => (p && typeof p === 'object' ? (p as { compressorMapId?: unknown }).compressorMapId : null)).filter((id): id is string => typeof id === 'string' && id !== '');
+}
+
+/**
+ * The draft checked by the study schema (issues by path) and computed in the browser. Only a
+ * valid draft with its maps loaded is computed; otherwise the last good result stays on screen.
+ */
+export function useStudyCompute(draft: Record<string, unknown>, mapsById: Record<string, SpoolbookMap | undefined>, mapsReady: boolean) {
+  const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
+  const issues = useMemo(() => (parsed.success ? {} : issuesByPath(parsed.error.issues)), [parsed]);
+  const computedNow = useMemo<Computed | null>(() => {
+    if (!parsed.success || !mapsReady) return null;
+    const result = runStudyLive(parsed.data, mapsById);
+    return { doc: parsed.data, result, lines: studyLines(result, parsed.data.plans) };
+  }, [parsed, mapsById, mapsReady]);
+  const lastGood = useRef<Computed | null>(null);
+  if (computedNow) lastGood.current = computedNow;
+  return { parsed, issues, valid: parsed.success, computed: computedNow ?? lastGood.current, stale: computedNow === null };
+}

@@ -1,0 +1,86 @@
+import { getIn } from './draft';
+
+const WORDS: Record<string, string> = {
+  engine: 'Engine',
+  displacement: 'displacement',
+  cylinders: 'cylinders',
+  strokes: 'cycle',
+  rpm: 'rpm',
+  min: 'from',
+  max: 'to',
+  step: 'step',
+  values: 'rpm list',
+  limits: 'limits',
+  maxRpm: 'rpm limit',
+  maxManifoldPressure: 'manifold pressure limit',
+  maxCompressorOutletTemperature: 'outlet temperature limit',
+  volumetricEfficiency: 'volumetric efficiency',
+  fuelSystem: 'Fuel system',
+  fuel: 'fuel',
+  ethanolPercent: 'ethanol content',
+  lambda: 'lambda',
+  injectors: 'injectors',
+  primary: 'primary set',
+  secondary: 'secondary set',
+  count: 'count',
+  ratedFlow: 'rated flow',
+  ratedPressure: 'rated pressure',
+  switchOverRpm: 'switch-over rpm',
+  fuelPressure: 'fuel pressure',
+  regulator: 'regulator',
+  pumpFlowAvailable: 'pump flow',
+  power: 'Power',
+  brakeThermalEfficiency: 'brake thermal efficiency',
+  bsfc: 'BSFC',
+  drivetrainLoss: 'drivetrain loss',
+  losses: 'Losses',
+  inlet: 'inlet loss',
+  chargeCooler: 'charge-cooler loss',
+  inletTemperatureRise: 'intake heating',
+  intercooler: 'Intercooler',
+  manifoldTemperature: 'manifold temperature',
+  effectiveness: 'effectiveness',
+  coolantTemperature: 'coolant temperature',
+  scenarios: 'Scenarios',
+  ambient: 'ambient',
+  pressure: 'barometric pressure',
+  altitude: 'altitude',
+  temperature: 'temperature',
+  boostSchedule: 'boost schedule',
+  boost: 'boost',
+  label: 'label',
+  gear: 'gear',
+  plans: 'Plans',
+  name: 'name',
+  turbochargers: 'turbochargers',
+  compressorEfficiency: 'default efficiency',
+  maxShaftSpeed: 'max wheel speed',
+  compressorMapId: 'compressor map',
+  engineLabel: 'Engine label',
+  notes: 'Notes',
+  value: 'value',
+};
+
+/**
+ * A dotted document path in words for the list of problems: `scenarios.1.boostSchedule.0.boost.2.value`
+ * → "Scenario “1,500 m” › boost row “Full load” › boost row 3 › value".
+ */
+export function describePath(path: string, draft: unknown): string {
+  if (path === '') return 'Study';
+  const keys = path.split('.').map((k) => (/^\d+$/.test(k) ? Number(k) : k));
+  const words: string[] = [];
+  keys.forEach((key, i) => {
+    if (typeof key === 'number') {
+      const parent = keys[i - 1];
+      const item = getIn(draft, keys.slice(0, i + 1)) as Record<string, unknown> | undefined;
+      const name = typeof item?.name === 'string' ? item.name : typeof item?.label === 'string' ? item.label : null;
+      if (parent === 'scenarios') words[words.length - 1] = `Scenario “${name ?? i + 1}”`;
+      else if (parent === 'plans') words[words.length - 1] = `Plan “${name ?? key + 1}”`;
+      else if (parent === 'boostSchedule') words[words.length - 1] = `boost row “${name ?? key + 1}”`;
+      else words.push(`row ${key + 1}`);
+    } else {
+      words.push(WORDS[key] ?? key);
+    }
+  });
+  return words.join(' › ');
+}
