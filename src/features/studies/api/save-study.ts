@@ -1,17 +1,15 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { studyDetailSchema, type saveStudySchema, type StudyDetail } from '../../../../shared/schemas/study';
-import { isApiError, type ApiError } from '../../../lib/api-client';
-import { meQueryOptions } from '../../../lib/session';
+import { api, isApiError, type ApiError } from '../../../lib/api-client';
 import { studyResponseSchema } from './get-study';
 import { studyKeys, studyUrl } from './keys';
-import { putJson } from './put-json';
 
 export type SaveStudyInput = z.input<typeof saveStudySchema>;
 
 /** Saves the document as the next revision after `baseRevision`; a 409 means someone saved first. */
 export function saveStudy(teamId: string, studyId: string, input: SaveStudyInput) {
-  return putJson(studyUrl(teamId, studyId), input, studyResponseSchema).then((body) => body.study);
+  return api.put(studyUrl(teamId, studyId), input, studyResponseSchema).then((body) => body.study);
 }
 
 /** The newer study a 409 `stale_revision` answer carries, or null for any other error. */
@@ -32,10 +30,6 @@ export function useSaveStudy(teamId: string, studyId: string) {
         queryClient.invalidateQueries({ queryKey: studyKeys.lists(teamId) }),
         queryClient.invalidateQueries({ queryKey: studyKeys.revisions(teamId, studyId) }),
       ]);
-    },
-    onError: (error) => {
-      // The session ended while editing: re-checking it sends the user to sign-in through the guards.
-      if (isApiError(error) && error.status === 401) void queryClient.invalidateQueries({ queryKey: meQueryOptions().queryKey });
     },
   });
 }
