@@ -24,6 +24,7 @@ import { mapsRouter } from './routes/maps';
 import { shareRouter } from './routes/share';
 import { studiesRouter } from './routes/studies';
 import { teamsRouter } from './routes/teams';
+import { tracerRouter } from './routes/tracer';
 
 export interface AppDeps {
   db: Db;
@@ -97,6 +98,7 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   api.use('/health', healthRouter(deps));
   api.use('/auth', authRouter(deps));
   api.use('/teams/:teamId/maps', mapsRouter(deps));
+  api.use('/teams/:teamId/tracer', tracerRouter(deps));
   api.use('/teams/:teamId/studies', studiesRouter(deps));
   api.use('/share', shareRouter(deps));
   api.use('/teams/:teamId/audit', teamAuditRouter(deps));

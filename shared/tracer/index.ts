@@ -9,3 +9,4 @@ export * from './calibration';
 export * from './image-header';
 export * from './state';
 export * from './build';
+export * from './api';
