@@ -80,6 +80,7 @@ function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annota
 
   // Islands first, so lines and points draw over their faint fill.
   const islands = map.curves.filter((c) => c.kind === 'island');
+  const labelAt = islandLabelPoints(map, islands);
   islands.forEach((curve, i) => {
     const x = xs(curve);
     const y = ys(curve);
@@ -97,17 +98,15 @@ function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annota
       hoverinfo: 'skip',
     });
     const efficiency = curveEfficiency(curve);
-    if (efficiency !== null && y.length > 0) {
-      const top = y.indexOf(Math.max(...y));
+    const at = labelAt[i];
+    if (efficiency !== null && at !== null) {
       annotations.push({
-        x: x[top],
-        y: y[top],
+        x: x[at],
+        y: y[at],
         text: percentLabel(efficiency),
         showarrow: false,
-        yanchor: 'bottom',
-        yshift: 1,
         font: { ...plotFont, size: 10, color: plotColours.tealDark },
-        bgcolor: 'rgba(255, 253, 248, 0.75)',
+        bgcolor: 'rgba(255, 253, 248, 0.85)',
         borderpad: 1,
       });
     }
@@ -183,6 +182,92 @@ function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annota
     });
   }
   return { data, annotations };
+}
+
+/** Distance from point p to the polyline, all in the same plane. */
+function distanceToPolyline(p: number[], line: number[][]): number {
+  let best = Infinity;
+  for (let i = 1; i < line.length; i++) {
+    const [ax, ay] = line[i - 1];
+    const [bx, by] = line[i];
+    const dx = bx - ax;
+    const dy = by - ay;
+    const t = dx === 0 && dy === 0 ? 0 : Math.max(0, Math.min(1, ((p[0] - ax) * dx + (p[1] - ay) * dy) / (dx * dx + dy * dy)));
+    best = Math.min(best, Math.hypot(p[0] - (ax + t * dx), p[1] - (ay + t * dy)));
+  }
+  return best;
+}
+
+/** Closer than this (in the unit square of the map) to the map's edge, an island point is on the edge. */
+const ON_EDGE = 0.012;
+/** Labels of two islands no closer than this (unit square), when the contour allows. */
+const LABEL_GAP = 0.06;
+
+/**
+ * Where each island's label goes: the point of its contour nearest a ray from the middle of the
+ * innermost island towards the low end of the surge line. Nested islands then get their labels in
+ * a row across the rings. Outer islands are often cut by the map's edges (surge, choke, lowest
+ * and top speed lines); a label on the edge would sit on the other islands' labels, so points on
+ * the edge are passed over, and so are points crowding a label already placed. Worked in a unit
+ * square of the map's extent, so the axis units do not matter.
+ */
+export function islandLabelPoints(map: CompressorMap, islands: readonly CompressorCurve[]): (number | null)[] {
+  const all = map.curves.flatMap((c) => c.points);
+  const maxFlow = Math.max(...all.map((p) => p.correctedMassFlow));
+  const maxRatio = Math.max(...all.map((p) => p.pressureRatio));
+  const unit = (p: { correctedMassFlow: number; pressureRatio: number }) => [
+    p.correctedMassFlow / maxFlow,
+    maxRatio > 1 ? (p.pressureRatio - 1) / (maxRatio - 1) : 0,
+  ];
+  const byEfficiency = [...islands.keys()].sort((a, b) => (curveEfficiency(islands[b]) ?? -Infinity) - (curveEfficiency(islands[a]) ?? -Infinity));
+  const peak = islands[byEfficiency[0]];
+  if (!peak || peak.points.length === 0) return islands.map(() => null);
+  const centre = peak.points.map(unit).reduce((a, b) => [a[0] + b[0], a[1] + b[1]]).map((v) => v / peak.points.length);
+  const surgeFoot = map.curves.find((c) => c.kind === 'surge')?.points[0];
+  const target = surgeFoot ? unit(surgeFoot) : [0, 0];
+  const length = Math.hypot(target[0] - centre[0], target[1] - centre[1]) || 1;
+  const d = [(target[0] - centre[0]) / length, (target[1] - centre[1]) / length];
+
+  const speedLines = map.curves.filter((c) => c.kind === 'speed').sort((a, b) => (curveSpeed(a) ?? 0) - (curveSpeed(b) ?? 0));
+  const edges = [
+    ...map.curves.filter((c) => c.kind === 'surge' || c.kind === 'choke'),
+    ...(speedLines.length ? [speedLines[0], speedLines[speedLines.length - 1]] : []),
+  ].map((c) => c.points.map(unit));
+  const onEdge = (p: number[]) => edges.some((edge) => distanceToPolyline(p, edge) < ON_EDGE);
+
+  const candidates = islands.map((island) =>
+    island.points.map(unit).map((p, i) => ({
+      i,
+      p,
+      along: (p[0] - centre[0]) * d[0] + (p[1] - centre[1]) * d[1],
+      off: Math.abs((p[0] - centre[0]) * d[1] - (p[1] - centre[1]) * d[0]),
+      edge: onEdge(p),
+    })),
+  );
+  type Candidate = (typeof candidates)[number][number];
+  const insideCount = candidates.map((list) => list.filter((c) => !c.edge).length);
+  // The islands with the least room off the edge choose first (outer islands cut by the edges
+  // have only a short stretch inside); among equals, the innermost first.
+  const order = [...byEfficiency].sort((a, b) => insideCount[a] - insideCount[b] || byEfficiency.indexOf(a) - byEfficiency.indexOf(b));
+
+  const placed: number[][] = [];
+  const result: (number | null)[] = islands.map(() => null);
+  for (const index of order) {
+    const all = candidates[index];
+    const inside = all.filter((c) => !c.edge);
+    const forward = inside.filter((c) => c.along > 0);
+    const room = (c: Candidate) => Math.min(Infinity, ...placed.map((q) => Math.hypot(c.p[0] - q[0], c.p[1] - q[1])));
+    const roomy = (c: Candidate) => room(c) >= LABEL_GAP;
+    const byRay = (list: Candidate[]) => [...list].sort((a, b) => a.off - b.off);
+    const roomiest = (list: Candidate[]) => [...list].sort((a, b) => room(b) - room(a))[0];
+    // Towards the surge foot if there is room, else anywhere off the edge with room, else wherever is least crowded.
+    const chosen = byRay(forward).find(roomy) ?? byRay(inside).find(roomy) ?? roomiest(inside.length ? inside : all);
+    if (chosen) {
+      result[index] = chosen.i;
+      placed.push(chosen.p);
+    }
+  }
+  return result;
 }
 
 /** Every value of an operating point, in the user's units, for its hover box. */

@@ -18,8 +18,8 @@ const UNIT_LABELS: Record<string, string> = {
   'N m': 'N·m',
   'lbf ft': 'lbf·ft',
   cuin: 'in³',
-  'kg/s K^0.5 / kPa': 'kg/s·K^0.5/kPa',
-  'lb/min degR^0.5 / psi': 'lb/min·°R^0.5/psi',
+  'kg/s K^0.5 / kPa': 'kg·K^0.5/(s·kPa)',
+  'lb/min degR^0.5 / psi': 'lb·°R^0.5/(min·psi)',
 };
 
 /** A mathjs unit name as people write it. */

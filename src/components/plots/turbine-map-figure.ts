@@ -25,6 +25,7 @@ export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap;
   const annotations: Partial<Annotation>[] = [];
   let maxX = 1;
   let maxY = 0;
+  let minY = Infinity;
   map.curves.forEach((curve, index) => {
     const speed = curve.points.find((p) => p.speed !== null)?.speed ?? null;
     const label = speed !== null ? krpmLabel(speed) : curve.label || `Line ${index + 1}`;
@@ -32,6 +33,7 @@ export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap;
     const y = curve.points.map((p) => p.flowParameter * perSI);
     maxX = Math.max(maxX, ...x);
     maxY = Math.max(maxY, ...y);
+    minY = Math.min(minY, ...y);
     data.push({
       type: 'scatter',
       mode: 'lines+markers',
@@ -74,7 +76,8 @@ export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap;
     automargin: true,
   };
   const xRange: [number, number] = [1, 1 + (maxX - 1) * 1.15];
-  const yRange: [number, number] = [0, maxY * 1.08 || 1];
+  // The lines sit high on a flow parameter axis from 0; start where the data starts instead.
+  const yRange: [number, number] = minY < maxY ? [Math.max(0, minY - (maxY - minY) * 0.1), maxY + (maxY - minY) * 0.1] : [0, maxY * 1.1 || 1];
   return {
     data,
     layout: {

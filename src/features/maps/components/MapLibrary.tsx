@@ -59,7 +59,7 @@ export function MapLibrary({ teamId }: { teamId: string }) {
         {!canEdit && <p className="text-sm text-ink-soft">You can read this team’s maps; editors and owners add and change them.</p>}
       </div>
 
-      <Card title={`${teamName ?? 'Team'} maps`} actions={maps.data ? <Badge>{own.length}</Badge> : undefined}>
+      <Card title="Team maps" actions={maps.data ? <Badge>{own.length}</Badge> : undefined}>
         {maps.isPending ? (
           <Loading label="Loading the map library…" />
         ) : own.length > 0 ? (

@@ -6,6 +6,10 @@ import { paths } from '../../../lib/paths';
 import type { MapSummary } from '../api/schemas';
 import { mapKindNames } from '../utils/map-facts';
 
+function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
 /** The short line a map's row carries: its top speed line and rated speed, or its housing. */
 export function mapSummaryText(map: MapSummary): string {
   const s = map.summary;
@@ -13,9 +17,9 @@ export function mapSummaryText(map: MapSummary): string {
     const parts = [];
     if (s.topSpeed !== null) parts.push(`top speed line ${krpmLabel(s.topSpeed)}`);
     parts.push(s.maxSpeed !== null ? `rated ${krpmLabel(s.maxSpeed)}` : 'no rated speed given');
-    return parts.join(', ');
+    return capitalise(parts.join(', '));
   }
-  const housing = s.housing === 'divided' ? 'divided housing' : 'single-scroll housing';
+  const housing = s.housing === 'divided' ? 'Divided housing' : 'Single-scroll housing';
   return s.areaRatio !== null ? `${housing}, A/R ${formatNumber(s.areaRatio)}` : housing;
 }
 

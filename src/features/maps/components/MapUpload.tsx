@@ -148,7 +148,7 @@ export function MapUpload({ teamId, unitSystem }: { teamId: string; unitSystem: 
       {stage.step === 'checked' && !stage.read.result.ok && (
         <MapProblemList
           title={`“${stage.read.file.name}” has ${problemCount(stage.read.result.problems)}. Nothing was saved.`}
-          intro="Fix them in the file and choose it again. Lines are counted as a text editor counts them, header lines included; columns are the CSV columns from 1 to 6."
+          intro={`Fix ${stage.read.result.problems.length === 1 ? 'it' : 'them'} in the file and choose it again. Lines are counted as a text editor counts them, header lines included; columns are the CSV columns from 1 to 6.`}
           problems={stage.read.result.problems}
           lines={stage.read.lines}
         />

@@ -1,7 +1,8 @@
 import { mapValueFromSI } from '../../../../shared/maps/units';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../../shared/maps/types';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, unitLabel } from '../../../components/plots/quantities';
-import type { UnitSystem } from '../../../lib/units';
+import { fromSI } from '../../../../shared/units';
+import { displayUnitOf, type UnitSystem } from '../../../lib/units';
 
 /** One line of what a map holds: a term and its value in words, numbers in the user's units. */
 export interface MapFact {
@@ -20,6 +21,13 @@ function lineSpeeds(speeds: (number | null)[]): string {
   if (known.length === 0) return count;
   if (known.length === 1) return `${count}, ${krpmLabel(known[0])}`;
   return `${count}, ${krpmLabel(known[0]).replace(' krpm', '')} to ${krpmLabel(known[known.length - 1])}`;
+}
+
+/** A flow range in the user's unit, to three significant digits (maps are digitised to about that). */
+function flowRange(min: number, max: number, system: UnitSystem): string {
+  const unit = displayUnitOf('massFlow', system);
+  const show = (v: number) => formatNumber(fromSI(v, unit, 'massFlow'), 3);
+  return `${show(min)} to ${show(max)} ${unitLabel(unit)}`;
 }
 
 function fileValue(value: number, unit: string): string {
@@ -47,7 +55,7 @@ function compressorFacts(map: CompressorMap, system: UnitSystem): MapFact[] {
       term: 'Reference conditions',
       value: `${formatQuantity(map.reference.temperature, 'temperature', system)}, ${formatQuantity(map.reference.pressure, 'pressure', system)} (file: ${fileValue(fileTemperature, units.referenceTemperatureUnit)}, ${fileValue(filePressure, units.referencePressureUnit)})`,
     },
-    ...(flows ? [{ term: 'Corrected mass flow', value: `${formatQuantity(flows.min, 'massFlow', system)} to ${formatQuantity(flows.max, 'massFlow', system)}` }] : []),
+    ...(flows ? [{ term: 'Corrected mass flow', value: flowRange(flows.min, flows.max, system) }] : []),
     ...(pressureRatios ? [{ term: 'Pressure ratio', value: `up to ${formatNumber(pressureRatios.max)}` }] : []),
     { term: 'Speed lines', value: lineSpeeds(speedLines.map((c) => c.points[0]?.speed ?? null)) },
     { term: 'Rated speed', value: map.maxSpeed !== null ? krpmLabel(map.maxSpeed) : 'not given (speed margin needs it from the plan)' },
