@@ -10,6 +10,7 @@ import { createLucia, type Auth } from './auth/lucia';
 import { sessionMiddleware } from './auth/session';
 import type { Config } from './config';
 import type { Database, Db } from './db/client';
+import { jsonBody } from './http/body';
 import { errorHandler, notFoundHandler } from './http/errors';
 import { requireSameOrigin } from './http/origin';
 import type { Mailer } from './mail/mailer';
@@ -40,12 +41,14 @@ export interface CreateAppOptions {
   config: Config;
   mailer: Mailer;
   logger?: Logger;
+  /** Compute requests per client per minute; only benchmarks raise it (50 users share one address there). */
+  computeRateLimitPerMinute?: number;
 }
 
 const defaultClientDir = fileURLToPath(new URL('../dist/client', import.meta.url));
 
 /** Builds the whole app without listening, so tests can drive it with supertest. */
-export function createApp({ database, config, mailer, logger = pino({ level: config.logLevel }) }: CreateAppOptions): { app: Express; deps: AppDeps } {
+export function createApp({ database, config, mailer, logger = pino({ level: config.logLevel }), computeRateLimitPerMinute }: CreateAppOptions): { app: Express; deps: AppDeps } {
   const auth = createLucia(database.db, config);
   const deps: AppDeps = { db: database.db, pool: database.pool, config, mailer, logger, auth };
   const app = express();
@@ -88,7 +91,8 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   );
 
   const api = express.Router();
-  api.use(express.json({ limit: '1mb', strict: true }));
+  // Our own JSON reader: refuses oversized, deeply nested and unstorable bodies early (server/http/body.ts).
+  api.use(jsonBody());
   api.use(requireSameOrigin(config.allowedOrigins, auth.sessionCookieName));
   api.use(sessionMiddleware(auth, config.sessionAbsoluteMs));
   api.use((_req, res, next) => {
@@ -107,7 +111,7 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   api.use('/teams', teamsRouter(deps));
   api.use('/invitations', invitationsRouter(deps));
   api.use('/admin', adminRouter(deps));
-  api.use('/compute', computeRouter());
+  api.use('/compute', computeRouter(computeRateLimitPerMinute === undefined ? {} : { rateLimitPerMinute: computeRateLimitPerMinute }));
   api.use(notFoundHandler);
   app.use('/api', api);
 

@@ -22,6 +22,15 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   NODE_ENV: z.string().default('development'),
   CLIENT_DIR: z.string().optional(),
+  /** Most time a client may take to send a whole request (headers and body), ms; slow clients are cut off. */
+  REQUEST_TIMEOUT_MS: z.coerce.number().int().min(100).max(3_600_000).default(60_000),
+  /** Most time a client may take to send the request headers, ms; at most REQUEST_TIMEOUT_MS. */
+  HEADERS_TIMEOUT_MS: z.coerce.number().int().min(100).max(3_600_000).default(20_000),
+  /** On SIGTERM, how long requests in flight may run before their connections are closed, ms. */
+  SHUTDOWN_GRACE_MS: z.coerce.number().int().min(0).max(600_000).default(10_000),
+}).refine((e) => e.HEADERS_TIMEOUT_MS <= e.REQUEST_TIMEOUT_MS, {
+  path: ['HEADERS_TIMEOUT_MS'],
+  message: 'must be at most REQUEST_TIMEOUT_MS',
 });
 
 export interface Config {
@@ -41,6 +50,12 @@ export interface Config {
   logLevel: string;
   production: boolean;
   clientDir: string | null;
+  /** Node's server.requestTimeout, ms. */
+  requestTimeoutMs: number;
+  /** Node's server.headersTimeout, ms. */
+  headersTimeoutMs: number;
+  /** Bound on finishing requests in flight at shutdown, ms. */
+  shutdownGraceMs: number;
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -73,5 +88,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     logLevel: e.LOG_LEVEL,
     production: e.NODE_ENV === 'production',
     clientDir: e.CLIENT_DIR ?? null,
+    requestTimeoutMs: e.REQUEST_TIMEOUT_MS,
+    headersTimeoutMs: e.HEADERS_TIMEOUT_MS,
+    shutdownGraceMs: e.SHUTDOWN_GRACE_MS,
   };
 }
