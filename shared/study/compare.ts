@@ -107,7 +107,7 @@ const valueRows: ValueRowSpec[] = [
     label: 'Peak crank power',
     kind: 'power',
     best: 'highest',
-    bestMeaning: 'highest power',
+    bestMeaning: 'highest: more power',
     extreme: 'max',
     value: (v) => v.brakePower,
   },
@@ -116,7 +116,7 @@ const valueRows: ValueRowSpec[] = [
     label: 'Peak wheel power',
     kind: 'power',
     best: 'highest',
-    bestMeaning: 'highest power',
+    bestMeaning: 'highest: more power',
     extreme: 'max',
     value: (v) => v.wheelPower,
   },
@@ -125,7 +125,7 @@ const valueRows: ValueRowSpec[] = [
     label: 'Peak crank torque',
     kind: 'torque',
     best: 'highest',
-    bestMeaning: 'highest torque',
+    bestMeaning: 'highest: more torque',
     extreme: 'max',
     value: (v) => v.torque,
   },
@@ -143,7 +143,7 @@ const valueRows: ValueRowSpec[] = [
     label: 'Peak compressor outlet temperature',
     kind: 'temperature',
     best: 'lowest',
-    bestMeaning: 'lowest temperature: less heat for the intercooler and the charge',
+    bestMeaning: 'lowest: less heat for the intercooler and the charge',
     extreme: 'max',
     value: (v) => v.compressorOutletTemperature,
   },
@@ -159,9 +159,9 @@ const valueRows: ValueRowSpec[] = [
 ];
 
 const severityRows: { key: CompareRowKey; label: string; severity: Severity; bestMeaning: string }[] = [
-  { key: 'limitFindings', label: 'Findings at a limit', severity: 'limit', bestMeaning: 'fewest' },
-  { key: 'warningFindings', label: 'Warnings', severity: 'warning', bestMeaning: 'fewest' },
-  { key: 'infoFindings', label: 'Notes (info)', severity: 'info', bestMeaning: 'fewest' },
+  { key: 'limitFindings', label: 'Findings at a limit', severity: 'limit', bestMeaning: 'lowest: fewest' },
+  { key: 'warningFindings', label: 'Warnings', severity: 'warning', bestMeaning: 'lowest: fewest' },
+  { key: 'infoFindings', label: 'Notes (info)', severity: 'info', bestMeaning: 'lowest: fewest' },
 ];
 
 /** The row keys in the order compareLines returns them. */

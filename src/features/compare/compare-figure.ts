@@ -58,6 +58,8 @@ export function compareFigure(args: {
 }): PlotFigure {
   const base = compressorMapFigure({ map: args.map, lines: [...args.lines], flowAxis: args.flowAxis, unitSystem: args.unitSystem, highlight: args.highlight ?? null, height: args.height });
   const extra = args.overlays.flatMap((o) => edgeTraces(o, args.flowAxis, args.unitSystem));
+  // Up to four lines and the other maps' edges make a long legend: under the plot, not over the map.
+  base.layout.legend = { ...base.layout.legend, orientation: 'h', x: 0, xanchor: 'left', y: -0.14, yanchor: 'top' };
   if (extra.length === 0) return base;
   // The base figure fits its axes to its own traces; widen them to take in the other maps' edges.
   const xs = finiteValues([...base.data, ...extra], 'x');

@@ -18,7 +18,7 @@ import { CombinationMark, type ChosenLine } from './CombinationMark';
 import { CombinationPicker } from './CombinationPicker';
 import { DifferencesTable } from './DifferencesTable';
 
-const MAP_HEIGHT = 520;
+const MAP_HEIGHT = 620;
 
 function compressorMap(map: SpoolbookMap | undefined): CompressorMap | null {
   return map && map.kind === 'compressor' ? map : null;

@@ -72,7 +72,7 @@ export function DifferencesTable({ rows, chosen, system }: { rows: readonly Comp
               <td className="whitespace-nowrap px-2 py-2 text-ink-soft">{rowUnit(row, system)}</td>
               <td className="px-2 py-2 text-xs text-ink-soft" title={row.bestMeaning}>
                 <span className="font-semibold text-ink">{BEST_WORDS[row.best]}</span>
-                {row.best !== 'none' && <span className="block">{row.bestMeaning.replace(/^(highest|lowest|fewest)(: )?/, '') || null}</span>}
+                {row.best !== 'none' && <span className="block">{row.bestMeaning.replace(/^(highest|lowest): /, '')}</span>}
               </td>
               {row.cells.map((cell, i) => {
                 const best = row.bestIndices.includes(i);

@@ -1,6 +1,5 @@
 import { useMemo, useState } from 'react';
 import { Card } from '../../../components/Card';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { planColour } from '../../../components/plots/style';
 import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
 import { findPoint, mapLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
@@ -10,6 +9,7 @@ import { StudyCaution } from '../../../components/study/StudyCaution';
 import { WorkingPanel } from '../../../components/study/WorkingPanel';
 import type { UnitSystem } from '../../../lib/units';
 import { useComputedStudy, type MapGroup, type StudyViewData } from '../study-view';
+import { StudyMapFigure } from './MapFigure';
 
 /** The point first shown in the Working: where the most severe finding is, else the first point. */
 export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | null {
@@ -85,10 +85,11 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
             <div className="space-y-3">
               <MapChooser groups={computed.groups} value={group?.key ?? ''} onChange={setGroupKey} />
               {group && (
-                <CompressorMapPlot
+                <StudyMapFigure
                   map={group.map}
                   lines={mapLines}
                   unitSystem={system}
+                  height={620}
                   highlight={selected}
                   onPointClick={(lineKey, rpm) => select({ lineKey, rpm })}
                   exportName={`${data.title} ${group.title}`}

@@ -1,8 +1,7 @@
-import type { ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { Link } from 'react-router';
 import { BrandMark, BrandWord } from '../../../components/Brand';
 import { Button, buttonClass } from '../../../components/Button';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { mapLineViews } from '../../../components/study/lines';
 import { CURVE_VIEWS } from '../../../components/study/rpm-curves-figure';
 import { RpmCurves } from '../../../components/study/RpmCurves';
@@ -14,12 +13,38 @@ import { unitSystemNames } from '../../../lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { Assumptions } from './Assumptions';
 import { PrintFindings } from './PrintFindings';
+import { StudyMapFigure } from './MapFigure';
 import { PrintResults } from './PrintResults';
 import { StudyInputs } from './StudyInputs';
 
 /** Plot sizes for paper: the report column is as wide as an A4 or Letter page inside its margins. */
-const MAP_HEIGHT = 440;
+const MAP_HEIGHT = 560;
 const CURVE_HEIGHT = 300;
+
+/**
+ * How many of the report's plots plotly has drawn. The plots load and draw one by one (plotly is
+ * large); printing before they are all there would put empty frames on paper.
+ */
+function useDrawnPlots(container: RefObject<HTMLElement | null>, expected: number): number {
+  const [drawn, setDrawn] = useState(0);
+  useEffect(() => {
+    const count = () => {
+      const plots = container.current?.querySelectorAll('.js-plotly-plot') ?? [];
+      let n = 0;
+      plots.forEach((p) => {
+        if (p.querySelector('.main-svg')) n++;
+      });
+      setDrawn(n);
+      return n;
+    };
+    if (count() >= expected) return;
+    const timer = window.setInterval(() => {
+      if (count() >= expected) window.clearInterval(timer);
+    }, 250);
+    return () => window.clearInterval(timer);
+  }, [container, expected]);
+  return drawn;
+}
 
 function ReportSection({ id, title, children, className = '' }: { id: string; title: string; children: ReactNode; className?: string }) {
   return (
@@ -57,6 +82,10 @@ export function StudyReport({
   const printedAt = formatDateTime(new Date().toISOString());
   const doc = data.document;
   const limit = doc.engine.limits?.maxCompressorOutletTemperature ?? null;
+  const article = useRef<HTMLElement>(null);
+  const expectedPlots = computed.groups.length + CURVE_VIEWS.length;
+  const drawnPlots = useDrawnPlots(article, expectedPlots);
+  const ready = drawnPlots >= expectedPlots;
 
   return (
     <div className="sb-report-page min-h-screen px-4 py-6">
@@ -65,14 +94,21 @@ export function StudyReport({
           ← {backLabel}
         </Link>
         <div className="flex items-center gap-3">
-          <span className="text-sm text-ink-soft">Prints on A4 or Letter; choose “Save as PDF” in the print dialog for a file.</span>
-          <Button variant="primary" onClick={() => window.print()}>
+          <span className="text-sm text-ink-soft" role="status">
+            {ready ? 'Prints on A4 or Letter; choose “Save as PDF” in the print dialog for a file.' : `Drawing the plots for paper: ${drawnPlots} of ${expectedPlots}…`}
+          </span>
+          <Button variant="primary" onClick={() => window.print()} disabled={!ready} pending={!ready}>
             Print
           </Button>
         </div>
       </div>
 
-      <article className="sb-report mx-auto max-w-[calc(680px+4rem)] space-y-8 rounded-sm bg-white px-8 py-8 shadow-md shadow-paper-line" data-testid="study-report">
+      <article
+        ref={article}
+        data-plots-ready={ready}
+        className="sb-report mx-auto max-w-[calc(680px+4rem)] space-y-8 rounded-sm bg-white px-8 py-8 shadow-md shadow-paper-line"
+        data-testid="study-report"
+      >
         <header className="space-y-3">
           <div className="flex items-center justify-between gap-3 text-sm text-ink-soft">
             <span className="flex items-center gap-2">
@@ -124,7 +160,7 @@ export function StudyReport({
               <figcaption className="text-sm font-semibold text-ink">
                 {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
               </figcaption>
-              <CompressorMapPlot map={g.map} lines={mapLineViews(g.lines)} unitSystem={system} height={MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
+              <StudyMapFigure map={g.map} lines={mapLineViews(g.lines)} unitSystem={system} height={MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
             </figure>
           ))}
         </ReportSection>
