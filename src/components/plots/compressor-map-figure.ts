@@ -116,11 +116,14 @@ function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annota
     .filter((c) => c.kind === 'speed')
     .map((curve) => ({ curve, speed: curveSpeed(curve) }))
     .sort((a, b) => (a.speed ?? 0) - (b.speed ?? 0));
+  // Legend words for the lines drawn as limits: usually just the top line, at the rated speed.
+  const overLimit = speedLines.some(({ speed }) => map.maxSpeed !== null && speed !== null && speed > map.maxSpeed * (1 + 1e-9));
+  const limitName = overLimit ? 'Speed lines at or over rated speed' : 'Rated speed line';
   let shownNormal = false;
   let shownOverspeed = false;
   for (const { curve, speed } of speedLines) {
     const overspeed = isOverspeed(map, speed);
-    const name = overspeed ? 'Speed lines at the rated limit' : 'Speed lines';
+    const name = overspeed ? limitName : 'Speed lines';
     const showlegend = overspeed ? !shownOverspeed : !shownNormal;
     if (overspeed) shownOverspeed = true;
     else shownNormal = true;

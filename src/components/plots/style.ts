@@ -48,4 +48,4 @@ function wrap(index: number, length: number): number {
   return ((i % length) + length) % length;
 }
 
-export const plotFont = { family: '"Roboto Flex", system-ui, sans-serif', size: 12, color: plotColours.ink };
+export const plotFont = { family: '"Roboto Flex", system-ui, "Helvetica Neue", Arial, sans-serif', size: 12, color: plotColours.ink };

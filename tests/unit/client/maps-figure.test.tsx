@@ -83,7 +83,7 @@ describe('compressor map figure', () => {
     const labels = (figure.layout.annotations ?? []).map((a) => a.text);
     // The seven speed lines of data/maps/compressor-m58.csv, 45 000 to 135 000 rpm.
     for (const speed of ['45 krpm', '70 krpm', '80 krpm', '95 krpm', '110 krpm', '120 krpm', '135 krpm']) expect(labels).toContain(speed);
-    const limitLines = traces(figure.data).filter((t) => t.name === 'Speed lines at the rated limit');
+    const limitLines = traces(figure.data).filter((t) => t.name === 'Rated speed line');
     // The file's max speed is 135000 rpm: only the top line is at the limit.
     expect(limitLines).toHaveLength(1);
     expect(limitLines[0].line?.color).toBe('#b91c1c');

@@ -5,11 +5,14 @@ import path from 'node:path';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Me, Role } from '../../../shared/schemas/account';
+import { parseMapFile } from '../../../shared/maps/parse';
+import { mapQueryOptions } from '../../../src/features/maps/api/get-map';
 import { mapsQueryOptions } from '../../../src/features/maps/api/get-maps';
-import type { MapSummary } from '../../../src/features/maps/api/schemas';
+import type { MapDetail, MapSummary } from '../../../src/features/maps/api/schemas';
 import { MapLibrary } from '../../../src/features/maps/components/MapLibrary';
 import { MapProblemList } from '../../../src/features/maps/components/MapProblemList';
 import { MapUpload } from '../../../src/features/maps/components/MapUpload';
+import { MapView } from '../../../src/features/maps/components/MapView';
 import { meQueryOptions } from '../../../src/lib/session';
 
 // plotly.js does not run under jsdom: the lazy plot is replaced by a marker. The screens are
@@ -65,6 +68,18 @@ function renderWith(ui: React.ReactNode, role: Role = 'owner') {
     },
   ];
   queryClient.setQueryData(mapsQueryOptions('t1').queryKey, maps);
+  const parsed = parseMapFile(readFileSync(path.join(root, 'data', 'maps', 'compressor-m58.csv'), 'utf8'));
+  if (!parsed.ok) throw new Error('the M58 demo map does not read');
+  const detail: MapDetail = {
+    ...maps[0],
+    notes: 'Digitised from the workshop copy.',
+    fileName: 'workshop-wheel.csv',
+    revision: 2,
+    createdAt: '2025-03-01T10:00:00Z',
+    map: parsed.map,
+  };
+  queryClient.setQueryData(mapQueryOptions('t1', 'm1').queryKey, detail);
+  queryClient.setQueryData(mapQueryOptions('t1', 'builtin-m58').queryKey, { ...detail, id: 'builtin-m58', builtin: true, createdBy: null, updatedAt: null });
   render(
     <QueryClientProvider client={queryClient}>
       <MemoryRouter>{ui}</MemoryRouter>
@@ -150,5 +165,31 @@ describe('map library by role', () => {
     fireEvent.click(screen.getByLabelText('Turbine'));
     expect(screen.queryByRole('link', { name: 'Workshop wheel' })).toBeNull();
     expect(screen.getByRole('link', { name: 'Demo turbine' })).toBeTruthy();
+  });
+});
+
+describe('one map by role', () => {
+  it('shows a viewer the plot, the facts, the notes and the download, and nothing to change', () => {
+    renderWith(<MapView teamId="t1" mapId="m1" onDeleted={() => undefined} />, 'viewer');
+    expect(screen.getByRole('heading', { level: 1, name: 'Workshop wheel' })).toBeTruthy();
+    expect(screen.getByTestId('plot')).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Download CSV' }).getAttribute('href')).toBe('/api/teams/t1/maps/m1/file');
+    expect(screen.getByText('Digitised from the workshop copy.')).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Save name and notes' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Delete map' })).toBeNull();
+  });
+
+  it('gives an editor the name and notes form and delete', () => {
+    renderWith(<MapView teamId="t1" mapId="m1" onDeleted={() => undefined} />, 'editor');
+    expect((screen.getByLabelText('Name') as HTMLInputElement).value).toBe('Workshop wheel');
+    expect(screen.getByRole('button', { name: 'Save name and notes' })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Delete map' })).toBeTruthy();
+  });
+
+  it('keeps a built-in demo map read-only even for an owner', () => {
+    renderWith(<MapView teamId="t1" mapId="builtin-m58" onDeleted={() => undefined} />, 'owner');
+    expect(screen.getByText('Built-in demo map')).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Save name and notes' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Delete map' })).toBeNull();
   });
 });
