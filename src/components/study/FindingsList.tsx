@@ -66,9 +66,95 @@ const SEVERITY_STYLE: Record<Severity, { mark: string; box: string }> = {
   info: { mark: 'bg-teal-light text-teal-dark', box: 'border-paper-line' },
 };
 
+/** A short name for each kind of finding, to head its list of lines (kinds added later read from their code). */
+export const FINDING_TITLES: Partial<Record<string, string>> = {
+  unsolvable: 'No solution at these inputs',
+  'input-out-of-range': 'Input outside the usual range',
+  'injector-duty-high': 'Injector duty above the usual ceiling',
+  'injector-duty-limit': 'Injector duty over the limit',
+  'injector-saturated': 'Injectors saturated',
+  'injector-no-flow': 'No pressure left across the injectors',
+  'fuel-pump-short': 'Fuel pump too small',
+  'fuel-pump-near-limit': 'Fuel pump close to its limit',
+  'compressor-outlet-temperature-high': 'Compressor outlet temperature high',
+  'compressor-outlet-temperature-limit': 'Compressor outlet temperature over the stated limit',
+  'efficiency-off-map': 'No efficiency from the map (the plan’s default is used)',
+  'map-left-of-surge': 'Left of the surge line',
+  'map-beyond-choke': 'Beyond the choke limit',
+  'map-above-top-speed': 'Above the top speed line',
+  'map-below-map': 'Below the map',
+  'map-off-map': 'Off the map',
+  overspeed: 'Shaft speed over the limit',
+  throttled: 'Throttled: manifold below compressor inlet pressure',
+  'not-converged': 'Manifold temperature did not settle',
+  'rpm-limit': 'Above the rpm limit',
+  'manifold-pressure-limit': 'Manifold pressure over the stated limit',
+  'boost-target-not-held': 'Boost target not reached',
+  'wastegate-too-small': 'Wastegate too small',
+  'drive-pressure-ratio-high': 'Drive pressure ratio high',
+  'turbine-off-map': 'Turbine point off its map',
+  'turbine-efficiency-assumed': 'Turbine efficiency assumed',
+  'turbine-map-missing': 'No turbine map',
+  'turbine-housing-mismatch': 'Turbine housing does not match its map',
+  'exhaust-not-converged': 'Exhaust side did not settle',
+  'throttle-sets-boost': 'The throttle sets the boost',
+};
+
+export function findingTitle(code: FindingCode): string {
+  const title = FINDING_TITLES[code];
+  if (title) return title;
+  const words = code.replace(/-/g, ' ');
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
+function LineFinding({ group, unitSystem, selected, onSelect }: { group: FindingGroup; unitSystem: UnitSystem; selected: PointRef | null; onSelect: (point: PointRef) => void }) {
+  const rpms = [...group.rpms].sort((a, b) => a - b);
+  const isSelected = selected !== null && selected.lineKey === group.line.key && rpms.some((r) => sameRpm(r, selected.rpm));
+  const message = localizeMessage(group.finding.message, unitSystem);
+  return (
+    <li className={`rounded-md border bg-white/70 text-sm ${SEVERITY_STYLE[group.severity].box} ${isSelected ? 'ring-2 ring-teal' : ''}`}>
+      <button
+        type="button"
+        onClick={() => onSelect({ lineKey: group.line.key, rpm: rpms[0] })}
+        className="block w-full rounded-md px-3 py-1.5 text-left hover:bg-paper-deep/40"
+        aria-label={`${findingTitle(group.code)}: ${group.line.label}, ${rpmSpan(rpms)}. ${message} Show on the plots.`}
+      >
+        <span className="flex items-start gap-2">
+          <span aria-hidden="true" className="mt-1.5 inline-block size-2.5 shrink-0 rounded-full" style={{ background: planColour(group.line.planIndex) }} />
+          <span className="min-w-0">
+            <span className="text-ink">{group.line.label}</span>
+            <span className="text-ink-soft"> · {rpmSpan(rpms)}</span>
+            <span className="block text-xs text-ink-soft">{message}</span>
+          </span>
+        </span>
+      </button>
+      {rpms.length > 1 && (
+        <div className="flex flex-wrap gap-1 px-3 pb-2 pl-7" role="group" aria-label={`Speeds of ${group.line.label}`}>
+          {rpms.map((rpm) => {
+            const here = selected !== null && selected.lineKey === group.line.key && sameRpm(selected.rpm, rpm);
+            return (
+              <button
+                key={rpm}
+                type="button"
+                aria-pressed={here}
+                aria-label={`${formatNumber(rpm, 21)} rpm`}
+                onClick={() => onSelect({ lineKey: group.line.key, rpm })}
+                className={`numeric rounded border px-1.5 py-0.5 text-xs ${here ? 'border-teal bg-teal text-white' : 'border-ink/15 bg-white text-ink-soft hover:border-teal hover:text-teal-dark'}`}
+              >
+                {formatNumber(rpm, 21)}
+              </button>
+            );
+          })}
+        </div>
+      )}
+    </li>
+  );
+}
+
 /**
- * The findings of a study grouped by severity (red only for limits). Clicking one selects its
- * first point (or the speed clicked): the map, the curves and the table highlight it.
+ * The findings of a study by severity (red only for limits), then by kind, one entry per line
+ * with the speeds where it was raised. Clicking a line or a speed selects that point: the map,
+ * the curves and the table highlight it and the Working shows it.
  */
 export function FindingsList({
   lines,
@@ -86,68 +172,43 @@ export function FindingsList({
     return <p className="text-sm text-ink-soft">No findings: every point is inside the map with no limit crossed.</p>;
   }
   return (
-    <div className="space-y-3" data-testid="findings">
+    <div className="max-h-[40rem] space-y-3 overflow-y-auto pr-1" data-testid="findings">
       {ORDER.map((severity) => {
         const list = groups.filter((g) => g.severity === severity);
         if (list.length === 0) return null;
         const text = SEVERITY_TEXT[severity];
+        const codes = [...new Set(list.map((g) => g.code))];
         return (
-          <details key={severity} open={severity !== 'info'} className="group">
-            <summary className="flex cursor-pointer items-baseline gap-2 py-1 marker:text-ink-faint">
-              <span className={`rounded px-1.5 py-0.5 text-xs font-bold uppercase tracking-wide ${SEVERITY_STYLE[severity].mark}`}>{severity}</span>
-              <span className="font-semibold text-ink">
-                {text.title} ({list.length})
-              </span>
-              <span className="hidden text-xs text-ink-faint sm:inline">{text.hint}</span>
-            </summary>
-            <ul className="mt-1 space-y-1.5">
-              {list.map((g) => {
-                const isSelected = selected !== null && selected.lineKey === g.line.key && g.rpms.some((r) => sameRpm(r, selected.rpm));
-                return (
-                  <li key={g.id} className={`rounded-md border bg-white/70 text-sm ${SEVERITY_STYLE[severity].box} ${isSelected ? 'ring-2 ring-teal' : ''}`}>
-                    <button
-                      type="button"
-                      onClick={() => onSelect({ lineKey: g.line.key, rpm: Math.min(...g.rpms) })}
-                      className="block w-full px-3 pt-2 text-left hover:bg-paper-deep/40"
-                      aria-label={`${localizeMessage(g.finding.message, unitSystem)} ${g.line.label}, ${rpmSpan(g.rpms)}. Show on the plots.`}
-                    >
-                      <span className="flex items-start gap-2">
-                        <span aria-hidden="true" className="mt-1.5 inline-block size-2.5 shrink-0 rounded-full" style={{ background: planColour(g.line.planIndex) }} />
-                        <span>
-                          <span className="text-ink">{localizeMessage(g.finding.message, unitSystem)}</span>
-                          <span className="block text-xs text-ink-soft">
-                            {g.line.label} · {rpmSpan(g.rpms)}
-                          </span>
-                        </span>
-                      </span>
-                    </button>
-                    {g.rpms.length > 1 ? (
-                      <div className="flex flex-wrap gap-1 px-3 pb-2 pl-7 pt-1" role="group" aria-label="Speeds">
-                        {[...g.rpms]
-                          .sort((a, b) => a - b)
-                          .map((rpm) => {
-                            const here = selected !== null && selected.lineKey === g.line.key && sameRpm(selected.rpm, rpm);
-                            return (
-                              <button
-                                key={rpm}
-                                type="button"
-                                aria-pressed={here}
-                                onClick={() => onSelect({ lineKey: g.line.key, rpm })}
-                                className={`numeric rounded border px-1.5 py-0.5 text-xs ${here ? 'border-teal bg-teal text-white' : 'border-ink/15 bg-white text-ink-soft hover:border-teal hover:text-teal-dark'}`}
-                              >
-                                {formatNumber(rpm, 21)}
-                              </button>
-                            );
-                          })}
-                      </div>
-                    ) : (
-                      <div className="pb-2" />
-                    )}
-                  </li>
-                );
-              })}
-            </ul>
-          </details>
+          <section key={severity} aria-label={text.title} className="space-y-2">
+            <div>
+              <h4 className="flex items-baseline gap-2">
+                <span className={`rounded px-1.5 py-0.5 text-xs font-bold uppercase tracking-wide ${SEVERITY_STYLE[severity].mark}`}>{severity}</span>
+                <span className="font-semibold text-ink">{text.title}</span>
+              </h4>
+              <p className="text-xs text-ink-faint">{text.hint}</p>
+            </div>
+            {codes.map((code) => {
+              const ofCode = list.filter((g) => g.code === code);
+              const points = ofCode.reduce((n, g) => n + g.rpms.length, 0);
+              const hasSelected = selected !== null && ofCode.some((g) => g.line.key === selected.lineKey && g.rpms.some((r) => sameRpm(r, selected.rpm)));
+              return (
+                <details key={code} open={severity === 'limit' || hasSelected} className="rounded-md border border-paper-line bg-paper/40">
+                  <summary className="cursor-pointer px-3 py-1.5 text-sm marker:text-ink-faint">
+                    <span className="font-semibold text-ink">{findingTitle(code)}</span>
+                    <span className="text-ink-soft">
+                      {' '}
+                      · {ofCode.length} {ofCode.length === 1 ? 'line' : 'lines'}, {points} {points === 1 ? 'point' : 'points'}
+                    </span>
+                  </summary>
+                  <ul className="space-y-1.5 px-2 pb-2">
+                    {ofCode.map((g) => (
+                      <LineFinding key={g.id} group={g} unitSystem={unitSystem} selected={selected} onSelect={onSelect} />
+                    ))}
+                  </ul>
+                </details>
+              );
+            })}
+          </section>
         );
       })}
     </div>

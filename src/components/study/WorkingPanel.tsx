@@ -149,7 +149,7 @@ export function WorkingPanel({
           This point has no solution: {point.findings.map((f) => f.message).join(' ')}
         </p>
       )}
-      <ol className="ml-3 max-h-[42rem] overflow-y-auto pr-2 pt-1">
+      <ol className="max-h-[42rem] overflow-y-auto pl-4 pr-2 pt-1">
         {steps.map((s, i) => (
           <StepView key={`${s.id}-${i}`} step={s} index={i} system={unitSystem} />
         ))}

@@ -85,7 +85,7 @@ export function resultsTsv(rows: readonly ResultTableRow[], system: UnitSystem, 
     clean(r.row),
     ...columns.map((c) => {
       const v = cellValue(r, c, system);
-      return v === null ? '' : inputText(v);
+      return v === null ? '' : inputText(v, 6);
     }),
     clean(r.findings),
   ]);

@@ -118,13 +118,14 @@ export function formatStudyValue(value: unknown, quantity: StudyQuantity | null,
 }
 
 /**
- * A number for an input box: enough digits to be faithful (6 significant), none of the float
- * noise a unit conversion leaves (0.30000000000000004), no grouping commas (they would not parse).
+ * A number for an input box: 5 significant figures (a converted 300 kPa reads 43.511 psi, not
+ * 43.5113), none of the float noise a conversion leaves, no grouping commas (they would not
+ * parse). Showing fewer digits changes nothing stored: the SI value changes only when typed over.
  */
-export function inputText(value: number): string {
+export function inputText(value: number, significant = 5): string {
   if (!Number.isFinite(value)) return '';
   if (value === 0) return '0';
-  return String(Number(value.toPrecision(6)));
+  return String(Number(value.toPrecision(significant)));
 }
 
 /**

@@ -49,17 +49,15 @@ export function FuelSection() {
         <NumberField path={['fuelSystem', 'injectors', 'primary', 'ratedFlow']} label="Rated flow, each" quantity="injectorFlow" />
       </FieldRow>
       <NumberField path={['fuelSystem', 'injectors', 'primary', 'ratedPressure']} label="Rated at a pressure difference of" quantity="pressure" />
-      <FieldRow>
-        <NumberField path={['fuelSystem', 'injectors', 'fuelPressure']} label="Base fuel pressure" quantity="pressureGauge" />
-        <ChoiceField
-          path={['fuelSystem', 'injectors', 'regulator']}
-          label="Regulator"
-          options={[
-            { value: 'manifold-referenced', label: 'Rises with boost (1:1)' },
-            { value: 'fixed-rail', label: 'Fixed rail pressure' },
-          ]}
-        />
-      </FieldRow>
+      <NumberField path={['fuelSystem', 'injectors', 'fuelPressure']} label="Base fuel pressure" quantity="pressureGauge" />
+      <ChoiceField
+        path={['fuelSystem', 'injectors', 'regulator']}
+        label="Regulator"
+        options={[
+          { value: 'manifold-referenced', label: 'Rail rises with boost (1:1 regulator)' },
+          { value: 'fixed-rail', label: 'Fixed rail pressure' },
+        ]}
+      />
       <ToggleField
         label="Staged secondary injectors"
         checked={secondary !== undefined}

@@ -106,7 +106,9 @@ export function UnitNumberInput({
             if (typingError === null) setText(shown);
           }}
           onPaste={onPaste}
-          className={compact ? compactInput : `${inputClass} numeric ${unitText && !compact ? 'pr-20' : ''}`}
+          // Room on the right for the unit written inside the box.
+          style={!compact && unitText ? { paddingRight: `${1 + unitText.length * 0.5}rem` } : undefined}
+          className={compact ? compactInput : `${inputClass} numeric`}
         />
         {!compact && unitText && (
           <span aria-hidden="true" className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm text-ink-faint">

@@ -46,7 +46,7 @@ export function SaveControls({
         />
       </div>
       <Button type="submit" variant="primary" pending={pending} disabled={!dirty || !valid}>
-        Save revision {nextRevision}
+        {dirty ? `Save revision ${nextRevision}` : 'Saved'}
       </Button>
       <p role="status" className={`w-full text-xs ${dirty ? 'font-semibold text-copper-ink' : 'text-ink-soft'}`} data-testid="save-status">
         {status}

@@ -46,7 +46,7 @@ export function StudyPlots({
 }) {
   const mapChoiceId = useId();
   const [mapPlanId, setMapPlanId] = useState<string | null>(null);
-  const [showOthers, setShowOthers] = useState(true);
+  const [showOthers, setShowOthers] = useState(false);
   const [flowAxis, setFlowAxis] = useState<'corrected' | 'volume'>('corrected');
 
   const plans = computed?.doc.plans ?? [];
