@@ -42,7 +42,7 @@ export function TeamSwitcher() {
         id={id}
         value={known ? (currentTeamId ?? '') : ''}
         onChange={(event) => choose(event.target.value)}
-        className="max-w-48 truncate rounded-md border border-ink/25 bg-white/80 py-1 pl-2 pr-7 text-sm text-ink focus:border-teal"
+        className="max-w-60 truncate rounded-md border border-ink/25 bg-white/80 py-1 pl-2 pr-7 text-sm text-ink focus:border-teal"
       >
         {!known && (
           <option value="" disabled>
