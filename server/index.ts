@@ -1,5 +1,5 @@
 import http from 'node:http';
-import type { AddressInfo } from 'node:net';
+import type { AddressInfo, Socket } from 'node:net';
 import { pathToFileURL } from 'node:url';
 import pino, { type Logger } from 'pino';
 import type pg from 'pg';
@@ -120,6 +120,13 @@ export async function startServer(config: Config = loadConfig(), options: StartO
 
   let stopping = false;
   const inFlight = new Set<http.ServerResponse>();
+  /** Requests under way on each open connection. */
+  const connections = new Map<Socket, number>();
+  // Node's closeIdleConnections leaves alone a connection that never sent a request (a browser's
+  // speculative preconnect), which would hold a shutdown open for the whole grace period.
+  const closeIdleConnections = () => {
+    for (const [socket, active] of connections) if (active === 0) socket.destroy();
+  };
   const server = http.createServer(
     {
       // Slow clients (headers or body trickled in) are cut off with 408 after these.
@@ -130,11 +137,21 @@ export async function startServer(config: Config = loadConfig(), options: StartO
     },
     (req, res) => {
       inFlight.add(res);
-      res.once('close', () => inFlight.delete(res));
+      const socket = req.socket;
+      connections.set(socket, (connections.get(socket) ?? 0) + 1);
+      res.once('close', () => {
+        inFlight.delete(res);
+        if (connections.has(socket)) connections.set(socket, Math.max(0, (connections.get(socket) ?? 1) - 1));
+        if (stopping) setImmediate(closeIdleConnections);
+      });
       if (stopping) res.setHeader('Connection', 'close');
       app(req, res);
     },
   );
+  server.on('connection', (socket: Socket) => {
+    connections.set(socket, 0);
+    socket.once('close', () => connections.delete(socket));
+  });
   server.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
@@ -153,12 +170,11 @@ export async function startServer(config: Config = loadConfig(), options: StartO
       const force = setTimeout(() => {
         logger.warn({ inFlight: inFlight.size }, `requests still in flight after ${config.shutdownGraceMs} ms; closing their connections`);
         server.closeAllConnections();
+        for (const socket of connections.keys()) socket.destroy();
       }, config.shutdownGraceMs);
       // Keep-alive connections must not hold the shutdown open: tell clients this connection ends
       // with the answer they are waiting for, and close each connection as soon as it goes idle.
       for (const res of inFlight) if (!res.headersSent) res.setHeader('Connection', 'close');
-      server.on('request', (_req, res) => res.once('finish', () => setImmediate(() => server.closeIdleConnections())));
-      for (const res of inFlight) res.once('finish', () => setImmediate(() => server.closeIdleConnections()));
       server.close(async () => {
         clearTimeout(force);
         logger.info('HTTP server closed; closing mail and the database pool');
@@ -176,7 +192,7 @@ export async function startServer(config: Config = loadConfig(), options: StartO
         else logger.warn({ checkedOut: database.pool.totalCount - database.pool.idleCount }, 'database pool still had clients in use after 5 s; stopped anyway');
         resolve();
       });
-      server.closeIdleConnections();
+      closeIdleConnections();
     });
     return stopped;
   };
