@@ -73,6 +73,8 @@ export const routes = [
               // The map pages load with their own code (the map reader, units and plots) on first use.
               { path: paths.teamMaps.path, lazy: () => import('./routes/maps-library').then((m) => ({ Component: m.MapsLibraryRoute })) },
               { path: paths.teamMap.path, lazy: () => import('./routes/maps-detail').then((m) => ({ Component: m.MapsDetailRoute })) },
+              { path: paths.teamTracer.path, lazy: () => import('./routes/tracer').then((m) => ({ Component: m.TracerRoute })) },
+              { path: paths.teamTracerDraft.path, lazy: () => import('./routes/tracer-draft').then((m) => ({ Component: m.TracerDraftRoute })) },
               { path: paths.learn.path, lazy: () => import('./routes/learn').then((m) => ({ Component: m.LearnRoute })) },
               { path: paths.teamStudyCompare.path, lazy: () => import('./routes/compare').then((m) => ({ Component: m.CompareRoute })) },
               { path: paths.teams.path, element: <TeamsRoute /> },

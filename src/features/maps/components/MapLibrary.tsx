@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router';
 import { Alert } from '../../../components/Alert';
 import { Badge } from '../../../components/Badge';
+import { ButtonLink } from '../../../components/Button';
 import { Card } from '../../../components/Card';
 import { Loading, Page } from '../../../components/Page';
 import { isApiError } from '../../../lib/api-client';
@@ -46,6 +47,7 @@ export function MapLibrary({ teamId }: { teamId: string }) {
     <Page
       eyebrow={teamName ?? 'Team'}
       title="Map library"
+      actions={<ButtonLink to={paths.teamTracer.href(teamId)}>Trace a picture</ButtonLink>}
       description="The team’s compressor and turbine maps, and built-in demo maps to try Spoolbook with. Open a map to see it drawn."
     >
       {canEdit && (

@@ -1,0 +1,29 @@
+import { Link } from 'react-router';
+import { Alert } from '../../../components/Alert';
+import { Loading, Page } from '../../../components/Page';
+import { isApiError } from '../../../lib/api-client';
+import { paths } from '../../../lib/paths';
+import { useDraft } from '../api/get-draft';
+import { useTracerAccess } from '../lib/team-access';
+import { TraceEditor } from './TraceEditor';
+
+/** One trace in progress: loads the draft, then hands it to the editor. */
+export function TracerWorkspace({ teamId, draftId }: { teamId: string; draftId: string }) {
+  const draft = useDraft(teamId, draftId);
+  const { teamName, canEdit } = useTracerAccess(teamId);
+  if (draft.isPending) return <Loading label="Loading the trace…" />;
+  if (draft.isError) {
+    const missing = isApiError(draft.error) && (draft.error.status === 404 || draft.error.status === 403);
+    return (
+      <Page title={missing ? 'Trace not found' : 'Tracer'}>
+        <Alert tone="error" title={missing ? 'This trace does not exist, or it is not in a team of yours.' : 'Could not load the trace.'}>
+          {!missing && <p>{draft.error.message}</p>}
+          <p>
+            <Link to={paths.teamTracer.href(teamId)}>Back to the Tracer</Link>
+          </p>
+        </Alert>
+      </Page>
+    );
+  }
+  return <TraceEditor teamId={teamId} teamName={teamName} draft={draft.data} canEdit={canEdit} />;
+}
