@@ -2,7 +2,7 @@ import type { WorkingStep, WorkingValue } from '../../../../shared/matching/work
 import { fromSI, siUnitOf, type QuantityKind } from '../../../../shared/units';
 import { formatNumber, formatQuantity, unitLabel } from '../../../components/plots/quantities';
 import { displayUnitOf, type UnitSystem } from '../../../lib/units';
-import { Formula, MathSymbol } from './Formula';
+import { Formula, MathSymbol } from '../../../components/study/Formula';
 
 function isQuantityKind(kind: string): kind is QuantityKind {
   return Object.prototype.hasOwnProperty.call(siUnitOf, kind);
@@ -55,11 +55,13 @@ export function WorkingStepCard({ step, system }: { step: WorkingStep; system: U
       <p className="mt-1 text-sm text-ink-soft">{step.explanation}</p>
       {!isLookup && (
         <div className="mt-3">
-          <Formula result={step.result.symbol} formula={step.formula} />
+          <p className="overflow-x-auto py-1 text-lg">
+            <Formula expression={step.formula} result={step.result.symbol} />
+          </p>
           <dl className="mt-2 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-2">
             {step.values.map((v) => (
               <div key={v.symbol} className="flex gap-2">
-                <dt className="min-w-12">
+                <dt className="min-w-12 font-serif">
                   <MathSymbol name={v.symbol} />
                 </dt>
                 <dd>
@@ -71,7 +73,10 @@ export function WorkingStepCard({ step, system }: { step: WorkingStep; system: U
         </div>
       )}
       <p className="mt-3 rounded bg-teal-light/40 px-3 py-1.5 text-sm">
-        <MathSymbol name={step.result.symbol} /> = <strong className="font-semibold"><ValueText value={step.result} system={system} /></strong>
+        <span className="font-serif">
+          <MathSymbol name={step.result.symbol} />
+        </span>{' '}
+        = <strong className="font-semibold"><ValueText value={step.result} system={system} /></strong>
       </p>
       <p className="mt-2 text-xs text-ink-faint">Source: {step.source}</p>
     </article>
