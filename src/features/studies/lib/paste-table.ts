@@ -29,7 +29,8 @@ export function parsePastedTable(text: string): PastedTable {
   const lines = text
     .replace(/\r\n?/g, '\n')
     .split('\n')
-    .map((l) => l.replace(/\s+$/, ''))
+    // A percent sign, with or without a space before it, says nothing the column header does not.
+    .map((l) => l.replace(/\s*%/g, '').replace(/\s+$/, ''))
     .filter((l) => l.trim() !== '');
   if (lines.length === 0) return { ok: false, message: 'Nothing to paste: the clipboard holds no numbers.' };
 
