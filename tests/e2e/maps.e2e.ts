@@ -63,7 +63,7 @@ describe('map library in the browser', () => {
     await closeTestDatabase();
   });
 
-  it('uploads a demo map, lists it, draws it, downloads it, explains a broken file by line and column, and deletes the map', async () => {
+  it('uploads a demo map, lists it, draws and exports it, downloads it, explains a broken file by line and column, renames and deletes the map', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
     const errors = watchForPageErrors(page);
     await signIn(page);
@@ -135,14 +135,23 @@ describe('map library in the browser', () => {
     await expectProblems(page, 'decimal-comma-quoted.csv');
     await screenshot(page, 'maps-bad-file');
 
-    // Delete the uploaded map: it leaves the library.
+    // Rename it and note where it came from; the library shows the new name.
     await page.getByRole('table', { name: "The team's maps" }).getByRole('link', { name, exact: true }).click();
+    const renamed = `${name} (renamed)`;
+    await page.getByLabel('Name', { exact: true }).fill(renamed);
+    await page.getByLabel('Notes', { exact: true }).fill('Uploaded by the browser test.');
+    await page.getByRole('button', { name: 'Save name and notes' }).click();
+    await page.getByRole('heading', { level: 1, name: renamed }).waitFor();
+    await page.getByRole('link', { name: /Map library/ }).click();
+    await page.getByRole('table', { name: "The team's maps" }).getByRole('link', { name: renamed, exact: true }).click();
+
+    // Delete the uploaded map: it leaves the library.
     await page.getByRole('button', { name: 'Delete map' }).click();
     await page.getByRole('dialog').getByRole('button', { name: 'Delete map' }).click();
     await page.waitForURL(libraryUrl);
     await page.getByRole('heading', { level: 1, name: 'Map library' }).waitFor();
     await page.getByRole('table', { name: 'Built-in demo maps' }).waitFor();
-    expect(await page.getByRole('link', { name, exact: true }).count()).toBe(0);
+    await expect.poll(() => page.getByRole('link', { name: renamed, exact: true }).count()).toBe(0);
 
     expect(errors).toEqual([]);
     await page.close();

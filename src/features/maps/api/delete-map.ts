@@ -15,6 +15,9 @@ export function useDeleteMap(teamId: string, mapId: string) {
     onSuccess: () => {
       // The map's own page is left right after this; refetching it now would only find a 404.
       queryClient.removeQueries({ queryKey: mapQueryOptions(teamId, mapId).queryKey, exact: true });
+      // The library is not on screen now, so invalidating alone would show the deleted map there
+      // until its refetch lands: take it out of the cached list at once.
+      queryClient.setQueryData(mapsQueryOptions(teamId).queryKey, (maps) => maps?.filter((m) => m.id !== mapId));
       return queryClient.invalidateQueries({ queryKey: mapsQueryOptions(teamId).queryKey, exact: true });
     },
   });

@@ -18,10 +18,15 @@ export function useUpdateMap(teamId: string, mapId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: UpdateMapInput) => updateMap(teamId, mapId, input),
-    onSuccess: () =>
-      Promise.all([
+    onSuccess: (map) => {
+      // The library is not on screen here: show the new name there at once, not after its refetch.
+      queryClient.setQueryData(mapsQueryOptions(teamId).queryKey, (maps) =>
+        maps?.map((m) => (m.id === mapId ? { ...m, name: map.name, notes: map.notes, updatedAt: map.updatedAt } : m)),
+      );
+      return Promise.all([
         queryClient.invalidateQueries({ queryKey: mapQueryOptions(teamId, mapId).queryKey, exact: true }),
         queryClient.invalidateQueries({ queryKey: mapsQueryOptions(teamId).queryKey, exact: true }),
-      ]),
+      ]);
+    },
   });
 }
