@@ -17,7 +17,20 @@ function chunks<T>(items: readonly T[], size: number): T[][] {
 }
 
 /** A table by rpm laid across the page: engine speeds in the first row, values in the second. */
-export function RpmTableView({ caption, table, quantity, system }: { caption: string; table: RpmTable; quantity: StudyQuantity; system: UnitSystem }) {
+export function RpmTableView({
+  caption,
+  valueLabel = caption,
+  table,
+  quantity,
+  system,
+}: {
+  caption: string;
+  /** What the value row holds, e.g. "Boost"; the unit is added to it. */
+  valueLabel?: string;
+  table: RpmTable;
+  quantity: StudyQuantity;
+  system: UnitSystem;
+}) {
   const unit = quantityUnit(quantity, system);
   return (
     <div className="space-y-1">
@@ -37,7 +50,7 @@ export function RpmTableView({ caption, table, quantity, system }: { caption: st
             </tr>
             <tr>
               <th scope="row" className="whitespace-nowrap border border-paper-line bg-paper-deep/50 px-2 py-1 text-left text-xs font-semibold text-ink-soft">
-                {unit.label ? `${caption} (${unit.label})` : caption}
+                {unit.label ? `${valueLabel} (${unit.label})` : valueLabel}
               </th>
               {block.map((row) => (
                 <td key={row.rpm} className="numeric border border-paper-line px-2 py-1 text-right">
@@ -59,7 +72,8 @@ function Facts({ items }: { items: [string, ReactNode][] }) {
       {items.map(([label, value]) => (
         <div key={label} className="flex justify-between gap-3 border-b border-paper-line/70 py-1">
           <dt className="text-ink-soft">{label}</dt>
-          <dd className="numeric text-right font-medium text-ink">{value}</dd>
+          {/* Short values (a number and its unit) stay on one line; sentences may wrap. */}
+          <dd className={`numeric text-right font-medium text-ink ${typeof value === 'string' && value.length <= 24 ? 'shrink-0 whitespace-nowrap' : ''}`}>{value}</dd>
         </div>
       ))}
     </dl>
@@ -193,7 +207,14 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
                   <span className="text-ink-soft">· {ambient}</span>
                 </p>
                 {s.boostSchedule.map((row, j) => (
-                  <RpmTableView key={j} caption={`Boost, ${row.label} (${rowKindText(row.kind, row.gear)})`} table={row.boost} quantity="pressureGauge" system={system} />
+                  <RpmTableView
+                    key={j}
+                    caption={rowKindText(row.kind, row.gear) === row.label ? `Boost row: ${row.label}` : `Boost row: ${row.label} (${rowKindText(row.kind, row.gear).toLowerCase()})`}
+                    valueLabel="Boost"
+                    table={row.boost}
+                    quantity="pressureGauge"
+                    system={system}
+                  />
                 ))}
               </div>
             );
