@@ -195,7 +195,8 @@ export function mapsRouter({ db }: AppDeps): Router {
       .set({ ...input, revision: row.revision + 1, updatedAt: new Date() })
       .where(eq(maps.id, row.id))
       .returning();
-    res.json({ map: detail(updated, null) });
+    const [creator] = updated.createdBy ? await db.select({ name: users.name }).from(users).where(eq(users.id, updated.createdBy)) : [];
+    res.json({ map: detail(updated, creator?.name ?? null) });
   });
 
   router.delete('/:mapId', async (req, res) => {

@@ -1,10 +1,12 @@
 import type { ReactNode } from 'react';
-import { Link, NavLink } from 'react-router';
+import { Link, NavLink, useLocation } from 'react-router';
 import { BrandMark, BrandWord } from './Brand';
 
 export interface NavItem {
   to: string;
   label: string;
+  /** Which pages belong to this area; by default, paths starting with `to`. */
+  isActive?: (pathname: string) => boolean;
 }
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
@@ -19,6 +21,7 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
  * on the right for the unit switch and the account controls.
  */
 export function Nav({ homeHref, items, end }: { homeHref: string; items: readonly NavItem[]; end?: ReactNode }) {
+  const { pathname } = useLocation();
   return (
     <header className="border-b border-ink/15 bg-paper/90 backdrop-blur supports-[backdrop-filter]:bg-paper/75">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
@@ -31,7 +34,7 @@ export function Nav({ homeHref, items, end }: { homeHref: string; items: readonl
           <ul className="flex flex-wrap items-center gap-1">
             {items.map((item) => (
               <li key={item.to}>
-                <NavLink to={item.to} className={linkClass}>
+                <NavLink to={item.to} className={item.isActive ? () => linkClass({ isActive: item.isActive!(pathname) }) : linkClass}>
                   {item.label}
                 </NavLink>
               </li>

@@ -8,11 +8,13 @@ import { useCurrentTeamId } from '../lib/current-team';
 import { homeAfterSignIn, paths } from '../lib/paths';
 import { useMe } from '../lib/session';
 
+// Team-scoped pages live under /teams/:teamId/…, so each area says which paths are its own
+// (by prefix alone, Team would light up on every study and map page too).
 const areas: readonly NavItem[] = [
-  { to: paths.studies.href(), label: 'Studies' },
-  { to: paths.maps.href(), label: 'Maps' },
+  { to: paths.studies.href(), label: 'Studies', isActive: (p) => /^\/(studies|teams\/[^/]+\/studies)(\/|$)/.test(p) },
+  { to: paths.maps.href(), label: 'Maps', isActive: (p) => /^\/(maps|teams\/[^/]+\/(maps|tracer))(\/|$)/.test(p) },
   { to: paths.learn.href(), label: 'Learn' },
-  { to: paths.teams.href(), label: 'Team' },
+  { to: paths.teams.href(), label: 'Team', isActive: (p) => /^\/teams(\/[^/]+)?\/?$/.test(p) },
 ];
 
 /** The top of the tree: scroll restoration and nothing else. */

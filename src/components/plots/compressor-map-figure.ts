@@ -46,11 +46,17 @@ export function flowAxisTitle(scale: FlowScale, system: UnitSystem): string {
   if (scale.axis === 'corrected') return `Corrected mass flow (${unit})`;
   if (scale.referenceDensity === null) return `Inlet volume flow (${unit})`;
   const density = formatQuantity(scale.referenceDensity, 'density', system);
-  return `Inlet volume flow (${unit}; map flows at its reference density ${density})`;
+  return `Inlet volume flow (${unit}; corrected to the map's reference density ${density})`;
 }
 
+/**
+ * Over a map, a point sits where the map would put it: its corrected flow, as a volume at the map's
+ * reference density on the volume axis (the same physical place as on the mass axis). Without a
+ * map the volume axis shows the actual inlet volume flow.
+ */
 function operatingX(point: OperatingPointView, scale: FlowScale): number {
-  return scale.axis === 'volume' ? point.volumeFlow * scale.perVolumeFlow : point.correctedMassFlow * scale.perCorrectedMassFlow;
+  if (scale.axis === 'volume' && scale.referenceDensity === null) return point.volumeFlow * scale.perVolumeFlow;
+  return point.correctedMassFlow * scale.perCorrectedMassFlow;
 }
 
 function curveEfficiency(curve: CompressorCurve): number | null {

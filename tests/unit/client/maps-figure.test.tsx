@@ -120,8 +120,17 @@ describe('compressor map figure', () => {
     expect(trace.text![1]).toContain('Engine speed 6,000 rpm');
   });
 
-  it('uses the inlet volume flow of operating points on the volume axis', () => {
+  it('puts operating points where the map would on the volume axis: corrected flow at its reference density', () => {
     const figure = compressorMapFigure({ map: m58, lines: [line], unitSystem: 'si', flowAxis: 'volume', height: 400 });
+    const trace = traces(figure.data).find((t) => t.name === line.label)!;
+    // ρ_ref of M58 as above (13.95 psi, 545 °R, R = 287.05287): the same physical place as on the mass axis.
+    const density = (13.95 * 6894.757) / (287.05287 * (545 / 1.8));
+    expectClose(trace.x![0], 0.2 / density, 1e-6);
+    expectClose(trace.x![1], 0.25 / density, 1e-6);
+  });
+
+  it('uses the actual inlet volume flow of operating points on the volume axis when there is no map', () => {
+    const figure = compressorMapFigure({ map: null, lines: [line], unitSystem: 'si', flowAxis: 'volume', height: 400 });
     const trace = traces(figure.data).find((t) => t.name === line.label)!;
     expect(trace.x).toEqual([0.17, 0.21]);
   });
