@@ -70,6 +70,8 @@ export function describePath(path: string, draft: unknown): string {
   const keys = path.split('.').map((k) => (/^\d+$/.test(k) ? Number(k) : k));
   const words: string[] = [];
   keys.forEach((key, i) => {
+    // The value of a table row at a speed reads "volumetric efficiency at 3500 rpm", not "… › value".
+    if (key === 'value' && typeof keys[i - 1] === 'number') return;
     if (typeof key === 'number') {
       const parent = keys[i - 1];
       const item = getIn(draft, keys.slice(0, i + 1)) as Record<string, unknown> | undefined;
@@ -77,6 +79,7 @@ export function describePath(path: string, draft: unknown): string {
       if (parent === 'scenarios') words[words.length - 1] = `Scenario “${name ?? i + 1}”`;
       else if (parent === 'plans') words[words.length - 1] = `Plan “${name ?? key + 1}”`;
       else if (parent === 'boostSchedule') words[words.length - 1] = `boost row “${name ?? key + 1}”`;
+      else if (typeof item?.rpm === 'number' && Number.isFinite(item.rpm)) words[words.length - 1] = `${words[words.length - 1]} at ${item.rpm} rpm`;
       else words.push(`row ${key + 1}`);
     } else {
       words.push(WORDS[key] ?? key);

@@ -2,7 +2,7 @@ import { useEffect, useId, useState } from 'react';
 import { FieldError, inputClass } from '../../../../components/TextField';
 import { getIn, pathKey } from '../../lib/draft';
 import { useEditor } from './context';
-import { ChoiceField, CountField, NumberField, TextInputField } from './fields';
+import { ChoiceField, CountField, NumberField, ReadValue, TextInputField } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, Section, SubHeading } from './Section';
 
@@ -17,6 +17,7 @@ function RpmListField() {
   const [error, setError] = useState<string | null>(null);
   useEffect(() => setText(values.join(', ')), [values.join(',')]); // eslint-disable-line react-hooks/exhaustive-deps
   const issue = error ?? editor.issues[pathKey(['engine', 'rpm', 'values'])] ?? null;
+  if (editor.readOnly) return <ReadValue label="Engine speeds (rpm)">{values.join(', ')}</ReadValue>;
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-sm font-semibold text-ink">
@@ -25,7 +26,6 @@ function RpmListField() {
       <input
         id={id}
         value={text}
-        readOnly={editor.readOnly}
         aria-invalid={issue ? true : undefined}
         onChange={(e) => {
           setText(e.target.value);

@@ -9,6 +9,14 @@ export function NotesSection() {
   const editor = useEditor();
   const id = useId();
   const error = editor.issues.notes;
+  const notes = typeof editor.draft.notes === 'string' ? editor.draft.notes : '';
+  if (editor.readOnly) {
+    return (
+      <Section title="Notes" prefixes={['notes']} defaultOpen={false} testId="section-notes">
+        <p className="whitespace-pre-wrap text-sm text-ink">{notes || <span className="text-ink-faint">No notes.</span>}</p>
+      </Section>
+    );
+  }
   return (
     <Section title="Notes" prefixes={['notes']} defaultOpen={false} testId="section-notes">
       <label htmlFor={id} className="sr-only">
@@ -18,8 +26,7 @@ export function NotesSection() {
         id={id}
         rows={6}
         maxLength={10_000}
-        readOnly={editor.readOnly}
-        value={typeof editor.draft.notes === 'string' ? editor.draft.notes : ''}
+        value={notes}
         onChange={(e) => editor.update(['notes'], e.target.value)}
         aria-invalid={error ? true : undefined}
         className="block w-full rounded-md border border-ink/25 bg-white px-3 py-2 text-sm text-ink read-only:bg-paper-deep/40"

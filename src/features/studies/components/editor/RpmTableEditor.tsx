@@ -2,6 +2,7 @@ import { useId, useState } from 'react';
 import { Button } from '../../../../components/Button';
 import { quantityUnit, type StudyQuantity } from '../../../../components/study/units';
 import { getIn, pathKey, type DocPath } from '../../lib/draft';
+import { localizeIssue } from '../../lib/localize-issue';
 import { applyPaste, parsePastedTable, type RpmRows } from '../../lib/paste-table';
 import { useEditor } from './context';
 import { GroupIssue, UnitNumberInput } from './fields';
@@ -35,6 +36,11 @@ export function RpmTableEditor({
   const [pasteMessage, setPasteMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [pasteOpen, setPasteOpen] = useState(false);
   const [pasteText, setPasteText] = useState('');
+
+  function issueAt(at: DocPath, q: StudyQuantity): string | null {
+    const issue = editor.issues[pathKey(at)];
+    return issue ? localizeIssue(issue, q, editor.unitSystem) : null;
+  }
 
   function setRows(next: RpmRows) {
     editor.update(path, next);
@@ -101,7 +107,7 @@ export function RpmTableEditor({
                   quantity="speed"
                   unitSystem={editor.unitSystem}
                   readOnly={editor.readOnly}
-                  error={editor.issues[pathKey([...path, i, 'rpm'])]}
+                  error={issueAt([...path, i, 'rpm'], 'speed')}
                   onChange={(rpm) => rpm !== undefined && setRows(rows.map((r, k) => (k === i ? { ...r, rpm } : r)))}
                   onPaste={onCellPaste(i)}
                 />
@@ -114,7 +120,7 @@ export function RpmTableEditor({
                   quantity={quantity}
                   unitSystem={editor.unitSystem}
                   readOnly={editor.readOnly}
-                  error={editor.issues[pathKey([...path, i, 'value'])]}
+                  error={issueAt([...path, i, 'value'], quantity)}
                   onChange={(value) => value !== undefined && setRows(rows.map((r, k) => (k === i ? { ...r, value } : r)))}
                   onPaste={onCellPaste(i)}
                   testId={testId ? `${testId}-value-${row.rpm}` : undefined}

@@ -3,7 +3,21 @@ import { FieldError, inputClass } from '../../../../components/TextField';
 import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity } from '../../../../components/study/units';
 import { asSentence } from '../../../../lib/forms';
 import { getIn, pathKey, type DocPath } from '../../lib/draft';
+import { localizeIssue } from '../../lib/localize-issue';
 import { useEditor } from './context';
+
+/** A value shown, not edited: viewers and archived studies get text, not input boxes. */
+export function ReadValue({ label, children, compact = false }: { label: ReactNode; children: ReactNode; compact?: boolean }) {
+  if (compact) return <span className="numeric block px-2 py-1 text-right text-sm text-ink">{children}</span>;
+  return (
+    <div className="space-y-0.5">
+      <p className="text-sm font-semibold text-ink">{label}</p>
+      <p className="numeric text-ink" data-read-value>
+        {children}
+      </p>
+    </div>
+  );
+}
 
 const compactInput =
   'block w-full rounded border border-ink/20 bg-white px-2 py-1 text-right text-sm text-ink focus:border-teal aria-[invalid=true]:border-copper read-only:bg-paper-deep/40';
@@ -75,6 +89,14 @@ export function UnitNumberInput({
     if (Number.isFinite(si)) onChange(si);
   }
 
+  if (readOnly) {
+    return (
+      <ReadValue label={label} compact={compact}>
+        {shown === '' ? <span className="text-ink-faint">not set</span> : compact ? shown : `${shown}${unit.label ? ` ${unit.label}` : ''}`}
+      </ReadValue>
+    );
+  }
+
   const message = typingError ?? (error ? asSentence(error) : null);
   const errorId = message ? `${id}-error` : undefined;
   const hintId = hint ? `${id}-hint` : undefined;
@@ -94,7 +116,6 @@ export function UnitNumberInput({
           autoComplete="off"
           value={text}
           placeholder={placeholder}
-          readOnly={readOnly}
           aria-invalid={message ? true : undefined}
           aria-describedby={describedBy}
           data-testid={testId}
@@ -146,6 +167,7 @@ export function NumberField({
 }) {
   const editor = useEditor();
   const raw = getIn(editor.draft, path);
+  const issue = editor.issues[pathKey(path)];
   return (
     <UnitNumberInput
       label={label}
@@ -153,7 +175,7 @@ export function NumberField({
       onChange={(si) => editor.update(path, si)}
       quantity={quantity}
       optional={optional}
-      error={editor.issues[pathKey(path)]}
+      error={issue ? localizeIssue(issue, quantity, editor.unitSystem) : null}
       hint={hint}
       placeholder={placeholder}
       readOnly={editor.readOnly}
@@ -175,6 +197,7 @@ export function TextInputField({ path, label, hint, maxLength = 120 }: { path: D
   const raw = getIn(editor.draft, path);
   const error = editor.issues[pathKey(path)];
   const errorId = error ? `${id}-error` : undefined;
+  if (editor.readOnly) return <ReadValue label={label}>{typeof raw === 'string' && raw !== '' ? raw : <span className="text-ink-faint">none</span>}</ReadValue>;
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-sm font-semibold text-ink">
@@ -184,7 +207,6 @@ export function TextInputField({ path, label, hint, maxLength = 120 }: { path: D
         id={id}
         value={typeof raw === 'string' ? raw : ''}
         maxLength={maxLength}
-        readOnly={editor.readOnly}
         aria-invalid={error ? true : undefined}
         aria-describedby={errorId}
         onChange={(e) => editor.update(path, e.target.value)}
@@ -216,6 +238,7 @@ export function ChoiceField<T extends string | number>({
   const current = value ?? (getIn(editor.draft, path) as T);
   const error = editor.issues[pathKey(path)];
   const errorId = error ? `${id}-error` : undefined;
+  if (editor.readOnly) return <ReadValue label={label}>{options.find((o) => String(o.value) === String(current))?.label ?? String(current ?? '—')}</ReadValue>;
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-sm font-semibold text-ink">
@@ -224,7 +247,6 @@ export function ChoiceField<T extends string | number>({
       <select
         id={id}
         value={String(current)}
-        disabled={editor.readOnly}
         aria-invalid={error ? true : undefined}
         aria-describedby={errorId}
         onChange={(e) => {
@@ -250,10 +272,11 @@ export function ChoiceField<T extends string | number>({
 export function ToggleField({ label, checked, onChange, hint }: { label: ReactNode; checked: boolean; onChange: (on: boolean) => void; hint?: ReactNode }) {
   const editor = useEditor();
   const id = useId();
+  if (editor.readOnly) return <ReadValue label={label}>{checked ? 'Yes' : 'No'}</ReadValue>;
   return (
     <div className="space-y-0.5">
       <div className="flex items-center gap-2">
-        <input id={id} type="checkbox" checked={checked} disabled={editor.readOnly} onChange={(e) => onChange(e.target.checked)} className="size-4 accent-teal" />
+        <input id={id} type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} className="size-4 accent-teal" />
         <label htmlFor={id} className="text-sm font-semibold text-ink">
           {label}
         </label>

@@ -34,7 +34,7 @@ export function LeaveGuard({ dirty, allowRef }: { dirty: boolean; allowRef: Reac
     >
       <div className="flex flex-wrap justify-end gap-3">
         <Button ref={stayRef} onClick={() => blocker.reset?.()}>
-          Stay and save
+          Stay on this study
         </Button>
         <Button variant="destructive" onClick={() => blocker.proceed?.()}>
           Leave and drop my changes

@@ -1,8 +1,11 @@
-import { describePath } from '../../lib/describe-path';
+import { kindOfPath } from '../../../../../shared/study/diff';
 import { asSentence } from '../../../../lib/forms';
+import type { UnitSystem } from '../../../../lib/units';
+import { describePath } from '../../lib/describe-path';
+import { localizeIssue } from '../../lib/localize-issue';
 
 /** The draft's problems in one list: the plots keep showing the last valid inputs meanwhile. */
-export function ProblemsSummary({ issues, draft }: { issues: Record<string, string>; draft: unknown }) {
+export function ProblemsSummary({ issues, draft, unitSystem }: { issues: Record<string, string>; draft: unknown; unitSystem: UnitSystem }) {
   const entries = Object.entries(issues);
   if (entries.length === 0) return null;
   return (
@@ -13,7 +16,8 @@ export function ProblemsSummary({ issues, draft }: { issues: Record<string, stri
       <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-soft">
         {entries.slice(0, 8).map(([path, message]) => (
           <li key={path}>
-            <span className="font-medium text-ink">{describePath(path, draft)}</span>: {asSentence(message)}
+            <span className="font-medium text-ink">{describePath(path, draft)}</span>:{' '}
+            {asSentence(localizeIssue(message, kindOfPath(path.split('.').map((k) => (/^\d+$/.test(k) ? Number(k) : k))) ?? 'text', unitSystem))}
           </li>
         ))}
         {entries.length > 8 && <li>…and {entries.length - 8} more, marked beside their fields.</li>}

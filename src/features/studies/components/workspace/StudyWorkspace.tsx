@@ -70,7 +70,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
   const { base, draft, update, dirty, reset, saved } = useDraft(initial);
   const maps = useStudyMaps(teamId, mapIdsOf(draft));
   const { parsed, issues, valid, computed, stale } = useStudyCompute(draft, maps.mapsById, !maps.loading);
-  const library = useCompressorMaps(teamId, { enabled: study.canEdit });
+  const library = useCompressorMaps(teamId);
 
   const [selected, setSelected] = useState<PointRef | null>(null);
   const [panel, setPanel] = useState<Panel>(null);
@@ -235,7 +235,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
 
         <div className="grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_24rem] 2xl:grid-cols-[minmax(0,1fr)_28rem]">
           <div className="min-w-0 space-y-4">
-            <ProblemsSummary issues={issues} draft={draft} />
+            <ProblemsSummary issues={issues} draft={draft} unitSystem={unitSystem} />
             <StudyPlots
               computed={computed}
               stale={stale}
