@@ -21,15 +21,28 @@ function cellText(v: number | null, column: ResultColumn): string {
   return column.kind === 'speed' ? formatNumber(Math.round(v), 21) : formatNumber(v, 4);
 }
 
+/** The columns that have a value somewhere in the study; a column empty everywhere (e.g. the turbine's, without a turbine) is left off paper. */
+export function filledColumns(lines: readonly StudyLine[], columns: readonly ResultColumn[] = RESULT_COLUMNS): { shown: ResultColumn[]; empty: ResultColumn[] } {
+  const shown: ResultColumn[] = [];
+  const empty: ResultColumn[] = [];
+  for (const c of columns) {
+    const filled = lines.some((l) => l.line.points.some((p) => typeof p.values?.[c.key] === 'number' && Number.isFinite(p.values[c.key] as number)));
+    (filled ? shown : empty).push(c);
+  }
+  return { shown, empty };
+}
+
 /**
  * Every point of every operating line as static tables for paper: one heading per line, its
  * columns split across as many tables as it takes, engine speed first in each.
  */
 export function PrintResults({ lines, system }: { lines: readonly StudyLine[]; system: UnitSystem }) {
-  const blocks = columnBlocks();
+  const { shown, empty } = filledColumns(lines);
+  const blocks = columnBlocks(shown);
   const rpmColumn = RESULT_COLUMNS.find((c) => c.key === 'rpm')!;
   return (
     <div className="space-y-6">
+      {empty.length > 0 && <p className="text-sm text-ink-soft">Not computed in this study, so left out: {empty.map((c) => c.label.toLowerCase()).join(', ')}.</p>}
       {lines.map((line) => {
         const rows = resultTableRows([line]);
         return (
@@ -45,6 +58,12 @@ export function PrintResults({ lines, system }: { lines: readonly StudyLine[]; s
                     {line.label}, columns {b + 1} of {blocks.length}
                   </caption>
                   <thead>
+                    {/* The line's name in the head, so it repeats on every page the table runs over. */}
+                    <tr>
+                      <th scope="colgroup" colSpan={block.length + 1} className="px-1.5 pb-0.5 pt-1 text-left text-[0.7rem] font-normal text-ink-soft">
+                        {line.label} · columns {b + 1} of {blocks.length}
+                      </th>
+                    </tr>
                     <tr className="border-b-2 border-ink/25 align-bottom">
                       <th scope="col" className="px-1.5 py-1 text-left font-semibold">
                         {rpmColumn.label}

@@ -4,7 +4,6 @@ import { BrandMark, BrandWord } from '../../../components/Brand';
 import { Button, buttonClass } from '../../../components/Button';
 import { mapLineViews } from '../../../components/study/lines';
 import { CURVE_VIEWS } from '../../../components/study/rpm-curves-figure';
-import { RpmCurves } from '../../../components/study/RpmCurves';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import { useDocumentTitle } from '../../../components/Page';
 import { formatDateTime } from '../../../lib/format';
@@ -15,6 +14,7 @@ import { Assumptions } from './Assumptions';
 import { PrintFindings } from './PrintFindings';
 import { StudyMapFigure } from './MapFigure';
 import { PrintResults } from './PrintResults';
+import { ReportCurves } from './ReportCurves';
 import { StudyInputs } from './StudyInputs';
 
 /** Plot sizes for paper: the report column is as wide as an A4 or Letter page inside its margins. */
@@ -166,12 +166,7 @@ export function StudyReport({
         </ReportSection>
 
         <ReportSection id="curves" title="4. Curves against engine speed">
-          {CURVE_VIEWS.map((view) => (
-            <figure key={view.id} className="report-figure space-y-1">
-              <figcaption className="text-sm font-semibold text-ink">{view.label}</figcaption>
-              <RpmCurves lines={computed.lines} unitSystem={system} initialView={view.id} height={CURVE_HEIGHT} outletTemperatureLimit={limit} exportName={data.title} />
-            </figure>
-          ))}
+          <ReportCurves lines={computed.lines} system={system} height={CURVE_HEIGHT} limit={limit} exportName={data.title} />
         </ReportSection>
 
         <ReportSection id="findings" title="5. Findings">
