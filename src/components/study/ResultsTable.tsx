@@ -160,7 +160,6 @@ export function ResultsTable({
       setLineFilter('all');
     }
     // Only when the selection changes: sorting later must not jump pages under the reader.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [selectedId]);
 
   useEffect(() => {

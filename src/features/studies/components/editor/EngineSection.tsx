@@ -15,7 +15,12 @@ function RpmListField() {
   const values = (getIn(editor.draft, ['engine', 'rpm', 'values']) as number[] | undefined) ?? [];
   const [text, setText] = useState(values.join(', '));
   const [error, setError] = useState<string | null>(null);
-  useEffect(() => setText(values.join(', ')), [values.join(',')]); // eslint-disable-line react-hooks/exhaustive-deps
+  const [focused, setFocused] = useState(false);
+  // Follow the list when it changes elsewhere (a loaded revision), but never under the typing hand.
+  const joined = values.join(', ');
+  useEffect(() => {
+    if (!focused && error === null) setText(joined);
+  }, [joined, focused, error]);
   const issue = error ?? editor.issues[pathKey(['engine', 'rpm', 'values'])] ?? null;
   if (editor.readOnly) return <ReadValue label="Engine speeds (rpm)">{values.join(', ')}</ReadValue>;
   return (
@@ -27,6 +32,8 @@ function RpmListField() {
         id={id}
         value={text}
         aria-invalid={issue ? true : undefined}
+        onFocus={() => setFocused(true)}
+        onBlur={() => setFocused(false)}
         onChange={(e) => {
           setText(e.target.value);
           const parts = e.target.value.split(/[,;\s]+/).filter(Boolean);
