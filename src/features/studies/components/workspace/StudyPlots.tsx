@@ -1,4 +1,4 @@
-import { memo, useCallback, useId, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useDeferredValue, useId, useMemo, useRef, useState } from 'react';
 import type { SpoolbookMap } from '../../../../../shared/maps/types';
 import { Card } from '../../../../components/Card';
 import { CompressorMapPlot } from '../../../../components/plots/CompressorMapPlot';
@@ -45,6 +45,9 @@ export function StudyPlots({
   title: string;
 }) {
   const mapChoiceId = useId();
+  // The map answers an edit first; findings, curves and the table follow in a render React may
+  // interrupt, so typing stays quick on a long study.
+  const later = useDeferredValue(computed);
   const [mapPlanId, setMapPlanId] = useState<string | null>(null);
   const [showOthers, setShowOthers] = useState(false);
   const [flowAxis, setFlowAxis] = useState<'corrected' | 'volume'>('corrected');
@@ -154,17 +157,17 @@ export function StudyPlots({
 
       <div className="grid gap-5 2xl:grid-cols-2">
         <Card title="Findings">
-          <MemoFindings lines={computed.lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
+          <MemoFindings lines={(later ?? computed).lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
         </Card>
         <WorkingPanel line={selectedPoint?.line ?? selectedLine ?? null} point={selectedPoint?.point ?? null} unitSystem={unitSystem} onClose={() => onSelect(null)} />
       </div>
 
       <Card title="Against engine speed">
-        <MemoCurves lines={computed.lines} unitSystem={unitSystem} highlight={highlight} onPointClick={select} outletTemperatureLimit={outletLimit} exportName={title} />
+        <MemoCurves lines={(later ?? computed).lines} unitSystem={unitSystem} highlight={highlight} onPointClick={select} outletTemperatureLimit={outletLimit} exportName={title} />
       </Card>
 
       <Card title="Results">
-        <MemoTable lines={computed.lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
+        <MemoTable lines={(later ?? computed).lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
       </Card>
     </div>
   );
