@@ -1,5 +1,5 @@
 import '../styles/print.css';
-import { useParams } from 'react-router';
+import { useParams, useSearchParams } from 'react-router';
 import { Alert } from '../components/Alert';
 import { Loading } from '../components/Page';
 import { StudyReport } from '../features/report/components/StudyReport';
@@ -12,7 +12,11 @@ import { useUnitSystem } from '../lib/units';
 export function ShareReportRoute() {
   const { token = '' } = useParams();
   const shared = useSharedStudy(token);
-  const system = useUnitSystem();
+  const [searchParams] = useSearchParams();
+  const userSystem = useUnitSystem();
+  // The shared view passes on the units its reader chose (they may have no account to remember them).
+  const asked = searchParams.get('units');
+  const system = asked === 'si' || asked === 'us' ? asked : userSystem;
   if (shared.isPending) return <Loading label="Opening the shared study…" />;
   if (shared.error) {
     return (

@@ -58,7 +58,7 @@ export function ShareRoute() {
             </p>
           </div>
           <div className="flex flex-wrap gap-2">
-            <Link to={paths.shareReport.href(token)} className={buttonClass('secondary')}>
+            <Link to={`${paths.shareReport.href(token)}?units=${system}`} className={buttonClass('secondary')}>
               Printable report
             </Link>
             <a href={sharedResultsCsvHref(token)} className={buttonClass('secondary')} download>
