@@ -3,7 +3,7 @@ import type { SpoolbookMap } from '../../../../../shared/maps/types';
 import type { StudyResult } from '../../../../../shared/matching/types';
 import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '../../../../../shared/schemas/study';
 import { studyLines, type StudyLine } from '../../../../components/study/lines';
-import { runStudyLive } from '../../../../components/study/run';
+import { runStudyLive, studyMapIds } from '../../../../components/study/run';
 import { issuesByPath, setIn, type DocPath } from '../../lib/draft';
 
 /** What the editor started from: the saved revision its edits will be based on. */
@@ -48,10 +48,9 @@ export function useDraft(initial: EditorBase) {
   return { base, draft, update, dirty, reset, saved };
 }
 
-/** The plans' map ids named in a draft (valid or not). */
+/** The map ids the plans of a draft name (valid or not). */
 export function mapIdsOf(draft: Record<string, unknown>): string[] {
-  const plans = Array.isArray(draft.plans) ? draft.plans : [];
-  return plans.map((p) => (p && typeof p === 'object' ? (p as { compressorMapId?: unknown }).compressorMapId : null)).filter((id): id is string => typeof id === 'string' && id !== '');
+  return studyMapIds(Array.isArray(draft.plans) ? draft.plans : []);
 }
 
 /**
