@@ -4,6 +4,7 @@ import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '.
 import { Alert } from '../components/Alert';
 import { buttonClass } from '../components/Button';
 import { Loading, Page } from '../components/Page';
+import { studyMapIds } from '../components/study/run';
 import { CompareView } from '../features/compare/components/CompareView';
 import { selectionFromParam, selectionParam } from '../features/compare/selection';
 import { useStudy, useStudyMaps } from '../features/studies/api';
@@ -29,7 +30,8 @@ export function CompareRoute() {
   const system = useUnitSystem();
   const parsed = useMemo(() => (study.data ? parseDocument(study.data.document) : null), [study.data]);
   const document = parsed !== null && typeof parsed !== 'string' ? parsed : null;
-  const maps = useStudyMaps(teamId, document ? document.plans.flatMap((p) => (p.compressorMapId ? [p.compressorMapId] : [])) : []);
+  // Compressor maps, and the turbine maps of plans that have one (the engine needs both).
+  const maps = useStudyMaps(teamId, document ? studyMapIds(document.plans) : []);
   const selection = useMemo(() => (document ? selectionFromParam(searchParams.get('lines'), document) : []), [document, searchParams]);
 
   const title = study.data ? `Side by side: ${study.data.title}` : 'Side by side';

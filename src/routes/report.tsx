@@ -5,6 +5,7 @@ import type { StudyDocument } from '../../shared/schemas/study';
 import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
 import { Alert } from '../components/Alert';
 import { Loading, Page } from '../components/Page';
+import { studyMapIds } from '../components/study/run';
 import { StudyReport } from '../features/report/components/StudyReport';
 import { useStudy, useStudyMaps } from '../features/studies/api';
 import { paths } from '../lib/paths';
@@ -28,7 +29,7 @@ export function ReportRoute() {
   const study = useStudy(teamId, studyId);
   const system = useUnitSystem();
   const parsed = useMemo(() => (study.data ? parseDocument(study.data.document) : null), [study.data]);
-  const mapIds = parsed?.ok ? parsed.document.plans.flatMap((p) => (p.compressorMapId ? [p.compressorMapId] : [])) : [];
+  const mapIds = parsed?.ok ? studyMapIds(parsed.document.plans) : [];
   const maps = useStudyMaps(teamId, mapIds);
 
   if (study.isPending || (parsed?.ok && maps.loading)) return <Loading label="Preparing the report…" />;
