@@ -255,6 +255,17 @@ export function ResultsTable({
                   data-row={row.id}
                   aria-selected={isSelected}
                   onClick={onSelect ? () => onSelect({ lineKey: row.original.lineKey, rpm: row.original.rpm }) : undefined}
+                  // Keyboard users pick a row too: Tab to it, Enter or Space to show its Working.
+                  tabIndex={onSelect ? 0 : undefined}
+                  onKeyDown={
+                    onSelect
+                      ? (event) => {
+                          if (event.key !== 'Enter' && event.key !== ' ') return;
+                          event.preventDefault();
+                          onSelect({ lineKey: row.original.lineKey, rpm: row.original.rpm });
+                        }
+                      : undefined
+                  }
                   className={`${onSelect ? 'cursor-pointer' : ''} ${isSelected ? 'bg-teal-light/70' : 'hover:bg-paper-deep/40'}`}
                 >
                   {row.getAllCells().map((cell) => (
