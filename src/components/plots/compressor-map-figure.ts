@@ -389,9 +389,12 @@ export function compressorMapFigure({ map, lines = [], flowAxis = 'corrected', u
       hoverlabel: { bgcolor: plotColours.sheet, bordercolor: plotColours.inkSoft, font: { ...plotFont, size: 12 }, align: 'left' },
       xaxis: { ...axis, title: { ...axis.title, text: flowAxisTitle(scale, unitSystem) }, ...(xRange ? { range: xRange } : { rangemode: 'tozero' }) },
       yaxis: { ...axis, title: { ...axis.title, text: 'Pressure ratio (total to total)' }, ...(yRange ? { range: yRange } : {}) },
+      // Under the plot, never over it: a study draws dozens of lines, and a key inside the frame
+      // would hide the surge side of the map where the low-rpm points sit.
       legend: {
-        x: 0.01,
-        y: 0.99,
+        orientation: 'h',
+        x: 0,
+        y: -0.16,
         xanchor: 'left',
         yanchor: 'top',
         bgcolor: 'rgba(255, 253, 248, 0.92)',
