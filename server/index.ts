@@ -31,6 +31,8 @@ export interface StartOptions {
   logger?: Logger;
   /** How long to wait between attempts to reach the database at start-up, ms. */
   retryDelayMs?: number;
+  /** Compute requests per client per minute (createApp's option); tests that send hundreds raise it. */
+  computeRateLimitPerMinute?: number;
 }
 
 /** host:port/database of a PostgreSQL URL, for log lines: never the password. */
@@ -116,7 +118,7 @@ export async function startServer(config: Config = loadConfig(), options: StartO
     logger.info({ port: fakeSmtp.port }, 'local fake SMTP server is catching mail into the outbox');
   }
   const mailer = createMailer(smtpUrl, config.mailFrom);
-  const { app } = createApp({ database, config, mailer, logger });
+  const { app } = createApp({ database, config, mailer, logger, computeRateLimitPerMinute: options.computeRateLimitPerMinute });
 
   let stopping = false;
   const inFlight = new Set<http.ServerResponse>();
