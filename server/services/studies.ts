@@ -39,28 +39,39 @@ export function validDocument(raw: unknown): StudyDocument {
   return parsed.data;
 }
 
-/** Plans may only name maps of the same team (or built-in ones), and only compressor maps. */
+/**
+ * Plans may only name maps of the same team (or built-in ones): a compressor map as the
+ * compressor's, a turbine map as the exhaust side's.
+ */
 export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocument) {
-  const ids = [...new Set(doc.plans.map((p) => p.compressorMapId).filter((id): id is string => !!id))];
+  const ids = [...new Set(doc.plans.flatMap((p) => [p.compressorMapId, p.turbineMapId ?? null]).filter((id): id is string => !!id))];
   const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
   const found = teamIds.length
     ? await db.select({ id: maps.id, kind: maps.kind }).from(maps).where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)))
     : [];
   const kinds = new Map(found.map((m) => [m.id, m.kind]));
+  const kindOf = (id: string) => (id.startsWith(BUILTIN_PREFIX) ? builtinMap(id)?.map.kind : kinds.get(id));
   const issues: { path: string; message: string }[] = [];
   doc.plans.forEach((p, i) => {
     const id = p.compressorMapId;
-    if (!id) return;
-    const kind = id.startsWith(BUILTIN_PREFIX) ? builtinMap(id)?.map.kind : kinds.get(id);
-    if (!kind) issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'no such map in this team\'s library' });
-    else if (kind !== 'compressor') issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'is a turbine map; a plan\'s compressor needs a compressor map' });
+    if (id) {
+      const kind = kindOf(id);
+      if (!kind) issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'no such map in this team\'s library' });
+      else if (kind !== 'compressor') issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'is a turbine map; a plan\'s compressor needs a compressor map' });
+    }
+    const turbineId = p.turbineMapId;
+    if (turbineId) {
+      const kind = kindOf(turbineId);
+      if (!kind) issues.push({ path: `document.plans.${i}.turbineMapId`, message: 'no such map in this team\'s library' });
+      else if (kind !== 'turbine') issues.push({ path: `document.plans.${i}.turbineMapId`, message: 'is a compressor map; a plan\'s exhaust side needs a turbine map' });
+    }
   });
   if (issues.length) throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
 }
 
-/** The parsed maps a study's plans use, by id. */
+/** The parsed maps a study's plans use (compressor and turbine), by id. */
 export async function mapsOfStudy(db: Db, teamId: string, doc: StudyDocument): Promise<Record<string, SpoolbookMap>> {
-  const ids = [...new Set(doc.plans.map((p) => p.compressorMapId).filter((id): id is string => !!id))];
+  const ids = [...new Set(doc.plans.flatMap((p) => [p.compressorMapId, p.turbineMapId ?? null]).filter((id): id is string => !!id))];
   const out: Record<string, SpoolbookMap> = {};
   for (const id of ids) {
     if (id.startsWith(BUILTIN_PREFIX)) {

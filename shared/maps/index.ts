@@ -25,3 +25,4 @@ export { withReference, withCompressorFileUnits, withTurbineFileUnits, withMetad
 export { referenceDensity } from './scales';
 export { readUnit, mapValueToSI, mapValueFromSI, FLOW_PARAMETER_SI_UNIT } from './units';
 export { nameProblem } from './header';
+export { turbineModelFromMap, capacityNodes, type CapacityNodes } from './turbine-model';

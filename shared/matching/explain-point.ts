@@ -18,6 +18,7 @@ import {
   scaleInjectorFlow,
   STANDARD_GRAVITY,
 } from '../physics';
+import { exhaustSteps, heldBoostStep } from './exhaust-working';
 import { lookupByRpm } from './rpm-table';
 import type { LineContext, OperatingPoint, PointValues, RpmTable } from './types';
 import { fmt, kelvin, pct, SOURCES, step, wv, type WorkingKind, type WorkingStep } from './working';
@@ -516,10 +517,15 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
     if (t.boost) steps.push(lookupStep('boost', 'Boost target at this speed', t.boost, rpm, 'boost', 0, 'pressure'));
     return steps.filter(allFinite);
   }
+  // Where the turbine cannot hold the target, the target is shown first and the held boost after it.
+  const held = heldBoostStep(ctx, v);
   steps.push(
     lookupStep('volumetric-efficiency', 'Volumetric efficiency at this speed', t.volumetricEfficiency, rpm, 'VE', v.volumetricEfficiency, 'fraction'),
-    lookupStep('boost', 'Boost target at this speed', t.boost, rpm, 'boost', v.boost, 'pressure'),
+    held
+      ? lookupStep('boost', 'Boost target at this speed', t.boost, rpm, 'boost_target', v.boostTarget ?? v.boost, 'pressure')
+      : lookupStep('boost', 'Boost target at this speed', t.boost, rpm, 'boost', v.boost, 'pressure'),
   );
+  if (held) steps.push(held);
   if (v.lambda !== null) steps.push(lookupStep('lambda', 'Lambda target at this speed', t.lambda, rpm, 'lambda', v.lambda, 'ratio'));
   steps.push(
     step('inlet-pressure', 'Compressor inlet pressure', 'Ambient pressure less what the filter and intake lose.', 'p_amb - dp_in', [wv('p_amb', v.ambientPressure, 'pressure'), wv('dp_in', ctx.losses.inlet, 'pressure')], wv('p_1', v.compressorInletPressure, 'pressure'), SOURCES.definition),
@@ -588,5 +594,6 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
     steps.push(manifoldTemperatureStep(ctx, v, fixedGiven), ...airflowSteps(ctx, v), efficiencyStep(ctx, v), ...mapSteps(ctx, v), compressorTemperatureStep(v), power);
   }
   steps.push(...fuelSteps(ctx, v));
+  steps.push(...exhaustSteps(ctx, v));
   return steps.filter(allFinite);
 }

@@ -8,3 +8,7 @@ export * from './run-point';
 export * from './explain-point';
 export * from './run-study';
 export * from './run-compute';
+export * from './exhaust-model';
+export * from './exhaust';
+export * from './exhaust-findings';
+export * from './exhaust-working';

@@ -16,7 +16,9 @@ export interface ResultColumn {
 
 export const RESULT_COLUMNS: ResultColumn[] = [
   { key: 'rpm', label: 'Engine speed', kind: 'speed' },
-  { key: 'boost', label: 'Boost target', kind: 'pressure', gauge: true },
+  // "Boost" is the boost the point is solved at: the target, or what the turbine holds below it.
+  { key: 'boost', label: 'Boost', kind: 'pressure', gauge: true },
+  { key: 'boostTarget', label: 'Boost target', kind: 'pressure', gauge: true },
   { key: 'manifoldPressure', label: 'Manifold pressure', kind: 'pressure' },
   { key: 'manifoldTemperature', label: 'Manifold temperature', kind: 'temperature' },
   { key: 'volumetricEfficiency', label: 'Volumetric efficiency', kind: 'fraction' },
@@ -42,6 +44,18 @@ export const RESULT_COLUMNS: ResultColumn[] = [
   { key: 'torque', label: 'Crank torque', kind: 'torque' },
   { key: 'injectorDuty', label: 'Injector duty', kind: 'fraction' },
   { key: 'pumpFlowRequired', label: 'Pump flow needed', kind: 'volumeFlow' },
+  // The exhaust side (empty for Plans without one).
+  { key: 'exhaustMassFlow', label: 'Exhaust flow per turbocharger', kind: 'massFlow' },
+  { key: 'turbineInletTemperature', label: 'Turbine inlet temperature', kind: 'temperature' },
+  { key: 'turbineInletPressure', label: 'Turbine inlet pressure', kind: 'pressure' },
+  { key: 'turbineOutletPressure', label: 'Turbine outlet pressure', kind: 'pressure' },
+  { key: 'expansionRatio', label: 'Expansion ratio', kind: 'ratio' },
+  { key: 'drivePressureRatio', label: 'Drive pressure ratio', kind: 'ratio' },
+  { key: 'turbineEfficiency', label: 'Turbine efficiency', kind: 'fraction' },
+  { key: 'turbinePower', label: 'Turbine power', kind: 'power' },
+  { key: 'wastegateFraction', label: 'Wastegate share of exhaust', kind: 'fraction' },
+  { key: 'wastegateDiameterNeeded', label: 'Wastegate valve needed (each)', kind: 'length' },
+  { key: 'wastegateMargin', label: 'Wastegate margin', kind: 'fraction' },
 ];
 
 /** The SI unit text written beside a column in exports. */

@@ -98,12 +98,15 @@ function unsolved(rpm: number, reasons: string[]): OperatingPoint {
 /**
  * Solves one point. `model` is the Plan's compressor map when there is one. `firstOfLine` adds the
  * findings about the line's own inputs. `checked` skips lineProblems when the caller ran it once.
+ * `findings: false` skips the findings (for inner solves that only want the numbers).
+ * `startEfficiency` starts the manifold-temperature fixed point from that efficiency instead of the Plan's,
+ * and `maxPasses` caps its passes (inner solves whose answer is re-solved in full afterwards).
  */
 export function solvePoint(
   ctx: LineContext,
   model: CompressorModel | null,
   op: PointOperation,
-  options: { firstOfLine?: boolean; lineChecked?: boolean } = {},
+  options: { firstOfLine?: boolean; lineChecked?: boolean; findings?: boolean; startEfficiency?: number; maxPasses?: number } = {},
 ): OperatingPoint {
   const { rpm, volumetricEfficiency: ve, boost, lambda } = op;
   const problems = options.lineChecked ? [] : lineProblems(ctx);
@@ -166,7 +169,10 @@ export function solvePoint(
     // T_man) lands on the map: iterate to the fixed point.
     converged = false;
     manifoldTemperature = t1;
-    for (iterations = 1; iterations <= MAX_ITERATIONS; iterations++) {
+    // A caller solving nearby boosts in turn starts from the last settled efficiency: fewer passes.
+    if (options.startEfficiency !== undefined && options.startEfficiency > 0 && options.startEfficiency <= 1) efficiency = options.startEfficiency;
+    const maxPasses = options.maxPasses !== undefined && options.maxPasses >= 1 ? Math.min(MAX_ITERATIONS, Math.floor(options.maxPasses)) : MAX_ITERATIONS;
+    for (iterations = 1; iterations <= maxPasses; iterations++) {
       manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
       reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
       const next = reading.efficiency ?? fallback;
@@ -177,7 +183,7 @@ export function solvePoint(
       efficiency = iterations < DAMPING_FROM_PASS ? next : 0.5 * (efficiency + next);
     }
     if (!converged) {
-      iterations = MAX_ITERATIONS;
+      iterations = maxPasses;
       manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
       reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
     }
@@ -209,6 +215,7 @@ export function solvePoint(
     rpm,
     volumetricEfficiency: ve,
     boost,
+    boostTarget: boost,
     lambda,
     ambientPressure,
     ambientTemperature,
@@ -254,6 +261,31 @@ export function solvePoint(
     injectorDuty: null,
     railPressure: null,
     pumpFlowRequired: null,
+    // The exhaust side fills these in (shared/matching/exhaust.ts) when the Plan has one.
+    targetHeld: null,
+    exhaustCase: null,
+    exhaustMassFlow: null,
+    turbineInletTemperature: null,
+    turbineOutletPressure: null,
+    turbineInletPressure: null,
+    expansionRatio: null,
+    drivePressureRatio: null,
+    turbineFlowParameter: null,
+    turbineMapFlowParameter: null,
+    turbineMapLocation: null,
+    turbineEfficiency: null,
+    turbineMassFlow: null,
+    turbinePower: null,
+    shutGateExpansionRatio: null,
+    shutGateTurbineEfficiency: null,
+    shutGateTurbinePower: null,
+    wastegateMassFlow: null,
+    wastegateFraction: null,
+    wastegateDiameterNeeded: null,
+    wastegateDiameterFitted: null,
+    wastegateMargin: null,
+    wastegateChoked: null,
+    boostIterations: null,
   };
 
   if (ctx.fuel && lambda !== null) addFuel(values, ctx, lambda);
@@ -267,6 +299,8 @@ export function solvePoint(
   const bad = Number.isFinite(sum) ? NONE : nonFiniteKeys(values);
   if (bad.length > 0) return unsolved(rpm, [`The inputs lead to numbers too large to compute (${bad.join(', ')}).`]);
 
+  // Inner solves (the boost a turbine holds) only want the numbers.
+  if (options.findings === false) return { solved: true, rpm, values, findings: [] };
   const findings: Finding[] = pointFindings(values, ctx);
   if (options.firstOfLine) findings.unshift(...lineInputFindings(ctx, rpm));
   return { solved: true, rpm, values, findings };

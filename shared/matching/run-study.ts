@@ -7,6 +7,8 @@ import { efficiencyFromBsfc, fuelProperties } from '../physics';
 import { STANDARD_REFERENCE, studyInputSchema } from '../schemas/compute';
 import { resolveAmbient } from './ambient';
 import type { CompressorModel } from './compressor-model';
+import { finishExhaustLine, lineExhaustContext, solveExhaustPoint } from './exhaust';
+import type { TurbineModel } from './exhaust-model';
 import { pointWorking } from './explain-point';
 import { unsolvableFinding, worstSeverity } from './findings';
 import { rpmPointsOf, valueAtRpm } from './rpm-table';
@@ -16,6 +18,11 @@ import type { LineContext, OperatingLine, OperatingPoint, PlanInput, StudyInput,
 export interface RunStudyOptions {
   /** The compressor model of each Plan, by Plan index (supplied at call time, never stored in the study). */
   compressorModels?: ReadonlyArray<CompressorModel | null | undefined>;
+  /**
+   * The turbine model of each Plan, by Plan index (supplied at call time, like the compressor's).
+   * Used only by Plans with an exhaust block; such a Plan without one gets a finding instead.
+   */
+  turbineModels?: ReadonlyArray<TurbineModel | null | undefined>;
   /** Check the input against the study schema first (default true); a failure throws StudyInputError. */
   validate?: boolean;
   /** "lazy" (default): build a point's Working with pointWorking() when it is shown; "eager": attach it to every point. */
@@ -42,7 +49,14 @@ export function parseStudyInput(input: unknown): StudyInput {
 }
 
 /** The line context of one Plan × Scenario × boost row. */
-export function lineContext(study: StudyInput, planIndex: number, scenarioIndex: number, rowIndex: number, model: CompressorModel | null): LineContext {
+export function lineContext(
+  study: StudyInput,
+  planIndex: number,
+  scenarioIndex: number,
+  rowIndex: number,
+  model: CompressorModel | null,
+  turbineModel: TurbineModel | null = null,
+): LineContext {
   const plan: PlanInput = study.plans[planIndex];
   const scenario = study.scenarios[scenarioIndex];
   const row = scenario.boostSchedule[rowIndex];
@@ -66,6 +80,7 @@ export function lineContext(study: StudyInput, planIndex: number, scenarioIndex:
     reference: { temperature: reference.temperature, pressure: reference.pressure },
     referenceFrom: model ? 'map' : plan.mapReference ? 'plan' : 'standard',
     hasMap: model !== null,
+    exhaust: lineExhaustContext(plan, turbineModel),
   };
 }
 
@@ -79,19 +94,24 @@ export function runStudy(input: StudyInput, options: RunStudyOptions = {}): Stud
   const lines: OperatingLine[] = [];
   study.plans.forEach((plan, planIndex) => {
     const model = options.compressorModels?.[planIndex] ?? null;
+    const turbineModel = plan.exhaust ? (options.turbineModels?.[planIndex] ?? null) : null;
     study.scenarios.forEach((scenario, scenarioIndex) => {
       scenario.boostSchedule.forEach((row, rowIndex) => {
-        const ctx = lineContext(study, planIndex, scenarioIndex, rowIndex, model);
+        const ctx = lineContext(study, planIndex, scenarioIndex, rowIndex, model, turbineModel);
         const problems = lineProblems(ctx);
+        let heldBefore = false;
+        let previousHeldBoost: number | undefined;
         const points: OperatingPoint[] = rpms.map((rpm, i) => {
           if (problems.length > 0) return { solved: false, rpm, values: null, findings: problems.map((p) => unsolvableFinding(rpm, p)) };
-          return solvePoint(
-            ctx,
-            model,
-            { rpm, volumetricEfficiency: veAt[i], boost: valueAtRpm(row.boost, rpm), lambda: lambdaAt[i] },
-            { firstOfLine: i === 0, lineChecked: true },
-          );
+          const op = { rpm, volumetricEfficiency: veAt[i], boost: valueAtRpm(row.boost, rpm), lambda: lambdaAt[i] };
+          const point = solvePoint(ctx, model, op, { firstOfLine: i === 0, lineChecked: true });
+          if (!ctx.exhaust) return point;
+          const withExhaust = solveExhaustPoint(ctx, model, turbineModel, op, point, { firstOfLine: i === 0, heldBefore, previousHeldBoost });
+          if (withExhaust.values?.targetHeld === true) heldBefore = true;
+          previousHeldBoost = withExhaust.values?.targetHeld === false ? withExhaust.values.boost : undefined;
+          return withExhaust;
         });
+        const exhaust = ctx.exhaust ? finishExhaustLine(ctx, points) : null;
         if (options.working === 'eager') for (const p of points) p.working = pointWorking(ctx, p);
         const worst = worstSeverity(points.flatMap((p) => p.findings));
         lines.push({
@@ -106,6 +126,7 @@ export function runStudy(input: StudyInput, options: RunStudyOptions = {}): Stud
           context: ctx,
           points,
           worstSeverity: worst,
+          exhaust,
         });
       });
     });

@@ -4,6 +4,7 @@
  */
 import type { FuelChoice, FuelProperties, FuelRegulator, Strokes } from '../physics';
 import type { MapLocation, MapReference } from './compressor-model';
+import type { TurbineHousing, TurbineLocation } from './exhaust-model';
 import type { WorkingKind, WorkingStep } from './working';
 
 /** One row of a table by engine speed: rpm and the value at that speed (unit set by the table). */
@@ -151,6 +152,40 @@ export interface ScenarioInput {
   boostSchedule: BoostRowInput[];
 }
 
+/** The wastegates of one turbocharger: one gate, or one per scroll of a divided housing. */
+export interface WastegatesInput {
+  /** Number of identical gates per turbocharger. */
+  count: 1 | 2;
+  /** Valve diameter of each gate, m (its flow area is taken as π·d²/4). */
+  valveDiameter: number;
+  /** Discharge coefficient of each gate, fraction (an assumption: real valves pass less than an ideal nozzle). */
+  dischargeCoefficient: number;
+}
+
+/**
+ * The exhaust side of a Plan (physics note §5). Absent: the Plan is judged on the compressor
+ * alone. The turbine map itself is supplied at call time, like the compressor map.
+ */
+export interface ExhaustInput {
+  /** Turbine housing: single-scroll, or divided (twin-scroll) fed by a divided manifold. */
+  housing: TurbineHousing;
+  wastegates: WastegatesInput;
+  /** Share of turbine power that reaches the compressor after the bearings, fraction. */
+  mechanicalEfficiency: number;
+  /** Turbine inlet (exhaust gas) temperature T3 by rpm, K. */
+  turbineInletTemperature: RpmTable;
+  /** Pressure loss after the turbine (downpipe, catalyst, silencers), Pa: p4 = p_amb + this. */
+  downstreamLoss: number;
+  /**
+   * Pulse-energy factor of a divided housing, multiplying turbine energy (default 1.0: none).
+   * A steady model sees only mean pressures; the exhaust pulses a divided manifold keeps apart
+   * carry energy it cannot see. A named assumption the user sets; only for divided housings.
+   */
+  pulseFactor?: number;
+  /** Turbine efficiency used where the turbine map gives none, fraction (default 0.65). */
+  turbineEfficiency?: number;
+}
+
 export interface PlanInput {
   name: string;
   /** Number of identical turbochargers sharing the airflow in parallel. */
@@ -161,6 +196,8 @@ export interface PlanInput {
   maxShaftSpeed?: number;
   /** Reference of corrected flow when no compressor model is supplied; ISA sea level when absent. */
   mapReference?: MapReference;
+  /** The exhaust side; absent judges the Plan on the compressor alone. */
+  exhaust?: ExhaustInput;
 }
 
 export interface StudyInput {
@@ -198,7 +235,16 @@ export type FindingCode =
   | 'throttled'
   | 'not-converged'
   | 'rpm-limit'
-  | 'manifold-pressure-limit';
+  | 'manifold-pressure-limit'
+  | 'boost-target-not-held'
+  | 'wastegate-too-small'
+  | 'drive-pressure-ratio-high'
+  | 'turbine-off-map'
+  | 'turbine-efficiency-assumed'
+  | 'turbine-map-missing'
+  | 'turbine-housing-mismatch'
+  | 'exhaust-not-converged'
+  | 'throttle-sets-boost';
 
 export interface Finding {
   code: FindingCode;
@@ -221,8 +267,14 @@ export interface PointValues {
   rpm: number;
   /** Volumetric efficiency, fraction. */
   volumetricEfficiency: number;
-  /** Boost target, Pa gauge. */
+  /**
+   * Boost the point is solved at, Pa gauge: the target, except where the Plan's turbine cannot
+   * hold the target; there it is the boost the turbine holds (the predicted boost) and
+   * `boostTarget` keeps the target.
+   */
   boost: number;
+  /** Boost target of the schedule at this speed, Pa gauge. Always set by the engine. */
+  boostTarget?: number;
   /** Lambda target, dimensionless; null without a fuel. */
   lambda: number | null;
   /** Ambient pressure, Pa absolute. */
@@ -311,7 +363,64 @@ export interface PointValues {
   railPressure: number | null;
   /** Fuel flow the pump must deliver, m³/s (the engine's fuel volume flow). */
   pumpFlowRequired: number | null;
+
+  // ——— the exhaust side (physics note §5). The engine always sets these: null when the Plan has no
+  // exhaust block or no turbine map. Optional in the type only so that hand-built values stay valid.
+  /** Whether the turbine holds the boost target here; null without the exhaust side. */
+  targetHeld?: boolean | null;
+  /**
+   * Which case of the power balance the point is: the gate open with the target held, the target
+   * not held (gate shut, boost below target), or no compressor power needed (the throttle sets boost).
+   */
+  exhaustCase?: ExhaustCase | null;
+  /** Exhaust mass flow through ONE turbocharger's turbine and gates, kg/s (air plus fuel). */
+  exhaustMassFlow?: number | null;
+  /** Turbine inlet temperature T3, K. */
+  turbineInletTemperature?: number | null;
+  /** Turbine outlet pressure p4, Pa absolute. */
+  turbineOutletPressure?: number | null;
+  /** Turbine inlet (exhaust manifold) pressure p3, Pa absolute. */
+  turbineInletPressure?: number | null;
+  /** Expansion ratio p3/p4. */
+  expansionRatio?: number | null;
+  /** Drive pressure ratio p3/p_man: exhaust manifold over intake manifold pressure. */
+  drivePressureRatio?: number | null;
+  /** Flow parameter of the whole turbine at the point, ṁ_t·√T3/p3, kg·K^0.5/(s·Pa). */
+  turbineFlowParameter?: number | null;
+  /** The same as the map draws it (per scroll for a per-scroll map), kg·K^0.5/(s·Pa): plot against expansionRatio. */
+  turbineMapFlowParameter?: number | null;
+  /** Where the expansion ratio lies on the turbine map. */
+  turbineMapLocation?: TurbineLocation | null;
+  /** Turbine isentropic efficiency used, fraction. */
+  turbineEfficiency?: number | null;
+  /** Mass flow through the turbine wheel of one turbocharger, kg/s. */
+  turbineMassFlow?: number | null;
+  /** Turbine power of one turbocharger, W (η_m of it reaches the compressor). */
+  turbinePower?: number | null;
+  /** Expansion ratio with the gates shut (all exhaust through the turbine) at this point's boost. */
+  shutGateExpansionRatio?: number | null;
+  /** Turbine efficiency at the shut-gate expansion ratio, fraction. */
+  shutGateTurbineEfficiency?: number | null;
+  /** Turbine power with the gates shut at this point's boost, W: what the turbine could give. */
+  shutGateTurbinePower?: number | null;
+  /** Mass flow through all the gates of one turbocharger, kg/s. */
+  wastegateMassFlow?: number | null;
+  /** Wastegate flow over exhaust flow, fraction. */
+  wastegateFraction?: number | null;
+  /** Valve diameter EACH gate needs to pass its share here, m (0 with the gates shut); null when not applicable. */
+  wastegateDiameterNeeded?: number | null;
+  /** Valve diameter of each gate fitted, m. */
+  wastegateDiameterFitted?: number | null;
+  /** (d_fitted − d_needed)/d_fitted, fraction: negative means the gates are too small. */
+  wastegateMargin?: number | null;
+  /** Whether the gate flow is choked (p4/p3 at or below the critical ratio). */
+  wastegateChoked?: boolean | null;
+  /** Iterations of the root finder that solved the boost the turbine holds (0 when not needed). */
+  boostIterations?: number | null;
 }
+
+/** The case of the quasi-steady power balance a point falls in (physics note §5). */
+export type ExhaustCase = 'gate-open' | 'target-not-held' | 'no-power-needed';
 
 export interface SolvedPoint {
   solved: true;
@@ -377,6 +486,47 @@ export interface LineContext {
   reference: MapReference;
   referenceFrom: 'map' | 'plan' | 'standard';
   hasMap: boolean;
+  /** The exhaust side of the line; absent or null when the Plan has none. */
+  exhaust?: LineExhaustContext | null;
+}
+
+/** What the exhaust side of a line was computed with: plain data (the turbine model itself is not kept). */
+export interface LineExhaustContext {
+  /** The Plan's exhaust block with its defaults filled in. */
+  input: ExhaustInput & { pulseFactor: number; turbineEfficiency: number };
+  /** The turbine map used; null when the Plan names none (then the exhaust side is not computed). */
+  turbine: {
+    name: string | null;
+    housing: TurbineHousing;
+    scrollFeed: 'both' | 'per-scroll' | null;
+    areaRatio: number | null;
+    expansionRatioRange: readonly [number, number];
+    mapFlowParameterDivisor: number;
+    capacityRule: string;
+  } | null;
+}
+
+/** A value of a line with the engine speed it was found at. */
+export interface ValueAtRpm {
+  value: number;
+  /** Engine speed, rpm. */
+  rpm: number;
+}
+
+/** The exhaust figures of a whole operating line (for Side by side and the line's headline). */
+export interface ExhaustLineSummary {
+  /** Boost threshold: the first engine speed of the line that holds the boost target, rpm; null when none does. */
+  boostThresholdRpm: number | null;
+  /** Highest drive pressure ratio p3/p_man of the line. */
+  peakDrivePressureRatio: ValueAtRpm | null;
+  /** Largest valve diameter each gate needs on the line, m (the worst point). */
+  wastegateDiameterNeeded: ValueAtRpm | null;
+  /** Valve diameter of each gate fitted, m. */
+  wastegateDiameterFitted: number;
+  /** Turbine inlet pressure p3 at the point of peak crank power, Pa absolute. */
+  turbineInletPressureAtPeakPower: ValueAtRpm | null;
+  /** Highest turbine inlet pressure p3 of the line, Pa absolute. */
+  peakTurbineInletPressure: ValueAtRpm | null;
 }
 
 export interface OperatingLine {
@@ -392,6 +542,8 @@ export interface OperatingLine {
   points: OperatingPoint[];
   /** The most severe finding on the line, or null when there is none. */
   worstSeverity: Severity | null;
+  /** The exhaust figures of the line; null (or absent) when its Plan has no exhaust side. */
+  exhaust?: ExhaustLineSummary | null;
 }
 
 export interface StudyResult {

@@ -5,3 +5,5 @@ export * from './compressor';
 export * from './fuel';
 export * from './injectors';
 export * from './power';
+export * from './turbine';
+export * from './wastegate';

@@ -301,12 +301,38 @@ export const scenarioSchema = z.strictObject({
   boostSchedule: z.array(boostRowSchema).min(1, 'a scenario needs at least one boost schedule row').max(MAX_BOOST_ROWS, `at most ${MAX_BOOST_ROWS} boost schedule rows`),
 });
 
+/** The wastegates of one turbocharger. */
+export const wastegatesSchema = z.strictObject({
+  count: z.literal([1, 2], { error: 'wastegate count must be 1 or 2 (one gate, or one per scroll)' }),
+  valveDiameter: num('wastegate valve diameter')
+    .gt(0, 'wastegate valve diameter must be above 0 m')
+    .max(0.1, 'wastegate valve diameter is in m (44 mm = 0.044 m); at most 0.1 m'),
+  dischargeCoefficient: fraction('wastegate discharge coefficient'),
+});
+
+/** The exhaust side of a Plan (physics note §5); absent judges the Plan on the compressor alone. */
+export const exhaustSchema = z
+  .strictObject({
+    housing: z.enum(['single', 'divided'], { error: 'housing must be single or divided' }),
+    wastegates: wastegatesSchema,
+    mechanicalEfficiency: fraction('mechanical efficiency'),
+    turbineInletTemperature: rpmTableSchema(temperature('turbine inlet temperature', 400, 1500), 'turbine inlet temperature'),
+    downstreamLoss: num('downstream loss').min(0, 'downstream loss must be 0 Pa or more').max(200_000, 'downstream loss is in Pa; at most 200 000 Pa'),
+    pulseFactor: num('pulse factor').gt(0, 'pulse factor multiplies turbine energy: above 0 (1.0 = no pulse gain)').max(2, 'pulse factor must be at most 2').optional(),
+    turbineEfficiency: fraction('turbine efficiency').optional(),
+  })
+  .superRefine((e, ctx) => {
+    if (e.housing === 'single' && e.pulseFactor !== undefined && e.pulseFactor !== 1)
+      ctx.addIssue({ code: 'custom', path: ['pulseFactor'], message: 'the pulse factor applies only to a divided housing' });
+  });
+
 export const planSchema = z.strictObject({
   name: name('plan name'),
   turbochargers: count('turbochargers', 8),
   compressorEfficiency: fraction('compressor efficiency'),
   maxShaftSpeed: num('max shaft speed').gt(0, 'max shaft speed must be above 0 rpm').max(500_000, 'max shaft speed must be at most 500 000 rpm').optional(),
   mapReference: mapReferenceSchema.optional(),
+  exhaust: exhaustSchema.optional(),
 });
 
 export const studyInputSchema = z

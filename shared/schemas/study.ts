@@ -17,6 +17,8 @@ export const studyPlanSchema = planSchema.extend({
   id: z.string().min(1).max(64),
   /** A map library id (a team map or a built-in `builtin-…` one); null judges the plan without a map. */
   compressorMapId: z.string().min(1).max(80).nullable(),
+  /** The turbine map of the plan's exhaust side (a team or built-in map); absent or null: none (read absent as null). */
+  turbineMapId: z.string().min(1).max(80).nullable().optional(),
 });
 export type StudyPlan = z.output<typeof studyPlanSchema>;
 
@@ -45,7 +47,7 @@ export function studyInputOf(doc: { engine: unknown; fuelSystem: unknown; power:
     scenarios: doc.scenarios,
     plans: doc.plans.map((p) => {
       if (!p || typeof p !== 'object') return p;
-      const { id: _id, compressorMapId: _map, ...plan } = p as Record<string, unknown>;
+      const { id: _id, compressorMapId: _map, turbineMapId: _turbine, ...plan } = p as Record<string, unknown>;
       return plan;
     }),
   };
@@ -69,7 +71,12 @@ export const studyDocumentSchema = documentShape
   })
   .transform((doc) => {
     const input = studyInputSchema.parse(studyInputOf(doc)) as StudyInput;
-    const plans = doc.plans.map((p, i) => ({ ...input.plans[i], id: p.id, compressorMapId: p.compressorMapId }));
+    const plans = doc.plans.map((p, i) => ({
+      ...input.plans[i],
+      id: p.id,
+      compressorMapId: p.compressorMapId,
+      ...(p.turbineMapId !== undefined ? { turbineMapId: p.turbineMapId } : {}),
+    }));
     return { schemaVersion: doc.schemaVersion, engineLabel: doc.engineLabel, notes: doc.notes, ...input, plans } as StudyDocument;
   });
 

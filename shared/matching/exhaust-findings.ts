@@ -1,0 +1,109 @@
+/**
+ * Findings of the exhaust side, with their thresholds and where each comes from.
+ */
+import type { Finding, FindingCode, PointValues, Severity } from './types';
+import { fmt, pct, type WorkingKind } from './working';
+
+/**
+ * Drive pressure ratio (exhaust over intake manifold pressure) above which a warning is raised
+ * (common practice, no source: builders aim for about 1.5 or less for power, and treat 2 as high,
+ * since the engine then pumps against its own exhaust and holds more hot residual gas).
+ */
+export const DRIVE_PRESSURE_RATIO_WARNING = 2.0;
+
+function finding(code: FindingCode, severity: Severity, message: string, rpm: number, quantity?: { value: number; threshold?: number; kind: WorkingKind }): Finding {
+  return quantity ? { code, severity, message, rpm, ...quantity } : { code, severity, message, rpm };
+}
+
+// Fixed decimals rather than significant figures: these run at many points of a study, and toFixed is cheap.
+const mm = (m: number) => `${(m * 1000).toFixed(1)} mm`;
+const kpa = (pa: number) => `${(pa / 1000).toFixed(1)} kPa`;
+const ratio = (x: number) => x.toFixed(3);
+
+/**
+ * Findings of one point's exhaust values. `heldBefore`: an earlier (lower) engine speed of the
+ * line held the target, so losing it here is a warning; before the boost threshold not holding
+ * it is the spool-up, an info.
+ */
+export function exhaustPointFindings(v: PointValues, heldBefore: boolean, efficiencyAssumed: boolean): Finding[] {
+  const out: Finding[] = [];
+  const rpm = v.rpm;
+  if (v.targetHeld === false && v.boostTarget !== undefined) {
+    out.push(
+      finding(
+        'boost-target-not-held',
+        heldBefore ? 'warning' : 'info',
+        heldBefore
+          ? `The turbine cannot hold the boost target ${kpa(v.boostTarget)} here; with the gates shut it holds ${kpa(v.boost)}.`
+          : `Below the boost threshold: the turbine holds ${kpa(v.boost)} of the ${kpa(v.boostTarget)} target, with the gates shut.`,
+        rpm,
+        { value: v.boost, threshold: v.boostTarget, kind: 'pressure' },
+      ),
+    );
+  }
+  const need = v.wastegateDiameterNeeded;
+  const fitted = v.wastegateDiameterFitted;
+  if (need != null && fitted != null && need > fitted) {
+    out.push(
+      finding(
+        'wastegate-too-small',
+        'warning',
+        `Each wastegate needs a ${mm(need)} valve here; ${mm(fitted)} is fitted. The gates cannot pass what the turbine does not need, so boost will creep above target.`,
+        rpm,
+        { value: need, threshold: fitted, kind: 'length' },
+      ),
+    );
+  }
+  const dpr = v.drivePressureRatio;
+  if (dpr != null && dpr > DRIVE_PRESSURE_RATIO_WARNING) {
+    out.push(
+      finding(
+        'drive-pressure-ratio-high',
+        'warning',
+        `Drive pressure ratio ${ratio(dpr)}: the exhaust manifold is at ${ratio(dpr)} times the intake manifold pressure, above ${fmt(DRIVE_PRESSURE_RATIO_WARNING, 2)} (common practice, no source).`,
+        rpm,
+        { value: dpr, threshold: DRIVE_PRESSURE_RATIO_WARNING, kind: 'ratio' },
+      ),
+    );
+  }
+  if (v.turbineMapLocation === 'below-map' && v.expansionRatio != null) {
+    out.push(
+      finding(
+        'turbine-off-map',
+        'info',
+        `Expansion ratio ${ratio(v.expansionRatio)} is below the turbine map: flow taken as the nozzle through the map's first point, efficiency held at its edge.`,
+        rpm,
+        { value: v.expansionRatio, kind: 'ratio' },
+      ),
+    );
+  } else if (v.turbineMapLocation === 'above-map' && v.expansionRatio != null) {
+    out.push(
+      finding(
+        'turbine-off-map',
+        'warning',
+        `Expansion ratio ${ratio(v.expansionRatio)} is beyond the turbine map: flow parameter and efficiency held at its last point.`,
+        rpm,
+        { value: v.expansionRatio, kind: 'ratio' },
+      ),
+    );
+  }
+  if (efficiencyAssumed && v.turbineEfficiency != null) {
+    out.push(
+      finding('turbine-efficiency-assumed', 'warning', `The turbine map gives no efficiency; ${pct(v.turbineEfficiency)} is assumed.`, rpm, {
+        value: v.turbineEfficiency,
+        kind: 'fraction',
+      }),
+    );
+  }
+  if (v.exhaustCase === 'no-power-needed' && !v.throttled) {
+    out.push(finding('throttle-sets-boost', 'info', 'The compressor needs no power at this boost: the gates are taken wide open and the throttle sets the boost.', rpm));
+  }
+  return out;
+}
+
+/** The finding of a root that was not found (the point keeps the last bracket's safe end). */
+export function exhaustNotConvergedFinding(rpm: number, what: string, reason: string): Finding {
+  return finding('exhaust-not-converged', 'warning', `${what} did not converge (${reason}); the nearest safe value is shown.`, rpm);
+}
+
+export { finding as exhaustFinding };

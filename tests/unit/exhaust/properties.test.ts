@@ -1,0 +1,79 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { turbineModelFromMap } from '../../../shared/maps';
+import { fakeModel, numbersIn } from '../matching/fixtures';
+import { pointWorking, runStudy, type ExhaustInput, type OperatingPoint } from '../../../shared/matching';
+import { demoTurbine, exhaustOf, exhaustStudy, scaledTurbine } from './helpers';
+
+const turbineMaps = [demoTurbine('ar064-single'), demoTurbine('ar082-single'), demoTurbine('ar064-divided'), demoTurbine('ar082-divided')];
+
+const exhaustArb: fc.Arbitrary<ExhaustInput> = fc
+  .record({
+    divided: fc.boolean(),
+    gates: fc.constantFrom(1 as const, 2 as const),
+    valveDiameter: fc.double({ min: 0.005, max: 0.1, noNaN: true }),
+    dischargeCoefficient: fc.double({ min: 0.3, max: 1, noNaN: true }),
+    mechanicalEfficiency: fc.double({ min: 0.5, max: 1, noNaN: true }),
+    t3Low: fc.double({ min: 400, max: 1500, noNaN: true }),
+    t3High: fc.double({ min: 400, max: 1500, noNaN: true }),
+    downstreamLoss: fc.double({ min: 0, max: 200_000, noNaN: true }),
+    pulseFactor: fc.double({ min: 0.5, max: 2, noNaN: true }),
+  })
+  .map((r) =>
+    exhaustOf({
+      housing: r.divided ? 'divided' : 'single',
+      wastegates: { count: r.gates, valveDiameter: r.valveDiameter, dischargeCoefficient: r.dischargeCoefficient },
+      mechanicalEfficiency: r.mechanicalEfficiency,
+      turbineInletTemperature: [
+        { rpm: 2000, value: r.t3Low },
+        { rpm: 7000, value: r.t3High },
+      ],
+      downstreamLoss: r.downstreamLoss,
+      ...(r.divided ? { pulseFactor: r.pulseFactor } : {}),
+    }),
+  );
+
+const finite = (points: OperatingPoint[]) => {
+  const bad = numbersIn(points).filter((n) => !Number.isFinite(n.value));
+  expect(bad, JSON.stringify(bad.slice(0, 3))).toEqual([]);
+};
+
+describe('the exhaust side never lets NaN or Infinity out (fast-check)', () => {
+  it('for any valid exhaust block, turbine size, boost, altitude and compressor map', () => {
+    fc.assert(
+      fc.property(
+        exhaustArb,
+        fc.constantFrom(...turbineMaps),
+        fc.double({ min: 0.1, max: 5, noNaN: true }),
+        fc.double({ min: -60_000, max: 400_000, noNaN: true }),
+        fc.double({ min: 0, max: 4000, noNaN: true }),
+        fc.boolean(),
+        fc.integer({ min: 1, max: 2 }),
+        (exhaust, map, scale, boost, altitude, withMap, turbochargers) => {
+          const study = exhaustStudy([exhaust]);
+          study.engine.rpm = { kind: 'list', values: [1500, 3000, 5000, 7500] };
+          study.plans[0].turbochargers = turbochargers;
+          study.scenarios[0].ambient = { altitude };
+          study.scenarios[0].boostSchedule[0].boost = [
+            { rpm: 1500, value: boost / 2 },
+            { rpm: 5000, value: boost },
+          ];
+          const result = runStudy(study, { compressorModels: withMap ? [fakeModel()] : [], turbineModels: [turbineModelFromMap(scaledTurbine(map, scale))] });
+          const line = result.lines[0];
+          finite(line.points);
+          for (const p of line.points) {
+            expect(numbersIn(pointWorking(line.context, p)).every((n) => Number.isFinite(n.value))).toBe(true);
+            const v = p.values;
+            if (!v || v.exhaustCase === null) continue;
+            // Mass is conserved and the gates never take more than all of it (mass balance).
+            expect(Math.abs(v.turbineMassFlow! + v.wastegateMassFlow! - v.exhaustMassFlow!)).toBeLessThanOrEqual(1e-9 * v.exhaustMassFlow!);
+            expect(v.expansionRatio!).toBeGreaterThanOrEqual(1);
+            expect(v.boost).toBeLessThanOrEqual(v.boostTarget!);
+          }
+          expect(numbersIn(line.exhaust).every((n) => Number.isFinite(n.value))).toBe(true);
+        },
+      ),
+      { numRuns: 150 },
+    );
+  });
+});
