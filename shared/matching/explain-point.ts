@@ -101,7 +101,15 @@ function mapSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const steps: WorkingStep[] = [];
   if (v.shaftSpeed !== null) {
     steps.push(
-      step('shaft-speed', 'Shaft speed from the map', `Read from the speed lines at corrected flow ${fmt(v.correctedMassFlow)} kg/s and pressure ratio ${fmt(v.pressureRatio)}.`, 'N_tc', [wv('N_tc', v.shaftSpeed, 'speed')], wv('N_tc', v.shaftSpeed, 'speed'), SOURCES.map),
+      step(
+        'shaft-speed',
+        'Shaft speed from the map',
+        `The speed lines give the corrected speed N_c at corrected flow ${fmt(v.correctedMassFlow)} kg/s and pressure ratio ${fmt(v.pressureRatio)}. Like corrected flow, it is referred to the map's reference temperature, so the wheel's real speed is N_c·√(T1/T_ref): faster on a hot day.`,
+        'N_c * sqrt(T_1 / T_ref)',
+        [wv('N_c', v.correctedShaftSpeed ?? v.shaftSpeed, 'speed'), wv('T_1', v.compressorInletTemperature, 'temperature'), wv('T_ref', ctx.reference.temperature, 'temperature')],
+        wv('N_tc', v.shaftSpeed, 'speed'),
+        SOURCES.map,
+      ),
     );
   }
   if (v.surgeMargin !== null) {

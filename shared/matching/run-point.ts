@@ -208,7 +208,10 @@ export function solvePoint(
   const planMax = positive(ctx.plan.maxShaftSpeed) ? ctx.plan.maxShaftSpeed : null;
   const mapMax = model && positive(model.maxSpeed) ? model.maxSpeed : null;
   const maxShaftSpeed = planMax !== null && mapMax !== null ? Math.min(planMax, mapMax) : (planMax ?? mapMax);
-  const shaftSpeed = reading?.shaftSpeed ?? null;
+  // Speed lines are corrected speeds, N/√(T1/T_ref), as flows are corrected flows: with the inlet
+  // hotter than the map's reference the wheel turns faster than the line it sits on says.
+  const correctedShaftSpeed = reading?.shaftSpeed ?? null;
+  const shaftSpeed = correctedShaftSpeed !== null ? correctedShaftSpeed * Math.sqrt(t1 / refTemperature) : null;
   const speedMargin = shaftSpeed !== null && maxShaftSpeed !== null ? (maxShaftSpeed - shaftSpeed) / maxShaftSpeed : (reading?.speedMargin ?? null);
 
   const values: PointValues = {
@@ -240,6 +243,7 @@ export function solvePoint(
     iterations,
     converged,
     mapLocation: reading?.location ?? null,
+    correctedShaftSpeed,
     shaftSpeed,
     surgeMargin: reading?.surgeMargin ?? null,
     chokeMargin: reading?.chokeMargin ?? null,

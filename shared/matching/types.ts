@@ -322,7 +322,9 @@ export interface PointValues {
   /** Where the point lands on the map; null without a map. */
   mapLocation: MapLocation | null;
   /** Turbocharger shaft speed, rpm, from the map. */
-  shaftSpeed: number | null;
+/** Speed the map's speed lines give at the point (corrected speed, at the map's reference), rpm. */
+  correctedShaftSpeed: number | null;
+    shaftSpeed: number | null;
   /** Surge margin (ṁc − ṁc,surge(PR))/ṁc, fraction. */
   surgeMargin: number | null;
   /** Choke margin (ṁc,choke(PR) − ṁc)/ṁc, fraction. */

@@ -39,6 +39,27 @@ describe('a compressor model supplied with the plan', () => {
     expectClose(va.correctedMassFlow / vb.correctedMassFlow, Math.sqrt(288.15 / 298.15) * (100_000 / 101_325), 1e-12); // definition of corrected flow
   });
 
+  it('turns the speed lines\' corrected speed into the wheel\'s real speed, N = N_c·√(T1/T_ref)', () => {
+    const study = baseStudy();
+    study.intercooler = { kind: 'fixed', manifoldTemperature: 320 };
+    const model = fakeModel({ reference: { temperature: 298.15, pressure: 100_000 } });
+    const line = runStudy(study, { compressorModels: [model] }).lines[0];
+    const v = solved(line.points[3]);
+    const read = model.read(v.correctedMassFlow, v.pressureRatio).shaftSpeed!;
+    expect(v.correctedShaftSpeed).toBe(read);
+    // Corrected speed N_c = N/√(θ), θ = T1/T_ref (NASA Glenn "corrected speed"; the same correction as corrected flow).
+    expectClose(v.shaftSpeed!, read * Math.sqrt(v.compressorInletTemperature / 298.15), 1e-12);
+    // A hotter day: same corrected point would mean a faster wheel.
+    const hot = baseStudy();
+    hot.intercooler = { kind: 'fixed', manifoldTemperature: 320 };
+    hot.scenarios[0].ambient = { pressure: 101_325, temperature: 318.15 };
+    const vh = solved(runStudy(hot, { compressorModels: [model] }).lines[0].points[3]);
+    expect(vh.shaftSpeed! / vh.correctedShaftSpeed!).toBeGreaterThan(v.shaftSpeed! / v.correctedShaftSpeed!);
+    const step = pointWorking(line.context, line.points[3]).find((s) => s.id === 'shaft-speed')!;
+    expect(step.formula).toBe('N_c * sqrt(T_1 / T_ref)');
+    expectClose(step.result.value, v.shaftSpeed!, 1e-12);
+  });
+
   it('falls back to the plan efficiency off the map, with a finding', () => {
     const model = fakeModel({ forceLocation: 'off-map' });
     const p = runStudy(baseStudy(), { compressorModels: [model] }).lines[0].points[3];

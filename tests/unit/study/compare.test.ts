@@ -34,6 +34,7 @@ const filler: PointValues = {
   iterations: 3,
   converged: true,
   mapLocation: 'inside',
+  correctedShaftSpeed: null,
   shaftSpeed: null,
   surgeMargin: null,
   chokeMargin: null,
