@@ -151,7 +151,7 @@ export function AxesPanel({
                   />
                 )}
                 {click.role === 'crossing' && <p className="flex-1 text-xs text-ink-soft">Takes the crossing values above.</p>}
-                <Button variant={armed ? 'primary' : 'secondary'} aria-pressed={armed} aria-label={`Place ${name.toLowerCase()}`} onClick={() => onArm(armed ? null : click.id)}>
+                <Button variant={armed ? 'primary' : 'secondary'} aria-pressed={armed} aria-label={`Place ${name.toLowerCase()}`} onClick={() => onArm(click.id)}>
                   {armed ? 'Click it in the picture' : click.pixel ? 'Place again' : 'Place'}
                 </Button>
                 <Button variant="quiet" aria-label={`Remove ${name.toLowerCase()}`} onClick={() => change((s) => removeClick(s, click.id))}>

@@ -55,7 +55,7 @@ export function MapPanel({ state, change, disabled }: { state: TraceState; chang
 
       {state.kind === 'compressor' ? (
         <>
-          <div className="grid grid-cols-2 gap-3">
+          <div className="grid grid-cols-[1fr_8rem] gap-3">
             <ChoiceField
               label="Horizontal axis shows"
               id={settingId('flowAxis')}

@@ -93,7 +93,10 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
   const unitSystem = useUnitSystem();
   const saveMutation = useSaveTraceToLibrary(teamId);
 
-  const [step, setStep] = useState<Step>(() => (draft.state.calibration.clicks.every((c) => c.pixel === null) ? (draft.state.name ? 'axes' : 'map') : buildTrace(draft.state).calibration.ok ? 'lines' : 'axes'));
+  // A new trace opens on the map's settings; one under way where it was left off.
+  const [step, setStep] = useState<Step>(() =>
+    draft.state.calibration.clicks.every((c) => c.pixel === null) ? 'map' : buildTrace(draft.state).calibration.ok ? 'lines' : 'axes',
+  );
   const [armedClickId, setArmedClickId] = useState<string | null>(() => firstUnplaced(draft.state));
   const [activeCurveId, setActiveCurveId] = useState<string | null>(() => draft.state.curves[draft.state.curves.length - 1]?.id ?? null);
   const [selection, setSelection] = useState<Selection>(null);
@@ -150,7 +153,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
           activeCurveId: step === 'lines' ? (activeCurve?.id ?? null) : null,
           armedClickId: step === 'axes' ? armedClickId : null,
           selectedClickId: validSelection?.kind === 'click' ? validSelection.id : null,
-          selectedPoint: validSelection?.kind === 'point' ? validSelection : null,
+          selectedPoint: step === 'lines' && validSelection?.kind === 'point' ? validSelection : null,
           showClicks: step === 'axes' || step === 'map' || !build.calibration.ok,
         },
         draft.image,
@@ -288,6 +291,13 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
     lines: build.problems.filter((p) => p.area === 'lines').length,
     file: build.problems.length,
   };
+  // "ready" only where there is something to be ready: no lines yet is not a finished step.
+  const badge: Record<Step, string> = {
+    map: counts.map ? `${counts.map} to fix` : 'ready',
+    axes: counts.axes ? `${counts.axes} to fix` : build.calibration.ok ? 'ready' : 'not yet',
+    lines: counts.lines ? `${counts.lines} to fix` : state.curves.length ? 'ready' : 'none yet',
+    file: counts.file ? `${counts.file} to fix` : 'ready',
+  };
 
   const hint =
     !canEdit
@@ -396,9 +406,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
                     <span className="font-semibold">
                       {i + 1}. {title}
                     </span>
-                    <span className={`numeric text-xs ${step === s ? 'text-white/90' : counts[s] ? 'text-copper-ink' : 'text-ink-soft'}`}>
-                      {counts[s] ? `${counts[s]} to fix` : 'ready'}
-                    </span>
+                    <span className={`numeric text-xs ${step === s ? 'text-white/90' : counts[s] ? 'text-copper-ink' : 'text-ink-soft'}`}>{badge[s]}</span>
                   </button>
                 </li>
               ))}
