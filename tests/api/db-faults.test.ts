@@ -83,6 +83,7 @@ function changed(displacement: number) {
 beforeAll(async () => {
   pc = await createPrivateCluster();
   const config = loadConfig({ DATABASE_URL: pc.url, PORT: '0', HOST: '127.0.0.1', PUBLIC_URL: ORIGIN, FAKE_SMTP_PORT: '0', LOG_LEVEL: 'silent', NODE_ENV: 'test' });
+  // FAULTS_LOG=<file> keeps the server's log there, for looking into a failure.
   server = await startServer({ ...config, authRateLimit: 1000 }, { handleSignals: false, logger: process.env.FAULTS_LOG ? pino({ level: 'info' }, pino.destination({ dest: process.env.FAULTS_LOG, sync: true })) : pino({ level: 'silent' }) });
   base = server.address;
   const signUp = await call(base, 'POST', '/api/auth/sign-up', { body: { email: uniqueEmail('faults'), password: PASSWORD, name: 'Fault Finder' } });
@@ -95,7 +96,8 @@ afterAll(async () => {
   try {
     if (server) {
       if (pc && !pc.running()) await pc.start();
-      await server.stop('test end');
+      // Bounded, so the cluster below is removed even if stopping the server were to hang.
+      await Promise.race([server.stop('test end'), new Promise((r) => setTimeout(r, 20_000))]);
     }
   } finally {
     pc?.destroy();

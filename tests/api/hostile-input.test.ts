@@ -114,6 +114,7 @@ beforeAll(async () => {
 }, 60_000);
 
 afterAll(async () => {
+  // HOSTILE_LOG=<file> keeps what the server logged, for looking into a failure.
   if (process.env.HOSTILE_LOG) (await import('node:fs')).writeFileSync(process.env.HOSTILE_LOG, JSON.stringify(logs, null, 1));
   await server?.stop('test end');
 });
