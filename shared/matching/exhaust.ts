@@ -42,8 +42,10 @@ export const DEFAULT_TURBINE_EFFICIENCY = 0.65;
 export const DEFAULT_PULSE_FACTOR = 1;
 /** The boost a turbine holds is found to within this, Pa (a hundredth of a kPa). */
 export const HELD_BOOST_TOLERANCE = 10;
-/** The power balance η_m·P_t = P_c of a point whose boost is solved holds to this share of P_c. */
+/** The power balance η_m·P_t = P_c with the gates open holds to this share of P_c. */
 export const POWER_BALANCE_TOLERANCE = 1e-6;
+/** …and at a held boost (each trial re-solves the whole point, so it stops a little sooner). */
+export const HELD_BALANCE_TOLERANCE = 1e-5;
 /** A held boost whose balance is off by more than this share of P_c carries a finding (design: ten times what a 10 Pa bracket allows). */
 export const HELD_BALANCE_WARNING = 1e-3;
 /**
@@ -51,6 +53,18 @@ export const HELD_BALANCE_WARNING = 1e-3;
  * A trial at a map edge may not settle; the point is re-solved in full at the answer.
  */
 const TRIAL_PASSES = 12;
+/** Trials of the held-boost search kept for reuse as the answer. */
+const KEPT_TRIALS = 3;
+
+/** The held boost predicted from the previous speeds' (straight on from two, the same as one), Pa gauge. */
+function predictHeldBoost(rpm: number, previous: readonly ValueAtRpm[] | undefined): number | null {
+  if (!previous || previous.length === 0) return null;
+  const last = previous[previous.length - 1];
+  if (previous.length === 1) return last.value;
+  const before = previous[previous.length - 2];
+  if (!(last.rpm > before.rpm)) return last.value;
+  return last.value + ((last.value - before.value) * (rpm - last.rpm)) / (last.rpm - before.rpm);
+}
 /** Expansion ratios are found to within this share. */
 const RATIO_TOLERANCE = 1e-12;
 /** No turbine is searched beyond this expansion ratio (a guard, far beyond any real one). */
@@ -101,6 +115,17 @@ export function exhaustProblems(ex: LineExhaustContext): string[] {
   if (!Array.isArray(i.turbineInletTemperature) || i.turbineInletTemperature.length === 0 || !i.turbineInletTemperature.every((r) => positive(r.value) && Number.isFinite(r.rpm)))
     out.push('the turbine inlet temperature table is empty or not positive');
   return out;
+}
+
+const usable = new WeakMap<LineExhaustContext, boolean>();
+/** exhaustProblems is empty: checked once per line context, not at every point. */
+function exhaustUsable(ex: LineExhaustContext): boolean {
+  let ok = usable.get(ex);
+  if (ok === undefined) {
+    ok = exhaustProblems(ex).length === 0;
+    usable.set(ex, ok);
+  }
+  return ok;
 }
 
 /** A turbine reading with anything non-finite or impossible made safe: no flow at ER ≤ 1, efficiency null when not in (0, 1]. */
@@ -343,8 +368,11 @@ export interface ExhaustPointOptions {
   firstOfLine?: boolean;
   /** An earlier engine speed of the line held the boost target. */
   heldBefore?: boolean;
-  /** The boost the turbine held at the line's previous engine speed, when it could not hold the target there (Pa gauge): a first guess. */
-  previousHeldBoost?: number;
+  /**
+   * The boosts the turbine held at the line's previous one or two engine speeds, where it could not
+   * hold the target there, oldest first: they predict this speed's, a first guess.
+   */
+  previousHeld?: readonly ValueAtRpm[];
 }
 
 /** Findings about the line's exhaust inputs: raised once, at the line's first point. */
@@ -402,7 +430,7 @@ export function solveExhaustPoint(
   const ex = ctx.exhaust;
   if (!ex) return atTarget;
   const lineFindings = options.firstOfLine ? exhaustLineFindings(ctx, op.rpm) : [];
-  if (!atTarget.solved || !turbine || !ex.turbine || exhaustProblems(ex).length > 0) {
+  if (!atTarget.solved || !turbine || !ex.turbine || !exhaustUsable(ex)) {
     if (lineFindings.length > 0) atTarget.findings.push(...lineFindings);
     return atTarget;
   }
@@ -442,42 +470,37 @@ export function solveExhaustPoint(
     let low = p1 - ctx.losses.chargeCooler - v.ambientPressure;
     if (!(v.ambientPressure + low > 0)) low = 0.5 * p1 - v.ambientPressure;
     // Each trial starts the compressor's fixed point from the last one's efficiency, and the last
-    // trial is kept: Brent's answer is always a boost it has just tried.
+    // few trials are kept: Brent's answer is always a boost it has tried.
     let startEfficiency = v.compressorEfficiency;
-    let last: SolvedPoint | null = null;
+    const kept: SolvedPoint[] = [];
     const spare = (boost: number): number => {
       const trial = solvePoint(ctx, compressorModel, { ...op, boost }, { lineChecked: true, findings: false, startEfficiency, maxPasses: TRIAL_PASSES });
       if (!trial.solved) return Number.NaN;
-      last = trial;
+      if (kept.length === KEPT_TRIALS) kept.shift();
+      kept.push(trial);
       startEfficiency = trial.values.compressorEfficiency;
       const s = shutGate(turbine, exhaustGasOf(trial.values, ex, n));
       return etaM * s.value.power - trial.values.compressorPower;
     };
-    const atTargetSpare = etaM * shut.value.power - compressorPower;
-    // The held boost of the line's previous speed usually lies close below this one's: try it first
-    // for a narrow bracket, and fall back to the bracket from pressure ratio 1.
-    const guess = options.previousHeldBoost;
     let a = low;
     let b = target;
     let fa: number | undefined;
-    let fb = atTargetSpare;
-    if (guess !== undefined && guess > low && guess < target) {
+    let fb = etaM * shut.value.power - compressorPower;
+    // The held boosts of the line's previous speeds predict this one's: trying the prediction first
+    // narrows the bracket, which otherwise runs from pressure ratio 1 to the target.
+    const guess = predictHeldBoost(op.rpm, options.previousHeld);
+    if (guess !== null && guess > low && guess < target) {
       const fGuess = spare(guess);
-      if (fGuess >= 0) {
-        a = guess;
-        fa = fGuess;
-      } else if (fGuess < 0) {
-        b = guess;
-        fb = fGuess;
-      }
+      if (fGuess >= 0) [a, fa] = [guess, fGuess];
+      else if (fGuess < 0) [b, fb] = [guess, fGuess];
     }
-    // Done when the power balance holds to a millionth of the compressor's power, or the bracket is 10 Pa wide.
+    // Done when the power balance holds to 1e-5 of the compressor's power, or the bracket is 10 Pa wide.
     const root = findRoot(spare, a, b, {
       fa,
       fb,
       absoluteTolerance: HELD_BOOST_TOLERANCE,
       relativeTolerance: 0,
-      functionTolerance: POWER_BALANCE_TOLERANCE * compressorPower,
+      functionTolerance: HELD_BALANCE_TOLERANCE * compressorPower,
       maxIterations: 60,
     });
     let boost: number;
@@ -489,11 +512,10 @@ export function solveExhaustPoint(
       boostIterations = root.iterations;
       extra.push(exhaustNotConvergedFinding(op.rpm, 'The boost the turbine holds', root.reason));
     }
-    const kept = last as SolvedPoint | null;
-    const final: OperatingPoint =
-      kept && kept.values.boost === boost && kept.values.converged
-        ? { solved: true, rpm: op.rpm, values: kept.values, findings: options.firstOfLine ? [...lineInputFindings(ctx, op.rpm), ...pointFindings(kept.values, ctx)] : pointFindings(kept.values, ctx) }
-        : solvePoint(ctx, compressorModel, { ...op, boost }, { lineChecked: true, firstOfLine: options.firstOfLine, startEfficiency });
+    const hit = kept.find((t) => t.values.boost === boost && t.values.converged);
+    const final: OperatingPoint = hit
+      ? { solved: true, rpm: op.rpm, values: hit.values, findings: options.firstOfLine ? [...lineInputFindings(ctx, op.rpm), ...pointFindings(hit.values, ctx)] : pointFindings(hit.values, ctx) }
+      : solvePoint(ctx, compressorModel, { ...op, boost }, { lineChecked: true, firstOfLine: options.firstOfLine, startEfficiency });
     if (!final.solved) {
       atTarget.findings.push(...lineFindings, ...extra, exhaustNotConvergedFinding(op.rpm, 'The boost the turbine holds', final.findings[0]?.message ?? 'no physical state'));
       return atTarget;

@@ -13,7 +13,7 @@ import { pointWorking } from './explain-point';
 import { unsolvableFinding, worstSeverity } from './findings';
 import { rpmPointsOf, valueAtRpm } from './rpm-table';
 import { lineProblems, solvePoint } from './run-point';
-import type { LineContext, OperatingLine, OperatingPoint, PlanInput, StudyInput, StudyResult } from './types';
+import type { LineContext, OperatingLine, OperatingPoint, PlanInput, StudyInput, StudyResult, ValueAtRpm } from './types';
 
 export interface RunStudyOptions {
   /** The compressor model of each Plan, by Plan index (supplied at call time, never stored in the study). */
@@ -100,15 +100,15 @@ export function runStudy(input: StudyInput, options: RunStudyOptions = {}): Stud
         const ctx = lineContext(study, planIndex, scenarioIndex, rowIndex, model, turbineModel);
         const problems = lineProblems(ctx);
         let heldBefore = false;
-        let previousHeldBoost: number | undefined;
+        let previousHeld: ValueAtRpm[] = [];
         const points: OperatingPoint[] = rpms.map((rpm, i) => {
           if (problems.length > 0) return { solved: false, rpm, values: null, findings: problems.map((p) => unsolvableFinding(rpm, p)) };
           const op = { rpm, volumetricEfficiency: veAt[i], boost: valueAtRpm(row.boost, rpm), lambda: lambdaAt[i] };
           const point = solvePoint(ctx, model, op, { firstOfLine: i === 0, lineChecked: true });
           if (!ctx.exhaust) return point;
-          const withExhaust = solveExhaustPoint(ctx, model, turbineModel, op, point, { firstOfLine: i === 0, heldBefore, previousHeldBoost });
+          const withExhaust = solveExhaustPoint(ctx, model, turbineModel, op, point, { firstOfLine: i === 0, heldBefore, previousHeld });
           if (withExhaust.values?.targetHeld === true) heldBefore = true;
-          previousHeldBoost = withExhaust.values?.targetHeld === false ? withExhaust.values.boost : undefined;
+          previousHeld = withExhaust.values?.targetHeld === false ? [...previousHeld.slice(-1), { value: withExhaust.values.boost, rpm }] : [];
           return withExhaust;
         });
         const exhaust = ctx.exhaust ? finishExhaustLine(ctx, points) : null;
