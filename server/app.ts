@@ -11,7 +11,7 @@ import { sessionMiddleware } from './auth/session';
 import type { Config } from './config';
 import type { Database, Db } from './db/client';
 import { jsonBody } from './http/body';
-import { errorHandler, notFoundHandler } from './http/errors';
+import { errorHandler, HttpError, notFoundHandler } from './http/errors';
 import { requireSameOrigin } from './http/origin';
 import type { Mailer } from './mail/mailer';
 import { adminRouter } from './routes/admin';
@@ -92,6 +92,8 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
 
   const api = express.Router();
   // Our own JSON reader: refuses oversized, deeply nested and unstorable bodies early (server/http/body.ts).
+  // Ids in paths are text: a NUL (which PostgreSQL cannot hold) names nothing that exists.
+  api.use((req, _res, next) => next(/%00/.test(req.originalUrl) ? new HttpError(404, 'not_found', 'Not found.') : undefined));
   api.use(jsonBody());
   api.use(requireSameOrigin(config.allowedOrigins, auth.sessionCookieName));
   api.use(sessionMiddleware(auth, config.sessionAbsoluteMs));

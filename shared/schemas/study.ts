@@ -69,8 +69,14 @@ export const studyDocumentSchema = documentShape
     const input = studyInputSchema.safeParse(studyInputOf(doc));
     if (!input.success) for (const issue of input.error.issues) ctx.addIssue(issue as never);
   })
-  .transform((doc) => {
-    const input = studyInputSchema.parse(studyInputOf(doc)) as StudyInput;
+  .transform((doc, ctx) => {
+    // zod still runs a transform when the only issues are unrecognised keys: never throw here.
+    const parsed = studyInputSchema.safeParse(studyInputOf(doc));
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) ctx.addIssue(issue as never);
+      return z.NEVER;
+    }
+    const input = parsed.data as StudyInput;
     const plans = doc.plans.map((p, i) => ({
       ...input.plans[i],
       id: p.id,

@@ -88,6 +88,18 @@ describe('create, read, save, revisions', () => {
     expect(JSON.stringify(res.body.error.details)).toContain('turboSize');
   });
 
+  it('refuses an unknown key deep inside the document with 400, not 500', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const bad = structuredClone(demo);
+    bad.intercooler = { ...bad.intercooler, '': null };
+    bad.plans[2].turboSize = 'big';
+    const res = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: bad });
+    expect(res.status).toBe(400);
+    const paths = res.body.error.details.issues.map((i: { path: string }) => i.path);
+    expect(paths).toEqual(expect.arrayContaining(['document.intercooler', 'document.plans.2']));
+    expect(JSON.stringify(res.body.error.details)).toContain('turboSize');
+  });
+
   it('refuses a plan that names a map of another team, or a turbine map', async () => {
     const { owner, teamId } = await teamWithStudy();
     const other = await signedUp(t, 'other-team');
