@@ -304,6 +304,9 @@ export function buildTrace(state: TraceState): TraceBuild {
   const lines = tracedLines(state, calibration);
   const written = write(state, calibration, lines);
   const result = parseMapFile(written.text);
+  // With no rows yet the reader stops before it judges the header; judge it on its own then, so
+  // the map's settings are checked from the first keystroke.
+  const headerCheck = written.rowOrigins.size === 0 ? headerOnlyProblems(state, written) : [];
 
   const problems: TraceProblem[] = [];
   const none = { field: null, clickIndex: null, curveId: null, pointIndex: null, fileLine: null };
@@ -318,10 +321,11 @@ export function buildTrace(state: TraceState): TraceBuild {
       problems.push({ ...none, area: 'lines', curveId: curve.id, message: `${curveTitle(curve, state)} has no points yet: choose it and click along the line in the picture` });
     }
   }
-  if (!result.ok) {
+  if (!result.ok || headerCheck.length > 0) {
+    const found = [...headerCheck, ...(result.ok ? [] : result.problems)];
     // One message per line and kind of problem: later rows of a line repeat the first.
     const seen = new Set<string>();
-    for (const p of result.problems) {
+    for (const p of found) {
       const placed = fileProblem(p, written, state, lines, calibration.ok);
       if (!placed) continue;
       const key = placed.curveId ? `${placed.curveId}|${p.code}` : `${placed.area}|${placed.field}|${placed.message}`;
@@ -331,6 +335,34 @@ export function buildTrace(state: TraceState): TraceBuild {
     }
   }
   return { calibration, residualsByClick, lines, text: written.text, result, problems };
+}
+
+/** Rows that pass every check, in any units and either efficiency scale: only their header is in question. */
+function sampleBody(state: TraceState): string {
+  const e = state.efficiency === 'percent' ? 70 : 0.7;
+  if (state.kind === 'turbine') return ['flow,1,1.5,2,,', 'flow,1,2,3,,'].join('\n');
+  return [
+    'surge,,1,1.5,,',
+    'surge,,2,2.5,,',
+    'choke,,3,1.2,,',
+    'choke,,4,2.4,,',
+    `speed,1,1,1.5,${e},1`,
+    `speed,1,3,1.2,${e},1`,
+    `speed,2,2,2.5,${e},2`,
+    `speed,2,4,2.4,${e},2`,
+    `island,i,2,1.6,${e},`,
+    `island,i,2.5,1.8,${e},`,
+    `island,i,2.4,1.5,${e},`,
+    `island,i,2,1.6,${e},`,
+  ].join('\n');
+}
+
+/** The header's own problems, read with sample rows after it (problems of those rows cannot arise). */
+function headerOnlyProblems(state: TraceState, written: Written): MapProblem[] {
+  const checked = parseMapFile(`${written.text}${sampleBody(state)}\n`);
+  if (checked.ok) return [];
+  const headerEnd = Math.max(0, ...written.headerFields.keys());
+  return checked.problems.filter((p) => (p.line !== null && p.line <= headerEnd) || (p.line === null && p.code !== 'missing-curve' && p.code !== 'too-many-problems'));
 }
 
 /** A file name for the built map: letters, digits and dashes from its name. */

@@ -101,6 +101,17 @@ describe('problems are placed where the user fixes them', () => {
     expect(build.problems.some((p) => /no data rows|Nothing traced/i.test(p.message))).toBe(false);
   });
 
+  it('settings are checked from the start, before anything is calibrated or traced', () => {
+    const fresh = newTraceState('');
+    const build = buildTrace(fresh);
+    // A new trace has no name and no reference conditions (newTraceState leaves them to the user).
+    expect(build.problems.filter((p) => p.area === 'map').map((p) => p.field).sort()).toEqual(['name', 'referencePressure', 'referenceTemperature']);
+    fresh.name = 'Named';
+    fresh.compressor.referenceTemperature.value = 298;
+    fresh.compressor.referencePressure.value = 100;
+    expect(buildTrace(fresh).problems.filter((p) => p.area === 'map')).toEqual([]);
+  });
+
   it('settings: an empty name and missing reference conditions name their fields', () => {
     const state = tracedCompressor();
     state.name = '';
