@@ -50,7 +50,8 @@ export interface DocumentChange {
 type Key = string | number;
 type Json = unknown;
 
-const WORDS: Record<string, string> = {
+/** Each document field in words, for change lists and problem lists. */
+export const FIELD_WORDS: Record<string, string> = {
   schemaVersion: 'document version',
   engineLabel: 'Engine label',
   notes: 'Notes',
@@ -116,7 +117,7 @@ const WORDS: Record<string, string> = {
 };
 
 function words(key: Key): string {
-  return typeof key === 'number' ? `item ${key + 1}` : (WORDS[key] ?? key);
+  return typeof key === 'number' ? `item ${key + 1}` : (FIELD_WORDS[key] ?? key);
 }
 
 /** Paths of the tables by rpm, as key patterns (`*` is any index). */

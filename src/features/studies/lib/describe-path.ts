@@ -1,65 +1,6 @@
+import { FIELD_WORDS } from '../../../../shared/study/diff';
 import { getIn } from './draft';
 
-const WORDS: Record<string, string> = {
-  engine: 'Engine',
-  displacement: 'displacement',
-  cylinders: 'cylinders',
-  strokes: 'cycle',
-  rpm: 'rpm',
-  min: 'from',
-  max: 'to',
-  step: 'step',
-  values: 'rpm list',
-  limits: 'limits',
-  maxRpm: 'rpm limit',
-  maxManifoldPressure: 'manifold pressure limit',
-  maxCompressorOutletTemperature: 'outlet temperature limit',
-  volumetricEfficiency: 'volumetric efficiency',
-  fuelSystem: 'Fuel system',
-  fuel: 'fuel',
-  ethanolPercent: 'ethanol content',
-  lambda: 'lambda',
-  injectors: 'injectors',
-  primary: 'primary set',
-  secondary: 'secondary set',
-  count: 'count',
-  ratedFlow: 'rated flow',
-  ratedPressure: 'rated pressure',
-  switchOverRpm: 'switch-over rpm',
-  fuelPressure: 'fuel pressure',
-  regulator: 'regulator',
-  pumpFlowAvailable: 'pump flow',
-  power: 'Power',
-  brakeThermalEfficiency: 'brake thermal efficiency',
-  bsfc: 'BSFC',
-  drivetrainLoss: 'drivetrain loss',
-  losses: 'Losses',
-  inlet: 'inlet loss',
-  chargeCooler: 'charge-cooler loss',
-  inletTemperatureRise: 'intake heating',
-  intercooler: 'Intercooler',
-  manifoldTemperature: 'manifold temperature',
-  effectiveness: 'effectiveness',
-  coolantTemperature: 'coolant temperature',
-  scenarios: 'Scenarios',
-  ambient: 'ambient',
-  pressure: 'barometric pressure',
-  altitude: 'altitude',
-  temperature: 'temperature',
-  boostSchedule: 'boost schedule',
-  boost: 'boost',
-  label: 'label',
-  gear: 'gear',
-  plans: 'Plans',
-  name: 'name',
-  turbochargers: 'turbochargers',
-  compressorEfficiency: 'default efficiency',
-  maxShaftSpeed: 'max wheel speed',
-  compressorMapId: 'compressor map',
-  engineLabel: 'Engine label',
-  notes: 'Notes',
-  value: 'value',
-};
 
 /**
  * A dotted document path in words for the list of problems: `scenarios.1.boostSchedule.0.boost.2.value`
@@ -82,7 +23,7 @@ export function describePath(path: string, draft: unknown): string {
       else if (typeof item?.rpm === 'number' && Number.isFinite(item.rpm)) words[words.length - 1] = `${words[words.length - 1]} at ${item.rpm} rpm`;
       else words.push(`row ${key + 1}`);
     } else {
-      words.push(WORDS[key] ?? key);
+      words.push(FIELD_WORDS[key] ?? key);
     }
   });
   return words.join(' › ');
