@@ -4,7 +4,7 @@ import type { CompressorCurve, CompressorMap } from '../../../shared/maps/types'
 import { fromSI } from '../../../shared/units';
 import { displayUnitOf, type UnitSystem } from '../../lib/units';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
-import { planColour, planMarker, plotColours, plotFont, scenarioDash } from './style';
+import { mapPlotPaper, planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash } from './style';
 import type { CompressorMapPlotProps, OperatingLineView, OperatingPointView } from './types';
 
 /** What plotly draws: traces and layout. Built by a pure function so it can be checked without a browser. */
@@ -366,27 +366,14 @@ export function compressorMapFigure({ map, lines = [], flowAxis = 'corrected', u
   const yRange: [number, number] | undefined = maxY !== null ? [1, 1 + (maxY - 1) * 1.06 + 0.02] : undefined;
 
   const axis = {
-    showline: true,
-    linecolor: plotColours.inkSoft,
-    mirror: true,
-    ticks: 'outside' as const,
-    tickcolor: plotColours.inkSoft,
-    gridcolor: plotColours.grid,
-    zeroline: false,
-    automargin: true,
+    ...plotAxis,
     title: { font: { ...plotFont, size: 13 } },
   };
   return {
     data,
     layout: {
       height,
-      autosize: true,
-      paper_bgcolor: plotColours.paper,
-      plot_bgcolor: plotColours.sheet,
-      font: plotFont,
-      margin: { l: 64, r: 20, t: 16, b: 56 },
-      hovermode: 'closest',
-      hoverlabel: { bgcolor: plotColours.sheet, bordercolor: plotColours.inkSoft, font: { ...plotFont, size: 12 }, align: 'left' },
+      ...mapPlotPaper,
       xaxis: { ...axis, title: { ...axis.title, text: flowAxisTitle(scale, unitSystem) }, ...(xRange ? { range: xRange } : { rangemode: 'tozero' }) },
       yaxis: { ...axis, title: { ...axis.title, text: 'Pressure ratio (total to total)' }, ...(yRange ? { range: yRange } : {}) },
       // Under the plot, never over it: a study draws dozens of lines, and a key inside the frame

@@ -49,3 +49,26 @@ function wrap(index: number, length: number): number {
 }
 
 export const plotFont = { family: '"Roboto Flex", system-ui, "Helvetica Neue", Arial, sans-serif', size: 12, color: plotColours.ink };
+
+/** The ruled axis every Spoolbook plot uses: ink frame, outside ticks, faint grid. */
+export const plotAxis = {
+  showline: true,
+  linecolor: plotColours.inkSoft,
+  mirror: true,
+  ticks: 'outside' as const,
+  tickcolor: plotColours.inkSoft,
+  gridcolor: plotColours.grid,
+  zeroline: false,
+  automargin: true,
+};
+
+/** Paper, sheet, type and hover look shared by the map plots. */
+export const mapPlotPaper = {
+  autosize: true,
+  paper_bgcolor: plotColours.paper,
+  plot_bgcolor: plotColours.sheet,
+  font: plotFont,
+  margin: { l: 64, r: 20, t: 16, b: 56 },
+  hovermode: 'closest' as const,
+  hoverlabel: { bgcolor: plotColours.sheet, bordercolor: plotColours.inkSoft, font: { ...plotFont, size: 12 }, align: 'left' as const },
+};

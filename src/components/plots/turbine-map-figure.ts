@@ -4,7 +4,7 @@ import { mapValueFromSI } from '../../../shared/maps/units';
 import type { UnitSystem } from '../../lib/units';
 import type { PlotFigure } from './compressor-map-figure';
 import { formatNumber, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
-import { plotColours, plotFont } from './style';
+import { mapPlotPaper, plotAxis, plotColours, plotFont } from './style';
 
 /** The unit the flow parameter ṁ·√T3/p3 is shown in, by unit system (mathjs names). */
 export const flowParameterDisplayUnit: Record<UnitSystem, string> = {
@@ -65,16 +65,7 @@ export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap;
       font: { ...plotFont, size: 10, color: plotColours.inkSoft },
     });
   });
-  const axis = {
-    showline: true,
-    linecolor: plotColours.inkSoft,
-    mirror: true,
-    ticks: 'outside' as const,
-    tickcolor: plotColours.inkSoft,
-    gridcolor: plotColours.grid,
-    zeroline: false,
-    automargin: true,
-  };
+  const axis = plotAxis;
   const xRange: [number, number] = [1, 1 + (maxX - 1) * 1.15];
   // The lines sit high on a flow parameter axis from 0; start where the data starts instead.
   const yRange: [number, number] = minY < maxY ? [Math.max(0, minY - (maxY - minY) * 0.1), maxY + (maxY - minY) * 0.1] : [0, maxY * 1.1 || 1];
@@ -82,13 +73,7 @@ export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap;
     data,
     layout: {
       height,
-      autosize: true,
-      paper_bgcolor: plotColours.paper,
-      plot_bgcolor: plotColours.sheet,
-      font: plotFont,
-      margin: { l: 64, r: 20, t: 16, b: 56 },
-      hovermode: 'closest',
-      hoverlabel: { bgcolor: plotColours.sheet, bordercolor: plotColours.inkSoft, font: { ...plotFont, size: 12 }, align: 'left' },
+      ...mapPlotPaper,
       xaxis: { ...axis, range: xRange, title: { text: 'Expansion ratio p3/p4', font: { ...plotFont, size: 13 } } },
       yaxis: { ...axis, range: yRange, title: { text: flowParameterTitle(map, unitSystem), font: { ...plotFont, size: 13 } } },
       showlegend: false,

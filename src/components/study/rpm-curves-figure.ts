@@ -4,7 +4,7 @@ import type { PointValues, SolvedPoint } from '../../../shared/matching/types';
 import type { UnitSystem } from '../../lib/units';
 import type { PlotFigure } from '../plots/compressor-map-figure';
 import { formatNumber, plotText } from '../plots/quantities';
-import { planColour, planMarker, plotColours, plotFont, scenarioDash } from '../plots/style';
+import { planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { formatStudyValue, quantityUnit, type StudyQuantity } from './units';
 
@@ -166,14 +166,7 @@ export function rpmCurvesFigure({
   });
 
   const axisBase = {
-    showline: true,
-    linecolor: plotColours.inkSoft,
-    mirror: true,
-    ticks: 'outside' as const,
-    tickcolor: plotColours.inkSoft,
-    gridcolor: plotColours.grid,
-    zeroline: false,
-    automargin: true,
+    ...plotAxis,
     title: { font: { ...plotFont, size: 12 } },
   };
   const g = guides(view, unitSystem, outletTemperatureLimit);
