@@ -330,3 +330,43 @@ describe('role matrix for study actions', () => {
     }
   }
 });
+
+describe('the exhaust side in saved studies', () => {
+  const t3 = [
+    { rpm: 2500, value: 1050 },
+    { rpm: 8000, value: 1200 },
+  ];
+  const exhaust = { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: 15_000 };
+
+  it('saves a plan with a built-in turbine map, shares it with the turbine map and exports the exhaust columns', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const doc = structuredClone(demo);
+    doc.plans[1].turbineMapId = 'builtin-turbine-t64-ar082-single';
+    doc.plans[1].exhaust = exhaust;
+    const saved = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: doc });
+    expect(saved.status).toBe(200);
+    expect(saved.body.study.document.plans[1]).toMatchObject({ turbineMapId: 'builtin-turbine-t64-ar082-single', exhaust: { housing: 'single' } });
+    const link = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/share-links`, {});
+    const shared = await client(t).get(`/api/share/${link.body.shareLink.url.split('/share/')[1]}`);
+    expect(Object.keys(shared.body.maps)).toContain('builtin-turbine-t64-ar082-single');
+    const csv = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}/results.csv`);
+    const [head, ...rows] = Papa.parse<string[]>(csv.text.trim(), { skipEmptyLines: true }).data;
+    const p3 = head.findIndex((h) => /turbine inlet pressure/i.test(h));
+    expect(p3).toBeGreaterThan(0);
+    // The M58 plan's rows carry turbine inlet pressures; the plans without an exhaust block leave them empty.
+    expect(rows.filter((r) => r[0] === demo.plans[1].name).every((r) => Number(r[p3]) > 0)).toBe(true);
+    expect(rows.filter((r) => r[0] === demo.plans[0].name).every((r) => r[p3] === '')).toBe(true);
+  });
+
+  it('refuses a compressor map as a turbine map, and a map of another team', async () => {
+    const { owner, teamId } = await teamWithStudy();
+    const doc = structuredClone(demo);
+    doc.plans[0].turbineMapId = 'builtin-compressor-m58';
+    doc.plans[0].exhaust = exhaust;
+    const res = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Wrong turbine', document: doc });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details.issues[0]).toMatchObject({ path: 'document.plans.0.turbineMapId' });
+    doc.plans[0].turbineMapId = 'not-a-map-of-ours';
+    expect((await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Unknown turbine', document: doc })).status).toBe(400);
+  });
+});
