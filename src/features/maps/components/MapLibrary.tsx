@@ -47,7 +47,7 @@ export function MapLibrary({ teamId }: { teamId: string }) {
     <Page
       eyebrow={teamName ?? 'Team'}
       title="Map library"
-      actions={<ButtonLink to={paths.teamTracer.href(teamId)}>Trace a picture</ButtonLink>}
+      actions={canEdit ? <ButtonLink to={paths.teamTracer.href(teamId)}>Trace a picture</ButtonLink> : undefined}
       description="The team’s compressor and turbine maps, and built-in demo maps to try Spoolbook with. Open a map to see it drawn."
     >
       {canEdit && (
