@@ -83,34 +83,8 @@ export function MapPanel({ state, change, disabled }: { state: TraceState; chang
           <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
             <legend className="px-1 text-sm font-semibold text-ink">Reference conditions of the map</legend>
             <p className="text-xs text-ink-soft">Printed on the map, usually beside the flow axis title. The map’s corrected flows refer to them.</p>
-            <div className="grid grid-cols-[1fr_7rem] items-end gap-2">
-              <NumberField
-                id={settingId('referenceTemperature')}
-                label="Reference temperature"
-                value={c.referenceTemperature.value}
-                onChange={(value) => change((s) => ({ ...s, compressor: { ...s.compressor, referenceTemperature: { ...s.compressor.referenceTemperature, value } } }), 'refT')}
-              />
-              <ChoiceField
-                label={<span className="sr-only">Reference temperature unit</span>}
-                value={c.referenceTemperature.unit}
-                options={TRACE_UNIT_CHOICES.temperature.map(unitOption)}
-                onChange={(unit) => change((s) => ({ ...s, compressor: { ...s.compressor, referenceTemperature: { ...s.compressor.referenceTemperature, unit } } }))}
-              />
-            </div>
-            <div className="grid grid-cols-[1fr_7rem] items-end gap-2">
-              <NumberField
-                id={settingId('referencePressure')}
-                label="Reference pressure (absolute)"
-                value={c.referencePressure.value}
-                onChange={(value) => change((s) => ({ ...s, compressor: { ...s.compressor, referencePressure: { ...s.compressor.referencePressure, value } } }), 'refP')}
-              />
-              <ChoiceField
-                label={<span className="sr-only">Reference pressure unit</span>}
-                value={c.referencePressure.unit}
-                options={TRACE_UNIT_CHOICES.pressure.map(unitOption)}
-                onChange={(unit) => change((s) => ({ ...s, compressor: { ...s.compressor, referencePressure: { ...s.compressor.referencePressure, unit } } }))}
-              />
-            </div>
+            <ReferenceCondition which="referenceTemperature" label="Reference temperature" unitLabel="Reference temperature unit" choices={TRACE_UNIT_CHOICES.temperature} focusKey="refT" state={state} change={change} />
+            <ReferenceCondition which="referencePressure" label="Reference pressure (absolute)" unitLabel="Reference pressure unit" choices={TRACE_UNIT_CHOICES.pressure} focusKey="refP" state={state} change={change} />
           </fieldset>
         </>
       ) : (
@@ -210,5 +184,41 @@ export function MapPanel({ state, change, disabled }: { state: TraceState; chang
         <p className="text-xs text-ink-soft">Where the picture came from, anything the team should know. Written into the file as note lines.</p>
       </div>
     </fieldset>
+  );
+}
+
+type ReferenceKey = 'referenceTemperature' | 'referencePressure';
+
+/** One reference condition of a compressor map: its value and its unit, side by side. */
+function ReferenceCondition<K extends ReferenceKey>({
+  which,
+  label,
+  unitLabel,
+  choices,
+  focusKey,
+  state,
+  change,
+}: {
+  which: K;
+  label: string;
+  unitLabel: string;
+  choices: readonly TraceState['compressor'][K]['unit'][];
+  focusKey: string;
+  state: TraceState;
+  change: ChangeTrace;
+}) {
+  const quantity = state.compressor[which];
+  const set = (patch: Partial<TraceState['compressor'][K]>, key?: string) =>
+    change((s) => ({ ...s, compressor: { ...s.compressor, [which]: { ...s.compressor[which], ...patch } } }), key);
+  return (
+    <div className="grid grid-cols-[1fr_7rem] items-end gap-2">
+      <NumberField id={settingId(which)} label={label} value={quantity.value} onChange={(value) => set({ value } as Partial<TraceState['compressor'][K]>, focusKey)} />
+      <ChoiceField
+        label={<span className="sr-only">{unitLabel}</span>}
+        value={quantity.unit}
+        options={choices.map(unitOption)}
+        onChange={(unit) => set({ unit } as Partial<TraceState['compressor'][K]>)}
+      />
+    </div>
   );
 }
