@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import type { Db } from './client';
 import { studies, studyRevisions, teamMembers, teams, users } from './schema';
-import { demoStudyDocument } from '../services/studies';
+import { DEMO_STUDY_FILES, demoStudyDocument } from '../services/studies';
 import { createAccount } from '../services/accounts';
 import { newId } from '../auth/tokens';
 
@@ -10,6 +10,11 @@ export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-de
 export const ADMIN_USER = { email: 'admin@spoolbook.test', password: 'spoolbook-admin', name: 'Site Admin' };
 export const DEMO_TEAM_NAME = 'Harrow Hill Motorsport';
 export const DEMO_STUDY_TITLE = 'Hill-climb 2.0: which compressor?';
+export const DEMO_EXHAUST_STUDY_TITLE = 'Hill-climb 2.0: single or divided turbine housing?';
+const DEMO_STUDIES = [
+  { title: DEMO_STUDY_TITLE, file: DEMO_STUDY_FILES.compressor },
+  { title: DEMO_EXHAUST_STUDY_TITLE, file: DEMO_STUDY_FILES.turbineHousing },
+];
 const DEMO_MEMBERS = [
   { email: 'rafael@spoolbook.test', password: 'spoolbook-demo', name: 'Rafael Okonkwo-Lind', role: 'editor' as const },
   { email: 'mei@spoolbook.test', password: 'spoolbook-demo', name: 'Mei Sato-Brennan', role: 'viewer' as const },
@@ -35,13 +40,14 @@ export async function seedDemo(db: Db) {
     const id = await ensureUser(db, m);
     await db.insert(teamMembers).values({ teamId: team.id, userId: id, role: m.role }).onConflictDoNothing();
   }
-  const [study] = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.teamId, team.id), eq(studies.title, DEMO_STUDY_TITLE)));
-  if (!study) {
-    const document = demoStudyDocument();
+  for (const demo of DEMO_STUDIES) {
+    const [study] = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.teamId, team.id), eq(studies.title, demo.title)));
+    if (study) continue;
+    const document = demoStudyDocument(demo.file);
     const id = newId();
     await db.transaction(async (tx) => {
-      await tx.insert(studies).values({ id, teamId: team.id, title: DEMO_STUDY_TITLE, engineLabel: document.engineLabel, document, createdBy: demoId, updatedBy: demoId });
-      await tx.insert(studyRevisions).values({ studyId: id, revision: 1, document, title: DEMO_STUDY_TITLE, message: 'Demo study', authorId: demoId });
+      await tx.insert(studies).values({ id, teamId: team.id, title: demo.title, engineLabel: document.engineLabel, document, createdBy: demoId, updatedBy: demoId });
+      await tx.insert(studyRevisions).values({ studyId: id, revision: 1, document, title: demo.title, message: 'Demo study', authorId: demoId });
     });
   }
   return { demoTeamId: team.id };

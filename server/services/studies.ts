@@ -1,5 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import { readFileSync } from 'node:fs';
+import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Papa from 'papaparse';
 import { ESCAPE_FORMULAE } from '../../shared/maps';
@@ -12,11 +13,14 @@ import { maps, studies, users } from '../db/schema';
 import { HttpError, issuesOf } from '../http/errors';
 import { builtinMap, BUILTIN_PREFIX } from './builtin-maps';
 
-const demoPath = fileURLToPath(new URL('../../data/demo/hillclimb-study.json', import.meta.url));
+const demoDir = fileURLToPath(new URL('../../data/demo/', import.meta.url));
 
-/** The invented demo study document shipped in data/demo/. */
-export function demoStudyDocument(): StudyDocument {
-  return studyDocumentSchema.parse(JSON.parse(readFileSync(demoPath, 'utf8')));
+/** The invented demo study documents shipped in data/demo/, by file name. */
+export const DEMO_STUDY_FILES = { compressor: 'hillclimb-study.json', turbineHousing: 'turbine-housing-study.json' } as const;
+
+/** An invented demo study document (by default the compressor study new studies start from). */
+export function demoStudyDocument(file: string = DEMO_STUDY_FILES.compressor): StudyDocument {
+  return studyDocumentSchema.parse(JSON.parse(readFileSync(path.join(demoDir, file), 'utf8')));
 }
 
 /**

@@ -3,7 +3,7 @@
  * boost row). One row per figure, one cell per line, the best cell of each row marked. Pure and
  * SI, so the screen, the report and the tests read the same numbers.
  */
-import type { OperatingLine, PointValues, Severity } from '../matching/types';
+import type { ExhaustLineSummary, OperatingLine, PointValues, Severity, ValueAtRpm } from '../matching/types';
 import type { WorkingKind } from '../matching/working';
 
 /** Which end of a row is better; "none" rows are there to read beside another row. */
@@ -21,6 +21,11 @@ export type CompareRowKey =
   | 'peakInjectorDuty'
   | 'peakCompressorOutletTemperature'
   | 'peakPressureRatio'
+  | 'boostThresholdRpm'
+  | 'peakDrivePressureRatio'
+  | 'wastegateDiameterNeeded'
+  | 'wastegateDiameterFitted'
+  | 'turbineInletPressureAtPeakPower'
   | 'limitFindings'
   | 'warningFindings'
   | 'infoFindings';
@@ -30,7 +35,15 @@ export interface CompareCell {
   value: number | null;
   /** Engine speed of the point the minimum or peak was found at, rpm; null for counts and for missing values. */
   rpm: number | null;
+  /**
+   * Why an exhaust row's cell is empty, when the reason is known: "not-reached" when the line's
+   * turbine holds the boost target at no engine speed (boost threshold row only), "no-exhaust"
+   * when the line's Plan has no exhaust side (or no turbine map). Absent on every other cell.
+   */
+  note?: CompareCellNote;
 }
+
+export type CompareCellNote = 'not-reached' | 'no-exhaust';
 
 export interface CompareRow {
   key: CompareRowKey;
@@ -49,8 +62,8 @@ export interface CompareRow {
   bestIndices: number[];
 }
 
-/** What compareLines reads of a line: its points (a whole OperatingLine fits). */
-export type ComparableLine = Pick<OperatingLine, 'points'>;
+/** What compareLines reads of a line: its points and exhaust figures (a whole OperatingLine fits). */
+export type ComparableLine = Pick<OperatingLine, 'points'> & { exhaust?: ExhaustLineSummary | null };
 
 type Extreme = 'min' | 'max';
 
@@ -164,7 +177,74 @@ const severityRows: { key: CompareRowKey; label: string; severity: Severity; bes
   { key: 'infoFindings', label: 'Notes (info)', severity: 'info', bestMeaning: 'lowest: fewest' },
 ];
 
-/** The row keys in the order compareLines returns them. */
+interface ExhaustRowSpec {
+  key: CompareRowKey;
+  label: string;
+  kind: WorkingKind;
+  best: BestRule;
+  bestMeaning: string;
+  cell: (summary: ExhaustLineSummary, line: ComparableLine) => CompareCell;
+}
+
+const fromValueAtRpm = (v: ValueAtRpm | null): CompareCell => (v ? { value: v.value, rpm: v.rpm } : { value: null, rpm: null });
+
+/** True when some point of the line computed the exhaust side (its turbine held the target or not). */
+const exhaustComputed = (line: ComparableLine) => line.points.some((p) => p.solved && typeof p.values?.targetHeld === 'boolean');
+
+const exhaustRows: ExhaustRowSpec[] = [
+  {
+    key: 'boostThresholdRpm',
+    label: 'Boost threshold (full boost from)',
+    kind: 'speed',
+    best: 'lowest',
+    bestMeaning: 'lowest: full boost arrives sooner (a line that never holds its target comes last)',
+    // The value is itself an engine speed: no "at … rpm" beside it.
+    cell: (s, line) =>
+      s.boostThresholdRpm !== null
+        ? { value: s.boostThresholdRpm, rpm: null }
+        : exhaustComputed(line)
+          ? { value: null, rpm: null, note: 'not-reached' }
+          : { value: null, rpm: null },
+  },
+  {
+    key: 'peakDrivePressureRatio',
+    label: 'Peak drive pressure ratio',
+    kind: 'ratio',
+    best: 'lowest',
+    bestMeaning: 'lowest: less pumping loss and less hot exhaust held back in the cylinders',
+    cell: (s) => fromValueAtRpm(s.peakDrivePressureRatio),
+  },
+  {
+    key: 'wastegateDiameterNeeded',
+    label: 'Wastegate valve needed (each gate)',
+    kind: 'length',
+    best: 'lowest',
+    bestMeaning: 'lowest: a smaller valve bleeds off what the turbine does not need',
+    cell: (s) => fromValueAtRpm(s.wastegateDiameterNeeded),
+  },
+  {
+    key: 'wastegateDiameterFitted',
+    label: 'Wastegate valve fitted (each gate)',
+    kind: 'length',
+    best: 'none',
+    bestMeaning: 'no best: read it beside the valve needed',
+    cell: (s) => ({ value: s.wastegateDiameterFitted, rpm: null }),
+  },
+  {
+    key: 'turbineInletPressureAtPeakPower',
+    label: 'Turbine inlet pressure at peak power',
+    kind: 'pressure',
+    best: 'lowest',
+    bestMeaning: 'lowest: less back-pressure on the engine where it makes its most power',
+    cell: (s) => fromValueAtRpm(s.turbineInletPressureAtPeakPower),
+  },
+];
+
+/**
+ * The row keys in the order compareLines returns them when no compared line has an exhaust side
+ * (compressor-only studies). With an exhaust side, EXHAUST_ROW_KEYS come in after
+ * 'peakPressureRatio': see compareRowKeys.
+ */
 export const COMPARE_ROW_KEYS: readonly CompareRowKey[] = [
   'minSurgeMargin',
   'minChokeMargin',
@@ -181,6 +261,16 @@ export const COMPARE_ROW_KEYS: readonly CompareRowKey[] = [
   'warningFindings',
   'infoFindings',
 ];
+
+/** The exhaust rows, in order; compareLines adds them after 'peakPressureRatio' when some line has an exhaust side. */
+export const EXHAUST_ROW_KEYS: readonly CompareRowKey[] = exhaustRows.map((r) => r.key);
+
+/** Every row key in the order compareLines returns them, with or without the exhaust rows. */
+export function compareRowKeys(withExhaust: boolean): CompareRowKey[] {
+  if (!withExhaust) return [...COMPARE_ROW_KEYS];
+  const at = COMPARE_ROW_KEYS.indexOf('peakPressureRatio') + 1;
+  return [...COMPARE_ROW_KEYS.slice(0, at), ...EXHAUST_ROW_KEYS, ...COMPARE_ROW_KEYS.slice(at)];
+}
 
 /**
  * The point of a line with the smallest or largest value; the first such point (lowest rpm) on
@@ -221,9 +311,27 @@ export function bestIndicesOf(cells: readonly CompareCell[], rule: BestRule): nu
 }
 
 /**
- * The table of differences of some operating lines: one row per figure in COMPARE_ROW_KEYS order,
+ * Best cells of the boost threshold row: lowest speed wins, and a line that never holds its
+ * target ranks after every line that does (it is not merely missing). Lines without an exhaust
+ * side are left out.
+ */
+function thresholdBest(cells: readonly CompareCell[]): number[] {
+  // Number.MAX_VALUE, not Infinity: it compares after every speed and is no tie with any of them.
+  const ranked = cells.map((c) => (c.note === 'not-reached' ? { value: Number.MAX_VALUE, rpm: null } : c));
+  return bestIndicesOf(ranked, 'lowest');
+}
+
+function exhaustRow(spec: ExhaustRowSpec, lines: readonly ComparableLine[]): CompareRow {
+  const cells = lines.map((line): CompareCell => (line.exhaust ? spec.cell(line.exhaust, line) : { value: null, rpm: null, note: 'no-exhaust' }));
+  const bestIndices = spec.key === 'boostThresholdRpm' ? thresholdBest(cells) : bestIndicesOf(cells, spec.best);
+  return { key: spec.key, label: spec.label, kind: spec.kind, best: spec.best, bestMeaning: spec.bestMeaning, cells, bestIndices };
+}
+
+/**
+ * The table of differences of some operating lines: one row per figure in compareRowKeys order,
  * one cell per line in the order given. Minimum margins and peaks come from the solved points;
- * finding counts from every point.
+ * exhaust figures from each line's exhaust summary, and only when at least one line has one
+ * (otherwise the rows are exactly COMPARE_ROW_KEYS); finding counts from every point.
  */
 export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
   const rows: CompareRow[] = [];
@@ -242,6 +350,9 @@ export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
         cells: rpmCells,
         bestIndices: [],
       });
+    }
+    if (spec.key === 'peakPressureRatio' && lines.some((l) => l.exhaust)) {
+      for (const x of exhaustRows) rows.push(exhaustRow(x, lines));
     }
   }
   for (const spec of severityRows) {

@@ -19,6 +19,8 @@ export type DiffValueKind =
   | 'temperatureDifference'
   | 'volume'
   | 'length'
+  /** A small diameter, m (a wastegate valve: mm or in). */
+  | 'diameter'
   | 'speed'
   /** Flow of one injector, m³/s (the trade reads cc/min). */
   | 'injectorFlow'
@@ -111,6 +113,18 @@ export const FIELD_WORDS: Record<string, string> = {
   compressorEfficiency: 'default compressor efficiency',
   maxShaftSpeed: 'max wheel speed',
   compressorMapId: 'compressor map',
+  exhaust: 'exhaust side',
+  turbineMapId: 'turbine map',
+  housing: 'turbine housing',
+  wastegates: 'wastegates',
+  valveDiameter: 'wastegate valve diameter',
+  dischargeCoefficient: 'wastegate discharge coefficient',
+  mechanicalEfficiency: 'mechanical efficiency',
+  // An rpm table: its rows read "turbine inlet temperature at 4000 rpm".
+  turbineInletTemperature: 'turbine inlet temperature',
+  downstreamLoss: 'pressure loss after the turbine',
+  pulseFactor: 'pulse-energy factor',
+  turbineEfficiency: 'default turbine efficiency',
   mapReference: 'map reference',
   kind: 'kind',
   id: 'id',
@@ -125,6 +139,7 @@ const RPM_TABLES: Key[][] = [
   ['engine', 'volumetricEfficiency'],
   ['fuelSystem', 'lambda'],
   ['scenarios', '*', 'boostSchedule', '*', 'boost'],
+  ['plans', '*', 'exhaust', 'turbineInletTemperature'],
 ];
 
 function matches(keys: Key[], pattern: Key[]): boolean {
@@ -143,6 +158,7 @@ export function kindOfPath(keys: Key[]): DiffValueKind | null {
     if (matches(table, RPM_TABLES[0])) return 'fraction';
     if (matches(table, RPM_TABLES[1])) return 'ratio';
     if (matches(table, RPM_TABLES[2])) return 'pressureGauge';
+    if (matches(table, RPM_TABLES[3])) return 'temperature';
   }
   if (last === 'rpm' && keys.length >= 3) return 'speed';
   switch (last) {
@@ -166,6 +182,7 @@ export function kindOfPath(keys: Key[]): DiffValueKind | null {
     case 'ratedPressure':
     case 'inlet':
     case 'chargeCooler':
+    case 'downstreamLoss':
       return 'pressure';
     case 'pressure':
       return 'pressure';
@@ -188,7 +205,14 @@ export function kindOfPath(keys: Key[]): DiffValueKind | null {
     case 'drivetrainLoss':
     case 'effectiveness':
     case 'compressorEfficiency':
+    case 'dischargeCoefficient':
+    case 'mechanicalEfficiency':
+    case 'turbineEfficiency':
       return 'fraction';
+    case 'pulseFactor':
+      return 'ratio';
+    case 'valveDiameter':
+      return 'diameter';
     case 'ethanolPercent':
       return 'percent';
     case 'altitude':
@@ -201,6 +225,8 @@ export function kindOfPath(keys: Key[]): DiffValueKind | null {
     case 'engineLabel':
     case 'notes':
     case 'compressorMapId':
+    case 'turbineMapId':
+    case 'housing':
     case 'id':
       return 'text';
     default:

@@ -1,22 +1,45 @@
 import { compressorModelFromMap, turbineModelFromMap } from '../maps';
-import type { SpoolbookMap } from '../maps/types';
+import type { CompressorMap, SpoolbookMap, TurbineMap } from '../maps/types';
 import { runStudy, type CompressorModel, type RunStudyOptions, type StudyResult, type TurbineModel } from '../matching';
 import { toStudyInput, type StudyDocument } from '../schemas/study';
 
+/**
+ * Map models kept per map object. Building a model (triangulating a map's points) costs far more
+ * than solving a whole study, so a caller that recomputes on every edit (the study page) keeps one
+ * cache and passes it each time.
+ */
+export interface MapModelCache {
+  compressor: WeakMap<CompressorMap, CompressorModel>;
+  turbine: WeakMap<TurbineMap, TurbineModel>;
+}
+
+export function mapModelCache(): MapModelCache {
+  return { compressor: new WeakMap(), turbine: new WeakMap() };
+}
+
+function cached<M extends object, T>(cache: WeakMap<M, T> | undefined, map: M, build: (map: M) => T): T {
+  let model = cache?.get(map);
+  if (!model) {
+    model = build(map);
+    cache?.set(map, model);
+  }
+  return model;
+}
+
 /** The compressor model of each plan, from the maps its plan names (null: no map, or not loaded). */
-export function planCompressorModels(doc: StudyDocument, mapsById: Record<string, SpoolbookMap | undefined>): (CompressorModel | null)[] {
+export function planCompressorModels(doc: StudyDocument, mapsById: Record<string, SpoolbookMap | undefined>, cache?: MapModelCache): (CompressorModel | null)[] {
   return doc.plans.map((plan) => {
     const map = plan.compressorMapId ? mapsById[plan.compressorMapId] : undefined;
-    return map && map.kind === 'compressor' ? compressorModelFromMap(map) : null;
+    return map && map.kind === 'compressor' ? cached(cache?.compressor, map, (m) => compressorModelFromMap(m)) : null;
   });
 }
 
 /** The turbine model of each plan, from the turbine map its plan names (null: none named, not loaded, or not a turbine map). */
-export function planTurbineModels(doc: StudyDocument, mapsById: Record<string, SpoolbookMap | undefined>): (TurbineModel | null)[] {
+export function planTurbineModels(doc: StudyDocument, mapsById: Record<string, SpoolbookMap | undefined>, cache?: MapModelCache): (TurbineModel | null)[] {
   return doc.plans.map((plan) => {
     const id = plan.turbineMapId ?? null;
     const map = id ? mapsById[id] : undefined;
-    return map && map.kind === 'turbine' ? turbineModelFromMap(map) : null;
+    return map && map.kind === 'turbine' ? cached(cache?.turbine, map, turbineModelFromMap) : null;
   });
 }
 
@@ -28,11 +51,12 @@ export function runStudyDocument(
   doc: StudyDocument,
   mapsById: Record<string, SpoolbookMap | undefined>,
   options: Omit<RunStudyOptions, 'compressorModels' | 'turbineModels'> = {},
+  cache?: MapModelCache,
 ): StudyResult {
   return runStudy(toStudyInput(doc), {
     validate: false,
     ...options,
-    compressorModels: planCompressorModels(doc, mapsById),
-    turbineModels: planTurbineModels(doc, mapsById),
+    compressorModels: planCompressorModels(doc, mapsById, cache),
+    turbineModels: planTurbineModels(doc, mapsById, cache),
   });
 }

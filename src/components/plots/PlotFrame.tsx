@@ -26,6 +26,7 @@ export function PlotFrame({
   label,
   exportName,
   controls,
+  note,
   onPointClick,
 }: {
   figure: PlotFigure;
@@ -34,6 +35,8 @@ export function PlotFrame({
   label: string;
   exportName?: string;
   controls?: ReactNode;
+  /** A line of reading help between the controls and the plot. */
+  note?: ReactNode;
   /** Receives the `customdata` of the clicked point, when it has one. */
   onPointClick?: (customdata: unknown) => void;
 }) {
@@ -82,6 +85,7 @@ export function PlotFrame({
           </Button>
         </div>
       </div>
+      {note}
       {exportError && (
         <p role="alert" className="text-sm text-copper-ink">
           {exportError}

@@ -3,9 +3,47 @@ import type { TurbineMap } from '../../../shared/maps/types';
 import type { UnitSystem } from '../../lib/units';
 import { PlotFrame } from './PlotFrame';
 import { turbineMapFigure } from './turbine-map-figure';
+import type { TurbineOperatingLineView } from './types';
 
-/** A turbine map in the same style as the compressor map: flow parameter against expansion ratio per speed line. */
-export function TurbineMapPlot({ map, unitSystem, height = 440, exportName }: { map: TurbineMap; unitSystem: UnitSystem; height?: number; exportName?: string }) {
-  const figure = useMemo(() => turbineMapFigure({ map, unitSystem, height }), [map, unitSystem, height]);
-  return <PlotFrame figure={figure} height={height} label={`Turbine map: ${map.name}`} exportName={exportName ?? map.name} />;
+function isLineClick(customdata: unknown): customdata is [string, number] {
+  return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
+}
+
+/**
+ * A turbine map in the same style as the compressor map: flow parameter against expansion ratio
+ * per speed line, with a study's operating lines over it when given.
+ */
+export function TurbineMapPlot({
+  map,
+  unitSystem,
+  height = 440,
+  exportName,
+  lines,
+  highlight = null,
+  onPointClick,
+}: {
+  map: TurbineMap;
+  unitSystem: UnitSystem;
+  height?: number;
+  exportName?: string;
+  lines?: readonly TurbineOperatingLineView[];
+  highlight?: { lineKey: string; rpm: number } | null;
+  onPointClick?: (lineKey: string, rpm: number) => void;
+}) {
+  const figure = useMemo(() => turbineMapFigure({ map, unitSystem, height, lines, highlight }), [map, unitSystem, height, lines, highlight]);
+  return (
+    <PlotFrame
+      figure={figure}
+      height={height}
+      label={`Turbine map: ${map.name}`}
+      exportName={exportName ?? map.name}
+      onPointClick={
+        onPointClick
+          ? (customdata) => {
+              if (isLineClick(customdata)) onPointClick(customdata[0], customdata[1]);
+            }
+          : undefined
+      }
+    />
+  );
 }

@@ -3,8 +3,9 @@ import type { TurbineMap } from '../../../shared/maps/types';
 import { mapValueFromSI } from '../../../shared/maps/units';
 import type { UnitSystem } from '../../lib/units';
 import type { PlotFigure } from './compressor-map-figure';
-import { formatNumber, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
-import { mapPlotPaper, plotAxis, plotColours, plotFont } from './style';
+import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
+import { mapPlotPaper, planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash } from './style';
+import type { TurbineOperatingLineView } from './types';
 
 /** The unit the flow parameter ṁ·√T3/p3 is shown in, by unit system (mathjs names). */
 export const flowParameterDisplayUnit: Record<UnitSystem, string> = {
@@ -17,8 +18,54 @@ function flowParameterTitle(map: TurbineMap, system: UnitSystem): string {
   return `${what} ṁ·√T3/p3 (${unitLabel(flowParameterDisplayUnit[system])})`;
 }
 
-/** A turbine map: flow parameter against expansion ratio, one line per speed, in the user's units. */
-export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap; unitSystem: UnitSystem; height: number }): PlotFigure {
+const SEVERITY_OUTLINE = { limit: plotColours.limit, warning: plotColours.copper, info: plotColours.sheet } as const;
+
+/** The operating lines of a study on the map: one trace per line, told apart like on the compressor map. */
+function operatingTraces(lines: readonly TurbineOperatingLineView[], perSI: number, system: UnitSystem): Data[] {
+  return lines.map((line) => {
+    const colour = planColour(line.planIndex);
+    return {
+      type: 'scatter',
+      mode: 'lines+markers',
+      name: line.label,
+      legendgroup: `line:${line.key}`,
+      showlegend: true,
+      x: line.points.map((p) => p.expansionRatio),
+      y: line.points.map((p) => p.flowParameter * perSI),
+      line: { color: colour, width: 2, dash: scenarioDash(line.scenarioIndex) },
+      marker: {
+        symbol: planMarker(line.planIndex),
+        size: 9,
+        color: colour,
+        line: {
+          color: line.points.map((p) => SEVERITY_OUTLINE[p.severity ?? 'info']),
+          width: line.points.map((p) => (p.severity === 'limit' || p.severity === 'warning' ? 2.5 : 1)),
+        },
+      },
+      customdata: line.points.map((p) => [line.key, p.rpm]),
+      text: line.points.map((p) => [`<b>${plotText(line.label)}</b>`, ...p.hover.map((h) => `${plotText(h.label)}: ${formatQuantity(h.value, h.kind, system)}`)].join('<br>')),
+      hovertemplate: '%{text}<extra></extra>',
+    } satisfies Data;
+  });
+}
+
+/**
+ * A turbine map: flow parameter against expansion ratio, one line per speed, in the user's units;
+ * with a study's operating lines over it when given (the study page).
+ */
+export function turbineMapFigure({
+  map,
+  unitSystem,
+  height,
+  lines = [],
+  highlight = null,
+}: {
+  map: TurbineMap;
+  unitSystem: UnitSystem;
+  height: number;
+  lines?: readonly TurbineOperatingLineView[];
+  highlight?: { lineKey: string; rpm: number } | null;
+}): PlotFigure {
   const unit = flowParameterDisplayUnit[unitSystem];
   const perSI = mapValueFromSI(1, unit, 'flowParameter');
   const data: Data[] = [];
@@ -65,6 +112,30 @@ export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap;
       font: { ...plotFont, size: 10, color: plotColours.inkSoft },
     });
   });
+  for (const trace of operatingTraces(lines, perSI, unitSystem)) {
+    data.push(trace);
+    const x = (trace as { x: number[] }).x.filter(Number.isFinite);
+    const y = (trace as { y: number[] }).y.filter(Number.isFinite);
+    if (x.length) maxX = Math.max(maxX, ...x);
+    if (y.length) {
+      maxY = Math.max(maxY, ...y);
+      minY = Math.min(minY, ...y);
+    }
+  }
+  const ringLine = highlight ? lines.find((l) => l.key === highlight.lineKey) : undefined;
+  const ringPoint = ringLine?.points.find((p) => Math.abs(p.rpm - highlight!.rpm) <= 1e-6 * Math.max(1, Math.abs(highlight!.rpm)));
+  if (ringPoint) {
+    data.push({
+      type: 'scatter',
+      mode: 'markers',
+      name: 'Selected point',
+      showlegend: false,
+      x: [ringPoint.expansionRatio],
+      y: [ringPoint.flowParameter * perSI],
+      marker: { symbol: 'circle-open', size: 24, color: plotColours.ink, line: { width: 2.5, color: plotColours.ink } },
+      hoverinfo: 'skip',
+    });
+  }
   const axis = plotAxis;
   const xRange: [number, number] = [1, 1 + (maxX - 1) * 1.15];
   // The lines sit high on a flow parameter axis from 0; start where the data starts instead.
@@ -76,8 +147,20 @@ export function turbineMapFigure({ map, unitSystem, height }: { map: TurbineMap;
       ...mapPlotPaper,
       xaxis: { ...axis, range: xRange, title: { text: 'Expansion ratio p3/p4', font: { ...plotFont, size: 13 } } },
       yaxis: { ...axis, range: yRange, title: { text: flowParameterTitle(map, unitSystem), font: { ...plotFont, size: 13 } } },
-      showlegend: false,
+      showlegend: lines.length > 0,
+      legend: {
+        orientation: 'h',
+        x: 0,
+        y: -0.16,
+        xanchor: 'left',
+        yanchor: 'top',
+        bgcolor: 'rgba(255, 253, 248, 0.92)',
+        bordercolor: plotColours.paperLine,
+        borderwidth: 1,
+        font: { ...plotFont, size: 11 },
+      },
       annotations,
+      dragmode: 'zoom',
     },
   };
 }

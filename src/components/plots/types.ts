@@ -48,3 +48,23 @@ export interface CompressorMapPlotProps {
   /** Title used for exported PNG/SVG file names. */
   exportName?: string;
 }
+
+/** An operating point on a turbine map: where the turbine runs, SI in. */
+export interface TurbineOperatingPointView {
+  /** Engine speed, rpm. */
+  rpm: number;
+  /** Expansion ratio p3/p4. */
+  expansionRatio: number;
+  /** Flow parameter as the map draws it (per scroll on a per-scroll map), kg·K^0.5/(s·Pa). */
+  flowParameter: number;
+  hover: { label: string; value: number | null; kind: string }[];
+  severity?: 'info' | 'warning' | 'limit' | null;
+}
+
+export interface TurbineOperatingLineView {
+  key: string;
+  label: string;
+  planIndex: number;
+  scenarioIndex: number;
+  points: TurbineOperatingPointView[];
+}

@@ -45,13 +45,14 @@ export function groupFindings(lines: readonly StudyLine[]): FindingGroup[] {
 
 /**
  * A finding's words in the user's units. The engine words its messages in SI ("478 K (205 °C)",
- * "250 kPa"); for US customary those amounts are rewritten, the rest of the sentence stays.
+ * "250 kPa", "38.0 mm"); for US customary those amounts are rewritten, the rest of the sentence stays.
  */
 export function localizeMessage(message: string, system: UnitSystem): string {
   if (system === 'si') return message;
   return message
     .replace(/(-?[\d.]+(?:e[-+]?\d+)?) K \(−?-?[\d.]+ °C\)/g, (_m, kelvin: string) => formatStudyValue(Number(kelvin), 'temperature', system))
-    .replace(/(−|-)?([\d.]+(?:e[-+]?\d+)?) kPa/g, (_m, minus: string | undefined, kpa: string) => formatStudyValue((minus ? -1 : 1) * Number(kpa) * 1000, 'pressure', system));
+    .replace(/(−|-)?([\d.]+(?:e[-+]?\d+)?) kPa/g, (_m, minus: string | undefined, kpa: string) => formatStudyValue((minus ? -1 : 1) * Number(kpa) * 1000, 'pressure', system))
+    .replace(/([\d.]+) mm\b/g, (_m, mm: string) => formatStudyValue(Number(mm) / 1000, 'diameter', system));
 }
 
 function rpmSpan(rpms: number[]): string {

@@ -1,8 +1,8 @@
 import { useMemo, useState } from 'react';
 import type { UnitSystem } from '../../lib/units';
 import { PlotFrame } from '../plots/PlotFrame';
-import type { PointRef, StudyLine } from './lines';
-import { CURVE_VIEWS, rpmCurvesFigure } from './rpm-curves-figure';
+import { hasExhaust, type PointRef, type StudyLine } from './lines';
+import { curveViewsFor, rpmCurvesFigure } from './rpm-curves-figure';
 
 function isLineClick(customdata: unknown): customdata is [string, number] {
   return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
@@ -10,9 +10,10 @@ function isLineClick(customdata: unknown): customdata is [string, number] {
 
 /**
  * Curves against engine speed, one quantity at a time (boost, pressure ratio, mass flow, power
- * and torque at crank and wheels, injector duty, compressor outlet temperature): one line per
- * plan × scenario × boost row, told apart like on the map (colour and marker by plan, dash by
- * scenario). The selected point is ringed; clicking a point selects it.
+ * and torque at crank and wheels, injector duty, compressor outlet temperature, and with the
+ * exhaust side: exhaust pressure, turbine power, wastegate): one line per plan × scenario × boost
+ * row, told apart like on the map (colour and marker by plan, dash by scenario). The selected
+ * point is ringed; clicking a point selects it.
  */
 export function RpmCurves({
   lines,
@@ -35,7 +36,9 @@ export function RpmCurves({
   initialView?: string;
 }) {
   const [viewId, setViewId] = useState(initialView);
-  const view = CURVE_VIEWS.find((v) => v.id === viewId) ?? CURVE_VIEWS[0];
+  const withExhaust = useMemo(() => hasExhaust(lines), [lines]);
+  const views = curveViewsFor(withExhaust);
+  const view = views.find((v) => v.id === viewId) ?? views[0];
   const legendRows = Math.ceil(lines.length / 2);
   const plotHeight = height + legendRows * 18;
   const figure = useMemo(
@@ -51,7 +54,7 @@ export function RpmCurves({
         exportName={`${exportName}-${view.id}`}
         controls={
           <div role="group" aria-label="Quantity plotted against rpm" className="flex flex-wrap gap-1">
-            {CURVE_VIEWS.map((v) => (
+            {views.map((v) => (
               <button
                 key={v.id}
                 type="button"
@@ -65,6 +68,15 @@ export function RpmCurves({
               </button>
             ))}
           </div>
+        }
+        note={
+          withExhaust && (view.id === 'boost' || view.id === 'wastegate') ? (
+            <p className="text-xs text-ink-soft">
+              {view.id === 'boost'
+                ? 'Plans with the exhaust side: the solid line is the boost the turbine holds, the dotted line the target. Where they part, the target is not held.'
+                : 'Dotted: the valve fitted to each gate. Where the needed size rises above it, the gates cannot hold the target.'}
+            </p>
+          ) : undefined
         }
         onPointClick={
           onPointClick

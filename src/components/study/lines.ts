@@ -1,6 +1,6 @@
 import { worstSeverity } from '../../../shared/matching/findings';
 import type { OperatingLine, OperatingPoint, SolvedPoint, StudyResult } from '../../../shared/matching/types';
-import type { OperatingLineView, OperatingPointView } from '../plots/types';
+import type { OperatingLineView, OperatingPointView, TurbineOperatingLineView, TurbineOperatingPointView } from '../plots/types';
 
 /** One operating line of a study with the key every view of the study uses for it. */
 export interface StudyLine {
@@ -85,4 +85,49 @@ export function mapLineViews(lines: readonly StudyLine[]): OperatingLineView[] {
     scenarioIndex: l.scenarioIndex,
     points: l.line.points.filter((p): p is SolvedPoint => p.solved).map(pointView),
   }));
+}
+
+function turbinePointView(point: SolvedPoint): TurbineOperatingPointView | null {
+  const v = point.values;
+  if (typeof v.expansionRatio !== 'number' || typeof v.turbineMapFlowParameter !== 'number' || !Number.isFinite(v.expansionRatio) || !Number.isFinite(v.turbineMapFlowParameter))
+    return null;
+  return {
+    rpm: v.rpm,
+    expansionRatio: v.expansionRatio,
+    flowParameter: v.turbineMapFlowParameter,
+    severity: worstSeverity(point.findings),
+    hover: [
+      { label: 'Engine speed', value: v.rpm, kind: 'speed' },
+      { label: v.targetHeld === false ? 'Boost held (below target)' : 'Boost (gauge)', value: v.boost, kind: 'pressure' },
+      { label: 'Expansion ratio', value: v.expansionRatio, kind: 'ratio' },
+      { label: 'Turbine inlet pressure (abs.)', value: v.turbineInletPressure ?? null, kind: 'pressure' },
+      { label: 'Drive pressure ratio', value: v.drivePressureRatio ?? null, kind: 'ratio' },
+      { label: 'Turbine efficiency', value: v.turbineEfficiency ?? null, kind: 'fraction' },
+      { label: 'Turbine power', value: v.turbinePower ?? null, kind: 'power' },
+      { label: 'Wastegate share of exhaust', value: v.wastegateFraction ?? null, kind: 'fraction' },
+      { label: 'Wastegate valve needed (each)', value: v.wastegateDiameterNeeded ?? null, kind: 'length' },
+    ],
+  };
+}
+
+/** The lines whose plan has an exhaust side, as the turbine-map plot takes them (points with a place on the map). */
+export function turbineLineViews(lines: readonly StudyLine[]): TurbineOperatingLineView[] {
+  return lines
+    .filter((l) => l.line.context.exhaust?.turbine)
+    .map((l) => ({
+      key: l.key,
+      label: l.label,
+      planIndex: l.planIndex,
+      scenarioIndex: l.scenarioIndex,
+      points: l.line.points.flatMap((p) => {
+        if (!p.solved) return [];
+        const view = turbinePointView(p);
+        return view ? [view] : [];
+      }),
+    }));
+}
+
+/** Whether any line of the study has its exhaust side computed (a plan with an exhaust block and a turbine map). */
+export function hasExhaust(lines: readonly StudyLine[]): boolean {
+  return lines.some((l) => l.line.context.exhaust?.turbine);
 }

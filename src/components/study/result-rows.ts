@@ -47,6 +47,7 @@ export function resultTableRows(lines: readonly StudyLine[]): ResultTableRow[] {
 export function columnQuantity(column: ResultColumn): StudyQuantity {
   if (column.key === 'fuelVolumeFlow' || column.key === 'pumpFlowRequired') return 'fuelFlow';
   if (column.gauge) return 'pressureGauge';
+  if (column.key === 'wastegateDiameterNeeded') return 'diameter';
   switch (column.kind) {
     case 'none':
       return 'ratio';

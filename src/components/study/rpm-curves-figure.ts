@@ -1,4 +1,5 @@
 import type { Annotation, Data, Layout, Shape } from 'plotly.js-dist-min';
+import { DRIVE_PRESSURE_RATIO_WARNING } from '../../../shared/matching/exhaust-findings';
 import { COMPRESSOR_OUTLET_TEMPERATURE_WARNING, INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '../../../shared/matching/findings';
 import type { PointValues, SolvedPoint } from '../../../shared/matching/types';
 import type { UnitSystem } from '../../lib/units';
@@ -13,6 +14,11 @@ interface Series {
   title: string;
   quantity: StudyQuantity;
   value: (v: PointValues) => number | null;
+  /**
+   * A second value drawn thin and dotted beside each line where it has one (the boost target
+   * beside the boost the turbine holds, the valve fitted beside the valve needed).
+   */
+  companion?: { title: string; value: (v: PointValues) => number | null };
 }
 
 export interface CurveView {
@@ -23,13 +29,27 @@ export interface CurveView {
   panels: Series[];
   /** The panels share one y scale (crank and wheel of the same quantity). */
   sameScale?: boolean;
+  /** Only for studies with the exhaust side computed on some plan. */
+  exhaust?: boolean;
 }
 
 /** Wheel torque referred to engine speed: wheel power over crank angular speed (gearing left out). */
 const wheelTorque = (v: PointValues) => (v.wheelPower === null ? null : v.wheelPower / ((2 * Math.PI * v.rpm) / 60));
 
 export const CURVE_VIEWS: CurveView[] = [
-  { id: 'boost', label: 'Boost', panels: [{ title: 'Boost', quantity: 'pressureGauge', value: (v) => v.boost }] },
+  {
+    id: 'boost',
+    label: 'Boost',
+    panels: [
+      {
+        title: 'Boost',
+        quantity: 'pressureGauge',
+        value: (v) => v.boost,
+        // With the exhaust side on, the boost drawn is what the turbine holds; the target beside it.
+        companion: { title: 'Boost target', value: (v) => (v.targetHeld === null || v.targetHeld === undefined ? null : (v.boostTarget ?? null)) },
+      },
+    ],
+  },
   { id: 'pressure-ratio', label: 'Pressure ratio', panels: [{ title: 'Pressure ratio', quantity: 'ratio', value: (v) => v.pressureRatio }] },
   {
     id: 'mass-flow',
@@ -63,7 +83,45 @@ export const CURVE_VIEWS: CurveView[] = [
     label: 'Outlet temperature',
     panels: [{ title: 'Compressor outlet temperature', quantity: 'temperature', value: (v) => v.compressorOutletTemperature }],
   },
+  {
+    id: 'exhaust-pressure',
+    label: 'Exhaust pressure',
+    exhaust: true,
+    panels: [
+      { title: 'Turbine inlet pressure (absolute)', quantity: 'pressure', value: (v) => v.turbineInletPressure ?? null },
+      { title: 'Drive pressure ratio, exhaust over intake manifold', quantity: 'ratio', value: (v) => v.drivePressureRatio ?? null },
+    ],
+  },
+  {
+    id: 'turbine-power',
+    label: 'Turbine power',
+    exhaust: true,
+    sameScale: true,
+    panels: [
+      { title: 'Turbine power (per turbocharger)', quantity: 'power', value: (v) => v.turbinePower ?? null },
+      { title: 'Compressor power (per turbocharger)', quantity: 'power', value: (v) => (v.turbinePower === null || v.turbinePower === undefined ? null : v.compressorPower) },
+    ],
+  },
+  {
+    id: 'wastegate',
+    label: 'Wastegate',
+    exhaust: true,
+    panels: [
+      { title: 'Wastegate share of exhaust', quantity: 'fraction', value: (v) => v.wastegateFraction ?? null },
+      {
+        title: 'Wastegate valve needed (each gate)',
+        quantity: 'diameter',
+        value: (v) => v.wastegateDiameterNeeded ?? null,
+        companion: { title: 'Valve fitted', value: (v) => v.wastegateDiameterFitted ?? null },
+      },
+    ],
+  },
 ];
+
+/** The views a study offers: the exhaust views only when some plan has its exhaust side computed. */
+export function curveViewsFor(withExhaust: boolean): CurveView[] {
+  return CURVE_VIEWS.filter((v) => withExhaust || !v.exhaust);
+}
 
 function axisTitle(series: Series, system: UnitSystem): string {
   const unit = quantityUnit(series.quantity, system).label;
@@ -90,6 +148,7 @@ function guides(view: CurveView, system: UnitSystem, outletTemperatureLimit: num
     out.push(guide(unit.fromSI(COMPRESSOR_OUTLET_TEMPERATURE_WARNING), plotColours.copper, `${formatStudyValue(COMPRESSOR_OUTLET_TEMPERATURE_WARNING, 'temperature', system)} warning`, 1));
     if (outletTemperatureLimit !== null) out.push(guide(unit.fromSI(outletTemperatureLimit), plotColours.limit, `${formatStudyValue(outletTemperatureLimit, 'temperature', system)} stated limit`, 1));
   }
+  if (view.id === 'exhaust-pressure') out.push(guide(DRIVE_PRESSURE_RATIO_WARNING, plotColours.copper, `${formatNumber(DRIVE_PRESSURE_RATIO_WARNING)} high`, 2));
   return out;
 }
 
@@ -145,6 +204,34 @@ export function rpmCurvesFigure({
         text,
         hovertemplate: '%{text}<extra></extra>',
       } as Data);
+      const companion = series.companion;
+      if (companion) {
+        const cy = points.map((p) => {
+          const c = companion.value(p.values);
+          return c === null || !Number.isFinite(c) ? null : unit.fromSI(c);
+        });
+        if (cy.some((c) => c !== null)) {
+          data.push({
+            type: 'scatter',
+            mode: 'lines',
+            name: `${l.label} · ${companion.title.toLowerCase()}`,
+            legendgroup: l.key,
+            showlegend: false,
+            xaxis: `x${axis}`,
+            yaxis: `y${axis}`,
+            x,
+            y: cy,
+            line: { color: colour, width: 1.25, dash: 'dot' },
+            opacity: 0.8,
+            connectgaps: false,
+            text: points.map(
+              (p, i) =>
+                `<b>${plotText(l.label)}</b><br>${formatNumber(p.rpm, 21)} rpm<br>${plotText(companion.title)}: ${plotText(formatStudyValue(cy[i] === null ? null : companion.value(p.values), series.quantity, unitSystem))}`,
+            ),
+            hovertemplate: '%{text}<extra></extra>',
+          } as Data);
+        }
+      }
     }
     const target = highlight ? lines.find((l) => l.key === highlight.lineKey) : undefined;
     const point = target?.line.points.find((p): p is SolvedPoint => p.solved && sameRpm(p.rpm, highlight!.rpm));

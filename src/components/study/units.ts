@@ -76,6 +76,8 @@ function makeUnit(quantity: StudyQuantity, system: UnitSystem): QuantityUnit {
       return us ? mathUnit('ci', 'volume', 'ci') : mathUnit('L', 'volume', 'L');
     case 'length':
       return us ? mathUnit('ft', 'length', 'ft') : mathUnit('m', 'length', 'm');
+    case 'diameter':
+      return us ? mathUnit('in', 'length', 'in') : mathUnit('mm', 'length', 'mm');
     case 'speed':
       return scaled(1, 'rpm');
     case 'injectorFlow':

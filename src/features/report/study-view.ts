@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import type { CompressorMap, SpoolbookMap } from '../../../shared/maps/types';
+import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../shared/maps/types';
 import type { StudyResult } from '../../../shared/matching/types';
 import type { StudyDocument } from '../../../shared/schemas/study';
 import { studyLines, type StudyLine } from '../../components/study/lines';
@@ -61,10 +61,55 @@ export function mapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsB
   return [...groups.values()];
 }
 
+/** The plans with an exhaust side that share one turbine map, drawn together on it. */
+export interface TurbineMapGroup {
+  key: string;
+  /** null: the plans name no turbine map. */
+  mapId: string | null;
+  /** null: no turbine map named, or it could not be loaded (the exhaust side is then not computed). */
+  map: TurbineMap | null;
+  title: string;
+  planNames: string[];
+  lines: StudyLine[];
+}
+
+/**
+ * The lines of the plans with an exhaust side, grouped by their turbine map in plan order, like
+ * `mapGroups` for the compressor. Plans without an exhaust block are left out; those with one but
+ * no loaded turbine map form one group without a map.
+ */
+export function turbineMapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): TurbineMapGroup[] {
+  const groups = new Map<string, TurbineMapGroup>();
+  doc.plans.forEach((plan, planIndex) => {
+    if (!plan.exhaust) return;
+    const id = plan.turbineMapId ?? null;
+    const loaded = id ? mapsById[id] : undefined;
+    const map = loaded && loaded.kind === 'turbine' ? loaded : null;
+    const key = map && id ? id : '(no turbine map)';
+    let group = groups.get(key);
+    if (!group) {
+      group = {
+        key,
+        mapId: map ? id : null,
+        map,
+        title: map && id ? mapName(id, mapsById, mapNames) : 'Plans without a turbine map',
+        planNames: [],
+        lines: [],
+      };
+      groups.set(key, group);
+    }
+    group.planNames.push(plan.name);
+    group.lines.push(...lines.filter((l) => l.planIndex === planIndex));
+  });
+  return [...groups.values()];
+}
+
 export interface ComputedStudy {
   result: StudyResult;
   lines: StudyLine[];
   groups: MapGroup[];
+  /** Turbine maps of the plans with an exhaust side; empty for a study judged on the compressor alone. */
+  turbineGroups: TurbineMapGroup[];
 }
 
 /** Computes the study in the browser with the same engine as the workspace, once per document and maps. */
@@ -73,6 +118,11 @@ export function useComputedStudy(data: Pick<StudyViewData, 'document' | 'mapsByI
   return useMemo(() => {
     const result = runStudyLive(document, mapsById);
     const lines = studyLines(result, document.plans);
-    return { result, lines, groups: mapGroups(document, lines, mapsById, mapNames) };
+    return {
+      result,
+      lines,
+      groups: mapGroups(document, lines, mapsById, mapNames),
+      turbineGroups: turbineMapGroups(document, lines, mapsById, mapNames),
+    };
   }, [document, mapsById, mapNames]);
 }

@@ -89,6 +89,7 @@ describe('findings', () => {
       'Compressor outlet temperature 401.1 °F is above 392.1 °F.', // °F = K × 1.8 − 459.67 (NIST SP 811), 4 significant figures
     );
     expect(localizeMessage('Manifold pressure 250 kPa is above the stated limit 240 kPa.', 'us')).toBe('Manifold pressure 36.26 psi is above the stated limit 34.81 psi.'); // 1 psi = 6.894757 kPa (NIST SP 811)
+    expect(localizeMessage('Each wastegate needs a 25.3 mm valve here; 20.0 mm is fitted.', 'us')).toBe('Each wastegate needs a 0.9961 in valve here; 0.7874 in is fitted.'); // 1 in = 25.4 mm (NIST SP 811), 4 significant figures
     expect(localizeMessage('unchanged 250 kPa', 'si')).toBe('unchanged 250 kPa');
   });
 });

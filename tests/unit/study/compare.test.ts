@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { Finding, OperatingPoint, PointValues, Severity } from '../../../shared/matching/types';
-import { bestIndicesOf, COMPARE_ROW_KEYS, compareLines, type CompareRow, type CompareRowKey, type ComparableLine } from '../../../shared/study/compare';
+import type { ExhaustLineSummary, Finding, OperatingPoint, PointValues, Severity } from '../../../shared/matching/types';
+import { bestIndicesOf, COMPARE_ROW_KEYS, compareLines, compareRowKeys, EXHAUST_ROW_KEYS, type CompareRow, type CompareRowKey, type ComparableLine } from '../../../shared/study/compare';
 
 // Tiny synthetic lines: only the values compareLines reads are set on purpose; the rest are
 // filler of the right type. Every expected number below is hand-read from these points.
@@ -242,5 +242,123 @@ describe('compareLines properties', () => {
       }),
       { numRuns: 300 },
     );
+  });
+});
+
+describe('compareLines with an exhaust side', () => {
+  // Tiny synthetic exhaust summaries; every expected number below is hand-read from them.
+  const summary = (over: Partial<ExhaustLineSummary>): ExhaustLineSummary => ({
+    boostThresholdRpm: 3500,
+    peakDrivePressureRatio: { value: 1.4, rpm: 6000 },
+    wastegateDiameterNeeded: { value: 0.032, rpm: 7000 },
+    wastegateDiameterFitted: 0.038,
+    turbineInletPressureAtPeakPower: { value: 290_000, rpm: 6000 },
+    peakTurbineInletPressure: { value: 300_000, rpm: 7000 },
+    ...over,
+  });
+  // The exhaust side was computed at these points: the turbine held the target from 3500 rpm on.
+  const heldFrom3500 = [solved(2500, { targetHeld: false }), solved(3500, { targetHeld: true })];
+  const neverHeld = [solved(2500, { targetHeld: false }), solved(3500, { targetHeld: false })];
+
+  /** Small housing: full boost early, high drive pressure. */
+  const small: ComparableLine = { points: heldFrom3500, exhaust: summary({}) };
+  /** Large housing: full boost later, lower drive pressure, a larger valve needed. */
+  const large: ComparableLine = {
+    points: heldFrom3500,
+    exhaust: summary({
+      boostThresholdRpm: 4500,
+      peakDrivePressureRatio: { value: 1.1, rpm: 7000 },
+      wastegateDiameterNeeded: { value: 0.036, rpm: 7000 },
+      wastegateDiameterFitted: 0.044,
+      turbineInletPressureAtPeakPower: { value: 240_000, rpm: 6500 },
+    }),
+  };
+  /** Far too large: the turbine never holds the target, the gate never opens. */
+  const lazy: ComparableLine = {
+    points: neverHeld,
+    exhaust: summary({ boostThresholdRpm: null, peakDrivePressureRatio: { value: 0.9, rpm: 7000 }, wastegateDiameterNeeded: null, turbineInletPressureAtPeakPower: { value: 200_000, rpm: 7000 } }),
+  };
+  /** A compressor-only Plan beside them. */
+  const compressorOnly: ComparableLine = { points: heldFrom3500, exhaust: null };
+
+  it('adds no row when no line has an exhaust side (null or absent)', () => {
+    expect(compareLines([compressorOnly, { points: heldFrom3500 }]).map((r) => r.key)).toEqual(COMPARE_ROW_KEYS);
+    expect(compareRowKeys(false)).toEqual(COMPARE_ROW_KEYS);
+  });
+
+  it('adds the exhaust rows after the peak pressure ratio and before the finding counts', () => {
+    const keys = compareLines([small, compressorOnly]).map((r) => r.key);
+    expect(keys).toEqual(compareRowKeys(true));
+    // The documented order, written out (definition of the rows).
+    expect(keys.slice(keys.indexOf('peakPressureRatio'), keys.indexOf('limitFindings'))).toEqual([
+      'peakPressureRatio',
+      'boostThresholdRpm',
+      'peakDrivePressureRatio',
+      'wastegateDiameterNeeded',
+      'wastegateDiameterFitted',
+      'turbineInletPressureAtPeakPower',
+    ]);
+    expect(EXHAUST_ROW_KEYS).toHaveLength(5);
+    expect(keys).toHaveLength(COMPARE_ROW_KEYS.length + 5);
+  });
+
+  it('reads the cells from the summaries and marks the lowest as best', () => {
+    const rows = compareLines([small, large, lazy]);
+    const cells = (key: CompareRowKey) => row(rows, key).cells;
+    // Hand-read: thresholds 3500 and 4500 rpm, the third never holds its target.
+    expect(cells('boostThresholdRpm')).toEqual([
+      { value: 3500, rpm: null },
+      { value: 4500, rpm: null },
+      { value: null, rpm: null, note: 'not-reached' },
+    ]);
+    expect(row(rows, 'boostThresholdRpm').bestIndices).toEqual([0]); // lowest speed wins: small (hand-read)
+    // Hand-read: drive pressure ratios 1.4 at 6000, 1.1 at 7000, 0.9 at 7000 rpm; lowest wins: lazy.
+    expect(cells('peakDrivePressureRatio')).toEqual([
+      { value: 1.4, rpm: 6000 },
+      { value: 1.1, rpm: 7000 },
+      { value: 0.9, rpm: 7000 },
+    ]);
+    expect(row(rows, 'peakDrivePressureRatio').bestIndices).toEqual([2]);
+    // Hand-read: valves needed 32 and 36 mm, none for lazy (no note: the reason is not the threshold).
+    expect(cells('wastegateDiameterNeeded')).toEqual([
+      { value: 0.032, rpm: 7000 },
+      { value: 0.036, rpm: 7000 },
+      { value: null, rpm: null },
+    ]);
+    expect(row(rows, 'wastegateDiameterNeeded').bestIndices).toEqual([0]);
+    // Hand-read: fitted valves 38, 44, 38 mm; no best by definition of the row.
+    expect(cells('wastegateDiameterFitted').map((c) => c.value)).toEqual([0.038, 0.044, 0.038]);
+    expect(row(rows, 'wastegateDiameterFitted').bestIndices).toEqual([]);
+    // Hand-read: turbine inlet pressure at peak power 290, 240, 200 kPa abs.; lowest wins: lazy.
+    expect(cells('turbineInletPressureAtPeakPower').map((c) => [c.value, c.rpm])).toEqual([
+      [290_000, 6000],
+      [240_000, 6500],
+      [200_000, 7000],
+    ]);
+    expect(row(rows, 'turbineInletPressureAtPeakPower').bestIndices).toEqual([2]);
+    expect(row(rows, 'turbineInletPressureAtPeakPower').kind).toBe('pressure');
+    expect(row(rows, 'wastegateDiameterNeeded').kind).toBe('length');
+  });
+
+  it('tells a line that never reaches full boost from a line without an exhaust side', () => {
+    const rows = compareLines([lazy, compressorOnly]);
+    expect(row(rows, 'boostThresholdRpm').cells).toEqual([
+      { value: null, rpm: null, note: 'not-reached' },
+      { value: null, rpm: null, note: 'no-exhaust' },
+    ]);
+    // Every exhaust row of the compressor-only line says why it is empty.
+    for (const key of EXHAUST_ROW_KEYS) expect(row(rows, key).cells[1]).toEqual({ value: null, rpm: null, note: 'no-exhaust' });
+    // One exhaust line, nothing to choose between (definition of bestIndices).
+    expect(row(rows, 'boostThresholdRpm').bestIndices).toEqual([]);
+  });
+
+  it('ranks a line that never reaches full boost after one that does, and marks nothing when none does', () => {
+    expect(row(compareLines([lazy, large]), 'boostThresholdRpm').bestIndices).toEqual([1]); // reaching at 4500 rpm beats never (definition of the row)
+    expect(row(compareLines([lazy, lazy]), 'boostThresholdRpm').bestIndices).toEqual([]); // neither reaches: nothing to choose
+  });
+
+  it('says nothing about reaching when the exhaust side was computed at no point', () => {
+    const unsolvedOnly: ComparableLine = { points: [unsolved(3000, ['limit'])], exhaust: summary({ boostThresholdRpm: null }) };
+    expect(row(compareLines([unsolvedOnly]), 'boostThresholdRpm').cells).toEqual([{ value: null, rpm: null }]);
   });
 });

@@ -123,12 +123,103 @@ describe('diffDocuments', () => {
   });
 });
 
+describe('diffDocuments on the exhaust side of a plan', () => {
+  // A valid exhaust block (shared/schemas/compute.ts exhaustSchema); its numbers are test inputs, not physics.
+  const exhaust = () => ({
+    housing: 'single' as const,
+    wastegates: { count: 1 as const, valveDiameter: 0.038, dischargeCoefficient: 0.8 },
+    mechanicalEfficiency: 0.95,
+    turbineInletTemperature: [
+      { rpm: 3000, value: 1073.15 },
+      { rpm: 6000, value: 1223.15 },
+    ],
+    downstreamLoss: 15_000,
+  });
+  const withExhaust = () => {
+    const doc = demoJson();
+    Object.assign(doc.plans[0], { exhaust: exhaust(), turbineMapId: 'builtin-turbine-a' });
+    return studyDocumentSchema.parse(doc);
+  };
+
+  it('reads a changed valve diameter in words, as a diameter', () => {
+    const a = withExhaust();
+    const b = withExhaust();
+    b.plans[0].exhaust!.wastegates.valveDiameter = 0.044;
+    expect(diffDocuments(a, b)).toEqual([
+      {
+        // demo plan name (data/demo/hillclimb-study.json); 38 → 44 mm are the test's own inputs
+        path: 'Plan “S44 street wheel” › exhaust side › wastegates › wastegate valve diameter',
+        keys: ['plans', 0, 'exhaust', 'wastegates', 'valveDiameter'],
+        change: 'changed',
+        before: 0.038,
+        after: 0.044,
+        kind: 'diameter',
+      },
+    ]);
+  });
+
+  it('matches the turbine inlet temperature table by rpm and reads its values as temperatures', () => {
+    const a = withExhaust();
+    const b = withExhaust();
+    b.plans[0].exhaust!.turbineInletTemperature[1].value = 1173.15;
+    b.plans[0].exhaust!.turbineInletTemperature.splice(1, 0, { rpm: 4500, value: 1123.15 });
+    expect(diffDocuments(a, b).map((c) => [c.path, c.change, c.before, c.after, c.kind])).toEqual([
+      // Rows of the test's own table above: one added at 4500 rpm, the one at 6000 rpm changed.
+      ['Plan “S44 street wheel” › exhaust side › turbine inlet temperature at 4500 rpm', 'added', undefined, 1123.15, 'temperature'],
+      ['Plan “S44 street wheel” › exhaust side › turbine inlet temperature at 6000 rpm', 'changed', 1223.15, 1173.15, 'temperature'],
+    ]);
+  });
+
+  it('gives the other exhaust fields their words and kinds', () => {
+    const a = withExhaust();
+    const b = withExhaust();
+    const ex = b.plans[0].exhaust!;
+    ex.housing = 'divided';
+    ex.wastegates.count = 2;
+    ex.wastegates.dischargeCoefficient = 0.7;
+    ex.mechanicalEfficiency = 0.93;
+    ex.downstreamLoss = 20_000;
+    ex.pulseFactor = 1.1;
+    ex.turbineEfficiency = 0.68;
+    b.plans[0].turbineMapId = 'builtin-turbine-b';
+    const head = 'Plan “S44 street wheel” › ';
+    // Values are the test's own inputs; words and kinds as defined in shared/study/diff.ts.
+    expect(diffDocuments(a, b).map((c) => [c.path.replace(head, ''), c.kind])).toEqual([
+      ['exhaust side › turbine housing', 'text'],
+      ['exhaust side › wastegates › count', 'count'],
+      ['exhaust side › wastegates › wastegate discharge coefficient', 'fraction'],
+      ['exhaust side › mechanical efficiency', 'fraction'],
+      ['exhaust side › pressure loss after the turbine', 'pressure'],
+      ['exhaust side › pulse-energy factor', 'ratio'],
+      ['exhaust side › default turbine efficiency', 'fraction'],
+      ['turbine map', 'text'],
+    ]);
+  });
+
+  it('reports an exhaust side added to a plan as one object', () => {
+    const a = demoJson();
+    const b = withExhaust();
+    expect(diffDocuments(a, b).map((c) => [c.path, c.change, c.kind])).toEqual([
+      ['Plan “S44 street wheel” › exhaust side', 'added', null],
+      ['Plan “S44 street wheel” › turbine map', 'added', 'text'],
+    ]);
+  });
+});
+
 describe('kindOfPath', () => {
   it('knows the gauge and absolute pressures of the document apart', () => {
     expect(kindOfPath(['fuelSystem', 'injectors', 'fuelPressure'])).toBe('pressureGauge');
     expect(kindOfPath(['scenarios', 0, 'ambient', 'pressure'])).toBe('pressure');
     expect(kindOfPath(['engine', 'limits', 'maxManifoldPressure'])).toBe('pressure');
     expect(kindOfPath(['scenarios', 0, 'boostSchedule', 0, 'boost', 2, 'value'])).toBe('pressureGauge');
+    expect(kindOfPath(['plans', 1, 'exhaust', 'downstreamLoss'])).toBe('pressure'); // a pressure loss like the inlet and charge-cooler losses: plain kPa/psi, no "gauge" (physics note §5, p4 = p_amb + loss)
+  });
+
+  it('knows the exhaust leaves', () => {
+    expect(kindOfPath(['plans', 0, 'exhaust', 'wastegates', 'valveDiameter'])).toBe('diameter');
+    expect(kindOfPath(['plans', 0, 'exhaust', 'turbineInletTemperature', 3, 'value'])).toBe('temperature');
+    expect(kindOfPath(['plans', 0, 'exhaust', 'turbineInletTemperature', 3, 'rpm'])).toBe('speed');
+    expect(kindOfPath(['plans', 0, 'turbineMapId'])).toBe('text');
   });
 
   it('gives null for keys it does not know', () => {

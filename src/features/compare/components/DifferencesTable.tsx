@@ -1,4 +1,4 @@
-import type { CompareRow } from '../../../../shared/study/compare';
+import type { CompareCell, CompareRow, CompareRowKey } from '../../../../shared/study/compare';
 import { formatNumber } from '../../../components/plots/quantities';
 import { quantityUnit, type StudyQuantity } from '../../../components/study/units';
 import type { UnitSystem } from '../../../lib/units';
@@ -12,20 +12,52 @@ const QUANTITY: Record<string, StudyQuantity> = {
   temperature: 'temperature',
   ratio: 'ratio',
   count: 'count',
+  // Turbine inlet pressure is absolute (physics note §5: p3); the unit text says so.
+  pressure: 'pressure',
 };
+
+/** Rows whose quantity is not the plain one of their kind: wastegate valves are small diameters (mm or in). */
+const ROW_QUANTITY: Partial<Record<CompareRowKey, StudyQuantity>> = {
+  wastegateDiameterNeeded: 'diameter',
+  wastegateDiameterFitted: 'diameter',
+};
+
+/** Words for the ratio rows (symbols of the physics note: p₁ compressor inlet, p₂ outlet, p₃ turbine inlet, p_man intake manifold). */
+const RATIO_UNIT: Partial<Record<CompareRowKey, { unit: string; words: string }>> = {
+  peakPressureRatio: { unit: 'p₂/p₁ (ratio)', words: 'compressor outlet over inlet' },
+  peakDrivePressureRatio: { unit: 'p₃/p_man (ratio)', words: 'exhaust over intake manifold' },
+};
+
+function quantityOf(row: CompareRow): StudyQuantity {
+  return ROW_QUANTITY[row.key] ?? QUANTITY[row.kind] ?? 'ratio';
+}
 
 /** The unit a row is read in: the user's unit, or words for plain numbers. */
 export function rowUnit(row: CompareRow, system: UnitSystem): string {
-  if (row.kind === 'ratio') return 'p₂/p₁ (ratio)';
+  if (row.kind === 'ratio') return RATIO_UNIT[row.key]?.unit ?? 'p₂/p₁ (ratio)';
   if (row.kind === 'count') return 'count';
-  return quantityUnit(QUANTITY[row.kind] ?? 'ratio', system).label;
+  const label = quantityUnit(quantityOf(row), system).label;
+  return row.kind === 'pressure' ? `${label} abs.` : label;
+}
+
+/** Plain words under a row's unit where the symbols alone would not say what is over what; null for most rows. */
+export function rowUnitWords(row: CompareRow): string | null {
+  return row.kind === 'ratio' ? (RATIO_UNIT[row.key]?.words ?? null) : null;
+}
+
+/** Why a cell is empty, in a few words; null when the cell has a value or is a count. */
+export function emptyCellWords(row: CompareRow, cell: CompareCell): string | null {
+  if (cell.value !== null || row.kind === 'count') return null;
+  if (cell.note === 'not-reached') return 'not reached';
+  if (cell.note === 'no-exhaust') return 'no exhaust side';
+  return /margin|shaft/i.test(row.label) ? 'no map' : 'not computed';
 }
 
 /** A cell's number in the row's unit; speeds and counts whole. */
 export function rowValueText(row: CompareRow, value: number | null, system: UnitSystem): string {
   if (value === null) return '—';
   if (row.kind === 'count') return formatNumber(value, 21);
-  const shown = quantityUnit(QUANTITY[row.kind] ?? 'ratio', system).fromSI(value);
+  const shown = quantityUnit(quantityOf(row), system).fromSI(value);
   return row.kind === 'speed' ? formatNumber(Math.round(shown), 21) : formatNumber(shown, 4);
 }
 
@@ -69,7 +101,10 @@ export function DifferencesTable({ rows, chosen, system }: { rows: readonly Comp
               <th scope="row" className="px-2 py-2 font-semibold text-ink">
                 {row.label}
               </th>
-              <td className="whitespace-nowrap px-2 py-2 text-ink-soft">{rowUnit(row, system)}</td>
+              <td className="px-2 py-2 text-ink-soft">
+                <span className="whitespace-nowrap">{rowUnit(row, system)}</span>
+                {rowUnitWords(row) !== null && <span className="block text-xs">{rowUnitWords(row)}</span>}
+              </td>
               <td className="px-2 py-2 text-xs text-ink-soft" title={row.bestMeaning}>
                 <span className="font-semibold text-ink">{BEST_WORDS[row.best]}</span>
                 {row.best !== 'none' && <span className="block">{row.bestMeaning.replace(/^(highest|lowest): /, '')}</span>}
@@ -87,7 +122,7 @@ export function DifferencesTable({ rows, chosen, system }: { rows: readonly Comp
                     {cell.value !== null && cell.rpm !== null && row.key !== 'peakBrakePowerRpm' && (
                       <span className="block text-xs text-ink-faint">at {formatNumber(cell.rpm, 21)} rpm</span>
                     )}
-                    {cell.value === null && row.kind !== 'count' && <span className="block text-xs text-ink-faint">{/margin|shaft/i.test(row.label) ? 'no map' : 'not computed'}</span>}
+                    {emptyCellWords(row, cell) !== null && <span className="block text-xs text-ink-faint">{emptyCellWords(row, cell)}</span>}
                   </td>
                 );
               })}

@@ -1,5 +1,5 @@
 import type { StudyDocument } from '../../../../shared/schemas/study';
-import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT } from '../../../../shared/physics';
+import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT, TURBINE_GAS } from '../../../../shared/physics';
 import { formatNumber } from '../../../components/plots/quantities';
 import { formatStudyValue } from '../../../components/study/units';
 import type { UnitSystem } from '../../../lib/units';
@@ -7,17 +7,21 @@ import type { MapGroup } from '../study-view';
 
 /**
  * What the numbers rest on, in plain words: the model, the atmosphere, where each plan's
- * compressor efficiency comes from and the reference its corrected flow is measured against.
+ * compressor efficiency comes from and the reference its corrected flow is measured against, and
+ * for plans with an exhaust side the turbine's power balance and what it takes as given.
  */
 export function Assumptions({ document, groups, system }: { document: StudyDocument; groups: readonly MapGroup[]; system: UnitSystem }) {
   const ic = document.intercooler;
   const power = document.power;
+  const withExhaust = document.plans.some((p) => p.exhaust);
+  const divided = document.plans.some((p) => p.exhaust?.housing === 'divided');
   return (
     <div className="space-y-3 text-sm text-ink">
       <ul className="list-disc space-y-1.5 pl-5">
         <li>
           <strong>Quasi-steady model.</strong> Each engine speed is worked out on its own, as if the engine were held there at the boost
-          target. Spool-up, transients and pulsation are not modelled.
+          target{withExhaust ? ' (for a plan with an exhaust side, at the boost its turbine can hold where that is less)' : ''}. Spool-up, transients and
+          pulsation are not modelled.
         </li>
         <li>
           <strong>Atmosphere.</strong> Where a scenario gives an altitude, pressure follows the International Standard Atmosphere
@@ -53,6 +57,23 @@ export function Assumptions({ document, groups, system }: { document: StudyDocum
           <strong>Injectors.</strong> Flow scales with the square root of the pressure difference across them. Duty above 80 % is a
           warning and above 85 % a limit (common practice, no published source).
         </li>
+        {withExhaust && (
+          <li>
+            <strong>Exhaust side.</strong> For the plans that have one, the turbine must drive the compressor: turbine power times the
+            mechanical efficiency equals compressor power. The exhaust is the air and the fuel burnt with it, an ideal gas with γ ={' '}
+            {formatNumber(TURBINE_GAS.gamma, 4)} and c<sub>p</sub> = {formatNumber(TURBINE_GAS.cp, 4)} J/(kg·K); its temperature at the
+            turbine is the plan’s stated table, not a prediction; the pressure after the turbine is the outside air’s plus the stated loss.
+            Turbine efficiency is read from the turbine map where it gives one, else the plan’s stated value, and the findings say so. What
+            the turbine does not need passes the wastegates, whose valves are sized by compressible flow through an orifice with the stated
+            discharge coefficient.
+          </li>
+        )}
+        {divided && (
+          <li>
+            <strong>Pulse energy.</strong> A steady model cannot see the exhaust pulses a divided housing keeps apart. The plan’s pulse-energy
+            factor multiplies the turbine’s energy to stand for them (1.0 when not set: no gain). It is an assumption the model cannot check.
+          </li>
+        )}
       </ul>
       <div>
         <p className="font-semibold">Reference of corrected flow, by map</p>

@@ -1,8 +1,9 @@
 import { useMemo } from 'react';
-import type { CompressorMap } from '../../../../shared/maps/types';
+import type { CompressorMap, TurbineMap } from '../../../../shared/maps/types';
 import { compressorMapFigure, type PlotFigure } from '../../../components/plots/compressor-map-figure';
 import { PlotFrame } from '../../../components/plots/PlotFrame';
-import type { OperatingLineView } from '../../../components/plots/types';
+import { turbineMapFigure } from '../../../components/plots/turbine-map-figure';
+import type { OperatingLineView, TurbineOperatingLineView } from '../../../components/plots/types';
 import type { UnitSystem } from '../../../lib/units';
 
 /** A figure with its legend under the plot, so a study's many lines do not cover the map. */
@@ -42,6 +43,42 @@ export function StudyMapFigure({
       height={height}
       label={map ? `Compressor map: ${map.name}` : 'Operating lines'}
       exportName={exportName ?? map?.name}
+      onPointClick={
+        onPointClick
+          ? (customdata) => {
+              if (isLineClick(customdata)) onPointClick(customdata[0], customdata[1]);
+            }
+          : undefined
+      }
+    />
+  );
+}
+
+/** A turbine map with the operating lines of the plans drawn on it, legend under the plot like the compressor map's. */
+export function StudyTurbineMapFigure({
+  map,
+  lines,
+  unitSystem,
+  height,
+  highlight = null,
+  onPointClick,
+  exportName,
+}: {
+  map: TurbineMap;
+  lines: TurbineOperatingLineView[];
+  unitSystem: UnitSystem;
+  height: number;
+  highlight?: { lineKey: string; rpm: number } | null;
+  onPointClick?: (lineKey: string, rpm: number) => void;
+  exportName?: string;
+}) {
+  const figure = useMemo(() => legendBelow(turbineMapFigure({ map, lines, unitSystem, highlight, height })), [map, lines, unitSystem, highlight, height]);
+  return (
+    <PlotFrame
+      figure={figure}
+      height={height}
+      label={`Turbine map: ${map.name}`}
+      exportName={exportName ?? map.name}
       onPointClick={
         onPointClick
           ? (customdata) => {

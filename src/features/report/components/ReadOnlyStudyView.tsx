@@ -2,14 +2,15 @@ import { useMemo, useState } from 'react';
 import { Card } from '../../../components/Card';
 import { planColour } from '../../../components/plots/style';
 import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
-import { findPoint, mapLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
+import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
 import { ResultsTable } from '../../../components/study/ResultsTable';
 import { RpmCurves } from '../../../components/study/RpmCurves';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import { WorkingPanel } from '../../../components/study/WorkingPanel';
 import type { UnitSystem } from '../../../lib/units';
-import { useComputedStudy, type MapGroup, type StudyViewData } from '../study-view';
-import { StudyMapFigure } from './MapFigure';
+import { useComputedStudy, type StudyViewData } from '../study-view';
+import { ExhaustNotes } from './ExhaustNotes';
+import { StudyMapFigure, StudyTurbineMapFigure } from './MapFigure';
 
 /** The point first shown in the Working: where the most severe finding is, else the first point. */
 export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | null {
@@ -20,10 +21,28 @@ export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | nu
   return line && point ? { lineKey: line.key, rpm: point.rpm } : null;
 }
 
-function MapChooser({ groups, value, onChange }: { groups: readonly MapGroup[]; value: string; onChange: (key: string) => void }) {
+/** What the map chooser needs of a group of plans drawn on one map (compressor or turbine). */
+interface ChoosableGroup {
+  key: string;
+  title: string;
+  planNames: string[];
+  lines: StudyLine[];
+}
+
+function MapChooser({
+  groups,
+  value,
+  onChange,
+  label = 'Compressor map shown',
+}: {
+  groups: readonly ChoosableGroup[];
+  value: string;
+  onChange: (key: string) => void;
+  label?: string;
+}) {
   if (groups.length < 2) return null;
   return (
-    <div role="radiogroup" aria-label="Compressor map shown" className="flex flex-wrap gap-1.5">
+    <div role="radiogroup" aria-label={label} className="flex flex-wrap gap-1.5">
       {groups.map((g) => (
         <button
           key={g.key}
@@ -70,10 +89,20 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
   const mapLines = useMemo(() => mapLineViews(group?.lines ?? []), [group]);
   const limit = data.document.engine.limits?.maxCompressorOutletTemperature ?? null;
 
+  // The turbine map shown, likewise: only maps that loaded can be drawn.
+  const [turbineKey, setTurbineKey] = useState<string | null>(null);
+  const drawableTurbines = computed.turbineGroups.filter((g) => g.map !== null);
+  const unmappedTurbines = computed.turbineGroups.filter((g) => g.map === null);
+  const selectedTurbine = found ? drawableTurbines.find((g) => g.lines.some((l) => l.key === found.line.key)) : undefined;
+  const turbineGroup = drawableTurbines.find((g) => g.key === turbineKey) ?? selectedTurbine ?? drawableTurbines[0];
+  const turbineLines = useMemo(() => turbineLineViews(turbineGroup?.lines ?? []), [turbineGroup]);
+
   function select(point: PointRef) {
     setPicked(point);
     const owner = computed.groups.find((g) => g.lines.some((l) => l.key === point.lineKey));
     if (owner) setGroupKey(owner.key);
+    const turbineOwner = drawableTurbines.find((g) => g.lines.some((l) => l.key === point.lineKey));
+    if (turbineOwner) setTurbineKey(turbineOwner.key);
   }
 
   return (
@@ -97,6 +126,38 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
               )}
             </div>
           </Card>
+          {computed.turbineGroups.length > 0 && (
+            <Card
+              title="Turbine map"
+              data-testid="read-only-turbine-map"
+              actions={turbineGroup ? <span className="text-sm text-ink-soft">{turbineGroup.planNames.join(', ')}</span> : undefined}
+            >
+              <div className="space-y-3">
+                <MapChooser groups={drawableTurbines} value={turbineGroup?.key ?? ''} onChange={setTurbineKey} label="Turbine map shown" />
+                <p className="text-xs text-ink-soft">
+                  Where each turbine runs: expansion ratio across the turbine against the flow it swallows. Points below the boost threshold run
+                  with the gates shut; above it the gates pass the rest.
+                </p>
+                {turbineGroup?.map && (
+                  <StudyTurbineMapFigure
+                    map={turbineGroup.map}
+                    lines={turbineLines}
+                    unitSystem={system}
+                    height={520}
+                    highlight={selected}
+                    onPointClick={(lineKey, rpm) => select({ lineKey, rpm })}
+                    exportName={`${data.title} ${turbineGroup.title}`}
+                  />
+                )}
+                {unmappedTurbines.map((g) => (
+                  <p key={g.key} className="text-sm text-copper-ink">
+                    {g.planNames.join(', ')}: no turbine map could be used, so the exhaust side of {g.planNames.length === 1 ? 'this plan' : 'these plans'} is not computed.
+                  </p>
+                ))}
+                <ExhaustNotes document={data.document} />
+              </div>
+            </Card>
+          )}
           <Card title="Curves against engine speed">
             <RpmCurves lines={computed.lines} unitSystem={system} highlight={selected} onPointClick={select} outletTemperatureLimit={limit} exportName={data.title} />
           </Card>

@@ -1,8 +1,8 @@
 import { useMemo } from 'react';
 import { PlotFrame } from '../../../components/plots/PlotFrame';
 import { planColour, planMarker, scenarioDash } from '../../../components/plots/style';
-import type { StudyLine } from '../../../components/study/lines';
-import { CURVE_VIEWS, rpmCurvesFigure, type CurveView } from '../../../components/study/rpm-curves-figure';
+import { hasExhaust, type StudyLine } from '../../../components/study/lines';
+import { curveViewsFor, rpmCurvesFigure, type CurveView } from '../../../components/study/rpm-curves-figure';
 import type { UnitSystem } from '../../../lib/units';
 
 const DASH_ARRAYS: Record<string, string | undefined> = {
@@ -57,14 +57,34 @@ function CurvePlot({ lines, view, system, height, limit, exportName }: { lines: 
   return <PlotFrame figure={figure} height={height} label={`${view.label} against engine speed`} exportName={`${exportName}-${view.id}`} />;
 }
 
+/** The curve views the report prints: the exhaust views too when some plan has its exhaust side computed. */
+export function reportCurveViews(lines: readonly StudyLine[]): CurveView[] {
+  return curveViewsFor(hasExhaust(lines));
+}
+
+/**
+ * What the thin dotted lines of a view are, for paper (the key serves every plot and has no room
+ * for them). Only exhaust studies draw them.
+ */
+const DOTTED_NOTES: Record<string, string> = {
+  boost: 'Solid: the boost the turbine holds; dotted: the boost target. Where the two part, the turbine cannot drive the compressor to the target at that speed.',
+  'exhaust-pressure': 'Drive pressure ratio: the exhaust manifold pressure over the intake manifold pressure. Above 1 the engine pumps against its own exhaust.',
+  wastegate: 'Right: the valve each gate needs to pass its share of the exhaust; dotted: the valve fitted. A needed valve above the fitted one means boost will creep above target.',
+};
+
 /** Every curve view of the study, one plot each, sized for paper, with one shared key. */
 export function ReportCurves({ lines, system, height, limit, exportName }: { lines: readonly StudyLine[]; system: UnitSystem; height: number; limit: number | null; exportName: string }) {
+  const withExhaust = hasExhaust(lines);
+  const views = curveViewsFor(withExhaust);
   return (
     <div className="space-y-5">
       <LinesKey lines={lines} />
-      {CURVE_VIEWS.map((view) => (
+      {views.map((view) => (
         <figure key={view.id} className="report-figure space-y-1">
-          <figcaption className="text-sm font-semibold text-ink">{view.label}</figcaption>
+          <figcaption className="text-sm font-semibold text-ink">
+            {view.label}
+            {withExhaust && DOTTED_NOTES[view.id] && <span className="block text-xs font-normal text-ink-soft">{DOTTED_NOTES[view.id]}</span>}
+          </figcaption>
           <CurvePlot lines={lines} view={view} system={system} height={height} limit={limit} exportName={exportName} />
         </figure>
       ))}

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { DEFAULT_TURBINE_EFFICIENCY } from '../../../../shared/matching/exhaust';
 import type { RpmTable } from '../../../../shared/matching/types';
 import type { StudyDocument } from '../../../../shared/schemas/study';
 import { formatNumber } from '../../../components/plots/quantities';
@@ -9,6 +10,8 @@ import { mapName, type StudyViewData } from '../study-view';
 
 /** Columns of an rpm table per printed block, so a long table wraps instead of running off the page. */
 const RPM_COLUMNS_PER_BLOCK = 10;
+/** Plans per printed exhaust table (a column each): the rest go into the next table under it. */
+const PLAN_COLUMNS_PER_TABLE = 4;
 
 function chunks<T>(items: readonly T[], size: number): T[][] {
   const out: T[][] = [];
@@ -101,9 +104,101 @@ function rowKindText(kind: string, gear: number | undefined): string {
   return 'Full load';
 }
 
+type Plan = StudyDocument['plans'][number];
+type Exhaust = NonNullable<Plan['exhaust']>;
+
+function housingText(housing: Exhaust['housing']): string {
+  return housing === 'divided' ? 'Divided (two scrolls)' : 'Single scroll';
+}
+
+/**
+ * The exhaust side of every plan, one column per plan and one row per input (a row per plan would
+ * not fit across a page), then each plan's turbine inlet temperatures by rpm. Shown only when some
+ * plan has an exhaust side; a plan judged on the compressor alone says so in its column.
+ */
+function ExhaustInputs({ data, system }: { data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'>; system: UnitSystem }) {
+  const plans = data.document.plans;
+  const v = (value: unknown, quantity: StudyQuantity) => formatStudyValue(value, quantity, system);
+  const rows: { label: string; value: (plan: Plan, exhaust: Exhaust) => string }[] = [
+    { label: 'Turbine map', value: (plan) => (plan.turbineMapId ? mapName(plan.turbineMapId, data.mapsById, data.mapNames) : 'None (exhaust side not computed)') },
+    { label: 'Turbine housing', value: (_, x) => housingText(x.housing) },
+    { label: 'Wastegates', value: (_, x) => `${x.wastegates.count} × ${v(x.wastegates.valveDiameter, 'diameter')} valve` },
+    { label: 'Valve discharge coefficient', value: (_, x) => formatNumber(x.wastegates.dischargeCoefficient, 3) },
+    { label: 'Mechanical efficiency', value: (_, x) => v(x.mechanicalEfficiency, 'fraction') },
+    {
+      label: 'Pulse-energy factor',
+      value: (_, x) => (x.housing !== 'divided' ? '— (single scroll)' : x.pulseFactor === undefined ? '1.0 (default)' : formatNumber(x.pulseFactor, 3)),
+    },
+    {
+      label: 'Turbine efficiency off the map',
+      value: (_, x) => (x.turbineEfficiency === undefined ? `${v(DEFAULT_TURBINE_EFFICIENCY, 'fraction')} (default)` : v(x.turbineEfficiency, 'fraction')),
+    },
+    { label: 'Pressure loss after the turbine', value: (_, x) => v(x.downstreamLoss, 'pressure') },
+  ];
+  const indexed = plans.map((plan, index) => ({ plan, index }));
+  return (
+    <div className="space-y-3">
+      {chunks(indexed, PLAN_COLUMNS_PER_TABLE).map((block, b) => (
+        <table
+          key={b}
+          className="report-exhaust w-full table-fixed border-collapse text-left text-sm"
+          aria-label={b === 0 ? 'Exhaust side of each plan' : 'Exhaust side of each plan (continued)'}
+        >
+          <thead className="border-b-2 border-ink/20 text-xs uppercase tracking-wider text-ink-soft">
+            <tr>
+              <td className="w-44 px-2 py-1.5" />
+              {block.map(({ plan, index }) => (
+                <th key={plan.id} scope="col" className="px-2 py-1.5 align-bottom normal-case tracking-normal">
+                  <span className="flex items-center gap-1.5 text-sm font-semibold text-ink">
+                    <span aria-hidden="true" className="inline-block size-2.5 shrink-0 rounded-full" style={{ background: planColour(index) }} />
+                    {plan.name}
+                  </span>
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-paper-line">
+            {rows.map((row, r) => (
+              <tr key={row.label}>
+                <th scope="row" className="px-2 py-1.5 text-xs font-semibold text-ink-soft">
+                  {row.label}
+                </th>
+                {block.map(({ plan }) =>
+                  plan.exhaust ? (
+                    <td key={plan.id} className="numeric px-2 py-1.5">
+                      {row.value(plan, plan.exhaust)}
+                    </td>
+                  ) : r === 0 ? (
+                    <td key={plan.id} rowSpan={rows.length} className="px-2 py-1.5 align-top text-ink-soft">
+                      Compressor only
+                    </td>
+                  ) : null,
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ))}
+      {plans.map((plan) =>
+        plan.exhaust ? (
+          <RpmTableView
+            key={plan.id}
+            caption={`Turbine inlet temperature: ${plan.name}`}
+            valueLabel="Turbine inlet temperature"
+            table={plan.exhaust.turbineInletTemperature}
+            quantity="temperature"
+            system={system}
+          />
+        ) : null,
+      )}
+    </div>
+  );
+}
+
 /**
  * Every input of the study in the user's units: engine, fuel system, power assumptions, losses,
- * intercooler, scenarios with their boost schedules, and plans with their maps. Read-only.
+ * intercooler, scenarios with their boost schedules, plans with their maps, and the exhaust side
+ * of the plans that have one. Read-only.
  */
 export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'>; system: UnitSystem }) {
   const doc = data.document;
@@ -250,6 +345,11 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
           </tbody>
         </table>
       </InputBlock>
+      {doc.plans.some((plan) => plan.exhaust) && (
+        <InputBlock title="Exhaust side">
+          <ExhaustInputs data={data} system={system} />
+        </InputBlock>
+      )}
       {doc.notes.trim() && (
         <InputBlock title="Notes">
           <p className="whitespace-pre-wrap text-sm text-ink">{doc.notes}</p>

@@ -2,8 +2,7 @@ import { useEffect, useRef, useState, type ReactNode, type RefObject } from 'rea
 import { Link } from 'react-router';
 import { BrandMark, BrandWord } from '../../../components/Brand';
 import { Button, buttonClass } from '../../../components/Button';
-import { mapLineViews } from '../../../components/study/lines';
-import { CURVE_VIEWS } from '../../../components/study/rpm-curves-figure';
+import { mapLineViews, turbineLineViews } from '../../../components/study/lines';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import { useDocumentTitle } from '../../../components/Page';
 import { formatDateTime } from '../../../lib/format';
@@ -11,14 +10,16 @@ import type { UnitSystem } from '../../../lib/units';
 import { unitSystemNames } from '../../../lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { Assumptions } from './Assumptions';
+import { ExhaustNotes } from './ExhaustNotes';
 import { PrintFindings } from './PrintFindings';
-import { StudyMapFigure } from './MapFigure';
+import { StudyMapFigure, StudyTurbineMapFigure } from './MapFigure';
 import { PrintResults } from './PrintResults';
-import { ReportCurves } from './ReportCurves';
+import { reportCurveViews, ReportCurves } from './ReportCurves';
 import { StudyInputs } from './StudyInputs';
 
 /** Plot sizes for paper: the report column is as wide as an A4 or Letter page inside its margins. */
 const MAP_HEIGHT = 560;
+const TURBINE_MAP_HEIGHT = 480;
 const CURVE_HEIGHT = 300;
 
 /**
@@ -59,8 +60,8 @@ function ReportSection({ id, title, children, className = '' }: { id: string; ti
 
 /**
  * The printable report of a study: title, revision and date, the caution, every input, the
- * assumptions, the maps with every operating line, the curves, the findings and the results of
- * every point. Made for paper (with src/styles/print.css); on screen it reads as a sheet.
+ * assumptions, the maps with every operating line (the turbine maps too when some plan has an
+ * exhaust side), the curves, the findings and the results of every point. Made for paper (with src/styles/print.css); on screen it reads as a sheet.
  */
 export function StudyReport({
   data,
@@ -83,7 +84,12 @@ export function StudyReport({
   const doc = data.document;
   const limit = doc.engine.limits?.maxCompressorOutletTemperature ?? null;
   const article = useRef<HTMLElement>(null);
-  const expectedPlots = computed.groups.length + CURVE_VIEWS.length;
+  const turbineGroups = computed.turbineGroups;
+  const drawnTurbineMaps = turbineGroups.filter((g) => g.map !== null).length;
+  const expectedPlots = computed.groups.length + drawnTurbineMaps + reportCurveViews(computed.lines).length;
+  // The turbine maps get a section of their own when some plan has an exhaust side; the sections after it move down one.
+  const withTurbine = turbineGroups.length > 0;
+  const n = (section: number) => (withTurbine && section >= 4 ? section + 1 : section);
   const drawnPlots = useDrawnPlots(article, expectedPlots);
   const ready = drawnPlots >= expectedPlots;
 
@@ -165,15 +171,39 @@ export function StudyReport({
           ))}
         </ReportSection>
 
-        <ReportSection id="curves" title="4. Curves against engine speed">
+        {withTurbine && (
+          <ReportSection id="turbine-maps" title="4. Turbine maps with every operating line">
+            <p className="text-sm text-ink-soft">
+              The plans with an exhaust side, each on its own turbine map: expansion ratio across the turbine against the flow it swallows. Points
+              below the boost threshold run with the gates shut; above it the gates pass the rest of the exhaust.
+            </p>
+            {turbineGroups.map((g) =>
+              g.map ? (
+                <figure key={g.key} className="report-figure space-y-1">
+                  <figcaption className="text-sm font-semibold text-ink">
+                    {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
+                  </figcaption>
+                  <StudyTurbineMapFigure map={g.map} lines={turbineLineViews(g.lines)} unitSystem={system} height={TURBINE_MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
+                </figure>
+              ) : (
+                <p key={g.key} className="text-sm text-copper-ink">
+                  {g.planNames.join(', ')}: no turbine map could be used, so the exhaust side of {g.planNames.length === 1 ? 'this plan' : 'these plans'} is not computed.
+                </p>
+              ),
+            )}
+            <ExhaustNotes document={doc} />
+          </ReportSection>
+        )}
+
+        <ReportSection id="curves" title={`${n(4)}. Curves against engine speed`}>
           <ReportCurves lines={computed.lines} system={system} height={CURVE_HEIGHT} limit={limit} exportName={data.title} />
         </ReportSection>
 
-        <ReportSection id="findings" title="5. Findings">
+        <ReportSection id="findings" title={`${n(5)}. Findings`}>
           <PrintFindings lines={computed.lines} system={system} />
         </ReportSection>
 
-        <ReportSection id="results" title="6. Results by operating point">
+        <ReportSection id="results" title={`${n(6)}. Results by operating point`}>
           <p className="text-sm text-ink-soft">
             Every point of every operating line. Columns continue in the table under each one; boost is gauge, other pressures absolute. A
             red “!” marks a point that crosses a limit.

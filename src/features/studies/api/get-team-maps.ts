@@ -9,19 +9,32 @@ const mapListItemSchema = z.object({
   kind: z.enum(['compressor', 'turbine']),
   name: z.string(),
   builtin: z.boolean(),
-  summary: z.object({ maxSpeed: z.number().nullable().optional(), topSpeed: z.number().nullable().optional() }).passthrough(),
+  summary: z
+    .object({
+      maxSpeed: z.number().nullable().optional(),
+      topSpeed: z.number().nullable().optional(),
+      housing: z.enum(['single', 'divided']).nullable().optional(),
+      areaRatio: z.number().nullable().optional(),
+    })
+    .passthrough(),
 });
 const mapListSchema = z.object({ maps: z.array(mapListItemSchema) });
 export type MapListItem = z.infer<typeof mapListItemSchema>;
 
-/** The team's compressor maps, then the built-in demo maps (ids `builtin-…`). */
-export function getCompressorMaps(teamId: string) {
-  return api.get(`/api/teams/${encodeURIComponent(teamId)}/maps?kind=compressor`, mapListSchema).then((body) => body.maps);
+/** The team's maps of one kind, then the built-in demo maps of that kind (ids `builtin-…`). */
+export function getTeamMaps(teamId: string, kind: MapListItem['kind']) {
+  return api.get(`/api/teams/${encodeURIComponent(teamId)}/maps?kind=${kind}`, mapListSchema).then((body) => body.maps);
 }
 
-export const compressorMapsQueryOptions = (teamId: string) =>
-  queryOptions({ queryKey: [...studyKeys.maps(teamId), 'list', 'compressor'] as const, queryFn: () => getCompressorMaps(teamId) });
+export const teamMapsQueryOptions = (teamId: string, kind: MapListItem['kind']) =>
+  queryOptions({ queryKey: [...studyKeys.maps(teamId), 'list', kind] as const, queryFn: () => getTeamMaps(teamId, kind) });
 
+/** The compressor maps a plan's compressor picker offers. */
 export function useCompressorMaps(teamId: string, options: { enabled?: boolean } = {}) {
-  return useQuery({ ...compressorMapsQueryOptions(teamId), enabled: options.enabled ?? true });
+  return useQuery({ ...teamMapsQueryOptions(teamId, 'compressor'), enabled: options.enabled ?? true });
+}
+
+/** The turbine maps a plan's exhaust side offers. */
+export function useTurbineMaps(teamId: string, options: { enabled?: boolean } = {}) {
+  return useQuery({ ...teamMapsQueryOptions(teamId, 'turbine'), enabled: options.enabled ?? true });
 }

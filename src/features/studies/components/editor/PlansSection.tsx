@@ -3,10 +3,11 @@ import { planColour, planMarker } from '../../../../components/plots/style';
 import type { MapListItem } from '../../api/get-team-maps';
 import { getIn, newPlanId } from '../../lib/draft';
 import { useEditor } from './context';
+import { ExhaustFields } from './ExhaustFields';
 import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from './fields';
 import { FieldRow, Section } from './Section';
 
-type Plan = { id: string; name: string; turbochargers: number; compressorEfficiency: number; maxShaftSpeed?: number; compressorMapId: string | null };
+type Plan = { id: string; name: string; turbochargers: number; compressorEfficiency: number; maxShaftSpeed?: number; compressorMapId: string | null; turbineMapId?: string | null };
 
 const MARKER_PATHS: Record<string, string> = {
   circle: 'M6 1a5 5 0 1 0 0.001 0z',
@@ -28,7 +29,17 @@ export function PlanSwatch({ index }: { index: number }) {
   );
 }
 
-export function PlansSection({ maps, mapsError }: { maps: MapListItem[] | undefined; mapsError: string | null }) {
+export function PlansSection({
+  maps,
+  mapsError,
+  turbineMaps,
+  turbineMapsError,
+}: {
+  maps: MapListItem[] | undefined;
+  mapsError: string | null;
+  turbineMaps: MapListItem[] | undefined;
+  turbineMapsError: string | null;
+}) {
   const editor = useEditor();
   const plans = (getIn(editor.draft, ['plans']) as Plan[] | undefined) ?? [];
   const known = new Set((maps ?? []).map((m) => m.id));
@@ -63,6 +74,7 @@ export function PlansSection({ maps, mapsError }: { maps: MapListItem[] | undefi
             <NumberField path={['plans', pi, 'compressorEfficiency']} label="Default efficiency" quantity="fraction" hint="Used where the map gives none." />
           </FieldRow>
           <NumberField path={['plans', pi, 'maxShaftSpeed']} label="Max wheel speed" quantity="speed" optional hint="Empty: the map's rated speed; the lower of the two applies." />
+          <ExhaustFields planIndex={pi} turbineMaps={turbineMaps} turbineMapsError={turbineMapsError} />
           {!editor.readOnly && (
             <div className="flex flex-wrap gap-2">
               <Button

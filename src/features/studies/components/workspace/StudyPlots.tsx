@@ -3,8 +3,9 @@ import type { SpoolbookMap } from '../../../../../shared/maps/types';
 import { Card } from '../../../../components/Card';
 import { CompressorMapPlot } from '../../../../components/plots/CompressorMapPlot';
 import { PlotPlaceholder } from '../../../../components/plots/Plot';
+import { TurbineMapPlot } from '../../../../components/plots/TurbineMapPlot';
 import { FindingsList } from '../../../../components/study/FindingsList';
-import { findPoint, mapLineViews, type PointRef } from '../../../../components/study/lines';
+import { findPoint, mapLineViews, turbineLineViews, type PointRef } from '../../../../components/study/lines';
 import { ResultsTable } from '../../../../components/study/ResultsTable';
 import { RpmCurves } from '../../../../components/study/RpmCurves';
 import { WorkingPanel } from '../../../../components/study/WorkingPanel';
@@ -13,6 +14,7 @@ import { PlanSwatch } from '../editor/PlansSection';
 import type { Computed } from './use-study-editor';
 
 const MemoMap = memo(CompressorMapPlot);
+const MemoTurbineMap = memo(TurbineMapPlot);
 const MemoCurves = memo(RpmCurves);
 const MemoTable = memo(ResultsTable);
 const MemoFindings = memo(FindingsList);
@@ -51,6 +53,8 @@ export function StudyPlots({
   const [mapPlanId, setMapPlanId] = useState<string | null>(null);
   const [showOthers, setShowOthers] = useState(false);
   const [flowAxis, setFlowAxis] = useState<'corrected' | 'volume'>('corrected');
+  const turbineChoiceId = useId();
+  const [turbinePlanId, setTurbinePlanId] = useState<string | null>(null);
 
   const plans = computed?.doc.plans ?? [];
   const selectedLine = computed && selected ? computed.lines.find((l) => l.key === selected.lineKey) : undefined;
@@ -67,6 +71,17 @@ export function StudyPlots({
     return mapLineViews(shown);
   }, [computed, sharedMap, showOthers, drawnMapId]);
 
+  // The turbine map: plans with an exhaust side and a turbine map; one map drawn at a time.
+  const turbinePlans = plans.filter((p) => p.exhaust && p.turbineMapId);
+  const turbinePlan = turbinePlans.find((p) => p.id === turbinePlanId) ?? turbinePlans[0];
+  const turbineMapId = turbinePlan?.turbineMapId ?? null;
+  const turbineMap = turbineMapId ? mapsById[turbineMapId] : undefined;
+  const sharedTurbineMap = new Set(turbinePlans.map((p) => p.turbineMapId)).size <= 1;
+  const turbineLines = useMemo(() => {
+    if (!computed || !turbineMapId) return [];
+    return turbineLineViews(computed.lines.filter((l) => computed.doc.plans[l.planIndex]?.turbineMapId === turbineMapId));
+  }, [computed, turbineMapId]);
+
   const selectedPoint = computed ? findPoint(computed.lines, selected) : null;
   const highlight = useMemo(() => (selected ? { lineKey: selected.lineKey, rpm: selected.rpm } : null), [selected]);
 
@@ -80,6 +95,7 @@ export function StudyPlots({
     const line = c?.lines.find((l) => l.key === point.lineKey);
     const plan = line ? c?.doc.plans[line.planIndex] : undefined;
     if (plan && plan.compressorMapId !== drawn && !shared) setMapPlanId(plan.id);
+    if (plan?.exhaust && plan.turbineMapId) setTurbinePlanId(plan.id);
   }, []);
   const selectOnMap = useCallback((lineKey: string, rpm: number) => select({ lineKey, rpm }), [select]);
 
@@ -154,6 +170,44 @@ export function StudyPlots({
           exportName={`${title} map`}
         />
       </Card>
+
+      {turbinePlan && (
+        <Card
+          title="Turbine map"
+          data-testid="study-turbine-map"
+          actions={
+            !sharedTurbineMap ? (
+              <div className="space-y-1 text-sm">
+                <label htmlFor={turbineChoiceId} className="block font-semibold text-ink">
+                  Map drawn
+                </label>
+                <select
+                  id={turbineChoiceId}
+                  value={turbinePlan.id}
+                  onChange={(e) => setTurbinePlanId(e.target.value)}
+                  className="rounded-md border border-ink/25 bg-white px-2 py-1.5"
+                >
+                  {turbinePlans.map((p) => (
+                    <option key={p.id} value={p.id}>
+                      {p.name}: {p.turbineMapId ? (namesById[p.turbineMapId] ?? p.turbineMapId) : 'no map'}
+                    </option>
+                  ))}
+                </select>
+              </div>
+            ) : undefined
+          }
+        >
+          <p className="mb-2 text-xs text-ink-soft">
+            Where each turbine runs: expansion ratio across the turbine against the flow it swallows. Points below the boost threshold run with the gates shut; above it the
+            gates pass the rest. A red or copper outline marks a point with a finding.
+          </p>
+          {turbineMap && turbineMap.kind === 'turbine' ? (
+            <MemoTurbineMap map={turbineMap} lines={turbineLines} unitSystem={unitSystem} highlight={highlight} onPointClick={selectOnMap} height={480} exportName={`${title} turbine map`} />
+          ) : (
+            <PlotPlaceholder height={320} label={mapErrors.some((e) => e.mapId === turbineMapId) ? 'The turbine map of this plan could not be loaded.' : 'Loading the turbine map…'} />
+          )}
+        </Card>
+      )}
 
       <div className="grid gap-5 2xl:grid-cols-2">
         <Card title="Findings">

@@ -18,7 +18,7 @@ import { useCreateStudy } from '../../api/create-study';
 import { useDeleteStudy } from '../../api/delete-study';
 import { useStudyMaps } from '../../api/get-map';
 import { useStudy } from '../../api/get-study';
-import { useCompressorMaps } from '../../api/get-team-maps';
+import { useCompressorMaps, useTurbineMaps } from '../../api/get-team-maps';
 import { studyKeys } from '../../api/keys';
 import { resultsCsvHref } from '../../api/results-csv';
 import { staleRevisionOf, useSaveStudy } from '../../api/save-study';
@@ -71,6 +71,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
   const maps = useStudyMaps(teamId, mapIdsOf(draft));
   const { parsed, issues, valid, computed, stale } = useStudyCompute(draft, maps.mapsById, !maps.loading);
   const library = useCompressorMaps(teamId);
+  const turbineLibrary = useTurbineMaps(teamId);
 
   const [selected, setSelected] = useState<PointRef | null>(null);
   const [panel, setPanel] = useState<Panel>(null);
@@ -254,7 +255,12 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
             <FuelSection />
             <AssumptionsSection />
             <ScenariosSection />
-            <PlansSection maps={library.data} mapsError={library.isError ? library.error.message : null} />
+            <PlansSection
+              maps={library.data}
+              mapsError={library.isError ? library.error.message : null}
+              turbineMaps={turbineLibrary.data}
+              turbineMapsError={turbineLibrary.isError ? turbineLibrary.error.message : null}
+            />
             <NotesSection />
           </aside>
         </div>
