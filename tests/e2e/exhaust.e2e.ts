@@ -172,7 +172,13 @@ describe('the exhaust side in the browser', () => {
     for (const [i, cell] of gate.cells.entries()) expect(await table.locator('tr[data-row="wastegateDiameterNeeded"] td').nth(2 + i).innerText()).toContain(shown(cell.value! * 1000)); // m → mm
     for (const [i, cell] of p3.cells.entries()) expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').nth(2 + i).innerText()).toContain(shown(cell.value! / 1000)); // Pa → kPa
     expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').first().innerText()).toContain('abs');
-    await page.locator('.js-plotly-plot .main-svg').first().waitFor();
+    // Both predicted boost curves beside their targets, side by side too.
+    await page.getByTestId('compare-curves').locator('.js-plotly-plot .main-svg').first().waitFor();
+    const compared = (await traces(page, '[data-testid="compare-curves"]')).map((t) => t.name);
+    for (const label of [label0, label1]) {
+      expect(compared).toContain(label);
+      expect(compared).toContain(`${label} · boost target`);
+    }
     await screenshot(page, 'exhaust-side-by-side');
 
     expect(errors).toEqual([]);

@@ -9,6 +9,7 @@ import { PlotFrame } from '../../../components/plots/PlotFrame';
 import { formatQuantity } from '../../../components/plots/quantities';
 import { planColour } from '../../../components/plots/style';
 import { mapLineViews, studyLines } from '../../../components/study/lines';
+import { RpmCurves } from '../../../components/study/RpmCurves';
 import { runStudyLive } from '../../../components/study/run';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import type { UnitSystem } from '../../../lib/units';
@@ -77,6 +78,8 @@ export function CompareView({
     () => mapLineViews(chosenLines).map((v, index) => ({ ...v, planIndex: index, scenarioIndex: index })),
     [chosenLines],
   );
+  // The same marks against rpm: the chosen lines re-indexed like the map's.
+  const curveLines = useMemo(() => chosenLines.map((l, index) => ({ ...l, planIndex: index, scenarioIndex: index })), [chosenLines]);
   const figure = useMemo(
     () => compareFigure({ map: drawn?.map ?? null, overlays, lines: views, flowAxis, unitSystem: system, height: MAP_HEIGHT }),
     [drawn, overlays, views, flowAxis, system],
@@ -151,6 +154,12 @@ export function CompareView({
                 {referencesDiffer && `Corrected flow is measured against each map’s own reference (${references.join('; ')}), so positions across maps compare only roughly.`}
                 {noMapPlans.length > 0 && ` ${noMapPlans.join(', ')} ${noMapPlans.length === 1 ? 'has' : 'have'} no map: no margins or shaft speed.`}
               </p>
+            </div>
+          </Card>
+
+          <Card title="Against engine speed">
+            <div data-testid="compare-curves">
+              <RpmCurves lines={curveLines} unitSystem={system} exportName="side-by-side" height={340} />
             </div>
           </Card>
 

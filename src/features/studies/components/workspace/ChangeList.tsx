@@ -5,7 +5,9 @@ import type { UnitSystem } from '../../../../lib/units';
 /** A changed value in the user's units; whole plans, scenarios and rows by their name. */
 export function changeValueText(change: DocumentChange, value: unknown, system: UnitSystem): string {
   if (value === undefined) return '—';
-  if (value !== null && typeof value === 'object' && !Array.isArray(value)) {
+  // A map cleared from a plan is stored as null.
+  if (value === null) return 'none';
+  if (typeof value === 'object' && !Array.isArray(value)) {
     const named = value as { name?: unknown; label?: unknown };
     const name = typeof named.name === 'string' ? named.name : typeof named.label === 'string' ? named.label : null;
     return name ? `“${name}”` : '(a group of settings)';
