@@ -1,10 +1,12 @@
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { desc, eq } from 'drizzle-orm';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { inject } from 'vitest';
 import { connectDatabase, type Database } from '../../server/db/client';
 import { outbox } from '../../server/db/schema';
+import { parseMapFile } from '../../shared/maps';
+import type { SpoolbookMap } from '../../shared/maps/types';
 
 export const screenshotDir = path.resolve(import.meta.dirname, '..', '..', 'test-results', 'screenshots');
 
@@ -54,4 +56,29 @@ export function watchForPageErrors(page: Page): string[] {
     if (m.type() === 'error' && !/Failed to load resource: the server responded with a status of 4\d\d/.test(m.text())) errors.push(`console: ${m.text()}`);
   });
   return errors;
+}
+
+/** The seeded demo owner and team (server/db/seed.ts). */
+export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', team: 'Harrow Hill Motorsport' };
+
+/** Signs in through the form and waits to leave the sign-in page. */
+export async function signIn(page: Page, who: { email: string; password: string } = DEMO_USER) {
+  await page.goto(`${baseUrl()}/sign-in`);
+  const form = page.getByRole('form', { name: 'Sign in' });
+  await form.getByLabel('E-mail').fill(who.email);
+  await form.getByLabel('Password', { exact: true }).fill(who.password);
+  await form.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+/** A number as the screens print it (shared formatNumber: en-US, grouped, 4 significant digits). */
+export function shownNumber(value: number, digits = 4): string {
+  return new Intl.NumberFormat('en-US', { maximumSignificantDigits: digits }).format(value);
+}
+
+/** A built-in demo map, read from data/maps/ as the server reads it. */
+export function builtinMap(id: string): SpoolbookMap {
+  const parsed = parseMapFile(readFileSync(path.join(import.meta.dirname, '..', '..', 'data', 'maps', `${id.replace(/^builtin-/, '')}.csv`), 'utf8'));
+  if (!parsed.ok) throw new Error(`demo map ${id} does not parse`);
+  return parsed.map;
 }

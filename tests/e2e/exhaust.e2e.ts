@@ -3,12 +3,10 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../shared/maps';
-import type { SpoolbookMap } from '../../shared/maps/types';
 import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
 import { compareLines } from '../../shared/study/compare';
 import { runStudyDocument } from '../../shared/study/run';
-import { baseUrl, closeTestDatabase, launchBrowser, screenshot, watchForPageErrors } from './browser';
+import { baseUrl, builtinMap, closeTestDatabase, DEMO_USER, launchBrowser, screenshot, shownNumber, signIn, watchForPageErrors } from './browser';
 
 // The exhaust side in the production build: a study with a single-scroll plan (one gate) and a
 // divided-housing plan (two gates) shows both predicted boost curves beside their targets, the
@@ -16,28 +14,13 @@ import { baseUrl, closeTestDatabase, launchBrowser, screenshot, watchForPageErro
 // exhaust rows of Side by side. The study is the seeded turbine-housing demo, made through the API.
 
 const root = path.resolve(import.meta.dirname, '..', '..');
-const DEMO = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', team: 'Harrow Hill Motorsport' };
+const DEMO = DEMO_USER;
 const PLOT_TIMEOUT = 180_000;
+/** Polls wait as long as a plot may take on a busy machine. */
+const POLL = { timeout: 60_000 };
 
-/** A number as the screens print it (shared formatNumber: en-US, grouped, 4 significant digits). */
-function shown(value: number, digits = 4): string {
-  return new Intl.NumberFormat('en-US', { maximumSignificantDigits: digits }).format(value);
-}
 
-function builtinMap(id: string): SpoolbookMap {
-  const parsed = parseMapFile(readFileSync(path.join(root, 'data', 'maps', `${id.replace(/^builtin-/, '')}.csv`), 'utf8'));
-  if (!parsed.ok) throw new Error(`demo map ${id} does not parse`);
-  return parsed.map;
-}
 
-async function signIn(page: Page) {
-  await page.goto(`${baseUrl()}/sign-in`);
-  const form = page.getByRole('form', { name: 'Sign in' });
-  await form.getByLabel('E-mail').fill(DEMO.email);
-  await form.getByLabel('Password', { exact: true }).fill(DEMO.password);
-  await form.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
 
 /** The traces plotly drew in the figure under `selector`: name and y values. */
 async function traces(page: Page, selector: string): Promise<{ name: string; x: number[]; y: (number | null)[]; dash: string | null }[]> {
@@ -112,7 +95,7 @@ describe('the exhaust side in the browser', () => {
     const options = await mapChoice.locator('option').allInnerTexts();
     await mapChoice.selectOption({ label: options.find((o) => o.startsWith(`${divided.name}:`))! });
     const label1 = `${divided.name} · ${doc.scenarios[0].name} · ${doc.scenarios[0].boostSchedule[0].label}`;
-    await expect.poll(async () => (await traces(page, '[data-testid="study-turbine-map"]')).map((t) => t.name)).toContain(label1);
+    await expect.poll(async () => (await traces(page, '[data-testid="study-turbine-map"]')).map((t) => t.name), POLL).toContain(label1);
 
     // ——— Boost against rpm: the boost each turbine holds (solid) beside the target (dotted), both plans.
     const curves = page.getByTestId('rpm-curves');
@@ -137,7 +120,7 @@ describe('the exhaust side in the browser', () => {
     }
     // The exhaust views are offered beside the compressor ones.
     await curves.getByRole('button', { name: 'Exhaust pressure' }).click();
-    await expect.poll(async () => (await traces(page, '[data-testid="rpm-curves"]')).length).toBeGreaterThanOrEqual(8); // 2 panels × 4 lines
+    await expect.poll(async () => (await traces(page, '[data-testid="rpm-curves"]')).length, POLL).toBeGreaterThanOrEqual(8); // 2 panels × 4 lines
     await screenshot(page, 'exhaust-study');
 
     // ——— A gate made too small gives a finding: the single-scroll plan needs more than 20 mm at 8000 rpm.
@@ -156,21 +139,22 @@ describe('the exhaust side in the browser', () => {
     expect(await plan1.getByLabel('Pulse-energy factor').inputValue()).toBe('1.1');
     // Back to the saved size, so nothing is left unsaved when the page is left.
     await valve.fill('44');
-    await expect.poll(() => findings.getByText('Wastegate too small').count()).toBe(0);
+    await expect.poll(() => findings.getByText('Wastegate too small').count(), POLL).toBe(0);
 
     // ——— Side by side: both plans at the first scenario; the exhaust rows, as compareLines gives them.
     await page.goto(`${base}/teams/${teamId}/studies/${study.id}/compare`);
     const table = page.getByTestId('differences-table');
-    await expect.poll(() => table.locator('thead th').count()).toBe(3 + 2);
+    await table.waitFor();
+    await expect.poll(() => table.locator('thead th').count(), POLL).toBe(3 + 2);
     const rows = compareLines([lineOf(0), lineOf(1)]);
     const threshold = rows.find((r) => r.key === 'boostThresholdRpm')!;
     const dpr = rows.find((r) => r.key === 'peakDrivePressureRatio')!;
     const gate = rows.find((r) => r.key === 'wastegateDiameterNeeded')!;
     const p3 = rows.find((r) => r.key === 'turbineInletPressureAtPeakPower')!;
-    for (const [i, cell] of threshold.cells.entries()) expect(await table.locator('tr[data-row="boostThresholdRpm"] td').nth(2 + i).innerText()).toContain(shown(cell.value!, 21));
-    for (const [i, cell] of dpr.cells.entries()) expect(await table.locator('tr[data-row="peakDrivePressureRatio"] td').nth(2 + i).innerText()).toContain(shown(cell.value!));
-    for (const [i, cell] of gate.cells.entries()) expect(await table.locator('tr[data-row="wastegateDiameterNeeded"] td').nth(2 + i).innerText()).toContain(shown(cell.value! * 1000)); // m → mm
-    for (const [i, cell] of p3.cells.entries()) expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').nth(2 + i).innerText()).toContain(shown(cell.value! / 1000)); // Pa → kPa
+    for (const [i, cell] of threshold.cells.entries()) expect(await table.locator('tr[data-row="boostThresholdRpm"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value!, 21));
+    for (const [i, cell] of dpr.cells.entries()) expect(await table.locator('tr[data-row="peakDrivePressureRatio"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value!));
+    for (const [i, cell] of gate.cells.entries()) expect(await table.locator('tr[data-row="wastegateDiameterNeeded"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value! * 1000)); // m → mm
+    for (const [i, cell] of p3.cells.entries()) expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value! / 1000)); // Pa → kPa
     expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').first().innerText()).toContain('abs');
     // Both predicted boost curves beside their targets, side by side too.
     await page.getByTestId('compare-curves').locator('.js-plotly-plot .main-svg').first().waitFor();

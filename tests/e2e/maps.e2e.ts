@@ -2,14 +2,14 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, closeTestDatabase, launchBrowser, screenshot, watchForPageErrors } from './browser';
+import { closeTestDatabase, DEMO_USER, launchBrowser, screenshot, signIn, watchForPageErrors } from './browser';
 
 // The map library in the production build: sign in as the demo user (owner of the seeded team
 // "Harrow Hill Motorsport"), upload a demo map file, find it in the library, see it drawn, download
 // it, read the problems of a broken file by line and column, and delete the map again.
 
 const root = path.resolve(import.meta.dirname, '..', '..');
-const DEMO = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', team: 'Harrow Hill Motorsport' };
+const DEMO = DEMO_USER;
 const badFiles = path.join(root, 'tests', 'fixtures', 'maps', 'bad');
 
 interface ExpectedProblem {
@@ -29,13 +29,6 @@ function place(problem: ExpectedProblem): string {
 // plotly.js is 4.6 MB and this machine may be busy: give the first plot time to arrive.
 const PLOT_TIMEOUT = 120_000;
 
-async function signIn(page: Page) {
-  await page.goto(`${baseUrl()}/sign-in`);
-  await page.getByLabel('E-mail').fill(DEMO.email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
 
 async function expectProblems(page: Page, file: string) {
   const problems = expected.files[file];

@@ -1,34 +1,24 @@
 import { randomUUID } from 'node:crypto';
-import { mkdirSync, readFileSync, statSync } from 'node:fs';
+import { mkdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../shared/maps';
-import type { CompressorMap, SpoolbookMap } from '../../shared/maps/types';
+import type { CompressorMap } from '../../shared/maps/types';
 import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
 import { compareLines } from '../../shared/study/compare';
 import { runStudyDocument } from '../../shared/study/run';
 import { DEFAULT_LESSON, runLesson } from '../../src/features/learn/lesson';
-import { baseUrl, closeTestDatabase, launchBrowser, screenshot, watchForPageErrors } from './browser';
+import { baseUrl, builtinMap, closeTestDatabase, DEMO_USER, launchBrowser, screenshot, shownNumber, signIn, watchForPageErrors } from './browser';
 
 // Side by side, the printable report, a share link opened signed out (and revoked), and the Learn
 // page, in the production build. The test makes its own study from the demo through the API.
 
 const root = path.resolve(import.meta.dirname, '..', '..');
-const DEMO = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', team: 'Harrow Hill Motorsport', study: 'Hill-climb 2.0: which compressor?' };
+const DEMO = { ...DEMO_USER, study: 'Hill-climb 2.0: which compressor?' };
 // plotly.js is large and this machine may be busy: give plots time to arrive (the report draws ten).
 const PLOT_TIMEOUT = 180_000;
 
-/** A number as the screens print it (shared formatNumber: en-US, grouped, 4 significant digits). */
-function shown(value: number, digits = 4): string {
-  return new Intl.NumberFormat('en-US', { maximumSignificantDigits: digits }).format(value);
-}
 
-function builtinMap(id: string): SpoolbookMap {
-  const parsed = parseMapFile(readFileSync(path.join(root, 'data', 'maps', `${id.replace(/^builtin-/, '')}.csv`), 'utf8'));
-  if (!parsed.ok) throw new Error(`demo map ${id} does not parse`);
-  return parsed.map;
-}
 
 function builtinCompressor(id: string): CompressorMap {
   const map = builtinMap(id);
@@ -36,14 +26,6 @@ function builtinCompressor(id: string): CompressorMap {
   return map;
 }
 
-async function signIn(page: Page) {
-  await page.goto(`${baseUrl()}/sign-in`);
-  const form = page.getByRole('form', { name: 'Sign in' });
-  await form.getByLabel('E-mail').fill(DEMO.email);
-  await form.getByLabel('Password', { exact: true }).fill(DEMO.password);
-  await form.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
 
 /** State-changing API calls need the app's own Origin (docs/api.md). */
 function origin() {
@@ -122,7 +104,7 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     expect(await powerRow.locator('td').nth(0).innerText()).toBe('kW');
     const powerCells = powerRow.locator('td');
     for (const [i, cell] of power.cells.entries()) {
-      expect(await powerCells.nth(2 + i).innerText()).toContain(shown(cell.value! / 1000)); // W → kW, as the SI screen shows it
+      expect(await powerCells.nth(2 + i).innerText()).toContain(shownNumber(cell.value! / 1000)); // W → kW, as the SI screen shows it
     }
     for (const i of power.bestIndices) expect(await powerCells.nth(2 + i).getAttribute('data-best')).toBe('true');
 
@@ -202,9 +184,9 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     const v = lesson.point.values!;
     const facts = page.getByRole('definition');
     const corrected = page.locator('dt', { hasText: /^Corrected mass flow$/ }).locator('xpath=following-sibling::dd[1]');
-    expect(await corrected.innerText()).toBe(`${shown(v.correctedMassFlow)} kg/s`);
+    expect(await corrected.innerText()).toBe(`${shownNumber(v.correctedMassFlow)} kg/s`);
     const ratio = page.locator('dt', { hasText: /^Pressure ratio$/ }).locator('xpath=following-sibling::dd[1]');
-    expect(await ratio.innerText()).toBe(shown(v.pressureRatio, 3));
+    expect(await ratio.innerText()).toBe(shownNumber(v.pressureRatio, 3));
     expect(await facts.count()).toBeGreaterThan(4);
 
     // More boost: a higher pressure ratio (the slider moves in 5 kPa steps).
@@ -214,7 +196,7 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     for (let i = 0; i < 4; i++) await page.keyboard.press('ArrowRight');
     await expect.poll(async () => Number(await ratio.innerText())).toBeGreaterThan(before);
     const more = runLesson({ ...DEFAULT_LESSON, boost: DEFAULT_LESSON.boost + 20_000 }, builtinCompressor('builtin-compressor-m58'));
-    expect(await ratio.innerText()).toBe(shown(more.point.values!.pressureRatio, 3)); // 4 steps of 5 kPa, from the slider's own grid
+    expect(await ratio.innerText()).toBe(shownNumber(more.point.values!.pressureRatio, 3)); // 4 steps of 5 kPa, from the slider's own grid
 
     // Every section of the walk-through is there, with formulas and sources.
     for (const heading of ['1. The air outside', '4. Corrected flow: the across-the-page axis of the map', '5. Pressure ratio: the up-the-page axis', '7. Where the point lands on the map']) {

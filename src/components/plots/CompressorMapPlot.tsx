@@ -6,9 +6,6 @@ import type { CompressorMapPlotProps } from './types';
 
 const DEFAULT_HEIGHT = 520;
 
-function isLineClick(customdata: unknown): customdata is [string, number] {
-  return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
-}
 
 /**
  * The compressor map (surge line, choke limit, speed lines, efficiency islands) with the
@@ -36,13 +33,7 @@ export function CompressorMapPlot({
       label={map ? `Compressor map: ${map.name}` : 'Operating lines'}
       exportName={exportName ?? map?.name}
       controls={onFlowAxisChange ? <FlowAxisSwitch value={flowAxis} onChange={onFlowAxisChange} /> : undefined}
-      onPointClick={
-        onPointClick
-          ? (customdata) => {
-              if (isLineClick(customdata)) onPointClick(customdata[0], customdata[1]);
-            }
-          : undefined
-      }
+      onPointClick={onPointClick}
     />
   );
 }

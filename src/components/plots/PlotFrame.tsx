@@ -15,6 +15,11 @@ export function exportFileName(title: string | undefined): string {
 
 type PlotEvent = { points?: { customdata?: unknown }[] };
 
+/** Operating points carry `[lineKey, rpm]`; map curves carry nothing. */
+function isLineClick(customdata: unknown): customdata is [string, number] {
+  return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
+}
+
 /**
  * A plot with our own controls above it: whatever the screen puts on the left (such as the flow
  * axis switch) and image export on the right. plotly's own toolbar is hidden; dragging still zooms
@@ -37,8 +42,8 @@ export function PlotFrame({
   controls?: ReactNode;
   /** A line of reading help between the controls and the plot. */
   note?: ReactNode;
-  /** Receives the `customdata` of the clicked point, when it has one. */
-  onPointClick?: (customdata: unknown) => void;
+  /** Called with the line key and engine speed of a clicked operating point (traces carry them as `customdata`). */
+  onPointClick?: (lineKey: string, rpm: number) => void;
 }) {
   const graphDiv = useRef<HTMLElement | null>(null);
   const [ready, setReady] = useState(false);
@@ -104,7 +109,7 @@ export function PlotFrame({
             onPointClick
               ? (event: PlotEvent) => {
                   const customdata = event.points?.[0]?.customdata;
-                  if (customdata !== undefined) onPointClick(customdata);
+                  if (isLineClick(customdata)) onPointClick(customdata[0], customdata[1]);
                 }
               : undefined
           }

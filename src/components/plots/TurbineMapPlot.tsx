@@ -5,9 +5,6 @@ import { PlotFrame } from './PlotFrame';
 import { turbineMapFigure } from './turbine-map-figure';
 import type { TurbineOperatingLineView } from './types';
 
-function isLineClick(customdata: unknown): customdata is [string, number] {
-  return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
-}
 
 /**
  * A turbine map in the same style as the compressor map: flow parameter against expansion ratio
@@ -37,13 +34,7 @@ export function TurbineMapPlot({
       height={height}
       label={`Turbine map: ${map.name}`}
       exportName={exportName ?? map.name}
-      onPointClick={
-        onPointClick
-          ? (customdata) => {
-              if (isLineClick(customdata)) onPointClick(customdata[0], customdata[1]);
-            }
-          : undefined
-      }
+      onPointClick={onPointClick}
     />
   );
 }

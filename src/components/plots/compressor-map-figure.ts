@@ -4,7 +4,7 @@ import type { CompressorCurve, CompressorMap } from '../../../shared/maps/types'
 import { fromSI } from '../../../shared/units';
 import { displayUnitOf, type UnitSystem } from '../../lib/units';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
-import { mapPlotPaper, planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash } from './style';
+import { legendUnderMap, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
 import type { CompressorMapPlotProps, OperatingLineView, OperatingPointView } from './types';
 
 /** What plotly draws: traces and layout. Built by a pure function so it can be checked without a browser. */
@@ -291,11 +291,8 @@ export function operatingPointHover(line: OperatingLineView, point: OperatingPoi
   return rows.join('<br>');
 }
 
-const SEVERITY_OUTLINE = { limit: plotColours.limit, warning: plotColours.copper, info: plotColours.sheet } as const;
-
 function lineTraces(lines: readonly OperatingLineView[], scale: FlowScale, system: UnitSystem): Data[] {
   return lines.map((line) => {
-    const colour = planColour(line.planIndex);
     return {
       type: 'scatter',
       mode: 'lines+markers',
@@ -303,16 +300,7 @@ function lineTraces(lines: readonly OperatingLineView[], scale: FlowScale, syste
       legendgroup: `line:${line.key}`,
       x: line.points.map((p) => operatingX(p, scale)),
       y: line.points.map((p) => p.pressureRatio),
-      line: { color: colour, width: 2, dash: scenarioDash(line.scenarioIndex) },
-      marker: {
-        symbol: planMarker(line.planIndex),
-        size: 9,
-        color: colour,
-        line: {
-          color: line.points.map((p) => SEVERITY_OUTLINE[p.severity ?? 'info']),
-          width: line.points.map((p) => (p.severity === 'limit' || p.severity === 'warning' ? 2.5 : 1)),
-        },
-      },
+      ...operatingLineStyle(line.planIndex, line.scenarioIndex, line.points.map((p) => p.severity)),
       customdata: line.points.map((p) => [line.key, p.rpm]),
       text: line.points.map((p) => operatingPointHover(line, p, scale, system)),
       hovertemplate: '%{text}<extra></extra>',
@@ -332,7 +320,7 @@ function highlightTrace(lines: readonly OperatingLineView[], highlight: Compress
     showlegend: false,
     x: [operatingX(point, scale)],
     y: [point.pressureRatio],
-    marker: { symbol: 'circle-open', size: 24, color: plotColours.ink, line: { width: 2.5, color: plotColours.ink } },
+    marker: selectedPointMarker,
     hoverinfo: 'skip',
   };
 }
@@ -378,17 +366,7 @@ export function compressorMapFigure({ map, lines = [], flowAxis = 'corrected', u
       yaxis: { ...axis, title: { ...axis.title, text: 'Pressure ratio (total to total)' }, ...(yRange ? { range: yRange } : {}) },
       // Under the plot, never over it: a study draws dozens of lines, and a key inside the frame
       // would hide the surge side of the map where the low-rpm points sit.
-      legend: {
-        orientation: 'h',
-        x: 0,
-        y: -0.16,
-        xanchor: 'left',
-        yanchor: 'top',
-        bgcolor: 'rgba(255, 253, 248, 0.92)',
-        bordercolor: plotColours.paperLine,
-        borderwidth: 1,
-        font: { ...plotFont, size: 11 },
-      },
+      legend: legendUnderMap,
       annotations: drawn.annotations,
       dragmode: 'zoom',
     },

@@ -72,3 +72,41 @@ export const mapPlotPaper = {
   hovermode: 'closest' as const,
   hoverlabel: { bgcolor: plotColours.sheet, bordercolor: plotColours.inkSoft, font: { ...plotFont, size: 12 }, align: 'left' as const },
 };
+
+/** The key under a map plot, never over it: a study draws dozens of lines, and a key inside the frame would hide the map. */
+export const legendUnderMap = {
+  orientation: 'h' as const,
+  x: 0,
+  y: -0.16,
+  xanchor: 'left' as const,
+  yanchor: 'top' as const,
+  bgcolor: 'rgba(255, 253, 248, 0.92)',
+  bordercolor: plotColours.paperLine,
+  borderwidth: 1,
+  font: { ...plotFont, size: 11 },
+};
+
+const SEVERITY_OUTLINE = { limit: plotColours.limit, warning: plotColours.copper, info: plotColours.sheet } as const;
+
+/**
+ * How an operating line is drawn on a map: its plan's colour and marker, its scenario's dash, and
+ * an outline on each point by its worst finding (red at a limit, copper for a warning).
+ */
+export function operatingLineStyle(planIndex: number, scenarioIndex: number, severities: readonly ('info' | 'warning' | 'limit' | null | undefined)[]) {
+  const colour = planColour(planIndex);
+  return {
+    line: { color: colour, width: 2, dash: scenarioDash(scenarioIndex) },
+    marker: {
+      symbol: planMarker(planIndex),
+      size: 9,
+      color: colour,
+      line: {
+        color: severities.map((s) => SEVERITY_OUTLINE[s ?? 'info']),
+        width: severities.map((s) => (s === 'limit' || s === 'warning' ? 2.5 : 1)),
+      },
+    },
+  };
+}
+
+/** The ring around the selected point on a map. */
+export const selectedPointMarker = { symbol: 'circle-open' as const, size: 24, color: plotColours.ink, line: { width: 2.5, color: plotColours.ink } };

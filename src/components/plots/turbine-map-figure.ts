@@ -4,7 +4,7 @@ import { mapValueFromSI } from '../../../shared/maps/units';
 import type { UnitSystem } from '../../lib/units';
 import type { PlotFigure } from './compressor-map-figure';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
-import { mapPlotPaper, planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash } from './style';
+import { legendUnderMap, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
 import type { TurbineOperatingLineView } from './types';
 
 /** The unit the flow parameter ṁ·√T3/p3 is shown in, by unit system (mathjs names). */
@@ -18,12 +18,9 @@ function flowParameterTitle(map: TurbineMap, system: UnitSystem): string {
   return `${what} ṁ·√T3/p3 (${unitLabel(flowParameterDisplayUnit[system])})`;
 }
 
-const SEVERITY_OUTLINE = { limit: plotColours.limit, warning: plotColours.copper, info: plotColours.sheet } as const;
-
 /** The operating lines of a study on the map: one trace per line, told apart like on the compressor map. */
 function operatingTraces(lines: readonly TurbineOperatingLineView[], perSI: number, system: UnitSystem): Data[] {
   return lines.map((line) => {
-    const colour = planColour(line.planIndex);
     return {
       type: 'scatter',
       mode: 'lines+markers',
@@ -32,16 +29,7 @@ function operatingTraces(lines: readonly TurbineOperatingLineView[], perSI: numb
       showlegend: true,
       x: line.points.map((p) => p.expansionRatio),
       y: line.points.map((p) => p.flowParameter * perSI),
-      line: { color: colour, width: 2, dash: scenarioDash(line.scenarioIndex) },
-      marker: {
-        symbol: planMarker(line.planIndex),
-        size: 9,
-        color: colour,
-        line: {
-          color: line.points.map((p) => SEVERITY_OUTLINE[p.severity ?? 'info']),
-          width: line.points.map((p) => (p.severity === 'limit' || p.severity === 'warning' ? 2.5 : 1)),
-        },
-      },
+      ...operatingLineStyle(line.planIndex, line.scenarioIndex, line.points.map((p) => p.severity)),
       customdata: line.points.map((p) => [line.key, p.rpm]),
       text: line.points.map((p) => [`<b>${plotText(line.label)}</b>`, ...p.hover.map((h) => `${plotText(h.label)}: ${formatQuantity(h.value, h.kind, system)}`)].join('<br>')),
       hovertemplate: '%{text}<extra></extra>',
@@ -132,7 +120,7 @@ export function turbineMapFigure({
       showlegend: false,
       x: [ringPoint.expansionRatio],
       y: [ringPoint.flowParameter * perSI],
-      marker: { symbol: 'circle-open', size: 24, color: plotColours.ink, line: { width: 2.5, color: plotColours.ink } },
+      marker: selectedPointMarker,
       hoverinfo: 'skip',
     });
   }
@@ -148,17 +136,7 @@ export function turbineMapFigure({
       xaxis: { ...axis, range: xRange, title: { text: 'Expansion ratio p3/p4', font: { ...plotFont, size: 13 } } },
       yaxis: { ...axis, range: yRange, title: { text: flowParameterTitle(map, unitSystem), font: { ...plotFont, size: 13 } } },
       showlegend: lines.length > 0,
-      legend: {
-        orientation: 'h',
-        x: 0,
-        y: -0.16,
-        xanchor: 'left',
-        yanchor: 'top',
-        bgcolor: 'rgba(255, 253, 248, 0.92)',
-        bordercolor: plotColours.paperLine,
-        borderwidth: 1,
-        font: { ...plotFont, size: 11 },
-      },
+      legend: legendUnderMap,
       annotations,
       dragmode: 'zoom',
     },

@@ -4,9 +4,6 @@ import { PlotFrame } from '../plots/PlotFrame';
 import { hasExhaust, type PointRef, type StudyLine } from './lines';
 import { curveViewsFor, rpmCurvesFigure } from './rpm-curves-figure';
 
-function isLineClick(customdata: unknown): customdata is [string, number] {
-  return Array.isArray(customdata) && typeof customdata[0] === 'string' && typeof customdata[1] === 'number';
-}
 
 /**
  * Curves against engine speed, one quantity at a time (boost, pressure ratio, mass flow, power
@@ -78,13 +75,7 @@ export function RpmCurves({
             </p>
           ) : undefined
         }
-        onPointClick={
-          onPointClick
-            ? (customdata) => {
-                if (isLineClick(customdata)) onPointClick({ lineKey: customdata[0], rpm: customdata[1] });
-              }
-            : undefined
-        }
+        onPointClick={onPointClick ? (lineKey, rpm) => onPointClick({ lineKey, rpm }) : undefined}
       />
     </div>
   );

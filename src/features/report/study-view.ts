@@ -17,42 +17,48 @@ export interface StudyViewData {
   mapNames?: Record<string, string>;
 }
 
-/** The plans that share one compressor map, drawn together on it. */
-export interface MapGroup {
+/** The plans that share one map, drawn together on it. */
+interface PlanMapGroup<M> {
   key: string;
-  mapId: string | null;
   /** null: the plans name no map, or it could not be loaded. */
-  map: CompressorMap | null;
+  mapId: string | null;
+  map: M | null;
   title: string;
   planNames: string[];
   lines: StudyLine[];
 }
+
+/** The plans that share one compressor map. */
+export type MapGroup = PlanMapGroup<CompressorMap>;
+
+/** The plans with an exhaust side that share one turbine map (map null: none named or not loaded, so the exhaust side is not computed). */
+export type TurbineMapGroup = PlanMapGroup<TurbineMap>;
 
 /** A map's name for people: the library's name, the map's own, or its id. */
 export function mapName(mapId: string, mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): string {
   return mapNames[mapId] ?? mapsById[mapId]?.name ?? mapId;
 }
 
-/**
- * The lines grouped by the compressor map of their plan, in plan order. Plans on different maps
- * are drawn on separate maps: a point is only meaningful on the map it was read from.
- */
-export function mapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): MapGroup[] {
-  const groups = new Map<string, MapGroup>();
+/** The lines grouped by the map `mapIdOf` names for each plan (undefined: the plan is left out), in plan order. */
+function groupByMap<M extends SpoolbookMap>(
+  doc: StudyDocument,
+  lines: readonly StudyLine[],
+  mapsById: StudyViewData['mapsById'],
+  mapNames: Record<string, string>,
+  kind: M['kind'],
+  mapIdOf: (plan: StudyDocument['plans'][number]) => string | null | undefined,
+  noMapTitle: string,
+): PlanMapGroup<M>[] {
+  const groups = new Map<string, PlanMapGroup<M>>();
   doc.plans.forEach((plan, planIndex) => {
-    const loaded = plan.compressorMapId ? mapsById[plan.compressorMapId] : undefined;
-    const map = loaded && loaded.kind === 'compressor' ? loaded : null;
-    const key = map && plan.compressorMapId ? plan.compressorMapId : '(no map)';
+    const id = mapIdOf(plan);
+    if (id === undefined) return;
+    const loaded = id ? mapsById[id] : undefined;
+    const map = loaded && loaded.kind === kind ? (loaded as M) : null;
+    const key = map && id ? id : '(no map)';
     let group = groups.get(key);
     if (!group) {
-      group = {
-        key,
-        mapId: map ? plan.compressorMapId : null,
-        map,
-        title: map && plan.compressorMapId ? mapName(plan.compressorMapId, mapsById, mapNames) : 'Plans without a compressor map',
-        planNames: [],
-        lines: [],
-      };
+      group = { key, mapId: map ? id : null, map, title: map && id ? mapName(id, mapsById, mapNames) : noMapTitle, planNames: [], lines: [] };
       groups.set(key, group);
     }
     group.planNames.push(plan.name);
@@ -61,16 +67,12 @@ export function mapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsB
   return [...groups.values()];
 }
 
-/** The plans with an exhaust side that share one turbine map, drawn together on it. */
-export interface TurbineMapGroup {
-  key: string;
-  /** null: the plans name no turbine map. */
-  mapId: string | null;
-  /** null: no turbine map named, or it could not be loaded (the exhaust side is then not computed). */
-  map: TurbineMap | null;
-  title: string;
-  planNames: string[];
-  lines: StudyLine[];
+/**
+ * The lines grouped by the compressor map of their plan, in plan order. Plans on different maps
+ * are drawn on separate maps: a point is only meaningful on the map it was read from.
+ */
+export function mapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): MapGroup[] {
+  return groupByMap<CompressorMap>(doc, lines, mapsById, mapNames, 'compressor', (plan) => plan.compressorMapId ?? null, 'Plans without a compressor map');
 }
 
 /**
@@ -79,29 +81,7 @@ export interface TurbineMapGroup {
  * no loaded turbine map form one group without a map.
  */
 export function turbineMapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): TurbineMapGroup[] {
-  const groups = new Map<string, TurbineMapGroup>();
-  doc.plans.forEach((plan, planIndex) => {
-    if (!plan.exhaust) return;
-    const id = plan.turbineMapId ?? null;
-    const loaded = id ? mapsById[id] : undefined;
-    const map = loaded && loaded.kind === 'turbine' ? loaded : null;
-    const key = map && id ? id : '(no turbine map)';
-    let group = groups.get(key);
-    if (!group) {
-      group = {
-        key,
-        mapId: map ? id : null,
-        map,
-        title: map && id ? mapName(id, mapsById, mapNames) : 'Plans without a turbine map',
-        planNames: [],
-        lines: [],
-      };
-      groups.set(key, group);
-    }
-    group.planNames.push(plan.name);
-    group.lines.push(...lines.filter((l) => l.planIndex === planIndex));
-  });
-  return [...groups.values()];
+  return groupByMap<TurbineMap>(doc, lines, mapsById, mapNames, 'turbine', (plan) => (plan.exhaust ? (plan.turbineMapId ?? null) : undefined), 'Plans without a turbine map');
 }
 
 export interface ComputedStudy {

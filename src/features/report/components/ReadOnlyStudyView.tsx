@@ -10,7 +10,8 @@ import { WorkingPanel } from '../../../components/study/WorkingPanel';
 import type { UnitSystem } from '../../../lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { ExhaustNotes } from './ExhaustNotes';
-import { StudyMapFigure, StudyTurbineMapFigure } from './MapFigure';
+import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 
 /** The point first shown in the Working: where the most severe finding is, else the first point. */
 export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | null {
@@ -114,7 +115,7 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
             <div className="space-y-3">
               <MapChooser groups={computed.groups} value={group?.key ?? ''} onChange={setGroupKey} />
               {group && (
-                <StudyMapFigure
+                <CompressorMapPlot
                   map={group.map}
                   lines={mapLines}
                   unitSystem={system}
@@ -139,7 +140,7 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
                   with the gates shut; above it the gates pass the rest.
                 </p>
                 {turbineGroup?.map && (
-                  <StudyTurbineMapFigure
+                  <TurbineMapPlot
                     map={turbineGroup.map}
                     lines={turbineLines}
                     unitSystem={system}

@@ -12,7 +12,8 @@ import { useComputedStudy, type StudyViewData } from '../study-view';
 import { Assumptions } from './Assumptions';
 import { ExhaustNotes } from './ExhaustNotes';
 import { PrintFindings } from './PrintFindings';
-import { StudyMapFigure, StudyTurbineMapFigure } from './MapFigure';
+import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { PrintResults } from './PrintResults';
 import { reportCurveViews, ReportCurves } from './ReportCurves';
 import { StudyInputs } from './StudyInputs';
@@ -166,7 +167,7 @@ export function StudyReport({
               <figcaption className="text-sm font-semibold text-ink">
                 {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
               </figcaption>
-              <StudyMapFigure map={g.map} lines={mapLineViews(g.lines)} unitSystem={system} height={MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
+              <CompressorMapPlot map={g.map} lines={mapLineViews(g.lines)} unitSystem={system} height={MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
             </figure>
           ))}
         </ReportSection>
@@ -183,7 +184,7 @@ export function StudyReport({
                   <figcaption className="text-sm font-semibold text-ink">
                     {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
                   </figcaption>
-                  <StudyTurbineMapFigure map={g.map} lines={turbineLineViews(g.lines)} unitSystem={system} height={TURBINE_MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
+                  <TurbineMapPlot map={g.map} lines={turbineLineViews(g.lines)} unitSystem={system} height={TURBINE_MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
                 </figure>
               ) : (
                 <p key={g.key} className="text-sm text-copper-ink">
