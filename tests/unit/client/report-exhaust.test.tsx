@@ -81,8 +81,8 @@ describe('report inputs: the exhaust side', () => {
     render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} system="si" />);
     const table = screen.getByRole('table', { name: 'Turbine inlet temperature: 0.64 A/R single scroll, one gate' });
     const cells = [...table.querySelectorAll('td')].map((td) => td.textContent);
-    // Fixture: 2500, 5000, 8000 rpm at 1000, 1130, 1180 K; °C = K − 273.15 (ITS-90), 4 significant figures.
-    expect(cells).toEqual(['2,500', '5,000', '8,000', '726.9', '856.9', '906.9']);
+    // Fixture: 2500, 5000, 8000 rpm at 1003.15, 1133.15, 1183.15 K; °C = K − 273.15 (ITS-90), 4 significant figures.
+    expect(cells).toEqual(['2,500', '5,000', '8,000', '730', '860', '910']);
     expect(within(table).getByRole('rowheader', { name: 'Turbine inlet temperature (°C)' })).toBeTruthy();
     expect(screen.getByRole('table', { name: 'Turbine inlet temperature: 0.82 A/R divided, two gates' })).toBeTruthy();
   });
