@@ -238,7 +238,10 @@ export const fuelChoiceSchema = z.discriminatedUnion(
 const injectorSetShape = {
   count: count('injector count', 32),
   ratedFlow: num('rated flow').gt(0, 'rated flow must be above 0 m³/s').max(2e-4, 'rated flow is per injector in m³/s (1000 cc/min = 1.667e-5 m³/s); at most 2e-4'),
-  ratedPressure: num('rated pressure').gt(0, 'rated pressure must be above 0 Pa').max(20_000_000, 'rated pressure must be at most 20 MPa'),
+  ratedPressure: num('rated pressure')
+    // Injectors are rated at a few hundred kPa (common practice, no source); far below is a slip of units, and a pressure near 0 Pa would scale the flow to infinity.
+    .min(10_000, 'rated pressure is in Pa (3 bar = 300 000 Pa); at least 10 000 Pa')
+    .max(20_000_000, 'rated pressure must be at most 20 MPa'),
 };
 
 export const injectorsSchema = z.strictObject({
