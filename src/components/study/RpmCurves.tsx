@@ -71,7 +71,7 @@ export function RpmCurves({
             <p className="text-xs text-ink-soft">
               {view.id === 'boost'
                 ? 'Plans with the exhaust side: the solid line is the boost the turbine holds, the dotted line the target. Where they part, the target is not held.'
-                : 'Dotted: the valve fitted to each gate. Where the needed size rises above it, the gates cannot hold the target.'}
+                : 'Dotted: the valve fitted to each gate. Where the size needed rises above it, the gates cannot pass enough exhaust and boost creeps above the target.'}
             </p>
           ) : undefined
         }
