@@ -156,6 +156,9 @@ describe('the exhaust side in the browser', () => {
     for (const [i, cell] of gate.cells.entries()) expect(await table.locator('tr[data-row="wastegateDiameterNeeded"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value! * 1000)); // m → mm
     for (const [i, cell] of p3.cells.entries()) expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value! / 1000)); // Pa → kPa
     expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').first().innerText()).toContain('abs');
+    // Each chosen plan on its own turbine map: the first drawn, the other chosen.
+    await page.getByTestId('compare-turbine-map').locator('.js-plotly-plot .main-svg').first().waitFor();
+    expect((await traces(page, '[data-testid="compare-turbine-map"]')).map((t) => t.name)).toContain(label0);
     // Both predicted boost curves beside their targets, side by side too.
     await page.getByTestId('compare-curves').locator('.js-plotly-plot .main-svg').first().waitFor();
     const compared = (await traces(page, '[data-testid="compare-curves"]')).map((t) => t.name);

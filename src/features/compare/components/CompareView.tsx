@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import type { CompressorMap, SpoolbookMap } from '../../../../shared/maps/types';
+import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../../shared/maps/types';
 import type { StudyDocument } from '../../../../shared/schemas/study';
 import { compareLines } from '../../../../shared/study/compare';
 import { Alert } from '../../../components/Alert';
@@ -8,7 +8,8 @@ import { FlowAxisSwitch } from '../../../components/plots/FlowAxisSwitch';
 import { PlotFrame } from '../../../components/plots/PlotFrame';
 import { formatQuantity } from '../../../components/plots/quantities';
 import { planColour } from '../../../components/plots/style';
-import { mapLineViews, studyLines } from '../../../components/study/lines';
+import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
+import { mapLineViews, studyLines, turbineLineViews } from '../../../components/study/lines';
 import { RpmCurves } from '../../../components/study/RpmCurves';
 import { runStudyLive } from '../../../components/study/run';
 import { StudyCaution } from '../../../components/study/StudyCaution';
@@ -85,6 +86,27 @@ export function CompareView({
     [drawn, overlays, views, flowAxis, system],
   );
 
+  // The turbine maps of the chosen lines whose plans have the exhaust side, one drawn at a time.
+  const usedTurbineMaps = useMemo(() => {
+    const out: { mapId: string; map: TurbineMap; name: string }[] = [];
+    for (const l of chosenLines) {
+      const plan = document.plans[l.planIndex];
+      const loaded = plan?.exhaust && plan.turbineMapId ? mapsById[plan.turbineMapId] : undefined;
+      if (plan?.turbineMapId && loaded?.kind === 'turbine' && !out.some((m) => m.mapId === plan.turbineMapId))
+        out.push({ mapId: plan.turbineMapId, map: loaded, name: mapNames[plan.turbineMapId] ?? loaded.name });
+    }
+    return out;
+  }, [chosenLines, document, mapsById, mapNames]);
+  const [turbineChoice, setTurbineChoice] = useState<string | null>(null);
+  const drawnTurbine = usedTurbineMaps.find((m) => m.mapId === turbineChoice) ?? usedTurbineMaps[0] ?? null;
+  const turbineViews = useMemo(
+    () =>
+      drawnTurbine
+        ? turbineLineViews(curveLines.filter((_l, i) => document.plans[chosenLines[i].planIndex]?.turbineMapId === drawnTurbine.mapId))
+        : [],
+    [drawnTurbine, curveLines, chosenLines, document],
+  );
+
   const references = usedMaps.map((m) => `${m.name}: ${formatQuantity(m.map.reference.temperature, 'temperature', system)}, ${formatQuantity(m.map.reference.pressure, 'pressure', system)}`);
   const referencesDiffer = new Set(usedMaps.map((m) => `${m.map.reference.temperature}|${m.map.reference.pressure}`)).size > 1;
   const noMapPlans = [...new Set(chosenLines.filter((l) => !compressorMap(mapsById[document.plans[l.planIndex]?.compressorMapId ?? ''])).map((l) => l.line.planName))];
@@ -156,6 +178,35 @@ export function CompareView({
               </p>
             </div>
           </Card>
+
+          {drawnTurbine && (
+            <Card title="On the turbine map">
+              <div className="space-y-3" data-testid="compare-turbine-map">
+                {usedTurbineMaps.length > 1 && (
+                  <label className="flex items-center gap-2 text-sm">
+                    <span className="font-semibold text-ink">Turbine map drawn</span>
+                    <select
+                      value={drawnTurbine.mapId}
+                      onChange={(e) => setTurbineChoice(e.target.value)}
+                      className="rounded-md border border-ink/25 bg-white px-2 py-1 text-sm"
+                    >
+                      {usedTurbineMaps.map((m) => (
+                        <option key={m.mapId} value={m.mapId}>
+                          {m.name}
+                        </option>
+                      ))}
+                    </select>
+                  </label>
+                )}
+                <TurbineMapPlot map={drawnTurbine.map} lines={turbineViews} unitSystem={system} height={480} exportName={`side-by-side-${drawnTurbine.name}`} />
+                <p className="text-xs text-ink-soft">
+                  {usedTurbineMaps.length > 1
+                    ? `The chosen lines run on ${usedTurbineMaps.length} turbine maps; each line is drawn on its own. Choose the map above.`
+                    : `All chosen lines with the exhaust side run on ${drawnTurbine.name}.`}
+                </p>
+              </div>
+            </Card>
+          )}
 
           <Card title="Against engine speed">
             <div data-testid="compare-curves">
