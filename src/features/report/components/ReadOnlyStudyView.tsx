@@ -1,5 +1,7 @@
 import { useMemo, useState } from 'react';
 import { Card } from '../../../components/Card';
+import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { planColour } from '../../../components/plots/style';
 import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
 import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
@@ -10,8 +12,6 @@ import { WorkingPanel } from '../../../components/study/WorkingPanel';
 import type { UnitSystem } from '../../../lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { ExhaustNotes } from './ExhaustNotes';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
-import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 
 /** The point first shown in the Working: where the most severe finding is, else the first point. */
 export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | null {

@@ -2,6 +2,8 @@ import { useEffect, useRef, useState, type ReactNode, type RefObject } from 'rea
 import { Link } from 'react-router';
 import { BrandMark, BrandWord } from '../../../components/Brand';
 import { Button, buttonClass } from '../../../components/Button';
+import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { mapLineViews, turbineLineViews } from '../../../components/study/lines';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import { useDocumentTitle } from '../../../components/Page';
@@ -12,8 +14,6 @@ import { useComputedStudy, type StudyViewData } from '../study-view';
 import { Assumptions } from './Assumptions';
 import { ExhaustNotes } from './ExhaustNotes';
 import { PrintFindings } from './PrintFindings';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
-import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { PrintResults } from './PrintResults';
 import { reportCurveViews, ReportCurves } from './ReportCurves';
 import { StudyInputs } from './StudyInputs';
@@ -62,7 +62,8 @@ function ReportSection({ id, title, children, className = '' }: { id: string; ti
 /**
  * The printable report of a study: title, revision and date, the caution, every input, the
  * assumptions, the maps with every operating line (the turbine maps too when some plan has an
- * exhaust side), the curves, the findings and the results of every point. Made for paper (with src/styles/print.css); on screen it reads as a sheet.
+ * exhaust side), the curves, the findings and the results of every point. Made for paper (with
+ * src/styles/print.css); on screen it reads as a sheet.
  */
 export function StudyReport({
   data,
