@@ -64,6 +64,33 @@ export function fromSI(value: number, unitName: string, kind: QuantityKind): num
   }
 }
 
+/** A unit conversion as a straight line: shown = scale·SI + offset, and back. */
+export interface UnitConverter {
+  fromSI: (value: number) => number;
+  toSI: (value: number) => number;
+}
+
+const converters = new Map<string, UnitConverter>();
+
+/**
+ * The conversion between the SI unit of `kind` and `unitName` for converting many values: every
+ * mathjs unit is affine (only the temperature scales have an offset), so the line is read off
+ * mathjs once and each value is then one multiply and add instead of a mathjs unit. Throws
+ * UnitError like fromSI for a unit of another dimension.
+ */
+export function unitConverter(unitName: string, kind: QuantityKind): UnitConverter {
+  const key = `${kind}|${unitName}`;
+  let converter = converters.get(key);
+  if (!converter) {
+    const offset = fromSI(0, unitName, kind);
+    // The slope over a long span, so the rounding in the offset (273.15) does not leak into it.
+    const scale = (fromSI(1e6, unitName, kind) - offset) / 1e6;
+    converter = { fromSI: (v) => v * scale + offset, toSI: (v) => (v - offset) / scale };
+    converters.set(key, converter);
+  }
+  return converter;
+}
+
 /** True when `unitName` is a known unit measuring `kind`. */
 export function isUnitOf(unitName: string, kind: QuantityKind): boolean {
   try {

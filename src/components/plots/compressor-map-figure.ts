@@ -78,6 +78,28 @@ function mapPointHover(title: string, x: number, pressureRatio: number, efficien
   return lines.join('<br>');
 }
 
+const drawnMaps = new WeakMap<CompressorMap, Map<string, ReturnType<typeof mapTraces>>>();
+
+/**
+ * The map's own traces, built once per map, flow axis and unit system: a study redraws on every
+ * edit, and only its operating lines change. The same trace objects also let plotly see that the
+ * map itself did not change.
+ */
+function cachedMapTraces(map: CompressorMap, axis: 'corrected' | 'volume', system: UnitSystem, scale: FlowScale): ReturnType<typeof mapTraces> {
+  let byView = drawnMaps.get(map);
+  if (!byView) {
+    byView = new Map();
+    drawnMaps.set(map, byView);
+  }
+  const key = `${axis}|${system}`;
+  let drawn = byView.get(key);
+  if (!drawn) {
+    drawn = mapTraces(map, scale);
+    byView.set(key, drawn);
+  }
+  return drawn;
+}
+
 function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annotations: Partial<Annotation>[] } {
   const data: Data[] = [];
   const annotations: Partial<Annotation>[] = [];
@@ -334,7 +356,7 @@ function finiteMax(values: number[]): number | null {
 /** The compressor map and operating lines as plotly traces and layout, in the user's units. */
 export function compressorMapFigure({ map, lines = [], flowAxis = 'corrected', unitSystem, highlight = null, height }: FigureInput): PlotFigure {
   const scale = flowScale(map, flowAxis, unitSystem);
-  const drawn = map ? mapTraces(map, scale) : { data: [], annotations: [] };
+  const drawn = map ? cachedMapTraces(map, flowAxis, unitSystem, scale) : { data: [], annotations: [] };
   const data: Data[] = [...drawn.data, ...lineTraces(lines, scale, unitSystem)];
   const ring = highlightTrace(lines, highlight, scale);
   if (ring) data.push(ring);

@@ -1,4 +1,4 @@
-import { fromSI, siUnitOf, type QuantityKind } from '../../../shared/units';
+import { siUnitOf, unitConverter, type QuantityKind } from '../../../shared/units';
 import { displayUnitOf, type UnitSystem } from '../../lib/units';
 
 // Numbers as the plots and map screens show them: in the user's units, with the unit written the
@@ -46,7 +46,7 @@ function isQuantityKind(kind: string): kind is QuantityKind {
 
 /** An SI value in the user's display unit (offsets of °C and °F applied). */
 export function toDisplay(value: number, kind: QuantityKind, system: UnitSystem): number {
-  return fromSI(value, displayUnitOf(kind, system), kind);
+  return unitConverter(displayUnitOf(kind, system), kind).fromSI(value);
 }
 
 /** The display unit of a quantity kind, as people write it. */

@@ -1,5 +1,5 @@
 import type { DiffValueKind } from '../../../shared/study/diff';
-import { fromSI, toSI, type QuantityKind } from '../../../shared/units';
+import { unitConverter, type QuantityKind } from '../../../shared/units';
 import { displayUnits, type UnitSystem } from '../../lib/units';
 import { formatNumber } from '../plots/quantities';
 
@@ -23,7 +23,8 @@ export interface QuantityUnit {
 }
 
 function mathUnit(unit: string, kind: QuantityKind, label: string, short = label): QuantityUnit {
-  return { label, short, toSI: (v) => toSI(v, unit, kind), fromSI: (v) => fromSI(v, unit, kind) };
+  const converter = unitConverter(unit, kind);
+  return { label, short, toSI: converter.toSI, fromSI: converter.fromSI };
 }
 
 function scaled(factor: number, label: string, short = label): QuantityUnit {

@@ -1,5 +1,5 @@
 import { describe, it } from 'vitest';
-import { fromSI, math, toSI } from '../../../shared/units';
+import { fromSI, math, toSI, unitConverter } from '../../../shared/units';
 import { expectClose } from './expect-close';
 
 describe('units at the edges', () => {
@@ -31,6 +31,16 @@ describe('units at the edges', () => {
     it(`converts ${value} ${unit} to ${si} (${source})`, () => {
       expectClose(toSI(value, unit, kind), si, 1e-6);
       expectClose(fromSI(toSI(value, unit, kind), unit, kind), value, 1e-12); // round trip (definition)
+    });
+  }
+
+  // The screens convert thousands of values per redraw with unitConverter: the same numbers as mathjs.
+  for (const [value, unit, kind, si, source] of cases) {
+    it(`converts ${value} ${unit} and back like mathjs with the straight-line converter (${source})`, () => {
+      const c = unitConverter(unit, kind);
+      expectClose(c.toSI(value), si, 1e-6);
+      expectClose(c.toSI(value), toSI(value, unit, kind), 1e-12); // mathjs units (independent library)
+      for (const x of [0, si, -si, 1e-3 * si, 123.456]) expectClose(c.fromSI(x), fromSI(x, unit, kind), 1e-12);
     });
   }
 });
