@@ -97,6 +97,11 @@ describe('the exhaust side in the browser', () => {
     const label1 = `${divided.name} · ${doc.scenarios[0].name} · ${doc.scenarios[0].boostSchedule[0].label}`;
     await expect.poll(async () => (await traces(page, '[data-testid="study-turbine-map"]')).map((t) => t.name), POLL).toContain(label1);
 
+    // One line of the exhaust summary per plan × scenario, each with where full boost arrives.
+    const summary = page.getByTestId('exhaust-summary');
+    await expect.poll(() => summary.locator('tbody tr').count(), POLL).toBe(result.lines.length);
+    expect(await summary.locator('tbody tr').first().innerText()).toContain(`${shownNumber(lineOf(0).exhaust!.boostThresholdRpm!, 21)} rpm`);
+
     // ——— Boost against rpm: the boost each turbine holds (solid) beside the target (dotted), both plans.
     const curves = page.getByTestId('rpm-curves');
     await curves.getByRole('button', { name: 'Boost', exact: true }).click();

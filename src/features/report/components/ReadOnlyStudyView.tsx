@@ -3,6 +3,7 @@ import { Card } from '../../../components/Card';
 import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { planColour } from '../../../components/plots/style';
+import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
 import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
 import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
 import { ResultsTable } from '../../../components/study/ResultsTable';
@@ -155,6 +156,7 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
                     {g.planNames.join(', ')}: no turbine map could be used, so the exhaust side of {g.planNames.length === 1 ? 'this plan' : 'these plans'} is not computed.
                   </p>
                 ))}
+                <ExhaustSummary lines={computed.lines} unitSystem={system} />
                 <ExhaustNotes document={data.document} />
               </div>
             </Card>

@@ -5,6 +5,7 @@ import { Button, buttonClass } from '../../../components/Button';
 import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { mapLineViews, turbineLineViews } from '../../../components/study/lines';
+import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import { useDocumentTitle } from '../../../components/Page';
 import { formatDateTime } from '../../../lib/format';
@@ -193,6 +194,7 @@ export function StudyReport({
                 </p>
               ),
             )}
+            <ExhaustSummary lines={computed.lines} unitSystem={system} />
             <ExhaustNotes document={doc} />
           </ReportSection>
         )}

@@ -4,6 +4,7 @@ import { Card } from '../../../../components/Card';
 import { CompressorMapPlot } from '../../../../components/plots/CompressorMapPlot';
 import { PlotPlaceholder } from '../../../../components/plots/Plot';
 import { TurbineMapPlot } from '../../../../components/plots/TurbineMapPlot';
+import { ExhaustSummary } from '../../../../components/study/ExhaustSummary';
 import { FindingsList } from '../../../../components/study/FindingsList';
 import { findPoint, mapLineViews, turbineLineViews, type PointRef } from '../../../../components/study/lines';
 import { ResultsTable } from '../../../../components/study/ResultsTable';
@@ -206,6 +207,9 @@ export function StudyPlots({
           ) : (
             <PlotPlaceholder height={320} label={mapErrors.some((e) => e.mapId === turbineMapId) ? 'The turbine map of this plan could not be loaded.' : 'Loading the turbine map…'} />
           )}
+          <div className="mt-4">
+            <ExhaustSummary lines={(later ?? computed).lines} unitSystem={unitSystem} />
+          </div>
         </Card>
       )}
 
