@@ -4,7 +4,8 @@ import type { CompressorCurve, CompressorMap } from '../../../shared/maps/types'
 import { fromSI } from '../../../shared/units';
 import { displayUnitOf, type UnitSystem } from '../../lib/units';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
-import { legendUnderMap, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
+import { builtForMap } from './map-cache';
+import { legendUnderMap, lineEndLabel, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
 import type { CompressorMapPlotProps, OperatingLineView, OperatingPointView } from './types';
 
 /** What plotly draws: traces and layout. Built by a pure function so it can be checked without a browser. */
@@ -76,28 +77,6 @@ function mapPointHover(title: string, x: number, pressureRatio: number, efficien
   const lines = [`<b>${plotText(title)}</b>`, `Flow ${formatNumber(x)} ${unitLabel(scale.unit)}`, `Pressure ratio ${formatNumber(pressureRatio)}`];
   if (efficiency !== null) lines.push(`Efficiency ${percentLabel(efficiency)}`);
   return lines.join('<br>');
-}
-
-const drawnMaps = new WeakMap<CompressorMap, Map<string, ReturnType<typeof mapTraces>>>();
-
-/**
- * The map's own traces, built once per map, flow axis and unit system: a study redraws on every
- * edit, and only its operating lines change. The same trace objects also let plotly see that the
- * map itself did not change.
- */
-function cachedMapTraces(map: CompressorMap, axis: 'corrected' | 'volume', system: UnitSystem, scale: FlowScale): ReturnType<typeof mapTraces> {
-  let byView = drawnMaps.get(map);
-  if (!byView) {
-    byView = new Map();
-    drawnMaps.set(map, byView);
-  }
-  const key = `${axis}|${system}`;
-  let drawn = byView.get(key);
-  if (!drawn) {
-    drawn = mapTraces(map, scale);
-    byView.set(key, drawn);
-  }
-  return drawn;
 }
 
 function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annotations: Partial<Annotation>[] } {
@@ -172,45 +151,30 @@ function mapTraces(map: CompressorMap, scale: FlowScale): { data: Data[]; annota
     });
     const last = x.length - 1;
     if (last >= 0) {
-      annotations.push({
-        x: x[last],
-        y: y[last],
-        text: plotText(label),
-        showarrow: false,
-        xanchor: 'left',
-        xshift: 4,
-        font: { ...plotFont, size: 10, color: overspeed ? plotColours.limit : plotColours.inkSoft },
-      });
+      annotations.push(lineEndLabel(x[last], y[last], plotText(label), overspeed ? plotColours.limit : plotColours.inkSoft));
     }
   }
 
-  for (const curve of map.curves.filter((c) => c.kind === 'choke')) {
-    const x = xs(curve);
-    data.push({
-      type: 'scatter',
-      mode: 'lines',
-      name: 'Choke limit',
-      legendgroup: 'choke',
-      x,
-      y: ys(curve),
-      line: { color: plotColours.copper, width: 2.25 },
-      text: curve.points.map((p, i) => mapPointHover('Choke limit', x[i], p.pressureRatio, null, scale)),
-      hovertemplate: '%{text}<extra></extra>',
-    });
-  }
-  for (const curve of map.curves.filter((c) => c.kind === 'surge')) {
-    const x = xs(curve);
-    data.push({
-      type: 'scatter',
-      mode: 'lines',
-      name: 'Surge line',
-      legendgroup: 'surge',
-      x,
-      y: ys(curve),
-      line: { color: plotColours.limit, width: 2.5 },
-      text: curve.points.map((p, i) => mapPointHover('Surge line', x[i], p.pressureRatio, null, scale)),
-      hovertemplate: '%{text}<extra></extra>',
-    });
+  // The edges of the map: choke limit, then the surge line over it.
+  const edges = [
+    { kind: 'choke', name: 'Choke limit', colour: plotColours.copper, width: 2.25 },
+    { kind: 'surge', name: 'Surge line', colour: plotColours.limit, width: 2.5 },
+  ] as const;
+  for (const edge of edges) {
+    for (const curve of map.curves.filter((c) => c.kind === edge.kind)) {
+      const x = xs(curve);
+      data.push({
+        type: 'scatter',
+        mode: 'lines',
+        name: edge.name,
+        legendgroup: edge.kind,
+        x,
+        y: ys(curve),
+        line: { color: edge.colour, width: edge.width },
+        text: curve.points.map((p, i) => mapPointHover(edge.name, x[i], p.pressureRatio, null, scale)),
+        hovertemplate: '%{text}<extra></extra>',
+      });
+    }
   }
   return { data, annotations };
 }
@@ -356,7 +320,7 @@ function finiteMax(values: number[]): number | null {
 /** The compressor map and operating lines as plotly traces and layout, in the user's units. */
 export function compressorMapFigure({ map, lines = [], flowAxis = 'corrected', unitSystem, highlight = null, height }: FigureInput): PlotFigure {
   const scale = flowScale(map, flowAxis, unitSystem);
-  const drawn = map ? cachedMapTraces(map, flowAxis, unitSystem, scale) : { data: [], annotations: [] };
+  const drawn = map ? builtForMap(map, `${flowAxis}|${unitSystem}`, () => mapTraces(map, scale)) : { data: [], annotations: [] };
   const data: Data[] = [...drawn.data, ...lineTraces(lines, scale, unitSystem)];
   const ring = highlightTrace(lines, highlight, scale);
   if (ring) data.push(ring);

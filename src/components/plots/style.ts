@@ -110,3 +110,8 @@ export function operatingLineStyle(planIndex: number, scenarioIndex: number, sev
 
 /** The ring around the selected point on a map. */
 export const selectedPointMarker = { symbol: 'circle-open' as const, size: 24, color: plotColours.ink, line: { width: 2.5, color: plotColours.ink } };
+
+/** The label at the end of a speed line (or any map curve), just right of its last point. */
+export function lineEndLabel(x: number, y: number, text: string, colour: string = plotColours.inkSoft) {
+  return { x, y, text, showarrow: false, xanchor: 'left' as const, xshift: 4, font: { ...plotFont, size: 10, color: colour } };
+}

@@ -4,7 +4,8 @@ import { mapValueFromSI } from '../../../shared/maps/units';
 import type { UnitSystem } from '../../lib/units';
 import type { PlotFigure } from './compressor-map-figure';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
-import { legendUnderMap, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
+import { builtForMap } from './map-cache';
+import { legendUnderMap, lineEndLabel, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
 import type { TurbineOperatingLineView } from './types';
 
 /** The unit the flow parameter ṁ·√T3/p3 is shown in, by unit system (mathjs names). */
@@ -37,23 +38,8 @@ function operatingTraces(lines: readonly TurbineOperatingLineView[], perSI: numb
   });
 }
 
-/**
- * A turbine map: flow parameter against expansion ratio, one line per speed, in the user's units;
- * with a study's operating lines over it when given (the study page).
- */
-export function turbineMapFigure({
-  map,
-  unitSystem,
-  height,
-  lines = [],
-  highlight = null,
-}: {
-  map: TurbineMap;
-  unitSystem: UnitSystem;
-  height: number;
-  lines?: readonly TurbineOperatingLineView[];
-  highlight?: { lineKey: string; rpm: number } | null;
-}): PlotFigure {
+/** The map's own speed lines and their labels, with the extent they cover (display units). */
+function turbineMapTraces(map: TurbineMap, unitSystem: UnitSystem) {
   const unit = flowParameterDisplayUnit[unitSystem];
   const perSI = mapValueFromSI(1, unit, 'flowParameter');
   const data: Data[] = [];
@@ -90,16 +76,32 @@ export function turbineMapFigure({
       hovertemplate: '%{text}<extra></extra>',
     });
     const last = x.length - 1;
-    annotations.push({
-      x: x[last],
-      y: y[last],
-      text: plotText(label),
-      showarrow: false,
-      xanchor: 'left',
-      xshift: 4,
-      font: { ...plotFont, size: 10, color: plotColours.inkSoft },
-    });
+    annotations.push(lineEndLabel(x[last], y[last], plotText(label)));
   });
+  return { data, annotations, maxX, maxY, minY };
+}
+
+/**
+ * A turbine map: flow parameter against expansion ratio, one line per speed, in the user's units;
+ * with a study's operating lines over it when given (the study page).
+ */
+export function turbineMapFigure({
+  map,
+  unitSystem,
+  height,
+  lines = [],
+  highlight = null,
+}: {
+  map: TurbineMap;
+  unitSystem: UnitSystem;
+  height: number;
+  lines?: readonly TurbineOperatingLineView[];
+  highlight?: { lineKey: string; rpm: number } | null;
+}): PlotFigure {
+  const perSI = mapValueFromSI(1, flowParameterDisplayUnit[unitSystem], 'flowParameter');
+  const drawn = builtForMap(map, unitSystem, () => turbineMapTraces(map, unitSystem));
+  const data: Data[] = [...drawn.data];
+  let { maxX, maxY, minY } = drawn;
   for (const trace of operatingTraces(lines, perSI, unitSystem)) {
     data.push(trace);
     const x = (trace as { x: number[] }).x.filter(Number.isFinite);
@@ -137,7 +139,7 @@ export function turbineMapFigure({
       yaxis: { ...axis, range: yRange, title: { text: flowParameterTitle(map, unitSystem), font: { ...plotFont, size: 13 } } },
       showlegend: lines.length > 0,
       legend: legendUnderMap,
-      annotations,
+      annotations: drawn.annotations,
       dragmode: 'zoom',
     },
   };
