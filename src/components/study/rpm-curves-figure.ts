@@ -206,10 +206,11 @@ export function rpmCurvesFigure({
       } as Data);
       const companion = series.companion;
       if (companion) {
-        const cy = points.map((p) => {
+        const csi = points.map((p) => {
           const c = companion.value(p.values);
-          return c === null || !Number.isFinite(c) ? null : unit.fromSI(c);
+          return c === null || !Number.isFinite(c) ? null : c;
         });
+        const cy = csi.map((c) => (c === null ? null : unit.fromSI(c)));
         if (cy.some((c) => c !== null)) {
           data.push({
             type: 'scatter',
@@ -226,7 +227,7 @@ export function rpmCurvesFigure({
             connectgaps: false,
             text: points.map(
               (p, i) =>
-                `<b>${plotText(l.label)}</b><br>${formatNumber(p.rpm, 21)} rpm<br>${plotText(companion.title)}: ${plotText(formatStudyValue(cy[i] === null ? null : companion.value(p.values), series.quantity, unitSystem))}`,
+                `<b>${plotText(l.label)}</b><br>${formatNumber(p.rpm, 21)} rpm<br>${plotText(companion.title)}: ${plotText(formatStudyValue(csi[i], series.quantity, unitSystem))}`,
             ),
             hovertemplate: '%{text}<extra></extra>',
           } as Data);
