@@ -9,18 +9,8 @@ export { parseMapFile } from './parse';
 export { writeMapFile, ESCAPE_FORMULAE } from './write';
 export { compressorModelFromMap, type CompressorModelOptions } from './model';
 export { triangulate, type TriangulatedSurface } from './interpolate';
-export {
-  surgeMargin,
-  chokeMargin,
-  speedMargin,
-  marginsAt,
-  marginLines,
-  piecewiseLinear,
-  type Margins,
-  type MarginLines,
-  type PiecewiseLinear,
-} from './margins';
-export { locateOnEdges, mapEdges, type MapEdges } from './location';
+export { surgeMargin, chokeMargin, speedMargin, piecewiseLinear, type PiecewiseLinear } from './margins';
+export { mapBoundary, surgeMarginAt, chokeMarginAt, speedOutside, isentropicHead, type MapBoundary, type BoundaryMargin, type BoundarySpeed } from './boundary';
 export { withReference, withCompressorFileUnits, withTurbineFileUnits, withMetadata } from './convert';
 export { referenceDensity } from './scales';
 export { readUnit, mapValueToSI, mapValueFromSI, FLOW_PARAMETER_SI_UNIT } from './units';

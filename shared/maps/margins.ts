@@ -1,9 +1,10 @@
-import type { CompressorCurve, CompressorMap } from './types';
+import type { CompressorCurve } from './types';
 
 /**
- * Margins of an operating point on a compressor map (docs/map-format.md, "Margins"):
+ * Margins of an operating point on a compressor map (docs/physics.md, "Margins"; the whole edge
+ * they are measured against is in boundary.ts):
  *   surge margin  = (ṁc − ṁc,surge(PR)) / ṁc   — flow distance to the surge line at the same PR
- *   choke margin  = (ṁc,choke(PR) − ṁc) / ṁc   — flow distance to the choke limit at the same PR
+ *   choke margin  = (ṁc,edge(PR) − ṁc) / ṁc    — flow distance to the map's right edge at the same PR
  *   speed margin  = (Nmax − N) / Nmax
  * Positive is safe; negative says how far past the limit the point is. ṁc is corrected mass flow
  * at the map's reference conditions, so the margins do not depend on the map's units.
@@ -82,40 +83,4 @@ export function pressureRatioByFlow(curve: CompressorCurve): PiecewiseLinear {
     curve.points.map((p) => p.correctedMassFlow),
     curve.points.map((p) => p.pressureRatio),
   );
-}
-
-/** The lines margins are measured to; a valid compressor map has all of them. */
-export interface MarginLines {
-  surge: PiecewiseLinear;
-  choke: PiecewiseLinear;
-}
-
-export function marginLines(map: CompressorMap): MarginLines {
-  const surge = map.curves.find((c) => c.kind === 'surge');
-  const choke = map.curves.find((c) => c.kind === 'choke');
-  if (!surge || !choke) throw new Error(`map "${map.name}" has no ${surge ? 'choke' : 'surge'} line`);
-  return { surge: flowByPressureRatio(surge), choke: flowByPressureRatio(choke) };
-}
-
-/** The three margins of one point; null where the map gives no line at this pressure ratio or no speed. */
-export interface Margins {
-  surgeMargin: number | null;
-  chokeMargin: number | null;
-  speedMargin: number | null;
-}
-
-export function marginsAt(
-  lines: MarginLines,
-  correctedMassFlow: number,
-  pressureRatio: number,
-  shaftSpeed: number | null,
-  maxSpeed: number | null,
-): Margins {
-  const surgeFlow = lines.surge.at(pressureRatio);
-  const chokeFlow = lines.choke.at(pressureRatio);
-  return {
-    surgeMargin: surgeFlow === null ? null : surgeMargin(correctedMassFlow, surgeFlow),
-    chokeMargin: chokeFlow === null ? null : chokeMargin(correctedMassFlow, chokeFlow),
-    speedMargin: shaftSpeed === null || maxSpeed === null ? null : speedMargin(shaftSpeed, maxSpeed),
-  };
 }

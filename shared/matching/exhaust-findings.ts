@@ -55,7 +55,8 @@ export function exhaustPointFindings(v: PointValues, heldBefore: boolean, effici
     );
   }
   const dpr = v.drivePressureRatio;
-  if (dpr != null && dpr > DRIVE_PRESSURE_RATIO_WARNING) {
+  // Where no boost is asked the throttle sets the manifold, and p3/p_man of a throttled engine is no warning.
+  if (dpr != null && dpr > DRIVE_PRESSURE_RATIO_WARNING && (v.boostTarget ?? v.boost) > 0) {
     out.push(
       finding(
         'drive-pressure-ratio-high',

@@ -42,8 +42,9 @@ export function heldBoostStep(ctx: LineContext, v: PointValues): WorkingStep | n
 export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const ex = ctx.exhaust;
   if (!ex || !ex.turbine || !v.exhaustCase) return [];
-  const need = [v.exhaustMassFlow, v.turbineInletTemperature, v.turbineOutletPressure, v.turbineInletPressure, v.expansionRatio, v.turbineFlowParameter, v.turbineMapFlowParameter, v.turbineEfficiency, v.turbineMassFlow, v.turbinePower, v.shutGateExpansionRatio, v.shutGateTurbineEfficiency, v.shutGateTurbinePower, v.wastegateMassFlow, v.wastegateFraction, v.drivePressureRatio];
+  const need = [v.compressorPower, v.exhaustMassFlow, v.turbineInletTemperature, v.turbineOutletPressure, v.turbineInletPressure, v.expansionRatio, v.turbineFlowParameter, v.turbineMapFlowParameter, v.turbineEfficiency, v.turbineMassFlow, v.turbinePower, v.shutGateExpansionRatio, v.shutGateTurbineEfficiency, v.shutGateTurbinePower, v.wastegateMassFlow, v.wastegateFraction, v.drivePressureRatio];
   if (need.some((x) => typeof x !== 'number' || !Number.isFinite(x))) return [];
+  const pC = v.compressorPower!;
   const mEx = v.exhaustMassFlow!;
   const t3 = v.turbineInletTemperature!;
   const p4 = v.turbineOutletPressure!;
@@ -135,9 +136,9 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const drive = etaM * pShut;
   const caseWords =
     v.exhaustCase === 'gate-open'
-      ? `more than the compressor needs (${fmt(v.compressorPower / 1000)} kW): the target is held and the gates open to bleed off the rest.`
+      ? `more than the compressor needs (${fmt(pC / 1000)} kW): the target is held and the gates open to bleed off the rest.`
       : v.exhaustCase === 'target-not-held'
-        ? `just what the compressor needs at the held boost (${fmt(v.compressorPower / 1000)} kW): the gates stay shut.`
+        ? `just what the compressor needs at the held boost (${fmt(pC / 1000)} kW): the gates stay shut.`
         : 'more than the compressor needs, which is nothing here: the throttle sets the boost and the gates are taken wide open.';
   steps.push(
     step(
@@ -233,7 +234,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         step(
           'power-balance',
           'Power balance',
-          `What reaches the compressor equals its power P_c = ${fmt(v.compressorPower / 1000)} kW, to the solver's tolerance.`,
+          `What reaches the compressor equals its power P_c = ${fmt(pC / 1000)} kW, to the solver's tolerance.`,
           'eta_m * P_t',
           [wv('eta_m', etaM, 'fraction'), wv('P_t', v.turbinePower!, 'power')],
           wv('P_drive', etaM * v.turbinePower!, 'power'),
@@ -250,7 +251,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       step(
         'power-balance',
         'Power balance at the held boost',
-        `What reaches the compressor equals its power at the held boost, P_c = ${fmt(v.compressorPower / 1000)} kW, to the solver's tolerance.`,
+        `What reaches the compressor equals its power at the held boost, P_c = ${fmt(pC / 1000)} kW, to the solver's tolerance.`,
         'eta_m * P_t_shut',
         [wv('eta_m', etaM, 'fraction'), wv('P_t_shut', pShut, 'power')],
         wv('P_drive', drive, 'power'),

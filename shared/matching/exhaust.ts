@@ -364,6 +364,12 @@ function clearExhaust(v: PointValues): void {
   v.wastegateChoked = null;
 }
 
+/**
+ * Compressor power of a point fresh from solvePoint, W. It is always set there; only a point found
+ * unreachable loses it, and that happens after the exhaust side is solved. NaN, never a silent 0, if not.
+ */
+const solvedPower = (v: PointValues): number => v.compressorPower ?? Number.NaN;
+
 export interface ExhaustPointOptions {
   firstOfLine?: boolean;
   /** An earlier engine speed of the line held the boost target. */
@@ -444,7 +450,7 @@ export function solveExhaustPoint(
   let g = exhaustGasOf(v, ex, n);
   let shut = shutGate(turbine, g);
   if (!shut.ok) extra.push(exhaustNotConvergedFinding(op.rpm, 'The expansion ratio with the gates shut', shut.reason));
-  const compressorPower = v.compressorPower;
+  const compressorPower = solvedPower(v);
   let at: TurbineState;
   let kind: NonNullable<PointValues['exhaustCase']>;
   let held = true;
@@ -471,16 +477,16 @@ export function solveExhaustPoint(
     if (!(v.ambientPressure + low > 0)) low = 0.5 * p1 - v.ambientPressure;
     // Each trial starts the compressor's fixed point from the last one's efficiency, and the last
     // few trials are kept: Brent's answer is always a boost it has tried.
-    let startEfficiency = v.compressorEfficiency;
+    let startEfficiency = v.compressorEfficiency ?? undefined;
     const kept: SolvedPoint[] = [];
     const spare = (boost: number): number => {
       const trial = solvePoint(ctx, compressorModel, { ...op, boost }, { lineChecked: true, findings: false, startEfficiency, maxPasses: TRIAL_PASSES });
       if (!trial.solved) return Number.NaN;
       if (kept.length === KEPT_TRIALS) kept.shift();
       kept.push(trial);
-      startEfficiency = trial.values.compressorEfficiency;
+      startEfficiency = trial.values.compressorEfficiency ?? undefined;
       const s = shutGate(turbine, exhaustGasOf(trial.values, ex, n));
-      return etaM * s.value.power - trial.values.compressorPower;
+      return etaM * s.value.power - solvedPower(trial.values);
     };
     let a = low;
     let b = target;
@@ -528,7 +534,7 @@ export function solveExhaustPoint(
     at = shut.value;
     // At a compressor-map edge the compressor's own state may not settle (its efficiency jumps
     // between the map and the Plan's figure), and then no boost balances exactly: say how close.
-    const mismatch = (etaM * at.power - v.compressorPower) / Math.max(v.compressorPower, etaM * at.power, 1);
+    const mismatch = (etaM * at.power - solvedPower(v)) / Math.max(solvedPower(v), etaM * at.power, 1);
     if (!(Math.abs(mismatch) <= HELD_BALANCE_WARNING)) {
       extra.push(
         exhaustFinding(
@@ -549,8 +555,17 @@ export function solveExhaustPoint(
     point.findings.push(...lineFindings, ...extra, exhaustFinding('exhaust-not-converged', 'warning', 'The exhaust side gives no finite numbers at this point; it is left out.', op.rpm));
     return point;
   }
-  point.findings.push(...lineFindings, ...extra, ...exhaustPointFindings(v, options.heldBefore === true, at.efficiencyAssumed || shut.value.efficiencyAssumed));
+  const exhaustFindings = exhaustPointFindings(v, options.heldBefore === true, at.efficiencyAssumed || shut.value.efficiencyAssumed);
+  // A point the compressor cannot deliver has no exhaust results either (they are cleared with the
+  // rest); whether the turbine would hold the target is still worth saying.
+  const kept = v.reachable === false ? exhaustFindings.filter((f) => f.code === 'boost-target-not-held') : exhaustFindings;
+  point.findings.push(...lineFindings, ...extra, ...kept);
   return point;
+}
+
+/** Whether a point's target is above ambient: a line of such points asks the turbine for boost. */
+function asksForBoost(v: PointValues): boolean {
+  return (v.boostTarget ?? v.boost) > 0;
 }
 
 function extreme(points: readonly OperatingPoint[], value: (v: PointValues) => number | null | undefined): ValueAtRpm | null {
@@ -567,9 +582,10 @@ function extreme(points: readonly OperatingPoint[], value: (v: PointValues) => n
 export function exhaustLineSummary(ctx: LineContext, points: readonly OperatingPoint[]): ExhaustLineSummary | null {
   const ex = ctx.exhaust;
   if (!ex || !ex.turbine) return null;
+  const boostAsked = points.some((p) => p.values !== null && asksForBoost(p.values));
   let threshold: number | null = null;
   for (const p of points) {
-    if (p.values && p.values.targetHeld === true) {
+    if (boostAsked && p.values && p.values.targetHeld === true && asksForBoost(p.values)) {
       threshold = p.rpm;
       break;
     }
@@ -578,7 +594,10 @@ export function exhaustLineSummary(ctx: LineContext, points: readonly OperatingP
   const atPeak = peakPower ? points.find((p) => p.rpm === peakPower.rpm)?.values?.turbineInletPressure : null;
   return {
     boostThresholdRpm: threshold,
-    peakDrivePressureRatio: extreme(points, (v) => v.drivePressureRatio),
+    boostAsked,
+    // Below the threshold the manifold is barely boosted and p3/p_man says little: the peak that
+    // matters is at the boost the builder asked for.
+    peakDrivePressureRatio: extreme(points, (v) => (v.targetHeld === true ? v.drivePressureRatio : null)),
     wastegateDiameterNeeded: extreme(points, (v) => v.wastegateDiameterNeeded),
     wastegateDiameterFitted: ex.input.wastegates.valveDiameter,
     turbineInletPressureAtPeakPower: peakPower && typeof atPeak === 'number' ? { value: atPeak, rpm: peakPower.rpm } : null,
@@ -591,7 +610,7 @@ export function finishExhaustLine(ctx: LineContext, points: OperatingPoint[]): E
   const summary = exhaustLineSummary(ctx, points);
   if (!summary) return null;
   const computed = points.filter((p) => p.values && p.values.targetHeld !== null && p.values.targetHeld !== undefined);
-  if (computed.length > 0 && summary.boostThresholdRpm === null) {
+  if (computed.length > 0 && summary.boostThresholdRpm === null && summary.boostAsked) {
     computed[0].findings.push(
       exhaustFinding('boost-target-not-held', 'warning', 'The turbine holds the boost target at no engine speed of this line: there is no boost threshold.', computed[0].rpm),
     );

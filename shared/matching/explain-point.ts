@@ -19,6 +19,7 @@ import {
   STANDARD_GRAVITY,
 } from '../physics';
 import { exhaustSteps, heldBoostStep } from './exhaust-working';
+import { MAP_REGION_WORDS } from './reach';
 import { lookupByRpm } from './rpm-table';
 import type { LineContext, OperatingPoint, PointValues, RpmTable } from './types';
 import { fmt, kelvin, pct, SOURCES, step, wv, type WorkingKind, type WorkingStep } from './working';
@@ -99,16 +100,18 @@ function lookupStep(id: string, title: string, table: RpmTable | null, rpm: numb
 
 function mapSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const steps: WorkingStep[] = [];
+  const basis = v.marginBasis;
   if (v.shaftSpeed !== null) {
+    const where = SPEED_BASIS_WORDS[basis?.speed ?? 'speed-lines'] ?? SPEED_BASIS_WORDS['speed-lines'];
     steps.push(
       step(
         'shaft-speed',
-        'Shaft speed from the map',
-        `The speed lines give the corrected speed N_c at corrected flow ${fmt(v.correctedMassFlow)} kg/s and pressure ratio ${fmt(v.pressureRatio)}. Like corrected flow, it is referred to the map's reference temperature, so the wheel's real speed is N_c·√(T1/T_ref): faster on a hot day.`,
+        basis?.speed === 'above-top-speed-line' || basis?.speed === 'surge-edge' ? 'Shaft speed, extrapolated along the map\'s edge' : 'Shaft speed from the map',
+        `${where} Like corrected flow, the speed is referred to the map's reference temperature, so the wheel's real speed is N_c·√(T1/T_ref): faster on a hot day.`,
         'N_c * sqrt(T_1 / T_ref)',
         [wv('N_c', v.correctedShaftSpeed ?? v.shaftSpeed, 'speed'), wv('T_1', v.compressorInletTemperature, 'temperature'), wv('T_ref', ctx.reference.temperature, 'temperature')],
         wv('N_tc', v.shaftSpeed, 'speed'),
-        SOURCES.map,
+        basis?.speed === 'above-top-speed-line' || basis?.speed === 'surge-edge' ? `${SOURCES.map}; ${SOURCES.similarity}` : SOURCES.map,
       ),
     );
   }
@@ -132,7 +135,9 @@ function mapSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       step(
         'choke-margin',
         'Choke margin',
-        'How much more corrected flow the compressor could pass at the same pressure ratio before choking, as a share of the point\'s flow.',
+        basis?.choke === 'top-speed-line'
+          ? "How much more corrected flow the compressor could pass at the same pressure ratio, as a share of the point's flow. Above the choke line's top the map's right edge is the top speed line, where it comes down to this pressure ratio on its choke side: the flow is measured to it. Negative means past choke."
+          : "How much more corrected flow the compressor could pass at the same pressure ratio before choking, as a share of the point's flow. Negative means past choke.",
         '(m_dot_c_choke - m_dot_c) / m_dot_c',
         [wv('m_dot_c', v.correctedMassFlow, 'massFlow'), wv('m_dot_c_choke', chokeFlow, 'massFlow')],
         wv('CM', v.chokeMargin, 'fraction'),
@@ -157,11 +162,94 @@ function mapSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       steps.push(step('speed-margin', 'Speed margin', 'As the map reports it.', 'SpM', [wv('SpM', v.speedMargin, 'fraction')], wv('SpM', v.speedMargin, 'fraction'), SOURCES.map));
     }
   }
+  const region = regionStep(v);
+  if (region) steps.push(region);
   return steps;
 }
 
+const SPEED_BASIS_WORDS: Partial<Record<string, string>> = {
+  'speed-lines': 'The speed lines give the corrected speed N_c at this corrected flow and pressure ratio.',
+  'above-top-speed-line':
+    'The point is above the top speed line, so the map has no speed for it: N_c is extrapolated up from the top line at the same flow, taking the isentropic head PR^((γ−1)/γ) − 1 to rise with the square of the tip speed (similar operation). An estimate, not a map reading.',
+  'surge-edge':
+    'The point is left of the surge line: N_c is the speed along the surge line at this pressure ratio, between the speed lines\' first points (the isentropic head taken to rise with the square of the tip speed). An estimate, not a map reading.',
+};
+
+/** Why a margin is missing, in words. */
+const MISSING_MARGIN_WORDS: Record<string, string> = {
+  'above-surge-line': 'the point is above the surge line\'s top, where the map does not say where surge lies',
+  'below-surge-line': 'the point is below the surge line\'s lowest pressure ratio, where the map draws no surge line',
+  'below-choke-line': 'the point is below the choke line\'s lowest pressure ratio, where the map draws no choke line',
+  'above-map': 'the point is above the whole map, where it has no edge at this pressure ratio',
+  'no-map': 'there is no map',
+  'past-choke': 'the map gives no speed past its choke line',
+  'below-map': 'the wheel turns slower than the lowest speed line, which the map does not draw',
+  'outside-speed-lines': 'the map gives no speed outside its speed lines',
+  'no-limit': 'neither the map nor the Plan gives a speed limit',
+};
+
+/** Where the point sits on the map, what that means for its results, and why any margin is missing. */
+function regionStep(v: PointValues): WorkingStep | null {
+  const region = v.mapRegion;
+  if (!region) return null;
+  const missing: string[] = [];
+  const basis = v.marginBasis;
+  if (v.surgeMargin === null && basis) missing.push(`no surge margin: ${MISSING_MARGIN_WORDS[basis.surge] ?? 'the map cannot say'}`);
+  if (v.chokeMargin === null && basis) missing.push(`no choke margin: ${MISSING_MARGIN_WORDS[basis.choke] ?? 'the map cannot say'}`);
+  if (v.speedMargin === null && basis) missing.push(`no speed margin: ${MISSING_MARGIN_WORDS[basis.speed] ?? 'the map cannot say'}`);
+  const meaning =
+    v.reachable === false
+      ? 'The compressor cannot deliver this point: it is not reachable with this compressor, so its efficiency, outlet temperature, power, torque, fuel and exhaust side are not given.'
+      : v.offMapAssumed
+        ? "The map does not reach this point; it is computed on the Plan's off-map efficiency assumption, as the findings say."
+        : region === 'below-map'
+          ? 'A light load: the compressor meets it turning slower than its lowest speed line.'
+          : 'The compressor can deliver this point.';
+  return step(
+    'map-region',
+    'Where the point sits on the map',
+    `The point is ${MAP_REGION_WORDS[region]}. ${meaning}${missing.length > 0 ? ` ${missing.map((m) => m[0].toUpperCase() + m.slice(1)).join('. ')}.` : ''}`,
+    'm_dot_c',
+    [wv('m_dot_c', v.correctedMassFlow, 'massFlow')],
+    wv('m_dot_c', v.correctedMassFlow, 'massFlow'),
+    SOURCES.map,
+  );
+}
+
+/** The efficiency a point was computed with, or, where it is not reachable, the one that placed it. */
+function efficiencyOf(v: PointValues): number {
+  return v.compressorEfficiency ?? v.placementEfficiency ?? Number.NaN;
+}
+
+/** Compressor outlet temperature of a point, or, where it is not reachable, the estimate that placed it, K. */
+function outletTemperatureOf(v: PointValues): number {
+  return v.compressorOutletTemperature ?? v.compressorInletTemperature + (v.isentropicOutletTemperature - v.compressorInletTemperature) / efficiencyOf(v);
+}
+
 function efficiencyStep(ctx: LineContext, v: PointValues): WorkingStep {
-  const eta = v.compressorEfficiency;
+  const eta = efficiencyOf(v);
+  if (v.compressorEfficiency === null) {
+    return step(
+      'compressor-efficiency',
+      'Efficiency used to place the point',
+      `The compressor cannot deliver this point, and the map gives no efficiency there. To place the point on the map the Plan's ${pct(eta)} is used; nothing that would follow from running there is given.`,
+      'eta_place',
+      [wv('eta_place', eta, 'fraction')],
+      wv('eta_place', eta, 'fraction'),
+      SOURCES.assumption,
+    );
+  }
+  if (v.efficiencySource === 'off-map-assumption') {
+    return step(
+      'compressor-efficiency',
+      'Compressor efficiency: the off-map assumption',
+      `The map does not reach this point. The Plan states an explicit off-map efficiency of ${pct(eta)}, and the point is computed on it (the findings name it).`,
+      'eta_off_map',
+      [wv('eta_off_map', eta, 'fraction')],
+      wv('eta_c', eta, 'fraction'),
+      SOURCES.assumption,
+    );
+  }
   if (v.efficiencySource === 'map') {
     return step(
       'compressor-efficiency',
@@ -183,13 +271,16 @@ function efficiencyStep(ctx: LineContext, v: PointValues): WorkingStep {
 }
 
 function compressorTemperatureStep(v: PointValues): WorkingStep {
+  const placing = v.compressorOutletTemperature === null;
   return step(
     'outlet-temperature',
-    'Compressor outlet temperature',
-    'A real compressor heats the air more than an ideal one: the ideal rise is divided by the efficiency.',
-    'T_1 + (T_2s - T_1) / eta_c',
-    [wv('T_1', v.compressorInletTemperature, 'temperature'), wv('T_2s', v.isentropicOutletTemperature, 'temperature'), wv('eta_c', v.compressorEfficiency, 'fraction')],
-    wv('T_2', v.compressorOutletTemperature, 'temperature'),
+    placing ? 'Outlet temperature used to place the point' : 'Compressor outlet temperature',
+    placing
+      ? 'Only to place the point on the map (through the intercooler and the manifold density): the compressor cannot deliver the point, so this is no result.'
+      : 'A real compressor heats the air more than an ideal one: the ideal rise is divided by the efficiency.',
+    `T_1 + (T_2s - T_1) / ${placing ? 'eta_place' : 'eta_c'}`,
+    [wv('T_1', v.compressorInletTemperature, 'temperature'), wv('T_2s', v.isentropicOutletTemperature, 'temperature'), wv(placing ? 'eta_place' : 'eta_c', efficiencyOf(v), 'fraction')],
+    wv('T_2', outletTemperatureOf(v), 'temperature'),
     SOURCES.compressorThermo,
   );
 }
@@ -209,7 +300,7 @@ function manifoldTemperatureStep(ctx: LineContext, v: PointValues, fixedGiven: b
     'Manifold temperature after the intercooler',
     `The intercooler removes the share ε of the difference between the hot charge and its coolant (${ic.coolantTemperature === undefined ? 'ambient air' : 'the stated coolant'}).${iterationNote}`,
     'T_2 - eps * (T_2 - T_cool)',
-    [wv('T_2', v.compressorOutletTemperature, 'temperature'), wv('eps', ic.effectiveness, 'fraction'), wv('T_cool', coolant, 'temperature')],
+    [wv('T_2', outletTemperatureOf(v), 'temperature'), wv('eps', ic.effectiveness, 'fraction'), wv('T_cool', coolant, 'temperature')],
     wv('T_man', v.manifoldTemperature, 'temperature'),
     SOURCES.intercooler,
   );
@@ -377,15 +468,25 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       );
     }
     steps.push(
-      step(
-        'brake-power',
-        'Brake power from the air',
-        'The air sets the power: only the fuel it can burn, m_dot_air/AFR_s, releases its heat; extra fuel in a rich mixture does not.',
-        'eta_b * m_dot_air * LHV / AFR_s',
-        [wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'), wv('m_dot_air', v.engineMassFlow, 'massFlow'), wv('LHV', p.lowerHeatingValue, 'energyPerMass'), wv('AFR_s', p.stoichiometricAfr, 'ratio')],
-        wv('P_b', v.brakePower, 'power'),
-        SOURCES.power,
-      ),
+      v.powerLimitedBy === 'fuel'
+        ? step(
+            'brake-power',
+            'Brake power from the fuel (lean)',
+            'The mixture is lean (lambda above 1): all the fuel finds air and burns, and the excess air only dilutes the charge, so the fuel sets the power: η_b·LHV·min(m_dot_f, m_dot_air/AFR_s) takes the fuel.',
+            'eta_b * m_dot_f * LHV',
+            [wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'), wv('m_dot_f', v.fuelMassFlow, 'massFlow'), wv('LHV', p.lowerHeatingValue, 'energyPerMass')],
+            wv('P_b', v.brakePower, 'power'),
+            SOURCES.power,
+          )
+        : step(
+            'brake-power',
+            'Brake power from the air',
+            'The mixture is rich or stoichiometric (lambda at or below 1), so the air sets the power: only the fuel it can burn, m_dot_air/AFR_s, releases its heat; the extra fuel does not. η_b·LHV·min(m_dot_f, m_dot_air/AFR_s) takes the air.',
+            'eta_b * m_dot_air * LHV / AFR_s',
+            [wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'), wv('m_dot_air', v.engineMassFlow, 'massFlow'), wv('LHV', p.lowerHeatingValue, 'energyPerMass'), wv('AFR_s', p.stoichiometricAfr, 'ratio')],
+            wv('P_b', v.brakePower, 'power'),
+            SOURCES.power,
+          ),
       step(
         'torque',
         'Brake torque',
@@ -586,20 +687,29 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
     ),
   );
   const fixedGiven = options.fixedManifoldTemperature === true;
-  const power = step(
-    'compressor-power',
-    'Compressor power',
-    'The shaft power that heats the air from T_1 to T_2.',
-    'm_dot * c_p * (T_2 - T_1)',
-    [wv('m_dot', v.massFlow, 'massFlow'), wv('c_p', AIR_CP, 'none', R_UNIT), wv('T_2', v.compressorOutletTemperature, 'temperature'), wv('T_1', v.compressorInletTemperature, 'temperature')],
-    wv('P_c', v.compressorPower, 'power'),
-    SOURCES.compressorThermo,
-  );
+  const t2 = v.compressorOutletTemperature;
+  const power =
+    v.compressorPower === null || t2 === null
+      ? []
+      : [
+          step(
+            'compressor-power',
+            'Compressor power',
+            'The shaft power that heats the air from T_1 to T_2.',
+            'm_dot * c_p * (T_2 - T_1)',
+            [wv('m_dot', v.massFlow, 'massFlow'), wv('c_p', AIR_CP, 'none', R_UNIT), wv('T_2', t2, 'temperature'), wv('T_1', v.compressorInletTemperature, 'temperature')],
+            wv('P_c', v.compressorPower, 'power'),
+            SOURCES.compressorThermo,
+          ),
+        ];
   if (!fixedGiven && ctx.intercooler.kind === 'effectiveness') {
-    // The manifold temperature needs T2 first.
-    steps.push(efficiencyStep(ctx, v), compressorTemperatureStep(v), manifoldTemperatureStep(ctx, v, fixedGiven), ...airflowSteps(ctx, v), ...mapSteps(ctx, v), power);
+    // The manifold temperature needs T2 first (for a point that cannot be delivered, only to place it).
+    steps.push(efficiencyStep(ctx, v), compressorTemperatureStep(v), manifoldTemperatureStep(ctx, v, fixedGiven), ...airflowSteps(ctx, v), ...mapSteps(ctx, v), ...power);
   } else {
-    steps.push(manifoldTemperatureStep(ctx, v, fixedGiven), ...airflowSteps(ctx, v), efficiencyStep(ctx, v), ...mapSteps(ctx, v), compressorTemperatureStep(v), power);
+    // With the manifold temperature given, the point's place needs no efficiency: a point that
+    // cannot be delivered shows no efficiency or outlet temperature at all.
+    const compressorSteps = v.compressorEfficiency === null ? [] : [efficiencyStep(ctx, v), compressorTemperatureStep(v)];
+    steps.push(manifoldTemperatureStep(ctx, v, fixedGiven), ...airflowSteps(ctx, v), ...mapSteps(ctx, v), ...compressorSteps, ...power);
   }
   steps.push(...fuelSteps(ctx, v));
   steps.push(...exhaustSteps(ctx, v));

@@ -3,8 +3,8 @@
  * constants with where they come from; "limit" is reserved for hard limits (surge, overspeed,
  * injector saturation, the builder's own limits).
  */
-import type { MapLocation } from './compressor-model';
-import type { Finding, FindingCode, LineContext, PointValues, Severity } from './types';
+import { REQUIREMENT_DEFAULTS } from './requirements';
+import type { Finding, FindingCode, LineContext, MapRegion, PointValues, Severity } from './types';
 import { fmt, kelvin, pct, type WorkingKind } from './working';
 
 /** Injector duty above which a warning is raised, fraction (common practice, no source). */
@@ -13,8 +13,6 @@ export const INJECTOR_DUTY_WARNING = 0.8;
 export const INJECTOR_DUTY_LIMIT = 0.85;
 /** Injector duty at which the injectors are open all the time (saturated), fraction (definition). */
 export const INJECTOR_DUTY_SATURATED = 1;
-/** Compressor outlet temperature above which a warning is raised, K: 200 °C (from memory: where oils and couplers start to suffer). */
-export const COMPRESSOR_OUTLET_TEMPERATURE_WARNING = 473.15;
 /** Share of the pump's flow above which a warning is raised, fraction (common practice, no source). */
 export const FUEL_PUMP_WARNING = 0.9;
 /** Usual range of volumetric efficiency referred to manifold density, fraction (common practice, no source). */
@@ -47,13 +45,107 @@ function finding(
   return quantity ? { code, severity, message, rpm, ...quantity } : { code, severity, message, rpm };
 }
 
-const locationFindings: Record<Exclude<MapLocation, 'inside'>, { code: FindingCode; severity: Severity; words: string }> = {
-  'left-of-surge': { code: 'map-left-of-surge', severity: 'limit', words: 'left of the surge line' },
-  'beyond-choke': { code: 'map-beyond-choke', severity: 'warning', words: 'beyond the choke limit' },
-  'above-top-speed': { code: 'map-above-top-speed', severity: 'limit', words: 'above the top speed line' },
-  'below-map': { code: 'map-below-map', severity: 'info', words: 'below the map (low pressure ratio; usual at light load)' },
-  'off-map': { code: 'map-off-map', severity: 'warning', words: 'off the map' },
+const NOT_REACHABLE = 'Not reachable with this compressor: its power, torque and temperatures are not given.';
+
+/** Words on how a margin beyond the choke line's top was measured. */
+function chokeEdgeWords(v: PointValues): string {
+  return v.marginBasis?.choke === 'top-speed-line' ? ', measured to the top speed line above the choke line\'s top' : '';
+}
+
+/** The finding that says where a point off the map sits and what that means; null on or below the map. */
+function regionFinding(region: MapRegion, v: PointValues): Finding | null {
+  const rpm = v.rpm;
+  const tail = v.reachable ? '' : ` ${NOT_REACHABLE}`;
+  switch (region) {
+    case 'on-map':
+      return null;
+    case 'below-map':
+      return finding('map-below-map', 'info', 'The point is below the map (a low pressure ratio, usual at light load): the wheel turns slower than the lowest speed line.', rpm);
+    case 'left-of-surge':
+      return finding(
+        'map-left-of-surge',
+        'limit',
+        `The point is left of the surge line (surge margin ${pct(v.surgeMargin ?? 0)}): the compressor surges here.${tail}`,
+        rpm,
+        v.surgeMargin !== null ? { value: v.surgeMargin, threshold: 0, kind: 'fraction' } : undefined,
+      );
+    case 'past-choke':
+      return finding(
+        'map-beyond-choke',
+        'limit',
+        `The point is past choke (choke margin ${pct(v.chokeMargin ?? 0)}${chokeEdgeWords(v)}): the compressor cannot pass this flow at this pressure ratio.${tail}`,
+        rpm,
+        v.chokeMargin !== null ? { value: v.chokeMargin, threshold: 0, kind: 'fraction' } : undefined,
+      );
+    case 'over-speed':
+      // The overspeed finding says it, with the figures.
+      return null;
+    case 'above-map':
+      return finding(
+        'map-above-top-speed',
+        'limit',
+        `The point is above the top speed line${v.shaftSpeed !== null ? ` (about ${fmt(v.shaftSpeed)} rpm, extrapolated)` : ''}: the map does not show the compressor running there.${tail}`,
+        rpm,
+      );
+    case 'outside-speed-lines':
+      return finding(
+        'map-off-map',
+        'limit',
+        `The point is inside the map's outline but outside its speed lines: the map cannot say what the compressor does here.${tail}`,
+        rpm,
+      );
+  }
+}
+
+const SPEED_WORDS: Record<string, string> = {
+  'above-top-speed-line': ' (extrapolated above the top speed line)',
+  'surge-edge': ' (taken along the surge line)',
 };
+
+/** Warnings for margins that hold but are thinner than the study requires. */
+function thinMarginFindings(v: PointValues, ctx: LineContext): Finding[] {
+  const req = ctx.requirements ?? REQUIREMENT_DEFAULTS;
+  const out: Finding[] = [];
+  const thin = (code: FindingCode, what: string, margin: number | null, required: number) => {
+    if (margin === null || !(margin >= 0) || !(margin < required)) return;
+    out.push(finding(code, 'warning', `${what} ${pct(margin)} is under the ${pct(required)} the study requires.`, v.rpm, { value: margin, threshold: required, kind: 'fraction' }));
+  };
+  thin('surge-margin-thin', 'Surge margin', v.surgeMargin, req.minSurgeMargin);
+  thin('choke-margin-thin', 'Choke margin', v.chokeMargin, req.minChokeMargin);
+  thin('speed-margin-thin', 'Speed margin', v.speedMargin, req.minSpeedMargin);
+  return out;
+}
+
+/** A lean target under boost: the mixture that burns pistons and valves. */
+function leanFindings(v: PointValues, ctx: LineContext): Finding[] {
+  const req = ctx.requirements ?? REQUIREMENT_DEFAULTS;
+  if (v.lambda === null || !(v.boost >= req.underBoostFrom)) return [];
+  const where = `under ${fmt(v.boost / 1000, 3)} kPa of boost`;
+  const advice = "keep to the fuel system maker's and the calibrator's targets";
+  if (v.lambda > req.lambdaLimitUnderBoost) {
+    return [
+      finding(
+        'lean-under-boost-limit',
+        'limit',
+        `Lambda ${fmt(v.lambda, 3)} ${where} is leaner than the ${fmt(req.lambdaLimitUnderBoost, 3)} limit: lean mixtures under boost burn pistons and valves; ${advice}.`,
+        v.rpm,
+        { value: v.lambda, threshold: req.lambdaLimitUnderBoost, kind: 'ratio' },
+      ),
+    ];
+  }
+  if (v.lambda > req.lambdaWarningUnderBoost) {
+    return [
+      finding(
+        'lean-under-boost',
+        'warning',
+        `Lambda ${fmt(v.lambda, 3)} ${where} is leaner than the ${fmt(req.lambdaWarningUnderBoost, 3)} the study accepts; ${advice}.`,
+        v.rpm,
+        { value: v.lambda, threshold: req.lambdaWarningUnderBoost, kind: 'ratio' },
+      ),
+    ];
+  }
+  return [];
+}
 
 /**
  * Findings about the line's own inputs (ambient, assumptions): raised once, at the line's first
@@ -162,51 +254,69 @@ export function pointFindings(v: PointValues, ctx: LineContext): Finding[] {
       finding('not-converged', 'warning', `The manifold temperature did not settle in ${v.iterations} passes; the last pass is shown.`, rpm),
     );
   }
-  if (ctx.hasMap && v.efficiencySource === 'plan') {
+  const reachable = v.reachable !== false;
+  if (ctx.hasMap && reachable && v.efficiencySource === 'plan' && v.compressorEfficiency !== null) {
+    const below = v.mapRegion === 'below-map';
     out.push(
       finding(
         'efficiency-off-map',
-        'warning',
-        `The map gives no efficiency here; the Plan's ${pct(v.compressorEfficiency)} is used instead.`,
+        below ? 'info' : 'warning',
+        below
+          ? `Below the map the efficiency is not given; the Plan's ${pct(v.compressorEfficiency)} is used (at a low pressure ratio it changes little).`
+          : `The map gives no efficiency here; the Plan's ${pct(v.compressorEfficiency)} is used instead.`,
         rpm,
         { value: v.compressorEfficiency, kind: 'fraction' },
       ),
     );
   }
-  if (v.mapLocation !== null && v.mapLocation !== 'inside') {
-    const l = locationFindings[v.mapLocation];
-    out.push(finding(l.code, l.severity, `The point is ${l.words}.`, rpm));
+  if (v.offMapAssumed && v.compressorEfficiency !== null) {
+    out.push(
+      finding(
+        'off-map-assumption',
+        'warning',
+        `Computed on the Plan's off-map efficiency assumption of ${pct(v.compressorEfficiency)}: the map does not reach this point.`,
+        rpm,
+        { value: v.compressorEfficiency, kind: 'fraction' },
+      ),
+    );
   }
-  if (v.shaftSpeed !== null && v.maxShaftSpeed !== null && v.shaftSpeed > v.maxShaftSpeed) {
+  const region = v.mapRegion ?? null;
+  const regionNote = region !== null ? regionFinding(region, v) : null;
+  if (regionNote) out.push(regionNote);
+  if (v.speedMargin !== null && v.speedMargin < 0 && v.shaftSpeed !== null && v.maxShaftSpeed !== null) {
     out.push(
       finding(
         'overspeed',
         'limit',
-        `Shaft speed ${fmt(v.shaftSpeed)} rpm is over the limit ${fmt(v.maxShaftSpeed)} rpm.`,
+        `Shaft speed ${fmt(v.shaftSpeed)} rpm${SPEED_WORDS[v.marginBasis?.speed ?? ''] ?? ''} is over the limit ${fmt(v.maxShaftSpeed)} rpm (speed margin ${pct(v.speedMargin)}).${v.reachable === false && region === 'over-speed' ? ` ${NOT_REACHABLE}` : ''}`,
         rpm,
         { value: v.shaftSpeed, threshold: v.maxShaftSpeed, kind: 'speed' },
       ),
     );
   }
+  out.push(...thinMarginFindings(v, ctx), ...leanFindings(v, ctx));
+  if (!reachable) return out;
+  const t2 = v.compressorOutletTemperature;
   const t2Limit = limits.maxCompressorOutletTemperature;
-  if (t2Limit !== undefined && v.compressorOutletTemperature > t2Limit) {
+  const t2Accepted = (ctx.requirements ?? REQUIREMENT_DEFAULTS).maxCompressorOutletTemperature;
+  if (t2 !== null && t2Limit !== undefined && t2 > t2Limit) {
     out.push(
       finding(
         'compressor-outlet-temperature-limit',
         'limit',
-        `Compressor outlet temperature ${kelvin(v.compressorOutletTemperature)} is above the stated limit ${kelvin(t2Limit)}.`,
+        `Compressor outlet temperature ${kelvin(t2)} is above the stated limit ${kelvin(t2Limit)}.`,
         rpm,
-        { value: v.compressorOutletTemperature, threshold: t2Limit, kind: 'temperature' },
+        { value: t2, threshold: t2Limit, kind: 'temperature' },
       ),
     );
-  } else if (v.compressorOutletTemperature > COMPRESSOR_OUTLET_TEMPERATURE_WARNING) {
+  } else if (t2 !== null && t2 > t2Accepted) {
     out.push(
       finding(
         'compressor-outlet-temperature-high',
         'warning',
-        `Compressor outlet temperature ${kelvin(v.compressorOutletTemperature)} is above ${kelvin(COMPRESSOR_OUTLET_TEMPERATURE_WARNING)}.`,
+        `Compressor outlet temperature ${kelvin(t2)} is above the ${kelvin(t2Accepted)} the study accepts.`,
         rpm,
-        { value: v.compressorOutletTemperature, threshold: COMPRESSOR_OUTLET_TEMPERATURE_WARNING, kind: 'temperature' },
+        { value: t2, threshold: t2Accepted, kind: 'temperature' },
       ),
     );
   }

@@ -1,4 +1,6 @@
 import { siUnitOf } from '../units';
+import { MAP_REGION_WORDS } from './reach';
+import { planVerdicts, VERDICT_WORDS } from './verdict';
 import type { OperatingLine, PointValues, StudyResult } from './types';
 import type { WorkingKind } from './working';
 
@@ -102,22 +104,45 @@ export function resultRows(result: StudyResult): ResultRow[] {
   );
 }
 
-/** The results as plain records for a CSV writer: headers carry SI units; numbers stay numbers. */
+/** Where a point sits, in words, for a table or an export: "past choke"; "no map" without one, "not computed" when unsolved. */
+export function mapRegionText(values: PointValues | null): string {
+  if (!values) return 'not computed';
+  return values.mapRegion ? MAP_REGION_WORDS[values.mapRegion] : 'no map';
+}
+
+/** "yes" where the point's results stand, "no" where the compressor cannot deliver it or it could not be computed. */
+export function reachableText(values: PointValues | null): 'yes' | 'no' {
+  return values && values.reachable !== false ? 'yes' : 'no';
+}
+
+/**
+ * The results as plain records for a CSV writer: headers carry SI units; numbers stay numbers.
+ * A point the compressor cannot deliver has empty result cells; "Reachable" says why, and the
+ * plan's verdict is on every row of the plan. The last three columns came later than the rest and
+ * are appended, so that the earlier columns keep their places.
+ */
 export function resultRecords(result: StudyResult): { fields: string[]; data: (string | number | null)[][] } {
   const head = RESULT_COLUMNS.map((c) => {
     const unit = siUnitText(c);
     return unit ? `${c.label} (${unit})` : c.label;
   });
-  const fields = ['Plan', 'Scenario', 'Boost row', ...head, 'Findings'];
-  const data = resultRows(result).map((r) => [
-    r.plan,
-    r.scenario,
-    r.row,
-    ...RESULT_COLUMNS.map((c) => {
-      const v = r.values?.[c.key];
-      return typeof v === 'number' ? v : v === null || v === undefined ? null : String(v);
-    }),
-    r.findings,
-  ]);
+  const fields = ['Plan', 'Scenario', 'Boost row', ...head, 'Findings', 'Map region', 'Reachable', 'Plan verdict'];
+  const verdicts = new Map(planVerdicts(result).map((v) => [v.planIndex, v]));
+  const data = resultRows(result).map((r) => {
+    const verdict = verdicts.get(r.line.planIndex);
+    return [
+      r.plan,
+      r.scenario,
+      r.row,
+      ...RESULT_COLUMNS.map((c) => {
+        const v = r.values?.[c.key];
+        return typeof v === 'number' ? v : v === null || v === undefined ? null : String(v);
+      }),
+      r.findings,
+      mapRegionText(r.values),
+      reachableText(r.values),
+      verdict ? verdict.headline : VERDICT_WORDS['not-judged'],
+    ];
+  });
   return { fields, data };
 }

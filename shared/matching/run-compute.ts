@@ -6,9 +6,12 @@ import { efficiencyFromBsfc, fuelProperties, type FuelChoice } from '../physics'
 import { STANDARD_REFERENCE, type ComputeRequest, type ComputeResponse, type ComputeResultPoint } from '../schemas/compute';
 import { resolveAmbient } from './ambient';
 import { pointWorking } from './explain-point';
+import { resolveRequirements } from './requirements';
 import { DEFAULT_COMPRESSOR_EFFICIENCY, solvePoint } from './run-point';
 import type { LineContext, OperatingPoint } from './types';
 import type { WorkingStep } from './working';
+
+const SEVERITY_ORDER = { limit: 0, warning: 1, info: 2 } as const;
 
 /** Refused compute request: a point that passed the schema yet has no physical state. */
 export class ComputeError extends Error {}
@@ -46,6 +49,7 @@ export function computeContext(req: ComputeRequest): LineContext {
     reference: { temperature: reference.temperature, pressure: reference.pressure },
     referenceFrom: req.mapReference ? 'plan' : 'standard',
     hasMap: false,
+    requirements: resolveRequirements(req.requirements),
   };
 }
 
@@ -92,12 +96,17 @@ export function runComputeRequest(req: ComputeRequest): ComputeResponse {
         compressorInletPressure: v.compressorInletPressure,
         compressorOutletPressure: v.compressorOutletPressure,
         pressureRatio: v.pressureRatio,
-        compressorOutletTemperature: v.compressorOutletTemperature,
-        compressorPower: v.compressorPower,
+        // No map in a compute request: every point is reachable and keeps its results.
+        compressorOutletTemperature: v.compressorOutletTemperature ?? Number.NaN,
+        compressorPower: v.compressorPower ?? Number.NaN,
+        findings: [],
       };
       if (v.fuelMassFlow !== null) out.fuelMassFlow = v.fuelMassFlow;
       if (v.brakePower !== null) out.brakePower = v.brakePower;
       if (v.wheelPower !== null) out.wheelPower = v.wheelPower;
+      out.findings = [...point.findings]
+        .sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity])
+        .map((f) => ({ code: f.code, severity: f.severity, message: f.message }));
       return out;
     }),
   };

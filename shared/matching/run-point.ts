@@ -9,7 +9,8 @@ import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT, isentropicExponent } from '../phys
 import { injectorPressureDifference as injectorPressureDifferenceOf, railGaugePressure, setCapacity } from '../physics/injectors';
 import type { CompressorModel, CompressorReading, MapLocation } from './compressor-model';
 import { lineInputFindings, pointFindings, unsolvableFinding } from './findings';
-import type { EfficiencySource, Finding, LineContext, OperatingPoint, PointValues } from './types';
+import { assumptionCovers, isReachable, mapRegionOf } from './reach';
+import type { EfficiencySource, Finding, LineContext, OperatingPoint, PointMarginBasis, PointValues } from './types';
 import { fmt } from './working';
 
 // Module-level copies: the solver reads them for every point.
@@ -57,6 +58,9 @@ function readMap(model: CompressorModel, correctedMassFlow: number, pressureRati
     chokeMargin: finiteOrNull(r.chokeMargin),
     speedMargin: finiteOrNull(r.speedMargin),
     location: locations.includes(r.location) ? r.location : 'off-map',
+    surgeMarginBasis: r.surgeMarginBasis,
+    chokeMarginBasis: r.chokeMarginBasis,
+    speedBasis: r.speedBasis,
   };
 }
 
@@ -73,6 +77,8 @@ export function lineProblems(ctx: LineContext): string[] {
   if (!positive(ctx.engine.displacement)) problems.push('Displacement is not positive.');
   if (!(Number.isInteger(ctx.plan.turbochargers) && ctx.plan.turbochargers >= 1)) problems.push('Turbocharger count is not a whole number of at least 1.');
   if (!(positive(ctx.plan.compressorEfficiency) && ctx.plan.compressorEfficiency <= 1)) problems.push('Plan compressor efficiency is not between 0 and 1.');
+  const offMap = ctx.plan.offMapEfficiency;
+  if (offMap !== undefined && !(positive(offMap) && offMap <= 1)) problems.push('The off-map efficiency assumption is not between 0 and 1.');
   if (!positive(ctx.reference.temperature) || !positive(ctx.reference.pressure)) problems.push('The map reference temperature and pressure must be positive.');
   const ic = ctx.intercooler;
   if (ic.kind === 'fixed' && !positive(ic.manifoldTemperature)) problems.push('Manifold temperature is not positive.');
@@ -142,7 +148,12 @@ export function solvePoint(
   const refPressure = ctx.reference.pressure;
   const correctionFactor = Math.sqrt(t1 / refTemperature) / (p1 / refPressure);
 
-  const fallback = op.compressorEfficiency ?? ctx.plan.compressorEfficiency;
+  const planFallback = op.compressorEfficiency ?? ctx.plan.compressorEfficiency;
+  const offMapEfficiency = op.compressorEfficiency === undefined ? ctx.plan.offMapEfficiency : undefined;
+  // Where the map is silent and the Plan states an off-map assumption, the assumption holds there.
+  const fallbackAt = (r: CompressorReading | null): number =>
+    offMapEfficiency !== undefined && r !== null && assumptionCovers(mapRegionOf(r.location, null)) ? offMapEfficiency : planFallback;
+  const fallback = planFallback;
   const fallbackSource: EfficiencySource = op.compressorEfficiency !== undefined ? 'point' : 'plan';
   const efficiencyFromMap = model !== null && op.compressorEfficiency === undefined;
   // Corrected flow per kelvin of manifold temperature: ṁc = flowPerKelvin / T_man.
@@ -175,7 +186,7 @@ export function solvePoint(
     for (iterations = 1; iterations <= maxPasses; iterations++) {
       manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
       reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
-      const next = reading.efficiency ?? fallback;
+      const next = reading.efficiency ?? fallbackAt(reading);
       if (Math.abs(next - efficiency) <= EFFICIENCY_TOLERANCE) {
         converged = true;
         break;
@@ -192,10 +203,11 @@ export function solvePoint(
   if (efficiencyFromMap && reading && reading.efficiency !== null) {
     if (fixedTemperature !== null) efficiency = reading.efficiency;
     efficiencySource = 'map';
-  } else if (efficiencyFromMap && fixedTemperature === null) {
+  } else if (efficiencyFromMap) {
     // Off the map at the settled point: the fallback holds, and the state must match it.
-    efficiency = fallback;
-    manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+    efficiency = fallbackAt(reading);
+    if (efficiency !== planFallback) efficiencySource = 'off-map-assumption';
+    if (fixedTemperature === null) manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
   }
 
   const airDensity = manifoldPressure / (R * manifoldTemperature);
@@ -213,6 +225,16 @@ export function solvePoint(
   const correctedShaftSpeed = reading?.shaftSpeed ?? null;
   const shaftSpeed = correctedShaftSpeed !== null ? correctedShaftSpeed * Math.sqrt(t1 / refTemperature) : null;
   const speedMargin = shaftSpeed !== null && maxShaftSpeed !== null ? (maxShaftSpeed - shaftSpeed) / maxShaftSpeed : (reading?.speedMargin ?? null);
+  const location = reading?.location ?? null;
+  const mapRegion = mapRegionOf(location, speedMargin);
+  const offMapAssumed = efficiencySource === 'off-map-assumption';
+  const marginBasis: PointMarginBasis | null = reading
+    ? {
+        surge: reading.surgeMarginBasis ?? (reading.surgeMargin === null ? 'above-map' : 'surge-line'),
+        choke: reading.chokeMarginBasis ?? (reading.chokeMargin === null ? 'above-map' : 'choke-line'),
+        speed: maxShaftSpeed === null ? 'no-limit' : (reading.speedBasis ?? (reading.shaftSpeed === null ? 'outside-speed-lines' : 'speed-lines')),
+      }
+    : null;
 
   const values: PointValues = {
     rpm,
@@ -242,7 +264,12 @@ export function solvePoint(
     compressorPower,
     iterations,
     converged,
-    mapLocation: reading?.location ?? null,
+    mapLocation: location,
+    mapRegion,
+    reachable: isReachable(mapRegion, offMapAssumed),
+    offMapAssumed,
+    marginBasis,
+    placementEfficiency: null,
     correctedShaftSpeed,
     shaftSpeed,
     surgeMargin: reading?.surgeMargin ?? null,
@@ -259,6 +286,7 @@ export function solvePoint(
     wheelPower: null,
     torque: null,
     apparentBsfc: null,
+    powerLimitedBy: null,
     injectorPressureDifference: null,
     injectorStage: null,
     injectorCapacity: null,
@@ -339,7 +367,12 @@ function addFuel(v: PointValues, ctx: LineContext, lambda: number): void {
   v.pumpFlowRequired = fuelVolumeFlow;
   if (ctx.power) {
     const eta = ctx.power.brakeThermalEfficiency;
-    const brakePower = (eta * v.engineMassFlow * lowerHeatingValue) / stoichiometricAfr;
+    // Only fuel that finds air burns: rich, the air runs out first (the excess fuel leaves unburnt);
+    // lean, the fuel does (the excess air only dilutes). Heywood 1988, eq. 2.23 with the burnt fuel.
+    const airLimited = lambda <= 1;
+    const burntFuel = airLimited ? v.engineMassFlow / stoichiometricAfr : fuelMassFlow;
+    const brakePower = eta * burntFuel * lowerHeatingValue;
+    v.powerLimitedBy = airLimited ? 'air' : 'fuel';
     v.brakeThermalEfficiency = eta;
     v.brakePower = brakePower;
     v.wheelPower = ctx.power.drivetrainLoss === null ? null : brakePower * (1 - ctx.power.drivetrainLoss);

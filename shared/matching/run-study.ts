@@ -12,6 +12,8 @@ import type { TurbineModel } from './exhaust-model';
 import { pointWorking } from './explain-point';
 import { unsolvableFinding, worstSeverity } from './findings';
 import { rpmPointsOf, valueAtRpm } from './rpm-table';
+import { clearUnreachableResults } from './reach';
+import { resolveRequirements } from './requirements';
 import { lineProblems, solvePoint } from './run-point';
 import type { LineContext, OperatingLine, OperatingPoint, PlanInput, StudyInput, StudyResult, ValueAtRpm } from './types';
 
@@ -80,6 +82,7 @@ export function lineContext(
     reference: { temperature: reference.temperature, pressure: reference.pressure },
     referenceFrom: model ? 'map' : plan.mapReference ? 'plan' : 'standard',
     hasMap: model !== null,
+    requirements: resolveRequirements(study.requirements),
     exhaust: lineExhaustContext(plan, turbineModel),
   };
 }
@@ -105,11 +108,11 @@ export function runStudy(input: StudyInput, options: RunStudyOptions = {}): Stud
           if (problems.length > 0) return { solved: false, rpm, values: null, findings: problems.map((p) => unsolvableFinding(rpm, p)) };
           const op = { rpm, volumetricEfficiency: veAt[i], boost: valueAtRpm(row.boost, rpm), lambda: lambdaAt[i] };
           const point = solvePoint(ctx, model, op, { firstOfLine: i === 0, lineChecked: true });
-          if (!ctx.exhaust) return point;
+          if (!ctx.exhaust) return clearUnreachableResults(point);
           const withExhaust = solveExhaustPoint(ctx, model, turbineModel, op, point, { firstOfLine: i === 0, heldBefore, previousHeld });
           if (withExhaust.values?.targetHeld === true) heldBefore = true;
           previousHeld = withExhaust.values?.targetHeld === false ? [...previousHeld.slice(-1), { value: withExhaust.values.boost, rpm }] : [];
-          return withExhaust;
+          return clearUnreachableResults(withExhaust);
         });
         const exhaust = ctx.exhaust ? finishExhaustLine(ctx, points) : null;
         if (options.working === 'eager') for (const p of points) p.working = pointWorking(ctx, p);

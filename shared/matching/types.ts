@@ -3,7 +3,7 @@
  * the input; the zod schemas in shared/schemas/compute.ts check it at every edge.
  */
 import type { FuelChoice, FuelProperties, FuelRegulator, Strokes } from '../physics';
-import type { MapLocation, MapReference } from './compressor-model';
+import type { MapLocation, MapReference, MarginBasis, SpeedBasis } from './compressor-model';
 import type { TurbineHousing, TurbineLocation } from './exhaust-model';
 import type { WorkingKind, WorkingStep } from './working';
 
@@ -190,14 +190,45 @@ export interface PlanInput {
   name: string;
   /** Number of identical turbochargers sharing the airflow in parallel. */
   turbochargers: number;
-  /** Compressor isentropic efficiency, fraction, used when there is no map or the point is off it. */
+  /**
+   * Compressor isentropic efficiency, fraction: used when there is no map, where the map gives no
+   * efficiency at a point it can deliver (below the lowest speed line), and to place a point the
+   * compressor cannot deliver on the map (its results are then not shown).
+   */
   compressorEfficiency: number;
+  /**
+   * An explicit assumption, fraction: the compressor's efficiency past its choke line, above its map
+   * or outside its speed lines. Set, such points are computed and counted on it (and the findings
+   * name it); absent, they are not reachable and give no results.
+   */
+  offMapEfficiency?: number;
   /** The wheel's rated speed limit, rpm, when known (the lower of this and the map's applies). */
   maxShaftSpeed?: number;
   /** Reference of corrected flow when no compressor model is supplied; ISA sea level when absent. */
   mapReference?: MapReference;
   /** The exhaust side; absent judges the Plan on the compressor alone. */
   exhaust?: ExhaustInput;
+}
+
+/**
+ * What a team requires of a plan: the verdict applies these. Every field has a default from common
+ * practice (REQUIREMENT_DEFAULTS in requirements.ts).
+ */
+export interface RequirementsInput {
+  /** Smallest surge margin accepted, fraction of corrected flow. */
+  minSurgeMargin?: number;
+  /** Smallest choke margin accepted, fraction of corrected flow. */
+  minChokeMargin?: number;
+  /** Smallest speed margin accepted, fraction of the speed limit. */
+  minSpeedMargin?: number;
+  /** Highest compressor outlet temperature accepted, K (above it: a warning; the engine's stated limit stays a hard limit). */
+  maxCompressorOutletTemperature?: number;
+  /** Lambda above which a point under boost raises a warning. */
+  lambdaWarningUnderBoost?: number;
+  /** Lambda above which a point under boost is at a limit (lean under boost burns pistons and valves). */
+  lambdaLimitUnderBoost?: number;
+  /** Boost from which a point counts as under boost, Pa gauge. */
+  underBoostFrom?: number;
 }
 
 export interface StudyInput {
@@ -208,6 +239,8 @@ export interface StudyInput {
   intercooler: IntercoolerInput;
   scenarios: ScenarioInput[];
   plans: PlanInput[];
+  /** The study's required margins and limits; absent fields take the defaults. */
+  requirements?: RequirementsInput;
 }
 
 // ——— results ———
@@ -244,7 +277,27 @@ export type FindingCode =
   | 'turbine-map-missing'
   | 'turbine-housing-mismatch'
   | 'exhaust-not-converged'
-  | 'throttle-sets-boost';
+  | 'throttle-sets-boost'
+  | 'surge-margin-thin'
+  | 'choke-margin-thin'
+  | 'speed-margin-thin'
+  | 'lean-under-boost'
+  | 'lean-under-boost-limit'
+  | 'off-map-assumption';
+
+/**
+ * Where a point sits for the builder: on the map, or where the compressor cannot deliver it (left
+ * of surge, past choke, over the speed limit, above the map, outside the speed lines), or below the
+ * map (a light load the compressor meets turning slower than its lowest line).
+ */
+export type MapRegion = 'on-map' | 'below-map' | 'left-of-surge' | 'past-choke' | 'over-speed' | 'above-map' | 'outside-speed-lines';
+
+/** How a margin or speed of a point was found (see MarginBasis, SpeedBasis); 'no-limit' when no speed limit is given. */
+export interface PointMarginBasis {
+  surge: MarginBasis;
+  choke: MarginBasis;
+  speed: SpeedBasis | 'no-limit';
+}
 
 export interface Finding {
   code: FindingCode;
@@ -259,7 +312,8 @@ export interface Finding {
 }
 
 /** Where the compressor efficiency of a point came from. */
-export type EfficiencySource = 'map' | 'plan' | 'point';
+/** Where the compressor efficiency of a point came from; 'off-map-assumption' is the Plan's explicit off-map figure. */
+export type EfficiencySource = 'map' | 'plan' | 'point' | 'off-map-assumption';
 
 /** Every value of one solved operating point, SI. Values that do not apply are null. */
 export interface PointValues {
@@ -307,24 +361,42 @@ export interface PointValues {
   pressureRatio: number;
   /** True when the manifold is below compressor inlet pressure: the throttle takes the drop, PR is 1. */
   throttled: boolean;
-  /** Compressor isentropic efficiency used, fraction. */
-  compressorEfficiency: number;
+  /** Compressor isentropic efficiency used, fraction; null where the point is not reachable. */
+  compressorEfficiency: number | null;
   efficiencySource: EfficiencySource;
+  /**
+   * Where the point is not reachable: the efficiency its place on the map was estimated with
+   * (the Plan's), fraction. Null for reachable points.
+   */
+  placementEfficiency?: number | null;
   /** Isentropic outlet temperature T2s, K. */
   isentropicOutletTemperature: number;
-  /** Compressor outlet temperature T2, K. */
-  compressorOutletTemperature: number;
-  /** Shaft power of one compressor, W. */
-  compressorPower: number;
+  /** Compressor outlet temperature T2, K; null where the point is not reachable. */
+  compressorOutletTemperature: number | null;
+  /** Shaft power of one compressor, W; null where the point is not reachable. */
+  compressorPower: number | null;
   /** Passes of the manifold-temperature fixed point (1 when no iteration was needed). */
   iterations: number;
   converged: boolean;
-  /** Where the point lands on the map; null without a map. */
+  /** Where the point lands against the map's edges; null without a map. */
   mapLocation: MapLocation | null;
-  /** Turbocharger shaft speed, rpm, from the map. */
-/** Speed the map's speed lines give at the point (corrected speed, at the map's reference), rpm. */
+  /** Where the point sits for the builder (edges and speed limit together); null without a map. */
+  mapRegion?: MapRegion | null;
+  /**
+   * Whether the compressor can deliver the point, so that its results stand: true without a map
+   * (nothing to judge against), on the map and below it; false left of surge, past choke, over the
+   * speed limit, above the map and outside its speed lines, unless the Plan's off-map efficiency
+   * assumption covers it (past choke, above the map, outside the speed lines).
+   */
+  reachable?: boolean;
+  /** True where the point's results rest on the Plan's off-map efficiency assumption. */
+  offMapAssumed?: boolean;
+  /** How each margin and the shaft speed were found; null without a map. */
+  marginBasis?: PointMarginBasis | null;
+  /** Speed the map gives at the point (corrected speed, at the map's reference), rpm: between its speed lines, or extrapolated along its edge. */
   correctedShaftSpeed: number | null;
-    shaftSpeed: number | null;
+  /** Turbocharger shaft speed, rpm: the corrected speed at the inlet's temperature. */
+  shaftSpeed: number | null;
   /** Surge margin (ṁc − ṁc,surge(PR))/ṁc, fraction. */
   surgeMargin: number | null;
   /** Choke margin (ṁc,choke(PR) − ṁc)/ṁc, fraction. */
@@ -353,6 +425,8 @@ export interface PointValues {
   torque: number | null;
   /** Fuel actually injected per brake power, kg/J (higher than the burnt-fuel BSFC when rich). */
   apparentBsfc: number | null;
+  /** What sets the brake power: the air (lambda at or below 1: the fuel it can burn) or the fuel (lean: all of it burns). */
+  powerLimitedBy?: 'air' | 'fuel' | null;
   /** Pressure difference across the injectors, Pa. */
   injectorPressureDifference: number | null;
   /** Which injectors are open: primaries alone or both sets. */
@@ -488,6 +562,8 @@ export interface LineContext {
   reference: MapReference;
   referenceFrom: 'map' | 'plan' | 'standard';
   hasMap: boolean;
+  /** The study's required margins and limits, defaults filled in (absent: the defaults). */
+  requirements?: Required<RequirementsInput>;
   /** The exhaust side of the line; absent or null when the Plan has none. */
   exhaust?: LineExhaustContext | null;
 }
@@ -517,9 +593,11 @@ export interface ValueAtRpm {
 
 /** The exhaust figures of a whole operating line (for Side by side and the line's headline). */
 export interface ExhaustLineSummary {
-  /** Boost threshold: the first engine speed of the line that holds the boost target, rpm; null when none does. */
+  /** Boost threshold: the first engine speed of the line that holds the boost target, rpm; null when none does or none asks for boost. */
   boostThresholdRpm: number | null;
-  /** Highest drive pressure ratio p3/p_man of the line. */
+  /** Whether any point of the line asks for boost (a target above ambient); a line that never does has no threshold. */
+  boostAsked?: boolean;
+  /** Highest drive pressure ratio p3/p_man of the line, over the points that hold their boost target. */
   peakDrivePressureRatio: ValueAtRpm | null;
   /** Largest valve diameter each gate needs on the line, m (the worst point). */
   wastegateDiameterNeeded: ValueAtRpm | null;

@@ -45,18 +45,68 @@ export const mapReferenceSchema = z.strictObject({
   pressure: num('reference pressure').min(10_000, 'reference pressure is absolute, in Pa: at least 10 000 Pa').max(200_000, 'reference pressure is absolute, in Pa: at most 200 000 Pa'),
 });
 
+/** Barometric pressures the atmosphere gives where engines run, Pa: about 11 km up to a deep low below sea level (ISO 2533 ISA; from memory for the weather). */
+export const AMBIENT_PRESSURE_RANGE = [20_000, 120_000] as const;
+/** Air temperatures engines meet, K: −73 °C to +67 °C, wider than any recorded weather (from memory). */
+export const AMBIENT_TEMPERATURE_LIMITS = [200, 340] as const;
+
+/** A whole number with thin groups of three: 101 325. */
+const spaced = (n: number) => String(n).replace(/\B(?=(\d{3})+(?!\d))/g, ' ');
+
+/** Why an ambient pressure (Pa absolute) cannot be, with the unit slip it most likely is; null when it can be. */
+export function ambientPressureIssue(pa: number): string | null {
+  const [low, high] = AMBIENT_PRESSURE_RANGE;
+  if (pa >= low && pa <= high) return null;
+  const base = `ambient pressure is absolute, in Pa: between ${spaced(low)} and ${spaced(high)} Pa (sea level is 101 325 Pa)`;
+  const slip =
+    pa >= low / 1000 && pa <= high / 1000
+      ? `: ${pa} looks like kPa; write ${Math.round(pa * 1000)}`
+      : pa >= low / 100_000 && pa <= high / 100_000
+        ? `: ${pa} looks like bar; write ${Math.round(pa * 100_000)}`
+        : pa >= low / 6894.757 && pa <= high / 6894.757
+          ? `: ${pa} looks like psi; write ${Math.round(pa * 6894.757)}`
+          : pa > high && pa <= high * 10
+            ? ': is this gauge pressure added to the atmosphere, or hPa × 10?'
+            : '';
+  return `${base}${slip}`;
+}
+
+/** Why an ambient temperature (K) cannot be, with the unit slip it most likely is; null when it can be. */
+export function ambientTemperatureIssue(k: number): string | null {
+  const [low, high] = AMBIENT_TEMPERATURE_LIMITS;
+  if (k >= low && k <= high) return null;
+  const base = `ambient temperature is absolute, in K, between ${low} and ${high} K (−73 to +67 °C)`;
+  const slip =
+    k >= low - 273.15 && k <= high - 273.15
+      ? `: ${k} looks like °C; write ${Number((k + 273.15).toFixed(2))}`
+      : k >= low * 1.8 && k <= high * 1.8
+        ? `: ${k} looks like °R; write ${Number((k / 1.8).toFixed(2))}`
+        : '';
+  return `${base}${slip}`;
+}
+
 /**
  * Ambient: `{ pressure, temperature }` or `{ altitude, temperature? }`. One strict object with a
  * check rather than a union, so a bad value is reported by its own field name.
  */
 export const ambientSchema = z
   .strictObject({
-    pressure: num('ambient pressure').gt(0, 'ambient pressure is absolute, in Pa: above 0').max(200_000, 'ambient pressure is absolute, in Pa: at most 200 000 Pa').optional(),
+    pressure: num('ambient pressure')
+      .check((c) => {
+        const issue = ambientPressureIssue(c.value);
+        if (issue) c.issues.push({ code: 'custom', input: c.value, message: issue });
+      })
+      .optional(),
     altitude: num('altitude')
       .min(ISA_MIN_HEIGHT, `altitude must be at least ${ISA_MIN_HEIGHT} m`)
       .max(ISA_TROPOPAUSE_HEIGHT, `altitude must be at most ${ISA_TROPOPAUSE_HEIGHT} m (the top of the ISA troposphere)`)
       .optional(),
-    temperature: temperature('ambient temperature').optional(),
+    temperature: num('ambient temperature')
+      .check((c) => {
+        const issue = ambientTemperatureIssue(c.value);
+        if (issue) c.issues.push({ code: 'custom', input: c.value, message: issue });
+      })
+      .optional(),
   })
   .superRefine((a, ctx) => {
     if (a.pressure !== undefined && a.altitude !== undefined) {
@@ -91,6 +141,22 @@ const ambientPressureOf = (a: AmbientInput | undefined): number | null => {
   const p = resolveAmbient(a).pressure;
   return isNum(p) ? p : null;
 };
+
+/** The study's required margins and limits (each absent one takes its default, REQUIREMENT_DEFAULTS). */
+export const requirementsSchema = z
+  .strictObject({
+    minSurgeMargin: num('minSurgeMargin').min(0, 'minSurgeMargin is a fraction, 0 or more').max(0.5, 'minSurgeMargin is a fraction (5 % = 0.05), at most 0.5').optional(),
+    minChokeMargin: num('minChokeMargin').min(0, 'minChokeMargin is a fraction, 0 or more').max(0.5, 'minChokeMargin is a fraction (5 % = 0.05), at most 0.5').optional(),
+    minSpeedMargin: num('minSpeedMargin').min(0, 'minSpeedMargin is a fraction, 0 or more').max(0.5, 'minSpeedMargin is a fraction (3 % = 0.03), at most 0.5').optional(),
+    maxCompressorOutletTemperature: temperature('maxCompressorOutletTemperature', 300, 700).optional(),
+    lambdaWarningUnderBoost: num('lambdaWarningUnderBoost').min(0.5, 'lambdaWarningUnderBoost must be at least 0.5').max(2, 'lambdaWarningUnderBoost must be at most 2').optional(),
+    lambdaLimitUnderBoost: num('lambdaLimitUnderBoost').min(0.5, 'lambdaLimitUnderBoost must be at least 0.5').max(2, 'lambdaLimitUnderBoost must be at most 2').optional(),
+    underBoostFrom: num('underBoostFrom').min(0, 'underBoostFrom is gauge pressure in Pa, 0 or more').max(500_000, 'underBoostFrom is gauge pressure in Pa (10 kPa = 10 000 Pa); at most 500 000').optional(),
+  })
+  .superRefine((r, ctx) => {
+    if (isNum(r.lambdaWarningUnderBoost) && isNum(r.lambdaLimitUnderBoost) && r.lambdaWarningUnderBoost > r.lambdaLimitUnderBoost)
+      ctx.addIssue({ code: 'custom', path: ['lambdaWarningUnderBoost'], message: 'the lambda warning must be at or below the lambda limit' });
+  });
 
 // ——— POST /api/compute ———
 
@@ -130,6 +196,7 @@ export const computeRequestSchema = z
     turbochargers: count('turbochargers', 8).optional(),
     mapReference: mapReferenceSchema.optional(),
     fuel: computeFuelSchema.optional(),
+    requirements: requirementsSchema.optional(),
     points: z
       .array(computePointSchema, { error: 'points must be a list' })
       .min(1, 'give at least one point')
@@ -163,8 +230,11 @@ export const computeResultPointSchema = z.strictObject({
   /** Per turbocharger, W. */
   compressorPower: z.number(),
   fuelMassFlow: z.number().optional(),
+  /** W: η_b·LHV·min(ṁ_fuel, ṁ_air/AFR_s), the fuel that burns. */
   brakePower: z.number().optional(),
   wheelPower: z.number().optional(),
+  /** What the engine finds at the point (outlet temperature, lean mixture under boost, input ranges), most severe first. */
+  findings: z.array(z.strictObject({ code: z.string(), severity: z.enum(['info', 'warning', 'limit']), message: z.string() })),
 });
 export const computeResponseSchema = z.strictObject({ points: z.array(computeResultPointSchema) });
 export type ComputeResultPoint = z.output<typeof computeResultPointSchema>;
@@ -333,6 +403,7 @@ export const planSchema = z.strictObject({
   name: name('plan name'),
   turbochargers: count('turbochargers', 8),
   compressorEfficiency: fraction('compressor efficiency'),
+  offMapEfficiency: fraction('off-map efficiency').optional(),
   maxShaftSpeed: num('max shaft speed').gt(0, 'max shaft speed must be above 0 rpm').max(500_000, 'max shaft speed must be at most 500 000 rpm').optional(),
   mapReference: mapReferenceSchema.optional(),
   exhaust: exhaustSchema.optional(),
@@ -347,6 +418,7 @@ export const studyInputSchema = z
     intercooler: intercoolerSchema,
     scenarios: z.array(scenarioSchema).min(1, 'a study needs at least one scenario').max(MAX_SCENARIOS, `at most ${MAX_SCENARIOS} scenarios`),
     plans: z.array(planSchema).min(1, 'a study needs at least one plan').max(MAX_PLANS, `at most ${MAX_PLANS} plans`),
+    requirements: requirementsSchema.optional(),
   })
   .superRefine((study, ctx) => {
     const seen = (list: { name: string }[], key: 'scenarios' | 'plans', what: string) => {

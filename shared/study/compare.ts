@@ -2,14 +2,21 @@
  * Side by side: the table of differences between two to four operating lines (Plan × Scenario ×
  * boost row). One row per figure, one cell per line, the best cell of each row marked. Pure and
  * SI, so the screen, the report and the tests read the same numbers.
+ *
+ * Best is only ever given to a value a builder could choose: never to a line whose plan does not
+ * fit, never to a value found at a point past a limit (a negative margin, a point the compressor
+ * cannot deliver, a point with a finding at a limit). Peaks are taken over reachable points only,
+ * and counts are of points, not of findings.
  */
-import type { ExhaustLineSummary, OperatingLine, PointValues, Severity, ValueAtRpm } from '../matching/types';
+import type { VerdictStatus } from '../matching/verdict';
+import type { ExhaustLineSummary, OperatingLine, OperatingPoint, PointValues, Severity, ValueAtRpm } from '../matching/types';
 import type { WorkingKind } from '../matching/working';
 
 /** Which end of a row is better; "none" rows are there to read beside another row. */
 export type BestRule = 'highest' | 'lowest' | 'none';
 
 export type CompareRowKey =
+  | 'planVerdict'
   | 'minSurgeMargin'
   | 'minChokeMargin'
   | 'minSpeedMargin'
@@ -26,9 +33,9 @@ export type CompareRowKey =
   | 'wastegateDiameterNeeded'
   | 'wastegateDiameterFitted'
   | 'turbineInletPressureAtPeakPower'
-  | 'limitFindings'
-  | 'warningFindings'
-  | 'infoFindings';
+  | 'pointsAtLimit'
+  | 'pointsWithWarnings'
+  | 'pointsWithNotes';
 
 export interface CompareCell {
   /** SI value of the figure for this line; null when no point of the line gives it (e.g. no map). */
@@ -41,9 +48,16 @@ export interface CompareCell {
    * when the line's Plan has no exhaust side (or no turbine map). Absent on every other cell.
    */
   note?: CompareCellNote;
+  /** The plan's verdict (the verdict row only). */
+  verdict?: VerdictStatus;
+  /**
+   * True when the value was found past a limit (a negative margin, a point the compressor cannot
+   * deliver or one with a finding at a limit), or the line's plan does not fit: never marked best.
+   */
+  excluded?: boolean;
 }
 
-export type CompareCellNote = 'not-reached' | 'no-exhaust';
+export type CompareCellNote = 'not-reached' | 'no-exhaust' | 'no-boost-asked';
 
 export interface CompareRow {
   key: CompareRowKey;
@@ -62,8 +76,12 @@ export interface CompareRow {
   bestIndices: number[];
 }
 
-/** What compareLines reads of a line: its points and exhaust figures (a whole OperatingLine fits). */
-export type ComparableLine = Pick<OperatingLine, 'points'> & { exhaust?: ExhaustLineSummary | null };
+/** What compareLines reads of a line: its points, exhaust figures and its plan's verdict (a whole OperatingLine fits). */
+export type ComparableLine = Pick<OperatingLine, 'points'> & {
+  exhaust?: ExhaustLineSummary | null;
+  /** The verdict of the line's plan (planVerdicts); absent: not judged here, and nothing is excluded for it. */
+  planVerdict?: VerdictStatus | null;
+};
 
 type Extreme = 'min' | 'max';
 
@@ -76,11 +94,14 @@ interface ValueRowSpec {
   /** Which point of the line gives the cell. */
   extreme: Extreme;
   value: (v: PointValues) => number | null;
+  /** A margin: found at any point, reachable or not (a negative one is the news); peaks are taken over reachable points only. */
+  margin?: boolean;
 }
 
 const valueRows: ValueRowSpec[] = [
   {
     key: 'minSurgeMargin',
+    margin: true,
     label: 'Smallest surge margin',
     kind: 'fraction',
     best: 'highest',
@@ -90,6 +111,7 @@ const valueRows: ValueRowSpec[] = [
   },
   {
     key: 'minChokeMargin',
+    margin: true,
     label: 'Smallest choke margin',
     kind: 'fraction',
     best: 'highest',
@@ -99,6 +121,7 @@ const valueRows: ValueRowSpec[] = [
   },
   {
     key: 'minSpeedMargin',
+    margin: true,
     label: 'Smallest speed margin',
     kind: 'fraction',
     best: 'highest',
@@ -172,9 +195,9 @@ const valueRows: ValueRowSpec[] = [
 ];
 
 const severityRows: { key: CompareRowKey; label: string; severity: Severity; bestMeaning: string }[] = [
-  { key: 'limitFindings', label: 'Findings at a limit', severity: 'limit', bestMeaning: 'lowest: fewest' },
-  { key: 'warningFindings', label: 'Warnings', severity: 'warning', bestMeaning: 'lowest: fewest' },
-  { key: 'infoFindings', label: 'Notes (info)', severity: 'info', bestMeaning: 'lowest: fewest' },
+  { key: 'pointsAtLimit', label: 'Points at a limit', severity: 'limit', bestMeaning: 'lowest: fewest points with a finding at a limit' },
+  { key: 'pointsWithWarnings', label: 'Points with warnings', severity: 'warning', bestMeaning: 'lowest: fewest points whose worst finding is a warning' },
+  { key: 'pointsWithNotes', label: 'Points with notes only', severity: 'info', bestMeaning: 'lowest: fewest points whose worst finding is a note' },
 ];
 
 interface ExhaustRowSpec {
@@ -202,9 +225,11 @@ const exhaustRows: ExhaustRowSpec[] = [
     cell: (s, line) =>
       s.boostThresholdRpm !== null
         ? { value: s.boostThresholdRpm, rpm: null }
-        : exhaustComputed(line)
-          ? { value: null, rpm: null, note: 'not-reached' }
-          : { value: null, rpm: null },
+        : s.boostAsked === false
+          ? { value: null, rpm: null, note: 'no-boost-asked' }
+          : exhaustComputed(line)
+            ? { value: null, rpm: null, note: 'not-reached' }
+            : { value: null, rpm: null },
   },
   {
     key: 'peakDrivePressureRatio',
@@ -246,6 +271,7 @@ const exhaustRows: ExhaustRowSpec[] = [
  * 'peakPressureRatio': see compareRowKeys.
  */
 export const COMPARE_ROW_KEYS: readonly CompareRowKey[] = [
+  'planVerdict',
   'minSurgeMargin',
   'minChokeMargin',
   'minSpeedMargin',
@@ -257,9 +283,9 @@ export const COMPARE_ROW_KEYS: readonly CompareRowKey[] = [
   'peakInjectorDuty',
   'peakCompressorOutletTemperature',
   'peakPressureRatio',
-  'limitFindings',
-  'warningFindings',
-  'infoFindings',
+  'pointsAtLimit',
+  'pointsWithWarnings',
+  'pointsWithNotes',
 ];
 
 /** The exhaust rows, in order; compareLines adds them after 'peakPressureRatio' when some line has an exhaust side. */
@@ -272,25 +298,45 @@ export function compareRowKeys(withExhaust: boolean): CompareRowKey[] {
   return [...COMPARE_ROW_KEYS.slice(0, at), ...EXHAUST_ROW_KEYS, ...COMPARE_ROW_KEYS.slice(at)];
 }
 
+/** Whether a point is past a limit: the compressor cannot deliver it, or it has a finding at a limit. */
+function pastLimit(point: OperatingPoint): boolean {
+  return point.values?.reachable === false || point.findings.some((f) => f.severity === 'limit');
+}
+
 /**
  * The point of a line with the smallest or largest value; the first such point (lowest rpm) on
- * ties. Unsolved points and values that are null or not finite are skipped.
+ * ties. Unsolved points and values that are null or not finite are skipped, and so are points the
+ * compressor cannot deliver unless `anyPoint` (margins, whose negative values are the news).
  */
-function extremeOf(line: ComparableLine, value: (v: PointValues) => number | null, extreme: Extreme): CompareCell {
+function extremeOf(line: ComparableLine, value: (v: PointValues) => number | null, extreme: Extreme, anyPoint: boolean): CompareCell {
   let best: CompareCell = { value: null, rpm: null };
+  let at: OperatingPoint | null = null;
   for (const point of line.points) {
-    if (!point.solved) continue;
+    if (!point.solved || (!anyPoint && point.values.reachable === false)) continue;
     const x = value(point.values);
     if (x === null || !Number.isFinite(x)) continue;
-    if (best.value === null || (extreme === 'min' ? x < best.value : x > best.value)) best = { value: x, rpm: point.rpm };
+    if (best.value === null || (extreme === 'min' ? x < best.value : x > best.value)) {
+      best = { value: x, rpm: point.rpm };
+      at = point;
+    }
   }
+  if (at && (pastLimit(at) || (anyPoint && best.value !== null && best.value < 0))) best.excluded = true;
   return best;
 }
 
-function countFindings(line: ComparableLine, severity: Severity): number {
+/** Points of the line whose worst finding has this severity. */
+function countPoints(line: ComparableLine, severity: Severity): number {
   let n = 0;
-  for (const point of line.points) for (const f of point.findings) if (f.severity === severity) n++;
+  for (const point of line.points) {
+    const worst = point.findings.reduce<Severity | null>((w, f) => (w === 'limit' || f.severity === 'limit' ? 'limit' : w === 'warning' || f.severity === 'warning' ? 'warning' : 'info'), null);
+    if (worst === severity) n++;
+  }
   return n;
+}
+
+/** Marks every cell of a line whose plan does not fit as excluded from best. */
+function excludeUnfit(cells: CompareCell[], lines: readonly ComparableLine[]): CompareCell[] {
+  return cells.map((c, i) => (lines[i]?.planVerdict === 'does-not-fit' ? { ...c, excluded: true } : c));
 }
 
 /** Values within this relative distance of each other are a tie (rounding in the engine, not a difference). */
@@ -300,14 +346,20 @@ function isTie(a: number, b: number): boolean {
   return Math.abs(a - b) <= TIE_TOLERANCE * Math.max(1, Math.abs(a), Math.abs(b));
 }
 
-/** Indices of the best cells by the rule; see CompareRow.bestIndices for when there are none. */
+/**
+ * Indices of the best cells by the rule, among the cells not excluded; see CompareRow.bestIndices
+ * for when there are none.
+ */
 export function bestIndicesOf(cells: readonly CompareCell[], rule: BestRule): number[] {
   if (rule === 'none') return [];
-  const given = cells.flatMap((c, i) => (c.value === null ? [] : [{ i, value: c.value }]));
+  const given = cells.flatMap((c, i) => (c.value === null ? [] : [{ i, value: c.value, excluded: c.excluded === true }]));
   if (given.length < 2) return [];
-  const target = given.reduce((best, c) => (rule === 'highest' ? Math.max(best, c.value) : Math.min(best, c.value)), given[0].value);
-  const winners = given.filter((c) => isTie(c.value, target)).map((c) => c.i);
-  return winners.length === given.length ? [] : winners;
+  const eligible = given.filter((c) => !c.excluded);
+  if (eligible.length === 0) return [];
+  const target = eligible.reduce((best, c) => (rule === 'highest' ? Math.max(best, c.value) : Math.min(best, c.value)), eligible[0].value);
+  const winners = eligible.filter((c) => isTie(c.value, target)).map((c) => c.i);
+  // Every value the same: there is nothing to choose.
+  return given.every((c) => isTie(c.value, target)) ? [] : winners;
 }
 
 /**
@@ -317,12 +369,15 @@ export function bestIndicesOf(cells: readonly CompareCell[], rule: BestRule): nu
  */
 function thresholdBest(cells: readonly CompareCell[]): number[] {
   // Number.MAX_VALUE, not Infinity: it compares after every speed and is no tie with any of them.
-  const ranked = cells.map((c) => (c.note === 'not-reached' ? { value: Number.MAX_VALUE, rpm: null } : c));
+  const ranked = cells.map((c) => (c.note === 'not-reached' ? { ...c, value: Number.MAX_VALUE } : c));
   return bestIndicesOf(ranked, 'lowest');
 }
 
 function exhaustRow(spec: ExhaustRowSpec, lines: readonly ComparableLine[]): CompareRow {
-  const cells = lines.map((line): CompareCell => (line.exhaust ? spec.cell(line.exhaust, line) : { value: null, rpm: null, note: 'no-exhaust' }));
+  const cells = excludeUnfit(
+    lines.map((line): CompareCell => (line.exhaust ? spec.cell(line.exhaust, line) : { value: null, rpm: null, note: 'no-exhaust' })),
+    lines,
+  );
   const bestIndices = spec.key === 'boostThresholdRpm' ? thresholdBest(cells) : bestIndicesOf(cells, spec.best);
   return { key: spec.key, label: spec.label, kind: spec.kind, best: spec.best, bestMeaning: spec.bestMeaning, cells, bestIndices };
 }
@@ -334,9 +389,22 @@ function exhaustRow(spec: ExhaustRowSpec, lines: readonly ComparableLine[]): Com
  * (otherwise the rows are exactly COMPARE_ROW_KEYS); finding counts from every point.
  */
 export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
-  const rows: CompareRow[] = [];
+  const rows: CompareRow[] = [
+    {
+      key: 'planVerdict',
+      label: 'Plan verdict',
+      kind: 'none',
+      best: 'none',
+      bestMeaning: 'no best: read it first; best values are marked only for plans that fit',
+      cells: lines.map((line) => ({ value: null, rpm: null, verdict: line.planVerdict ?? 'not-judged' })),
+      bestIndices: [],
+    },
+  ];
   for (const spec of valueRows) {
-    const cells = lines.map((line) => extremeOf(line, spec.value, spec.extreme));
+    const cells = excludeUnfit(
+      lines.map((line) => extremeOf(line, spec.value, spec.extreme, spec.margin === true)),
+      lines,
+    );
     rows.push({ key: spec.key, label: spec.label, kind: spec.kind, best: spec.best, bestMeaning: spec.bestMeaning, cells, bestIndices: bestIndicesOf(cells, spec.best) });
     if (spec.key === 'peakBrakePower') {
       // Where the peak comes matters as much as its size, but neither end is "better" by itself.
@@ -356,7 +424,10 @@ export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
     }
   }
   for (const spec of severityRows) {
-    const cells = lines.map((line) => ({ value: countFindings(line, spec.severity), rpm: null }));
+    const cells = excludeUnfit(
+      lines.map((line) => ({ value: countPoints(line, spec.severity), rpm: null })),
+      lines,
+    );
     rows.push({ key: spec.key, label: spec.label, kind: 'count', best: 'lowest', bestMeaning: spec.bestMeaning, cells, bestIndices: bestIndicesOf(cells, 'lowest') });
   }
   return rows;

@@ -1,6 +1,7 @@
 import type { Annotation, Data, Layout, Shape } from 'plotly.js-dist-min';
 import { DRIVE_PRESSURE_RATIO_WARNING } from '../../../shared/matching/exhaust-findings';
-import { COMPRESSOR_OUTLET_TEMPERATURE_WARNING, INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '../../../shared/matching/findings';
+import { INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '../../../shared/matching/findings';
+import { REQUIREMENT_DEFAULTS } from '../../../shared/matching/requirements';
 import type { PointValues, SolvedPoint } from '../../../shared/matching/types';
 import type { UnitSystem } from '../../lib/units';
 import type { PlotFigure } from '../plots/compressor-map-figure';
@@ -137,7 +138,7 @@ function guide(y: number, colour: string, label: string, axis: number): { shape:
 }
 
 /** Lines drawn across a panel where the engine raises a finding. */
-function guides(view: CurveView, system: UnitSystem, outletTemperatureLimit: number | null) {
+function guides(view: CurveView, system: UnitSystem, outletTemperatureLimit: number | null, outletTemperatureAccepted: number) {
   const out: { shape: Partial<Shape>; annotation: Partial<Annotation> }[] = [];
   if (view.id === 'injector-duty') {
     out.push(guide(INJECTOR_DUTY_WARNING * 100, plotColours.copper, `${formatNumber(INJECTOR_DUTY_WARNING * 100)} % usual ceiling`, 1));
@@ -145,7 +146,7 @@ function guides(view: CurveView, system: UnitSystem, outletTemperatureLimit: num
   }
   if (view.id === 'outlet-temperature') {
     const unit = quantityUnit('temperature', system);
-    out.push(guide(unit.fromSI(COMPRESSOR_OUTLET_TEMPERATURE_WARNING), plotColours.copper, `${formatStudyValue(COMPRESSOR_OUTLET_TEMPERATURE_WARNING, 'temperature', system)} warning`, 1));
+    out.push(guide(unit.fromSI(outletTemperatureAccepted), plotColours.copper, `${formatStudyValue(outletTemperatureAccepted, 'temperature', system)} accepted`, 1));
     if (outletTemperatureLimit !== null) out.push(guide(unit.fromSI(outletTemperatureLimit), plotColours.limit, `${formatStudyValue(outletTemperatureLimit, 'temperature', system)} stated limit`, 1));
   }
   if (view.id === 'exhaust-pressure') out.push(guide(DRIVE_PRESSURE_RATIO_WARNING, plotColours.copper, `${formatNumber(DRIVE_PRESSURE_RATIO_WARNING)} high`, 2));
@@ -257,7 +258,7 @@ export function rpmCurvesFigure({
     ...plotAxis,
     title: { font: { ...plotFont, size: 12 } },
   };
-  const g = guides(view, unitSystem, outletTemperatureLimit);
+  const g = guides(view, unitSystem, outletTemperatureLimit, lines[0]?.line.context.requirements?.maxCompressorOutletTemperature ?? REQUIREMENT_DEFAULTS.maxCompressorOutletTemperature);
   const layout: Partial<Layout> = {
     height,
     autosize: true,

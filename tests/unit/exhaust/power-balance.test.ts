@@ -6,6 +6,8 @@ import { demoCompressor, demoTurbine, exhaustOf, exhaustStudy, expectClose, scal
 const smallTurbine = () => turbineModelFromMap(demoTurbine('ar064-single'));
 const largeTurbine = () => turbineModelFromMap(demoTurbine('ar082-single'));
 const valuesOf = (line: OperatingLine): PointValues[] => line.points.map(solved);
+/** Points the compressor can deliver: the rest carry no results (and no exhaust side) to check. */
+const reachableOf = (line: OperatingLine): PointValues[] => valuesOf(line).filter((v) => v.reachable);
 
 function run(turbines: TurbineModel[], exhausts = turbines.map(() => exhaustOf())) {
   const study = exhaustStudy(exhausts);
@@ -15,7 +17,7 @@ function run(turbines: TurbineModel[], exhausts = turbines.map(() => exhaustOf()
 
 describe('the quasi-steady power balance at every point', () => {
   const result = run([smallTurbine(), largeTurbine()]);
-  const all = result.lines.flatMap(valuesOf);
+  const all = result.lines.flatMap(reachableOf);
 
   it('meets all three cases of the physics note on these lines', () => {
     const cases = new Set(all.map((v) => v.exhaustCase));
@@ -28,12 +30,13 @@ describe('the quasi-steady power balance at every point', () => {
     for (const line of result.lines)
       for (const p of line.points) {
         const v = solved(p);
-        if (v.exhaustCase === 'gate-open') expectClose(0.95 * v.turbinePower!, v.compressorPower, 1e-6, `${v.rpm} rpm`); // NASA Glenn matching; solved to 1e-6 of P_c
+        if (!v.reachable) continue;
+        if (v.exhaustCase === 'gate-open') expectClose(0.95 * v.turbinePower!, v.compressorPower!, 1e-6, `${v.rpm} rpm`); // NASA Glenn matching; solved to 1e-6 of P_c
         if (v.exhaustCase !== 'target-not-held') continue;
         // At a compressor-map edge the compressor's state may not settle: then the point says so.
         const flagged = p.findings.some((f) => f.code === 'exhaust-not-converged');
         if (!flagged) {
-          expectClose(0.95 * v.turbinePower!, v.compressorPower, 1e-4, `${v.rpm} rpm held`); // same balance, boost found to 10 Pa
+          expectClose(0.95 * v.turbinePower!, v.compressorPower!, 1e-4, `${v.rpm} rpm held`); // same balance, boost found to 10 Pa
           held++;
         } else expect(p.findings.some((f) => f.code === 'not-converged')).toBe(true); // only where the compressor side did not settle
       }
@@ -107,7 +110,8 @@ describe('the quasi-steady power balance at every point', () => {
     const s = line.exhaust!;
     const vs = valuesOf(line);
     expect(s.boostThresholdRpm).toBe(vs.find((v) => v.targetHeld)!.rpm); // the first rpm that holds target (definition)
-    expect(s.peakDrivePressureRatio!.value).toBe(Math.max(...vs.map((v) => v.drivePressureRatio!)));
+    // Over the points at their target boost only: below the threshold p3/p_man of a barely boosted manifold says little.
+    expect(s.peakDrivePressureRatio!.value).toBe(Math.max(...vs.filter((v) => v.targetHeld && v.drivePressureRatio !== null).map((v) => v.drivePressureRatio!)));
     expect(s.wastegateDiameterNeeded!.value).toBe(Math.max(...vs.map((v) => v.wastegateDiameterNeeded ?? 0)));
     expect(s.wastegateDiameterFitted).toBe(0.04);
     const peak = vs.reduce((m, v) => (v.brakePower! > m.brakePower! ? v : m));
@@ -127,6 +131,8 @@ describe('a divided housing with per-scroll maps and two gates', () => {
     const a = valuesOf(single);
     const b = valuesOf(divided);
     for (let i = 0; i < a.length; i++) {
+      expect(b[i].reachable).toBe(a[i].reachable);
+      if (!a[i].reachable) continue;
       for (const key of ['boost', 'expansionRatio', 'turbineInletPressure', 'drivePressureRatio', 'turbinePower', 'turbineMassFlow', 'wastegateFraction', 'compressorPower'] as const)
         expectClose(b[i][key] as number, a[i][key] as number, 1e-9, `${key} at ${a[i].rpm} rpm`); // two scrolls in parallel at one p3 are one turbine of twice the scroll's capacity (physics note §5)
       expectClose(b[i].turbineMapFlowParameter!, a[i].turbineFlowParameter! / 2, 1e-9); // placed on the per-scroll map at half the flow (definition)

@@ -59,7 +59,7 @@ describe('reading a compressor map', () => {
     expectClose(reading.efficiency, 0.66, 1e-6);
   });
 
-  it('says where a point off the map is, and gives no efficiency or speed there', () => {
+  it('says where a point off the map is, and gives no efficiency there', () => {
     const cases: Array<[number, number, string]> = [
       [0.03, 1.5, 'left-of-surge'], // surge flow at 1.5 is 0.065 kg/s
       [0.3, 1.5, 'beyond-choke'], // choke flow at 1.5 is 0.19 kg/s
@@ -70,8 +70,6 @@ describe('reading a compressor map', () => {
       const reading = tiny.read(flow, ratio);
       expect(reading.location, `${flow} kg/s, PR ${ratio}`).toBe(location);
       expect(reading.efficiency).toBeNull();
-      expect(reading.shaftSpeed).toBeNull();
-      expect(reading.speedMargin).toBeNull();
     }
     // (0.03 − 0.065)/0.03: negative, the point is past the surge line (by hand)
     expectClose(tiny.read(0.03, 1.5).surgeMargin, -1.1666666667, 1e-9);
@@ -79,11 +77,26 @@ describe('reading a compressor map', () => {
     expectClose(tiny.read(0.3, 1.5).chokeMargin, -0.3666666667, 1e-9);
     // No surge line at PR 1.05 (it starts at 1.2): no surge margin rather than an extrapolated one.
     expect(tiny.read(0.12, 1.05).surgeMargin).toBeNull();
+    expect(tiny.read(0.12, 1.05).surgeMarginBasis).toBe('below-surge-line');
+    // No speed past choke below the top line, nor below the lowest line: the map cannot say.
+    expect(tiny.read(0.3, 1.5).shaftSpeed).toBeNull();
+    expect(tiny.read(0.3, 1.5).speedBasis).toBe('past-choke');
+    expect(tiny.read(0.12, 1.05).shaftSpeed).toBeNull();
   });
 
   it('returns "off-map" for input that is not a flow and a ratio', () => {
     for (const [flow, ratio] of [[Number.NaN, 1.5], [0.1, Number.POSITIVE_INFINITY], [-0.1, 1.5], [0, 1.5]]) {
-      expect(tiny.read(flow, ratio)).toEqual({ efficiency: null, shaftSpeed: null, surgeMargin: null, chokeMargin: null, speedMargin: null, location: 'off-map' });
+      expect(tiny.read(flow, ratio)).toEqual({
+        efficiency: null,
+        shaftSpeed: null,
+        surgeMargin: null,
+        chokeMargin: null,
+        speedMargin: null,
+        location: 'off-map',
+        surgeMarginBasis: 'no-map',
+        chokeMarginBasis: 'no-map',
+        speedBasis: 'no-map',
+      });
     }
   });
 

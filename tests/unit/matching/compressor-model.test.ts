@@ -18,10 +18,10 @@ describe('a compressor model supplied with the plan', () => {
     expect(v.converged).toBe(true); // a plane settles in a few passes
     expect(v.iterations).toBeGreaterThan(1); // efficiency depends on flow, so it takes more than one pass
     // At the fixed point the efficiency read at the final corrected flow is the one used (plane a + b·ṁc + c·PR)
-    expectClose(model.read(v.correctedMassFlow, v.pressureRatio).efficiency!, v.compressorEfficiency, 1e-6);
+    expectClose(model.read(v.correctedMassFlow, v.pressureRatio).efficiency!, v.compressorEfficiency!, 1e-6);
     // …and the manifold temperature follows from T2 at that efficiency (ε = 0.7, coolant = ambient), Incropera & DeWitt §11.4
-    const t2 = compressorOutletTemperature(v.compressorInletTemperature, v.pressureRatio, v.compressorEfficiency);
-    expectClose(v.compressorOutletTemperature, t2, 1e-12);
+    const t2 = compressorOutletTemperature(v.compressorInletTemperature, v.pressureRatio, v.compressorEfficiency!);
+    expectClose(v.compressorOutletTemperature!, t2, 1e-12);
     expectClose(v.manifoldTemperature, t2 - 0.7 * (t2 - 298.15), 1e-12);
     expectClose(v.airDensity, v.manifoldPressure / (AIR_GAS_CONSTANT * v.manifoldTemperature), 1e-12); // ideal gas
     const working = pointWorking(line.context, line.points[3]);
@@ -60,27 +60,52 @@ describe('a compressor model supplied with the plan', () => {
     expectClose(step.result.value, v.shaftSpeed!, 1e-12);
   });
 
-  it('falls back to the plan efficiency off the map, with a finding', () => {
+  it('does not deliver a point outside the speed lines: placed with the plan efficiency, no results', () => {
     const model = fakeModel({ forceLocation: 'off-map' });
-    const p = runStudy(baseStudy(), { compressorModels: [model] }).lines[0].points[3];
+    const line = runStudy(baseStudy(), { compressorModels: [model] }).lines[0];
+    const p = line.points[3];
     const v = solved(p);
-    expect(v.efficiencySource).toBe('plan'); // design: fall back to the stated default
-    expect(v.compressorEfficiency).toBe(0.72); // the plan's (baseStudy)
-    expect(v.mapLocation).toBe('off-map');
-    expect(p.findings.map((f) => [f.code, f.severity])).toEqual(expect.arrayContaining([['efficiency-off-map', 'warning'], ['map-off-map', 'warning']]));
+    expect(v.mapRegion).toBe('outside-speed-lines');
+    expect(v.reachable).toBe(false); // the map cannot say the compressor runs there (design: "not reachable")
+    expect(v.placementEfficiency).toBe(0.72); // the plan's (baseStudy), used only to place the point
+    for (const key of ['compressorEfficiency', 'compressorOutletTemperature', 'compressorPower', 'brakePower', 'torque', 'fuelMassFlow', 'injectorDuty'] as const) expect(v[key], key).toBeNull();
+    expect(v.correctedMassFlow).toBeGreaterThan(0); // where it lies is still known
+    expect(p.findings.map((f) => [f.code, f.severity])).toEqual(expect.arrayContaining([['map-off-map', 'limit']]));
+    expect(p.findings.find((f) => f.code === 'map-off-map')?.message).toMatch(/Not reachable with this compressor/);
+  });
+
+  it('computes such a point on an explicit off-map efficiency, and names the assumption', () => {
+    const study = baseStudy();
+    study.plans[0].offMapEfficiency = 0.6;
+    const p = runStudy(study, { compressorModels: [fakeModel({ forceLocation: 'beyond-choke' })] }).lines[0].points[3];
+    const v = solved(p);
+    expect(v.reachable).toBe(true); // the assumption covers a point past choke (design)
+    expect(v.efficiencySource).toBe('off-map-assumption');
+    expect(v.compressorEfficiency).toBe(0.6); // the assumption, as given
+    expect(v.brakePower).toBeGreaterThan(0);
+    expect(p.findings.find((f) => f.code === 'off-map-assumption')?.severity).toBe('warning');
+    expect(p.findings.find((f) => f.code === 'map-beyond-choke')?.severity).toBe('limit'); // still past choke: the verdict still says so
+  });
+
+  it('never assumes surge or overspeed away', () => {
+    const study = baseStudy();
+    study.plans[0].offMapEfficiency = 0.6;
+    const v = solved(runStudy(study, { compressorModels: [fakeModel({ forceLocation: 'left-of-surge' })] }).lines[0].points[3]);
+    expect(v.reachable).toBe(false); // surge is a hard limit, not a gap in the map (design)
+    expect(v.brakePower).toBeNull();
   });
 
   const cases: [MapLocation, string, string][] = [
     ['left-of-surge', 'map-left-of-surge', 'limit'],
-    ['beyond-choke', 'map-beyond-choke', 'warning'],
+    ['beyond-choke', 'map-beyond-choke', 'limit'],
     ['above-top-speed', 'map-above-top-speed', 'limit'],
     ['below-map', 'map-below-map', 'info'],
-    ['off-map', 'map-off-map', 'warning'],
+    ['off-map', 'map-off-map', 'limit'],
   ];
   for (const [location, code, severity] of cases) {
     it(`turns "${location}" into finding ${code} (${severity})`, () => {
       const p = runStudy(baseStudy(), { compressorModels: [fakeModel({ forceLocation: location })] }).lines[0].points[0];
-      expect(p.findings.find((f) => f.code === code)?.severity).toBe(severity); // severities: design (red only for hard limits, product brief)
+      expect(p.findings.find((f) => f.code === code)?.severity).toBe(severity); // severities: design (a point the compressor cannot deliver is at a limit)
     });
   }
 

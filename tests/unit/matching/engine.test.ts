@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  COMPRESSOR_OUTLET_TEMPERATURE_WARNING,
+  REQUIREMENT_DEFAULTS,
   INJECTOR_DUTY_LIMIT,
   INJECTOR_DUTY_WARNING,
   runComputeRequest,
@@ -204,7 +204,7 @@ describe('a whole study', () => {
     const study = withBoost(baseStudy(), 250_000); // PR ≈ 3.6 at η 0.72: T2 ≈ 480 K
     study.engine.rpm = { kind: 'list', values: [5000] };
     const p = runStudy(study).lines[0].points[0];
-    expect(solved(p).compressorOutletTemperature).toBeGreaterThan(COMPRESSOR_OUTLET_TEMPERATURE_WARNING); // 200 °C, from memory
+    expect(solved(p).compressorOutletTemperature).toBeGreaterThan(REQUIREMENT_DEFAULTS.maxCompressorOutletTemperature); // 200 °C, from memory
     expect(p.findings.find((f) => f.code === 'compressor-outlet-temperature-high')?.severity).toBe('warning');
     study.engine.limits = { maxCompressorOutletTemperature: 453.15 };
     expect(runStudy(study).lines[0].points[0].findings.find((f) => f.code === 'compressor-outlet-temperature-limit')?.severity).toBe('limit'); // stated limit 180 °C

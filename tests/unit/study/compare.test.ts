@@ -116,24 +116,27 @@ describe('compareLines on three hand-made lines', () => {
     }
   });
 
-  it('takes the smallest margins and where they occur', () => {
+  it('takes the smallest margins and where they occur, and marks no value found past a limit', () => {
     // Hand-read: A's smallest surge margin 0.12 at 5000 rpm, B's −0.05 at 3000 rpm, C has no map.
     expect(values('minSurgeMargin')).toEqual([0.12, -0.05, null]);
     expect(rpms('minSurgeMargin')).toEqual([5000, 3000, null]);
     expect(best('minSurgeMargin')).toEqual([0]); // highest margin wins: A (hand-read)
+    expect(row(rows, 'minSurgeMargin').cells[1].excluded).toBe(true); // negative: past the surge line
     // Hand-read: A's smallest choke margin 0.05 at 7000 rpm; B's 0.35 at 5000 rpm (7000 unsolved).
     expect(values('minChokeMargin')).toEqual([0.05, 0.35, null]);
     expect(rpms('minChokeMargin')).toEqual([7000, 5000, null]);
-    expect(best('minChokeMargin')).toEqual([1]); // hand-read: B
-    // Hand-read: speed margins 0.10 (A, 5000 rpm) and 0.20 (B, 5000 rpm).
+    // B's 0.35 is found at a point with a finding at a limit: never best; A is the best of the rest (design).
+    expect(row(rows, 'minChokeMargin').cells[1].excluded).toBe(true);
+    expect(best('minChokeMargin')).toEqual([0]);
+    // Hand-read: speed margins 0.10 (A, 5000 rpm) and 0.20 (B, 5000 rpm, at a limit).
     expect(values('minSpeedMargin')).toEqual([0.1, 0.2, null]);
-    expect(best('minSpeedMargin')).toEqual([1]); // hand-read: B
+    expect(best('minSpeedMargin')).toEqual([0]);
   });
 
   it('takes the peaks, lowest wins for speed, duty, temperature and pressure ratio', () => {
-    // Hand-read: peak shaft speed 135 000 rpm (A) and 120 000 rpm (B); lowest wins: B.
+    // Hand-read: peak shaft speed 135 000 rpm (A) and 120 000 rpm (B, at a limit): A is the only eligible one.
     expect(values('peakShaftSpeed')).toEqual([135_000, 120_000, null]);
-    expect(best('peakShaftSpeed')).toEqual([1]);
+    expect(best('peakShaftSpeed')).toEqual([0]);
     // Hand-read: peak injector duty 0.82, 0.86, 0.75; lowest wins: C.
     expect(values('peakInjectorDuty')).toEqual([0.82, 0.86, 0.75]);
     expect(best('peakInjectorDuty')).toEqual([2]);
@@ -149,25 +152,53 @@ describe('compareLines on three hand-made lines', () => {
     // Hand-read: peak crank power 180 kW at 5000 rpm (A), 190 kW at 5000 rpm (B), 150 kW first at 4000 rpm (C).
     expect(values('peakBrakePower')).toEqual([180_000, 190_000, 150_000]);
     expect(rpms('peakBrakePower')).toEqual([5000, 5000, 4000]);
-    expect(best('peakBrakePower')).toEqual([1]); // highest wins: B (hand-read)
+    expect(best('peakBrakePower')).toEqual([0]); // B's is at a limit: A is highest of the rest (hand-read)
     expect(values('peakBrakePowerRpm')).toEqual([5000, 5000, 4000]); // hand-read, as above
     expect(best('peakBrakePowerRpm')).toEqual([]); // no best by definition of the row
-    // Hand-read: peak wheel power 153 kW, 161.5 kW, 127.5 kW; peak torque 344, 363, 358 N·m.
+    // Hand-read: peak wheel power 153 kW, 161.5 kW (at a limit), 127.5 kW; peak torque 344, 363 (at a limit), 358 N·m.
     expect(values('peakWheelPower')).toEqual([153_000, 161_500, 127_500]);
-    expect(best('peakWheelPower')).toEqual([1]);
+    expect(best('peakWheelPower')).toEqual([0]);
     expect(values('peakTorque')).toEqual([344, 363, 358]);
-    expect(best('peakTorque')).toEqual([1]);
+    expect(best('peakTorque')).toEqual([2]);
   });
 
-  it('counts findings by severity on every point, solved or not', () => {
-    // Hand-counted: A has 0 limit / 1 warning / 1 info; B has 3 limit (one on the unsolved point) / 0 / 1; C has 0 / 2 / 0.
-    expect(values('limitFindings')).toEqual([0, 3, 0]);
-    expect(best('limitFindings')).toEqual([0, 2]); // fewest, tie between A and C (hand-counted)
-    expect(values('warningFindings')).toEqual([1, 0, 2]);
-    expect(best('warningFindings')).toEqual([1]);
-    expect(values('infoFindings')).toEqual([1, 1, 0]);
-    expect(best('infoFindings')).toEqual([2]);
-    expect(rpms('limitFindings')).toEqual([null, null, null]); // counts have no rpm (definition)
+  it('counts points by their worst finding, solved or not', () => {
+    // Hand-counted: A's points are info / warning / none; B's limit+info / limit / limit (unsolved); C's warning×2 / none.
+    expect(values('pointsAtLimit')).toEqual([0, 3, 0]);
+    expect(best('pointsAtLimit')).toEqual([0, 2]); // fewest, tie between A and C (hand-counted)
+    expect(values('pointsWithWarnings')).toEqual([1, 0, 1]);
+    expect(best('pointsWithWarnings')).toEqual([1]);
+    expect(values('pointsWithNotes')).toEqual([1, 0, 0]);
+    expect(best('pointsWithNotes')).toEqual([1, 2]);
+    expect(rpms('pointsAtLimit')).toEqual([null, null, null]); // counts have no rpm (definition)
+  });
+});
+
+describe('compareLines with plan verdicts', () => {
+  const fits: ComparableLine = { ...lineA, planVerdict: 'fits' };
+  const unfit: ComparableLine = { points: [solved(3000, { surgeMargin: 0.4, brakePower: 250_000 })], planVerdict: 'does-not-fit' };
+
+  it('gives the verdict row first, with each line\'s plan verdict', () => {
+    const rows = compareLines([fits, unfit, lineC]);
+    expect(rows[0].key).toBe('planVerdict');
+    expect(rows[0].cells.map((c) => c.verdict)).toEqual(['fits', 'does-not-fit', 'not-judged']);
+    expect(rows[0].bestIndices).toEqual([]);
+  });
+
+  it('never marks a cell of a plan that does not fit, however good its value', () => {
+    const rows = compareLines([fits, unfit]);
+    // Hand-read: the unfit line has the higher surge margin (0.4 against 0.12) and power (250 against 180 kW).
+    expect(row(rows, 'minSurgeMargin').bestIndices).toEqual([0]);
+    expect(row(rows, 'peakBrakePower').bestIndices).toEqual([0]);
+    for (const r of rows) expect(r.bestIndices).not.toContain(1);
+  });
+
+  it('takes peaks over reachable points only', () => {
+    const line: ComparableLine = {
+      points: [solved(3000, { brakePower: 100_000 }), solved(7000, { brakePower: 300_000, reachable: false })],
+    };
+    // Hand-read: the 300 kW point cannot be delivered, so the peak is the 100 kW at 3000 rpm.
+    expect(row(compareLines([line]), 'peakBrakePower').cells[0]).toMatchObject({ value: 100_000, rpm: 3000 });
   });
 });
 
@@ -202,7 +233,7 @@ describe('compareLines on edge cases', () => {
       { value: null, rpm: null },
     ]);
     expect(row(rows, 'peakBrakePower').bestIndices).toEqual([]); // only one value: no comparison (definition)
-    expect(row(rows, 'limitFindings').cells.map((c) => c.value)).toEqual([0, 1]); // hand-counted
+    expect(row(rows, 'pointsAtLimit').cells.map((c) => c.value)).toEqual([0, 1]); // hand-counted
   });
 
   it('returns the rows with no cells for no lines', () => {
@@ -232,7 +263,9 @@ describe('compareLines properties', () => {
           expect(surge.cells[i].value).toBe(surges.length ? Math.min(...surges) : null);
           expect(power.cells[i].value).toBe(powers.length ? Math.max(...powers) : null);
         });
-        const given = surge.cells.map((c) => c.value).filter((x): x is number => x !== null);
+        // A negative margin is past the surge line: never marked (design); the best is taken among the rest.
+        const given = surge.cells.map((c) => c.value).filter((x): x is number => x !== null && x >= 0);
+        for (const i of surge.bestIndices) expect(surge.cells[i].value!).toBeGreaterThanOrEqual(0);
         // Highest margin wins (definition), ties within the 1e-9 tolerance included.
         for (const i of surge.bestIndices) expect(Math.abs(surge.cells[i].value! - Math.max(...given))).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(Math.max(...given))));
         // A cell clearly below the best is never marked.
@@ -290,7 +323,7 @@ describe('compareLines with an exhaust side', () => {
     const keys = compareLines([small, compressorOnly]).map((r) => r.key);
     expect(keys).toEqual(compareRowKeys(true));
     // The documented order, written out (definition of the rows).
-    expect(keys.slice(keys.indexOf('peakPressureRatio'), keys.indexOf('limitFindings'))).toEqual([
+    expect(keys.slice(keys.indexOf('peakPressureRatio'), keys.indexOf('pointsAtLimit'))).toEqual([
       'peakPressureRatio',
       'boostThresholdRpm',
       'peakDrivePressureRatio',
