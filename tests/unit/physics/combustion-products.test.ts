@@ -75,7 +75,7 @@ function byHand(moles: Record<string, number>, t: number) {
 }
 
 /** Products per kg of fuel CcHhOo at λ, worked by hand: lean by complete combustion; rich by solving the water-gas balance by bisection. */
-function productsByHand(c: number, h: number, o: number, lambda: number) {
+function productsByHand(c: number, h: number, o: number, lambda: number): Record<string, number> {
   const o2st = c + h / 4 - o / 2;
   const o2 = lambda * o2st;
   const n2 = 3.773 * o2; // Heywood 1988, §3.1
