@@ -83,43 +83,43 @@ describe('merging coincident map points', () => {
 // (as a text editor counts) are on the right; header lines 1–8, column names on line 9.
 const HAND_MAP = `# spoolbook-map: 1
 # kind: compressor
-# name: Hand map with coincident points
+# name: Hand map, islands meeting on the surge line
 # flow: corrected mass, kg/s
-# reference temperature: 298 K
-# reference pressure: 100 kPa
-# efficiency: percent
+# reference temperature: 288.15 K
+# reference pressure: 101.325 kPa
+# efficiency: fraction
 # max speed: 160000 rpm
 curve,label,flow,pressure_ratio,efficiency,speed
-surge,,0.05,1.2,,
-surge,,0.08,1.8,,
-surge,,0.10,2.4,,
-choke,,0.15,1.1,,
-choke,,0.20,1.6,,
-choke,,0.25,2.2,,
-speed,80000,0.05,1.2,65,80000
-speed,80000,0.10,1.18,72,80000
-speed,80000,0.15,1.1,60,80000
-speed,100000,0.09,1.5,70,100000
-speed,100000,0.20,1.6,64,100000
-speed,120000,0.08,1.8,68,120000
-speed,120000,0.14,1.75,75,120000
-speed,120000,0.20,1.6,62,120000
-speed,150000,0.10,2.4,66,150000
-speed,150000,0.18,2.35,73,150000
-speed,150000,0.25,2.2,60,150000
-island,70,0.08,1.8,70,
-island,70,0.12,1.3,70,
-island,70,0.16,1.5,70,
-island,70,0.11,1.6,70,
-island,70,0.08,1.8,70,
-island,74,0.11,1.6,74,
-island,74,0.13,1.55,74,
-island,74,0.12,1.65,74,
-island,74,0.11,1.6,74,
+surge,,0.10,1.2,,
+surge,,0.16,1.8,,
+surge,,0.20,2.4,,
+choke,,0.30,1.1,,
+choke,,0.40,1.6,,
+choke,,0.50,2.2,,
+speed,80000,0.10,1.2,0.65,80000
+speed,80000,0.20,1.18,0.72,80000
+speed,80000,0.30,1.1,0.60,80000
+speed,100000,0.18,1.5,0.70,100000
+speed,100000,0.40,1.6,0.64,100000
+speed,120000,0.16,1.8,0.68,120000
+speed,120000,0.28,1.75,0.75,120000
+speed,120000,0.40,1.6,0.62,120000
+speed,150000,0.20,2.4,0.66,150000
+speed,150000,0.36,2.35,0.73,150000
+speed,150000,0.50,2.2,0.60,150000
+island,0.70,0.16,1.8,0.70,
+island,0.70,0.24,1.3,0.70,
+island,0.70,0.32,1.5,0.70,
+island,0.70,0.22,1.6,0.70,
+island,0.70,0.16,1.8,0.70,
+island,0.74,0.22,1.6,0.74,
+island,0.74,0.26,1.55,0.74,
+island,0.74,0.24,1.65,0.74,
+island,0.74,0.22,1.6,0.74,
 `;
-// line 20: speed 100000 at (0.20, 1.6), 64 %    line 21: speed 120000 at (0.08, 1.8), 68 %
-// line 23: speed 120000 at (0.20, 1.6), 62 %    line 27: island 70 at (0.08, 1.8)
-// line 30: island 70 at (0.11, 1.6)              line 32: island 74 at (0.11, 1.6)
+// line 20: speed 100000 at (0.40, 1.6), 0.64    line 21: speed 120000 at (0.16, 1.8), 0.68
+// line 23: speed 120000 at (0.40, 1.6), 0.62    line 27: island 0.70 at (0.16, 1.8)
+// line 30: island 0.70 at (0.22, 1.6)          line 32: island 0.74 at (0.22, 1.6)
 
 /** The same file with its lines (polylines) in reverse order. */
 function blocksReversed(text: string): string {
@@ -139,15 +139,15 @@ describe('a map with coincident points of different efficiencies', () => {
   it('reads each place by the rule, worked by hand, in either order of the file', () => {
     for (const text of [HAND_MAP, blocksReversed(HAND_MAP)]) {
       const model = compressorModelFromMap(compressorOf(parseOk(text)));
-      // (0.08, 1.8): speed line 120000 says 68 %, island 70 says 70 %: the speed line's point wins (the rule)
-      const surgeEnd = model.read(0.08, 1.8);
+      // (0.16, 1.8): speed line 120000 says 0.68, island 0.70 says 0.70: the speed line's point wins (the rule)
+      const surgeEnd = model.read(0.16, 1.8);
       expect(surgeEnd.location).toBe('inside');
       expectClose(surgeEnd.efficiency, 0.68, 1e-12);
       expectClose(surgeEnd.shaftSpeed, 120_000, 1e-12); // the row on line 21
-      // (0.11, 1.6): islands 70 and 74 only: the highest island, 74 % (the rule)
-      expectClose(model.read(0.11, 1.6).efficiency, 0.74, 1e-12);
-      // (0.20, 1.6): speed lines 100000 (64 %) and 120000 (62 %): their mean, 63 %, and mean speed 110000 rpm (by hand)
-      const chokeEnd = model.read(0.2, 1.6);
+      // (0.22, 1.6): islands 0.70 and 0.74 only: the highest island, 0.74 (the rule)
+      expectClose(model.read(0.22, 1.6).efficiency, 0.74, 1e-12);
+      // (0.40, 1.6): speed lines 100000 (0.64) and 120000 (0.62): their mean, 0.63, and mean speed 110000 rpm (by hand)
+      const chokeEnd = model.read(0.4, 1.6);
       expectClose(chokeEnd.efficiency, 0.63, 1e-12);
       expectClose(chokeEnd.shaftSpeed, 110_000, 1e-12);
     }
@@ -170,18 +170,18 @@ describe('a map with coincident points of different efficiencies', () => {
         code: 'coincident-points-merged',
         line: null,
         column: null,
-        // one place: (0.20, 1.6) on lines 20 and 23 (counted above)
+        // one place: (0.40, 1.6) on lines 20 and 23 (counted above)
         message: '1 place holds speed-line points with different speeds (2 rows); each place is read as one point at the mean of their speeds; the first is at lines 20 and 23',
       },
     ]);
   });
 
   it('notes nothing for a map whose points never disagree', () => {
-    const agreeing = HAND_MAP.replace('island,70,0.08,1.8,70,\n', 'island,70,0.081,1.8,70,\n')
-      .replace('island,70,0.08,1.8,70,\n', 'island,70,0.081,1.8,70,\n')
-      .replace('speed,100000,0.20,1.6,64,100000', 'speed,100000,0.19,1.6,64,100000')
-      .replace('island,74,0.11,1.6,74,', 'island,74,0.111,1.6,74,')
-      .replace('island,74,0.11,1.6,74,', 'island,74,0.111,1.6,74,');
+    const agreeing = HAND_MAP.replace('island,0.70,0.16,1.8,0.70,\n', 'island,0.70,0.162,1.8,0.70,\n')
+      .replace('island,0.70,0.16,1.8,0.70,\n', 'island,0.70,0.162,1.8,0.70,\n')
+      .replace('speed,100000,0.40,1.6,0.64,100000', 'speed,100000,0.38,1.6,0.64,100000')
+      .replace('island,0.74,0.22,1.6,0.74,', 'island,0.74,0.222,1.6,0.74,')
+      .replace('island,0.74,0.22,1.6,0.74,', 'island,0.74,0.222,1.6,0.74,');
     const result = parseMapFile(agreeing);
     expect(result.ok && result.notes).toEqual([]);
   });
