@@ -16,18 +16,18 @@ export interface MapSurfacePoint extends SurfacePoint {
  */
 export function surfacePoints(map: CompressorMap, quantity: 'efficiency' | 'speed'): MapSurfacePoint[] {
   const found: MapSurfacePoint[] = [];
-  map.curves.forEach((curve, c) => {
-    if (curve.kind !== 'speed' && !(curve.kind === 'island' && quantity === 'efficiency')) return;
-    const last = curve.points.length - 1;
-    curve.points.forEach((p, i) => {
+  for (let c = 0; c < map.curves.length; c++) {
+    const { kind, points } = map.curves[c];
+    if (kind !== 'speed' && !(kind === 'island' && quantity === 'efficiency')) continue;
+    const source = kind === 'speed' ? 'speed-line' : 'island';
+    // An island's closing point repeats its first: it adds no place.
+    const end = kind === 'island' && points.length > 1 && samePlace(points[points.length - 1], points[0]) ? points.length - 1 : points.length;
+    for (let i = 0; i < end; i++) {
+      const p = points[i];
       const value = p[quantity];
-      if (value === null) return;
-      const closing = curve.kind === 'island' && i === last && i > 0 && samePlace(p, curve.points[0]);
-      if (closing) return;
-      const source = curve.kind === 'speed' ? 'speed-line' : 'island';
-      found.push({ correctedMassFlow: p.correctedMassFlow, pressureRatio: p.pressureRatio, value, source, curve: c, point: i });
-    });
-  });
+      if (value !== null) found.push({ correctedMassFlow: p.correctedMassFlow, pressureRatio: p.pressureRatio, value, source, curve: c, point: i });
+    }
+  }
   return found;
 }
 
