@@ -131,7 +131,7 @@ function placesOf(points: readonly SurfacePoint[]): { root: Int32Array; order: n
     const [a, b] = [find(i), find(j)];
     if (a !== b) parent[Math.max(a, b)] = Math.min(a, b);
   };
-  const near = (i: number, j: number) => Math.abs(u[j] - u[i]) <= COINCIDENCE_TOLERANCE && v[j] - v[i] <= COINCIDENCE_TOLERANCE;
+  const near = (i: number, j: number) => Math.abs(u[j] - u[i]) <= COINCIDENCE_TOLERANCE && Math.abs(v[j] - v[i]) <= COINCIDENCE_TOLERANCE;
   // columnEnd[k]: the position after the last point of the column holding position k.
   const columnEnd = new Int32Array(n);
   for (let k = n - 1; k >= 0; k--) columnEnd[k] = k + 1 < n && column[order[k + 1]] === column[order[k]] ? columnEnd[k + 1] : k + 1;

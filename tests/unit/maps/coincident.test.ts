@@ -1,26 +1,25 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, parseMapFile } from '../../../shared/maps';
-import { COINCIDENCE_TOLERANCE, mergeCoincidentPoints, type SurfacePoint } from '../../../shared/maps/coincident';
+import { COINCIDENCE_TOLERANCE, compressorModelFromMap, mergeCoincidentPoints, parseMapFile, type SurfacePoint } from '../../../shared/maps';
 import { compressorOf, expectClose, parseOk } from './helpers';
 
 const island = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({ correctedMassFlow, pressureRatio, value, source: 'island' });
-const test = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({ correctedMassFlow, pressureRatio, value, source: 'speed-line' });
+const measured = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({ correctedMassFlow, pressureRatio, value, source: 'speed-line' });
 
 describe('merging coincident map points', () => {
   // Corners at (0, 1) and (1, 2): the unit square is the data's own, so the tolerance reads in flow and PR directly.
-  const corners = [test(0, 1, 0.6), test(1, 2, 0.6)];
+  const corners = [measured(0, 1, 0.6), measured(1, 2, 0.6)];
 
   it("uses a speed line's value over an island's, the mean of speed lines, the highest of islands", () => {
     const merged = mergeCoincidentPoints([
       ...corners,
       island(0.5, 1.5, 0.7),
-      test(0.5, 1.5, 0.72), // a measured point beside the contour: it wins (the rule)
+      measured(0.5, 1.5, 0.72), // a measured point beside the contour: it wins (the rule)
       island(0.25, 1.25, 0.6),
       island(0.25, 1.25, 0.68), // islands only: the highest (the rule)
       island(0.25, 1.25, 0.64),
-      test(0.75, 1.75, 0.62),
-      test(0.75, 1.75, 0.66), // two speed lines: their mean (0.62 + 0.66)/2 = 0.64 (by hand)
+      measured(0.75, 1.75, 0.62),
+      measured(0.75, 1.75, 0.66), // two speed lines: their mean (0.62 + 0.66)/2 = 0.64 (by hand)
     ]);
     expect(merged.correctedMassFlow).toEqual([0, 0.25, 0.5, 0.75, 1]); // one point per place, by flow
     expect(merged.value[1]).toBe(0.68);
@@ -30,7 +29,7 @@ describe('merging coincident map points', () => {
   });
 
   it('leaves points with the same value alone and does not call them a conflict', () => {
-    const merged = mergeCoincidentPoints([...corners, island(0.5, 1.5, 0.7), island(0.5, 1.5, 0.7), test(0.5, 1.5, 0.7)]);
+    const merged = mergeCoincidentPoints([...corners, island(0.5, 1.5, 0.7), island(0.5, 1.5, 0.7), measured(0.5, 1.5, 0.7)]);
     expect(merged.value).toEqual([0.6, 0.7, 0.6]);
     expect(merged.conflicts).toEqual([]);
   });
@@ -49,7 +48,7 @@ describe('merging coincident map points', () => {
   it('measures the tolerance in the unit square of the points, whatever the units', () => {
     // The same places in lb/min-sized numbers (x 132.277): still one place.
     const scale = 132.277;
-    const merged = mergeCoincidentPoints([test(0, 1, 0.6), test(scale, 2, 0.6), island(0.5 * scale, 1.5, 0.7), island(0.5 * scale + 0.9e-9 * scale, 1.5, 0.74)]);
+    const merged = mergeCoincidentPoints([measured(0, 1, 0.6), measured(scale, 2, 0.6), island(0.5 * scale, 1.5, 0.7), island(0.5 * scale + 0.9e-9 * scale, 1.5, 0.74)]);
     expect(merged.value).toHaveLength(3);
   });
 
