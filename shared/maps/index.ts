@@ -6,7 +6,7 @@
 export * from './format';
 export type * from './types';
 export { parseMapFile } from './parse';
-export { writeMapFile, ESCAPE_FORMULAE } from './write';
+export { writeMapFile } from './write';
 export { compressorModelFromMap, type CompressorModelOptions } from './model';
 export { triangulate, type TriangulatedSurface } from './interpolate';
 export {
