@@ -275,6 +275,8 @@ export const studyRevisions = pgTable(
     title: text('title').notNull(),
     message: text('message').notNull().default(''),
     authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+    /** An imported revision's author who is not a member of the team: kept as plain text, never matched to another account. */
+    authorName: text('author_name'),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.studyId, t.revision] })],
