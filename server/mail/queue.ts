@@ -86,6 +86,8 @@ export function startMailWorker(db: Db, mailer: Mailer, logger: Logger, interval
     },
     async drain() {
       while (pending.size) await Promise.allSettled([...pending]);
+      // A kick may be about to run: let it, then send whatever is still due.
+      await new Promise((r) => setImmediate(r));
       if (running) await running;
       while (!stopped && (await sendDue()) > 0);
     },

@@ -104,6 +104,15 @@ export async function latestMailTo(t: TestApp, to: string) {
   return row;
 }
 
+/** The link with `pathPrefix` in the newest message to `to` that has one (other mail may have come after it). */
+export async function latestLinkTo(t: TestApp, to: string, pathPrefix: string): Promise<string> {
+  await t.drainMail();
+  const rows = await t.database.db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt));
+  const row = rows.find((r) => r.text.includes(pathPrefix));
+  if (!row) throw new Error(`no mail to ${to} with a ${pathPrefix} link`);
+  return linkIn(row.text, pathPrefix);
+}
+
 export function linkIn(text: string, pathPrefix: string): string {
   const m = text.match(new RegExp(`https?://[^\\s]+${pathPrefix.replace(/[?/]/g, (c) => `\\${c}`)}[^\\s]+`));
   if (!m) throw new Error(`no ${pathPrefix} link in: ${text}`);
