@@ -6,7 +6,7 @@ import { HttpError } from '../http/errors';
 /**
  * Every rate limit of the app, counted in PostgreSQL (the `rate_limits` table, rate-limiter-flexible's
  * PostgreSQL store), so the limits hold across any number of server instances and restarts.
- * See docs/decisions/002-throttling-store.md.
+ * See docs/decisions/002-throttling-store-and-hashed-sessions.md.
  */
 export interface LimitSettings {
   /** Failed sign-ins (and second-factor codes) on one account, from anywhere, before delays begin. */
