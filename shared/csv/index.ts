@@ -22,10 +22,11 @@ export function writeCsv(fields: readonly string[], rows: ReadonlyArray<Readonly
 /**
  * One line that must stay one cell: a `# key: value` line of a map file. A spreadsheet splits a
  * line at its commas; when a piece would start a formula (leading spaces aside), or the line holds
- * a quote or a line break, the whole line is quoted so it stays one cell. Other lines are written
+ * a quote or a line break (or ends in a comma), the whole line is quoted so it stays one cell. Other lines are written
  * as they are, so `# flow: corrected mass, kg/s` reads as the format shows it.
  */
 export function csvLine(text: string): string {
-  const risky = /["\r\n]/.test(text) || text.split(',').some((piece) => FORMULA_START.test(piece.trimStart()) || FORMULA_START.test(piece));
+  // A line ending in commas would read back as a spreadsheet's padding: quote it too.
+  const risky = /["\r\n]/.test(text) || /,\s*$/.test(text) || text.split(',').some((piece) => FORMULA_START.test(piece.trimStart()) || FORMULA_START.test(piece));
   return risky ? Papa.unparse([[text]], { ...options('\n'), quotes: true }) : text;
 }
