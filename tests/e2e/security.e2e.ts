@@ -31,7 +31,7 @@ async function signUpThroughForm(page: Page, email: string) {
   await page.getByTestId('password-strength').filter({ hasText: 'Very easy to guess' }).waitFor();
   await screenshot(page, 'sign-up-weak-password');
   await form.getByLabel('Password').fill(PASSWORD);
-  await page.getByTestId('password-strength').filter({ hasText: /Strong/ }).waitFor();
+  await page.getByTestId('password-strength').filter({ hasText: /strong/i }).waitFor();
   await form.getByRole('button', { name: 'Create account' }).click();
   await page.getByRole('link', { name: 'Team' }).first().waitFor();
 }
