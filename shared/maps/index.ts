@@ -6,7 +6,7 @@
 export * from './format';
 export type * from './types';
 export { parseMapFile } from './parse';
-export { writeMapFile, ESCAPE_FORMULAE } from './write';
+export { writeMapFile } from './write';
 export { compressorModelFromMap, type CompressorModelOptions } from './model';
 export { triangulate, unitSquare, type TriangulatedSurface, type UnitSquare } from './interpolate';
 export { mergeCoincidentPoints, COINCIDENCE_TOLERANCE, type SurfacePoint, type PointSource, type MergedPoints, type CoincidentPlace } from './coincident';

@@ -1,16 +1,25 @@
+import { randomUUID } from 'node:crypto';
 import express from 'express';
 import request from 'supertest';
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
+import type { AppDeps } from '../../server/app';
+import { connectDatabase } from '../../server/db/client';
 import { errorHandler } from '../../server/http/errors';
 import { computeRouter } from '../../server/routes/compute';
+import { createLimits, defaultLimitSettings } from '../../server/services/limits';
 import { computeResponseSchema, MAX_COMPUTE_POINTS } from '../../shared/schemas/compute';
 import { expectClose } from '../unit/physics/expect-close';
 
-function appWith(options?: Parameters<typeof computeRouter>[0]) {
+// The limit is counted in PostgreSQL (the test database); each app counts under its own namespace.
+const database = connectDatabase(process.env.DATABASE_URL ?? 'postgres://missing', { max: 2 });
+afterAll(() => database.pool.end());
+
+function appWith(options: { rateLimitPerMinute?: number } = {}) {
   const logged: unknown[] = [];
   const app = express();
   app.use(express.json({ limit: '1mb' }));
-  app.use('/api/compute', computeRouter(options));
+  const limits = createLimits(database.pool, { ...defaultLimitSettings(10), computePerMinute: options.rateLimitPerMinute ?? 300 }, `compute-test-${randomUUID()}:`);
+  app.use('/api/compute', computeRouter({ limits } as AppDeps));
   app.use(errorHandler({ error: (obj: unknown) => void logged.push(obj) }));
   return { app, logged };
 }
@@ -137,12 +146,15 @@ describe('POST /api/compute', () => {
     expect(huge.status).toBe(413);
   });
 
-  it('rate-limits each client, answering 429 with the standard headers', async () => {
+  it('rate-limits each client, answering 429 with Retry-After', async () => {
     const { app } = appWith({ rateLimitPerMinute: 3 });
     for (let i = 0; i < 3; i++) expect((await request(app).post('/api/compute').send(body)).status).toBe(200);
     const limited = await request(app).post('/api/compute').send(body);
     expect(limited.status).toBe(429);
-    expect(limited.body.error).toEqual({ code: 'rate_limited', message: 'Too many compute requests; try again in a minute.' });
-    expect(limited.headers['ratelimit-policy']).toMatch(/q=3/); // IETF draft 8 header (express-rate-limit docs)
+    expect(limited.body.error.code).toBe('rate_limited');
+    expect(limited.body.error.message).toMatch(/^Too many compute requests\. Wait \d+ seconds? and try again\.$/);
+    const wait = Number(limited.headers['retry-after']);
+    expect(wait).toBeGreaterThan(0);
+    expect(wait).toBeLessThanOrEqual(60); // the window is one minute (server/services/limits.ts)
   });
 });

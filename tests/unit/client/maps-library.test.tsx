@@ -41,7 +41,7 @@ function fileFrom(relative: string): File {
 function renderWith(ui: React.ReactNode, role: Role = 'owner') {
   const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false } } });
   const me: Me = {
-    user: { id: 'u1', email: 'ada@example.test', name: 'Ada', isAdmin: false, unitSystem: 'si' },
+    user: { id: 'u1', email: 'ada@example.test', name: 'Ada', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false },
     teams: [{ id: 't1', name: 'Hill-climb build', personal: false, role }],
   };
   queryClient.setQueryData(meQueryOptions().queryKey, me);
