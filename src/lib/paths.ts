@@ -66,6 +66,7 @@ export const paths = {
 
   admin: { path: '/admin', href: () => '/admin' },
   adminTeams: { path: '/admin/teams', href: () => '/admin/teams' },
+  adminUsers: { path: '/admin/users', href: () => '/admin/users' },
   adminOutbox: { path: '/admin/outbox', href: () => '/admin/outbox' },
   adminOutboxMessage: {
     path: '/admin/outbox/:messageId',
