@@ -2,6 +2,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { json, recordFetch, type RecordedRequest } from './fetch-recorder';
 import type { AdminUser, Me } from '../../../shared/schemas/account';
 import { usersQueryOptions } from '../../../src/features/admin/api/get-users';
 import { UsersTable } from '../../../src/features/admin/components/UsersTable';
@@ -15,17 +16,10 @@ const users: AdminUser[] = [
   { id: 'u3', email: 'new@example.test', name: 'Noor', isAdmin: false, twoFactor: false, emailConfirmed: false, sessions: 0, lastSeenAt: null },
 ];
 
-let requests: { method: string; url: string }[] = [];
+let requests: RecordedRequest[] = [];
 beforeEach(() => {
-  requests = [];
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (url: string, init: RequestInit = {}) => {
-      const method = init.method ?? 'GET';
-      requests.push({ method, url });
-      const body = method === 'POST' ? { ended: 2 } : { users: users.filter((u) => u.email.includes(new URL(url, 'http://x').searchParams.get('q') ?? '')) };
-      return new Response(JSON.stringify(body), { status: 200, headers: { 'Content-Type': 'application/json' } });
-    }),
+  requests = recordFetch(({ method, url }) =>
+    json(200, method === 'POST' ? { ended: 2 } : { users: users.filter((u) => u.email.includes(new URL(url, 'http://x').searchParams.get('q') ?? '')) }),
   );
 });
 afterEach(() => {
@@ -72,7 +66,7 @@ describe('the Users page of the site admin', () => {
   it('searches by what is typed, once typing pauses', async () => {
     renderUsers();
     fireEvent.change(screen.getByLabelText('Search by name or e-mail'), { target: { value: ' dana ' } });
-    await waitFor(() => expect(requests).toEqual([{ method: 'GET', url: '/api/admin/users?q=dana' }]));
+    await waitFor(() => expect(requests).toEqual([{ method: 'GET', url: '/api/admin/users?q=dana', body: undefined }]));
     expect(await screen.findByRole('table', { name: '1 user matching “dana”' })).toBeTruthy();
   });
 
@@ -85,7 +79,7 @@ describe('the Users page of the site admin', () => {
     fireEvent.click(within(dialog).getByRole('button', { name: 'End all sessions' }));
     expect(await screen.findByText('Dana is signed out everywhere')).toBeTruthy();
     expect(screen.getByText('2 sessions ended.')).toBeTruthy();
-    expect(requests.filter((r) => r.method === 'POST')).toEqual([{ method: 'POST', url: '/api/admin/users/u2/end-sessions' }]);
+    expect(requests.filter((r) => r.method === 'POST')).toEqual([{ method: 'POST', url: '/api/admin/users/u2/end-sessions', body: {} }]);
   });
 
   it('warns an admin ending their own sessions that they will be signed out too', () => {

@@ -2,6 +2,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { json, recordFetch, type RecordedRequest } from './fetch-recorder';
 import type { Me, Role } from '../../../shared/schemas/account';
 import { shareLinksQueryOptions, type ShareLink } from '../../../src/features/studies/api/get-share-links';
 import { SharePanel } from '../../../src/features/studies/components/workspace/SharePanel';
@@ -10,20 +11,10 @@ import { meQueryOptions } from '../../../src/lib/session';
 // The share links of a study: the expiry choice when making one, and for owners the choice to
 // keep a link working after its maker leaves. The list comes from the query cache; fetch records
 // the requests these tests check and answers as docs/api.md says the server does.
-let requests: { method: string; url: string; body: unknown }[] = [];
+let requests: RecordedRequest[] = [];
 beforeEach(() => {
-  requests = [];
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (url: string, init: RequestInit = {}) => {
-      const method = init.method ?? 'GET';
-      const body = typeof init.body === 'string' ? JSON.parse(init.body) : undefined;
-      requests.push({ method, url, body });
-      if (method === 'PUT') return new Response(JSON.stringify({ kept: body.kept }), { status: 200, headers: { 'Content-Type': 'application/json' } });
-      // Refetches after a change stay pending: the list shown is the one in the cache.
-      return new Promise<Response>(() => undefined);
-    }),
-  );
+  // Keeping answers as the server does; refetches after a change stay pending (the list shown is the cached one).
+  requests = recordFetch(({ method, body }) => (method === 'PUT' ? json(200, { kept: (body as { kept: boolean }).kept }) : null));
 });
 afterEach(() => {
   cleanup();

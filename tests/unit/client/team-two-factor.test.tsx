@@ -3,6 +3,7 @@ import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-li
 import type { ReactNode } from 'react';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { json, recordFetch, type RecordedRequest } from './fetch-recorder';
 import { z } from 'zod';
 import type { Me, Role, TeamDetail, TeamSummary } from '../../../shared/schemas/account';
 import { SecondFactorBanner } from '../../../src/components/SecondFactorNotice';
@@ -16,27 +17,16 @@ import { installTwoFactorRuleWatch, meQueryOptions } from '../../../src/lib/sess
 // member without a second factor meets instead of the team's data. Screens render from the query
 // cache; where a request is part of what is checked, fetch records it (and answers as the API
 // reference, docs/api.md, says the server does).
-let requests: { method: string; url: string; body: unknown }[] = [];
-let answer: (method: string, url: string) => Response | null = () => null;
+let requests: RecordedRequest[] = [];
+let answer: (request: RecordedRequest) => Response | null = () => null;
 beforeEach(() => {
-  requests = [];
   answer = () => null;
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (url: string, init: RequestInit = {}) => {
-      const method = init.method ?? 'GET';
-      requests.push({ method, url, body: typeof init.body === 'string' ? JSON.parse(init.body) : undefined });
-      // Anything not answered stays pending: refetches after a change are not what these tests check.
-      return answer(method, url) ?? new Promise<Response>(() => undefined);
-    }),
-  );
+  requests = recordFetch((request) => answer(request));
 });
 afterEach(() => {
   cleanup();
   vi.unstubAllGlobals();
 });
-
-const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
 function team(role: Role, requireTwoFactor: boolean): TeamSummary {
   return { id: 't1', name: 'Hill-climb build', personal: false, role, requireTwoFactor };
@@ -76,7 +66,7 @@ const teamPage = <TeamView teamId="t1" onGone={() => undefined} />;
 
 describe("the team's second-factor switch", () => {
   it('lets an owner with a second factor ask every member for one, with a plain word on what members without one meet', async () => {
-    answer = (method) => (method === 'PUT' ? json(200, { team: team('owner', true) }) : null);
+    answer = ({ method }) => (method === 'PUT' ? json(200, { team: team('owner', true) }) : null);
     renderWith(teamPage, { who: me('owner', { twoFactor: true, requireTwoFactor: false }), team: detail('owner', false) });
     const rule = screen.getByRole('switch', { name: 'Members must use a second factor' });
     expect(rule.getAttribute('aria-checked')).toBe('false');
@@ -88,7 +78,7 @@ describe("the team's second-factor switch", () => {
   });
 
   it('shows an owner the switch on, and turning it off asks for nothing more', async () => {
-    answer = (method) => (method === 'PUT' ? json(200, { team: team('owner', false) }) : null);
+    answer = ({ method }) => (method === 'PUT' ? json(200, { team: team('owner', false) }) : null);
     renderWith(teamPage, { who: me('owner', { twoFactor: true, requireTwoFactor: true }), team: detail('owner', true) });
     const rule = screen.getByRole('switch', { name: 'Members must use a second factor' });
     expect(rule.getAttribute('aria-checked')).toBe('true');
@@ -105,7 +95,7 @@ describe("the team's second-factor switch", () => {
   });
 
   it('shows the error the server gives, and the switch back where it was', async () => {
-    answer = (method) =>
+    answer = ({ method }) =>
       method === 'PUT' ? json(400, { error: { code: 'two_factor_needed', message: 'Turn on your own second factor first (Account → Second factor), or you would lock yourself out of this team.' } }) : null;
     renderWith(teamPage, { who: me('owner', { twoFactor: true, requireTwoFactor: false }), team: detail('owner', false) });
     fireEvent.click(screen.getByRole('switch', { name: 'Members must use a second factor' }));
@@ -127,7 +117,7 @@ describe('a member without a second factor in a team that asks for one', () => {
   const refusal = { error: { code: 'two_factor_required', message: 'The team "Hill-climb build" asks its members to use a second factor. Turn it on under Account → Second factor, then come back.' } };
 
   it('meets the reason and the way to the set-up on the team page, not "not found", and may still leave', async () => {
-    answer = (method, url) => (method === 'GET' && url === '/api/teams/t1' ? json(403, refusal) : null);
+    answer = ({ method, url }) => (method === 'GET' && url === '/api/teams/t1' ? json(403, refusal) : null);
     renderWith(
       <>
         <SecondFactorBanner />
