@@ -5,10 +5,11 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router/dom';
 import { queryClient } from './lib/query-client';
-import { installSessionExpiry } from './lib/session';
+import { installSessionExpiry, installTwoFactorRuleWatch } from './lib/session';
 import { createRouter } from './router';
 
 installSessionExpiry(queryClient);
+installTwoFactorRuleWatch(queryClient);
 const router = createRouter();
 
 const container = document.getElementById('root');

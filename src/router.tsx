@@ -7,6 +7,7 @@ import { AdminLayout } from './routes/admin-layout';
 import { AdminOutboxMessageRoute } from './routes/admin-outbox-message';
 import { AdminOutboxRoute } from './routes/admin-outbox';
 import { AdminTeamsRoute } from './routes/admin-teams';
+import { AdminUsersRoute } from './routes/admin-users';
 import { ForgotPasswordRoute } from './routes/forgot-password';
 import { RequireAdmin, RequireSignedIn, RequireSignedOut } from './routes/guards';
 import { HomeRoute } from './routes/home';
@@ -93,6 +94,7 @@ export const routes = [
                     children: [
                       { index: true, element: <Navigate to={paths.adminTeams.href()} replace /> },
                       { path: paths.adminTeams.path, element: <AdminTeamsRoute /> },
+                      { path: paths.adminUsers.path, element: <AdminUsersRoute /> },
                       { path: paths.adminOutbox.path, element: <AdminOutboxRoute /> },
                       { path: paths.adminOutboxMessage.path, element: <AdminOutboxMessageRoute /> },
                     ],

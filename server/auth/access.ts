@@ -68,7 +68,7 @@ export async function requireTeamPermission(db: Db, user: User, teamId: string, 
   const access: TeamAccess = { teamId: row.teamId, teamName: row.teamName, personal: row.personal, role: row.role, requireTwoFactor: row.requireTwoFactor };
   if (!can(access.role, permission, user.isAdmin)) throw forbidden();
   if (access.requireTwoFactor && access.role && !user.twoFactor && !WITHOUT_SECOND_FACTOR.has(permission)) {
-    throw new HttpError(403, 'two_factor_required', `The team "${access.teamName}" asks its members to use a second factor. Turn it on under Settings → Security, then come back.`);
+    throw new HttpError(403, 'two_factor_required', `The team "${access.teamName}" asks its members to use a second factor. Turn it on under Account → Second factor, then come back.`);
   }
   return access;
 }

@@ -1,4 +1,4 @@
-import { count, desc, eq, ilike, or } from 'drizzle-orm';
+import { and, count, desc, eq, gt, ilike, max, or } from 'drizzle-orm';
 import { Router } from 'express';
 import { requireAdmin } from '../auth/session';
 import { outbox, sessions, users } from '../db/schema';
@@ -55,16 +55,36 @@ export function adminRouter({ db, config }: AppDeps): Router {
   router.get('/users', async (req, res) => {
     const q = typeof req.query.q === 'string' ? req.query.q.trim().slice(0, 100) : '';
     const pattern = `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    // Only sessions that still work count, as on the user's own Sessions page.
+    const live = and(eq(sessions.userId, users.id), gt(sessions.expiresAt, new Date()));
     const rows = await db
-      .select({ id: users.id, email: users.email, name: users.name, isAdmin: users.isAdmin, totpEnabledAt: users.totpEnabledAt, emailConfirmedAt: users.emailConfirmedAt, sessions: count(sessions.id) })
+      .select({
+        id: users.id,
+        email: users.email,
+        name: users.name,
+        isAdmin: users.isAdmin,
+        totpEnabledAt: users.totpEnabledAt,
+        emailConfirmedAt: users.emailConfirmedAt,
+        sessions: count(sessions.id),
+        lastSeenAt: max(sessions.lastSeenAt),
+      })
       .from(users)
-      .leftJoin(sessions, eq(sessions.userId, users.id))
+      .leftJoin(sessions, live)
       .where(q ? or(ilike(users.email, pattern), ilike(users.name, pattern)) : undefined)
       .groupBy(users.id)
       .orderBy(users.email)
       .limit(100);
     res.json({
-      users: rows.map((r) => ({ id: r.id, email: r.email, name: r.name, isAdmin: r.isAdmin, twoFactor: r.totpEnabledAt !== null, emailConfirmed: r.emailConfirmedAt !== null, sessions: r.sessions })),
+      users: rows.map((r) => ({
+        id: r.id,
+        email: r.email,
+        name: r.name,
+        isAdmin: r.isAdmin,
+        twoFactor: r.totpEnabledAt !== null,
+        emailConfirmed: r.emailConfirmedAt !== null,
+        sessions: r.sessions,
+        lastSeenAt: r.lastSeenAt ? new Date(r.lastSeenAt).toISOString() : null,
+      })),
     });
   });
 

@@ -77,7 +77,7 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, req.params.teamId, 'team:rename');
     const input = parseOr400(teamTwoFactorSchema, req.body);
     if (input.required && !user.twoFactor) {
-      throw new HttpError(400, 'two_factor_needed', 'Turn on your own second factor first (Settings → Security), or you would lock yourself out of this team.');
+      throw new HttpError(400, 'two_factor_needed', 'Turn on your own second factor first (Account → Second factor), or you would lock yourself out of this team.');
     }
     await db.update(teams).set({ requireTwoFactor: input.required }).where(eq(teams.id, access.teamId));
     await audit(db, { action: 'team.two-factor-rule', teamId: access.teamId, actor: user, targetType: 'team', targetId: access.teamId, details: { required: input.required }, req });

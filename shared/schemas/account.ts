@@ -93,7 +93,10 @@ export const adminUserSchema = z.object({
   isAdmin: z.boolean(),
   twoFactor: z.boolean(),
   emailConfirmed: z.boolean(),
+  /** Sessions that still work (expired ones are not counted). */
   sessions: z.number(),
+  /** When the most recently used of those sessions was last used; null without one. */
+  lastSeenAt: z.string().nullable(),
 });
 export type AdminUser = z.infer<typeof adminUserSchema>;
 

@@ -6,7 +6,9 @@ import type { ReactNode } from 'react';
  */
 export function Table({ caption, captionHidden = false, head, children }: { caption: string; captionHidden?: boolean; head: ReactNode; children: ReactNode }) {
   return (
-    <div className="overflow-x-auto">
+    // Relative: a screen-reader-only header cell (absolutely placed) stays inside the scrolling
+    // box instead of widening the whole page on a phone.
+    <div className="relative overflow-x-auto">
       <table className="w-full border-collapse text-left text-sm">
         <caption className={captionHidden ? 'sr-only' : 'mb-2 text-left font-semibold text-ink'}>{caption}</caption>
         <thead className="border-b-2 border-ink/20 text-xs uppercase tracking-wider text-ink-soft">{head}</thead>

@@ -39,16 +39,34 @@ export function isApiError(error: unknown): error is ApiError {
 /** Codes answered with 401 that mean "these credentials are wrong", not "your session ended". */
 const CREDENTIAL_CODES = new Set(['invalid_credentials']);
 
-type UnauthorizedListener = (error: ApiError) => void;
-const unauthorizedListeners = new Set<UnauthorizedListener>();
+/** The answer of a team that asks its members for a second factor the user has not turned on. */
+export function isTwoFactorRequired(error: unknown): error is ApiError {
+  return isApiError(error) && error.status === 403 && error.code === 'two_factor_required';
+}
+
+type ErrorListener = (error: ApiError) => void;
+const unauthorizedListeners = new Set<ErrorListener>();
+const twoFactorListeners = new Set<ErrorListener>();
+
+function subscribe(listeners: Set<ErrorListener>, listener: ErrorListener): () => void {
+  listeners.add(listener);
+  return () => listeners.delete(listener);
+}
 
 /**
  * Called whenever the server says the session is gone, so the app can forget the signed-in
  * user in one place (the router then sends the user to sign-in). Returns an unsubscribe.
  */
-export function onUnauthorized(listener: UnauthorizedListener): () => void {
-  unauthorizedListeners.add(listener);
-  return () => unauthorizedListeners.delete(listener);
+export function onUnauthorized(listener: ErrorListener): () => void {
+  return subscribe(unauthorizedListeners, listener);
+}
+
+/**
+ * Called whenever a team refuses its data for want of a second factor, wherever the request came
+ * from, so the app can tell the member in one place how to get back in. Returns an unsubscribe.
+ */
+export function onTwoFactorRequired(listener: ErrorListener): () => void {
+  return subscribe(twoFactorListeners, listener);
 }
 
 /** Turns an error body into an ApiError; bodies that are not ours still give a plain message. */
@@ -113,6 +131,9 @@ async function request<T>(method: Method, path: string, body: unknown, schema: z
     const error = apiErrorFrom(response.status, json, response.headers.get('Retry-After'));
     if (error.status === 401 && !CREDENTIAL_CODES.has(error.code)) {
       for (const listener of unauthorizedListeners) listener(error);
+    }
+    if (isTwoFactorRequired(error)) {
+      for (const listener of twoFactorListeners) listener(error);
     }
     throw error;
   }

@@ -57,7 +57,8 @@ export const paths = {
   share: { path: '/share/:token', href: (token: string) => `/share/${encodeURIComponent(token)}` },
   /** The printable report of a shared study. */
   shareReport: { path: '/share/:token/report', href: (token: string) => `/share/${encodeURIComponent(token)}/report` },
-  settings: { path: '/settings', href: () => '/settings' },
+  /** Account settings; `second-factor` opens it at the second factor's set-up. */
+  settings: { path: '/settings', href: (section?: 'second-factor') => (section ? `/settings#${section}` : '/settings') },
   /** Where this account is signed in. */
   sessions: { path: '/settings/sessions', href: () => '/settings/sessions' },
   /** The link the confirmation mail carries: `/confirm-email?token=…`. */
@@ -65,6 +66,7 @@ export const paths = {
 
   admin: { path: '/admin', href: () => '/admin' },
   adminTeams: { path: '/admin/teams', href: () => '/admin/teams' },
+  adminUsers: { path: '/admin/users', href: () => '/admin/users' },
   adminOutbox: { path: '/admin/outbox', href: () => '/admin/outbox' },
   adminOutboxMessage: {
     path: '/admin/outbox/:messageId',

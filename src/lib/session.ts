@@ -1,6 +1,6 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
 import { meSchema, type Me } from '../../shared/schemas/account';
-import { api, isApiError, onUnauthorized } from './api-client';
+import { api, isApiError, onTwoFactorRequired, onUnauthorized } from './api-client';
 
 /**
  * Who is signed in, or null when nobody is. Shared by every feature (features may not import
@@ -51,4 +51,12 @@ export function installSessionExpiry(queryClient: QueryClient): () => void {
   return onUnauthorized(() => {
     if (queryClient.getQueryData(meQueryOptions().queryKey)) endSession(queryClient);
   });
+}
+
+/**
+ * When a team refuses its data for want of a second factor, fetch `me` again: an owner may have
+ * turned the rule on since it was read, and `me` says which teams ask (the notices follow it).
+ */
+export function installTwoFactorRuleWatch(queryClient: QueryClient): () => void {
+  return onTwoFactorRequired(() => void queryClient.invalidateQueries({ queryKey: meQueryOptions().queryKey }));
 }

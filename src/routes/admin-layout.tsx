@@ -14,6 +14,9 @@ export function AdminLayout() {
         <NavLink to={paths.adminTeams.href()} className={tabClass}>
           All teams
         </NavLink>
+        <NavLink to={paths.adminUsers.href()} className={tabClass}>
+          Users
+        </NavLink>
         <NavLink to={paths.adminOutbox.href()} className={tabClass}>
           Outbox
         </NavLink>

@@ -1,6 +1,7 @@
 import { Link, Outlet, ScrollRestoration } from 'react-router';
 import { BrandMark, BrandWord } from '../components/Brand';
 import { Nav, SkipLink, type NavItem } from '../components/Nav';
+import { SecondFactorBanner } from '../components/SecondFactorNotice';
 import { TeamSwitcher } from '../components/TeamSwitcher';
 import { SignOutButton } from '../features/auth/components/SignOutButton';
 import { UnitSwitch } from '../features/auth/components/UnitSwitch';
@@ -53,6 +54,7 @@ export function AppLayout() {
         }
       />
       <main id="main" tabIndex={-1} className="flex-1 px-4 py-8 focus:outline-none">
+        <SecondFactorBanner />
         <Outlet />
       </main>
     </div>

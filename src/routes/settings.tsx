@@ -1,4 +1,5 @@
 import { Link } from 'react-router';
+import { Alert } from '../components/Alert';
 import { Card } from '../components/Card';
 import { Loading, Page } from '../components/Page';
 import { ChangePasswordForm } from '../features/auth/components/ChangePasswordForm';
@@ -8,11 +9,13 @@ import { TwoFactorSettings } from '../features/auth/components/TwoFactorSettings
 import { UnitSystemForm } from '../features/auth/components/UnitSystemForm';
 import { paths } from '../lib/paths';
 import { useMe } from '../lib/session';
+import { askingTitle, teamsAskingForSecondFactor } from '../lib/two-factor-rule';
 
 export function SettingsRoute() {
   const me = useMe();
   if (!me.data) return <Loading />;
   const { user } = me.data;
+  const asking = teamsAskingForSecondFactor(me.data);
   return (
     <Page title="Account settings" description="Your name, the units Spoolbook shows, your password and how you sign in." width="narrow">
       {!user.emailConfirmed && <ConfirmEmailNotice email={user.email} />}
@@ -26,7 +29,12 @@ export function SettingsRoute() {
       <Card title="Password">
         <ChangePasswordForm />
       </Card>
-      <Card title="Second factor">
+      <Card title="Second factor" id="second-factor" className="scroll-mt-6">
+        {asking.length > 0 && (
+          <Alert tone="info" title={askingTitle(asking)} className="mb-4">
+            Set it up here; {asking.length === 1 ? 'the team opens' : 'the teams open'} to you again as soon as it is on.
+          </Alert>
+        )}
         <TwoFactorSettings />
       </Card>
       <Card title="Sessions">

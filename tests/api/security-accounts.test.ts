@@ -226,6 +226,27 @@ describe('sessions (ASVS 7.2.x, 7.4.x, 7.5.x)', () => {
     expect((await victim.c.get('/api/auth/me')).status).toBe(401);
   });
 
+  it('the admin list counts only sessions that still work, with the last time one was used', async () => {
+    const user = await signedUp(t, 'counted');
+    const second = client(t);
+    expect((await second.post('/api/auth/sign-in', { email: user.email, password: PASSWORD })).status).toBe(200);
+    const admin = client(t);
+    expect((await admin.post('/api/auth/sign-in', { email: ADMIN_USER.email, password: ADMIN_USER.password })).status).toBe(200);
+    const rows = await t.database.db.select().from(sessions).where(eq(sessions.userId, user.user.id)).orderBy(desc(sessions.createdAt));
+    expect(rows).toHaveLength(2);
+    // One session ran out yesterday; the other was last used an hour ago.
+    const hourAgo = new Date(Date.now() - 3_600_000);
+    await t.database.db.update(sessions).set({ expiresAt: new Date(Date.now() - 86_400_000) }).where(eq(sessions.id, rows[0].id));
+    await t.database.db.update(sessions).set({ lastSeenAt: hourAgo }).where(eq(sessions.id, rows[1].id));
+    const [listed] = (await admin.get(`/api/admin/users?q=${encodeURIComponent(user.email)}`)).body.users;
+    expect(listed).toMatchObject({ email: user.email, sessions: 1, twoFactor: false, emailConfirmed: true });
+    expect(Date.parse(listed.lastSeenAt)).toBe(hourAgo.getTime());
+
+    expect((await admin.post(`/api/admin/users/${user.user.id}/end-sessions`, {})).status).toBe(200);
+    const [after] = (await admin.get(`/api/admin/users?q=${encodeURIComponent(user.email)}`)).body.users;
+    expect(after).toMatchObject({ sessions: 0, lastSeenAt: null });
+  });
+
   it('sign-out tells the browser to clear what it kept (Clear-Site-Data)', async () => {
     const { c } = await signedUp(t, 'clear');
     const res = await c.post('/api/auth/sign-out', {});
@@ -308,7 +329,13 @@ describe('second factor: TOTP (RFC 6238) and recovery codes (ASVS 6.5.x, 6.6.x)'
     const refused = await member.c.get(`/api/teams/${teamId}/studies`);
     expect(refused.status).toBe(403);
     expect(refused.body.error.code).toBe('two_factor_required');
+    // The message says where to turn it on, by the names the screens use.
+    expect(refused.body.error.message).toContain('Account → Second factor');
     expect((await owner.c.get(`/api/teams/${teamId}/studies`)).status).toBe(200);
+    // The team page itself is closed too; `me` says which teams ask, so the client can say why.
+    expect((await member.c.get(`/api/teams/${teamId}`)).body.error.code).toBe('two_factor_required');
+    const asking = (await member.c.get('/api/auth/me')).body.teams.find((team: { id: string }) => team.id === teamId);
+    expect(asking.requireTwoFactor).toBe(true);
   });
 });
 

@@ -24,6 +24,9 @@ export function AllTeamsTable() {
             Kind
           </th>
           <th scope="col" className={th}>
+            Second factor
+          </th>
+          <th scope="col" className={th}>
             Your role
           </th>
         </tr>
@@ -35,6 +38,7 @@ export function AllTeamsTable() {
             <Link to={paths.team.href(team.id)}>{team.name}</Link>
           </th>
           <td className={td}>{team.personal ? <Badge>Personal</Badge> : 'Shared'}</td>
+          <td className={`${td} text-ink-soft`}>{team.requireTwoFactor ? 'Required of members' : 'Not required'}</td>
           <td className={`${td} text-ink-soft`}>{team.role ? roleNames[team.role] : 'Not a member'}</td>
         </tr>
       ))}

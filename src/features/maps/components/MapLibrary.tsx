@@ -5,7 +5,8 @@ import { Badge } from '../../../components/Badge';
 import { ButtonLink } from '../../../components/Button';
 import { Card } from '../../../components/Card';
 import { Loading, Page } from '../../../components/Page';
-import { isApiError } from '../../../lib/api-client';
+import { SecondFactorNeededPage } from '../../../components/SecondFactorNotice';
+import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
 import { paths } from '../../../lib/paths';
 import { useUnitSystem } from '../../../lib/units';
 import { useMaps } from '../api/get-maps';
@@ -24,6 +25,7 @@ export function MapLibrary({ teamId }: { teamId: string }) {
   const unitSystem = useUnitSystem();
   const [kind, setKind] = useState<KindChoice>('all');
 
+  if (isTwoFactorRequired(maps.error)) return <SecondFactorNeededPage title="Map library" teamName={teamName} />;
   if (maps.isError) {
     const missing = isApiError(maps.error) && (maps.error.status === 404 || maps.error.status === 403);
     return (

@@ -4,7 +4,8 @@ import { Badge } from '../../../components/Badge';
 import { buttonClass } from '../../../components/Button';
 import { Card } from '../../../components/Card';
 import { Loading, Page } from '../../../components/Page';
-import { isApiError } from '../../../lib/api-client';
+import { SecondFactorNeededPage } from '../../../components/SecondFactorNotice';
+import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useUnitSystem } from '../../../lib/units';
@@ -21,7 +22,9 @@ import { MapPlot } from './MapPlot';
 /** One map of the library: drawn, described, downloadable; named, annotated and deleted by editors. */
 export function MapView({ teamId, mapId, onDeleted }: { teamId: string; mapId: string; onDeleted: () => void }) {
   const map = useMap(teamId, mapId);
+  const { teamName } = useTeamAccess(teamId);
   if (map.isPending) return <Loading label="Loading the map…" />;
+  if (isTwoFactorRequired(map.error)) return <SecondFactorNeededPage title="Map" teamName={teamName} />;
   if (map.isError) {
     const missing = isApiError(map.error) && (map.error.status === 404 || map.error.status === 403);
     return (

@@ -1,11 +1,12 @@
 import { Link } from 'react-router';
-import type { TeamDetail } from '../../../../shared/schemas/account';
+import type { TeamDetail, TeamSummary } from '../../../../shared/schemas/account';
 import { Alert } from '../../../components/Alert';
 import { Badge } from '../../../components/Badge';
 import { Card } from '../../../components/Card';
 import { ConfirmButton } from '../../../components/ConfirmButton';
 import { Loading, Page } from '../../../components/Page';
-import { isApiError } from '../../../lib/api-client';
+import { SecondFactorNeeded } from '../../../components/SecondFactorNotice';
+import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
 import { roleAbilities, roleNames } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useMe } from '../../../lib/session';
@@ -18,6 +19,7 @@ import { PendingInvitations } from './PendingInvitations';
 import { RenameTeamForm } from './RenameTeamForm';
 import { TeamActivity } from './TeamActivity';
 import { TeamArchive } from './TeamArchive';
+import { TeamTwoFactorRule } from './TeamTwoFactorRule';
 
 /**
  * A team's page. What it offers follows the user's role: owners manage members, invitations
@@ -26,10 +28,14 @@ import { TeamArchive } from './TeamArchive';
  */
 export function TeamView({ teamId, onGone }: { teamId: string; onGone: () => void }) {
   const team = useTeam(teamId);
+  const me = useMe();
 
   // Data first: a failed background refetch keeps the page; the next action reports the problem.
   if (team.data !== undefined) return <TeamDetailView detail={team.data} onGone={onGone} />;
   if (team.isPending) return <Loading label="Loading the team…" />;
+  if (isTwoFactorRequired(team.error)) {
+    return <SecondFactorNeededView teamId={teamId} summary={me.data?.teams.find((t) => t.id === teamId) ?? null} onGone={onGone} />;
+  }
   const missing = isApiError(team.error) && (team.error.status === 404 || team.error.status === 403);
   return (
     <Page title={missing ? 'Team not found' : 'Team'}>
@@ -39,6 +45,22 @@ export function TeamView({ teamId, onGone }: { teamId: string; onGone: () => voi
           <Link to={paths.teams.href()}>Back to your teams</Link>
         </p>
       </Alert>
+    </Page>
+  );
+}
+
+/** A member of a team that asks for a second factor they have not turned on: why, the way to the set-up, and the door. */
+function SecondFactorNeededView({ teamId, summary, onGone }: { teamId: string; summary: TeamSummary | null; onGone: () => void }) {
+  const name = summary?.name ?? null;
+  return (
+    <Page eyebrow="Team" title={name ?? 'Team'} width="narrow">
+      <SecondFactorNeeded teamName={name} />
+      {summary && !summary.personal && (
+        <Card title="Leave the team">
+          <p className="mb-4 text-sm text-ink-soft">If you would rather not use a second factor, you can leave the team instead.</p>
+          <LeaveTeam teamId={teamId} teamName={summary.name} onLeft={onGone} />
+        </Card>
+      )}
     </Page>
   );
 }
@@ -66,6 +88,10 @@ function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => 
     >
       <Card title={`Members (${members.length})`}>
         <MembersTable teamId={team.id} members={members} currentUserId={me.data?.user.id ?? null} canManage={isOwner} />
+      </Card>
+
+      <Card title="Second factor">
+        <TeamTwoFactorRule team={team} ownerHasSecondFactor={me.data?.user.twoFactor ?? false} />
       </Card>
 
       {isOwner && (

@@ -5,8 +5,9 @@ import { Button } from '../../../components/Button';
 import { Card } from '../../../components/Card';
 import { ConfirmButton } from '../../../components/ConfirmButton';
 import { Loading, Page } from '../../../components/Page';
+import { SecondFactorNeededPage } from '../../../components/SecondFactorNotice';
 import { Table, td, th } from '../../../components/Table';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useDeleteDraft } from '../api/delete-draft';
@@ -26,6 +27,7 @@ export function TracerHome({ teamId }: { teamId: string }) {
   const again = useTraceAgain(teamId);
   const navigate = useNavigate();
 
+  if (isTwoFactorRequired(drafts.error)) return <SecondFactorNeededPage title="Tracer" teamName={teamName} />;
   if (drafts.isError) {
     const missing = isApiError(drafts.error) && (drafts.error.status === 404 || drafts.error.status === 403);
     return (

@@ -1,7 +1,8 @@
 import { Link } from 'react-router';
 import { Alert } from '../../../components/Alert';
 import { Loading, Page } from '../../../components/Page';
-import { isApiError } from '../../../lib/api-client';
+import { SecondFactorNeededPage } from '../../../components/SecondFactorNotice';
+import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
 import { paths } from '../../../lib/paths';
 import { useDraft } from '../api/get-draft';
 import { useTracerAccess } from '../lib/team-access';
@@ -12,6 +13,7 @@ export function TracerWorkspace({ teamId, draftId }: { teamId: string; draftId: 
   const draft = useDraft(teamId, draftId);
   const { teamName, canEdit } = useTracerAccess(teamId);
   if (draft.isPending) return <Loading label="Loading the trace…" />;
+  if (isTwoFactorRequired(draft.error)) return <SecondFactorNeededPage title="Tracer" teamName={teamName} />;
   if (draft.isError) {
     const missing = isApiError(draft.error) && (draft.error.status === 404 || draft.error.status === 403);
     return (

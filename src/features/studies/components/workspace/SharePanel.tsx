@@ -5,12 +5,15 @@ import { Badge } from '../../../../components/Badge';
 import { Button } from '../../../../components/Button';
 import { ConfirmButton } from '../../../../components/ConfirmButton';
 import { Loading } from '../../../../components/Page';
+import { Switch } from '../../../../components/Switch';
 import { inputClass } from '../../../../components/TextField';
 import { isApiError } from '../../../../lib/api-client';
 import { formatDateTime } from '../../../../lib/format';
 import { useCreateShareLink } from '../../api/create-share-link';
+import { useKeepShareLink } from '../../api/keep-share-link';
 import { useShareLinks, type ShareLink } from '../../api/get-share-links';
 import { useRevokeShareLink } from '../../api/revoke-share-link';
+import { useTeamAccess } from '../../hooks/use-team-access';
 
 function linkState(link: ShareLink): { label: string; tone: 'teal' | 'neutral' | 'copper' } {
   if (link.revokedAt) return { label: 'revoked', tone: 'neutral' };
@@ -27,6 +30,8 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
   const links = useShareLinks(teamId, studyId);
   const create = useCreateShareLink(teamId, studyId);
   const revoke = useRevokeShareLink(teamId, studyId);
+  const keep = useKeepShareLink(teamId, studyId);
+  const isOwner = useTeamAccess(teamId).role === 'owner';
   const [days, setDays] = useState('');
   const [never, setNever] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -57,7 +62,16 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
           <label htmlFor={daysId} className="block text-sm font-semibold text-ink">
             Expires after (days)
           </label>
-          <input id={daysId} inputMode="numeric" value={days} onChange={(e) => setDays(e.target.value)} placeholder="30" disabled={never} className={`${inputClass} w-32`} />
+          <input
+            id={daysId}
+            inputMode="numeric"
+            value={days}
+            onChange={(e) => setDays(e.target.value)}
+            placeholder="30"
+            disabled={never}
+            aria-describedby={`${daysId}-hint`}
+            className={`${inputClass} w-32`}
+          />
         </div>
         <label className="flex items-center gap-2 pb-2 text-sm">
           <input type="checkbox" checked={never} onChange={(e) => setNever(e.target.checked)} />
@@ -66,6 +80,9 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
         <Button type="submit" variant="primary" pending={create.isPending}>
           Make a share link
         </Button>
+        <p id={`${daysId}-hint`} className="w-full text-sm text-ink-soft">
+          Left empty, a link works for 30 days; any number from 1 to 365 works too. A link that never expires lasts until it is revoked.
+        </p>
       </form>
       {error && <Alert tone="error">{error}</Alert>}
       {fresh && (
@@ -88,6 +105,7 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
           </div>
         </div>
       )}
+      {keep.isError && <Alert tone="error">{keep.error.message}</Alert>}
       {links.isPending ? (
         <Loading label="Loading the share links…" />
       ) : links.isError ? (
@@ -99,16 +117,20 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
           {links.data.map((link) => {
             const state = linkState(link);
             return (
-              <li key={link.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2 text-sm">
-                <span>
-                  <Badge tone={state.tone}>{state.label}</Badge>{' '}
-                  made {formatDateTime(link.createdAt)}
-                  {link.createdBy ? ` by ${link.createdBy}` : ''}
-                  <span className="block text-ink-soft">
-                    {link.revokedAt ? `Revoked ${formatDateTime(link.revokedAt)}` : link.expiresAt ? `Expires ${formatDateTime(link.expiresAt)}` : 'Does not expire'}
-                    {!link.revokedAt && (link.kept ? ' · an owner keeps it if its maker leaves the team' : ' · stops if its maker leaves the team')}
-                  </span>
-                </span>
+              <li key={link.id} className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2 px-3 py-2 text-sm" data-testid="share-link">
+                <div className="min-w-0 space-y-2">
+                  <p>
+                    <Badge tone={state.tone}>{state.label}</Badge>{' '}
+                    made {formatDateTime(link.createdAt)}
+                    {link.createdBy ? ` by ${link.createdBy}` : ''}
+                    <span className="block text-ink-soft">
+                      {link.revokedAt ? `Revoked ${formatDateTime(link.revokedAt)}` : link.expiresAt ? `Expires ${formatDateTime(link.expiresAt)}` : 'Does not expire'}
+                      {/* Owners read it off their switch below. */}
+                      {!link.revokedAt && !(isOwner && state.label === 'active') && (link.kept ? ' · an owner keeps it if its maker leaves the team' : ' · stops if its maker leaves the team')}
+                    </span>
+                  </p>
+                  {isOwner && state.label === 'active' && <KeepSwitch link={link} keep={keep} />}
+                </div>
                 {state.label === 'active' && (
                   <ConfirmButton
                     variant="quiet"
@@ -127,5 +149,25 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
         </ul>
       )}
     </div>
+  );
+}
+
+/**
+ * An owner's choice for one link: a link stops when the member who made it leaves the team,
+ * unless an owner keeps it (for a customer who should go on seeing the study).
+ */
+function KeepSwitch({ link, keep }: { link: ShareLink; keep: ReturnType<typeof useKeepShareLink> }) {
+  const pending = keep.isPending && keep.variables?.linkId === link.id;
+  const kept = pending ? keep.variables!.kept : (link.kept ?? false);
+  const maker = link.createdBy ?? 'its maker';
+  return (
+    <Switch
+      label="Keep when its maker leaves"
+      description={kept ? `Goes on working if ${maker} leaves the team.` : `Stops if ${maker} leaves the team.`}
+      checked={kept}
+      pending={pending}
+      disabled={keep.isPending && !pending}
+      onChange={(next) => keep.mutate({ linkId: link.id, kept: next })}
+    />
   );
 }
