@@ -162,7 +162,8 @@ export function StudyReport({
         <ReportSection id="maps" title="3. Compressor maps with every operating line">
           <p className="text-sm text-ink-soft">
             Each plan is drawn on its own compressor map. Colour and marker tell the plans apart, the line dash the scenarios; a point
-            ringed in red crosses a limit, in copper raises a warning.
+            ringed in red crosses a limit, in copper raises a warning; a hollow point with a cross is one the compressor cannot deliver
+            (not reachable), placed where the engine asks to be.
           </p>
           {computed.groups.map((g) => (
             <figure key={g.key} className="report-figure space-y-1">
@@ -210,7 +211,7 @@ export function StudyReport({
         <ReportSection id="results" title={`${n(6)}. Results by operating point`}>
           <p className="text-sm text-ink-soft">
             Every point of every operating line. Columns continue in the table under each one; boost is gauge, other pressures absolute. A
-            red “!” marks a point that crosses a limit.
+            red “!” marks a point that crosses a limit; where the compressor cannot deliver a point, its results read “not reachable”.
           </p>
           <PrintResults lines={computed.lines} system={system} />
         </ReportSection>

@@ -162,8 +162,10 @@ export function StudyPlots({
               {p.name}
             </span>
           ))}
-          <span>· scenarios by line dash · a red outline marks a point past a limit</span>
         </div>
+        <p className="mb-2 text-xs text-ink-soft">
+          Scenarios by line dash. A red outline marks a point at a limit, copper a warning; a hollow, crossed point is not reachable with this compressor.
+        </p>
         <MemoMap
           map={drawnMap && drawnMap.kind === 'compressor' ? drawnMap : null}
           lines={mapLines}
