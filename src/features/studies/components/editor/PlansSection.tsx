@@ -7,7 +7,7 @@ import { ExhaustFields } from './ExhaustFields';
 import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from './fields';
 import { FieldRow, Section } from './Section';
 
-type Plan = { id: string; name: string; turbochargers: number; compressorEfficiency: number; maxShaftSpeed?: number; compressorMapId: string | null; turbineMapId?: string | null };
+type Plan = { id: string; name: string; turbochargers: number; compressorEfficiency: number; offMapEfficiency?: number; maxShaftSpeed?: number; compressorMapId: string | null; turbineMapId?: string | null };
 
 export function PlansSection({
   maps,
@@ -51,8 +51,22 @@ export function PlansSection({
           />
           <FieldRow>
             <CountField path={['plans', pi, 'turbochargers']} label="Turbochargers" />
-            <NumberField path={['plans', pi, 'compressorEfficiency']} label="Default efficiency" quantity="fraction" hint="Used where the map gives none." />
+            <NumberField path={['plans', pi, 'compressorEfficiency']} label="Default efficiency" quantity="fraction" hint="Used without a map, and below the map’s lowest speed line." />
           </FieldRow>
+          <NumberField
+            path={['plans', pi, 'offMapEfficiency']}
+            label="Off-map efficiency (assumption)"
+            quantity="fraction"
+            optional
+            testId={`plan-${pi}-off-map-efficiency`}
+            hint={
+              <>
+                Empty: points past choke, above the map or outside its speed lines are not reachable and give no results. Set, they are computed on
+                this efficiency, and the findings name the assumption. It never covers surge or overspeed: those stay limits. Use it only with the
+                turbocharger maker’s word that the wheel runs there.
+              </>
+            }
+          />
           <NumberField path={['plans', pi, 'maxShaftSpeed']} label="Max wheel speed" quantity="speed" optional hint="Empty: the map's rated speed; the lower of the two applies." />
           <ExhaustFields planIndex={pi} turbineMaps={turbineMaps} turbineMapsError={turbineMapsError} />
           {!editor.readOnly && (
