@@ -109,7 +109,8 @@ function PlanVerdictRow({
           {verdict.planName}
         </span>
         <VerdictStamp status={verdict.status} />
-        <div className="min-w-0 flex-1 text-sm text-ink" data-testid="verdict-reason">
+        {counts && <span className="numeric ml-auto whitespace-nowrap pt-0.5 text-xs text-ink-soft @3xl:order-last">{counts}</span>}
+        <div className="min-w-0 basis-full text-sm text-ink @3xl:basis-0 @3xl:flex-1" data-testid="verdict-reason">
           {first && !judgedWithoutMap ? (
             onSelect ? (
               <ReasonButton reason={first} onSelect={() => select(first)} selected={isSelected(first)} />
@@ -120,10 +121,9 @@ function PlanVerdictRow({
             <span className="px-1.5 text-ink-soft">{summaryWords(verdict)}</span>
           )}
         </div>
-        {counts && <span className="numeric whitespace-nowrap pt-0.5 text-xs text-ink-soft">{counts}</span>}
       </div>
       {more.length > 0 && !judgedWithoutMap && onSelect && (
-        <details className="mt-1 pl-[calc(10rem+0.75rem)] max-md:pl-0">
+        <details className="mt-1 @3xl:pl-[calc(10rem+0.75rem)]">
           <summary className="cursor-pointer text-xs text-ink-soft marker:text-ink-faint hover:text-teal-dark">
             {more.length} more {more.length === 1 ? 'reason' : 'reasons'}
           </summary>
@@ -141,7 +141,7 @@ function PlanVerdictRow({
         </details>
       )}
       {more.length > 0 && !judgedWithoutMap && !onSelect && (
-        <p className="mt-0.5 text-xs text-ink-soft">
+        <p className="mt-0.5 text-xs text-ink-soft @3xl:pl-[calc(10rem+0.75rem)]">
           and {more.length} more {more.length === 1 ? 'reason' : 'reasons'}, every one among the findings
         </p>
       )}
@@ -176,7 +176,7 @@ export function PlanVerdicts({
   if (verdicts.length === 0) return null;
   const requirements = lines[0]?.line.context.requirements;
   return (
-    <section aria-labelledby="plan-verdicts-title" className="space-y-2" data-testid="plan-verdicts">
+    <section aria-labelledby="plan-verdicts-title" className="@container space-y-2" data-testid="plan-verdicts">
       <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-0.5">
         <h2 id="plan-verdicts-title" className="text-lg font-semibold text-ink">
           Verdict by plan

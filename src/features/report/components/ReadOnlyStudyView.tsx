@@ -4,6 +4,7 @@ import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { planColour } from '../../../components/plots/style';
 import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
+import { PlanVerdicts } from '../../../components/study/PlanVerdicts';
 import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
 import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
 import { ResultsTable } from '../../../components/study/ResultsTable';
@@ -73,7 +74,7 @@ function MapChooser({
 }
 
 /**
- * A computed study that nobody can change here: its maps with the operating lines, the curves,
+ * A computed study that nobody can change here: the verdict of each plan, its maps with the operating lines, the curves,
  * the findings, the Working of a chosen point and the results table. Used by the shared view;
  * a team's viewers can be shown the same.
  */
@@ -110,6 +111,9 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
   return (
     <div className="space-y-6" data-testid="read-only-study">
       <StudyCaution />
+      <Card>
+        <PlanVerdicts lines={computed.lines} selected={selected} onSelect={select} />
+      </Card>
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
         <div className="min-w-0 space-y-6">
           <Card title="Compressor map" actions={group ? <span className="text-sm text-ink-soft">{group.planNames.join(', ')}</span> : undefined}>

@@ -6,6 +6,7 @@ import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { mapLineViews, turbineLineViews } from '../../../components/study/lines';
 import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
+import { PlanVerdicts } from '../../../components/study/PlanVerdicts';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import { useDocumentTitle } from '../../../components/Page';
 import { formatDateTime } from '../../../lib/format';
@@ -61,7 +62,7 @@ function ReportSection({ id, title, children, className = '' }: { id: string; ti
 }
 
 /**
- * The printable report of a study: title, revision and date, the caution, every input, the
+ * The printable report of a study: title, revision and date, the caution, the verdict of each plan, every input, the
  * assumptions, the maps with every operating line (the turbine maps too when some plan has an
  * exhaust side), the curves, the findings and the results of every point. Made for paper (with
  * src/styles/print.css); on screen it reads as a sheet.
@@ -149,6 +150,10 @@ export function StudyReport({
             )}
           </dl>
           <StudyCaution />
+          {/* The answer first: each plan's verdict on the first page, before the inputs it rests on. */}
+          <div className="report-verdicts rounded-md border border-paper-line bg-paper/40 p-3">
+            <PlanVerdicts lines={computed.lines} />
+          </div>
         </header>
 
         <ReportSection id="inputs" title="1. Inputs" className="report-first">
