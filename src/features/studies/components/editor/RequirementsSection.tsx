@@ -1,4 +1,5 @@
-import { REQUIREMENT_DEFAULTS, type Requirements } from '../../../../../shared/matching/requirements';
+import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '../../../../../shared/matching/requirements';
+import type { RequirementsInput } from '../../../../../shared/matching/types';
 import { formatStudyValue, inputText, quantityUnit, type StudyQuantity } from '../../../../components/study/units';
 import { getIn, pathKey } from '../../lib/draft';
 import { localizeIssue } from '../../lib/localize-issue';
@@ -97,6 +98,10 @@ function RequirementField({ spec }: { spec: RequirementSpec }) {
  */
 export function RequirementsSection() {
   const editor = useEditor();
+  const set = getIn(editor.draft, ['requirements']);
+  const resolved = resolveRequirements(set && typeof set === 'object' ? (set as RequirementsInput) : undefined);
+  // A warning leaner than the limit would never be raised: the limit is met first.
+  const warningPastLimit = resolved.lambdaWarningUnderBoost > resolved.lambdaLimitUnderBoost;
   return (
     <Section title="Required margins" prefixes={['requirements']} testId="section-requirements">
       <p className="text-xs text-ink-soft">
@@ -117,6 +122,12 @@ export function RequirementsSection() {
           <RequirementField key={spec.key} spec={spec} />
         ))}
       </FieldRow>
+      {warningPastLimit && (
+        <p role="alert" className="text-sm font-medium text-copper-ink" data-testid="lambda-order">
+          ! The lambda warning ({resolved.lambdaWarningUnderBoost}) is leaner than the limit ({resolved.lambdaLimitUnderBoost}): a point past the
+          limit does not fit before the warning could be raised. Set the warning at or below the limit.
+        </p>
+      )}
       <RequirementField spec={UNDER_BOOST} />
       {!editor.readOnly && (
         <p className="text-xs text-ink-soft">Lean mixtures under boost burn pistons and valves: keep to the fuel system maker’s and your calibrator’s targets.</p>
