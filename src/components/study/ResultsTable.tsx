@@ -43,7 +43,8 @@ function ValueCell({ row, column, system }: { row: ResultTableRow; column: Resul
   if (!note) return <>{cellText(row, column, system)}</>;
   if (note.text === '—') {
     return (
-      <span title={note.why} className="cursor-help border-b border-dotted border-ink-faint text-ink-faint">
+      // relative: the hidden words stay inside the scrolling table, not off the side of the page.
+      <span title={note.why} className="relative cursor-help border-b border-dotted border-ink-faint text-ink-faint">
         —<span className="sr-only"> ({note.why})</span>
       </span>
     );
