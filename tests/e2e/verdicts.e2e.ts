@@ -1,45 +1,26 @@
-import type { Browser, BrowserContext } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { planVerdicts, reasonText, VERDICT_RANK } from '../../shared/matching/verdict';
 import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
 import { compareLines } from '../../shared/study/compare';
 import { runStudyDocument } from '../../shared/study/run';
-import { baseUrl, builtinMap, closeTestDatabase, DEMO_USER, launchBrowser, screenshot, shownNumber, signIn, watchForPageErrors } from './browser';
+import { DEMO_STUDY_TITLE } from '../../server/db/seed';
+import { baseUrl, builtinMap, screenshot, shownNumber, suiteBrowser } from './browser';
 
 // The verdict of each plan in the production build: the seeded demo study (only read here), its
 // S44 plan judged "does not fit" with the reason the shared engine gives for the same document and
 // maps in node, that reason selecting its point, then Side by side with S44 and another plan: the
 // verdict row first and no best anywhere in the S44 column.
 
-const DEMO_STUDY = 'Hill-climb 2.0: which compressor?';
+const DEMO_STUDY = DEMO_STUDY_TITLE;
 // plotly.js is large and this machine may be busy: give plots time to arrive.
 const PLOT_TIMEOUT = 180_000;
 
 describe('verdicts in the browser', () => {
-  let browser: Browser;
-  const contexts: BrowserContext[] = [];
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    for (const c of contexts) await c.close();
-    await browser?.close();
-    await closeTestDatabase();
-  });
+  const suite = suiteBrowser(PLOT_TIMEOUT);
 
   it('judges the S44 plan "does not fit" with its reason, and marks no best on it side by side', async () => {
     const base = baseUrl();
-    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-    contexts.push(context);
-    const page = await context.newPage();
-    page.setDefaultTimeout(PLOT_TIMEOUT);
-    const errors = watchForPageErrors(page);
-    await signIn(page);
-    expect((await page.request.patch(`${base}/api/auth/me`, { data: { unitSystem: 'si' }, headers: { Origin: base } })).status()).toBe(200);
-
-    const me = (await (await page.request.get(`${base}/api/auth/me`)).json()) as { teams: { id: string; name: string }[] };
-    const teamId = me.teams.find((t) => t.name === DEMO_USER.team)!.id;
+    const { page, errors, teamId } = await suite.demoPage({ width: 1440, height: 900 });
     const list = (await (await page.request.get(`${base}/api/teams/${teamId}/studies?q=${encodeURIComponent(DEMO_STUDY)}`)).json()) as { studies: { id: string; title: string }[] };
     const studyId = list.studies.find((s) => s.title === DEMO_STUDY)?.id;
     expect(studyId, 'the seeded demo study').toBeTruthy();

@@ -1,10 +1,6 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
 import { useMemo, useState } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
 import { planVerdicts } from '../../../shared/matching/verdict';
 import { studyDocumentSchema } from '../../../shared/schemas/study';
 import { runStudyDocument } from '../../../shared/study/run';
@@ -12,11 +8,11 @@ import { EditorContext, type Editor } from '../../../src/features/studies/compon
 import { PlansSection } from '../../../src/features/studies/components/editor/PlansSection';
 import { RequirementsSection } from '../../../src/features/studies/components/editor/RequirementsSection';
 import { issuesByPath, setIn } from '../../../src/features/studies/lib/draft';
+import { demoDocument, demoMaps } from './demo-study';
 
 afterEach(cleanup);
 
-const root = path.resolve(import.meta.dirname, '../../..');
-const demo = JSON.parse(readFileSync(path.join(root, 'data/demo/hillclimb-study.json'), 'utf8')) as Record<string, unknown>;
+const demo = demoDocument();
 
 /** The required margins (and the plans) of the demo study, editing a live draft as the study page does. */
 function Host({ unitSystem = 'si', readOnly = false, start = demo, onDraft }: { unitSystem?: 'si' | 'us'; readOnly?: boolean; start?: Record<string, unknown>; onDraft: (draft: Record<string, unknown>) => void }) {
@@ -100,11 +96,7 @@ describe('required margins in the study editor', () => {
     let draft: Record<string, unknown> = {};
     render(<Host onDraft={(d) => (draft = d)} />);
     fireEvent.change(box('minSurgeMargin'), { target: { value: '30' } });
-    const maps: Record<string, SpoolbookMap> = {};
-    for (const name of ['s44', 'm58', 'l76']) {
-      const parsed = parseMapFile(readFileSync(path.join(root, `data/maps/compressor-${name}.csv`), 'utf8'));
-      if (parsed.ok) maps[`builtin-compressor-${name}`] = parsed.map;
-    }
+    const maps = demoMaps();
     const warnings = (doc: unknown) => planVerdicts(runStudyDocument(studyDocumentSchema.parse(doc), maps)).map((v) => v.pointsWithWarnings);
     const before = warnings(demo);
     const after = warnings(draft);

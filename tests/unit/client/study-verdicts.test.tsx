@@ -1,9 +1,5 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
 import type { Finding, OperatingLine, OperatingPoint, PointValues } from '../../../shared/matching/types';
 import { planVerdicts, reasonText, VERDICT_WORDS } from '../../../shared/matching/verdict';
 import { studyDocumentSchema } from '../../../shared/schemas/study';
@@ -17,17 +13,12 @@ import { rpmCurvesFigure, CURVE_VIEWS } from '../../../src/components/study/rpm-
 import type { ChosenLine } from '../../../src/features/compare/components/CombinationMark';
 import { rankByVerdict } from '../../../src/features/compare/components/CompareView';
 import { DifferencesTable } from '../../../src/features/compare/components/DifferencesTable';
+import { demoDocument, demoMaps } from './demo-study';
 
 afterEach(cleanup);
 
-const root = path.resolve(import.meta.dirname, '../../..');
-const demo = studyDocumentSchema.parse(JSON.parse(readFileSync(path.join(root, 'data/demo/hillclimb-study.json'), 'utf8')));
-const maps: Record<string, SpoolbookMap> = {};
-for (const name of ['s44', 'm58', 'l76']) {
-  const parsed = parseMapFile(readFileSync(path.join(root, `data/maps/compressor-${name}.csv`), 'utf8'));
-  if (!parsed.ok) throw new Error(`demo map ${name} does not parse`);
-  maps[`builtin-compressor-${name}`] = parsed.map;
-}
+const demo = studyDocumentSchema.parse(demoDocument());
+const maps = demoMaps();
 const result = runStudyDocument(demo, maps);
 const lines = studyLines(result, demo.plans);
 const verdicts = planVerdicts(result);
