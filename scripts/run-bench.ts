@@ -17,7 +17,7 @@ async function main() {
     .filter((f) => f.endsWith('.bench.ts'))
     .filter((f) => filters.length === 0 || filters.some((x) => f.includes(x)))
     .sort();
-  const databaseUrl = await prepareDatabase(root, { database: 'spoolbook_bench', fresh: true });
+  const databaseUrl = await prepareDatabase(root, { database: 'spoolbook_bench', fresh: true, demo: true });
   let failed = 0;
   for (const file of files) {
     console.log(`\n=== ${file} ===`);

@@ -68,9 +68,9 @@ async function main() {
   mkdirSync(results, { recursive: true });
 
   step('test database');
-  const databaseUrl = await prepareDatabase(root, { database: 'spoolbook_test', fresh: true });
+  const databaseUrl = await prepareDatabase(root, { database: 'spoolbook_test', fresh: true, demo: true });
   const env = { DATABASE_URL: databaseUrl, LOG_LEVEL: 'silent', NODE_ENV: 'test' };
-  console.log('fresh database spoolbook_test, migrated and seeded');
+  console.log('fresh database spoolbook_test, migrated and seeded with the demo (test only)');
 
   step('type check');
   if (run(bin('tsc'), ['--noEmit', '-p', 'tsconfig.json']) !== 0) {

@@ -59,11 +59,16 @@ async function main() {
     console.error(`Spoolbook is already running on port ${port} (${running}). Open http://${host}:${port}, stop it first, or start another one with PORT=<other port> npm start.`);
     process.exit(1);
   }
-  const databaseUrl = await prepareDatabase(root, {});
-  console.log('[setup] database migrated and demo data in place');
+  // Development is `npm start` on its own local cluster, served on loopback: only there do the demo
+  // accounts (with the published passwords below) exist. With DATABASE_URL, or NODE_ENV set to
+  // anything else, or a HOST other than loopback, it is a real deployment: no demo, no known password.
+  const loopback = ['127.0.0.1', 'localhost', '::1'].includes(host);
+  const development = !process.env.DATABASE_URL && (process.env.NODE_ENV ?? 'development') === 'development' && loopback;
+  const databaseUrl = await prepareDatabase(root, { demo: development });
+  console.log(development ? '[setup] database migrated and demo data in place (development)' : '[setup] database migrated (no demo data outside development)');
   await buildClientIfStale();
   process.env.DATABASE_URL = databaseUrl;
-  process.env.NODE_ENV ??= 'production';
+  process.env.NODE_ENV ??= development ? 'development' : 'production';
   const { startServer } = await import('../server/index');
   const server = await startServer();
   mkdirSync(path.dirname(pidFile), { recursive: true });
@@ -75,11 +80,17 @@ async function main() {
       // already gone
     }
   });
+  const signIns = development
+    ? `  Demo sign-in:  ${DEMO_USER.email}  /  ${DEMO_USER.password}
+  Site admin:    ${ADMIN_USER.email}  /  ${ADMIN_USER.password}   (mail outbox under Admin)
+  (development only: these accounts exist only in this local database)`
+    : `  No demo accounts here. Make the first site admin with
+    npm run admin -- <e-mail> "<name>"     (prints a one-time link to choose the password)
+  or start with ADMIN_EMAIL=<e-mail> set (the link is mailed there).`;
   console.log(`
   Spoolbook is running at ${server.url}
 
-  Demo sign-in:  ${DEMO_USER.email}  /  ${DEMO_USER.password}
-  Site admin:    ${ADMIN_USER.email}  /  ${ADMIN_USER.password}   (mail outbox under Admin)
+${signIns}
 
   Stop with Ctrl-C.
 `);

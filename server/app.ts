@@ -14,6 +14,8 @@ import { jsonBody } from './http/body';
 import { errorHandler, HttpError, notFoundHandler } from './http/errors';
 import { requireSameOrigin } from './http/origin';
 import type { Mailer } from './mail/mailer';
+import { startMailWorker, type MailWorker } from './mail/queue';
+import { createLimits, defaultLimitSettings, type LimitSettings, type Limits } from './services/limits';
 import { adminRouter } from './routes/admin';
 import { archiveRouter } from './routes/archive';
 import { adminAuditRouter, teamAuditRouter } from './routes/audit';
@@ -34,6 +36,10 @@ export interface AppDeps {
   mailer: Mailer;
   logger: Logger;
   auth: Auth;
+  /** Every rate limit, counted in PostgreSQL (shared by all instances). */
+  limits: Limits;
+  /** This process's sender of queued mail, and work done after answering. */
+  mail: MailWorker;
 }
 
 export interface CreateAppOptions {
@@ -43,14 +49,27 @@ export interface CreateAppOptions {
   logger?: Logger;
   /** Compute requests per client per minute; only benchmarks raise it (50 users share one address there). */
   computeRateLimitPerMinute?: number;
+  /** Other limits to change (tests lower them to reach them quickly). */
+  limitSettings?: Partial<LimitSettings>;
+  /** How often the mail worker looks at the queue, ms. */
+  mailIntervalMs?: number;
+  /** Starts every rate-limit key; tests give each app its own (server/services/limits.ts). */
+  rateLimitNamespace?: string;
 }
 
 const defaultClientDir = fileURLToPath(new URL('../dist/client', import.meta.url));
 
 /** Builds the whole app without listening, so tests can drive it with supertest. */
-export function createApp({ database, config, mailer, logger = pino({ level: config.logLevel }), computeRateLimitPerMinute }: CreateAppOptions): { app: Express; deps: AppDeps } {
+export function createApp({ database, config, mailer, logger = pino({ level: config.logLevel }), computeRateLimitPerMinute, limitSettings, mailIntervalMs, rateLimitNamespace }: CreateAppOptions): { app: Express; deps: AppDeps } {
   const auth = createLucia(database.db, config);
-  const deps: AppDeps = { db: database.db, pool: database.pool, config, mailer, logger, auth };
+  const settings: LimitSettings = {
+    ...defaultLimitSettings(config.authRateLimit),
+    ...(computeRateLimitPerMinute === undefined ? {} : { computePerMinute: computeRateLimitPerMinute }),
+    ...limitSettings,
+  };
+  const limits = createLimits(database.pool, settings, rateLimitNamespace);
+  const mail = startMailWorker(database.db, mailer, logger, mailIntervalMs);
+  const deps: AppDeps = { db: database.db, pool: database.pool, config, mailer, logger, auth, limits, mail };
   const app = express();
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', config.trustProxy);
@@ -68,6 +87,8 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
           connectSrc: ["'self'"],
           workerSrc: ["'self'", 'blob:'],
           objectSrc: ["'none'"],
+          baseUri: ["'none'"],
+          formAction: ["'self'"],
           frameAncestors: ["'none'"],
           upgradeInsecureRequests: config.secureCookies ? [] : null,
         },
@@ -96,7 +117,7 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   api.use((req, _res, next) => next(/%00/.test(req.originalUrl) ? new HttpError(404, 'not_found', 'Not found.') : undefined));
   api.use(jsonBody());
   api.use(requireSameOrigin(config.allowedOrigins, auth.sessionCookieName));
-  api.use(sessionMiddleware(auth, config.sessionAbsoluteMs));
+  api.use(sessionMiddleware(auth, config.sessionAbsoluteMs, database.db));
   api.use((_req, res, next) => {
     res.set('Cache-Control', 'no-store');
     next();
@@ -113,7 +134,7 @@ export function createApp({ database, config, mailer, logger = pino({ level: con
   api.use('/teams', teamsRouter(deps));
   api.use('/invitations', invitationsRouter(deps));
   api.use('/admin', adminRouter(deps));
-  api.use('/compute', computeRouter(computeRateLimitPerMinute === undefined ? {} : { rateLimitPerMinute: computeRateLimitPerMinute }));
+  api.use('/compute', computeRouter(deps));
   api.use(notFoundHandler);
   app.use('/api', api);
 

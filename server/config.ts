@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
 const port = z.coerce.number().int().min(0).max(65535);
+const LOOPBACK = new Set(['127.0.0.1', 'localhost', '::1']);
 
 /** Every environment variable the server reads, checked once at start-up. See README "Configuration". */
 const envSchema = z.object({
@@ -20,7 +21,11 @@ const envSchema = z.object({
   AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(10),
   TRUST_PROXY: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
-  NODE_ENV: z.string().default('development'),
+  /** `development` only for `npm start` on its own local cluster: demo accounts and the unmasked outbox. */
+  NODE_ENV: z.string().default('production'),
+  /** The first site admin, made at start-up when there is none: this address gets a link to choose a password. */
+  ADMIN_EMAIL: z.string().trim().toLowerCase().pipe(z.email('must be an e-mail address')).optional(),
+  ADMIN_NAME: z.string().trim().min(1).max(80).default('Site admin'),
   CLIENT_DIR: z.string().optional(),
   /** Most time a client may take to send a whole request (headers and body), ms; slow clients are cut off. */
   REQUEST_TIMEOUT_MS: z.coerce.number().int().min(100).max(3_600_000).default(60_000),
@@ -31,6 +36,9 @@ const envSchema = z.object({
 }).refine((e) => e.HEADERS_TIMEOUT_MS <= e.REQUEST_TIMEOUT_MS, {
   path: ['HEADERS_TIMEOUT_MS'],
   message: 'must be at most REQUEST_TIMEOUT_MS',
+}).refine((e) => e.NODE_ENV !== 'development' || LOOPBACK.has(e.HOST), {
+  path: ['HOST'],
+  message: 'development mode (demo accounts with published passwords, an unmasked outbox) serves on loopback only; use 127.0.0.1, or NODE_ENV=production',
 });
 
 export interface Config {
@@ -49,6 +57,10 @@ export interface Config {
   trustProxy: string | false;
   logLevel: string;
   production: boolean;
+  /** NODE_ENV=development: `npm start` on its own local cluster, loopback only. */
+  development: boolean;
+  /** The first site admin to make at start-up when there is none (ADMIN_EMAIL, ADMIN_NAME). */
+  firstAdmin: { email: string; name: string } | null;
   clientDir: string | null;
   /** Node's server.requestTimeout, ms. */
   requestTimeoutMs: number;
@@ -87,6 +99,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: e.TRUST_PROXY ?? false,
     logLevel: e.LOG_LEVEL,
     production: e.NODE_ENV === 'production',
+    development: e.NODE_ENV === 'development',
+    firstAdmin: e.ADMIN_EMAIL ? { email: e.ADMIN_EMAIL, name: e.ADMIN_NAME } : null,
     clientDir: e.CLIENT_DIR ?? null,
     requestTimeoutMs: e.REQUEST_TIMEOUT_MS,
     headersTimeoutMs: e.HEADERS_TIMEOUT_MS,

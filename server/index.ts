@@ -10,6 +10,10 @@ import { createApp } from './app';
 import { isDatabaseUnavailable } from './http/errors';
 import { startFakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
+import { enqueueMail, type MailWorker } from './mail/queue';
+import { firstAdminMail } from './mail/templates';
+import { FIRST_ADMIN_LINK_MINUTES, hasSiteAdmin, makeSiteAdmin } from './services/admins';
+import type { LimitSettings } from './services/limits';
 
 export interface RunningServer {
   /** The address people open (PUBLIC_URL). */
@@ -33,6 +37,8 @@ export interface StartOptions {
   retryDelayMs?: number;
   /** Compute requests per client per minute (createApp's option); tests that send hundreds raise it. */
   computeRateLimitPerMinute?: number;
+  /** Other limits (createApp's option); tests that upload hundreds of files raise them. */
+  limitSettings?: Partial<LimitSettings>;
 }
 
 /** host:port/database of a PostgreSQL URL, for log lines: never the password. */
@@ -118,7 +124,8 @@ export async function startServer(config: Config = loadConfig(), options: StartO
     logger.info({ port: fakeSmtp.port }, 'local fake SMTP server is catching mail into the outbox');
   }
   const mailer = createMailer(smtpUrl, config.mailFrom);
-  const { app } = createApp({ database, config, mailer, logger, computeRateLimitPerMinute: options.computeRateLimitPerMinute });
+  const { app, deps } = createApp({ database, config, mailer, logger, computeRateLimitPerMinute: options.computeRateLimitPerMinute, limitSettings: options.limitSettings });
+  if (config.firstAdmin) await ensureFirstAdmin(database, config, deps.mail, logger);
 
   let stopping = false;
   const inFlight = new Set<http.ServerResponse>();
@@ -180,6 +187,7 @@ export async function startServer(config: Config = loadConfig(), options: StartO
       server.close(async () => {
         clearTimeout(force);
         logger.info('HTTP server closed; closing mail and the database pool');
+        deps.mail.stop();
         mailer.close();
         await fakeSmtp?.close().catch(() => undefined);
         // Bounded too: a client someone never gave back must not keep the process alive.
@@ -206,6 +214,21 @@ export async function startServer(config: Config = loadConfig(), options: StartO
     process.on('SIGINT', () => onSignal('SIGINT'));
   }
   return { url: config.publicUrl, address, server, database, stop };
+}
+
+/**
+ * ADMIN_EMAIL: when the site has no admin yet, that address becomes one. A new account gets no
+ * password anyone knows, only a one-time link to choose one, mailed to the address (never logged).
+ */
+async function ensureFirstAdmin(database: Database, config: Config, mail: MailWorker, logger: Logger) {
+  const wanted = config.firstAdmin!;
+  if (await hasSiteAdmin(database.db)) return;
+  const { created, token } = await makeSiteAdmin(database.db, wanted.email, wanted.name);
+  if (token) {
+    await enqueueMail(database.db, firstAdminMail(wanted.email, `${config.publicUrl}/reset-password?token=${token}`, FIRST_ADMIN_LINK_MINUTES));
+    mail.kick();
+  }
+  logger.info({ created }, created ? 'first site admin made from ADMIN_EMAIL; a link to choose the password was mailed' : 'the account of ADMIN_EMAIL is now a site admin');
 }
 
 /**

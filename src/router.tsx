@@ -17,6 +17,8 @@ import { NotFoundRoute } from './routes/not-found';
 import { ResetPasswordRoute } from './routes/reset-password';
 import { RouteError } from './routes/route-error';
 import { SettingsRoute } from './routes/settings';
+import { SessionsRoute } from './routes/sessions';
+import { ConfirmEmailRoute } from './routes/confirm-email';
 import { SignInRoute } from './routes/sign-in';
 import { SignUpRoute } from './routes/sign-up';
 import { StudiesRoute } from './routes/studies';
@@ -55,6 +57,7 @@ export const routes = [
         children: [
           { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
           { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
+          { path: paths.confirmEmail.path, element: <ConfirmEmailRoute /> },
           { path: paths.invitation.path, element: <InvitationRoute /> },
         ],
       },
@@ -80,6 +83,7 @@ export const routes = [
               { path: paths.teams.path, element: <TeamsRoute /> },
               { path: paths.team.path, element: <TeamRoute /> },
               { path: paths.settings.path, element: <SettingsRoute /> },
+              { path: paths.sessions.path, element: <SessionsRoute /> },
               {
                 path: paths.admin.path,
                 element: <RequireAdmin />,

@@ -3,7 +3,7 @@ import type { User } from 'lucia';
 import type { Role } from '../../shared/schemas/account';
 import type { Db } from '../db/client';
 import { teamMembers, teams } from '../db/schema';
-import { forbidden, notFound } from '../http/errors';
+import { forbidden, HttpError, notFound } from '../http/errors';
 
 /** Everything a member may do in a team, as `area:action` strings. */
 export type Permission =
@@ -45,7 +45,12 @@ export interface TeamAccess {
   personal: boolean;
   /** The user's role; null for a site admin who is not a member. */
   role: Role | null;
+  /** Members must have the second factor on to open the team's data. */
+  requireTwoFactor: boolean;
 }
+
+/** What a member without a second factor may still do in a team that asks for one. */
+const WITHOUT_SECOND_FACTOR: ReadonlySet<Permission> = new Set(['team:leave']);
 
 /**
  * The one place that decides access to a team's data. A team the user cannot see answers 404
@@ -53,14 +58,17 @@ export interface TeamAccess {
  */
 export async function requireTeamPermission(db: Db, user: User, teamId: string, permission: Permission): Promise<TeamAccess> {
   const rows = await db
-    .select({ teamId: teams.id, teamName: teams.name, personal: teams.personal, role: teamMembers.role })
+    .select({ teamId: teams.id, teamName: teams.name, personal: teams.personal, requireTwoFactor: teams.requireTwoFactor, role: teamMembers.role })
     .from(teams)
     .leftJoin(teamMembers, and(eq(teamMembers.teamId, teams.id), eq(teamMembers.userId, user.id)))
     .where(eq(teams.id, teamId))
     .limit(1);
   const row = rows[0];
   if (!row || (!row.role && !user.isAdmin)) throw notFound('No such team.');
-  const access: TeamAccess = { teamId: row.teamId, teamName: row.teamName, personal: row.personal, role: row.role };
+  const access: TeamAccess = { teamId: row.teamId, teamName: row.teamName, personal: row.personal, role: row.role, requireTwoFactor: row.requireTwoFactor };
   if (!can(access.role, permission, user.isAdmin)) throw forbidden();
+  if (access.requireTwoFactor && access.role && !user.twoFactor && !WITHOUT_SECOND_FACTOR.has(permission)) {
+    throw new HttpError(403, 'two_factor_required', `The team "${access.teamName}" asks its members to use a second factor. Turn it on under Settings → Security, then come back.`);
+  }
   return access;
 }

@@ -1,7 +1,11 @@
-import type { RequestHandler, Response } from 'express';
+import { eq } from 'drizzle-orm';
+import type { Request, RequestHandler, Response } from 'express';
 import type { Session, User } from 'lucia';
+import type { Db } from '../db/client';
+import { sessions } from '../db/schema';
 import { HttpError, unauthorized } from '../http/errors';
 import type { Auth } from './lucia';
+import { hashToken } from './tokens';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -13,11 +17,20 @@ declare global {
   }
 }
 
+/** How often a session's "last seen" time and address are written, at most. */
+const LAST_SEEN_EVERY_MS = 60_000;
+
+/** The client's address as Express sees it (TRUST_PROXY decides whether a proxy's header counts). */
+export function clientAddress(req: Request): string {
+  return req.ip ?? req.socket.remoteAddress ?? 'unknown';
+}
+
 /**
  * Reads the session cookie, validates it (lucia's sliding idle expiry plus our absolute cap),
  * and puts the user and session in res.locals. A refreshed or cleared cookie is sent back.
+ * Notes when and from where the session was last used, at most once a minute.
  */
-export function sessionMiddleware(auth: Auth, absoluteLifetimeMs: number): RequestHandler {
+export function sessionMiddleware(auth: Auth, absoluteLifetimeMs: number, db: Db): RequestHandler {
   return async (req, res, next) => {
     res.locals.user = null;
     res.locals.session = null;
@@ -31,6 +44,12 @@ export function sessionMiddleware(auth: Auth, absoluteLifetimeMs: number): Reque
     }
     if (session?.fresh) res.append('Set-Cookie', auth.createSessionCookie(session.id).serialize());
     if (!session) res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+    if (session) {
+      const ip = clientAddress(req);
+      if (Date.now() - new Date(session.lastSeenAt).getTime() > LAST_SEEN_EVERY_MS || session.ip !== ip) {
+        await db.update(sessions).set({ lastSeenAt: new Date(), ip }).where(eq(sessions.id, hashToken(session.id)));
+      }
+    }
     res.locals.user = user;
     res.locals.session = session;
     next();
@@ -38,8 +57,14 @@ export function sessionMiddleware(auth: Auth, absoluteLifetimeMs: number): Reque
 }
 
 /** Starts a new session (a fresh id at every sign-in: OWASP ASVS 5.0 7.2.4) and sets its cookie. */
-export async function startSession(auth: Auth, res: Response, userId: string) {
-  const session = await auth.createSession(userId, { createdAt: new Date() });
+export async function startSession(auth: Auth, req: Request, res: Response, userId: string) {
+  const now = new Date();
+  const session = await auth.createSession(userId, {
+    createdAt: now,
+    lastSeenAt: now,
+    ip: clientAddress(req),
+    userAgent: (req.get('user-agent') ?? '').slice(0, 300) || null,
+  });
   res.append('Set-Cookie', auth.createSessionCookie(session.id).serialize());
   return session;
 }
@@ -54,4 +79,11 @@ export function requireAdmin(res: Response): User {
   const user = requireUser(res);
   if (!user.isAdmin) throw new HttpError(404, 'not_found', 'Not found.');
   return user;
+}
+
+/** Sending invitations, creating and joining teams need an address that has been confirmed. */
+export function requireConfirmedEmail(user: User) {
+  if (!user.emailConfirmed) {
+    throw new HttpError(403, 'email_unconfirmed', `Confirm your e-mail address first: open the link we sent to ${user.email}. You can have it sent again from Settings.`);
+  }
 }

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { boolean, customType, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { bigint, boolean, customType, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, varchar } from 'drizzle-orm/pg-core';
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
@@ -17,11 +17,69 @@ export const users = pgTable(
     unitSystem: text('unit_system', { enum: ['si', 'us'] }).notNull().default('si'),
     createdAt: createdAt(),
     passwordChangedAt: timestamp('password_changed_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    /** When the owner of the address opened the confirmation link; null until then (no joining or creating teams). */
+    emailConfirmedAt: timestamp('email_confirmed_at', { withTimezone: true, mode: 'date' }),
+    /** Base32 TOTP secret (RFC 6238), set while setting up the second factor and kept once it is on. */
+    totpSecret: text('totp_secret'),
+    /** When the second factor was turned on; null while it is off. */
+    totpEnabledAt: timestamp('totp_enabled_at', { withTimezone: true, mode: 'date' }),
+    /** The last time step a code was accepted for: a code is never accepted twice. */
+    totpLastStep: integer('totp_last_step'),
   },
   (t) => [uniqueIndex('users_email_unique').on(t.email)],
 );
 
-/** lucia sessions; `createdAt` caps a session's absolute lifetime beside lucia's sliding expiry. */
+/** One-time recovery codes for the second factor, stored as SHA-256 hashes. */
+export const recoveryCodes = pgTable(
+  'recovery_codes',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    codeHash: text('code_hash').notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true, mode: 'date' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('recovery_codes_user_idx').on(t.userId)],
+);
+
+/** A sign-in that passed the password and waits for the second factor (token hashed, minutes long). */
+export const signInChallenges = pgTable(
+  'sign_in_challenges',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull(),
+    attempts: integer('attempts').notNull().default(0),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('sign_in_challenges_token_unique').on(t.tokenHash)],
+);
+
+/** Links that confirm a new account's e-mail address (token hashed). */
+export const emailConfirmations = pgTable(
+  'email_confirmations',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true, mode: 'date' }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('email_confirmations_token_unique').on(t.tokenHash), index('email_confirmations_user_idx').on(t.userId)],
+);
+
+/**
+ * lucia sessions. `id` is the SHA-256 (hex) of the id in the cookie, never the id itself
+ * (server/auth/lucia.ts); `createdAt` caps a session's absolute lifetime beside lucia's sliding expiry.
+ */
 export const sessions = pgTable(
   'sessions',
   {
@@ -31,6 +89,12 @@ export const sessions = pgTable(
       .references(() => users.id, { onDelete: 'cascade' }),
     expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
     createdAt: createdAt(),
+    /** Updated at most once a minute, for the Sessions page. */
+    lastSeenAt: timestamp('last_seen_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    /** The client address last seen using the session. */
+    ip: text('ip'),
+    /** The browser's User-Agent at sign-in (shortened). */
+    userAgent: text('user_agent'),
   },
   (t) => [index('sessions_user_idx').on(t.userId)],
 );
@@ -40,6 +104,8 @@ export const teams = pgTable('teams', {
   name: text('name').notNull(),
   /** Every account has one personal team, made at sign-up; it cannot be deleted. */
   personal: boolean('personal').notNull().default(false),
+  /** Members must have the second factor on to open the team's data. */
+  requireTwoFactor: boolean('require_two_factor').notNull().default(false),
   createdAt: createdAt(),
 });
 
@@ -97,8 +163,44 @@ export const passwordResets = pgTable(
     expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
     usedAt: timestamp('used_at', { withTimezone: true, mode: 'date' }),
   },
-  (t) => [uniqueIndex('password_resets_token_unique').on(t.tokenHash)],
+  (t) => [
+    uniqueIndex('password_resets_token_unique').on(t.tokenHash),
+    // One live link per user: a new request ends the earlier one first.
+    uniqueIndex('password_resets_live_unique').on(t.userId).where(sql`used_at IS NULL`),
+  ],
 );
+
+/**
+ * Mail waiting to be sent. Requests put a message here and answer at once; a worker in every
+ * server process sends it (rows claimed with SKIP LOCKED, so instances never send one twice).
+ */
+export const mailQueue = pgTable(
+  'mail_queue',
+  {
+    id: text('id').primaryKey(),
+    to: text('to').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    html: text('html'),
+    attempts: integer('attempts').notNull().default(0),
+    nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    sentAt: timestamp('sent_at', { withTimezone: true, mode: 'date' }),
+    lastError: text('last_error'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('mail_queue_due_idx').on(t.nextAttemptAt).where(sql`sent_at IS NULL`)],
+);
+
+/**
+ * Counters of every rate limit (sign-in failures, sign-ups, resets, compute, invitations,
+ * uploads), shared by all server instances. The layout is rate-limiter-flexible's PostgreSQL store.
+ */
+export const rateLimits = pgTable('rate_limits', {
+  key: varchar('key', { length: 255 }).primaryKey(),
+  points: integer('points').notNull().default(0),
+  /** Epoch milliseconds when the counter resets. */
+  expire: bigint('expire', { mode: 'number' }),
+});
 
 /** Messages accepted by the local fake SMTP server (development and tests). */
 export const outbox = pgTable(
@@ -173,6 +275,8 @@ export const studyRevisions = pgTable(
     title: text('title').notNull(),
     message: text('message').notNull().default(''),
     authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+    /** An imported revision's author who is not a member of the team: kept as plain text, never matched to another account. */
+    authorName: text('author_name'),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.studyId, t.revision] })],
@@ -191,6 +295,8 @@ export const shareLinks = pgTable(
     createdAt: createdAt(),
     expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }),
     revokedAt: timestamp('revoked_at', { withTimezone: true, mode: 'date' }),
+    /** An owner who chose to keep the link working after its maker leaves the team. */
+    keptBy: text('kept_by').references(() => users.id, { onDelete: 'set null' }),
   },
   (t) => [uniqueIndex('share_links_token_unique').on(t.tokenHash), index('share_links_study_idx').on(t.studyId)],
 );

@@ -5,7 +5,11 @@ import { DEMO_STUDY_FILES, demoStudyDocument } from '../services/studies';
 import { createAccount } from '../services/accounts';
 import { newId } from '../auth/tokens';
 
-/** The demo sign-ins, also printed by `npm start` and given in the README. Invented people. */
+/**
+ * The demo sign-ins, printed by `npm start` in development and given in the README. Invented
+ * people with published passwords: they exist only in development databases (`npm start` on its
+ * own local cluster) and in the test and bench databases, never anywhere else.
+ */
 export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', name: 'Dana Whitlock' };
 export const ADMIN_USER = { email: 'admin@spoolbook.test', password: 'spoolbook-admin', name: 'Site Admin' };
 export const DEMO_TEAM_NAME = 'Harrow Hill Motorsport';
@@ -23,10 +27,11 @@ const DEMO_MEMBERS = [
 async function ensureUser(db: Db, u: { email: string; password: string; name: string }, isAdmin = false): Promise<string> {
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, u.email));
   if (existing) return existing.id;
-  return (await createAccount(db, { ...u, isAdmin })).userId;
+  // Demo passwords are known on purpose: they skip the strength check that sign-up applies.
+  return (await createAccount(db, { ...u, isAdmin, confirmed: true })).userId;
 }
 
-/** Idempotent: a second run finds everything in place and changes nothing. */
+/** Idempotent: a second run finds everything in place and changes nothing. Development and test databases only. */
 export async function seedDemo(db: Db) {
   await ensureUser(db, ADMIN_USER, true);
   const demoId = await ensureUser(db, DEMO_USER);

@@ -7,6 +7,7 @@ import { HttpError } from '../http/errors';
 import { audit } from '../services/audit';
 import { exportTeam, importTeam } from '../services/archive';
 import type { AppDeps } from '../app';
+import { countUpload } from '../services/limits';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_ARCHIVE_BYTES, files: 1, fields: 0, parts: 1 } });
 
@@ -25,7 +26,7 @@ function safeName(name: string) {
 }
 
 /** A team's data leaving as one archive, and coming back into any team (owners only). */
-export function archiveRouter({ db }: AppDeps): Router {
+export function archiveRouter({ db, limits }: AppDeps): Router {
   const router = Router({ mergeParams: true });
 
   router.get('/export', async (req, res) => {
@@ -37,7 +38,7 @@ export function archiveRouter({ db }: AppDeps): Router {
     res.json(archive);
   });
 
-  router.post('/import', archiveFile, async (req, res) => {
+  router.post('/import', countUpload(limits), archiveFile, async (req, res) => {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, (req.params as { teamId: string }).teamId, 'team:import');
     if (!req.file) throw new HttpError(400, 'invalid_upload', 'Choose an archive file to import (the form field "archive" was empty).', { issues: [{ path: 'archive', message: 'is required' }] });

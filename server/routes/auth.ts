@@ -1,48 +1,97 @@
 import { eq } from 'drizzle-orm';
-import { Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { Router, type Request, type Response } from 'express';
+import type { User } from 'lucia';
+import { judgePassword } from '../../shared/passwords/strength';
 import {
   changePasswordSchema,
+  confirmEmailSchema,
+  confirmPasswordSchema,
+  enableTwoFactorSchema,
   resetConfirmSchema,
   resetRequestSchema,
+  secondFactorSignInSchema,
   signInSchema,
   signUpSchema,
   updateProfileSchema,
 } from '../../shared/schemas/account';
 import { burnVerifyTime, hashPassword, verifyPassword } from '../auth/passwords';
-import { requireUser, startSession } from '../auth/session';
-import { hashToken, newToken } from '../auth/tokens';
+import { clientAddress, requireUser, startSession } from '../auth/session';
+import { hashToken } from '../auth/tokens';
 import { users } from '../db/schema';
 import { HttpError, parseOr400 } from '../http/errors';
-import { passwordResetMail } from '../mail/templates';
-import { consumeResetToken, createAccount, createResetToken, findUserByEmail, meOf, RESET_VALID_MINUTES } from '../services/accounts';
+import { enqueueMail } from '../mail/queue';
+import { emailConfirmationMail, passwordResetMail } from '../mail/templates';
+import {
+  CONFIRMATION_VALID_HOURS,
+  confirmEmail,
+  consumeResetToken,
+  createAccount,
+  createConfirmationToken,
+  createResetToken,
+  endResetLinks,
+  findUserByEmail,
+  liveResetUser,
+  meOf,
+  RESET_VALID_MINUTES,
+} from '../services/accounts';
+import { tooMany } from '../services/limits';
+import { endOtherSessions, endSession, sessionsOf } from '../services/sessions';
+import {
+  acceptCode,
+  acceptSecondFactor,
+  beginTwoFactor,
+  challengeUser,
+  createChallenge,
+  endChallenge,
+  newRecoveryCodes,
+  recoveryCodesLeft,
+  turnOffTwoFactor,
+} from '../services/two-factor';
 import type { AppDeps } from '../app';
 import { audit } from '../services/audit';
 
-function limiter(limit: number, windowMs: number, what: string, skipSuccessfulRequests = false) {
-  return rateLimit({
-    windowMs,
-    limit,
-    skipSuccessfulRequests,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res, next) => {
-      next(new HttpError(429, 'rate_limited', `Too many ${what} attempts. Wait a few minutes and try again.`, undefined, {
-        'Retry-After': String(Math.ceil(windowMs / 1000)),
-      }));
-    },
-  });
+/** 400 naming the password field when the password is weak (OWASP ASVS 5.0 6.2.4, 6.2.11). */
+function assertStrongPassword(password: string, field: string, context: { email: string; name: string }) {
+  const { problem } = judgePassword(password, context);
+  if (problem) throw new HttpError(400, 'weak_password', `The password ${problem}.`, { issues: [{ path: field, message: problem }] });
 }
 
-export function authRouter({ db, auth, config, mailer, logger }: AppDeps): Router {
+export function authRouter(deps: AppDeps): Router {
+  const { db, auth, config, limits, mail } = deps;
   const router = Router();
-  const window = 15 * 60_000;
-  const signInLimit = limiter(config.authRateLimit, window, 'sign-in', true);
-  const signUpLimit = limiter(config.authRateLimit, window, 'sign-up');
-  const resetLimit = limiter(config.authRateLimit, window, 'password reset');
 
-  router.post('/sign-up', signUpLimit, async (req, res) => {
+  /** Sign-in failures slow down, per account and per address, with growing delays (never a lockout). */
+  async function assertNotThrottled(email: string, address: string) {
+    const [account, from] = await Promise.all([limits.signInByAccount.waitMs(email), limits.signInByAddress.waitMs(address)]);
+    if (account > 0) throw tooMany('Several wrong sign-ins for this account in a row.', account);
+    if (from > 0) throw tooMany('Several wrong sign-ins from your address in a row.', from);
+  }
+  async function failed(email: string, address: string) {
+    await Promise.all([limits.signInByAccount.failed(email), limits.signInByAddress.failed(address)]);
+  }
+  async function succeeded(email: string, address: string) {
+    await Promise.all([limits.signInByAccount.succeeded(email), limits.signInByAddress.succeeded(address)]);
+  }
+
+  async function sendConfirmation(userId: string, email: string) {
+    if ((await limits.confirmationByAccount.tryTake(userId)) !== true) return false;
+    const token = await createConfirmationToken(db, userId);
+    await enqueueMail(db, emailConfirmationMail(email, `${config.publicUrl}/confirm-email?token=${token}`, CONFIRMATION_VALID_HOURS));
+    mail.kick();
+    return true;
+  }
+
+  async function signedIn(req: Request, res: Response, userId: string, email: string) {
+    if (res.locals.session) await auth.invalidateSession(res.locals.session.id);
+    await startSession(auth, req, res, userId);
+    await audit(db, { action: 'auth.sign-in', actor: { id: userId, email }, req });
+    res.json(await meOf(db, userId));
+  }
+
+  router.post('/sign-up', async (req, res) => {
+    await limits.signUpByAddress.take(clientAddress(req));
     const input = parseOr400(signUpSchema, req.body);
+    assertStrongPassword(input.password, 'password', input);
     if (await findUserByEmail(db, input.email)) {
       throw new HttpError(409, 'email_taken', 'An account with this e-mail already exists. Sign in, or reset the password.', {
         issues: [{ path: 'email', message: 'is already registered' }],
@@ -50,29 +99,75 @@ export function authRouter({ db, auth, config, mailer, logger }: AppDeps): Route
     }
     const { userId } = await createAccount(db, input);
     await audit(db, { action: 'auth.sign-up', actor: { id: userId, email: input.email }, req });
-    await startSession(auth, res, userId);
+    await sendConfirmation(userId, input.email);
+    await startSession(auth, req, res, userId);
     res.status(201).json(await meOf(db, userId));
   });
 
-  router.post('/sign-in', signInLimit, async (req, res) => {
+  router.post('/confirm-email', async (req, res) => {
+    const input = parseOr400(confirmEmailSchema, req.body);
+    const userId = await confirmEmail(db, hashToken(input.token));
+    if (!userId) throw new HttpError(400, 'invalid_token', 'This confirmation link is not valid any more: it was used, it expired, or a newer one was sent. Sign in and have a new one sent from Settings.');
+    const [row] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
+    await audit(db, { action: 'auth.email-confirmed', actor: { id: userId, email: row.email }, req });
+    res.json({ confirmed: true, email: row.email });
+  });
+
+  router.post('/confirm-email/resend', async (_req, res) => {
+    const user = requireUser(res);
+    if (user.emailConfirmed) return void res.json({ sent: false, confirmed: true });
+    const sent = await sendConfirmation(user.id, user.email);
+    if (!sent) throw tooMany('The confirmation link was sent several times in the last hour.', 3600_000);
+    res.status(202).json({ sent: true });
+  });
+
+  router.post('/sign-in', async (req, res) => {
     const input = parseOr400(signInSchema, req.body);
+    const address = clientAddress(req);
+    await assertNotThrottled(input.email, address);
     const user = await findUserByEmail(db, input.email);
     const ok = user ? await verifyPassword(user.passwordHash, input.password) : (await burnVerifyTime(input.password), false);
     if (!user || !ok) {
+      await failed(input.email, address);
       await audit(db, { action: 'auth.sign-in-failed', actorEmail: input.email, details: { reason: user ? 'wrong password' : 'unknown e-mail' }, req });
       // One answer for an unknown e-mail and a wrong password (OWASP ASVS 5.0 6.3.8).
       throw new HttpError(401, 'invalid_credentials', 'The e-mail or the password is not right.');
     }
-    if (res.locals.session) await auth.invalidateSession(res.locals.session.id);
-    await startSession(auth, res, user.id);
-    await audit(db, { action: 'auth.sign-in', actor: user, req });
-    res.json(await meOf(db, user.id));
+    if (user.totpEnabledAt) {
+      // The password was right; the session waits for the second factor (OWASP ASVS 5.0 6.3.3).
+      return void res.json({ secondFactor: true, challenge: await createChallenge(db, user.id) });
+    }
+    await succeeded(input.email, address);
+    await signedIn(req, res, user.id, user.email);
   });
 
-  router.post('/sign-out', async (_req, res) => {
+  router.post('/sign-in/second-factor', async (req, res) => {
+    const input = parseOr400(secondFactorSignInSchema, req.body);
+    const userId = await challengeUser(db, input.challenge);
+    if (!userId) throw new HttpError(401, 'challenge_expired', 'This sign-in took too long or had too many wrong codes. Sign in again with your password.');
+    const [user] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
+    const address = clientAddress(req);
+    await assertNotThrottled(user.email, address);
+    const used = await acceptSecondFactor(db, userId, input.code);
+    if (!used) {
+      await failed(user.email, address);
+      await audit(db, { action: 'auth.second-factor-failed', actor: { id: userId, email: user.email }, req });
+      throw new HttpError(401, 'invalid_code', 'That code is not right, or it was used already. Try the newest code your app shows, or a recovery code.', {
+        issues: [{ path: 'code', message: 'is not right' }],
+      });
+    }
+    await endChallenge(db, input.challenge);
+    await succeeded(user.email, address);
+    if (used === 'recovery') await audit(db, { action: 'auth.recovery-code-used', actor: { id: userId, email: user.email }, details: { left: await recoveryCodesLeft(db, userId) }, req });
+    await signedIn(req, res, userId, user.email);
+  });
+
+  router.post('/sign-out', async (req, res) => {
     if (res.locals.session) await auth.invalidateSession(res.locals.session.id);
-    if (res.locals.user) await audit(db, { action: 'auth.sign-out', actor: res.locals.user, req: _req });
+    if (res.locals.user) await audit(db, { action: 'auth.sign-out', actor: res.locals.user, req });
     res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+    // The browser drops what it kept of this account (OWASP ASVS 5.0 7.4.x).
+    res.set('Clear-Site-Data', '"cache", "cookies", "storage"');
     res.status(204).end();
   });
 
@@ -88,52 +183,148 @@ export function authRouter({ db, auth, config, mailer, logger }: AppDeps): Route
     res.json(await meOf(db, user.id));
   });
 
-  router.post('/password', signInLimit, async (req, res) => {
+  /** The current password, again, before a change that matters (OWASP ASVS 5.0 6.4.x re-authentication). */
+  async function assertCurrentPassword(user: User, password: string, field: string, req: Request) {
+    const address = clientAddress(req);
+    await assertNotThrottled(user.email, address);
+    const [row] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, user.id));
+    if (!(await verifyPassword(row.passwordHash, password))) {
+      await failed(user.email, address);
+      throw new HttpError(400, 'invalid_input', 'The current password is not right.', { issues: [{ path: field, message: 'is not right' }] });
+    }
+  }
+
+  router.post('/password', async (req, res) => {
     const user = requireUser(res);
     const input = parseOr400(changePasswordSchema, req.body);
-    const [row] = await db.select().from(users).where(eq(users.id, user.id));
-    if (!(await verifyPassword(row.passwordHash, input.currentPassword))) {
-      throw new HttpError(400, 'invalid_input', 'The current password is not right.', {
-        issues: [{ path: 'currentPassword', message: 'is not right' }],
-      });
-    }
-    await db.update(users).set({ passwordHash: await hashPassword(input.newPassword), passwordChangedAt: new Date() }).where(eq(users.id, user.id));
-    // A changed password ends every session of the user (OWASP ASVS 5.0 7.4.3); this one gets a new one.
+    await assertCurrentPassword(user, input.currentPassword, 'currentPassword', req);
+    assertStrongPassword(input.newPassword, 'newPassword', user);
+    await db.transaction(async (tx) => {
+      await tx.update(users).set({ passwordHash: await hashPassword(input.newPassword), passwordChangedAt: new Date() }).where(eq(users.id, user.id));
+      await endResetLinks(tx, user.id);
+    });
+    // A changed password ends every session of the user (OWASP ASVS 5.0 7.4.3) and every reset link; this one gets a new session.
     await auth.invalidateUserSessions(user.id);
-    await startSession(auth, res, user.id);
+    await startSession(auth, req, res, user.id);
     await audit(db, { action: 'auth.password-changed', actor: user, details: { otherSessionsEnded: true }, req });
     res.json(await meOf(db, user.id));
   });
 
-  router.post('/password-reset', resetLimit, async (req, res) => {
+  router.post('/password-reset', async (req, res) => {
     const input = parseOr400(resetRequestSchema, req.body);
-    const user = await findUserByEmail(db, input.email);
-    await audit(db, { action: 'auth.password-reset-requested', actorEmail: input.email, details: { knownAddress: Boolean(user) }, req });
-    if (user) {
-      const { token, tokenHash } = newToken();
-      await createResetToken(db, user.id, tokenHash);
-      const link = `${config.publicUrl}/reset-password?token=${token}`;
-      try {
-        await mailer.send(passwordResetMail(user.email, link, RESET_VALID_MINUTES));
-      } catch (err) {
-        logger.error({ err }, 'password reset mail was not sent');
-      }
-    }
-    // The same answer whether or not the address has an account.
+    const address = clientAddress(req);
+    await limits.resetByAddress.take(address);
+    // Answer first, then look the address up and queue the mail: the answer and its timing are
+    // the same whether or not the address has an account (OWASP ASVS 5.0 6.3.8).
     res.status(202).json({ ok: true });
+    mail.later('password reset request', async () => {
+      const user = await findUserByEmail(db, input.email);
+      const withinQuota = user ? (await limits.resetByAccount.tryTake(user.id)) === true : false;
+      await audit(db, { action: 'auth.password-reset-requested', actorEmail: input.email, details: { knownAddress: Boolean(user), sent: withinQuota }, req });
+      if (!user || !withinQuota) return;
+      const token = await createResetToken(db, user.id);
+      await enqueueMail(db, passwordResetMail(user.email, `${config.publicUrl}/reset-password?token=${token}`, RESET_VALID_MINUTES));
+      mail.kick();
+    });
   });
 
-  router.post('/password-reset/confirm', resetLimit, async (req, res) => {
+  router.post('/password-reset/confirm', async (req, res) => {
+    await limits.resetByAddress.take(clientAddress(req));
     const input = parseOr400(resetConfirmSchema, req.body);
-    const userId = await consumeResetToken(db, hashToken(input.token));
-    if (!userId) {
-      throw new HttpError(400, 'invalid_token', 'This reset link is not valid any more: it was used, it expired, or it was mistyped. Ask for a new one.');
-    }
-    await db.update(users).set({ passwordHash: await hashPassword(input.password), passwordChangedAt: new Date() }).where(eq(users.id, userId));
+    const tokenHash = hashToken(input.token);
+    const invalid = () => new HttpError(400, 'invalid_token', 'This reset link is not valid any more: it was used, it expired, a newer one was sent, or it was mistyped. Ask for a new one.');
+    const owner = await liveResetUser(db, tokenHash);
+    if (!owner) throw invalid();
+    assertStrongPassword(input.password, 'password', owner);
+    const passwordHash = await hashPassword(input.password);
+    const userId = await db.transaction(async (tx) => {
+      const used = await consumeResetToken(tx, tokenHash);
+      if (!used) throw invalid();
+      await tx.update(users).set({ passwordHash, passwordChangedAt: new Date() }).where(eq(users.id, used));
+      await endResetLinks(tx, used);
+      return used;
+    });
     await auth.invalidateUserSessions(userId);
-    await audit(db, { action: 'auth.password-reset', actor: { id: userId, email: (await db.select({ email: users.email }).from(users).where(eq(users.id, userId)))[0].email }, details: { allSessionsEnded: true }, req });
+    await limits.signInByAccount.succeeded(owner.email);
+    await audit(db, { action: 'auth.password-reset', actor: { id: userId, email: owner.email }, details: { allSessionsEnded: true }, req });
     res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
     res.status(204).end();
+  });
+
+  // --- Sessions page ---------------------------------------------------------------------------
+
+  router.get('/sessions', async (_req, res) => {
+    const user = requireUser(res);
+    res.json({ sessions: await sessionsOf(db, user.id, res.locals.session?.id ?? null) });
+  });
+
+  router.post('/sessions/end-others', async (req, res) => {
+    const user = requireUser(res);
+    const ended = await endOtherSessions(db, user.id, res.locals.session!.id);
+    await audit(db, { action: 'auth.sessions-ended', actor: user, details: { ended, which: 'others' }, req });
+    res.json({ ended });
+  });
+
+  router.delete('/sessions/:sessionId', async (req, res) => {
+    const user = requireUser(res);
+    const handle = String(req.params.sessionId);
+    if (!/^[0-9a-f]{64}$/.test(handle) || !(await endSession(db, user.id, handle))) throw new HttpError(404, 'not_found', 'No such session of yours.');
+    await audit(db, { action: 'auth.sessions-ended', actor: user, details: { ended: 1, which: 'one' }, req });
+    if (res.locals.session && hashToken(res.locals.session.id) === handle) res.append('Set-Cookie', auth.createBlankSessionCookie().serialize());
+    res.status(204).end();
+  });
+
+  // --- Second factor ---------------------------------------------------------------------------
+
+  router.get('/two-factor', async (_req, res) => {
+    const user = requireUser(res);
+    res.json({ enabled: user.twoFactor, recoveryCodesLeft: user.twoFactor ? await recoveryCodesLeft(db, user.id) : 0 });
+  });
+
+  router.post('/two-factor/setup', async (req, res) => {
+    const user = requireUser(res);
+    if (user.twoFactor) throw new HttpError(409, 'already_on', 'The second factor is on already. Turn it off first to move it to another app.');
+    const input = parseOr400(confirmPasswordSchema, req.body);
+    await assertCurrentPassword(user, input.password, 'password', req);
+    res.json(await beginTwoFactor(db, user));
+  });
+
+  router.post('/two-factor/enable', async (req, res) => {
+    const user = requireUser(res);
+    if (user.twoFactor) throw new HttpError(409, 'already_on', 'The second factor is on already.');
+    const input = parseOr400(enableTwoFactorSchema, req.body);
+    const [row] = await db.select({ secret: users.totpSecret }).from(users).where(eq(users.id, user.id));
+    if (!row?.secret) throw new HttpError(409, 'not_started', 'Start the set-up first: it shows the code to scan.');
+    if (!(await acceptCode(db, user.id, input.code))) {
+      throw new HttpError(400, 'invalid_code', 'That code is not right. Check the time on your phone and enter the newest code.', { issues: [{ path: 'code', message: 'is not right' }] });
+    }
+    const recoveryCodes = await db.transaction(async (tx) => {
+      await tx.update(users).set({ totpEnabledAt: new Date() }).where(eq(users.id, user.id));
+      return newRecoveryCodes(tx, user.id);
+    });
+    // Sessions opened without the second factor end; this one carries on.
+    await endOtherSessions(db, user.id, res.locals.session!.id);
+    await audit(db, { action: 'auth.two-factor-on', actor: user, req });
+    res.json({ recoveryCodes });
+  });
+
+  router.post('/two-factor/recovery-codes', async (req, res) => {
+    const user = requireUser(res);
+    if (!user.twoFactor) throw new HttpError(409, 'not_on', 'The second factor is off.');
+    const input = parseOr400(confirmPasswordSchema, req.body);
+    await assertCurrentPassword(user, input.password, 'password', req);
+    const recoveryCodes = await newRecoveryCodes(db, user.id);
+    await audit(db, { action: 'auth.recovery-codes-renewed', actor: user, req });
+    res.json({ recoveryCodes });
+  });
+
+  router.post('/two-factor/disable', async (req, res) => {
+    const user = requireUser(res);
+    const input = parseOr400(confirmPasswordSchema, req.body);
+    await assertCurrentPassword(user, input.password, 'password', req);
+    await turnOffTwoFactor(db, user.id);
+    await audit(db, { action: 'auth.two-factor-off', actor: user, req });
+    res.json(await meOf(db, user.id));
   });
 
   return router;

@@ -1,25 +1,18 @@
 import { Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import { ComputeError, runComputeRequest } from '../../shared/matching/run-compute';
 import { computeRequestSchema } from '../../shared/schemas/compute';
+import { clientAddress } from '../auth/session';
 import { HttpError, parseOr400 } from '../http/errors';
+import type { AppDeps } from '../app';
 
 /**
- * POST /api/compute: the compute contract, open without sign-in. Rate-limited per client here;
- * the body size is limited by the app's JSON parser (1 MB).
+ * POST /api/compute: the compute contract, open without sign-in. Rate-limited per client address
+ * (counted in PostgreSQL, so across instances); the body size is limited by the app's JSON parser (1 MB).
  */
-export function computeRouter({ rateLimitPerMinute = 300 }: { rateLimitPerMinute?: number } = {}): Router {
+export function computeRouter({ limits }: AppDeps): Router {
   const router = Router();
-  router.use(
-    rateLimit({
-      windowMs: 60_000,
-      limit: rateLimitPerMinute,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      handler: (_req, _res, next) => next(new HttpError(429, 'rate_limited', 'Too many compute requests; try again in a minute.')),
-    }),
-  );
-  router.post('/', (req, res) => {
+  router.post('/', async (req, res) => {
+    await limits.computeByAddress.take(clientAddress(req));
     const input = parseOr400(computeRequestSchema, req.body ?? {}, 'compute request');
     try {
       res.json(runComputeRequest(input));

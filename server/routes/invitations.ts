@@ -5,6 +5,7 @@ import { hashToken } from '../auth/tokens';
 import { invitations, teamMembers, teams, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import type { AppDeps } from '../app';
+import { markEmailConfirmed } from '../services/accounts';
 import { audit } from '../services/audit';
 
 /** The invitee's side: read an invitation by the token in its link, and accept it. */
@@ -44,6 +45,9 @@ export function invitationsRouter({ db }: AppDeps): Router {
       throw new HttpError(403, 'wrong_account', `This invitation is for ${inv.email}, but you are signed in as ${user.email}. Sign out and sign in with the invited address.`);
     }
     await db.transaction(async (tx) => {
+      // The invitation's link was mailed to this very address, and the account has that address:
+      // opening it proves the address as a confirmation link does.
+      if (!user.emailConfirmed) await markEmailConfirmed(tx, user.id);
       const used = await tx
         .update(invitations)
         .set({ acceptedAt: new Date() })

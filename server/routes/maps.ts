@@ -14,6 +14,7 @@ import { builtinMap, builtinMaps, BUILTIN_PREFIX } from '../services/builtin-map
 import { studiesUsingMap } from '../services/map-usage';
 import type { AppDeps } from '../app';
 import { audit } from '../services/audit';
+import { countUpload } from '../services/limits';
 
 const upload = multer({
   storage: multer.memoryStorage(),
@@ -48,7 +49,7 @@ function safeFileName(name: string) {
 }
 
 /** The team's map library: upload, list, read, rename and annotate, download, delete. */
-export function mapsRouter({ db }: AppDeps): Router {
+export function mapsRouter({ db, limits }: AppDeps): Router {
   const router = Router({ mergeParams: true });
 
   async function teamMap(teamId: string, mapId: string) {
@@ -120,7 +121,7 @@ export function mapsRouter({ db }: AppDeps): Router {
     res.json({ maps: [...own, ...demo] });
   });
 
-  router.post('/', singleFile, async (req, res) => {
+  router.post('/', countUpload(limits), singleFile, async (req, res) => {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, (req.params as { teamId: string }).teamId, 'content:write');
     const fields = parseOr400(uploadMapFieldsSchema, { ...(req.body ?? {}) }, 'upload fields');

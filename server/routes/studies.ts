@@ -4,6 +4,7 @@ import { alias } from 'drizzle-orm/pg-core';
 import {
   createShareLinkSchema,
   createStudySchema,
+  keepShareLinkSchema,
   duplicateStudySchema,
   restoreRevisionSchema,
   saveStudySchema,
@@ -21,6 +22,8 @@ import type { AppDeps } from '../app';
 import { audit } from '../services/audit';
 
 const creator = alias(users, 'creator');
+/** A member's name, or an imported author's name kept as plain text. */
+const revisionAuthor = sql<string | null>`coalesce(${users.name}, ${studyRevisions.authorName})`;
 const updater = alias(users, 'updater');
 
 /** Escapes LIKE wildcards so a search for "50%" finds "50%" and not everything. */
@@ -212,7 +215,7 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, teamIdOf(req.params), 'content:read');
     await loadStudy(access, studyIdOf(req.params));
     const rows = await db
-      .select({ revision: studyRevisions.revision, message: studyRevisions.message, author: users.name, createdAt: studyRevisions.createdAt })
+      .select({ revision: studyRevisions.revision, message: studyRevisions.message, author: revisionAuthor, createdAt: studyRevisions.createdAt })
       .from(studyRevisions)
       .leftJoin(users, eq(users.id, studyRevisions.authorId))
       .where(eq(studyRevisions.studyId, studyIdOf(req.params)))
@@ -225,7 +228,7 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const revision = Number(revisionText);
     if (!Number.isInteger(revision) || revision < 1) throw notFound('No such revision.');
     const [row] = await db
-      .select({ revision: studyRevisions.revision, message: studyRevisions.message, author: users.name, createdAt: studyRevisions.createdAt, document: studyRevisions.document })
+      .select({ revision: studyRevisions.revision, message: studyRevisions.message, author: revisionAuthor, createdAt: studyRevisions.createdAt, document: studyRevisions.document })
       .from(studyRevisions)
       .leftJoin(users, eq(users.id, studyRevisions.authorId))
       .where(and(eq(studyRevisions.studyId, studyId), eq(studyRevisions.revision, revision)));
@@ -266,7 +269,7 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, teamIdOf(req.params), 'content:write');
     await loadStudy(access, studyIdOf(req.params));
     const rows = await db
-      .select({ id: shareLinks.id, createdAt: shareLinks.createdAt, createdBy: users.name, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt })
+      .select({ id: shareLinks.id, createdAt: shareLinks.createdAt, createdBy: users.name, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt, kept: sql<boolean>`${shareLinks.keptBy} IS NOT NULL` })
       .from(shareLinks)
       .leftJoin(users, eq(users.id, shareLinks.createdBy))
       .where(eq(shareLinks.studyId, studyIdOf(req.params)))
@@ -288,7 +291,8 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     await loadStudy(access, studyIdOf(req.params));
     const { token, tokenHash } = newToken();
     const id = newId();
-    const expiresAt = input.expiresInDays ? new Date(Date.now() + input.expiresInDays * 86_400_000) : null;
+    // 30 days unless the maker chose otherwise; null ("never") only when asked for by name.
+    const expiresAt = input.expiresInDays === null ? null : new Date(Date.now() + input.expiresInDays * 86_400_000);
     const [row] = await db.insert(shareLinks).values({ id, studyId: studyIdOf(req.params), tokenHash, createdBy: user.id, expiresAt }).returning();
     await audit(db, { action: 'share-link.created', teamId: access.teamId, actor: user, targetType: 'share-link', targetId: id, details: { studyId: studyIdOf(req.params), expiresAt: expiresAt?.toISOString() ?? null }, req });
     res.status(201).json({
@@ -298,9 +302,26 @@ export function studiesRouter({ db, config }: AppDeps): Router {
         createdBy: user.name,
         expiresAt: expiresAt?.toISOString() ?? null,
         revokedAt: null,
+        kept: false,
         url: `${config.publicUrl}/share/${token}`,
       },
     });
+  });
+
+  /** An owner keeps a link working after its maker leaves the team (or stops keeping it). */
+  router.put('/:studyId/share-links/:linkId/kept', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, teamIdOf(req.params), 'members:remove');
+    const input = parseOr400(keepShareLinkSchema, req.body);
+    await loadStudy(access, studyIdOf(req.params));
+    const rows = await db
+      .update(shareLinks)
+      .set({ keptBy: input.kept ? user.id : null })
+      .where(and(eq(shareLinks.id, (req.params as { linkId: string }).linkId), eq(shareLinks.studyId, studyIdOf(req.params)), isNull(shareLinks.revokedAt)))
+      .returning({ id: shareLinks.id });
+    if (rows.length === 0) throw notFound('No such active share link.');
+    await audit(db, { action: input.kept ? 'share-link.kept' : 'share-link.unkept', teamId: access.teamId, actor: user, targetType: 'share-link', targetId: rows[0].id, details: { studyId: studyIdOf(req.params) }, req });
+    res.json({ kept: input.kept });
   });
 
   router.delete('/:studyId/share-links/:linkId', async (req, res) => {

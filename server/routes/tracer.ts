@@ -4,6 +4,7 @@ import { createDraftSchema, imageListQuerySchema, saveDraftSchema, saveTraceToLi
 import { checkImage, MAX_IMAGE_BYTES, type ImageProblemCode } from '../../shared/tracer/image-header';
 import { idSchema } from '../../shared/schemas/common';
 import type { AppDeps } from '../app';
+import { countUpload } from '../services/limits';
 import { requireTeamPermission, type TeamAccess } from '../auth/access';
 import { requireUser } from '../auth/session';
 import { HttpError, notFound, parseOr400 } from '../http/errors';
@@ -64,7 +65,7 @@ function pathId(value: string | undefined, what: string): string {
 }
 
 /** The Tracer: pictures of maps, traces in progress (drafts), and saving a trace to the map library. */
-export function tracerRouter({ db }: AppDeps): Router {
+export function tracerRouter({ db, limits }: AppDeps): Router {
   const router = Router({ mergeParams: true });
 
   // Access is decided before the upload is read, so a viewer's or outsider's picture is never buffered.
@@ -77,7 +78,7 @@ export function tracerRouter({ db }: AppDeps): Router {
       .catch(next);
   };
 
-  router.post('/images', canWrite, singlePicture, async (req, res) => {
+  router.post('/images', canWrite, countUpload(limits), singlePicture, async (req, res) => {
     const user = requireUser(res);
     const access = res.locals.access as TeamAccess;
     if (!req.file) throw new HttpError(400, 'invalid_upload', 'Choose a picture to upload (the form field "file" was empty).', { issues: [{ path: 'file', message: 'is required' }] });
@@ -115,7 +116,7 @@ export function tracerRouter({ db }: AppDeps): Router {
     res.set('Content-Type', image.contentType);
     res.set('X-Content-Type-Options', 'nosniff');
     res.set('Content-Disposition', `inline; filename="map-image-${image.id}.${extension}"`);
-    res.set('Content-Security-Policy', "default-src 'none'; sandbox");
+    res.set('Content-Security-Policy', "default-src 'none'; sandbox; frame-ancestors 'none'");
     // A picture never changes under its id; only its team's members can fetch it.
     res.set('Cache-Control', 'private, max-age=86400');
     res.send(image.bytes);

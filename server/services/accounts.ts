@@ -2,19 +2,31 @@ import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { User } from 'lucia';
 import type { Me, TeamSummary } from '../../shared/schemas/account';
 import { hashPassword } from '../auth/passwords';
-import { newId } from '../auth/tokens';
+import { newId, newToken } from '../auth/tokens';
 import type { Db } from '../db/client';
-import { passwordResets, teamMembers, teams, users } from '../db/schema';
+import { emailConfirmations, passwordResets, teamMembers, teams, users } from '../db/schema';
 
 export const RESET_VALID_MINUTES = 60;
+export const CONFIRMATION_VALID_HOURS = 48;
+
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 export function publicUser(user: User | typeof users.$inferSelect): Me['user'] {
-  return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, unitSystem: user.unitSystem };
+  const row = user as Partial<typeof users.$inferSelect> & Partial<User>;
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    isAdmin: user.isAdmin,
+    unitSystem: user.unitSystem,
+    emailConfirmed: row.emailConfirmed ?? (row.emailConfirmedAt !== null && row.emailConfirmedAt !== undefined),
+    twoFactor: row.twoFactor ?? (row.totpEnabledAt !== null && row.totpEnabledAt !== undefined),
+  };
 }
 
 export async function teamsOf(db: Db, userId: string): Promise<TeamSummary[]> {
   const rows = await db
-    .select({ id: teams.id, name: teams.name, personal: teams.personal, role: teamMembers.role })
+    .select({ id: teams.id, name: teams.name, personal: teams.personal, role: teamMembers.role, requireTwoFactor: teams.requireTwoFactor })
     .from(teamMembers)
     .innerJoin(teams, eq(teams.id, teamMembers.teamId))
     .where(eq(teamMembers.userId, userId))
@@ -28,13 +40,23 @@ export async function meOf(db: Db, userId: string): Promise<Me> {
   return { user: publicUser(user), teams: await teamsOf(db, userId) };
 }
 
-/** Creates an account with its personal team, in one transaction. */
-export async function createAccount(db: Db, input: { email: string; password: string; name: string; isAdmin?: boolean }) {
+/**
+ * Creates an account with its personal team, in one transaction. `confirmed` is for accounts
+ * whose address needs no link: the demo's, and a site admin made by the operator.
+ */
+export async function createAccount(db: Db, input: { email: string; password: string; name: string; isAdmin?: boolean; confirmed?: boolean }) {
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (tx) => {
     const userId = newId();
     const teamId = newId();
-    await tx.insert(users).values({ id: userId, email: input.email, name: input.name, passwordHash, isAdmin: input.isAdmin ?? false });
+    await tx.insert(users).values({
+      id: userId,
+      email: input.email,
+      name: input.name,
+      passwordHash,
+      isAdmin: input.isAdmin ?? false,
+      emailConfirmedAt: input.confirmed ? new Date() : null,
+    });
     await tx.insert(teams).values({ id: teamId, name: `${input.name}'s team`, personal: true });
     await tx.insert(teamMembers).values({ teamId, userId, role: 'owner' });
     return { userId, teamId };
@@ -46,8 +68,18 @@ export async function findUserByEmail(db: Db, email: string) {
   return user ?? null;
 }
 
+/** The user of a reset link that is live (unused, unexpired), without using it. */
+export async function liveResetUser(db: Db, tokenHash: string) {
+  const [row] = await db
+    .select({ userId: users.id, email: users.email, name: users.name })
+    .from(passwordResets)
+    .innerJoin(users, eq(users.id, passwordResets.userId))
+    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())));
+  return row ?? null;
+}
+
 /** Marks a reset token used and returns its user, only if it is unused and unexpired (atomic). */
-export async function consumeResetToken(db: Db, tokenHash: string): Promise<string | null> {
+export async function consumeResetToken(db: Db | Tx, tokenHash: string): Promise<string | null> {
   const rows = await db
     .update(passwordResets)
     .set({ usedAt: new Date() })
@@ -56,11 +88,46 @@ export async function consumeResetToken(db: Db, tokenHash: string): Promise<stri
   return rows[0]?.userId ?? null;
 }
 
-export async function createResetToken(db: Db, userId: string, tokenHash: string) {
-  await db.insert(passwordResets).values({
-    id: newId(),
-    userId,
-    tokenHash,
-    expiresAt: new Date(Date.now() + RESET_VALID_MINUTES * 60_000),
+/** Ends every reset link of a user that was not used yet (a new one, a reset, a password change). */
+export async function endResetLinks(db: Db | Tx, userId: string) {
+  await db.update(passwordResets).set({ usedAt: new Date() }).where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
+}
+
+/** A new reset link for the user; the earlier one stops working (one live link per user). */
+export async function createResetToken(db: Db, userId: string, validMinutes = RESET_VALID_MINUTES): Promise<string> {
+  const { token, tokenHash } = newToken();
+  await db.transaction(async (tx) => {
+    await endResetLinks(tx, userId);
+    await tx.insert(passwordResets).values({ id: newId(), userId, tokenHash, expiresAt: new Date(Date.now() + validMinutes * 60_000) });
   });
+  return token;
+}
+
+/** A new confirmation link; earlier ones stop working. */
+export async function createConfirmationToken(db: Db, userId: string): Promise<string> {
+  const { token, tokenHash } = newToken();
+  await db.transaction(async (tx) => {
+    await tx.update(emailConfirmations).set({ usedAt: new Date() }).where(and(eq(emailConfirmations.userId, userId), isNull(emailConfirmations.usedAt)));
+    await tx.insert(emailConfirmations).values({ id: newId(), userId, tokenHash, expiresAt: new Date(Date.now() + CONFIRMATION_VALID_HOURS * 3600_000) });
+  });
+  return token;
+}
+
+/** Uses a confirmation link: the user's address is confirmed. Returns the user id, or null for a dead link. */
+export async function confirmEmail(db: Db, tokenHash: string): Promise<string | null> {
+  return db.transaction(async (tx) => {
+    const rows = await tx
+      .update(emailConfirmations)
+      .set({ usedAt: new Date() })
+      .where(and(eq(emailConfirmations.tokenHash, tokenHash), isNull(emailConfirmations.usedAt), gt(emailConfirmations.expiresAt, new Date())))
+      .returning({ userId: emailConfirmations.userId });
+    const userId = rows[0]?.userId;
+    if (!userId) return null;
+    await tx.update(users).set({ emailConfirmedAt: new Date() }).where(and(eq(users.id, userId), isNull(users.emailConfirmedAt)));
+    return userId;
+  });
+}
+
+export async function markEmailConfirmed(db: Db | Tx, userId: string) {
+  await db.update(users).set({ emailConfirmedAt: new Date() }).where(and(eq(users.id, userId), isNull(users.emailConfirmedAt)));
 }

@@ -1,10 +1,10 @@
-import { asc, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { parseMapFile } from '../../shared/maps';
 import { PLAN_MAP_FIELDS, teamArchiveSchema, type TeamArchive } from '../../shared/schemas/archive';
 import type { StudyDocument } from '../../shared/schemas/study';
 import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
-import { maps, studies, studyRevisions, users } from '../db/schema';
+import { maps, studies, studyRevisions, teamMembers, users } from '../db/schema';
 import { HttpError, issuesOf } from '../http/errors';
 import { BUILTIN_PREFIX, builtinMap } from './builtin-maps';
 import { validDocument } from './studies';
@@ -15,7 +15,7 @@ export async function exportTeam(db: Db, teamId: string, teamName: string): Prom
   const studyRows = await db.select().from(studies).where(eq(studies.teamId, teamId)).orderBy(asc(studies.createdAt), asc(studies.id));
   const revisionRows = studyRows.length
     ? await db
-        .select({ r: studyRevisions, author: users.email })
+        .select({ r: studyRevisions, author: sql<string | null>`coalesce(${users.email}, ${studyRevisions.authorName})` })
         .from(studyRevisions)
         .leftJoin(users, eq(users.id, studyRevisions.authorId))
         .where(inArray(studyRevisions.studyId, studyRows.map((s) => s.id)))
@@ -113,8 +113,16 @@ export async function importTeam(db: Db, teamId: string, importerId: string, raw
     throw new HttpError(400, 'invalid_archive', `The archive has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, { problems: problems.slice(0, 500) });
   }
 
-  const authorEmails = [...new Set(archive.studies.flatMap((s) => s.revisions.map((r) => r.author)).filter((e): e is string => !!e))];
-  const authorRows = authorEmails.length ? await db.select({ id: users.id, email: users.email }).from(users).where(inArray(users.email, authorEmails)) : [];
+  // Authors are matched only among the members of the team the archive goes into: an archive
+  // cannot name anyone else (nor find out who has an account). Others stay as plain text.
+  const authorEmails = [...new Set(archive.studies.flatMap((s) => s.revisions.map((r) => r.author?.trim().toLowerCase())).filter((e): e is string => !!e))];
+  const authorRows = authorEmails.length
+    ? await db
+        .select({ id: users.id, email: users.email })
+        .from(teamMembers)
+        .innerJoin(users, eq(users.id, teamMembers.userId))
+        .where(and(eq(teamMembers.teamId, teamId), inArray(users.email, authorEmails)))
+    : [];
   const authorIds = new Map(authorRows.map((a) => [a.email, a.id]));
 
   return db.transaction(async (tx) => {
@@ -160,7 +168,8 @@ export async function importTeam(db: Db, teamId: string, importerId: string, raw
           document: docs[j],
           title: r.title,
           message: r.message,
-          authorId: r.author ? authorIds.get(r.author) ?? null : null,
+          authorId: r.author ? authorIds.get(r.author.trim().toLowerCase()) ?? null : null,
+          authorName: r.author && !authorIds.has(r.author.trim().toLowerCase()) ? r.author : null,
           createdAt: new Date(r.createdAt),
         });
       }

@@ -12,6 +12,15 @@ export type AuditAction =
   | 'auth.password-changed'
   | 'auth.password-reset-requested'
   | 'auth.password-reset'
+  | 'auth.email-confirmed'
+  | 'auth.second-factor-failed'
+  | 'auth.recovery-code-used'
+  | 'auth.recovery-codes-renewed'
+  | 'auth.two-factor-on'
+  | 'auth.two-factor-off'
+  | 'auth.sessions-ended'
+  | 'admin.sessions-ended'
+  | 'team.two-factor-rule'
   | 'team.created'
   | 'team.renamed'
   | 'team.deleted'
@@ -28,7 +37,9 @@ export type AuditAction =
   | 'map.deleted'
   | 'study.deleted'
   | 'share-link.created'
-  | 'share-link.revoked';
+  | 'share-link.revoked'
+  | 'share-link.kept'
+  | 'share-link.unkept';
 
 export interface AuditEvent {
   action: AuditAction;

@@ -2,8 +2,7 @@ import { and, eq, inArray } from 'drizzle-orm';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import Papa from 'papaparse';
-import { ESCAPE_FORMULAE } from '../../shared/maps';
+import { writeCsv } from '../../shared/csv';
 import type { SpoolbookMap } from '../../shared/maps/types';
 import { runStudyDocument } from '../../shared/study/run';
 import { resultRecords } from '../../shared/matching/results-table';
@@ -95,7 +94,7 @@ export async function mapsOfStudy(db: Db, teamId: string, doc: StudyDocument): P
 export function resultsCsv(doc: StudyDocument, mapsById: Record<string, SpoolbookMap>): string {
   const result = runStudyDocument(doc, mapsById);
   const { fields, data } = resultRecords(result);
-  return Papa.unparse({ fields, data }, { escapeFormulae: ESCAPE_FORMULAE, newline: '\r\n' });
+  return writeCsv(fields, data);
 }
 
 export async function studyAuthors(db: Db, teamId: string) {

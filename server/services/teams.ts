@@ -1,7 +1,7 @@
-import { and, asc, count, eq, gt, isNull } from 'drizzle-orm';
+import { and, asc, count, eq, gt, inArray, isNull } from 'drizzle-orm';
 import type { Invitation, Member, Role } from '../../shared/schemas/account';
 import type { Db } from '../db/client';
-import { invitations, teamMembers, users } from '../db/schema';
+import { invitations, shareLinks, studies, teamMembers, teams, users } from '../db/schema';
 import { HttpError } from '../http/errors';
 
 export const INVITATION_VALID_DAYS = 7;
@@ -37,10 +37,17 @@ type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /**
  * Refuses a change that would leave a team without an owner. Runs inside the transaction that
- * makes the change, with the team's owner rows locked, so two owners demoting each other at
- * once cannot both succeed.
+ * makes the change. It first locks the team's row: every change of membership in a team takes
+ * that one lock first, so such changes run one after the other. (Locking member rows alone let
+ * two owners demoting each other lock them in opposite orders: a deadlock, answered 500.)
  */
-export async function assertOwnerRemains(tx: Tx, teamId: string, userId: string, newRole: Role | null) {
+export async function assertOwnerRemains(tx: Tx, teamId: string, userId: string, newRole: Role | null, actingOwnerId: string | null = null) {
+  await tx.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for('update');
+  if (actingOwnerId) {
+    // The actor's role was checked before the lock; a change that ran first may have taken it away.
+    const [actor] = await tx.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, actingOwnerId)));
+    if (actor?.role !== 'owner') throw new HttpError(403, 'forbidden', 'You are no longer an owner of this team.');
+  }
   const [member] = await tx
     .select({ role: teamMembers.role })
     .from(teamMembers)
@@ -61,4 +68,18 @@ export async function assertOwnerRemains(tx: Tx, teamId: string, userId: string,
 export async function memberCount(db: Db, teamId: string) {
   const [row] = await db.select({ n: count() }).from(teamMembers).where(eq(teamMembers.teamId, teamId));
   return row.n;
+}
+
+/**
+ * When someone leaves a team (or is removed), the share links they made for its studies stop,
+ * except those an owner chose to keep. Runs in the transaction of the leaving.
+ */
+export async function revokeShareLinksOfLeaver(tx: Tx, teamId: string, userId: string): Promise<number> {
+  const teamStudies = tx.select({ id: studies.id }).from(studies).where(eq(studies.teamId, teamId));
+  const rows = await tx
+    .update(shareLinks)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(shareLinks.createdBy, userId), isNull(shareLinks.revokedAt), isNull(shareLinks.keptBy), inArray(shareLinks.studyId, teamStudies)))
+    .returning({ id: shareLinks.id });
+  return rows.length;
 }

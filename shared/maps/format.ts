@@ -26,9 +26,9 @@ export const MAX_LABEL_LENGTH = 40;
 
 /**
  * A text cell that a spreadsheet would run as a formula: `=`, `+`, `-`, `@`, tab, carriage return
- * or NUL first. Refused on read in text fields (name, labels) and escaped on write.
+ * or NUL first. Refused on read in text fields (name, labels) and escaped on write (shared/csv).
  */
-export const FORMULA_START = /^[=+\-@\t\r\0]/;
+export { FORMULA_START } from '../csv';
 
 /** Specific gas constant of dry air, J/(kg·K) (ISO 2533 / ICAO Doc 7488 standard atmosphere). */
 export const AIR_GAS_CONSTANT = 287.05287;

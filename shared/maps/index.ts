@@ -6,9 +6,11 @@
 export * from './format';
 export type * from './types';
 export { parseMapFile } from './parse';
-export { writeMapFile, ESCAPE_FORMULAE } from './write';
+export { writeMapFile } from './write';
 export { compressorModelFromMap, type CompressorModelOptions } from './model';
-export { triangulate, type TriangulatedSurface } from './interpolate';
+export { triangulate, unitSquare, type TriangulatedSurface, type UnitSquare } from './interpolate';
+export { mergeCoincidentPoints, COINCIDENCE_TOLERANCE, type SurfacePoint, type PointSource, type MergedPoints, type CoincidentPlace } from './coincident';
+export { surfacePoints, type MapSurfacePoint } from './surface-points';
 export { surgeMargin, chokeMargin, speedMargin, piecewiseLinear, type PiecewiseLinear } from './margins';
 export { mapBoundary, surgeMarginAt, chokeMarginAt, speedOutside, isentropicHead, type MapBoundary, type BoundaryMargin, type BoundarySpeed } from './boundary';
 export { withReference, withCompressorFileUnits, withTurbineFileUnits, withMetadata } from './convert';

@@ -10,6 +10,12 @@ import { Delaunay } from 'd3-delaunay';
  * The points are scaled to the unit square before triangulating, so that flow in kg/s and
  * pressure ratio (numbers of very different size) give well-shaped triangles, and so that one map
  * written in different units triangulates the same way.
+ *
+ * The points are triangulated in one canonical order (by x, then y, then the channels' values),
+ * never in the order they were given: where four points lie on one circle there are two Delaunay
+ * triangulations, and where two points coincide only one of them is kept, and which one depends
+ * on the order the points arrive in. Sorted first, the same points always give the same triangles
+ * and the same values, bit for bit.
  */
 export interface TriangulatedSurface {
   readonly pointCount: number;
@@ -23,6 +29,39 @@ export interface TriangulatedSurface {
 /** Barycentric weights more negative than this (in unit-square coordinates) mean "outside". */
 const INSIDE_TOLERANCE = -1e-12;
 
+/** The affine map of the points' bounding box onto the unit square: u = (x − xMin)·xScale, v = (y − yMin)·yScale. */
+export interface UnitSquare {
+  xMin: number;
+  yMin: number;
+  xScale: number;
+  yScale: number;
+}
+
+/** The unit square `triangulate` works in (a side of zero length is left unscaled). */
+export function unitSquare(xs: ArrayLike<number>, ys: ArrayLike<number>): UnitSquare {
+  let xMin = Infinity, xMax = -Infinity, yMin = Infinity, yMax = -Infinity;
+  for (let i = 0; i < xs.length; i++) {
+    xMin = Math.min(xMin, xs[i]);
+    xMax = Math.max(xMax, xs[i]);
+    yMin = Math.min(yMin, ys[i]);
+    yMax = Math.max(yMax, ys[i]);
+  }
+  return { xMin, yMin, xScale: xMax > xMin ? 1 / (xMax - xMin) : 1, yScale: yMax > yMin ? 1 / (yMax - yMin) : 1 };
+}
+
+/** Point indices sorted by x, then y, then each channel's value: the same for any order of the same points. */
+function canonicalOrder(xs: ArrayLike<number>, ys: ArrayLike<number>, channels: ArrayLike<number>[]): number[] {
+  // A plain array: its sort takes nearly sorted input (as merged map points come) in close to linear time.
+  const order = new Array<number>(xs.length);
+  for (let i = 0; i < order.length; i++) order[i] = i;
+  return order.sort((a, b) => {
+    const byPlace = xs[a] - xs[b] || ys[a] - ys[b];
+    if (byPlace !== 0) return byPlace;
+    for (const c of channels) if (c[a] !== c[b]) return c[a] - c[b];
+    return 0;
+  });
+}
+
 export function triangulate(xs: ArrayLike<number>, ys: ArrayLike<number>, channels: ArrayLike<number>[]): TriangulatedSurface {
   const n = xs.length;
   if (ys.length !== n || channels.some((c) => c.length !== n)) {
@@ -33,25 +72,18 @@ export function triangulate(xs: ArrayLike<number>, ys: ArrayLike<number>, channe
       throw new Error(`triangulate: point ${i} has a value that is not a finite number`);
     }
   }
-  let xMin = Infinity, xMax = -Infinity, yMin = Infinity, yMax = -Infinity;
-  for (let i = 0; i < n; i++) {
-    xMin = Math.min(xMin, xs[i]);
-    xMax = Math.max(xMax, xs[i]);
-    yMin = Math.min(yMin, ys[i]);
-    yMax = Math.max(yMax, ys[i]);
-  }
-  const xScale = xMax > xMin ? 1 / (xMax - xMin) : 1;
-  const yScale = yMax > yMin ? 1 / (yMax - yMin) : 1;
+  const { xMin, yMin, xScale, yScale } = unitSquare(xs, ys);
+  const order = canonicalOrder(xs, ys, channels);
   const u = new Float64Array(n);
   const v = new Float64Array(n);
   const coords = new Float64Array(2 * n);
   for (let i = 0; i < n; i++) {
-    u[i] = (xs[i] - xMin) * xScale;
-    v[i] = (ys[i] - yMin) * yScale;
+    u[i] = (xs[order[i]] - xMin) * xScale;
+    v[i] = (ys[order[i]] - yMin) * yScale;
     coords[2 * i] = u[i];
     coords[2 * i + 1] = v[i];
   }
-  const values = channels.map((c) => Float64Array.from(c));
+  const values = channels.map((c) => Float64Array.from(order, (i) => c[i]));
 
   const delaunay = n >= 3 ? new Delaunay(coords) : null;
   // d3-delaunay jitters collinear input to triangulate it; such slivers carry no area to interpolate in.

@@ -1,6 +1,8 @@
 import type { CompressorModel, CompressorReading } from '../matching/compressor-model';
+import { mergeCoincidentPoints } from './coincident';
 import { triangulate, type TriangulatedSurface } from './interpolate';
 import { chokeMarginAt, locateAgainstBoundary, mapBoundary, speedOutside, surgeMarginAt } from './boundary';
+import { surfacePoints } from './surface-points';
 import type { CompressorMap } from './types';
 
 export interface CompressorModelOptions {
@@ -8,20 +10,10 @@ export interface CompressorModelOptions {
   maxSpeed?: number | null;
 }
 
+/** The surface of one quantity: coincident points merged by one rule (coincident.ts), the rest as they are. */
 function surfaceOf(map: CompressorMap, value: 'efficiency' | 'speed'): TriangulatedSurface {
-  const flows: number[] = [];
-  const ratios: number[] = [];
-  const values: number[] = [];
-  for (const curve of map.curves) {
-    for (const point of curve.points) {
-      const v = point[value];
-      if (v === null) continue;
-      flows.push(point.correctedMassFlow);
-      ratios.push(point.pressureRatio);
-      values.push(v);
-    }
-  }
-  return triangulate(flows, ratios, [values]);
+  const merged = mergeCoincidentPoints(surfacePoints(map, value));
+  return triangulate(merged.correctedMassFlow, merged.pressureRatio, [merged.value]);
 }
 
 const OFF_MAP: CompressorReading = {

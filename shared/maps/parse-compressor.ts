@@ -12,10 +12,12 @@ import {
   groupRows,
 } from './curves';
 import { checkKeysForKind, readQuantity, readUnitValue, type CommonHeader, type HeaderSection, type Quantity } from './header';
+import { mergeCoincidentPoints } from './coincident';
 import { quoteCell, type ProblemList } from './problems';
 import type { DataRow } from './rows';
 import type { CompressorCurve, CompressorFlowAxis, CompressorMap, MapProblem } from './types';
 import { compressorFlowScale, efficiencyScale, speedScale } from './scales';
+import { surfacePoints } from './surface-points';
 
 const EXAMPLES: Record<string, string> = {
   [HEADER_KEYS.version]: '1',
@@ -177,7 +179,7 @@ export function readCompressor(
       speed: row.values[3] === null ? null : row.values[3] * speedFactor,
     })),
   }));
-  return {
+  const map: CompressorMap = {
     kind: 'compressor',
     formatVersion: 1,
     name: common.name,
@@ -195,4 +197,32 @@ export function readCompressor(
       maxSpeedUnit: maxSpeed?.unit ?? 'rpm',
     },
   };
+  const rowsOfCurve = groups.map((group) => closedRows.get(group) ?? group.rows);
+  for (const quantity of ['efficiency', 'speed'] as const) {
+    const note = coincidentPointsNote(map, quantity, (curve, point) => rowsOfCurve[curve][point].line);
+    if (note) notes.push(note);
+  }
+  return map;
+}
+
+/**
+ * Says how many places with points of different values were merged, by which rule, and where the
+ * first one is, so that the upload shows what the map will read there. Never a problem: the rule
+ * gives every place one value.
+ */
+function coincidentPointsNote(map: CompressorMap, quantity: 'efficiency' | 'speed', lineOf: (curve: number, point: number) => number): MapProblem | null {
+  const points = surfacePoints(map, quantity);
+  const { conflicts } = mergeCoincidentPoints(points);
+  if (conflicts.length === 0) return null;
+  const places = conflicts.map((place) => [...new Set(place.points.map((i) => lineOf(points[i].curve, points[i].point)))].sort((a, b) => a - b));
+  places.sort((a, b) => a[0] - b[0]);
+  const rowCount = places.reduce((sum, lines) => sum + lines.length, 0);
+  const first = places[0];
+  const firstLines = first.length === 1 ? `line ${first[0]}` : `lines ${first.slice(0, -1).join(', ')} and ${first[first.length - 1]}`;
+  const placesHold = `${conflicts.length} ${conflicts.length === 1 ? 'place holds' : 'places hold'}`;
+  const message =
+    quantity === 'efficiency'
+      ? `${placesHold} points with different efficiencies (${rowCount} rows); each place is read as one point: a speed line's efficiency where one passes through it (the mean where several do), otherwise the highest island's efficiency; the first is at ${firstLines}`
+      : `${placesHold} speed-line points with different speeds (${rowCount} rows); each place is read as one point at the mean of their speeds; the first is at ${firstLines}`;
+  return { code: 'coincident-points-merged', line: null, column: null, message };
 }

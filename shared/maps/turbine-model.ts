@@ -135,10 +135,8 @@ export function capacityNodes(map: TurbineMap): CapacityNodes {
   const flow: number[] = [];
   const efficiency: (number | null)[] = [];
   for (const x of ratios) {
-    let fpSum = 0;
-    let fpCount = 0;
-    let etaSum = 0;
-    let etaCount = 0;
+    const fpOnLines: number[] = [];
+    const etaOnLines: number[] = [];
     for (const curve of map.curves) {
       const pts = curve.points;
       if (pts.length === 0 || x < pts[0].expansionRatio - 1e-12 || x > pts[pts.length - 1].expansionRatio + 1e-12) continue;
@@ -148,20 +146,24 @@ export function capacityNodes(map: TurbineMap): CapacityNodes {
       const b = pts[Math.min(i + 1, pts.length - 1)];
       const span = b.expansionRatio - a.expansionRatio;
       const t = span > 0 ? Math.min(1, Math.max(0, (x - a.expansionRatio) / span)) : 0;
-      fpSum += a.flowParameter + t * (b.flowParameter - a.flowParameter);
-      fpCount++;
+      fpOnLines.push(a.flowParameter + t * (b.flowParameter - a.flowParameter));
       const etaA = t === 1 ? b.efficiency : a.efficiency;
       const etaB = t === 0 ? a.efficiency : b.efficiency;
-      if (etaA !== null && etaB !== null) {
-        etaSum += etaA + t * (etaB - etaA);
-        etaCount++;
-      }
+      if (etaA !== null && etaB !== null) etaOnLines.push(etaA + t * (etaB - etaA));
     }
-    flow.push(fpCount > 0 ? fpSum / fpCount : 0);
-    efficiency.push(etaCount > 0 ? etaSum / etaCount : null);
+    flow.push(fpOnLines.length > 0 ? meanInAscendingOrder(fpOnLines) : 0);
+    efficiency.push(etaOnLines.length > 0 ? meanInAscendingOrder(etaOnLines) : null);
   }
   for (let i = 1; i < flow.length; i++) if (flow[i] < flow[i - 1]) flow[i] = flow[i - 1];
   return { expansionRatio: ratios, flowParameter: flow, efficiency: fillGaps(ratios, efficiency) };
+}
+
+/** The mean, summed smallest first: the same to the last bit in whatever order the file lists its lines. */
+function meanInAscendingOrder(values: number[]): number {
+  values.sort((a, b) => a - b);
+  let sum = 0;
+  for (const x of values) sum += x;
+  return sum / values.length;
 }
 
 /** Fills nulls by straight lines between the known values, held at the ends; null when none is known. */

@@ -142,6 +142,7 @@ export type MapProblemCode =
   | 'efficiency-scale'
   | 'too-few-points'
   | 'island-not-closed'
+  | 'coincident-points-merged'
   | 'not-increasing'
   | 'duplicate-label'
   | 'inconsistent-line'

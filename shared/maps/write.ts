@@ -1,11 +1,8 @@
-import Papa from 'papaparse';
+import { csvLine, writeCsv } from '../csv';
 import { COMPRESSOR_COLUMNS, FORMULA_START, HEADER_KEYS, MAP_FORMAT_VERSION, TURBINE_COLUMNS } from './format';
 import { compressorFlowScale, efficiencyScale, flowParameterScale, speedScale } from './scales';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from './types';
 import { mapValueFromSI, mapValueToSI, type MapQuantity } from './units';
-
-/** The regular expression papaparse uses to neutralise spreadsheet formulas on export. */
-export const ESCAPE_FORMULAE = /^[=+\-@\t\r\0]/;
 
 /**
  * The shortest decimal that reads back to exactly `si` through `toSI`: 12 significant digits are
@@ -38,14 +35,15 @@ function headerValue(text: string): string {
   return FORMULA_START.test(oneLine) ? `'${oneLine}` : oneLine;
 }
 
-function headerLines(entries: Array<[string, string]>, notes: string[]): string[] {
-  const lines = entries.map(([key, value]) => `# ${key}: ${value}`);
-  for (const note of notes) lines.push(`# ${HEADER_KEYS.note}: ${note.replace(/[\u0000-\u001f\u007f]+/g, ' ').trim()}`);
+/** `# key: value` lines, each written as one CSV cell (see csvLine). */
+export function headerLines(entries: Array<[string, string]>, notes: string[] = []): string[] {
+  const lines = entries.map(([key, value]) => csvLine(`# ${key}: ${value}`));
+  for (const note of notes) lines.push(csvLine(`# ${HEADER_KEYS.note}: ${note.replace(/[\u0000-\u001f\u007f]+/g, ' ').trim()}`));
   return lines;
 }
 
 function table(columns: readonly string[], rows: Array<Array<string | number | null>>): string {
-  return Papa.unparse({ fields: [...columns], data: rows }, { escapeFormulae: ESCAPE_FORMULAE, newline: '\n', quotes: false });
+  return writeCsv(columns, rows, '\n');
 }
 
 function writeCompressor(map: CompressorMap): string {

@@ -38,6 +38,14 @@ export const resetConfirmSchema = z.strictObject({
   token: z.string().min(10).max(200),
   password: passwordSchema,
 });
+export const confirmEmailSchema = z.strictObject({ token: z.string().min(10).max(200) });
+/** A 6-digit code from an authenticator app, or a recovery code (`abcde-fghjk`). */
+export const secondFactorCodeSchema = z.string().trim().min(6, 'is required').max(20, 'is not a code');
+export const secondFactorSignInSchema = z.strictObject({ challenge: z.string().min(10).max(200), code: secondFactorCodeSchema });
+export const enableTwoFactorSchema = z.strictObject({ code: z.string().trim().regex(/^\d{6}$/, 'must be the 6 digits your app shows') });
+/** Turning the second factor off or making new recovery codes asks for the password again. */
+export const confirmPasswordSchema = z.strictObject({ password: z.string().min(1, 'is required').max(128) });
+export const teamTwoFactorSchema = z.strictObject({ required: z.boolean() });
 export const changePasswordSchema = z.strictObject({
   currentPassword: z.string().min(1, 'is required').max(128),
   newPassword: passwordSchema,
@@ -53,8 +61,41 @@ export const userSchema = z.object({
   name: z.string(),
   isAdmin: z.boolean(),
   unitSystem: unitSystemSchema,
+  /** False until the owner of the address opens the confirmation link. */
+  emailConfirmed: z.boolean(),
+  /** The second factor (an authenticator app) is on. */
+  twoFactor: z.boolean(),
 });
 export type User = z.infer<typeof userSchema>;
+
+/** The answer to a right password when the account has a second factor: no session yet. */
+export const secondFactorNeededSchema = z.object({ secondFactor: z.literal(true), challenge: z.string() });
+
+export const sessionViewSchema = z.object({
+  id: z.string(),
+  current: z.boolean(),
+  createdAt: z.string(),
+  lastSeenAt: z.string(),
+  ip: z.string().nullable(),
+  browser: z.string(),
+});
+export type SessionView = z.infer<typeof sessionViewSchema>;
+export const sessionListSchema = z.object({ sessions: z.array(sessionViewSchema) });
+
+export const twoFactorSetupSchema = z.object({ secret: z.string(), uri: z.string(), qrCode: z.string() });
+export const recoveryCodesSchema = z.object({ recoveryCodes: z.array(z.string()) });
+export const twoFactorStatusSchema = z.object({ enabled: z.boolean(), recoveryCodesLeft: z.number() });
+
+export const adminUserSchema = z.object({
+  id: z.string(),
+  email: z.string(),
+  name: z.string(),
+  isAdmin: z.boolean(),
+  twoFactor: z.boolean(),
+  emailConfirmed: z.boolean(),
+  sessions: z.number(),
+});
+export type AdminUser = z.infer<typeof adminUserSchema>;
 
 export const teamSummarySchema = z.object({
   id: z.string(),
@@ -62,6 +103,8 @@ export const teamSummarySchema = z.object({
   personal: z.boolean(),
   /** The signed-in user's role; null when a site admin sees a team they are not in. */
   role: roleSchema.nullable(),
+  /** Members must have the second factor on to open the team's data. */
+  requireTwoFactor: z.boolean().optional(),
 });
 export type TeamSummary = z.infer<typeof teamSummarySchema>;
 

@@ -159,9 +159,10 @@ export const updateStudyMetaSchema = z
 export const duplicateStudySchema = z.strictObject({ title: studyTitleSchema.optional() });
 export const restoreRevisionSchema = z.strictObject({ baseRevision: z.number().int().min(1) });
 export const createShareLinkSchema = z.strictObject({
-  /** Days until the link stops working; absent never expires (it can still be revoked). */
-  expiresInDays: z.number().int().min(1).max(365).optional(),
+  /** Days until the link stops working (30 when absent); null never expires (it can still be revoked). */
+  expiresInDays: z.number().int().min(1).max(365).nullable().default(30),
 });
+export const keepShareLinkSchema = z.strictObject({ kept: z.boolean() });
 export const studyListQuerySchema = z.strictObject({
   q: z.string().trim().max(100).optional(),
   author: z.string().max(64).optional(),
@@ -214,6 +215,8 @@ export const shareLinkSchema = z.object({
   createdBy: z.string().nullable(),
   expiresAt: z.string().nullable(),
   revokedAt: z.string().nullable(),
+  /** An owner chose to keep it working after its maker leaves the team. */
+  kept: z.boolean().optional(),
   /** Present only in the answer that created the link: the token is stored hashed and never shown again. */
   url: z.string().optional(),
 });

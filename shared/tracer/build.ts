@@ -1,8 +1,8 @@
-import Papa from 'papaparse';
 import { COMPRESSOR_COLUMNS, HEADER_KEYS, MAP_FORMAT_VERSION, TURBINE_COLUMNS } from '../maps/format';
 import { parseMapFile } from '../maps/parse';
 import type { MapParseResult, MapProblem } from '../maps/types';
-import { ESCAPE_FORMULAE } from '../maps/write';
+import { headerLines as csvHeaderLines } from '../maps/write';
+import { writeCsv } from '../csv';
 import type { PlanePoint } from './affine';
 import { calibrateClicks, dataToPixel, pixelToData, type CalibrationResult } from './calibration';
 import { axisQuantities, type TraceCurve, type TraceState } from './state';
@@ -237,10 +237,11 @@ function tracedLines(state: TraceState, calibration: CalibrationResult): TracedL
 
 function write(state: TraceState, calibration: CalibrationResult, lines: TracedLine[]): Written {
   const headerFields = new Map<number, string>();
-  const headerLines = header(state, calibration).map(([key, value, field], i) => {
+  const entries = header(state, calibration);
+  entries.forEach(([, , field], i) => {
     if (field) headerFields.set(i + 1, field);
-    return `# ${key}: ${value}`;
   });
+  const headerLines = csvHeaderLines(entries.map(([key, value]) => [key, value]));
   const labelOf = labels(state);
   const curveById = new Map(state.curves.map((c) => [c.id, c]));
   const rows: Array<Array<string | number | null>> = [];
@@ -257,7 +258,7 @@ function write(state: TraceState, calibration: CalibrationResult, lines: TracedL
     }
   }
   const columns = state.kind === 'compressor' ? COMPRESSOR_COLUMNS : TURBINE_COLUMNS;
-  const table = Papa.unparse({ fields: [...columns], data: rows }, { escapeFormulae: ESCAPE_FORMULAE, newline: '\n', quotes: false });
+  const table = writeCsv(columns, rows, '\n');
   return { text: `${[...headerLines, table].join('\n')}\n`, headerFields, rowOrigins };
 }
 

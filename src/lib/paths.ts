@@ -58,6 +58,10 @@ export const paths = {
   /** The printable report of a shared study. */
   shareReport: { path: '/share/:token/report', href: (token: string) => `/share/${encodeURIComponent(token)}/report` },
   settings: { path: '/settings', href: () => '/settings' },
+  /** Where this account is signed in. */
+  sessions: { path: '/settings/sessions', href: () => '/settings/sessions' },
+  /** The link the confirmation mail carries: `/confirm-email?token=…`. */
+  confirmEmail: { path: '/confirm-email', href: () => '/confirm-email' },
 
   admin: { path: '/admin', href: () => '/admin' },
   adminTeams: { path: '/admin/teams', href: () => '/admin/teams' },

@@ -1,8 +1,12 @@
+import { Link } from 'react-router';
 import { Card } from '../components/Card';
 import { Loading, Page } from '../components/Page';
 import { ChangePasswordForm } from '../features/auth/components/ChangePasswordForm';
+import { ConfirmEmailNotice } from '../features/auth/components/ConfirmEmailNotice';
 import { ProfileForm } from '../features/auth/components/ProfileForm';
+import { TwoFactorSettings } from '../features/auth/components/TwoFactorSettings';
 import { UnitSystemForm } from '../features/auth/components/UnitSystemForm';
+import { paths } from '../lib/paths';
 import { useMe } from '../lib/session';
 
 export function SettingsRoute() {
@@ -10,7 +14,8 @@ export function SettingsRoute() {
   if (!me.data) return <Loading />;
   const { user } = me.data;
   return (
-    <Page title="Account settings" description="Your name, the units Spoolbook shows, and your password." width="narrow">
+    <Page title="Account settings" description="Your name, the units Spoolbook shows, your password and how you sign in." width="narrow">
+      {!user.emailConfirmed && <ConfirmEmailNotice email={user.email} />}
       <Card title="Profile">
         <ProfileForm user={user} />
       </Card>
@@ -20,6 +25,14 @@ export function SettingsRoute() {
       </Card>
       <Card title="Password">
         <ChangePasswordForm />
+      </Card>
+      <Card title="Second factor">
+        <TwoFactorSettings />
+      </Card>
+      <Card title="Sessions">
+        <p className="text-sm text-ink-soft">
+          See every browser where you are signed in, and end the ones you do not use. <Link to={paths.sessions.href()}>Open your sessions</Link>
+        </p>
       </Card>
     </Page>
   );

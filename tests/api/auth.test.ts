@@ -84,15 +84,15 @@ describe('sign-in and sign-out', () => {
     expect(left).toHaveLength(0);
   });
 
-  it('rate-limits failed sign-ins with 429 and Retry-After', async () => {
+  it('slows failed sign-ins down with 429 and Retry-After (OWASP ASVS 5.0 6.3.1)', async () => {
     const limited = await startTestApp({ authRateLimit: 3 });
     try {
       const c = client(limited);
       const email = uniqueEmail('ratelimit');
       const statuses: number[] = [];
-      for (let i = 0; i < 4; i++) statuses.push((await c.post('/api/auth/sign-in', { email, password: 'wrong password' })).status);
-      // Limit of 3 per window set in this test's config.
-      expect(statuses).toEqual([401, 401, 401, 429]);
+      for (let i = 0; i < 5; i++) statuses.push((await c.post('/api/auth/sign-in', { email, password: 'wrong password' })).status);
+      // 3 free failures set in this test's config; the 4th starts a delay, so the 5th must wait.
+      expect(statuses).toEqual([401, 401, 401, 401, 429]);
       const res = await c.post('/api/auth/sign-in', { email, password: 'wrong password' });
       expect(res.headers['retry-after']).toBeDefined();
       expectErrorShape(res.body);

@@ -1,16 +1,25 @@
+import { randomUUID } from 'node:crypto';
 import express from 'express';
 import request from 'supertest';
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
+import type { AppDeps } from '../../server/app';
+import { connectDatabase } from '../../server/db/client';
 import { errorHandler } from '../../server/http/errors';
 import { computeRouter } from '../../server/routes/compute';
+import { createLimits, defaultLimitSettings } from '../../server/services/limits';
 import { computeResponseSchema, MAX_COMPUTE_POINTS } from '../../shared/schemas/compute';
 import { expectClose } from '../unit/physics/expect-close';
 
-function appWith(options?: Parameters<typeof computeRouter>[0]) {
+// The limit is counted in PostgreSQL (the test database); each app counts under its own namespace.
+const database = connectDatabase(process.env.DATABASE_URL ?? 'postgres://missing', { max: 2 });
+afterAll(() => database.pool.end());
+
+function appWith(options: { rateLimitPerMinute?: number } = {}) {
   const logged: unknown[] = [];
   const app = express();
   app.use(express.json({ limit: '1mb' }));
-  app.use('/api/compute', computeRouter(options));
+  const limits = createLimits(database.pool, { ...defaultLimitSettings(10), computePerMinute: options.rateLimitPerMinute ?? 300 }, `compute-test-${randomUUID()}:`);
+  app.use('/api/compute', computeRouter({ limits } as AppDeps));
   app.use(errorHandler({ error: (obj: unknown) => void logged.push(obj) }));
   return { app, logged };
 }
@@ -80,6 +89,52 @@ describe('POST /api/compute', () => {
     });
   }
 
+  it('answers each point with its findings, most severe first', async () => {
+    const { app } = appWith();
+    // PR about 11 at 35 % efficiency gives an outlet temperature of thousands of kelvin: never a plain 200 without a word.
+    const hot = { ...body, points: [{ rpm: 6000, volumetricEfficiency: 0.9, boost: 1_000_000, manifoldTemperature: 320, compressorEfficiency: 0.35 }] };
+    const res = await request(app).post('/api/compute').send(hot);
+    expect(res.status).toBe(200);
+    const [point] = computeResponseSchema.parse(res.body).points;
+    expect(point.compressorOutletTemperature).toBeGreaterThan(1000);
+    const codes = point.findings.map((f) => f.code);
+    expect(codes).toContain('compressor-outlet-temperature-high'); // above the 200 °C accepted by default (from memory)
+    for (const f of point.findings) expect(['info', 'warning', 'limit']).toContain(f.severity);
+    const ranks = point.findings.map((f) => ({ limit: 0, warning: 1, info: 2 })[f.severity]);
+    expect([...ranks].sort((a, b) => a - b)).toEqual(ranks);
+    const quiet = computeResponseSchema.parse((await request(app).post('/api/compute').send(body)).body).points[0];
+    expect(quiet.findings.filter((f) => f.severity !== 'info')).toEqual([]);
+  });
+
+  it('takes brake power from the fuel when lean: λ 1.2 and 2.0 give less than λ 0.8, as 1/λ', async () => {
+    const { app } = appWith();
+    const at = async (lambda: number) =>
+      (await request(app).post('/api/compute').send({ ...body, fuel: { kind: 'petrol', lambda, brakeThermalEfficiency: 0.3 } })).body.points[0];
+    const rich = await at(0.8);
+    // P = η_b·LHV·min(ṁ_fuel, ṁ_air/AFR_s) (Heywood 1988, eq. 2.23 with the fuel that burns): lean, P ∝ ṁ_fuel ∝ 1/λ.
+    expectClose((await at(1.2)).brakePower, rich.brakePower / 1.2, 1e-9);
+    expectClose((await at(2.0)).brakePower, rich.brakePower / 2.0, 1e-9);
+    const lean = await at(1.05);
+    expect(lean.findings.find((f: { code: string }) => f.code === 'lean-under-boost-limit')?.severity).toBe('limit'); // λ above 1.0 under 100 kPa of boost
+  });
+
+  const slips: [string, Record<string, number>, string, RegExp][] = [
+    ['kPa typed where Pa is meant', { pressure: 101.325, temperature: 288.15 }, 'ambient.pressure', /looks like kPa; write 101325/],
+    ['bar typed where Pa is meant', { pressure: 1.01325, temperature: 288.15 }, 'ambient.pressure', /looks like bar/],
+    ['a pressure no atmosphere has', { pressure: 150_000, temperature: 288.15 }, 'ambient.pressure', /between 20 000 and 120 000 Pa/],
+    ['°C typed where K is meant', { pressure: 101_325, temperature: 25 }, 'ambient.temperature', /looks like °C; write 298.15/],
+    ['a temperature no weather has', { pressure: 101_325, temperature: 390 }, 'ambient.temperature', /between 200 and 340 K/],
+  ];
+  for (const [what, ambient, path, message] of slips) {
+    it(`refuses ${what}, naming ${path} and the likely slip`, async () => {
+      const { app } = appWith();
+      const res = await request(app).post('/api/compute').send({ ...body, ambient });
+      expect(res.status).toBe(400);
+      const issue = res.body.error.details.issues.find((i: { path: string }) => i.path === path);
+      expect(issue?.message).toMatch(message); // 20–120 kPa, 200–340 K: what the atmosphere allows (ISO 2533 ISA to 11 km; from memory for weather)
+    });
+  }
+
   it('answers 400 for malformed JSON and 413 for a body over 1 MB', async () => {
     const { app } = appWith();
     const malformed = await request(app).post('/api/compute').set('Content-Type', 'application/json').send('{"engine":');
@@ -91,12 +146,15 @@ describe('POST /api/compute', () => {
     expect(huge.status).toBe(413);
   });
 
-  it('rate-limits each client, answering 429 with the standard headers', async () => {
+  it('rate-limits each client, answering 429 with Retry-After', async () => {
     const { app } = appWith({ rateLimitPerMinute: 3 });
     for (let i = 0; i < 3; i++) expect((await request(app).post('/api/compute').send(body)).status).toBe(200);
     const limited = await request(app).post('/api/compute').send(body);
     expect(limited.status).toBe(429);
-    expect(limited.body.error).toEqual({ code: 'rate_limited', message: 'Too many compute requests; try again in a minute.' });
-    expect(limited.headers['ratelimit-policy']).toMatch(/q=3/); // IETF draft 8 header (express-rate-limit docs)
+    expect(limited.body.error.code).toBe('rate_limited');
+    expect(limited.body.error.message).toMatch(/^Too many compute requests\. Wait \d+ seconds? and try again\.$/);
+    const wait = Number(limited.headers['retry-after']);
+    expect(wait).toBeGreaterThan(0);
+    expect(wait).toBeLessThanOrEqual(60); // the window is one minute (server/services/limits.ts)
   });
 });

@@ -5,7 +5,8 @@ import request from 'supertest';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
 import { connectDatabase, type Database } from '../../server/db/client';
-import { outbox } from '../../server/db/schema';
+import { outbox, users } from '../../server/db/schema';
+import type { LimitSettings } from '../../server/services/limits';
 import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { createMailer } from '../../server/mail/mailer';
 
@@ -13,29 +14,51 @@ export const ORIGIN = 'http://127.0.0.1:3000';
 
 export interface TestApp {
   app: ReturnType<typeof createApp>['app'];
+  deps: ReturnType<typeof createApp>['deps'];
   database: Database;
   config: Config;
+  /** Work left after answering (a reset request's lookup) done, and every queued message sent. */
+  drainMail: () => Promise<void>;
   close: () => Promise<void>;
 }
 
-/** The real app over the real (disposable) test database, with mail caught by the real fake SMTP server. */
-export async function startTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
+/**
+ * The real app over the real (disposable) test database, with mail caught by the real fake SMTP
+ * server. Rate limits count in PostgreSQL under a namespace of this app's own, so test files
+ * running side by side (all from 127.0.0.1) do not count together.
+ */
+export async function startTestApp(overrides: Partial<Config> = {}, limitSettings: Partial<LimitSettings> = {}): Promise<TestApp> {
   if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the API tests through `npm test`.');
   const config = { ...loadConfig({ ...process.env, PORT: '3000', HOST: '127.0.0.1', PUBLIC_URL: ORIGIN }), authRateLimit: 1000, ...overrides };
   const database = connectDatabase(config.databaseUrl, { max: 5 });
   const smtp = await startFakeSmtp(database.db, 0);
   const mailer = createMailer(`smtp://127.0.0.1:${smtp.port}`, config.mailFrom);
-  const { app } = createApp({ database, config, mailer, logger: pino({ level: 'silent' }) });
-  return {
-    app,
+  const { app, deps } = createApp({
     database,
     config,
+    mailer,
+    logger: pino({ level: 'silent' }),
+    limitSettings: { invitationsPerTeam: 1000, invitationsPerUser: 1000, invitationsPerAddress: 1000, resetsPerAccount: 1000, confirmationsPerAccount: 1000, ...limitSettings },
+    rateLimitNamespace: `test-${randomUUID()}:`,
+  });
+  return {
+    app,
+    deps,
+    database,
+    config,
+    drainMail: () => deps.mail.drain(),
     close: async () => {
+      deps.mail.stop();
       mailer.close();
       await smtp.close();
       await database.pool.end();
     },
   };
+}
+
+/** Marks an account's address confirmed, as opening the mailed link does (tests of other things start here). */
+export async function confirmAddress(t: TestApp, userId: string) {
+  await t.database.db.update(users).set({ emailConfirmedAt: new Date() }).where(eq(users.id, userId));
 }
 
 export function uniqueEmail(prefix = 'user') {
@@ -59,20 +82,35 @@ export type Client = ReturnType<typeof client>;
 
 export const PASSWORD = 'correct horse battery';
 
-/** Signs a new account up and returns the signed-in client with its user and personal team. */
-export async function signedUp(t: TestApp, prefix = 'user') {
+/**
+ * Signs a new account up and returns the signed-in client with its user and personal team. The
+ * address is confirmed (as if the mailed link was opened) unless `confirmed: false`; the
+ * confirmation itself is tested in auth-confirmation.test.ts.
+ */
+export async function signedUp(t: TestApp, prefix = 'user', { confirmed = true }: { confirmed?: boolean } = {}) {
   const c = client(t);
   const email = uniqueEmail(prefix);
   const res = await c.post('/api/auth/sign-up', { email, password: PASSWORD, name: `${prefix} ${email.slice(-14, -13)}` });
   if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  if (confirmed) await confirmAddress(t, res.body.user.id);
   return { c, email, user: res.body.user as { id: string }, personalTeamId: res.body.teams[0].id as string };
 }
 
-/** The newest message the fake SMTP server stored for `to`. */
+/** The newest message the fake SMTP server stored for `to`, once queued mail has gone out. */
 export async function latestMailTo(t: TestApp, to: string) {
+  await t.drainMail();
   const [row] = await t.database.db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt)).limit(1);
   if (!row) throw new Error(`no mail to ${to} in the outbox`);
   return row;
+}
+
+/** The link with `pathPrefix` in the newest message to `to` that has one (other mail may have come after it). */
+export async function latestLinkTo(t: TestApp, to: string, pathPrefix: string): Promise<string> {
+  await t.drainMail();
+  const rows = await t.database.db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt));
+  const row = rows.find((r) => r.text.includes(pathPrefix));
+  if (!row) throw new Error(`no mail to ${to} with a ${pathPrefix} link`);
+  return linkIn(row.text, pathPrefix);
 }
 
 export function linkIn(text: string, pathPrefix: string): string {

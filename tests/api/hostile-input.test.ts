@@ -12,6 +12,8 @@ import net from 'node:net';
 import path from 'node:path';
 import pino from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { users } from '../../server/db/schema';
 import { loadConfig } from '../../server/config';
 import { startServer, type RunningServer } from '../../server/index';
 import { builtinMaps } from '../../server/services/builtin-maps';
@@ -104,12 +106,14 @@ beforeAll(async () => {
   });
   // Warnings and errors are kept: a request the net in server/http/errors.ts caught is a route's bug.
   const logger = pino({ level: 'warn' }, { write: (line: string) => void logs.push(JSON.parse(line) as LogLine) });
-  server = await startServer({ ...config, authRateLimit: 1000, smtpUrl: null }, { handleSignals: false, logger, computeRateLimitPerMinute: 100_000 });
+  server = await startServer({ ...config, authRateLimit: 1000, smtpUrl: null }, { handleSignals: false, logger, computeRateLimitPerMinute: 100_000, limitSettings: { uploadsPerUser: 100_000 } });
   base = server.address;
   const signUp = await sendJson('POST', '/api/auth/sign-up', { email: uniqueEmail('hostile'), password: PASSWORD, name: 'Hostile Tester' }, false);
   if (signUp.status !== 201) throw new Error(`sign-up: ${signUp.status} ${signUp.text}`);
   cookie = signUp.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
   teamId = signUp.body.teams[0].id;
+  // As if the mailed confirmation link was opened: this account creates teams below.
+  await server.database.db.update(users).set({ emailConfirmedAt: new Date() }).where(eq(users.id, signUp.body.user.id));
 }, 60_000);
 
 afterAll(async () => {

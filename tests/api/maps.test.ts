@@ -42,6 +42,8 @@ describe('upload, read, edit, download, delete', () => {
     const res = await upload(owner.c, teamId, 'compressor-m58.csv', text);
     expect(res.status).toBe(201);
     expect(res.body.map).toMatchObject({ kind: 'compressor', builtin: false });
+    // Accepted with a note: its islands meet on the surge line, read by the documented rule (docs/map-format.md).
+    expect(res.body.notes.map((n: { code: string }) => n.code)).toEqual(['coincident-points-merged']);
     const list = await owner.c.get(`/api/teams/${teamId}/maps`);
     expect(list.body.maps.filter((m: { builtin: boolean }) => !m.builtin)).toHaveLength(1);
     // data/maps holds 4 compressor and 4 turbine demo files (scripts/generate-demo-maps.ts).

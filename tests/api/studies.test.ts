@@ -290,6 +290,47 @@ describe('CSV export', () => {
     expect(rows.some((r) => r[0] === "'=HYPERLINK(\"http://x\")")).toBe(true);
     expect(rows.some((r) => r[1] === "'-1 bar day")).toBe(true);
   });
+
+  it('says where each point sits, whether it is reachable and the plan verdict; a limit crossed has its margin at or below 0', async () => {
+    const { owner, teamId, study } = await teamWithStudy();
+    const res = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}/results.csv`);
+    expect(res.status).toBe(200);
+    const [head, ...rows] = Papa.parse<string[]>(res.text.trim(), { skipEmptyLines: true }).data;
+    const col = (name: string) => {
+      const i = head.indexOf(name);
+      expect(i, name).toBeGreaterThanOrEqual(0);
+      return i;
+    };
+    const region = col('Map region');
+    const reachable = col('Reachable');
+    const verdict = col('Plan verdict');
+    const surge = col('Surge margin (fraction)');
+    const choke = col('Choke margin (fraction)');
+    const speed = col('Speed margin (fraction)');
+    const power = col('Crank power (W)');
+    const t2 = col('Compressor outlet temperature (K)');
+    const byRegion = (r: string) => rows.filter((row) => row[region] === r);
+    // The demo's smallest wheel is past choke at high speed and left of surge at low speed (the demo study's own run).
+    expect(byRegion('past choke').length).toBeGreaterThan(0);
+    expect(byRegion('left of surge').length).toBeGreaterThan(0);
+    for (const row of byRegion('past choke')) {
+      expect(row[choke]).not.toBe('');
+      expect(Number(row[choke])).toBeLessThanOrEqual(0);
+    }
+    for (const row of byRegion('left of surge')) expect(Number(row[surge])).toBeLessThanOrEqual(0);
+    for (const row of byRegion('over the speed limit')) expect(Number(row[speed])).toBeLessThan(0);
+    for (const row of rows) {
+      expect(['yes', 'no']).toContain(row[reachable]);
+      if (row[reachable] === 'no') {
+        // Not reachable with this compressor: no power or temperature as if it were.
+        expect(row[power]).toBe('');
+        expect(row[t2]).toBe('');
+      }
+    }
+    const s44 = rows.filter((row) => row[0].startsWith('S44'));
+    expect(new Set(s44.map((row) => row[verdict])).size).toBe(1); // one verdict per plan, on each of its rows
+    expect(s44[0][verdict]).toMatch(/^Does not fit: past choke/);
+  });
 });
 
 describe('role matrix for study actions', () => {
@@ -353,8 +394,12 @@ describe('the exhaust side in saved studies', () => {
     const [head, ...rows] = Papa.parse<string[]>(csv.text.trim(), { skipEmptyLines: true }).data;
     const p3 = head.findIndex((h) => /turbine inlet pressure/i.test(h));
     expect(p3).toBeGreaterThan(0);
-    // The M58 plan's rows carry turbine inlet pressures; the plans without an exhaust block leave them empty.
-    expect(rows.filter((r) => r[0] === demo.plans[1].name).every((r) => Number(r[p3]) > 0)).toBe(true);
+    // The M58 plan's reachable rows carry turbine inlet pressures (an unreachable point has no exhaust
+    // results); the plans without an exhaust block leave them empty.
+    const reachable = head.indexOf('Reachable');
+    const m58 = rows.filter((r) => r[0] === demo.plans[1].name && r[reachable] === 'yes');
+    expect(m58.length).toBeGreaterThan(0);
+    expect(m58.every((r) => Number(r[p3]) > 0)).toBe(true);
     expect(rows.filter((r) => r[0] === demo.plans[0].name).every((r) => r[p3] === '')).toBe(true);
   });
 

@@ -40,9 +40,13 @@ export async function closeTestDatabase() {
 /** The newest link with `pathPrefix` in a message the local mail catcher stored for `to`. */
 export async function linkFromOutbox(to: string, pathPrefix: string): Promise<string> {
   for (let i = 0; i < 40; i++) {
-    const [row] = await testDatabase().db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt)).limit(1);
-    const m = row?.text.match(new RegExp(`https?://\\S+${pathPrefix}\\S+`));
-    if (m) return m[0];
+    // Mail goes out through a queue: look through every message to `to`, newest first.
+    const rows = await testDatabase().db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt));
+    const escaped = pathPrefix.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+    for (const row of rows) {
+      const m = row.text.match(new RegExp(`https?://\\S+${escaped}\\S+`));
+      if (m) return m[0];
+    }
     await new Promise((r) => setTimeout(r, 250));
   }
   throw new Error(`no mail to ${to} with a ${pathPrefix} link`);

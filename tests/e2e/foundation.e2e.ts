@@ -35,6 +35,15 @@ describe('foundation: sign-up, teams, invitations', () => {
     await signUp.getByRole('button', { name: 'Create account' }).click();
     await owner.getByRole('link', { name: 'Team' }).first().waitFor();
 
+    // Creating a team waits for the address: the page says so, and the mailed link confirms it.
+    await owner.goto(`${baseUrl()}/teams`);
+    await owner.getByText('Confirm your e-mail address').waitFor();
+    await screenshot(owner, 'sign-up-unconfirmed');
+    const confirmLink = await linkFromOutbox(ownerEmail, '/confirm-email?token=');
+    await owner.goto(confirmLink.replace(/^https?:\/\/[^/]+/, baseUrl()));
+    await owner.getByText('Address confirmed').waitFor();
+    await screenshot(owner, 'sign-up-confirmed');
+
     await owner.goto(`${baseUrl()}/teams`);
     await owner.getByRole('heading', { name: 'Teams', level: 1 }).waitFor();
     const create = owner.getByRole('form', { name: 'Create a team' });

@@ -43,7 +43,7 @@ function renderPanel(me: Me | null) {
 }
 
 function user(email: string): Me {
-  return { user: { id: 'u9', email, name: 'Rory', isAdmin: false, unitSystem: 'si' }, teams: [] };
+  return { user: { id: 'u9', email, name: 'Rory', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false }, teams: [] };
 }
 
 describe('invitation page', () => {

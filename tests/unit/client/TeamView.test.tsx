@@ -34,7 +34,7 @@ function detail(role: Role): TeamDetail {
 function renderTeam(role: Role) {
   const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false } } });
   const me: Me = {
-    user: { id: 'u1', email: 'ada@example.test', name: 'Ada', isAdmin: false, unitSystem: 'si' },
+    user: { id: 'u1', email: 'ada@example.test', name: 'Ada', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false },
     teams: [detail(role).team],
   };
   queryClient.setQueryData(meQueryOptions().queryKey, me);

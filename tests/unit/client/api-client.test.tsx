@@ -11,7 +11,7 @@ function answer(status: number, body?: unknown, headers: Record<string, string> 
 }
 
 const me = {
-  user: { id: 'u1', email: 'demo@spoolbook.test', name: 'Demo', isAdmin: false, unitSystem: 'si' },
+  user: { id: 'u1', email: 'demo@spoolbook.test', name: 'Demo', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false },
   teams: [],
 };
 

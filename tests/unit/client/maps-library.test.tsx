@@ -41,7 +41,7 @@ function fileFrom(relative: string): File {
 function renderWith(ui: React.ReactNode, role: Role = 'owner') {
   const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false } } });
   const me: Me = {
-    user: { id: 'u1', email: 'ada@example.test', name: 'Ada', isAdmin: false, unitSystem: 'si' },
+    user: { id: 'u1', email: 'ada@example.test', name: 'Ada', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false },
     teams: [{ id: 't1', name: 'Hill-climb build', personal: false, role }],
   };
   queryClient.setQueryData(meQueryOptions().queryKey, me);
@@ -137,6 +137,8 @@ describe('adding a map', () => {
     choose(fileFrom('data/maps/compressor-m58.csv'));
     expect(await screen.findByText('“compressor-m58.csv” reads as a compressor map with no problems.')).toBeTruthy();
     expect(screen.getByTestId('plot')).toBeTruthy();
+    // The demo file's islands meet on the surge line: the preview says how those places are read (docs/map-format.md).
+    expect(screen.getByText(/^Whole file: \d+ places hold points with different efficiencies \(\d+ rows\); each place is read as one point/)).toBeTruthy();
     expect((screen.getByLabelText('Name') as HTMLInputElement).value).toBe('Spoolbook demo compressor M58');
     expect((screen.getByLabelText('Notes') as HTMLTextAreaElement).value).toContain('Invented for Spoolbook');
     expect(screen.getByRole('button', { name: 'Save to library' })).toBeTruthy();

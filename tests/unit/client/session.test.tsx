@@ -19,7 +19,7 @@ function Who() {
   return <p>{me.data ? `signed in as ${me.data.user.email}` : 'signed out'}</p>;
 }
 
-const demo: Me = { user: { id: 'u1', email: 'demo@spoolbook.test', name: 'Demo', isAdmin: false, unitSystem: 'si' }, teams: [] };
+const demo: Me = { user: { id: 'u1', email: 'demo@spoolbook.test', name: 'Demo', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false }, teams: [] };
 
 function renderWho(queryClient: QueryClient) {
   render(

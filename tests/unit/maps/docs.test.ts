@@ -31,7 +31,7 @@ describe('docs/map-format.md', () => {
       'unknown-key', 'duplicate-key', 'missing-key', 'misplaced-key', 'wrong-version', 'unknown-kind', 'bad-value',
       'missing-unit', 'unknown-unit', 'wrong-unit-kind', 'formula-cell', 'wrong-delimiter', 'bad-columns', 'column-count',
       'unclosed-quote', 'decimal-comma', 'unknown-curve', 'not-a-number', 'missing-value', 'out-of-range',
-      'pressure-ratio-below-one', 'efficiency-out-of-range', 'efficiency-scale', 'too-few-points', 'island-not-closed',
+      'pressure-ratio-below-one', 'efficiency-out-of-range', 'efficiency-scale', 'too-few-points', 'island-not-closed', 'coincident-points-merged',
       'not-increasing', 'duplicate-label', 'inconsistent-line', 'no-data-rows', 'missing-curve',
     ];
     for (const code of codes) expect(docs, code).toContain(`| \`${code}\` |`);

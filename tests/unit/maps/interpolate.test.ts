@@ -112,6 +112,41 @@ describe('barycentric interpolation over a Delaunay triangulation', () => {
     );
   });
 
+  it('gives the same triangles and values, bit for bit, for any order of the same points', () => {
+    // A square grid: every cell's four corners lie on one circle, so it has two Delaunay
+    // triangulations per cell (a textbook degenerate case), and two points given twice with
+    // different values: a triangulation keeps one of each pair.
+    const xs: number[] = [];
+    const ys: number[] = [];
+    const values: number[] = [];
+    for (let i = 0; i < 6; i++) {
+      for (let j = 0; j < 6; j++) {
+        xs.push(0.05 + 0.04 * i);
+        ys.push(1.2 + 0.5 * j);
+        values.push(0.6 + 0.01 * ((i * 7 + j * 3) % 11)); // no plane: the diagonal chosen shows in the value
+      }
+    }
+    xs.push(0.13, 0.17);
+    ys.push(1.7, 2.2);
+    values.push(0.5, 0.9);
+    const probes: Array<[number, number]> = [];
+    for (let i = 0; i <= 40; i++) for (let j = 0; j <= 40; j++) probes.push([0.04 + (0.23 * i) / 40, 1.1 + (2.7 * j) / 40]);
+    const readAll = (order: number[]) => {
+      const surface = triangulate(order.map((k) => xs[k]), order.map((k) => ys[k]), [order.map((k) => values[k])]);
+      return probes.map(([x, y]) => surface.valueAt(x, y));
+    };
+    const indices = [...xs.keys()];
+    const want = readAll(indices);
+    fc.assert(
+      fc.property(fc.shuffledSubarray(indices, { minLength: indices.length, maxLength: indices.length }), (order) => {
+        const got = readAll(order);
+        const differs = probes.findIndex((_, k) => got[k] !== want[k]); // identical (===), not close
+        expect(differs === -1 ? null : `at ${probes[differs]}: ${want[differs]} became ${got[differs]}`).toBeNull();
+      }),
+      { numRuns: 200, seed: 5 },
+    );
+  });
+
   it('refuses points that are not finite numbers', () => {
     expect(() => triangulate([0, 1, Number.NaN], [0, 1, 2], [[1, 2, 3]])).toThrow(/point 2/);
     expect(() => triangulate([0, 1], [0, 1, 2], [[1, 2, 3]])).toThrow(/one value per point/);

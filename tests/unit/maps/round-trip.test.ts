@@ -78,7 +78,8 @@ describe('writing map files', () => {
     // The library lets a user rename a map; the name ends up in the file.
     const renamed = withMetadata(minimal, { name: '=HYPERLINK("http://example.invalid")', notes: 'line one\n@line two' });
     const text = writeMapFile(renamed);
-    expect(text).toContain(`# name: '=HYPERLINK("http://example.invalid")`);
+    // The quotes inside make the writer quote the whole line: it stays one spreadsheet cell.
+    expect(text).toContain(`"# name: '=HYPERLINK(""http://example.invalid"")"`);
     expect(text).toContain('# note: line one\n# note: @line two\n');
     const back = parseOk(text);
     expect(back.name).toBe(`'=HYPERLINK("http://example.invalid")`);

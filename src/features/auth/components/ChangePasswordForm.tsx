@@ -4,6 +4,8 @@ import { Alert } from '../../../components/Alert';
 import { Button } from '../../../components/Button';
 import { Form, FormActions } from '../../../components/Form';
 import { TextField } from '../../../components/TextField';
+import { useMe } from '../../../lib/session';
+import { PasswordField } from './PasswordField';
 import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
 import { useChangePassword } from '../api/change-password';
 
@@ -11,6 +13,7 @@ const FIELDS = ['currentPassword', 'newPassword', 'confirmPassword'] as const;
 
 export function ChangePasswordForm() {
   const change = useChangePassword();
+  const user = useMe().data?.user;
   const [errors, setErrors] = useState<FormErrors>(noFormErrors);
 
   function submit(form: HTMLFormElement) {
@@ -34,7 +37,7 @@ export function ChangePasswordForm() {
   return (
     <Form errors={errors} onSubmit={submit} aria-label="Change password">
       <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" error={errors.fields.currentPassword} required />
-      <TextField label="New password" name="newPassword" type="password" autoComplete="new-password" hint="At least 8 characters." error={errors.fields.newPassword} required />
+      <PasswordField label="New password" name="newPassword" error={errors.fields.newPassword} context={user ?? {}} required />
       <TextField label="Confirm password" name="confirmPassword" type="password" autoComplete="new-password" error={errors.fields.confirmPassword} required />
       {change.isSuccess && !change.isPending && (
         <Alert tone="success" title="Password changed">

@@ -5,6 +5,7 @@ import { Alert } from '../../../components/Alert';
 import { Button, ButtonLink } from '../../../components/Button';
 import { Form, FormActions } from '../../../components/Form';
 import { TextField } from '../../../components/TextField';
+import { PasswordField } from './PasswordField';
 import { isApiError } from '../../../lib/api-client';
 import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
 import { paths } from '../../../lib/paths';
@@ -52,15 +53,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
 
   return (
     <Form errors={errors} onSubmit={submit} aria-label="Password reset">
-      <TextField
-        label="New password"
-        name="password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 8 characters."
-        error={errors.fields.password}
-        required
-      />
+      <PasswordField label="New password" name="password" error={errors.fields.password} required />
       <TextField
         label="Confirm password"
         name="confirmPassword"

@@ -3,6 +3,7 @@ import { signUpSchema } from '../../../../shared/schemas/account';
 import { Button } from '../../../components/Button';
 import { Form, FormActions } from '../../../components/Form';
 import { TextField } from '../../../components/TextField';
+import { PasswordField } from './PasswordField';
 import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
 import { useSignUp } from '../api/sign-up';
 
@@ -24,15 +25,7 @@ export function SignUpForm({ defaultEmail = '' }: { defaultEmail?: string }) {
     <Form errors={errors} onSubmit={submit} aria-label="Create account">
       <TextField label="Your name" name="name" autoComplete="name" error={errors.fields.name} required />
       <TextField label="E-mail" name="email" type="email" autoComplete="email" defaultValue={defaultEmail} error={errors.fields.email} required />
-      <TextField
-        label="Password"
-        name="password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 8 characters. A long phrase is stronger than a short tangle."
-        error={errors.fields.password}
-        required
-      />
+      <PasswordField label="Password" name="password" error={errors.fields.password} required />
       <FormActions>
         <Button type="submit" variant="primary" pending={signUp.isPending}>
           Create account

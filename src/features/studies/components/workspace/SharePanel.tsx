@@ -28,6 +28,7 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
   const create = useCreateShareLink(teamId, studyId);
   const revoke = useRevokeShareLink(teamId, studyId);
   const [days, setDays] = useState('');
+  const [never, setNever] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [fresh, setFresh] = useState<string | null>(null);
   const [copied, setCopied] = useState(false);
@@ -35,9 +36,10 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
   async function make(event: React.FormEvent) {
     event.preventDefault();
     setError(null);
-    const input = days.trim() === '' ? {} : { expiresInDays: Number(days) };
+    // Empty days: the server's default of 30; "never" only when ticked.
+    const input = never ? { expiresInDays: null } : days.trim() === '' ? {} : { expiresInDays: Number(days) };
     const parsed = createShareLinkSchema.safeParse(input);
-    if (!parsed.success || (days.trim() !== '' && !/^\d+$/.test(days.trim()))) return setError('Days must be a whole number from 1 to 365, or empty for a link that does not expire.');
+    if (!parsed.success || (!never && days.trim() !== '' && !/^\d+$/.test(days.trim()))) return setError('Days must be a whole number from 1 to 365 (empty means 30), or tick "Never expires".');
     try {
       const link = await create.mutateAsync(parsed.data);
       setFresh(link.url ?? null);
@@ -55,8 +57,12 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
           <label htmlFor={daysId} className="block text-sm font-semibold text-ink">
             Expires after (days)
           </label>
-          <input id={daysId} inputMode="numeric" value={days} onChange={(e) => setDays(e.target.value)} placeholder="never" className={`${inputClass} w-32`} />
+          <input id={daysId} inputMode="numeric" value={days} onChange={(e) => setDays(e.target.value)} placeholder="30" disabled={never} className={`${inputClass} w-32`} />
         </div>
+        <label className="flex items-center gap-2 pb-2 text-sm">
+          <input type="checkbox" checked={never} onChange={(e) => setNever(e.target.checked)} />
+          Never expires
+        </label>
         <Button type="submit" variant="primary" pending={create.isPending}>
           Make a share link
         </Button>
@@ -100,6 +106,7 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
                   {link.createdBy ? ` by ${link.createdBy}` : ''}
                   <span className="block text-ink-soft">
                     {link.revokedAt ? `Revoked ${formatDateTime(link.revokedAt)}` : link.expiresAt ? `Expires ${formatDateTime(link.expiresAt)}` : 'Does not expire'}
+                    {!link.revokedAt && (link.kept ? ' · an owner keeps it if its maker leaves the team' : ' · stops if its maker leaves the team')}
                   </span>
                 </span>
                 {state.label === 'active' && (

@@ -1,0 +1,1 @@
+ALTER TABLE "study_revisions" ADD COLUMN "author_name" text;
