@@ -13,6 +13,7 @@ import { rpmCurvesFigure, CURVE_VIEWS } from '../../../src/components/study/rpm-
 import type { ChosenLine } from '../../../src/features/compare/components/CombinationMark';
 import { rankByVerdict } from '../../../src/features/compare/components/CompareView';
 import { DifferencesTable } from '../../../src/features/compare/components/DifferencesTable';
+import { firstPointOfInterest } from '../../../src/features/report/components/ReadOnlyStudyView';
 import { demoDocument, demoMaps } from './demo-study';
 
 afterEach(cleanup);
@@ -81,6 +82,11 @@ describe('the verdict of each plan', () => {
     expect(buttons.map((b) => b.textContent)).toEqual(s44.reasons.map(reasonText));
     fireEvent.click(buttons[buttons.length - 1]);
     expect(onSelect).toHaveBeenLastCalledWith(reasonPoint(lines, 0, s44.reasons[s44.reasons.length - 1]));
+  });
+
+  it('opens the shared view on the point the first plan that does not fit names first', () => {
+    expect(verdicts[0].status).toBe('does-not-fit'); // S44, the engine run above
+    expect(firstPointOfInterest(lines)).toEqual(reasonPoint(lines, 0, verdicts[0].reasons[0]));
   });
 
   it('on paper gives the first reason alone, no buttons, and counts the rest', () => {

@@ -4,7 +4,7 @@ import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { planColour } from '../../../components/plots/style';
 import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
-import { PlanVerdicts } from '../../../components/study/PlanVerdicts';
+import { PlanVerdicts, reasonPoint, verdictsOfLines } from '../../../components/study/PlanVerdicts';
 import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
 import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
 import { ResultsTable } from '../../../components/study/ResultsTable';
@@ -15,8 +15,17 @@ import type { UnitSystem } from '../../../lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { ExhaustNotes } from './ExhaustNotes';
 
-/** The point first shown in the Working: where the most severe finding is, else the first point. */
+/**
+ * The point first shown in the Working: where the first plan that does not fit (else the first
+ * with warnings) meets its first reason, as the verdicts above say; else where the most severe
+ * finding is; else the first point.
+ */
 export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | null {
+  const verdicts = verdictsOfLines(lines);
+  const judged = verdicts.find((v) => v.status === 'does-not-fit') ?? verdicts.find((v) => v.status === 'fits-with-warnings');
+  const reason = judged?.reasons[0];
+  const named = judged && reason ? reasonPoint(lines, judged.planIndex, reason) : null;
+  if (named) return named;
   const [worst] = groupFindings(lines).filter((g) => g.severity !== 'info');
   if (worst) return { lineKey: worst.line.key, rpm: Math.min(...worst.rpms) };
   const line = lines.find((l) => l.line.points.some((p) => p.solved));
