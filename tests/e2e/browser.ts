@@ -89,8 +89,8 @@ export function builtinMap(id: string): SpoolbookMap {
 
 /**
  * A browser for one describe block: launched before its tests and closed after them with every
- * context it opened. `demoPage` gives a fresh context signed in as the demo owner, in SI units,
- * with the demo team's id.
+ * context it opened. `newPage` gives a page in a fresh context, signed out; `demoPage` one signed
+ * in as the demo owner, in SI units, with the demo team's id.
  */
 export function suiteBrowser(timeout: number) {
   let browser: Browser | null = null;
@@ -103,13 +103,18 @@ export function suiteBrowser(timeout: number) {
     await browser?.close();
     await closeTestDatabase();
   });
+  async function newPage(viewport: { width: number; height: number }): Promise<{ page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport });
+    contexts.push(context);
+    const page = await context.newPage();
+    page.setDefaultTimeout(timeout);
+    return { page, errors: watchForPageErrors(page) };
+  }
   return {
+    /** A page in a fresh context, signed out. */
+    newPage,
     async demoPage(viewport: { width: number; height: number }): Promise<{ page: Page; errors: string[]; teamId: string }> {
-      const context = await browser!.newContext({ viewport });
-      contexts.push(context);
-      const page = await context.newPage();
-      page.setDefaultTimeout(timeout);
-      const errors = watchForPageErrors(page);
+      const { page, errors } = await newPage(viewport);
       await signIn(page);
       const base = baseUrl();
       const si = await page.request.patch(`${base}/api/auth/me`, { data: { unitSystem: 'si' }, headers: { Origin: base } });

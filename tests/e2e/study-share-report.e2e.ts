@@ -1,15 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, statSync } from 'node:fs';
 import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { CompressorMap } from '../../shared/maps/types';
 import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
 import { planVerdicts, VERDICT_RANK } from '../../shared/matching/verdict';
 import { compareLines } from '../../shared/study/compare';
 import { runStudyDocument } from '../../shared/study/run';
 import { DEFAULT_LESSON, runLesson } from '../../src/features/learn/lesson';
-import { baseUrl, builtinMap, closeTestDatabase, DEMO_USER, launchBrowser, screenshot, shownNumber, signIn, watchForPageErrors } from './browser';
+import { baseUrl, builtinMap, DEMO_USER, screenshot, shownNumber, signIn, suiteBrowser } from './browser';
 
 // Side by side, the printable report, a share link opened signed out (and revoked), and the Learn
 // page, in the production build. The test makes its own study from the demo through the API.
@@ -34,25 +33,8 @@ function origin() {
 }
 
 describe('Side by side, report, share link and Learn in the browser', () => {
-  let browser: Browser;
-  const contexts: BrowserContext[] = [];
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    for (const c of contexts) await c.close();
-    await browser?.close();
-    await closeTestDatabase();
-  });
-
-  async function newPage(): Promise<{ page: Page; errors: string[] }> {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    contexts.push(context);
-    const page = await context.newPage();
-    page.setDefaultTimeout(PLOT_TIMEOUT);
-    return { page, errors: watchForPageErrors(page) };
-  }
+  const suite = suiteBrowser(PLOT_TIMEOUT);
+  const newPage = () => suite.newPage({ width: 1280, height: 900 });
 
   it('compares two combinations, prints the report, shares it signed out and revokes the link', async () => {
     const base = baseUrl();
