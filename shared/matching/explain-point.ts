@@ -19,6 +19,7 @@ import {
   STANDARD_GRAVITY,
 } from '../physics';
 import { exhaustSteps, heldBoostStep } from './exhaust-working';
+import { missingMarginWords } from './margin-words';
 import { MAP_REGION_WORDS } from './reach';
 import { lookupByRpm } from './rpm-table';
 import type { LineContext, OperatingPoint, PointValues, RpmTable } from './types';
@@ -175,28 +176,15 @@ const SPEED_BASIS_WORDS: Partial<Record<string, string>> = {
     'The point is left of the surge line: N_c is the speed along the surge line at this pressure ratio, between the speed lines\' first points (the isentropic head taken to rise with the square of the tip speed). An estimate, not a map reading.',
 };
 
-/** Why a margin is missing, in words. */
-const MISSING_MARGIN_WORDS: Record<string, string> = {
-  'above-surge-line': 'the point is above the surge line\'s top, where the map does not say where surge lies',
-  'below-surge-line': 'the point is below the surge line\'s lowest pressure ratio, where the map draws no surge line',
-  'below-choke-line': 'the point is below the choke line\'s lowest pressure ratio, where the map draws no choke line',
-  'above-map': 'the point is above the whole map, where it has no edge at this pressure ratio',
-  'no-map': 'there is no map',
-  'past-choke': 'the map gives no speed past its choke line',
-  'below-map': 'the wheel turns slower than the lowest speed line, which the map does not draw',
-  'outside-speed-lines': 'the map gives no speed outside its speed lines',
-  'no-limit': 'neither the map nor the Plan gives a speed limit',
-};
-
 /** Where the point sits on the map, what that means for its results, and why any margin is missing. */
 function regionStep(v: PointValues): WorkingStep | null {
   const region = v.mapRegion;
   if (!region) return null;
   const missing: string[] = [];
-  const basis = v.marginBasis;
-  if (v.surgeMargin === null && basis) missing.push(`no surge margin: ${MISSING_MARGIN_WORDS[basis.surge] ?? 'the map cannot say'}`);
-  if (v.chokeMargin === null && basis) missing.push(`no choke margin: ${MISSING_MARGIN_WORDS[basis.choke] ?? 'the map cannot say'}`);
-  if (v.speedMargin === null && basis) missing.push(`no speed margin: ${MISSING_MARGIN_WORDS[basis.speed] ?? 'the map cannot say'}`);
+  for (const margin of ['surge', 'choke', 'speed'] as const) {
+    const why = missingMarginWords(v, margin);
+    if (why) missing.push(`no ${margin} margin: ${why}`);
+  }
   const meaning =
     v.reachable === false
       ? 'The compressor cannot deliver this point: it is not reachable with this compressor, so its efficiency, outlet temperature, power, torque, fuel and exhaust side are not given.'

@@ -47,8 +47,8 @@ export const MAP_REGION_WORDS: Record<MapRegion, string> = {
   'outside-speed-lines': 'outside the speed lines',
 };
 
-/** Every value that follows from running at a point, rather than from where it lies. */
-const RESULT_KEYS = [
+/** Every value that follows from running at a point, rather than from where it lies (screens say "not reachable" in their place). */
+export const RESULT_KEYS = [
   'compressorEfficiency',
   'compressorOutletTemperature',
   'compressorPower',

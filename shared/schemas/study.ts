@@ -34,10 +34,21 @@ const documentShape = z.strictObject({
   intercooler: z.unknown(),
   scenarios: z.unknown(),
   plans: z.array(studyPlanSchema.passthrough()).min(1, 'a study needs at least one plan').max(10, 'at most 10 plans'),
+  /** The study's required margins and limits (checked by the engine's own schema); absent takes the defaults. */
+  requirements: z.unknown().optional(),
 });
 
 /** The engine's view of a document: plans without their ids and map references. */
-export function studyInputOf(doc: { engine: unknown; fuelSystem: unknown; power: unknown; losses: unknown; intercooler: unknown; scenarios: unknown; plans: unknown[] }): unknown {
+export function studyInputOf(doc: {
+  engine: unknown;
+  fuelSystem: unknown;
+  power: unknown;
+  losses: unknown;
+  intercooler: unknown;
+  scenarios: unknown;
+  plans: unknown[];
+  requirements?: unknown;
+}): unknown {
   return {
     engine: doc.engine,
     fuelSystem: doc.fuelSystem,
@@ -50,6 +61,8 @@ export function studyInputOf(doc: { engine: unknown; fuelSystem: unknown; power:
       const { id: _id, compressorMapId: _map, turbineMapId: _turbine, ...plan } = p as Record<string, unknown>;
       return plan;
     }),
+    // Only when given: a document without required margins stays exactly as it was.
+    ...(doc.requirements !== undefined ? { requirements: doc.requirements } : {}),
   };
 }
 

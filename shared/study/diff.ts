@@ -126,6 +126,14 @@ export const FIELD_WORDS: Record<string, string> = {
   pulseFactor: 'pulse-energy factor',
   turbineEfficiency: 'default turbine efficiency',
   mapReference: 'map reference',
+  offMapEfficiency: 'off-map efficiency (assumption)',
+  requirements: 'Required margins',
+  minSurgeMargin: 'smallest surge margin',
+  minChokeMargin: 'smallest choke margin',
+  minSpeedMargin: 'smallest speed margin',
+  lambdaWarningUnderBoost: 'lambda warning under boost',
+  lambdaLimitUnderBoost: 'lambda limit under boost',
+  underBoostFrom: 'under boost from',
   kind: 'kind',
   id: 'id',
 };
@@ -187,6 +195,7 @@ export function kindOfPath(keys: Key[]): DiffValueKind | null {
     case 'pressure':
       return 'pressure';
     case 'fuelPressure':
+    case 'underBoostFrom':
       return 'pressureGauge';
     case 'maxCompressorOutletTemperature':
     case 'manifoldTemperature':
@@ -208,8 +217,14 @@ export function kindOfPath(keys: Key[]): DiffValueKind | null {
     case 'dischargeCoefficient':
     case 'mechanicalEfficiency':
     case 'turbineEfficiency':
+    case 'offMapEfficiency':
+    case 'minSurgeMargin':
+    case 'minChokeMargin':
+    case 'minSpeedMargin':
       return 'fraction';
     case 'pulseFactor':
+    case 'lambdaWarningUnderBoost':
+    case 'lambdaLimitUnderBoost':
       return 'ratio';
     case 'valveDiameter':
       return 'diameter';

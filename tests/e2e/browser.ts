@@ -1,8 +1,8 @@
 import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { desc, eq } from 'drizzle-orm';
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { inject } from 'vitest';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll, inject } from 'vitest';
 import { connectDatabase, type Database } from '../../server/db/client';
 import { outbox } from '../../server/db/schema';
 import { parseMapFile } from '../../shared/maps';
@@ -85,4 +85,44 @@ export function builtinMap(id: string): SpoolbookMap {
   const parsed = parseMapFile(readFileSync(path.join(import.meta.dirname, '..', '..', 'data', 'maps', `${id.replace(/^builtin-/, '')}.csv`), 'utf8'));
   if (!parsed.ok) throw new Error(`demo map ${id} does not parse`);
   return parsed.map;
+}
+
+/**
+ * A browser for one describe block: launched before its tests and closed after them with every
+ * context it opened. `newPage` gives a page in a fresh context, signed out; `demoPage` one signed
+ * in as the demo owner, in SI units, with the demo team's id.
+ */
+export function suiteBrowser(timeout: number) {
+  let browser: Browser | null = null;
+  const contexts: BrowserContext[] = [];
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    for (const c of contexts) await c.close();
+    await browser?.close();
+    await closeTestDatabase();
+  });
+  async function newPage(viewport: { width: number; height: number }): Promise<{ page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport });
+    contexts.push(context);
+    const page = await context.newPage();
+    page.setDefaultTimeout(timeout);
+    return { page, errors: watchForPageErrors(page) };
+  }
+  return {
+    /** A page in a fresh context, signed out. */
+    newPage,
+    async demoPage(viewport: { width: number; height: number }): Promise<{ page: Page; errors: string[]; teamId: string }> {
+      const { page, errors } = await newPage(viewport);
+      await signIn(page);
+      const base = baseUrl();
+      const si = await page.request.patch(`${base}/api/auth/me`, { data: { unitSystem: 'si' }, headers: { Origin: base } });
+      if (si.status() !== 200) throw new Error(`setting SI units answered ${si.status()}`);
+      const me = (await (await page.request.get(`${base}/api/auth/me`)).json()) as { teams: { id: string; name: string }[] };
+      const team = me.teams.find((t) => t.name === DEMO_USER.team);
+      if (!team) throw new Error(`the demo user is not in "${DEMO_USER.team}"`);
+      return { page, errors, teamId: team.id };
+    },
+  };
 }

@@ -1,12 +1,12 @@
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
 import { compareLines } from '../../shared/study/compare';
 import { runStudyDocument } from '../../shared/study/run';
-import { baseUrl, builtinMap, closeTestDatabase, DEMO_USER, launchBrowser, screenshot, shownNumber, signIn, watchForPageErrors } from './browser';
+import { baseUrl, builtinMap, screenshot, shownNumber, suiteBrowser } from './browser';
 
 // The exhaust side in the production build: a study with a single-scroll plan (one gate) and a
 // divided-housing plan (two gates) shows both predicted boost curves beside their targets, the
@@ -14,7 +14,6 @@ import { baseUrl, builtinMap, closeTestDatabase, DEMO_USER, launchBrowser, scree
 // exhaust rows of Side by side. The study is the seeded turbine-housing demo, made through the API.
 
 const root = path.resolve(import.meta.dirname, '..', '..');
-const DEMO = DEMO_USER;
 const PLOT_TIMEOUT = 180_000;
 /** Polls wait as long as a plot may take on a busy machine. */
 const POLL = { timeout: 60_000 };
@@ -35,30 +34,12 @@ async function traces(page: Page, selector: string): Promise<{ name: string; x: 
 }
 
 describe('the exhaust side in the browser', () => {
-  let browser: Browser;
-  const contexts: BrowserContext[] = [];
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    for (const c of contexts) await c.close();
-    await browser?.close();
-    await closeTestDatabase();
-  });
+  const suite = suiteBrowser(PLOT_TIMEOUT);
 
   it('shows both predicted boost curves, the turbine map, a too-small gate, and the exhaust rows side by side', async () => {
     const base = baseUrl();
-    const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
-    contexts.push(context);
-    const page = await context.newPage();
-    page.setDefaultTimeout(PLOT_TIMEOUT);
-    const errors = watchForPageErrors(page);
-    await signIn(page);
+    const { page, errors, teamId } = await suite.demoPage({ width: 1440, height: 1000 });
     const origin = { Origin: base };
-    expect((await page.request.patch(`${base}/api/auth/me`, { data: { unitSystem: 'si' }, headers: origin })).status()).toBe(200);
-    const me = (await (await page.request.get(`${base}/api/auth/me`)).json()) as { teams: { id: string; name: string }[] };
-    const teamId = me.teams.find((t) => t.name === DEMO.team)!.id;
 
     // A study of our own from the turbine-housing demo document (data/demo/turbine-housing-study.json).
     const document = JSON.parse(readFileSync(path.join(root, 'data', 'demo', 'turbine-housing-study.json'), 'utf8')) as unknown;

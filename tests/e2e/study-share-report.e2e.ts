@@ -1,14 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, statSync } from 'node:fs';
 import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { CompressorMap } from '../../shared/maps/types';
 import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
+import { planVerdicts, VERDICT_RANK } from '../../shared/matching/verdict';
 import { compareLines } from '../../shared/study/compare';
 import { runStudyDocument } from '../../shared/study/run';
 import { DEFAULT_LESSON, runLesson } from '../../src/features/learn/lesson';
-import { baseUrl, builtinMap, closeTestDatabase, DEMO_USER, launchBrowser, screenshot, shownNumber, signIn, watchForPageErrors } from './browser';
+import { baseUrl, builtinMap, DEMO_USER, screenshot, shownNumber, signIn, suiteBrowser } from './browser';
 
 // Side by side, the printable report, a share link opened signed out (and revoked), and the Learn
 // page, in the production build. The test makes its own study from the demo through the API.
@@ -33,25 +33,8 @@ function origin() {
 }
 
 describe('Side by side, report, share link and Learn in the browser', () => {
-  let browser: Browser;
-  const contexts: BrowserContext[] = [];
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    for (const c of contexts) await c.close();
-    await browser?.close();
-    await closeTestDatabase();
-  });
-
-  async function newPage(): Promise<{ page: Page; errors: string[] }> {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    contexts.push(context);
-    const page = await context.newPage();
-    page.setDefaultTimeout(PLOT_TIMEOUT);
-    return { page, errors: watchForPageErrors(page) };
-  }
+  const suite = suiteBrowser(PLOT_TIMEOUT);
+  const newPage = () => suite.newPage({ width: 1280, height: 900 });
 
   it('compares two combinations, prints the report, shares it signed out and revokes the link', async () => {
     const base = baseUrl();
@@ -91,13 +74,16 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     const table = page.getByTestId('differences-table');
     // Figure, unit and "best is", then one column per chosen combination.
     await expect.poll(() => table.locator('thead th').count()).toBe(3 + 2);
-    expect(await table.locator('[data-best]').count()).toBeGreaterThan(0);
 
-    // The table shows what compareLines gives for the same document and maps (the shared engine, run here in node).
+    // The table shows what compareLines gives for the same document and maps (the shared engine, run here in node):
+    // each line with its plan's verdict, the columns ranked what fits first (stable).
     const maps = Object.fromEntries(doc.plans.flatMap((p) => (p.compressorMapId ? [[p.compressorMapId, builtinMap(p.compressorMapId)]] : [])));
     const result = runStudyDocument(doc, maps);
-    const pick = (planIndex: number) => result.lines.find((l) => l.planIndex === planIndex && l.scenarioIndex === 0 && l.rowIndex === 0)!;
-    const rows = compareLines([pick(0), pick(1)]);
+    const statusOf = new Map(planVerdicts(result).map((v) => [v.planIndex, v.status]));
+    const pick = (planIndex: number) => ({ ...result.lines.find((l) => l.planIndex === planIndex && l.scenarioIndex === 0 && l.rowIndex === 0)!, planVerdict: statusOf.get(planIndex) });
+    const rows = compareLines([pick(0), pick(1)].sort((a, b) => VERDICT_RANK[a.planVerdict!] - VERDICT_RANK[b.planVerdict!]));
+    // Best only where the shared rows give it (none at all when neither plan fits).
+    expect(await table.locator('[data-best]').count()).toBe(rows.reduce((n, r) => n + r.bestIndices.length, 0));
     const power = rows.find((r) => r.key === 'peakBrakePower')!;
     const powerRow = table.locator('tr[data-row="peakBrakePower"]');
     expect(await powerRow.locator('th').innerText()).toContain('Peak crank power');
@@ -114,6 +100,7 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     // ——— The printable report: every section, the caution, then a PDF.
     await page.goto(`${base}/teams/${teamId}/studies/${studyId}/report`);
     await page.getByRole('heading', { name: title, level: 1 }).waitFor();
+    await page.getByTestId('plan-verdicts').waitFor(); // the verdicts on the first page, before the inputs
     for (const heading of ['1. Inputs', '2. Assumptions', '3. Compressor maps with every operating line', '4. Curves against engine speed', '5. Findings', '6. Results by operating point']) {
       await page.getByRole('heading', { name: heading, level: 2 }).waitFor();
     }

@@ -5,8 +5,8 @@ import { fromSI } from '../../../shared/units';
 import { displayUnitOf, type UnitSystem } from '../../lib/units';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
 import { builtForMap } from './map-cache';
-import { legendUnderMap, lineEndLabel, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
-import type { CompressorMapPlotProps, OperatingLineView, OperatingPointView } from './types';
+import { legendUnderMap, lineEndLabel, mapPlotPaper, notReachableMarker, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
+import type { CompressorMapPlotProps, HoverItem, OperatingLineView, OperatingPointView } from './types';
 
 /** What plotly draws: traces and layout. Built by a pure function so it can be checked without a browser. */
 export interface PlotFigure {
@@ -273,25 +273,85 @@ export function operatingPointHover(line: OperatingLineView, point: OperatingPoi
     rows.push(`Flow ${formatNumber(operatingX(point, scale))} ${unitLabel(scale.unit)}`);
     rows.push(`Pressure ratio ${formatNumber(point.pressureRatio)}`);
   }
-  for (const item of point.hover) rows.push(`${plotText(item.label)}: ${formatQuantity(item.value, item.kind, system)}`);
+  for (const item of point.hover) rows.push(`${plotText(item.label)}: ${hoverValue(item, system)}`);
   return rows.join('<br>');
 }
 
+/** One hover value: its words, the value in the user's units, or what stands in for a missing one. */
+function hoverValue(item: HoverItem, system: UnitSystem): string {
+  if (item.text !== undefined) return plotText(item.text);
+  if (item.value === null && item.missing) return plotText(item.missing);
+  return formatQuantity(item.value, item.kind, system);
+}
+
 function lineTraces(lines: readonly OperatingLineView[], scale: FlowScale, system: UnitSystem): Data[] {
-  return lines.map((line) => {
-    return {
+  return lines.flatMap((line) => {
+    const style = operatingLineStyle(
+      line.planIndex,
+      line.scenarioIndex,
+      line.points.map((p) => p.severity),
+      line.points.map((p) => p.reachable),
+    );
+    const hollow = line.points.some((p) => p.reachable === false);
+    const trace = {
       type: 'scatter',
       mode: 'lines+markers',
       name: line.label,
       legendgroup: `line:${line.key}`,
+      // plotly draws a line's key with its first marker; a hollow one would mark the whole line as not reachable.
+      showlegend: !hollow,
       x: line.points.map((p) => operatingX(p, scale)),
       y: line.points.map((p) => p.pressureRatio),
-      ...operatingLineStyle(line.planIndex, line.scenarioIndex, line.points.map((p) => p.severity)),
+      ...style,
       customdata: line.points.map((p) => [line.key, p.rpm]),
       text: line.points.map((p) => operatingPointHover(line, p, scale, system)),
       hovertemplate: '%{text}<extra></extra>',
     } satisfies Data;
+    if (!hollow) return [trace];
+    // The key alone, with the plan's filled marker: no points of its own.
+    const key = { ...operatingLineStyle(line.planIndex, line.scenarioIndex, []) };
+    return [
+      trace,
+      {
+        type: 'scatter',
+        mode: 'lines+markers',
+        name: line.label,
+        legendgroup: `line:${line.key}`,
+        x: [null],
+        y: [null],
+        line: key.line,
+        marker: { symbol: key.marker.symbol, size: key.marker.size, color: key.marker.color },
+        hoverinfo: 'skip',
+      } satisfies Data,
+    ];
   });
+}
+
+/**
+ * A cross over every point the compressor cannot deliver, one trace for all lines with one legend
+ * entry; it takes no hover or click, which stay with the point under it. Null when every point is reachable.
+ */
+export function notReachableTrace(lines: readonly OperatingLineView[], scale: FlowScale): Data | null {
+  const x: number[] = [];
+  const y: number[] = [];
+  for (const line of lines) {
+    for (const p of line.points) {
+      if (p.reachable !== false) continue;
+      x.push(operatingX(p, scale));
+      y.push(p.pressureRatio);
+    }
+  }
+  if (x.length === 0) return null;
+  return {
+    type: 'scatter',
+    mode: 'markers',
+    name: 'Not reachable (hollow, crossed)',
+    legendgroup: 'not-reachable',
+    x,
+    y,
+    marker: notReachableMarker,
+    hoverinfo: 'skip',
+  };
 }
 
 function highlightTrace(lines: readonly OperatingLineView[], highlight: CompressorMapPlotProps['highlight'], scale: FlowScale): Data | null {
@@ -322,6 +382,8 @@ export function compressorMapFigure({ map, lines = [], flowAxis = 'corrected', u
   const scale = flowScale(map, flowAxis, unitSystem);
   const drawn = map ? builtForMap(map, `${flowAxis}|${unitSystem}`, () => mapTraces(map, scale)) : { data: [], annotations: [] };
   const data: Data[] = [...drawn.data, ...lineTraces(lines, scale, unitSystem)];
+  const crosses = notReachableTrace(lines, scale);
+  if (crosses) data.push(crosses);
   const ring = highlightTrace(lines, highlight, scale);
   if (ring) data.push(ring);
 

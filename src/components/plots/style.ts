@@ -90,14 +90,22 @@ const SEVERITY_OUTLINE = { limit: plotColours.limit, warning: plotColours.copper
 
 /**
  * How an operating line is drawn on a map: its plan's colour and marker, its scenario's dash, and
- * an outline on each point by its worst finding (red at a limit, copper for a warning).
+ * an outline on each point by its worst finding (red at a limit, copper for a warning). A point the
+ * compressor cannot deliver is drawn hollow (`reachable` false); notReachableTrace adds its cross.
  */
-export function operatingLineStyle(planIndex: number, scenarioIndex: number, severities: readonly ('info' | 'warning' | 'limit' | null | undefined)[]) {
+export function operatingLineStyle(
+  planIndex: number,
+  scenarioIndex: number,
+  severities: readonly ('info' | 'warning' | 'limit' | null | undefined)[],
+  reachable: readonly (boolean | undefined)[] = [],
+) {
   const colour = planColour(planIndex);
+  const symbol = planMarker(planIndex);
+  const hollow = `${symbol}-open` as const;
   return {
     line: { color: colour, width: 2, dash: scenarioDash(scenarioIndex) },
     marker: {
-      symbol: planMarker(planIndex),
+      symbol: reachable.some((r) => r === false) ? severities.map((_s, i) => (reachable[i] === false ? hollow : symbol)) : symbol,
       size: 9,
       color: colour,
       line: {
@@ -107,6 +115,9 @@ export function operatingLineStyle(planIndex: number, scenarioIndex: number, sev
     },
   };
 }
+
+/** The cross laid over each point the compressor cannot deliver, so it reads apart from the points it can. */
+export const notReachableMarker = { symbol: 'x-thin-open' as const, size: 9, color: plotColours.limit, line: { width: 2, color: plotColours.limit } };
 
 /** The ring around the selected point on a map. */
 export const selectedPointMarker = { symbol: 'circle-open' as const, size: 24, color: plotColours.ink, line: { width: 2.5, color: plotColours.ink } };

@@ -14,9 +14,22 @@ export interface OperatingPointView {
   volumeFlow: number;
   pressureRatio: number;
   /** Every value of the point to show on hover: label → SI value and its quantity kind. */
-  hover: { label: string; value: number | null; kind: string }[];
+  hover: HoverItem[];
   /** The point raised a finding of this severity, if any. */
   severity?: 'info' | 'warning' | 'limit' | null;
+  /** False where the compressor cannot deliver the point: drawn hollow with a cross (absent: reachable). */
+  reachable?: boolean;
+}
+
+/** One row of a point's hover box: an SI value and its quantity kind, or words in its place. */
+export interface HoverItem {
+  label: string;
+  value: number | null;
+  kind: string;
+  /** Shown instead of the value (a region, "yes"/"no"). */
+  text?: string;
+  /** Shown when the value is null: "not reachable", or why the map gives no value. */
+  missing?: string;
 }
 
 export interface OperatingLineView {
@@ -57,7 +70,7 @@ export interface TurbineOperatingPointView {
   expansionRatio: number;
   /** Flow parameter as the map draws it (per scroll on a per-scroll map), kg·K^0.5/(s·Pa). */
   flowParameter: number;
-  hover: { label: string; value: number | null; kind: string }[];
+  hover: HoverItem[];
   severity?: 'info' | 'warning' | 'limit' | null;
 }
 

@@ -20,8 +20,8 @@ export interface FindingGroup {
 const ORDER: Severity[] = ['limit', 'warning', 'info'];
 
 const SEVERITY_TEXT: Record<Severity, { title: string; hint: string }> = {
-  limit: { title: 'Limits crossed', hint: 'Hard limits: surge, overspeed, saturated injectors, stated limits.' },
-  warning: { title: 'Warnings', hint: 'Close to a limit, or outside what the map or common practice covers.' },
+  limit: { title: 'Limits crossed', hint: 'Hard limits: points the compressor cannot deliver (surge, choke, overspeed, off the map), saturated injectors, lean under boost, stated limits.' },
+  warning: { title: 'Warnings', hint: 'Margins thinner than the study requires, close to a limit, or outside what the map or common practice covers.' },
   info: { title: 'Notes', hint: 'Worth knowing; usually expected (part throttle, light load).' },
 };
 
@@ -80,11 +80,11 @@ export const FINDING_TITLES: Partial<Record<string, string>> = {
   'compressor-outlet-temperature-high': 'Compressor outlet temperature high',
   'compressor-outlet-temperature-limit': 'Compressor outlet temperature over the stated limit',
   'efficiency-off-map': 'No efficiency from the map (the plan’s default is used)',
-  'map-left-of-surge': 'Left of the surge line',
-  'map-beyond-choke': 'Beyond the choke limit',
-  'map-above-top-speed': 'Above the top speed line',
+  'map-left-of-surge': 'Left of the surge line: not reachable',
+  'map-beyond-choke': 'Past choke: not reachable',
+  'map-above-top-speed': 'Above the top speed line: not reachable',
   'map-below-map': 'Below the map',
-  'map-off-map': 'Off the map',
+  'map-off-map': 'Outside the map’s speed lines: not reachable',
   overspeed: 'Shaft speed over the limit',
   throttled: 'Throttled: manifold below compressor inlet pressure',
   'not-converged': 'Manifold temperature did not settle',
@@ -99,6 +99,12 @@ export const FINDING_TITLES: Partial<Record<string, string>> = {
   'turbine-housing-mismatch': 'Turbine housing does not match its map',
   'exhaust-not-converged': 'Exhaust side did not settle',
   'throttle-sets-boost': 'The throttle sets the boost',
+  'surge-margin-thin': 'Surge margin thinner than required',
+  'choke-margin-thin': 'Choke margin thinner than required',
+  'speed-margin-thin': 'Speed margin thinner than required',
+  'lean-under-boost': 'Leaner under boost than the study accepts',
+  'lean-under-boost-limit': 'Lean under boost: past the limit',
+  'off-map-assumption': 'Computed on the off-map efficiency assumption',
 };
 
 export function findingTitle(code: FindingCode): string {

@@ -17,7 +17,7 @@ import { Button } from '../Button';
 import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
-import { cellValue, columnUnit, resultTableRows, resultsTsv, type ResultTableRow } from './result-rows';
+import { cellValue, columnUnit, emptyCellNote, resultTableRows, resultsTsv, type ResultTableRow } from './result-rows';
 
 const features = tableFeatures({
   rowSortingFeature,
@@ -37,6 +37,27 @@ function cellText(row: ResultTableRow, column: ResultColumn, system: UnitSystem)
   return column.kind === 'speed' ? formatNumber(Math.round(v), 21) : formatNumber(v, 4);
 }
 
+/** A value cell: the number, or in its place "not reachable" or a dash that says why the map gives none. */
+function ValueCell({ row, column, system }: { row: ResultTableRow; column: ResultColumn; system: UnitSystem }) {
+  const note = emptyCellNote(row, column);
+  if (!note) return <>{cellText(row, column, system)}</>;
+  if (note.text === '—') {
+    return (
+      // relative: the hidden words stay inside the scrolling table, not off the side of the page.
+      <span title={note.why} className="relative cursor-help border-b border-dotted border-ink-faint text-ink-faint">
+        —<span className="sr-only"> ({note.why})</span>
+      </span>
+    );
+  }
+  return (
+    <span title={note.why} className="whitespace-nowrap text-xs italic text-ink-soft">
+      {note.text}
+    </span>
+  );
+}
+
+const RPM_COLUMN = RESULT_COLUMNS[0];
+
 function buildColumns(system: UnitSystem) {
   return helper.columns([
     helper.accessor('plan', {
@@ -52,14 +73,16 @@ function buildColumns(system: UnitSystem) {
     }),
     helper.accessor('scenario', { id: 'scenario', header: () => <HeaderText label="Scenario" />, sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
     helper.accessor('row', { id: 'row', header: () => <HeaderText label="Boost row" />, sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
-    ...RESULT_COLUMNS.map((column) =>
-      helper.accessor((row) => cellValue(row, column, system) ?? undefined, {
+    ...RESULT_COLUMNS.flatMap((column) => {
+      const value = helper.accessor((row) => cellValue(row, column, system) ?? undefined, {
         id: column.key,
         header: () => <HeaderText label={column.label} unit={columnUnit(column, system)} />,
         sortUndefined: 'last',
-        cell: (info) => cellText(info.row.original, column, system),
-      }),
-    ),
+        cell: (info) => <ValueCell row={info.row.original} column={column} system={system} />,
+      });
+      // Where the point sits and whether it can be reached, right after its engine speed: the rest of the row depends on it.
+      return column === RPM_COLUMN ? [value, regionColumn, reachableColumn] : [value];
+    }),
     helper.accessor('findingCount', {
       id: 'findings',
       header: () => <HeaderText label="Findings" />,
@@ -76,6 +99,27 @@ function buildColumns(system: UnitSystem) {
     }),
   ]);
 }
+
+const regionColumn = helper.accessor('region', {
+  id: 'mapRegion',
+  header: () => <HeaderText label="Map region" />,
+  sortFn: 'alphanumeric',
+  cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+});
+
+const reachableColumn = helper.accessor('reachable', {
+  id: 'reachable',
+  header: () => <HeaderText label="Reachable" />,
+  sortFn: 'alphanumeric',
+  cell: (info) =>
+    info.getValue() === 'no' ? (
+      <span className="font-semibold text-limit" title="The compressor cannot deliver this point: its results are not given.">
+        no
+      </span>
+    ) : (
+      'yes'
+    ),
+});
 
 function HeaderText({ label, unit }: { label: string; unit?: string }) {
   return (
@@ -273,7 +317,7 @@ export function ResultsTable({
                       key={cell.id}
                       data-column={cell.column.id}
                       className={`numeric px-2.5 py-1.5 ${cell.column.id === 'plan' ? `sticky left-0 ${isSelected ? 'bg-teal-light' : 'bg-white'}` : ''} ${
-                        ['plan', 'scenario', 'row', 'findings'].includes(cell.column.id) ? '' : 'text-right'
+                        ['plan', 'scenario', 'row', 'findings', 'mapRegion', 'reachable'].includes(cell.column.id) ? '' : 'text-right'
                       }`}
                     >
                       <table.FlexRender cell={cell} />

@@ -1,5 +1,6 @@
 import { useMemo } from 'react';
 import { pointWorking } from '../../../shared/matching/explain-point';
+import { mapRegionText } from '../../../shared/matching/results-table';
 import type { OperatingPoint } from '../../../shared/matching/types';
 import type { WorkingStep, WorkingValue } from '../../../shared/matching/working';
 import { math } from '../../../shared/units';
@@ -147,6 +148,17 @@ export function WorkingPanel({
       {!point.solved && (
         <p className="mb-3 rounded-md border border-limit/40 bg-limit-light/50 px-3 py-2 text-sm text-ink">
           This point has no solution: {point.findings.map((f) => f.message).join(' ')}
+        </p>
+      )}
+      {point.values?.reachable === false && (
+        <p className="mb-3 rounded-md border border-limit/40 bg-limit-light/50 px-3 py-2 text-sm text-ink" data-testid="working-not-reachable">
+          <strong className="font-semibold">Not reachable with this compressor</strong> ({mapRegionText(point.values)}): the steps place the point on the map
+          where the engine asks to be; its efficiency, temperatures, power and fuel are not given.
+        </p>
+      )}
+      {point.values?.offMapAssumed && (
+        <p className="mb-3 rounded-md border border-copper/50 bg-copper-light/50 px-3 py-2 text-sm text-ink">
+          Computed on the plan’s off-map efficiency assumption ({mapRegionText(point.values)}): the map does not show the compressor running here.
         </p>
       )}
       <ol className="max-h-[42rem] overflow-y-auto pl-4 pr-2 pt-1">

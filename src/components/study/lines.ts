@@ -1,6 +1,8 @@
 import { worstSeverity } from '../../../shared/matching/findings';
+import { missingMarginWords, type MarginName } from '../../../shared/matching/margin-words';
+import { mapRegionText } from '../../../shared/matching/results-table';
 import type { OperatingLine, OperatingPoint, SolvedPoint, StudyResult } from '../../../shared/matching/types';
-import type { OperatingLineView, OperatingPointView, TurbineOperatingLineView, TurbineOperatingPointView } from '../plots/types';
+import type { HoverItem, OperatingLineView, OperatingPointView, TurbineOperatingLineView, TurbineOperatingPointView } from '../plots/types';
 
 /** One operating line of a study with the key every view of the study uses for it. */
 export interface StudyLine {
@@ -54,24 +56,38 @@ export function findPoint(lines: readonly StudyLine[], ref: PointRef | null): { 
   return line && point ? { line, point } : null;
 }
 
+/** A margin for the hover box: the value, or "—" and why the map gives none. */
+function marginHover(v: SolvedPoint['values'], label: string, value: number | null, margin: MarginName): HoverItem {
+  const why = missingMarginWords(v, margin);
+  return { label, value, kind: 'fraction', ...(why ? { missing: `— (${why})` } : {}) };
+}
+
 function pointView(point: SolvedPoint): OperatingPointView {
   const v = point.values;
+  const reachable = v.reachable !== false;
+  // At a point the compressor cannot deliver, its results are not given: say so, not a dash.
+  const result = (label: string, value: number | null, kind: string): HoverItem => ({ label, value, kind, ...(reachable ? {} : { missing: 'not reachable' }) });
   return {
     rpm: v.rpm,
     correctedMassFlow: v.correctedMassFlow,
     volumeFlow: v.inletVolumeFlow,
     pressureRatio: v.pressureRatio,
     severity: worstSeverity(point.findings),
+    reachable,
     hover: [
       { label: 'Engine speed', value: v.rpm, kind: 'speed' },
+      ...(v.mapRegion ? [{ label: 'Where', value: null, kind: 'text', text: mapRegionText(v) }] : []),
+      ...(v.mapRegion ? [{ label: 'Reachable', value: null, kind: 'text', text: reachable ? (v.offMapAssumed ? 'yes, on the off-map efficiency assumption' : 'yes') : 'no: the compressor cannot deliver it' }] : []),
       { label: 'Boost (gauge)', value: v.boost, kind: 'pressure' },
       { label: 'Pressure ratio', value: v.pressureRatio, kind: 'ratio' },
       { label: 'Corrected mass flow', value: v.correctedMassFlow, kind: 'massFlow' },
       { label: 'Shaft speed', value: v.shaftSpeed, kind: 'speed' },
-      { label: 'Compressor efficiency', value: v.compressorEfficiency, kind: 'fraction' },
-      { label: 'Surge margin', value: v.surgeMargin, kind: 'fraction' },
-      { label: 'Compressor outlet temperature', value: v.compressorOutletTemperature, kind: 'temperature' },
-      { label: 'Crank power', value: v.brakePower, kind: 'power' },
+      marginHover(v, 'Surge margin', v.surgeMargin, 'surge'),
+      marginHover(v, 'Choke margin', v.chokeMargin, 'choke'),
+      marginHover(v, 'Speed margin', v.speedMargin, 'speed'),
+      result('Compressor efficiency', v.compressorEfficiency, 'fraction'),
+      result('Compressor outlet temperature', v.compressorOutletTemperature, 'temperature'),
+      result('Crank power', v.brakePower, 'power'),
     ],
   };
 }

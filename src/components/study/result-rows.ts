@@ -1,5 +1,7 @@
 import { worstSeverity } from '../../../shared/matching/findings';
-import { RESULT_COLUMNS, type ResultColumn } from '../../../shared/matching/results-table';
+import { missingMarginWords, type MarginName } from '../../../shared/matching/margin-words';
+import { RESULT_KEYS } from '../../../shared/matching/reach';
+import { mapRegionText, reachableText, RESULT_COLUMNS, type ResultColumn } from '../../../shared/matching/results-table';
 import type { PointValues, Severity } from '../../../shared/matching/types';
 import type { UnitSystem } from '../../lib/units';
 import type { StudyLine } from './lines';
@@ -19,6 +21,12 @@ export interface ResultTableRow {
   findingCount: number;
   severity: Severity | null;
   findings: string;
+  /** Where the point sits, in words ("past choke", "no map"). */
+  region: string;
+  /** "yes" where the point's results stand, "no" where the compressor cannot deliver it. */
+  reachable: 'yes' | 'no';
+  /** The line computes the exhaust side (so its exhaust columns would have values). */
+  withExhaust: boolean;
 }
 
 export function resultTableRows(lines: readonly StudyLine[]): ResultTableRow[] {
@@ -39,8 +47,35 @@ export function resultTableRows(lines: readonly StudyLine[]): ResultTableRow[] {
         .sort((a, b) => order[a.severity] - order[b.severity])
         .map((f) => `${f.severity}: ${f.message}`)
         .join('; '),
+      region: mapRegionText(p.values),
+      reachable: reachableText(p.values),
+      withExhaust: Boolean(l.line.context.exhaust?.turbine),
     })),
   );
+}
+
+/** The words a result cell shows in place of a value the compressor cannot deliver. */
+export const NOT_REACHABLE = 'not reachable';
+
+const CLEARED = new Set<string>(RESULT_KEYS);
+// The exhaust columns close RESULT_COLUMNS; they have values only on lines with the exhaust side.
+const EXHAUST_COLUMNS = new Set(RESULT_COLUMNS.slice(RESULT_COLUMNS.findIndex((c) => c.key === 'exhaustMassFlow')).map((c) => c.key));
+const MARGINS: Partial<Record<keyof PointValues, MarginName>> = { surgeMargin: 'surge', chokeMargin: 'choke', speedMargin: 'speed' };
+
+/**
+ * What an empty cell means: "not reachable" for a result of a point the compressor cannot deliver,
+ * and for a missing margin why the map cannot give it; null for a value that is there or that
+ * simply does not apply (e.g. the exhaust side of a plan without one).
+ */
+export function emptyCellNote(row: ResultTableRow, column: ResultColumn): { text: string; why?: string } | null {
+  const v = row.values;
+  if (!v || typeof v[column.key] === 'number') return null;
+  if (row.reachable === 'no' && CLEARED.has(column.key) && (row.withExhaust || !EXHAUST_COLUMNS.has(column.key))) {
+    return { text: NOT_REACHABLE, why: `Not reachable with this compressor (${row.region}): no result is given here.` };
+  }
+  const margin = MARGINS[column.key];
+  const why = margin ? missingMarginWords(v, margin) : null;
+  return why ? { text: '—', why: `No ${margin} margin: ${why}.` } : null;
 }
 
 /** The quantity a result column is shown as (fuel flows in L/h or gal/h, boost labelled gauge). */
@@ -79,7 +114,8 @@ export function resultsTsv(rows: readonly ResultTableRow[], system: UnitSystem, 
     const one = text.replace(/[\t\r\n]+/g, ' ');
     return /^[=+\-@]/.test(one) ? `'${one}` : one;
   };
-  const head = ['Plan', 'Scenario', 'Boost row', ...columns.map((c) => `${c.label} (${columnUnit(c, system)})`), 'Findings'];
+  // Map region and reachable close the line, as in the CSV export, so the earlier columns keep their places.
+  const head = ['Plan', 'Scenario', 'Boost row', ...columns.map((c) => `${c.label} (${columnUnit(c, system)})`), 'Findings', 'Map region', 'Reachable'];
   const lines = rows.map((r) => [
     clean(r.plan),
     clean(r.scenario),
@@ -89,6 +125,8 @@ export function resultsTsv(rows: readonly ResultTableRow[], system: UnitSystem, 
       return v === null ? '' : inputText(v, 6);
     }),
     clean(r.findings),
+    r.region,
+    r.reachable,
   ]);
   return [head, ...lines].map((cells) => cells.join('\t')).join('\n');
 }

@@ -2,6 +2,7 @@ import type { Annotation, Data, Layout, Shape } from 'plotly.js-dist-min';
 import { DRIVE_PRESSURE_RATIO_WARNING } from '../../../shared/matching/exhaust-findings';
 import { INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '../../../shared/matching/findings';
 import { REQUIREMENT_DEFAULTS } from '../../../shared/matching/requirements';
+import { mapRegionText } from '../../../shared/matching/results-table';
 import type { PointValues, SolvedPoint } from '../../../shared/matching/types';
 import type { UnitSystem } from '../../lib/units';
 import type { PlotFigure } from '../plots/compressor-map-figure';
@@ -153,6 +154,38 @@ function guides(view: CurveView, system: UnitSystem, outletTemperatureLimit: num
   return out;
 }
 
+/** Runs of consecutive engine speeds, in words: "2,500–2,750 and 5,000–8,000 rpm". */
+function rpmRuns(rpms: readonly number[], all: readonly number[]): string {
+  const runs: [number, number][] = [];
+  let open: [number, number] | null = null;
+  for (const rpm of all) {
+    if (rpms.includes(rpm)) {
+      if (open) open[1] = rpm;
+      else open = [rpm, rpm];
+    } else if (open) {
+      runs.push(open);
+      open = null;
+    }
+  }
+  if (open) runs.push(open);
+  const text = runs.map(([a, b]) => (a === b ? formatNumber(a, 21) : `${formatNumber(a, 21)}–${formatNumber(b, 21)}`));
+  return `${text.length > 1 ? `${text.slice(0, -1).join(', ')} and ${text[text.length - 1]}` : text[0]} rpm`;
+}
+
+/**
+ * What a line's hover says of the points the compressor cannot deliver: at such a point a value
+ * it still has (boost, pressure ratio, flow: where the engine asks to be) is marked so; a result it
+ * lacks leaves a gap, and every point of the line names the speeds of the gap.
+ */
+function unreachableWords(points: readonly SolvedPoint[], series: Series): { at: (p: SolvedPoint) => string; line: string } {
+  const unreachable = points.filter((p) => p.values.reachable === false);
+  const gaps = unreachable.filter((p) => series.value(p.values) === null).map((p) => p.rpm);
+  return {
+    at: (p) => (p.values.reachable === false ? `<br><i>Not reachable with this compressor (${plotText(mapRegionText(p.values))})</i>` : ''),
+    line: gaps.length > 0 ? `<br><i>Not reachable with this compressor at ${rpmRuns(gaps, points.map((p) => p.rpm))}: no ${plotText(series.title.toLowerCase())} there</i>` : '',
+  };
+}
+
 /** The plotly figure of one curve view: one trace per line and panel, in the user's units. */
 export function rpmCurvesFigure({
   lines,
@@ -180,31 +213,58 @@ export function rpmCurvesFigure({
       const y: (number | null)[] = [];
       const text: string[] = [];
       const customdata: [string, number][] = [];
+      const unreachable = unreachableWords(points, series);
       for (const p of points) {
         const si = series.value(p.values);
         x.push(p.rpm);
         y.push(si === null || !Number.isFinite(si) ? null : unit.fromSI(si));
-        text.push(`<b>${plotText(l.label)}</b><br>${formatNumber(p.rpm, 21)} rpm<br>${plotText(series.title)}: ${plotText(formatStudyValue(si, series.quantity, unitSystem))}`);
+        text.push(
+          `<b>${plotText(l.label)}</b><br>${formatNumber(p.rpm, 21)} rpm<br>${plotText(series.title)}: ${plotText(formatStudyValue(si, series.quantity, unitSystem))}${unreachable.at(p)}${unreachable.line}`,
+        );
         customdata.push([l.key, p.rpm]);
       }
       const colour = planColour(l.planIndex);
+      const hollow = points.some((p) => p.values.reachable === false);
       data.push({
         type: 'scatter',
         mode: 'lines+markers',
         name: l.label,
         legendgroup: l.key,
-        showlegend: panel === 0,
+        // plotly keys a line with its first marker; a hollow one would mark the whole line as not reachable.
+        showlegend: panel === 0 && !hollow,
         xaxis: `x${axis}`,
         yaxis: `y${axis}`,
         x,
         y,
         line: { color: colour, width: 2, dash: scenarioDash(l.scenarioIndex) },
-        marker: { symbol: planMarker(l.planIndex), size: 6, color: colour },
+        // A point the compressor cannot deliver is hollow, as on the map.
+        marker: {
+          symbol: points.map((p) => (p.values.reachable === false ? `${planMarker(l.planIndex)}-open` : planMarker(l.planIndex))),
+          size: 6,
+          color: colour,
+          line: { width: points.map((p) => (p.values.reachable === false ? 1.5 : 0)) },
+        },
         connectgaps: false,
         customdata,
         text,
         hovertemplate: '%{text}<extra></extra>',
       } as Data);
+      if (panel === 0 && hollow) {
+        // The key alone, with the plan's filled marker: no points of its own.
+        data.push({
+          type: 'scatter',
+          mode: 'lines+markers',
+          name: l.label,
+          legendgroup: l.key,
+          xaxis: 'x',
+          yaxis: 'y',
+          x: [null],
+          y: [null],
+          line: { color: colour, width: 2, dash: scenarioDash(l.scenarioIndex) },
+          marker: { symbol: planMarker(l.planIndex), size: 6, color: colour },
+          hoverinfo: 'skip',
+        } as Data);
+      }
       const companion = series.companion;
       if (companion) {
         const csi = points.map((p) => {

@@ -210,6 +210,8 @@ describe('the whole report and the shared view with the exhaust side', () => {
     renderReport(housingStudy);
     const headings = screen.getAllByRole('heading', { level: 2 }).map((h) => h.textContent);
     expect(headings).toEqual([
+      // The verdicts come first, on the first page, before the numbered sections.
+      'Verdict by plan',
       '1. Inputs',
       '2. Assumptions',
       '3. Compressor maps with every operating line',
@@ -234,6 +236,8 @@ describe('the whole report and the shared view with the exhaust side', () => {
     renderReport(hillclimb);
     const headings = screen.getAllByRole('heading', { level: 2 }).map((h) => h.textContent);
     expect(headings).toEqual([
+      // The verdicts come first, on the first page, before the numbered sections.
+      'Verdict by plan',
       '1. Inputs',
       '2. Assumptions',
       '3. Compressor maps with every operating line',

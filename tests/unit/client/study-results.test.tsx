@@ -1,9 +1,5 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
 import { studyDocumentSchema } from '../../../shared/schemas/study';
 import { runStudyDocument } from '../../../shared/study/run';
 import { FindingsList, groupFindings, localizeMessage } from '../../../src/components/study/FindingsList';
@@ -11,17 +7,12 @@ import { studyLines } from '../../../src/components/study/lines';
 import { resultTableRows, resultsTsv } from '../../../src/components/study/result-rows';
 import { ResultsTable } from '../../../src/components/study/ResultsTable';
 import { runStudyLive } from '../../../src/components/study/run';
+import { demoDocument, demoMaps } from './demo-study';
 
 afterEach(cleanup);
 
-const root = path.resolve(import.meta.dirname, '../../..');
-const demo = studyDocumentSchema.parse(JSON.parse(readFileSync(path.join(root, 'data/demo/hillclimb-study.json'), 'utf8')));
-const maps: Record<string, SpoolbookMap> = {};
-for (const name of ['s44', 'm58', 'l76']) {
-  const parsed = parseMapFile(readFileSync(path.join(root, `data/maps/compressor-${name}.csv`), 'utf8'));
-  if (!parsed.ok) throw new Error(`demo map ${name} does not parse`);
-  maps[`builtin-compressor-${name}`] = parsed.map;
-}
+const demo = studyDocumentSchema.parse(demoDocument());
+const maps = demoMaps();
 
 describe('runStudyLive', () => {
   it('gives exactly what runStudyDocument gives (it only keeps the maps’ models between edits)', () => {

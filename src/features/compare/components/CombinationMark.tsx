@@ -1,3 +1,4 @@
+import type { PlanVerdict } from '../../../../shared/matching/verdict';
 import { planColour, scenarioDash } from '../../../components/plots/style';
 
 /** A chosen line of Side by side: its place in the comparison and where it comes from. */
@@ -8,6 +9,8 @@ export interface ChosenLine {
   planName: string;
   scenarioName: string;
   rowLabel: string;
+  /** The verdict of the line's plan over all its scenarios and boost rows, when judged. */
+  verdict?: PlanVerdict;
 }
 
 // The marker shapes of style.ts's planMarkers, drawn small for tables and legends.

@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../../shared/maps/types';
 import type { StudyDocument } from '../../../../shared/schemas/study';
+import { planVerdicts, VERDICT_RANK } from '../../../../shared/matching/verdict';
 import { compareLines } from '../../../../shared/study/compare';
 import { Alert } from '../../../components/Alert';
 import { Card } from '../../../components/Card';
@@ -18,9 +19,16 @@ import { compareFigure, type OverlaidMap } from '../compare-figure';
 import { allCombinations, MIN_COMBINATIONS, toggleCombination } from '../selection';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
 import { CombinationPicker } from './CombinationPicker';
+import { ChosenVerdicts } from './ChosenVerdicts';
 import { DifferencesTable } from './DifferencesTable';
 
 const MAP_HEIGHT = 620;
+
+/** Chosen lines in verdict order, what fits first; lines of one verdict keep the order they were chosen in. */
+export function rankByVerdict(chosen: readonly ChosenLine[]): ChosenLine[] {
+  const rank = (c: ChosenLine) => VERDICT_RANK[c.verdict?.status ?? 'not-judged'];
+  return [...chosen].sort((a, b) => rank(a) - rank(b) || a.index - b.index);
+}
 
 function compressorMap(map: SpoolbookMap | undefined): CompressorMap | null {
   return map && map.kind === 'compressor' ? map : null;
@@ -45,14 +53,33 @@ export function CompareView({
   onSelectionChange: (keys: string[]) => void;
   system: UnitSystem;
 }) {
-  const lines = useMemo(() => studyLines(runStudyLive(document, mapsById), document.plans), [document, mapsById]);
+  const result = useMemo(() => runStudyLive(document, mapsById), [document, mapsById]);
+  const lines = useMemo(() => studyLines(result, document.plans), [result, document]);
+  // Each plan judged over all its scenarios and boost rows: a line is only as good as its plan.
+  const verdicts = useMemo(() => new Map(planVerdicts(result).map((v) => [v.planIndex, v])), [result]);
   const combinations = useMemo(() => allCombinations(document), [document]);
   const chosenLines = useMemo(() => selection.flatMap((key) => lines.filter((l) => l.key === key)), [selection, lines]);
-  const chosen: ChosenLine[] = chosenLines.map((l, index) => {
-    const c = combinations.find((x) => x.key === l.key);
-    return { key: l.key, index, planName: l.line.planName, scenarioName: c?.scenarioName ?? l.line.scenarioName, rowLabel: c?.rowLabel ?? l.line.rowLabel };
-  });
-  const rows = useMemo(() => compareLines(chosenLines.map((l) => l.line)), [chosenLines]);
+  const chosen = useMemo(
+    () =>
+      chosenLines.map((l, index): ChosenLine => {
+        const c = combinations.find((x) => x.key === l.key);
+        return {
+          key: l.key,
+          index,
+          planName: l.line.planName,
+          scenarioName: c?.scenarioName ?? l.line.scenarioName,
+          rowLabel: c?.rowLabel ?? l.line.rowLabel,
+          verdict: verdicts.get(l.planIndex),
+        };
+      }),
+    [chosenLines, combinations, verdicts],
+  );
+  // The table reads what fits first (stable: the chosen order within one verdict); each line keeps its own colour and marker.
+  const rankedChosen = useMemo(() => rankByVerdict(chosen), [chosen]);
+  const rows = useMemo(
+    () => compareLines(rankedChosen.map((c) => ({ ...chosenLines[c.index].line, planVerdict: c.verdict?.status ?? null }))),
+    [rankedChosen, chosenLines],
+  );
 
   // The maps the chosen lines were read from, in the order of the lines.
   const usedMaps = useMemo(() => {
@@ -117,6 +144,12 @@ export function CompareView({
       <Card title="What to compare">
         <CombinationPicker document={document} selected={selection} onToggle={(key) => onSelectionChange(toggleCombination(selection, key))} />
       </Card>
+
+      {rankedChosen.length > 0 && (
+        <Card title="Verdicts of the chosen lines’ plans">
+          <ChosenVerdicts chosen={rankedChosen} />
+        </Card>
+      )}
 
       {chosenLines.length < MIN_COMBINATIONS ? (
         <Alert tone="info" title="Choose one more">
@@ -217,10 +250,11 @@ export function CompareView({
           <Card title="Differences">
             <div className="space-y-3">
               <p className="text-sm text-ink-soft">
-                Margins are the smallest over the line, the rest the largest (peaks), each with the engine speed it occurs at. The best value of each
-                row is marked; “Best is” says what best means there. Findings are counted at every point of the line.
+                Columns read what fits first. Margins are the smallest over the line (past a limit included: a negative one is the news), peaks the
+                largest over the points the compressor can deliver, each with the engine speed it occurs at. The best value of each row is marked
+                only among plans that fit, never on a value past a limit; “Best is” says what best means there. Counts are of points.
               </p>
-              <DifferencesTable rows={rows} chosen={chosen} system={system} />
+              <DifferencesTable rows={rows} chosen={rankedChosen} system={system} />
             </div>
           </Card>
         </>

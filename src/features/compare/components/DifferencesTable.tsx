@@ -1,5 +1,6 @@
 import type { CompareCell, CompareRow, CompareRowKey } from '../../../../shared/study/compare';
 import { formatNumber } from '../../../components/plots/quantities';
+import { VerdictStamp } from '../../../components/study/PlanVerdicts';
 import { quantityUnit, type StudyQuantity } from '../../../components/study/units';
 import type { UnitSystem } from '../../../lib/units';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
@@ -34,6 +35,7 @@ function quantityOf(row: CompareRow): StudyQuantity {
 
 /** The unit a row is read in: the user's unit, or words for plain numbers. */
 export function rowUnit(row: CompareRow, system: UnitSystem): string {
+  if (row.key === 'planVerdict') return '';
   if (row.kind === 'ratio') return RATIO_UNIT[row.key]?.unit ?? 'p₂/p₁ (ratio)';
   if (row.kind === 'count') return 'count';
   const label = quantityUnit(quantityOf(row), system).label;
@@ -47,9 +49,10 @@ export function rowUnitWords(row: CompareRow): string | null {
 
 /** Why a cell is empty, in a few words; null when the cell has a value or is a count. */
 export function emptyCellWords(row: CompareRow, cell: CompareCell): string | null {
-  if (cell.value !== null || row.kind === 'count') return null;
+  if (cell.value !== null || row.kind === 'count' || row.key === 'planVerdict') return null;
   if (cell.note === 'not-reached') return 'not reached';
   if (cell.note === 'no-exhaust') return 'no exhaust side';
+  if (cell.note === 'no-boost-asked') return 'no boost asked';
   return /margin|shaft/i.test(row.label) ? 'no map' : 'not computed';
 }
 
@@ -63,12 +66,24 @@ export function rowValueText(row: CompareRow, value: number | null, system: Unit
 
 const BEST_WORDS = { highest: 'Highest', lowest: 'Lowest', none: '—' } as const;
 
+/**
+ * Whether a cell is shown "past a limit": a value found where a limit is crossed (a negative
+ * margin, a point at a limit). Every cell of a plan that does not fit is left out of best as well,
+ * but says so once, in the verdict row, not in every cell.
+ */
+export function pastLimitMark(row: CompareRow, cell: CompareCell, chosen: ChosenLine | undefined): boolean {
+  if (!cell.excluded || cell.value === null || row.key === 'planVerdict') return false;
+  if (chosen?.verdict?.status !== 'does-not-fit') return true;
+  return row.kind === 'fraction' && /margin/i.test(row.key) && cell.value < 0;
+}
+
+
 /** One row per figure, one column per chosen line, the best of each row marked. */
 export function DifferencesTable({ rows, chosen, system }: { rows: readonly CompareRow[]; chosen: readonly ChosenLine[]; system: UnitSystem }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full min-w-[40rem] border-collapse text-left text-sm" data-testid="differences-table">
-        <caption className="sr-only">Differences between the chosen lines: one row per figure, the best value of each row marked.</caption>
+        <caption className="sr-only">Differences between the chosen lines, what fits first: one row per figure, the best value of each row marked among plans that fit.</caption>
         <thead className="border-b-2 border-ink/20 align-bottom text-xs text-ink-soft">
           <tr>
             <th scope="col" className="px-2 py-2 font-semibold uppercase tracking-wider">
@@ -108,12 +123,32 @@ export function DifferencesTable({ rows, chosen, system }: { rows: readonly Comp
               <td className="px-2 py-2 text-xs text-ink-soft" title={row.bestMeaning}>
                 <span className="font-semibold text-ink">{BEST_WORDS[row.best]}</span>
                 {row.best !== 'none' && <span className="block">{row.bestMeaning.replace(/^(highest|lowest): /, '')}</span>}
+                {row.key === 'planVerdict' && <span className="block">read it first: best is marked only for plans that fit</span>}
               </td>
               {row.cells.map((cell, i) => {
                 const best = row.bestIndices.includes(i);
+                if (row.key === 'planVerdict') {
+                  return (
+                    <td key={chosen[i]?.key ?? i} className="px-2 py-2 text-right" data-verdict={cell.verdict}>
+                      <VerdictStamp status={cell.verdict ?? 'not-judged'} />
+                      {cell.verdict === 'does-not-fit' && <span className="block pt-0.5 text-xs text-ink-soft">not ranked in the rows below</span>}
+                    </td>
+                  );
+                }
+                const pastLimit = pastLimitMark(row, cell, chosen[i]);
                 return (
-                  <td key={chosen[i]?.key ?? i} className={`numeric px-2 py-2 text-right ${best ? 'bg-teal-light/70' : ''}`} data-best={best || undefined}>
+                  <td
+                    key={chosen[i]?.key ?? i}
+                    className={`numeric px-2 py-2 text-right ${best ? 'bg-teal-light/70' : ''}`}
+                    data-best={best || undefined}
+                    data-excluded={cell.excluded || undefined}
+                  >
                     <span className={best ? 'font-semibold text-teal-dark' : 'text-ink'}>{rowValueText(row, cell.value, system)}</span>
+                    {pastLimit && (
+                      <span className="ml-1.5 whitespace-nowrap text-[0.65rem] font-semibold uppercase tracking-wide text-limit" title="Found where a limit is crossed: never marked best">
+                        past a limit
+                      </span>
+                    )}
                     {best && (
                       <span className="ml-1.5 rounded bg-teal px-1 py-px text-[0.65rem] font-bold uppercase tracking-wide text-white">
                         best

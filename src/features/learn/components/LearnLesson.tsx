@@ -152,7 +152,8 @@ function Summary({ point, standard, system, hasMap, mapLoading }: { point: Opera
     ['Air mass flow', formatQuantity(v.massFlow, 'massFlow', system)],
     ['Corrected mass flow', formatQuantity(v.correctedMassFlow, 'massFlow', system)],
     ['Pressure ratio', formatNumber(v.pressureRatio, 3)],
-    ['Compressor outlet temperature', formatQuantity(v.compressorOutletTemperature, 'temperature', system)],
+    // Off the map the compressor cannot deliver the point: there is no outlet temperature to give.
+    ['Compressor outlet temperature', v.reachable === false ? 'not reachable' : formatQuantity(v.compressorOutletTemperature, 'temperature', system)],
   ];
   if (v.shaftSpeed !== null) rows.push(['Shaft speed', krpmLabel(v.shaftSpeed)]);
   if (v.surgeMargin !== null) rows.push(['Surge margin', formatQuantity(v.surgeMargin, 'fraction', system)]);
@@ -162,6 +163,7 @@ function Summary({ point, standard, system, hasMap, mapLoading }: { point: Opera
         {hasMap ? (
           <>
             The point lands <strong className={v.mapLocation === 'inside' ? 'text-teal-dark' : 'text-copper-ink'}>{LOCATION_WORDS[v.mapLocation ?? 'inside']}</strong>.
+            {v.reachable === false && ' The compressor cannot deliver it there, so no efficiency, outlet temperature or power is given.'}
           </>
         ) : mapLoading ? (
           'The demo map is on its way; meanwhile the point is drawn on plain axes.'

@@ -43,19 +43,29 @@ export function Assumptions({ document, groups, system }: { document: StudyDocum
             : `From the intercooler's effectiveness (${formatStudyValue(ic.effectiveness, 'fraction', system)}); because the compressor outlet temperature depends on where the point lands on the map, the two are solved together by repeated passes.`}
         </li>
         <li>
-          <strong>Compressor efficiency.</strong> Read from each plan’s map where the point lands on it; where it does not (or a plan has
-          no map) the plan’s stated efficiency is used, and the findings say so.
+          <strong>Compressor efficiency.</strong> Read from each plan’s map where the point lands on it; below the map’s lowest speed line (or
+          for a plan with no map) the plan’s default efficiency is used, and the findings say so. A point left of surge, past choke, over the
+          speed limit or off the map is not reachable with that compressor: it keeps its place on the map, but its efficiency, temperatures,
+          power, fuel and exhaust side are not given and count in no peak.
+          {document.plans.some((p) => p.offMapEfficiency !== undefined) &&
+            ' Where a plan states an off-map efficiency, its points past choke, above the map or outside the speed lines are computed on that assumption instead, named in the findings; surge and overspeed stay limits.'}
         </li>
         <li>
           <strong>Power.</strong>{' '}
           {power.basis === 'bsfc'
-            ? `From the air that can burn, with a brake specific fuel consumption of ${formatStudyValue(power.bsfc, 'bsfc', system)}`
-            : `From the air that can burn, with a brake thermal efficiency of ${formatStudyValue(power.brakeThermalEfficiency, 'fraction', system)}`}
+            ? `From the fuel that burns (set by the air when rich, by the fuel itself when lean), with a brake specific fuel consumption of ${formatStudyValue(power.bsfc, 'bsfc', system)}`
+            : `From the fuel that burns (set by the air when rich, by the fuel itself when lean), with a brake thermal efficiency of ${formatStudyValue(power.brakeThermalEfficiency, 'fraction', system)}`}
           ; wheel power is crank power less a drivetrain loss of {formatStudyValue(power.drivetrainLoss, 'fraction', system)}.
         </li>
         <li>
           <strong>Injectors.</strong> Flow scales with the square root of the pressure difference across them. Duty above 80 % is a
           warning and above 85 % a limit (common practice, no published source).
+        </li>
+        <li>
+          <strong>Verdict.</strong> A plan does not fit where any point of any scenario crosses a limit (a point the compressor cannot
+          deliver, overspeed, saturated injectors, a lean mixture under boost, a stated limit); it fits with warnings where a margin is
+          thinner than the study requires or another warning stands. The required margins are the study’s own, or common-practice
+          defaults where it sets none: a starting point, not a published rule.
         </li>
         {withExhaust && (
           <li>

@@ -2,7 +2,7 @@ import { RESULT_COLUMNS, type ResultColumn } from '../../../../shared/matching/r
 import { formatNumber } from '../../../components/plots/quantities';
 import { planColour } from '../../../components/plots/style';
 import type { StudyLine } from '../../../components/study/lines';
-import { cellValue, columnUnit, resultTableRows } from '../../../components/study/result-rows';
+import { cellValue, columnUnit, emptyCellNote, NOT_REACHABLE, resultTableRows, type ResultTableRow } from '../../../components/study/result-rows';
 import type { UnitSystem } from '../../../lib/units';
 
 /** Result columns per printed table: the rest go into the next table under it, rpm repeated. */
@@ -16,9 +16,10 @@ export function columnBlocks(columns: readonly ResultColumn[] = RESULT_COLUMNS, 
   return out;
 }
 
-function cellText(v: number | null, column: ResultColumn): string {
-  if (v === null) return '—';
-  return column.kind === 'speed' ? formatNumber(Math.round(v), 21) : formatNumber(v, 4);
+function cellText(row: ResultTableRow, column: ResultColumn, system: UnitSystem): string {
+  const v = cellValue(row, column, system);
+  if (v !== null) return column.kind === 'speed' ? formatNumber(Math.round(v), 21) : formatNumber(v, 4);
+  return emptyCellNote(row, column)?.text ?? '—';
 }
 
 /** The columns that have a value somewhere in the study; a column empty everywhere (e.g. the turbine's, without a turbine) is left off paper. */
@@ -83,12 +84,16 @@ export function PrintResults({ lines, system }: { lines: readonly StudyLine[]; s
                         <th scope="row" className="numeric px-1.5 py-0.5 text-left font-medium">
                           {formatNumber(r.rpm, 21)}
                           {r.severity === 'limit' && <span className="ml-1 font-bold text-limit" title="A limit is crossed at this point">!</span>}
+                          {r.reachable === 'no' && r.values && <span className="block text-[0.65rem] font-normal text-ink-soft">{r.region}</span>}
                         </th>
-                        {block.map((c) => (
-                          <td key={c.key} className="numeric px-1.5 py-0.5 text-right">
-                            {cellText(cellValue(r, c, system), c)}
-                          </td>
-                        ))}
+                        {block.map((c) => {
+                          const text = cellText(r, c, system);
+                          return (
+                            <td key={c.key} className={`numeric px-1.5 py-0.5 text-right ${text === NOT_REACHABLE ? 'text-[0.65rem] italic leading-tight text-ink-soft' : ''}`}>
+                              {text}
+                            </td>
+                          );
+                        })}
                       </tr>
                     ))}
                   </tbody>

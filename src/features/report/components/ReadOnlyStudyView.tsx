@@ -4,6 +4,7 @@ import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { planColour } from '../../../components/plots/style';
 import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
+import { PlanVerdicts, reasonPoint, verdictsOfLines } from '../../../components/study/PlanVerdicts';
 import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
 import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
 import { ResultsTable } from '../../../components/study/ResultsTable';
@@ -14,8 +15,17 @@ import type { UnitSystem } from '../../../lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { ExhaustNotes } from './ExhaustNotes';
 
-/** The point first shown in the Working: where the most severe finding is, else the first point. */
+/**
+ * The point first shown in the Working: where the first plan that does not fit (else the first
+ * with warnings) meets its first reason, as the verdicts above say; else where the most severe
+ * finding is; else the first point.
+ */
 export function firstPointOfInterest(lines: readonly StudyLine[]): PointRef | null {
+  const verdicts = verdictsOfLines(lines);
+  const judged = verdicts.find((v) => v.status === 'does-not-fit') ?? verdicts.find((v) => v.status === 'fits-with-warnings');
+  const reason = judged?.reasons[0];
+  const named = judged && reason ? reasonPoint(lines, judged.planIndex, reason) : null;
+  if (named) return named;
   const [worst] = groupFindings(lines).filter((g) => g.severity !== 'info');
   if (worst) return { lineKey: worst.line.key, rpm: Math.min(...worst.rpms) };
   const line = lines.find((l) => l.line.points.some((p) => p.solved));
@@ -73,7 +83,7 @@ function MapChooser({
 }
 
 /**
- * A computed study that nobody can change here: its maps with the operating lines, the curves,
+ * A computed study that nobody can change here: the verdict of each plan, its maps with the operating lines, the curves,
  * the findings, the Working of a chosen point and the results table. Used by the shared view;
  * a team's viewers can be shown the same.
  */
@@ -110,6 +120,9 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
   return (
     <div className="space-y-6" data-testid="read-only-study">
       <StudyCaution />
+      <Card>
+        <PlanVerdicts lines={computed.lines} selected={selected} onSelect={select} />
+      </Card>
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
         <div className="min-w-0 space-y-6">
           <Card title="Compressor map" actions={group ? <span className="text-sm text-ink-soft">{group.planNames.join(', ')}</span> : undefined}>

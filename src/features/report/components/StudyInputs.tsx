@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { DEFAULT_TURBINE_EFFICIENCY } from '../../../../shared/matching/exhaust';
+import { REQUIREMENT_DEFAULTS, type Requirements } from '../../../../shared/matching/requirements';
 import type { RpmTable } from '../../../../shared/matching/types';
 import type { StudyDocument } from '../../../../shared/schemas/study';
 import { formatNumber } from '../../../components/plots/quantities';
@@ -195,6 +196,24 @@ function ExhaustInputs({ data, system }: { data: Pick<StudyViewData, 'document' 
   );
 }
 
+const REQUIREMENT_ROWS: { key: keyof Requirements; label: string; quantity: StudyQuantity }[] = [
+  { key: 'minSurgeMargin', label: 'Smallest surge margin', quantity: 'fraction' },
+  { key: 'minChokeMargin', label: 'Smallest choke margin', quantity: 'fraction' },
+  { key: 'minSpeedMargin', label: 'Smallest speed margin', quantity: 'fraction' },
+  { key: 'maxCompressorOutletTemperature', label: 'Highest compressor outlet temperature accepted', quantity: 'temperature' },
+  { key: 'lambdaWarningUnderBoost', label: 'Lambda warning under boost', quantity: 'ratio' },
+  { key: 'lambdaLimitUnderBoost', label: 'Lambda limit under boost', quantity: 'ratio' },
+  { key: 'underBoostFrom', label: 'Under boost from', quantity: 'pressureGauge' },
+];
+
+/** The study's required margins, each as set or its default, said so. */
+function requirementFacts(set: StudyDocument['requirements'], system: UnitSystem): [string, ReactNode][] {
+  return REQUIREMENT_ROWS.map(({ key, label, quantity }) => {
+    const value = set?.[key];
+    return [label, value !== undefined ? formatStudyValue(value, quantity, system) : `${formatStudyValue(REQUIREMENT_DEFAULTS[key], quantity, system)} (default)`];
+  });
+}
+
 /**
  * Every input of the study in the user's units: engine, fuel system, power assumptions, losses,
  * intercooler, scenarios with their boost schedules, plans with their maps, and the exhaust side
@@ -323,7 +342,8 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
               <th scope="col" className="px-2 py-1.5">Plan</th>
               <th scope="col" className="px-2 py-1.5">Compressor map</th>
               <th scope="col" className="px-2 py-1.5 text-right">Turbochargers</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Efficiency off the map</th>
+              <th scope="col" className="px-2 py-1.5 text-right">Default efficiency</th>
+              <th scope="col" className="px-2 py-1.5 text-right">Off-map efficiency (assumption)</th>
               <th scope="col" className="px-2 py-1.5 text-right">Shaft speed limit</th>
             </tr>
           </thead>
@@ -339,11 +359,15 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
                 <td className="px-2 py-1.5">{plan.compressorMapId ? mapName(plan.compressorMapId, data.mapsById, data.mapNames) : 'None'}</td>
                 <td className="numeric px-2 py-1.5 text-right">{plan.turbochargers}</td>
                 <td className="numeric px-2 py-1.5 text-right">{v(plan.compressorEfficiency, 'fraction')}</td>
+                <td className="numeric px-2 py-1.5 text-right">{plan.offMapEfficiency !== undefined ? v(plan.offMapEfficiency, 'fraction') : 'None: off the map is not reachable'}</td>
                 <td className="numeric px-2 py-1.5 text-right">{plan.maxShaftSpeed !== undefined ? v(plan.maxShaftSpeed, 'speed') : 'From the map'}</td>
               </tr>
             ))}
           </tbody>
         </table>
+      </InputBlock>
+      <InputBlock title="Required margins">
+        <Facts items={requirementFacts(doc.requirements, system)} />
       </InputBlock>
       {doc.plans.some((plan) => plan.exhaust) && (
         <InputBlock title="Exhaust side">

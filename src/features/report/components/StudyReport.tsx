@@ -6,6 +6,7 @@ import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
 import { mapLineViews, turbineLineViews } from '../../../components/study/lines';
 import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
+import { PlanVerdicts } from '../../../components/study/PlanVerdicts';
 import { StudyCaution } from '../../../components/study/StudyCaution';
 import { useDocumentTitle } from '../../../components/Page';
 import { formatDateTime } from '../../../lib/format';
@@ -61,7 +62,7 @@ function ReportSection({ id, title, children, className = '' }: { id: string; ti
 }
 
 /**
- * The printable report of a study: title, revision and date, the caution, every input, the
+ * The printable report of a study: title, revision and date, the caution, the verdict of each plan, every input, the
  * assumptions, the maps with every operating line (the turbine maps too when some plan has an
  * exhaust side), the curves, the findings and the results of every point. Made for paper (with
  * src/styles/print.css); on screen it reads as a sheet.
@@ -149,6 +150,10 @@ export function StudyReport({
             )}
           </dl>
           <StudyCaution />
+          {/* The answer first: each plan's verdict on the first page, before the inputs it rests on. */}
+          <div className="report-verdicts rounded-md border border-paper-line bg-paper/40 p-3">
+            <PlanVerdicts lines={computed.lines} />
+          </div>
         </header>
 
         <ReportSection id="inputs" title="1. Inputs" className="report-first">
@@ -162,7 +167,8 @@ export function StudyReport({
         <ReportSection id="maps" title="3. Compressor maps with every operating line">
           <p className="text-sm text-ink-soft">
             Each plan is drawn on its own compressor map. Colour and marker tell the plans apart, the line dash the scenarios; a point
-            ringed in red crosses a limit, in copper raises a warning.
+            ringed in red crosses a limit, in copper raises a warning; a hollow point with a cross is one the compressor cannot deliver
+            (not reachable), placed where the engine asks to be.
           </p>
           {computed.groups.map((g) => (
             <figure key={g.key} className="report-figure space-y-1">
@@ -210,7 +216,7 @@ export function StudyReport({
         <ReportSection id="results" title={`${n(6)}. Results by operating point`}>
           <p className="text-sm text-ink-soft">
             Every point of every operating line. Columns continue in the table under each one; boost is gauge, other pressures absolute. A
-            red “!” marks a point that crosses a limit.
+            red “!” marks a point that crosses a limit; where the compressor cannot deliver a point, its results read “not reachable”.
           </p>
           <PrintResults lines={computed.lines} system={system} />
         </ReportSection>

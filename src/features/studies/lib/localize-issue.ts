@@ -1,3 +1,4 @@
+import { FIELD_WORDS } from '../../../../shared/study/diff';
 import { formatStudyValue, type StudyQuantity } from '../../../components/study/units';
 import type { UnitSystem } from '../../../lib/units';
 import { formatNumber } from '../../../components/plots/quantities';
@@ -28,6 +29,8 @@ function escape(text: string): string {
  */
 export function localizeIssue(message: string, quantity: StudyQuantity, system: UnitSystem): string {
   let text = message
+    // Field names an API caller types ("minSurgeMargin") read as words beside a labelled box.
+    .replace(/\b[a-z]+(?:[A-Z][a-z]*)+\b/g, (key) => FIELD_WORDS[key] ?? key)
     // Hints about unit slips: the box converts, so there is no slip to warn about.
     .replace(/\s*\((?:[^()]*=[^()]*|not a percentage|was °C given\?)\)/g, '')
     .replace(/\b(?:is )?(?:absolute |gauge )?(?:temperature )?(?:per injector )?,?\s*in (?:Pa|K|m³\/s|m³|kg\/J)(?![\w/])[:;,]?\s*/g, ' ')

@@ -1,5 +1,5 @@
 import { Button } from '../../../../components/Button';
-import { planColour, planMarker } from '../../../../components/plots/style';
+import { PlanSwatch } from '../../../../components/study/PlanSwatch';
 import type { MapListItem } from '../../api/get-team-maps';
 import { getIn, newPlanId } from '../../lib/draft';
 import { useEditor } from './context';
@@ -7,27 +7,7 @@ import { ExhaustFields } from './ExhaustFields';
 import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from './fields';
 import { FieldRow, Section } from './Section';
 
-type Plan = { id: string; name: string; turbochargers: number; compressorEfficiency: number; maxShaftSpeed?: number; compressorMapId: string | null; turbineMapId?: string | null };
-
-const MARKER_PATHS: Record<string, string> = {
-  circle: 'M6 1a5 5 0 1 0 0.001 0z',
-  square: 'M1.5 1.5h9v9h-9z',
-  diamond: 'M6 0.5 11.5 6 6 11.5 0.5 6z',
-  'triangle-up': 'M6 1 11 10.5H1z',
-  'triangle-down': 'M6 11 11 1.5H1z',
-  cross: 'M4 0.5h4v3.5h3.5v4H8v3.5H4V8H0.5V4H4z',
-  x: 'M2 0.5 6 4.5 10 0.5 11.5 2 7.5 6l4 4-1.5 1.5-4-4-4 4L0.5 10l4-4-4-4z',
-  star: 'M6 0.5l1.6 3.6 3.9.4-2.9 2.6.8 3.9L6 9l-3.4 2 .8-3.9L.5 4.5l3.9-.4z',
-};
-
-/** The colour and marker a plan is drawn with, so the form and the plots read together. */
-export function PlanSwatch({ index }: { index: number }) {
-  return (
-    <svg aria-hidden="true" width="14" height="14" viewBox="0 0 12 12" className="shrink-0">
-      <path d={MARKER_PATHS[planMarker(index)] ?? MARKER_PATHS.circle} fill={planColour(index)} stroke="#2b2b2b" strokeWidth="0.6" />
-    </svg>
-  );
-}
+type Plan = { id: string; name: string; turbochargers: number; compressorEfficiency: number; offMapEfficiency?: number; maxShaftSpeed?: number; compressorMapId: string | null; turbineMapId?: string | null };
 
 export function PlansSection({
   maps,
@@ -71,8 +51,22 @@ export function PlansSection({
           />
           <FieldRow>
             <CountField path={['plans', pi, 'turbochargers']} label="Turbochargers" />
-            <NumberField path={['plans', pi, 'compressorEfficiency']} label="Default efficiency" quantity="fraction" hint="Used where the map gives none." />
+            <NumberField path={['plans', pi, 'compressorEfficiency']} label="Default efficiency" quantity="fraction" hint="Used without a map, and below the map’s lowest speed line." />
           </FieldRow>
+          <NumberField
+            path={['plans', pi, 'offMapEfficiency']}
+            label="Off-map efficiency (assumption)"
+            quantity="fraction"
+            optional
+            testId={`plan-${pi}-off-map-efficiency`}
+            hint={
+              <>
+                Empty: points past choke, above the map or outside its speed lines are not reachable and give no results. Set, they are computed on
+                this efficiency, and the findings name the assumption. It never covers surge or overspeed: those stay limits. Use it only with the
+                turbocharger maker’s word that the wheel runs there.
+              </>
+            }
+          />
           <NumberField path={['plans', pi, 'maxShaftSpeed']} label="Max wheel speed" quantity="speed" optional hint="Empty: the map's rated speed; the lower of the two applies." />
           <ExhaustFields planIndex={pi} turbineMaps={turbineMaps} turbineMapsError={turbineMapsError} />
           {!editor.readOnly && (

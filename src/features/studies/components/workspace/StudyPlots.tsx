@@ -6,12 +6,13 @@ import { PlotPlaceholder } from '../../../../components/plots/Plot';
 import { TurbineMapPlot } from '../../../../components/plots/TurbineMapPlot';
 import { ExhaustSummary } from '../../../../components/study/ExhaustSummary';
 import { FindingsList } from '../../../../components/study/FindingsList';
+import { PlanSwatch } from '../../../../components/study/PlanSwatch';
 import { findPoint, mapLineViews, turbineLineViews, type PointRef } from '../../../../components/study/lines';
+import { PlanVerdicts } from '../../../../components/study/PlanVerdicts';
 import { ResultsTable } from '../../../../components/study/ResultsTable';
 import { RpmCurves } from '../../../../components/study/RpmCurves';
 import { WorkingPanel } from '../../../../components/study/WorkingPanel';
 import type { UnitSystem } from '../../../../lib/units';
-import { PlanSwatch } from '../editor/PlansSection';
 import type { Computed } from './use-study-editor';
 
 const MemoMap = memo(CompressorMapPlot);
@@ -19,9 +20,10 @@ const MemoTurbineMap = memo(TurbineMapPlot);
 const MemoCurves = memo(RpmCurves);
 const MemoTable = memo(ResultsTable);
 const MemoFindings = memo(FindingsList);
+const MemoVerdicts = memo(PlanVerdicts);
 
 /**
- * The centre of the study page: the compressor map with the operating lines, the findings and
+ * The centre of the study page: the verdict of each plan first, then the compressor map with the operating lines, the findings and
  * the Working of the selected point, the curves against rpm and the results table. Everything
  * here follows `computed`, which the page recomputes on every valid edit.
  */
@@ -113,6 +115,9 @@ export function StudyPlots({
 
   return (
     <div className={`space-y-5 transition-opacity ${stale ? 'opacity-60' : ''}`} aria-busy={stale}>
+      <Card>
+        <MemoVerdicts lines={(later ?? computed).lines} selected={selected} onSelect={select} />
+      </Card>
       <Card
         title="Compressor map"
         data-testid="study-map"
@@ -157,8 +162,10 @@ export function StudyPlots({
               {p.name}
             </span>
           ))}
-          <span>· scenarios by line dash · a red outline marks a point past a limit</span>
         </div>
+        <p className="mb-2 text-xs text-ink-soft">
+          Scenarios by line dash. A red outline marks a point at a limit, copper a warning; a hollow, crossed point is not reachable with this compressor.
+        </p>
         <MemoMap
           map={drawnMap && drawnMap.kind === 'compressor' ? drawnMap : null}
           lines={mapLines}

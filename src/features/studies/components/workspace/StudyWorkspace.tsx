@@ -29,6 +29,7 @@ import { EngineSection } from '../editor/EngineSection';
 import { FuelSection } from '../editor/FuelSection';
 import { NotesSection } from '../editor/NotesSection';
 import { PlansSection } from '../editor/PlansSection';
+import { RequirementsSection } from '../editor/RequirementsSection';
 import { ScenariosSection } from '../editor/ScenariosSection';
 import { TitleDialog } from '../TitleDialog';
 import { ConflictDialog } from './ConflictDialog';
@@ -261,6 +262,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
               turbineMaps={turbineLibrary.data}
               turbineMapsError={turbineLibrary.isError ? turbineLibrary.error.message : null}
             />
+            <RequirementsSection />
             <NotesSection />
           </aside>
         </div>
