@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { ISA_MIN_HEIGHT, ISA_TROPOPAUSE_HEIGHT, ISA_SEA_LEVEL_PRESSURE, ISA_SEA_LEVEL_TEMPERATURE, fuelProperties, type FuelChoice } from '../physics';
 import { resolveAmbient } from '../matching/ambient';
 import { MAX_RPM_POINTS, rpmPointCount } from '../matching/rpm-table';
+import { REQUIREMENT_DEFAULTS } from '../matching/requirements';
 import type { AmbientInput, StudyInput } from '../matching/types';
 
 /** Most points one compute request may carry. */
@@ -151,11 +152,18 @@ export const requirementsSchema = z
     maxCompressorOutletTemperature: temperature('maxCompressorOutletTemperature', 300, 700).optional(),
     lambdaWarningUnderBoost: num('lambdaWarningUnderBoost').min(0.5, 'lambdaWarningUnderBoost must be at least 0.5').max(2, 'lambdaWarningUnderBoost must be at most 2').optional(),
     lambdaLimitUnderBoost: num('lambdaLimitUnderBoost').min(0.5, 'lambdaLimitUnderBoost must be at least 0.5').max(2, 'lambdaLimitUnderBoost must be at most 2').optional(),
-    underBoostFrom: num('underBoostFrom').min(0, 'underBoostFrom is gauge pressure in Pa, 0 or more').max(500_000, 'underBoostFrom is gauge pressure in Pa (10 kPa = 10 000 Pa); at most 500 000').optional(),
+    underBoostFrom: num('underBoostFrom').min(0, 'underBoostFrom is gauge pressure in Pa, 0 or more').max(500_000, 'underBoostFrom is gauge pressure in Pa (10 kPa = 10 000 Pa); at most 500 000 Pa').optional(),
   })
   .superRefine((r, ctx) => {
-    if (isNum(r.lambdaWarningUnderBoost) && isNum(r.lambdaLimitUnderBoost) && r.lambdaWarningUnderBoost > r.lambdaLimitUnderBoost)
-      ctx.addIssue({ code: 'custom', path: ['lambdaWarningUnderBoost'], message: 'the lambda warning must be at or below the lambda limit' });
+    // Either one may be left to its default: compare what will apply.
+    const warning = r.lambdaWarningUnderBoost ?? REQUIREMENT_DEFAULTS.lambdaWarningUnderBoost;
+    const limit = r.lambdaLimitUnderBoost ?? REQUIREMENT_DEFAULTS.lambdaLimitUnderBoost;
+    if (isNum(warning) && isNum(limit) && warning > limit)
+      ctx.addIssue({
+        code: 'custom',
+        path: [r.lambdaWarningUnderBoost !== undefined ? 'lambdaWarningUnderBoost' : 'lambdaLimitUnderBoost'],
+        message: `the lambda warning (${warning}) must be at or below the lambda limit (${limit})`,
+      });
   });
 
 // ——— POST /api/compute ———
