@@ -162,7 +162,7 @@ export const requirementsSchema = z
       ctx.addIssue({
         code: 'custom',
         path: [r.lambdaWarningUnderBoost !== undefined ? 'lambdaWarningUnderBoost' : 'lambdaLimitUnderBoost'],
-        message: `the lambda warning (${warning}) must be at or below the lambda limit (${limit})`,
+        message: 'the lambda warning must be at or below the lambda limit',
       });
   });
 
