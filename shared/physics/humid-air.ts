@@ -54,17 +54,17 @@ export function saturationVapourPressure(temperature: number): number {
 /**
  * Humidity ratio W, kg of water per kg of dry air, of air at a temperature (K), pressure (Pa) and
  * relative humidity (fraction 0–1): W = ε·p_w/(p − p_w) with p_w = RH·p_ws(T) (ASHRAE 2017 ch. 1
- * eqs. 12, 20 and 24; psychrolib GetHumRatioFromRelHum). Exactly 0 for dry air (psychrolib itself
- * never returns less than 1e-7). NaN when the vapour pressure would reach the air's pressure: no
- * such air exists (hot and thin air at altitude cannot be that humid).
+ * eqs. 12, 20 and 24), p_ws from psychrolib. The same as psychrolib's GetHumRatioFromRelHum, except
+ * that it is exactly 0 for dry air and not held at psychrolib's floor of 1e-7 for very dry air.
+ * NaN when the vapour pressure would reach the air's pressure: no such air exists (hot and thin
+ * air at altitude cannot be that humid).
  */
 export function humidityRatioFromRelativeHumidity(temperature: number, pressure: number, relativeHumidity: number): number {
   if (relativeHumidity === 0) return 0;
   if (!(relativeHumidity > 0 && relativeHumidity <= 1) || !(pressure > 0)) return Number.NaN;
   const vapourPressure = relativeHumidity * saturationVapourPressure(temperature);
   if (!(vapourPressure < pressure)) return Number.NaN;
-  useSi();
-  return psychrolib.GetHumRatioFromRelHum(temperature - 273.15, relativeHumidity, pressure);
+  return (WATER_TO_AIR_MOLAR_MASS * vapourPressure) / (pressure - vapourPressure);
 }
 
 /** Gas constant, cp and γ of humid air of humidity ratio W (kg/kg): see the module note. Dry air at W = 0. */
