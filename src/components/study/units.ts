@@ -148,3 +148,15 @@ export function parseTypedNumber(raw: string): { ok: true; value: number } | { o
   const value = Number(t);
   return Number.isFinite(value) ? { ok: true, value } : { ok: false, message: 'That number is too large.' };
 }
+
+/**
+ * A pressure loss as a study states it, in the user's units: "15 kPa at 0.38 kg/s and
+ * 0.29 kg/m³" when it follows the flow, "12 kPa at every flow" when it is fixed.
+ */
+export function formatPressureLoss(loss: { pressureLoss: number; referenceMassFlow?: number; referenceDensity?: number } | undefined, system: UnitSystem): string {
+  if (!loss || typeof loss !== 'object') return '—';
+  const dp = formatStudyValue(loss.pressureLoss, 'pressure', system);
+  if (loss.referenceMassFlow === undefined) return `${dp} at every flow`;
+  const density = loss.referenceDensity === undefined ? `${formatStudyValue(1.225, 'density', system)} (standard air)` : formatStudyValue(loss.referenceDensity, 'density', system);
+  return `${dp} at ${formatStudyValue(loss.referenceMassFlow, 'massFlow', system)} and ${density}`;
+}

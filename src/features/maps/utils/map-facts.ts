@@ -1,6 +1,6 @@
 import { mapValueFromSI } from '../../../../shared/maps/units';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../../shared/maps/types';
-import { TURBINE_EFFICIENCY_KIND_WORDS, type TurbineEfficiencyKind } from '../../../../shared/maps/format';
+import { turbineEfficiencyKindMeaning } from '../../../../shared/maps/format';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, unitLabel } from '../../../components/plots/quantities';
 import { fromSI } from '../../../../shared/units';
 import { displayUnitOf, type UnitSystem } from '../../../lib/units';
@@ -68,13 +68,6 @@ function compressorFacts(map: CompressorMap, system: UnitSystem): MapFact[] {
   ];
 }
 
-/** What a turbine map's efficiency counts, in words (shared with the study editor's exhaust block). */
-export function turbineEfficiencyKindWords(kind: TurbineEfficiencyKind | null | undefined): string {
-  if (kind === 'with-bearing-losses') return `${TURBINE_EFFICIENCY_KIND_WORDS['with-bearing-losses']}: the bearings' losses are in it, so a plan's mechanical efficiency is not applied again`;
-  if (kind === 'aerodynamic') return `${TURBINE_EFFICIENCY_KIND_WORDS.aerodynamic}: a plan's mechanical efficiency takes the bearings' share`;
-  return "not stated: read as aerodynamic only, a plan's mechanical efficiency takes the bearings' share";
-}
-
 function turbineFacts(map: TurbineMap): MapFact[] {
   const points = map.curves.flatMap((c) => c.points);
   const ratios = range(points.map((p) => p.expansionRatio));
@@ -83,7 +76,7 @@ function turbineFacts(map: TurbineMap): MapFact[] {
   return [
     { term: 'Housing', value: housing },
     { term: 'A/R', value: map.areaRatio !== null ? formatNumber(map.areaRatio) : 'not given' },
-    { term: 'Efficiency', value: turbineEfficiencyKindWords(map.efficiencyKind) },
+    { term: 'Efficiency', value: turbineEfficiencyKindMeaning(map.efficiencyKind) },
     { term: 'Speed lines', value: lineSpeeds(map.curves.map((c) => c.points.find((p) => p.speed !== null)?.speed ?? null)) },
     ...(ratios ? [{ term: 'Expansion ratio', value: `${formatNumber(ratios.min)} to ${formatNumber(ratios.max)}` }] : []),
     { term: 'Flow parameter in the file', value: unitLabel(map.fileUnits.flowParameterUnit) },
