@@ -34,6 +34,9 @@ const R_UNIT = 'J/(kg K)';
 const HUMID_SOURCE = 'ASHRAE Handbook Fundamentals 2017, ch. 1 (eqs. 20, 24 and 32; saturation pressure eqs. 5–6 through psychrolib)';
 const LOSS_SOURCE = 'Duct loss Δp ∝ ṁ²/ρ (constant loss coefficient, incompressible duct flow)';
 
+/** The ideal-gas source: ISO 2533's dry-air R, or the humid charge's. */
+const idealGasSource = (ctx: LineContext) => (ctx.air.humidityRatio > 0 ? `Ideal-gas law, R of the humid charge (${HUMID_SOURCE})` : SOURCES.idealGas);
+
 /** What the air is in the Working: "humid air" when it holds water. */
 const chargeWords = (ctx: LineContext) => (ctx.air.humidityRatio > 0 ? 'humid air' : 'dry air');
 
@@ -394,7 +397,7 @@ function airflowSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       'p_man / (R * T_man)',
       [wv('p_man', v.manifoldPressure, 'pressure'), wv('R', ctx.air.gasConstant, 'none', R_UNIT), wv('T_man', v.manifoldTemperature, 'temperature')],
       wv('rho_man', v.airDensity, 'density'),
-      SOURCES.idealGas,
+      idealGasSource(ctx),
     ),
     step(
       'engine-airflow',
@@ -427,7 +430,7 @@ function airflowSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       'p_1 / (R * T_1)',
       [wv('p_1', v.compressorInletPressure, 'pressure'), wv('R', ctx.air.gasConstant, 'none', R_UNIT), wv('T_1', v.compressorInletTemperature, 'temperature')],
       wv('rho_1', v.inletDensity, 'density'),
-      SOURCES.idealGas,
+      idealGasSource(ctx),
     ),
     step(
       'inlet-volume-flow',

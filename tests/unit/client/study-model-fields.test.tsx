@@ -46,10 +46,10 @@ describe('the study editor’s new inputs', () => {
     );
     const inlet = within(screen.getByTestId('loss-inlet'));
     // 0.34 kg/s × 60/0.45359237 = 44.974 lb/min (NIST SP 811 pound); the demo's own reference flow.
-    expect((inlet.getByLabelText('Measured at an engine air flow of') as HTMLInputElement).value).toBe('44.974');
-    type(inlet.getByLabelText('Measured at an engine air flow of'), '40');
+    expect((inlet.getByLabelText('At engine air flow') as HTMLInputElement).value).toBe('44.974');
+    type(inlet.getByLabelText('At engine air flow'), '40');
     expect((draft.losses as { inlet: { referenceMassFlow: number } }).inlet.referenceMassFlow).toBeCloseTo((40 * 0.45359237) / 60, 12); // lb/min → kg/s
-    type(inlet.getByLabelText('Measured at an engine air flow of'), '');
+    type(inlet.getByLabelText('At engine air flow'), '');
     expect((draft.losses as { inlet: unknown }).inlet).toEqual({ pressureLoss: 2500 }); // the same loss at every flow, density gone too
     expect(inlet.queryByLabelText('Density of the air then')).toBeNull();
     expect(valid(draft)).toBe(true);
@@ -125,7 +125,7 @@ describe('the study editor’s new inputs', () => {
     fireEvent.change(screen.getByLabelText('Turbine map'), { target: { value: 'team-map' } });
     expect(screen.getByTestId('plan-0-turbine-efficiency-kind').textContent).toMatch(/not stated, read as aerodynamic only/);
     const loss = within(screen.getByTestId('plan-0-downstream-loss'));
-    type(loss.getByLabelText('Measured at an engine exhaust flow of'), '0.3');
+    type(loss.getByLabelText('At engine exhaust flow'), '0.3');
     type(loss.getByLabelText('Density of the exhaust gas then'), '0.3');
     expect((draft.plans as { exhaust: { downstreamLoss: unknown } }[])[0].exhaust.downstreamLoss).toEqual({ pressureLoss: 15_000, referenceMassFlow: 0.3, referenceDensity: 0.3 });
     expect(valid(draft)).toBe(true);

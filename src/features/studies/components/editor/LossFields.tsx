@@ -23,7 +23,7 @@ export function LossFields({ path, label, hint, flow, testId }: { path: DocPath;
       <FieldRow>
         <NumberField path={[...path, 'pressureLoss']} label={label} quantity="pressure" hint={hint} />
         <UnitNumberInput
-          label={`Measured at an engine ${flow} flow of`}
+          label={`At engine ${flow} flow`}
           value={loss?.referenceMassFlow}
           onChange={(si) => {
             const { referenceMassFlow: _flow, referenceDensity: _density, ...rest } = loss ?? { pressureLoss: 0 };
@@ -32,7 +32,7 @@ export function LossFields({ path, label, hint, flow, testId }: { path: DocPath;
           quantity="massFlow"
           optional
           error={issue ? localizeIssue(issue, 'massFlow', editor.unitSystem) : null}
-          hint={follows ? 'The loss follows the flow: flow² over density.' : 'Empty: the same loss at every flow. Give the flow it was measured at to have it follow the flow.'}
+          hint={follows ? 'The engine flow the loss was measured at: it follows the flow, flow² over density.' : 'Empty: the same loss at every flow. Give the engine flow it was measured at to have it follow the flow.'}
           readOnly={editor.readOnly}
           unitSystem={editor.unitSystem}
         />
