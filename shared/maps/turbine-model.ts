@@ -1,4 +1,4 @@
-import type { TurbineAtSpeed, TurbineModel, TurbineReading, TurbineSpeedBasis } from '../matching/exhaust-model';
+import type { TurbineAtSpeed, TurbineModel, TurbineReading } from '../matching/exhaust-model';
 import { criticalPressureRatio } from '../physics/gas';
 import { TURBINE_GAS } from '../physics/turbine';
 import { orificeFlowFunction } from '../physics/wastegate';
@@ -42,7 +42,7 @@ export function turbineModelFromMap(map: TurbineMap): TurbineModel {
   const fp = Float64Array.from(nodes.flowParameter, (x) => x * divisor);
   const eta = nodes.efficiency === null ? null : Float64Array.from(nodes.efficiency);
   const shape = curveShape(er);
-  const mean = curveReader(shape, fp, eta);
+  const mean = new CurveReader(shape, fp, fp, eta, eta, 0);
   const lines = speedLineRows(map, nodes, divisor);
   const speeds = lines.map((l) => l.speed);
 
@@ -63,8 +63,8 @@ export function turbineModelFromMap(map: TurbineMap): TurbineModel {
     mapFlowParameterDivisor: divisor,
     capacityRule: rule,
     speedLines: speeds,
-    expansionRatioForFlow: mean.expansionRatioForFlow,
-    read: mean.read,
+    expansionRatioForFlow: (reducedFlow: number) => mean.expansionRatioForFlow(reducedFlow),
+    read: (expansionRatio: number) => mean.read(expansionRatio),
     atSpeed: lines.length === 0 ? undefined : (shaftSpeed: number) => readerAtSpeed(shape, lines, shaftSpeed),
   };
 }
@@ -113,57 +113,138 @@ function intervalOf(values: Float64Array, x: number): number {
   return lo;
 }
 
-/** Reading and inverse of one curve on the map's nodes (flow parameter non-decreasing). */
-function curveReader(shape: CurveShape, fp: Float64Array, eta: Float64Array | null): Pick<TurbineModel, 'read'> & { expansionRatioForFlow(reducedFlow: number): number } {
-  const { er, n, erMin, erMax, phiAtFirst, exponent: b, subsonicConstant, chokedPhi, chokedRatio } = shape;
-  const hasEfficiency = eta !== null;
-  // For the inverse: the reduced flow FP·ER at each node (increasing), and the nozzle below the map.
-  const q = Float64Array.from(er, (x, i) => x * fp[i]);
-  const nozzleScale = phiAtFirst > 0 ? fp[0] / phiAtFirst : 0;
-  const etaFirst = hasEfficiency ? eta[0] : null;
-  const etaLast = hasEfficiency ? eta[n - 1] : null;
-  return {
-    expansionRatioForFlow(reducedFlow: number): number {
-      if (!(reducedFlow > 0)) return 1;
-      if (reducedFlow >= q[n - 1]) return fp[n - 1] > 0 ? reducedFlow / fp[n - 1] : Infinity;
-      if (reducedFlow <= q[0]) {
-        if (!(nozzleScale > 0)) return erMin;
-        // ER·Φ(1/ER) = K. Subsonic: Φ = C·√(r^(2/γ) − r^((γ+1)/γ)), so ER·Φ = C·√(u² − u) with
-        // u = ER^((γ−1)/γ): a quadratic in u. Choked: Φ is constant and ER = K/Φ*.
-        const k = reducedFlow / nozzleScale;
-        const w = k / subsonicConstant;
-        const u = (1 + Math.sqrt(1 + 4 * w * w)) / 2;
-        const subsonic = Math.pow(u, 1 / b);
-        return Math.min(erMin, subsonic <= chokedRatio ? subsonic : k / chokedPhi);
-      }
-      const lo = intervalOf(q, reducedFlow);
-      const hi = lo + 1;
-      // On the segment FP = FP_lo + s·(ER − ER_lo), so FP·ER = s·ER² + β·ER: the positive root.
-      const slope = (fp[hi] - fp[lo]) / (er[hi] - er[lo]);
-      const beta = fp[lo] - slope * er[lo];
-      const root = (2 * reducedFlow) / (beta + Math.sqrt(beta * beta + 4 * slope * reducedFlow));
-      return Math.min(er[hi], Math.max(er[lo], root));
-    },
-    read(expansionRatio: number): TurbineReading {
-      if (!(expansionRatio > 1)) return { flowParameter: 0, efficiency: etaFirst, location: 'below-map' };
-      if (expansionRatio < erMin) {
-        // Φ(1/ER) of the nozzle, written with u = ER^((γ−1)/γ): one power instead of two.
-        const u = Math.pow(expansionRatio, b);
-        const phi = expansionRatio >= chokedRatio ? chokedPhi : (subsonicConstant * Math.sqrt(Math.max(0, u * u - u))) / expansionRatio;
-        return { flowParameter: nozzleScale > 0 ? nozzleScale * phi : fp[0], efficiency: etaFirst, location: 'below-map' };
-      }
-      if (expansionRatio > erMax) return { flowParameter: fp[n - 1], efficiency: etaLast, location: 'above-map' };
-      if (n === 1) return { flowParameter: fp[0], efficiency: etaFirst, location: 'inside' };
-      const lo = intervalOf(er, expansionRatio);
-      const hi = lo + 1;
-      const t = (expansionRatio - er[lo]) / (er[hi] - er[lo]);
-      return {
-        flowParameter: fp[lo] + t * (fp[hi] - fp[lo]),
-        efficiency: hasEfficiency ? eta[lo] + t * (eta[hi] - eta[lo]) : null,
-        location: 'inside',
-      };
-    },
-  };
+/**
+ * Reading and inverse of one curve on the map's nodes: a straight blend, in speed, of two rows of
+ * node values (the same row twice for the mean curve). Each row's flow parameter never falls as
+ * ER rises, so neither does the blend, and each flow has one ratio. Nothing is allocated per
+ * blend: the exhaust side builds one for every trial shaft speed.
+ */
+class CurveReader {
+  private readonly etaA: Float64Array | null;
+  private readonly etaB: Float64Array | null;
+  constructor(
+    protected readonly shape: CurveShape,
+    private readonly fpA: Float64Array,
+    private readonly fpB: Float64Array,
+    etaA: Float64Array | null,
+    etaB: Float64Array | null,
+    private readonly w: number,
+  ) {
+    // A row without efficiency gives way to the other.
+    this.etaA = etaA ?? etaB;
+    this.etaB = etaB ?? etaA;
+  }
+
+  /** Flow parameter at node j. */
+  private fp(j: number): number {
+    const a = this.fpA[j];
+    return this.w === 0 ? a : a + this.w * (this.fpB[j] - a);
+  }
+
+  /** Efficiency at node j; null when neither row gives one. */
+  private eta(j: number): number | null {
+    const a = this.etaA;
+    if (a === null) return null;
+    return this.w === 0 ? a[j] : a[j] + this.w * (this.etaB![j] - a[j]);
+  }
+
+  private nozzleScale(): number {
+    return this.shape.phiAtFirst > 0 ? this.fp(0) / this.shape.phiAtFirst : 0;
+  }
+
+  expansionRatioForFlow(reducedFlow: number): number {
+    const { er, n, erMin, exponent: b, subsonicConstant, chokedPhi, chokedRatio } = this.shape;
+    if (!(reducedFlow > 0)) return 1;
+    const fpLast = this.fp(n - 1);
+    if (reducedFlow >= er[n - 1] * fpLast) return fpLast > 0 ? reducedFlow / fpLast : Infinity;
+    if (reducedFlow <= er[0] * this.fp(0)) {
+      const nozzleScale = this.nozzleScale();
+      if (!(nozzleScale > 0)) return erMin;
+      // ER·Φ(1/ER) = K. Subsonic: Φ = C·√(r^(2/γ) − r^((γ+1)/γ)), so ER·Φ = C·√(u² − u) with
+      // u = ER^((γ−1)/γ): a quadratic in u. Choked: Φ is constant and ER = K/Φ*.
+      const k = reducedFlow / nozzleScale;
+      const w = k / subsonicConstant;
+      const u = (1 + Math.sqrt(1 + 4 * w * w)) / 2;
+      const subsonic = Math.pow(u, 1 / b);
+      return Math.min(erMin, subsonic <= chokedRatio ? subsonic : k / chokedPhi);
+    }
+    // The node interval whose reduced flow FP·ER holds the flow (it rises node to node).
+    let lo = 0;
+    let hi = n - 1;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (er[mid] * this.fp(mid) <= reducedFlow) lo = mid;
+      else hi = mid;
+    }
+    hi = lo + 1;
+    const fpLo = this.fp(lo);
+    // On the segment FP = FP_lo + s·(ER − ER_lo), so FP·ER = s·ER² + β·ER: the positive root.
+    const slope = (this.fp(hi) - fpLo) / (er[hi] - er[lo]);
+    const beta = fpLo - slope * er[lo];
+    const root = (2 * reducedFlow) / (beta + Math.sqrt(beta * beta + 4 * slope * reducedFlow));
+    return Math.min(er[hi], Math.max(er[lo], root));
+  }
+
+  read(expansionRatio: number): TurbineReading {
+    const { er, n, erMin, erMax, exponent: b, subsonicConstant, chokedPhi, chokedRatio } = this.shape;
+    if (!(expansionRatio > 1)) return { flowParameter: 0, efficiency: this.eta(0), location: 'below-map' };
+    if (expansionRatio < erMin) {
+      // Φ(1/ER) of the nozzle, written with u = ER^((γ−1)/γ): one power instead of two.
+      const u = Math.pow(expansionRatio, b);
+      const phi = expansionRatio >= chokedRatio ? chokedPhi : (subsonicConstant * Math.sqrt(Math.max(0, u * u - u))) / expansionRatio;
+      const nozzleScale = this.nozzleScale();
+      return { flowParameter: nozzleScale > 0 ? nozzleScale * phi : this.fp(0), efficiency: this.eta(0), location: 'below-map' };
+    }
+    if (expansionRatio > erMax) return { flowParameter: this.fp(n - 1), efficiency: this.eta(n - 1), location: 'above-map' };
+    if (n === 1) return { flowParameter: this.fp(0), efficiency: this.eta(0), location: 'inside' };
+    const lo = intervalOf(er, expansionRatio);
+    const hi = lo + 1;
+    const t = (expansionRatio - er[lo]) / (er[hi] - er[lo]);
+    const fpLo = this.fp(lo);
+    const etaLo = this.eta(lo);
+    return {
+      flowParameter: fpLo + t * (this.fp(hi) - fpLo),
+      efficiency: etaLo === null ? null : etaLo + t * (this.eta(hi)! - etaLo),
+      location: 'inside',
+    };
+  }
+}
+
+/** The map at one shaft speed: the curve between the two lines around it, and how the speed was used. */
+class SpeedReader extends CurveReader implements TurbineAtSpeed {
+  constructor(
+    shape: CurveShape,
+    private readonly lower: SpeedLineRow,
+    private readonly upper: SpeedLineRow,
+    weight: number,
+    readonly speedBasis: TurbineAtSpeed['speedBasis'],
+    readonly shaftSpeed: number,
+  ) {
+    super(shape, lower.fp, upper.fp, lower.eta, upper.eta, weight);
+  }
+
+  get lowerSpeed(): number {
+    return this.lower.speed;
+  }
+
+  get upperSpeed(): number {
+    return this.upper.speed;
+  }
+
+  linesAt(expansionRatio: number): { lowerEfficiency: number | null; upperEfficiency: number | null } {
+    return { lowerEfficiency: this.onLine(this.lower, expansionRatio), upperEfficiency: this.onLine(this.upper, expansionRatio) };
+  }
+
+  /** One line's efficiency at a ratio, held at the map's ends. */
+  private onLine(row: SpeedLineRow, x: number): number | null {
+    const { er, n, erMin, erMax } = this.shape;
+    if (!row.eta) return null;
+    if (!(x > erMin)) return row.eta[0];
+    if (x >= erMax) return row.eta[n - 1];
+    const lo = intervalOf(er, x);
+    const t = (x - er[lo]) / (er[lo + 1] - er[lo]);
+    return row.eta[lo] + t * (row.eta[lo + 1] - row.eta[lo]);
+  }
 }
 
 /** One speed line read at every node of the map (see turbineModelFromMap): flow parameter with the divisor applied. */
@@ -209,6 +290,8 @@ function speedLineRows(map: TurbineMap, nodes: CapacityNodes, divisor: number): 
         if (eta) eta[j] = etas![i] + t * (etas![k] - etas![i]);
       }
       fp[j] *= divisor;
+      // Kept from falling as ER rises, like the mean curve: then any blend of two rows is too.
+      if (j > 0 && fp[j] < fp[j - 1]) fp[j] = fp[j - 1];
     });
     rows.push({ speed, fp, eta });
   }
@@ -218,52 +301,13 @@ function speedLineRows(map: TurbineMap, nodes: CapacityNodes, divisor: number): 
 /** The map at one shaft speed (rpm): the two lines around it joined by a straight line in speed. */
 function readerAtSpeed(shape: CurveShape, lines: SpeedLineRow[], shaftSpeed: number): TurbineAtSpeed {
   const m = lines.length;
-  let lower = 0;
+  if (!(shaftSpeed >= lines[0].speed)) return new SpeedReader(shape, lines[0], lines[0], 0, 'held-at-lowest-line', shaftSpeed);
+  if (shaftSpeed > lines[m - 1].speed) return new SpeedReader(shape, lines[m - 1], lines[m - 1], 0, 'held-at-top-line', shaftSpeed);
   let upper = 0;
-  let weight = 0;
-  let basis: TurbineSpeedBasis;
-  if (!(shaftSpeed >= lines[0].speed)) {
-    basis = 'held-at-lowest-line';
-  } else if (shaftSpeed > lines[m - 1].speed) {
-    basis = 'held-at-top-line';
-    lower = upper = m - 1;
-  } else {
-    basis = 'speed-lines';
-    while (upper < m - 1 && lines[upper].speed < shaftSpeed) upper++;
-    lower = upper > 0 && lines[upper].speed > shaftSpeed ? upper - 1 : upper;
-    weight = upper === lower ? 0 : (shaftSpeed - lines[lower].speed) / (lines[upper].speed - lines[lower].speed);
-  }
-  const a = lines[lower];
-  const b = lines[upper];
-  const n = shape.n;
-  const fp = new Float64Array(n);
-  for (let j = 0; j < n; j++) {
-    fp[j] = a.fp[j] + weight * (b.fp[j] - a.fp[j]);
-    if (j > 0 && fp[j] < fp[j - 1]) fp[j] = fp[j - 1];
-  }
-  let eta: Float64Array | null = null;
-  if (a.eta && b.eta) {
-    eta = new Float64Array(n);
-    for (let j = 0; j < n; j++) eta[j] = a.eta[j] + weight * (b.eta[j] - a.eta[j]);
-  } else eta = a.eta ?? b.eta;
-  const reader = curveReader(shape, fp, eta);
-  const onLine = (row: SpeedLineRow, x: number): number | null => {
-    if (!row.eta) return null;
-    if (!(x > shape.erMin)) return row.eta[0];
-    if (x >= shape.erMax) return row.eta[n - 1];
-    const lo = intervalOf(shape.er, x);
-    const t = (x - shape.er[lo]) / (shape.er[lo + 1] - shape.er[lo]);
-    return row.eta[lo] + t * (row.eta[lo + 1] - row.eta[lo]);
-  };
-  return {
-    read: reader.read,
-    expansionRatioForFlow: reader.expansionRatioForFlow,
-    speedBasis: basis,
-    shaftSpeed,
-    lowerSpeed: a.speed,
-    upperSpeed: b.speed,
-    linesAt: (x: number) => ({ lowerEfficiency: onLine(a, x), upperEfficiency: onLine(b, x) }),
-  };
+  while (upper < m - 1 && lines[upper].speed < shaftSpeed) upper++;
+  const lower = upper > 0 && lines[upper].speed > shaftSpeed ? upper - 1 : upper;
+  const weight = upper === lower ? 0 : (shaftSpeed - lines[lower].speed) / (lines[upper].speed - lines[lower].speed);
+  return new SpeedReader(shape, lines[lower], lines[upper], weight, 'speed-lines', shaftSpeed);
 }
 
 /** The collapsed curve as plain numbers (flow parameter as the file gives it, SI), for plots and tests. */

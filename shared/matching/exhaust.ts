@@ -15,7 +15,7 @@
  * not found is a finding, and the point keeps the safe end of the last bracket.
  */
 import { findRoot } from '../math/root';
-import { exhaustGasAt } from '../physics/exhaust-gas';
+import { exhaustGasConstants } from '../physics/exhaust-gas';
 import { scaledPressureLoss } from '../physics/losses';
 import { TURBINE_GAS, isentropicExpansionShare, type GasProperties } from '../physics/turbine';
 import { orificeMassFlux, valveArea, wastegateDiameterFor } from '../physics/wastegate';
@@ -272,8 +272,13 @@ function gatesWideOpen(g: ExhaustGas, ex: LineExhaustContext, shut: TurbineState
   return { ok: false, value: shut, reason: root.reason };
 }
 
-/** The last exhaust gas worked out per line: the held-boost search asks again at one speed's lambda and T3. */
-const gasMemo = new WeakMap<LineContext, { lambda: number | null; t3: number; gas: GasProperties }>();
+/**
+ * Exhaust gases already worked out, by what sets them: the held-boost search asks again at one
+ * speed's lambda and T3, and the lines of other plans and rows at the same speeds ask the same.
+ * Bounded: emptied when full.
+ */
+const gasCache = new Map<string, GasProperties>();
+const GAS_CACHE_SIZE = 4096;
 
 /**
  * The exhaust gas of a point at T3: the products of the fuel burnt at the point's lambda, with the
@@ -281,13 +286,15 @@ const gasMemo = new WeakMap<LineContext, { lambda: number | null; t3: number; ga
  * fuel and lambda (no fuel system), the lean gas-turbine pair of TURBINE_GAS.
  */
 function exhaustGasProperties(ctx: LineContext, lambda: number | null, t3: number): GasProperties {
-  const memo = gasMemo.get(ctx);
-  if (memo && memo.lambda === lambda && memo.t3 === t3) return memo.gas;
-  const gas: GasProperties =
-    ctx.fuel && lambda !== null
-      ? exhaustGasAt({ fuel: ctx.fuel.choice, lambda, temperature: t3, humidityRatio: ctx.air.humidityRatio, trappingEfficiency: ctx.engine.trappingEfficiency })
-      : TURBINE_GAS;
-  gasMemo.set(ctx, { lambda, t3, gas });
+  if (!ctx.fuel || lambda === null) return TURBINE_GAS;
+  const fuel = ctx.fuel.choice;
+  const key = `${fuel.kind}|${fuel.kind === 'ethanol-blend' ? fuel.ethanolPercent : ''}|${lambda}|${t3}|${ctx.air.humidityRatio}|${ctx.engine.trappingEfficiency}`;
+  let gas = gasCache.get(key);
+  if (!gas) {
+    gas = exhaustGasConstants({ fuel, lambda, temperature: t3, humidityRatio: ctx.air.humidityRatio, trappingEfficiency: ctx.engine.trappingEfficiency });
+    if (gasCache.size >= GAS_CACHE_SIZE) gasCache.clear();
+    gasCache.set(key, gas);
+  }
   return gas;
 }
 

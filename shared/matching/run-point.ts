@@ -27,7 +27,7 @@ export const EFFICIENCY_TOLERANCE = 1e-7;
 /** From this pass on, each new efficiency is averaged with the last to damp any back-and-forth at a map edge. */
 const DAMPING_FROM_PASS = 10;
 /** Losses that follow the flow have settled when the pressure ratio changes by less than this share between passes. */
-export const PRESSURE_RATIO_TOLERANCE = 1e-12;
+export const PRESSURE_RATIO_TOLERANCE = 1e-10;
 
 /** The inputs of one point that vary with rpm. */
 export interface PointOperation {

@@ -6,9 +6,9 @@
  * products as they are, after the water-gas shift (frozen composition); the short-circuit air's
  * oxygen is taken not to burn the rich products' CO and H2 in the manifold.
  */
-import { combustionProducts, fuelAtoms, mixtureProperties, NITROGEN_PER_OXYGEN, stoichiometricOxygen, type ExhaustGasProperties } from './combustion-products';
+import { combustionProducts, fuelAtoms, mixtureProperties, NITROGEN_PER_OXYGEN, stoichiometricOxygen, type ExhaustGasProperties, type ProductMoles } from './combustion-products';
 import type { FuelChoice } from './fuel';
-import { NASA_FITS } from './thermo-polynomials';
+import { molarHeatCapacity, NASA_FITS, UNIVERSAL_GAS_CONSTANT, type ExhaustSpecies } from './thermo-polynomials';
 
 export interface ExhaustGasConditions {
   fuel: FuelChoice;
@@ -22,8 +22,8 @@ export interface ExhaustGasConditions {
   trappingEfficiency?: number;
 }
 
-/** cp, R and γ of the gas at the turbine (see the module note). */
-export function exhaustGasAt(c: ExhaustGasConditions): ExhaustGasProperties {
+/** Moles per kg of fuel of the gas at the turbine (see the module note). */
+function exhaustMoles(c: ExhaustGasConditions): ProductMoles {
   const atoms = fuelAtoms(c.fuel);
   const moles = combustionProducts(atoms, c.lambda);
   const w = c.humidityRatio ?? 0;
@@ -39,5 +39,28 @@ export function exhaustGasAt(c: ExhaustGasConditions): ExhaustGasProperties {
     const dryAirMass = deliveredOxygen * (NASA_FITS.O2.molarMass + NITROGEN_PER_OXYGEN * NASA_FITS.N2.molarMass);
     moles.H2O += (w * dryAirMass) / NASA_FITS.H2O.molarMass;
   }
-  return mixtureProperties(moles, c.temperature);
+  return moles;
+}
+
+/** cp, R and γ of the gas at the turbine, with its composition (see the module note). */
+export function exhaustGasAt(c: ExhaustGasConditions): ExhaustGasProperties {
+  return mixtureProperties(exhaustMoles(c), c.temperature);
+}
+
+const SPECIES: readonly ExhaustSpecies[] = ['N2', 'O2', 'CO2', 'H2O', 'CO', 'H2'];
+
+/** The gas's constants alone, to the last digit the same as exhaustGasAt's (summed in the same order): the solver's inner loops. */
+export function exhaustGasConstants(c: ExhaustGasConditions): { cp: number; gasConstant: number; gamma: number } {
+  const moles = exhaustMoles(c);
+  let total = 0;
+  let mass = 0;
+  let heat = 0;
+  for (const s of SPECIES) {
+    total += moles[s];
+    mass += moles[s] * NASA_FITS[s].molarMass;
+    heat += moles[s] * molarHeatCapacity(s, c.temperature);
+  }
+  const cp = heat / mass;
+  const gasConstant = (UNIVERSAL_GAS_CONSTANT * total) / mass;
+  return { cp, gasConstant, gamma: cp / (cp - gasConstant) };
 }
