@@ -225,12 +225,30 @@ export function solvePoint(
     // A caller solving nearby boosts in turn starts from the last settled efficiency: fewer passes.
     if (efficiencyFromMap && options.startEfficiency !== undefined && options.startEfficiency > 0 && options.startEfficiency <= 1) efficiency = options.startEfficiency;
     const maxPasses = options.maxPasses !== undefined && options.maxPasses >= 1 ? Math.min(MAX_ITERATIONS, Math.floor(options.maxPasses)) : MAX_ITERATIONS;
+    // The manifold temperature the losses were last set at, and the pass before's, with how far
+    // the temperature each gave was from it: while the efficiency holds (nearly) still the losses settle
+    // by secant steps, far fewer passes than plain substitution takes.
+    let lossTemperature = fixedTemperature ?? t1;
+    let lastLossTemperature = Number.NaN;
+    let lastResidual = Number.NaN;
+    let lastEfficiency = Number.NaN;
     for (iterations = 1; iterations <= maxPasses; iterations++) {
       manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
       let pressuresSettled = true;
       if (lossesFollowFlow) {
+        const residual = manifoldTemperature - lossTemperature;
+        let next = manifoldTemperature;
+        if (Math.abs(efficiency - lastEfficiency) <= 1e-4 * efficiency && residual !== lastResidual && Number.isFinite(lastResidual)) {
+          const secant = lossTemperature - (residual * (lossTemperature - lastLossTemperature)) / (residual - lastResidual);
+          // A step that leaves the plausible range falls back to plain substitution.
+          if (secant > 0.5 * t1 && secant < 2 * manifoldTemperature) next = secant;
+        }
+        lastLossTemperature = lossTemperature;
+        lastResidual = residual;
+        lastEfficiency = efficiency;
         const before = pressureRatio;
-        setLosses(manifoldTemperature);
+        setLosses(next);
+        lossTemperature = next;
         pressuresSettled = Math.abs(pressureRatio - before) <= PRESSURE_RATIO_TOLERANCE * pressureRatio;
         manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
       }
