@@ -11,7 +11,7 @@ import { TURBINE_GAS, type GasProperties } from '../physics/turbine';
 import { orificeMassFlux } from '../physics/wastegate';
 import { lookupByRpm } from './rpm-table';
 import type { LineContext, PointValues } from './types';
-import { fmt, pct, SOURCES, step, wv, type WorkingStep } from './working';
+import { fmt, gammaStep, pct, SOURCES, step, wv, type WorkingStep } from './working';
 
 /** Sources of the exhaust steps. */
 export const EXHAUST_SOURCES = {
@@ -402,14 +402,13 @@ function exhaustGasSteps(ctx: LineContext, v: PointValues, t3: number, gas: GasP
       wv('R_e', gas.gasConstant, 'none', CP_UNIT),
       `${SOURCES.definition} (ideal gas; R_u CODATA 2018)`,
     ),
-    step(
+    gammaStep(
       'exhaust-gas-gamma',
       'Exhaust gas ratio of specific heats',
       'For an ideal gas cv = cp − R, so γ = cp/(cp − R). It sets how much of the heat an expansion through ER turns into work.',
-      'c_pe / (c_pe - R_e)',
-      [wv('c_pe', gas.cp, 'none', CP_UNIT), wv('R_e', gas.gasConstant, 'none', CP_UNIT)],
-      wv('gamma_e', gas.gamma, 'ratio'),
-      SOURCES.definition,
+      ['c_pe', gas.cp],
+      ['R_e', gas.gasConstant],
+      ['gamma_e', gas.gamma],
     ),
   ];
 }

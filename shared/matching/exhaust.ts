@@ -15,7 +15,7 @@
  * not found is a finding, and the point keeps the safe end of the last bracket.
  */
 import { findRoot } from '../math/root';
-import { exhaustGasConstants } from '../physics/exhaust-gas';
+import { exhaustGasAt } from '../physics/exhaust-gas';
 import { scaledPressureLoss } from '../physics/losses';
 import { TURBINE_GAS, isentropicExpansionShare, type GasProperties } from '../physics/turbine';
 import { orificeMassFlux, valveArea, wastegateDiameterFor } from '../physics/wastegate';
@@ -291,7 +291,8 @@ function exhaustGasProperties(ctx: LineContext, lambda: number | null, t3: numbe
   const key = `${fuel.kind}|${fuel.kind === 'ethanol-blend' ? fuel.ethanolPercent : ''}|${lambda}|${t3}|${ctx.air.humidityRatio}|${ctx.engine.trappingEfficiency}`;
   let gas = gasCache.get(key);
   if (!gas) {
-    gas = exhaustGasConstants({ fuel, lambda, temperature: t3, humidityRatio: ctx.air.humidityRatio, trappingEfficiency: ctx.engine.trappingEfficiency });
+    const products = exhaustGasAt({ fuel, lambda, temperature: t3, humidityRatio: ctx.air.humidityRatio, trappingEfficiency: ctx.engine.trappingEfficiency });
+    gas = { cp: products.cp, gasConstant: products.gasConstant, gamma: products.gamma };
     if (gasCache.size >= GAS_CACHE_SIZE) gasCache.clear();
     gasCache.set(key, gas);
   }

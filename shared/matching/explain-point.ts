@@ -28,7 +28,7 @@ import { exhaustSteps, heldBoostStep } from './exhaust-working';
 import { MAP_REGION_WORDS } from './reach';
 import { lookupByRpm } from './rpm-table';
 import type { LineContext, OperatingPoint, PointValues, RpmTable } from './types';
-import { fmt, kelvin, pct, SOURCES, step, wv, type WorkingKind, type WorkingStep } from './working';
+import { fmt, gammaStep, kelvin, pct, SOURCES, step, wv, type WorkingKind, type WorkingStep } from './working';
 
 const R_UNIT = 'J/(kg K)';
 const HUMID_SOURCE = 'ASHRAE Handbook Fundamentals 2017, ch. 1 (eqs. 20, 24 and 32; saturation pressure eqs. 5–6 through psychrolib)';
@@ -74,15 +74,7 @@ function humidSteps(ctx: LineContext): WorkingStep[] {
       wv('c_p', air.cp, 'none', R_UNIT),
       HUMID_SOURCE,
     ),
-    step(
-      'humid-gamma',
-      'Ratio of specific heats of the humid charge',
-      'For an ideal gas cv = cp − R.',
-      'c_p / (c_p - R)',
-      [wv('c_p', air.cp, 'none', R_UNIT), wv('R', air.gasConstant, 'none', R_UNIT)],
-      wv('gamma', air.gamma, 'ratio'),
-      SOURCES.definition,
-    ),
+    gammaStep('humid-gamma', 'Ratio of specific heats of the humid charge', 'For an ideal gas cv = cp − R.', ['c_p', air.cp], ['R', air.gasConstant], ['gamma', air.gamma]),
   ];
 }
 

@@ -8,7 +8,7 @@
  */
 import { combustionProducts, fuelAtoms, mixtureProperties, NITROGEN_PER_OXYGEN, stoichiometricOxygen, type ExhaustGasProperties, type ProductMoles } from './combustion-products';
 import type { FuelChoice } from './fuel';
-import { molarHeatCapacity, NASA_FITS, UNIVERSAL_GAS_CONSTANT, type ExhaustSpecies } from './thermo-polynomials';
+import { NASA_FITS } from './thermo-polynomials';
 
 export interface ExhaustGasConditions {
   fuel: FuelChoice;
@@ -45,22 +45,4 @@ function exhaustMoles(c: ExhaustGasConditions): ProductMoles {
 /** cp, R and γ of the gas at the turbine, with its composition (see the module note). */
 export function exhaustGasAt(c: ExhaustGasConditions): ExhaustGasProperties {
   return mixtureProperties(exhaustMoles(c), c.temperature);
-}
-
-const SPECIES: readonly ExhaustSpecies[] = ['N2', 'O2', 'CO2', 'H2O', 'CO', 'H2'];
-
-/** The gas's constants alone, to the last digit the same as exhaustGasAt's (summed in the same order): the solver's inner loops. */
-export function exhaustGasConstants(c: ExhaustGasConditions): { cp: number; gasConstant: number; gamma: number } {
-  const moles = exhaustMoles(c);
-  let total = 0;
-  let mass = 0;
-  let heat = 0;
-  for (const s of SPECIES) {
-    total += moles[s];
-    mass += moles[s] * NASA_FITS[s].molarMass;
-    heat += moles[s] * molarHeatCapacity(s, c.temperature);
-  }
-  const cp = heat / mass;
-  const gasConstant = (UNIVERSAL_GAS_CONSTANT * total) / mass;
-  return { cp, gasConstant, gamma: cp / (cp - gasConstant) };
 }
