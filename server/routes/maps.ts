@@ -38,9 +38,9 @@ const singleFile: RequestHandler = (req, res, next) => {
 function summary(map: SpoolbookMap) {
   if (map.kind === 'compressor') {
     const speeds = map.curves.filter((c) => c.kind === 'speed').map((c) => c.points[0]?.speed ?? 0);
-    return { curves: map.curves.length, topSpeed: speeds.length ? Math.max(...speeds) : null, maxSpeed: map.maxSpeed, housing: null, areaRatio: null };
+    return { curves: map.curves.length, topSpeed: speeds.length ? Math.max(...speeds) : null, maxSpeed: map.maxSpeed, housing: null, areaRatio: null, efficiencyKind: null };
   }
-  return { curves: map.curves.length, topSpeed: null, maxSpeed: null, housing: map.housing, areaRatio: map.areaRatio };
+  return { curves: map.curves.length, topSpeed: null, maxSpeed: null, housing: map.housing, areaRatio: map.areaRatio, efficiencyKind: map.efficiencyKind ?? null };
 }
 
 function safeFileName(name: string) {

@@ -66,6 +66,7 @@ export const HEADER_KEYS = {
   housing: 'housing',
   scrollFeed: 'scroll feed',
   areaRatio: 'a/r',
+  efficiencyKind: 'efficiency kind',
 } as const;
 
 /** Keys a compressor file must carry. */
@@ -93,7 +94,7 @@ export const TURBINE_REQUIRED_KEYS = [
 ] as const;
 
 /** Keys a turbine file may carry besides the required ones. */
-export const TURBINE_OPTIONAL_KEYS = [HEADER_KEYS.scrollFeed, HEADER_KEYS.areaRatio, HEADER_KEYS.speed, HEADER_KEYS.note] as const;
+export const TURBINE_OPTIONAL_KEYS = [HEADER_KEYS.scrollFeed, HEADER_KEYS.areaRatio, HEADER_KEYS.efficiencyKind, HEADER_KEYS.speed, HEADER_KEYS.note] as const;
 
 /** Every key the format knows, for "did you mean" hints on unknown keys. */
 export const ALL_HEADER_KEYS: readonly string[] = Object.values(HEADER_KEYS);
@@ -111,6 +112,26 @@ export type Housing = (typeof HOUSINGS)[number];
 /** How a divided housing's flow was measured: both scrolls fed together, or the flow of one scroll. */
 export const SCROLL_FEEDS = ['both', 'per-scroll'] as const;
 export type ScrollFeed = (typeof SCROLL_FEEDS)[number];
+
+/**
+ * What a turbine map's efficiency counts (the `efficiency kind` header): with the bearings'
+ * losses (a gas-stand efficiency worked out from the compressor's power, total-to-static), or the
+ * turbine wheel's aerodynamic efficiency alone. A file without the key is read as aerodynamic only.
+ */
+export const TURBINE_EFFICIENCY_KINDS = ['with-bearing-losses', 'aerodynamic'] as const;
+export type TurbineEfficiencyKind = (typeof TURBINE_EFFICIENCY_KINDS)[number];
+/** The words a file writes for each kind, exactly (read case-insensitively, spaces and hyphens loosely). */
+export const TURBINE_EFFICIENCY_KIND_WORDS: Record<TurbineEfficiencyKind, string> = {
+  'with-bearing-losses': 'total-to-static, with bearing losses',
+  aerodynamic: 'aerodynamic only',
+};
+
+/** What a turbine map's efficiency kind means for a study, in words (absent: the file does not say). */
+export function turbineEfficiencyKindMeaning(kind: TurbineEfficiencyKind | null | undefined): string {
+  if (kind === 'with-bearing-losses') return `${TURBINE_EFFICIENCY_KIND_WORDS['with-bearing-losses']}: the bearings' losses are in it, so a plan's mechanical efficiency is not applied again`;
+  if (kind === 'aerodynamic') return `${TURBINE_EFFICIENCY_KIND_WORDS.aerodynamic}: a plan's mechanical efficiency takes the bearings' share`;
+  return "not stated, read as aerodynamic only: a plan's mechanical efficiency takes the bearings' share";
+}
 
 /** Units named in messages and docs as examples; any unit of the right kind that mathjs knows is read. */
 export const UNIT_EXAMPLES = {

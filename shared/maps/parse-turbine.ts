@@ -1,4 +1,4 @@
-import { HEADER_KEYS, HOUSINGS, TURBINE_OPTIONAL_KEYS, TURBINE_REQUIRED_KEYS, type Housing, type ScrollFeed } from './format';
+import { HEADER_KEYS, HOUSINGS, TURBINE_EFFICIENCY_KIND_WORDS, TURBINE_OPTIONAL_KEYS, TURBINE_REQUIRED_KEYS, type Housing, type ScrollFeed, type TurbineEfficiencyKind } from './format';
 import { checkDistinctSpeeds, checkEfficiency, checkEfficiencyScale, checkIncreasing, checkPointCount, checkSameAlongLine, groupRows } from './curves';
 import { checkKeysForKind, parseDecimal, readUnitValue, type CommonHeader, type HeaderSection } from './header';
 import { quoteCell, type ProblemList } from './problems';
@@ -60,6 +60,22 @@ function readAreaRatio(section: HeaderSection, problems: ProblemList): number | 
   return value;
 }
 
+/** The header's efficiency kind: null when absent, undefined when not one the format knows (a problem is added). */
+function readEfficiencyKind(section: HeaderSection, problems: ProblemList): TurbineEfficiencyKind | null | undefined {
+  const entry = section.entries.get(HEADER_KEYS.efficiencyKind);
+  if (!entry) return null;
+  const loose = (text: string) => text.toLowerCase().replace(/[\s-]+/g, ' ').replace(/\s*,\s*/g, ', ').trim();
+  const value = loose(entry.value);
+  for (const [kind, words] of Object.entries(TURBINE_EFFICIENCY_KIND_WORDS) as [TurbineEfficiencyKind, string][]) if (value === loose(words)) return kind;
+  problems.add(
+    'bad-value',
+    entry.line,
+    null,
+    `efficiency kind ${quoteCell(entry.value)} is not one Spoolbook knows; write "${TURBINE_EFFICIENCY_KIND_WORDS['with-bearing-losses']}" (a gas-stand efficiency that counts the bearings) or "${TURBINE_EFFICIENCY_KIND_WORDS.aerodynamic}"`,
+  );
+  return undefined;
+}
+
 function checkRow(row: DataRow, common: CommonHeader, problems: ProblemList): void {
   const [expansionRatio, flowParameter, efficiency, speed] = row.values;
   if (expansionRatio === null) problems.add('missing-value', row.line, 3, 'expansion_ratio is empty; every row needs an expansion ratio');
@@ -78,6 +94,7 @@ export function readTurbine(section: HeaderSection, common: CommonHeader, rows: 
   const housing = readHousing(section, problems);
   const scrollFeed = readScrollFeed(section, housing, problems);
   const areaRatio = readAreaRatio(section, problems);
+  const efficiencyKind = readEfficiencyKind(section, problems);
 
   const scaleLine = section.entries.get(HEADER_KEYS.efficiency)?.line ?? null;
   const wrongScale = checkEfficiencyScale(rows, common.efficiency, scaleLine, problems);
@@ -91,7 +108,7 @@ export function readTurbine(section: HeaderSection, common: CommonHeader, rows: 
   }
   checkDistinctSpeeds(groups, problems);
 
-  if (!problems.isEmpty || !flowParameterUnit || !housing || scrollFeed === undefined || areaRatio === undefined || !common.name || !common.efficiency) {
+  if (!problems.isEmpty || !flowParameterUnit || !housing || scrollFeed === undefined || areaRatio === undefined || efficiencyKind === undefined || !common.name || !common.efficiency) {
     return null;
   }
   const flowFactor = flowParameterScale(flowParameterUnit);
@@ -115,6 +132,7 @@ export function readTurbine(section: HeaderSection, common: CommonHeader, rows: 
     housing,
     scrollFeed,
     areaRatio,
+    ...(efficiencyKind !== null ? { efficiencyKind } : {}),
     curves,
     fileUnits: { flowParameterUnit, efficiency: common.efficiency, speedUnit: common.speedUnit },
   };

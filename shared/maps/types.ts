@@ -1,4 +1,4 @@
-import type { CompressorCurveKind, EfficiencyScale, Housing, ScrollFeed, TurbineCurveKind } from './format';
+import type { CompressorCurveKind, EfficiencyScale, Housing, ScrollFeed, TurbineCurveKind, TurbineEfficiencyKind } from './format';
 
 /**
  * The parsed map model. SI inside: corrected mass flow in kg/s at the map's own reference
@@ -102,6 +102,11 @@ export interface TurbineMap {
   scrollFeed: ScrollFeed | null;
   /** Housing A/R as printed on the map; null when not given. */
   areaRatio: number | null;
+  /**
+   * What the efficiency counts: with the bearings' losses, or the wheel's aerodynamic efficiency
+   * alone. Absent when the file does not say (then read as aerodynamic only).
+   */
+  efficiencyKind?: TurbineEfficiencyKind;
   curves: TurbineCurve[];
   fileUnits: TurbineFileUnits;
 }

@@ -1,5 +1,5 @@
 import { csvLine, writeCsv } from '../csv';
-import { COMPRESSOR_COLUMNS, FORMULA_START, HEADER_KEYS, MAP_FORMAT_VERSION, TURBINE_COLUMNS } from './format';
+import { COMPRESSOR_COLUMNS, FORMULA_START, HEADER_KEYS, MAP_FORMAT_VERSION, TURBINE_COLUMNS, TURBINE_EFFICIENCY_KIND_WORDS } from './format';
 import { compressorFlowScale, efficiencyScale, flowParameterScale, speedScale } from './scales';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from './types';
 import { mapValueFromSI, mapValueToSI, type MapQuantity } from './units';
@@ -89,7 +89,9 @@ function writeTurbine(map: TurbineMap): string {
     entries.push([HEADER_KEYS.scrollFeed, map.scrollFeed === 'per-scroll' ? 'per scroll' : 'both']);
   }
   if (map.areaRatio !== null) entries.push([HEADER_KEYS.areaRatio, String(map.areaRatio)]);
-  entries.push([HEADER_KEYS.efficiency, units.efficiency], [HEADER_KEYS.speed, units.speedUnit]);
+  entries.push([HEADER_KEYS.efficiency, units.efficiency]);
+  if (map.efficiencyKind !== undefined) entries.push([HEADER_KEYS.efficiencyKind, TURBINE_EFFICIENCY_KIND_WORDS[map.efficiencyKind]]);
+  entries.push([HEADER_KEYS.speed, units.speedUnit]);
 
   const flowFactor = flowParameterScale(units.flowParameterUnit);
   const speedFactor = speedScale(units.speedUnit);

@@ -96,6 +96,18 @@ export function exhaustPointFindings(v: PointValues, heldBefore: boolean, effici
       }),
     );
   }
+  const speed = v.turbineSpeedReading;
+  if (speed && (speed.basis === 'held-at-lowest-line' || speed.basis === 'held-at-top-line') && speed.shaftSpeed !== null && speed.lowerSpeed !== null) {
+    out.push(
+      finding(
+        'turbine-speed-outside-lines',
+        'info',
+        `The shaft turns at ${Math.round(speed.shaftSpeed)} rpm, ${speed.basis === 'held-at-lowest-line' ? 'below the lowest' : 'above the top'} speed line of the turbine map: the turbine is read on its ${Math.round(speed.lowerSpeed)} rpm line, held.`,
+        rpm,
+        { value: speed.shaftSpeed, threshold: speed.lowerSpeed, kind: 'speed' },
+      ),
+    );
+  }
   if (v.exhaustCase === 'no-power-needed' && !v.throttled) {
     out.push(finding('throttle-sets-boost', 'info', 'The compressor needs no power at this boost: the gates are taken wide open and the throttle sets the boost.', rpm));
   }

@@ -3,16 +3,22 @@
  * values: the same relations the solve uses (shared/matching/exhaust.ts), as mathjs expressions
  * over the symbols shown.
  */
+import { exhaustGasAt } from '../physics/exhaust-gas';
 import { criticalPressureRatio } from '../physics/gas';
-import { TURBINE_GAS } from '../physics/turbine';
+import { LOSS_REFERENCE_DENSITY } from '../physics/losses';
+import { molarHeatCapacity, UNIVERSAL_GAS_CONSTANT, type ExhaustSpecies } from '../physics/thermo-polynomials';
+import { TURBINE_GAS, type GasProperties } from '../physics/turbine';
 import { orificeMassFlux } from '../physics/wastegate';
 import { lookupByRpm } from './rpm-table';
 import type { LineContext, PointValues } from './types';
-import { fmt, pct, SOURCES, step, wv, type WorkingStep } from './working';
+import { fmt, gammaStep, pct, SOURCES, step, wv, type WorkingStep } from './working';
 
 /** Sources of the exhaust steps. */
 export const EXHAUST_SOURCES = {
-  gas: 'Saravanamuttoo, Rogers & Cohen, Gas Turbine Theory: combustion gases γ = 1.333, cp = 1.148 kJ/(kg K)',
+  gas: 'Products of combustion: Heywood, Internal Combustion Engine Fundamentals (1988), §4.3 (water-gas shift K = 3.5, frozen); cp from the NASA 7-coefficient polynomials (McBride, Gordon & Reno, NASA TM-4513, 1993; GRI-Mech 3.0 data)',
+  gasFallback: 'Saravanamuttoo, Rogers & Cohen, Gas Turbine Theory: combustion gases γ = 1.333, cp = 1.148 kJ/(kg K) (no fuel given)',
+  loss: 'Duct loss Δp ∝ ṁ²/ρ (constant loss coefficient, incompressible duct flow)',
+  speed: 'Turbine map of the Plan, read between its speed lines at the shaft speed (straight line in speed)',
   turbinePower: 'NASA Glenn Research Center, compressor–turbine matching; Isermann, Combustion Engine Diagnosis (2017), eq. 5.4.17',
   swallowing: 'Turbine flow parameter FP = ṁ·√T3/p3 (definition), read from the turbine map',
   orifice: 'Compressible orifice flow: NASA Glenn Research Center, "Mass flow choking"; critical ratio from isentropic flow tables (NACA Report 1135)',
@@ -55,10 +61,12 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const pShut = v.shutGateTurbinePower!;
   const mT = v.turbineMassFlow!;
   const mWg = v.wastegateMassFlow!;
-  const etaM = ex.input.mechanicalEfficiency;
+  const etaM = ex.mechanicalEfficiency;
   const pulse = ex.input.pulseFactor;
-  const gamma = TURBINE_GAS.gamma;
-  const cp = TURBINE_GAS.cp;
+  const gas = gasOf(v);
+  const gamma = gas.gamma;
+  const cp = gas.cp;
+  const gasSource = v.exhaustGasCp !== null && v.exhaustGasCp !== undefined && ctx.fuel && v.lambda !== null ? EXHAUST_SOURCES.gas : EXHAUST_SOURCES.gasFallback;
   const n = ctx.plan.turbochargers;
   const t = ex.turbine;
   const divisor = t.mapFlowParameterDivisor;
@@ -97,12 +105,14 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
           wv('T_3', t3, 'temperature'),
           `${SOURCES.given}; ${SOURCES.interpolation}`,
         ),
+    ...exhaustGasSteps(ctx, v, t3, gas),
+    downstreamLossStep(ctx, v, t3, gas),
     step(
       'turbine-outlet-pressure',
       'Pressure after the turbine',
       'Ambient pressure plus what the downpipe, catalyst and silencers lose.',
       'p_amb + dp_ds',
-      [wv('p_amb', v.ambientPressure, 'pressure'), wv('dp_ds', ex.input.downstreamLoss, 'pressure')],
+      [wv('p_amb', v.ambientPressure, 'pressure'), wv('dp_ds', v.downstreamLoss ?? p4 - v.ambientPressure, 'pressure')],
       wv('p_4', p4, 'pressure'),
       SOURCES.definition,
     ),
@@ -130,7 +140,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         wv('gamma_e', gamma, 'ratio'),
       ],
       wv('P_t_shut', pShut, 'power'),
-      `${EXHAUST_SOURCES.turbinePower}; ${EXHAUST_SOURCES.gas}`,
+      `${EXHAUST_SOURCES.turbinePower}; ${gasSource}`,
     ),
   );
   const drive = etaM * pShut;
@@ -144,7 +154,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
     step(
       'shut-gate-drive-power',
       'Power reaching the compressor with the gates shut',
-      `The bearings take a share; η_m = ${pct(etaM)} reaches the compressor. That is ${caseWords}`,
+      `${mechanicalWords(ctx)} That is ${caseWords}`,
       'eta_m * P_t_shut',
       [wv('eta_m', etaM, 'fraction'), wv('P_t_shut', pShut, 'power')],
       wv('P_drive_shut', drive, 'power'),
@@ -187,7 +197,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         ? step(
             'turbine-flow-parameter',
             'Turbine flow parameter',
-            `The map gives the flow of one scroll (${v.turbineMapLocation === 'inside' ? 'read on its capacity curve' : 'outside its range: see the findings'}); the two scrolls in parallel pass twice it.`,
+            `The map gives the flow of one scroll (${v.turbineMapLocation === 'inside' ? 'read at ER, at the shaft speed where one is known' : 'outside its range: see the findings'}); the two scrolls in parallel pass twice it.`,
             'k_scroll * FP_map',
             [wv('k_scroll', divisor, 'count'), wv('FP_map', v.turbineMapFlowParameter!, 'none', FP_UNIT)],
             wv('FP', v.turbineFlowParameter!, 'none', FP_UNIT),
@@ -196,7 +206,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         : step(
             'turbine-flow-parameter',
             'Turbine flow parameter',
-            v.turbineMapLocation === 'inside' ? 'Read on the map\'s capacity curve at ER.' : 'Outside the map\'s range of expansion ratio (see the findings).',
+            v.turbineMapLocation === 'inside' ? 'Read on the map at ER, at the shaft speed where one is known (as the efficiency below).' : 'Outside the map\'s range of expansion ratio (see the findings).',
             'FP_map',
             [wv('FP_map', v.turbineMapFlowParameter!, 'none', FP_UNIT)],
             wv('FP', v.turbineFlowParameter!, 'none', FP_UNIT),
@@ -211,6 +221,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         wv('m_dot_t', mT, 'massFlow'),
         EXHAUST_SOURCES.swallowing,
       ),
+      ...turbineSpeedSteps(v),
       step(
         'turbine-power',
         'Turbine power',
@@ -226,7 +237,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
           wv('gamma_e', gamma, 'ratio'),
         ],
         wv('P_t', v.turbinePower!, 'power'),
-        `${EXHAUST_SOURCES.turbinePower}; ${EXHAUST_SOURCES.gas}`,
+        `${EXHAUST_SOURCES.turbinePower}; ${gasSource}`,
       ),
     );
     if (v.exhaustCase === 'gate-open') {
@@ -248,6 +259,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
     );
   } else {
     steps.push(
+      ...turbineSpeedSteps(v),
       step(
         'power-balance',
         'Power balance at the held boost',
@@ -268,12 +280,13 @@ function gateSteps(ctx: LineContext, v: PointValues, mWg: number, p3: number, p4
   const gates = ex.input.wastegates;
   const need = v.wastegateDiameterNeeded;
   if (v.exhaustCase !== 'gate-open' || !(mWg > 0) || typeof need !== 'number' || !(need > 0) || typeof v.wastegateMargin !== 'number') return [];
-  const gamma = TURBINE_GAS.gamma;
-  const r = TURBINE_GAS.gasConstant;
+  const gas = gasOf(v);
+  const gamma = gas.gamma;
+  const r = gas.gasConstant;
   const ratio = p4 / p3;
   const critical = criticalPressureRatio(gamma);
   const choked = ratio <= critical;
-  const flux = orificeMassFlux(p3, t3, p4, TURBINE_GAS).massFlux;
+  const flux = orificeMassFlux(p3, t3, p4, gas).massFlux;
   const area = mWg / (gates.count * gates.dischargeCoefficient * flux);
   return [
     step(
@@ -330,6 +343,163 @@ function gateSteps(ctx: LineContext, v: PointValues, mWg: number, p3: number, p4
       [wv('d_fit', gates.valveDiameter, 'length'), wv('d_wg', need, 'length')],
       wv('WG_margin', v.wastegateMargin, 'fraction'),
       SOURCES.definition,
+    ),
+  ];
+}
+
+/** The exhaust gas a point was solved with (the lean gas-turbine pair where no fuel was given). */
+function gasOf(v: PointValues): GasProperties {
+  return typeof v.exhaustGasCp === 'number' && typeof v.exhaustGasGamma === 'number' && typeof v.exhaustGasConstant === 'number'
+    ? { cp: v.exhaustGasCp, gamma: v.exhaustGasGamma, gasConstant: v.exhaustGasConstant }
+    : TURBINE_GAS;
+}
+
+/** How the bearings' share is taken, in words. */
+function mechanicalWords(ctx: LineContext): string {
+  const ex = ctx.exhaust!;
+  if (ex.turbine?.efficiencyKind === 'with-bearing-losses')
+    return `The turbine map's efficiency is total-to-static with the bearings' losses in it, so the Plan's mechanical efficiency (${pct(ex.input.mechanicalEfficiency)}) is not applied again: η_m = 100 %.`;
+  const unstated = ex.turbine?.efficiencyKind === 'aerodynamic' ? "The turbine map's efficiency is aerodynamic only" : "The turbine map does not say what its efficiency counts, so it is read as aerodynamic only";
+  return `${unstated}: the bearings take a share, and η_m = ${pct(ex.mechanicalEfficiency)} (the Plan's) reaches the compressor.`;
+}
+
+const SPECIES: ExhaustSpecies[] = ['N2', 'O2', 'CO2', 'H2O', 'CO', 'H2'];
+
+/** The exhaust gas's cp, R and γ at T3, from the products of the fuel burnt (none without a fuel: the fixed pair is named instead). */
+function exhaustGasSteps(ctx: LineContext, v: PointValues, t3: number, gas: GasProperties): WorkingStep[] {
+  if (!ctx.fuel || v.lambda === null || typeof v.exhaustGasCp !== 'number') {
+    return [
+      step('exhaust-gas-cp', 'Exhaust gas specific heat', 'No fuel is given, so the lean pair of gas-turbine practice stands in (it understates a rich engine\'s turbine work).', 'c_pe', [wv('c_pe', gas.cp, 'none', CP_UNIT)], wv('c_pe', gas.cp, 'none', CP_UNIT), EXHAUST_SOURCES.gasFallback),
+    ];
+  }
+  const products = exhaustGasAt({ fuel: ctx.fuel.choice, lambda: v.lambda, temperature: t3, humidityRatio: ctx.air.humidityRatio, trappingEfficiency: ctx.engine.trappingEfficiency });
+  const present = SPECIES.filter((s) => products.moleFractions[s] > 0);
+  const molar = products.molarMass;
+  const rich = v.lambda < 1;
+  const extras = [
+    ctx.air.humidityRatio > 0 ? "the water the humid air brought" : null,
+    ctx.engine.trappingEfficiency < 1 ? `the ${pct(1 - ctx.engine.trappingEfficiency)} of the delivered air that short-circuits to the exhaust` : null,
+  ].filter(Boolean);
+  return [
+    step(
+      'exhaust-gas-cp',
+      'Exhaust gas specific heat at the turbine inlet',
+      `The products of burning the fuel at lambda ${fmt(v.lambda, 3)}: ${rich ? 'rich, so CO and H2 remain beside CO2 and H2O, split by the water-gas shift equilibrium (K = 3.5, frozen)' : 'lean or stoichiometric, so the fuel burns completely to CO2 and H2O and the spare O2 passes through'}${extras.length ? `, with ${extras.join(' and ')}` : ''}. Each gas's molar cp at T3 from its NASA polynomial, weighted by its mole fraction, over the mixture's molar mass.`,
+      `(${present.map((s) => `x_${s} * Cp_${s}`).join(' + ')}) / M_e`,
+      [
+        ...present.flatMap((s) => [wv(`x_${s}`, products.moleFractions[s], 'fraction'), wv(`Cp_${s}`, molarHeatCapacity(s, t3), 'none', 'J/(mol K)')]),
+        wv('M_e', molar, 'none', 'kg/mol'),
+      ],
+      wv('c_pe', v.exhaustGasCp, 'none', CP_UNIT),
+      EXHAUST_SOURCES.gas,
+    ),
+    step(
+      'exhaust-gas-constant',
+      'Exhaust gas constant',
+      'The universal gas constant over the mixture\'s molar mass.',
+      'R_u / M_e',
+      [wv('R_u', UNIVERSAL_GAS_CONSTANT, 'none', 'J/(mol K)'), wv('M_e', molar, 'none', 'kg/mol')],
+      wv('R_e', gas.gasConstant, 'none', CP_UNIT),
+      `${SOURCES.definition} (ideal gas; R_u CODATA 2018)`,
+    ),
+    gammaStep(
+      'exhaust-gas-gamma',
+      'Exhaust gas ratio of specific heats',
+      'For an ideal gas cv = cp − R, so γ = cp/(cp − R). It sets how much of the heat an expansion through ER turns into work.',
+      ['c_pe', gas.cp],
+      ['R_e', gas.gasConstant],
+      ['gamma_e', gas.gamma],
+    ),
+  ];
+}
+
+/** The loss after the turbine at this point's exhaust flow. */
+function downstreamLossStep(ctx: LineContext, v: PointValues, t3: number, gas: GasProperties): WorkingStep {
+  const loss = ctx.exhaust!.input.downstreamLoss;
+  const dp = v.downstreamLoss ?? loss.pressureLoss;
+  if (loss.referenceMassFlow === undefined) {
+    return step(
+      'downstream-loss',
+      'Pressure loss after the turbine',
+      'Given as the same loss at every flow (state the flow it was measured at to have it follow the flow).',
+      'dp_ds_ref',
+      [wv('dp_ds_ref', loss.pressureLoss, 'pressure')],
+      wv('dp_ds', dp, 'pressure'),
+      SOURCES.given,
+    );
+  }
+  const flow = v.engineMassFlow + (v.fuelMassFlow ?? 0);
+  const rhoRef = loss.referenceDensity ?? LOSS_REFERENCE_DENSITY;
+  return step(
+    'downstream-loss',
+    'Pressure loss after the turbine at this flow',
+    `The loss stated at ${fmt(loss.referenceMassFlow)} kg/s of exhaust and ${fmt(rhoRef)} kg/m³${loss.referenceDensity === undefined ? ' (standard sea-level air, as none was stated)' : ''}, scaled with the square of the engine's exhaust flow over the gas density, taken at ambient pressure and T3 (the gas's cooling through the turbine is left out).`,
+    'dp_ds_ref * (m_dot_ex_eng / m_dot_ref) ^ 2 * rho_ref / (p_amb / (R_e * T_3))',
+    [
+      wv('dp_ds_ref', loss.pressureLoss, 'pressure'),
+      wv('m_dot_ex_eng', flow, 'massFlow'),
+      wv('m_dot_ref', loss.referenceMassFlow, 'massFlow'),
+      wv('rho_ref', rhoRef, 'density'),
+      wv('p_amb', v.ambientPressure, 'pressure'),
+      wv('R_e', gas.gasConstant, 'none', CP_UNIT),
+      wv('T_3', t3, 'temperature'),
+    ],
+    wv('dp_ds', dp, 'pressure'),
+    EXHAUST_SOURCES.loss,
+  );
+}
+
+/** The turbine's efficiency as read against the shaft speed. */
+function turbineSpeedSteps(v: PointValues): WorkingStep[] {
+  const r = v.turbineSpeedReading;
+  const eta = v.turbineEfficiency;
+  if (!r || typeof eta !== 'number') return [];
+  if (r.basis === 'mean-of-lines' || r.lowerSpeed === null || r.upperSpeed === null) {
+    return [
+      step(
+        'turbine-speed',
+        'Turbine efficiency without a shaft speed',
+        r.shaftSpeed === null
+          ? "The compressor side gives no shaft speed here (no compressor map, or the point lies where the map has no speed), so the turbine map is read as the mean of its speed lines at this expansion ratio."
+          : "The turbine map's lines carry no speeds, so it is read as the mean of its lines at this expansion ratio.",
+        'eta_t_mean',
+        [wv('eta_t_mean', eta, 'fraction')],
+        wv('eta_t', eta, 'fraction'),
+        EXHAUST_SOURCES.turbineMap,
+      ),
+    ];
+  }
+  if (r.basis !== 'speed-lines' || r.lowerEfficiency === null || r.upperEfficiency === null || r.lowerSpeed === r.upperSpeed || r.shaftSpeed === null) {
+    const held = r.basis === 'held-at-lowest-line' ? 'below the lowest' : r.basis === 'held-at-top-line' ? 'above the top' : 'on a';
+    return [
+      step(
+        'turbine-speed',
+        'Turbine efficiency at the shaft speed',
+        r.basis === 'speed-lines'
+          ? `The turbocharger turns at ${fmt(r.shaftSpeed ?? r.lowerSpeed)} rpm, on the map's ${fmt(r.lowerSpeed)} rpm line: the line is read at this expansion ratio.`
+          : `The turbocharger turns at ${fmt(r.shaftSpeed ?? 0)} rpm, ${held} speed line of the turbine map (${fmt(r.lowerSpeed)} rpm): the map says nothing beyond its lines, so that line is held and read at this expansion ratio. An estimate; the findings say so.`,
+        'eta_t_line',
+        [wv('eta_t_line', eta, 'fraction')],
+        wv('eta_t', eta, 'fraction'),
+        EXHAUST_SOURCES.speed,
+      ),
+    ];
+  }
+  return [
+    step(
+      'turbine-speed',
+      'Turbine efficiency at the shaft speed',
+      `The compressor and turbine share one shaft, at ${fmt(r.shaftSpeed)} rpm here. The turbine map's lines at ${fmt(r.lowerSpeed)} and ${fmt(r.upperSpeed)} rpm are each read at this expansion ratio and joined by a straight line in speed.`,
+      'eta_N0 + (eta_N1 - eta_N0) * (N_tc - N_0) / (N_1 - N_0)',
+      [
+        wv('eta_N0', r.lowerEfficiency, 'fraction'),
+        wv('eta_N1', r.upperEfficiency, 'fraction'),
+        wv('N_tc', r.shaftSpeed, 'speed'),
+        wv('N_0', r.lowerSpeed, 'speed'),
+        wv('N_1', r.upperSpeed, 'speed'),
+      ],
+      wv('eta_t', eta, 'fraction'),
+      EXHAUST_SOURCES.speed,
     ),
   ];
 }

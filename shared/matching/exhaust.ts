@@ -15,12 +15,14 @@
  * not found is a finding, and the point keeps the safe end of the last bracket.
  */
 import { findRoot } from '../math/root';
-import { TURBINE_GAS, isentropicExpansionShare } from '../physics/turbine';
+import { exhaustGasAt } from '../physics/exhaust-gas';
+import { scaledPressureLoss } from '../physics/losses';
+import { TURBINE_GAS, isentropicExpansionShare, type GasProperties } from '../physics/turbine';
 import { orificeMassFlux, valveArea, wastegateDiameterFor } from '../physics/wastegate';
 import type { CompressorModel } from './compressor-model';
 import { exhaustFinding, exhaustNotConvergedFinding, exhaustPointFindings } from './exhaust-findings';
 import { lineInputFindings, pointFindings } from './findings';
-import type { TurbineLocation, TurbineModel } from './exhaust-model';
+import type { TurbineAtSpeed, TurbineLocation, TurbineModel } from './exhaust-model';
 import { valueAtRpm } from './rpm-table';
 import { solvePoint, type PointOperation } from './run-point';
 import type {
@@ -70,24 +72,27 @@ const RATIO_TOLERANCE = 1e-12;
 /** No turbine is searched beyond this expansion ratio (a guard, far beyond any real one). */
 const MAX_EXPANSION_RATIO = 1000;
 
-const gas = TURBINE_GAS;
-
 /** The exhaust context of a Plan's lines, or null when the Plan has no exhaust block. */
 export function lineExhaustContext(plan: PlanInput, turbine: TurbineModel | null): LineExhaustContext | null {
   const input = plan.exhaust;
   if (!input) return null;
+  const efficiencyKind = turbine?.efficiencyKind ?? null;
   return {
     input: {
       ...input,
       pulseFactor: input.pulseFactor ?? DEFAULT_PULSE_FACTOR,
       turbineEfficiency: input.turbineEfficiency ?? DEFAULT_TURBINE_EFFICIENCY,
     },
+    // A map whose efficiency counts the bearings' losses already holds the mechanical efficiency: applied once.
+    mechanicalEfficiency: efficiencyKind === 'with-bearing-losses' ? 1 : input.mechanicalEfficiency,
     turbine: turbine
       ? {
           name: turbine.name,
           housing: turbine.housing,
           scrollFeed: turbine.scrollFeed,
           areaRatio: turbine.areaRatio,
+          efficiencyKind,
+          speedLines: [...(turbine.speedLines ?? [])],
           expansionRatioRange: [turbine.expansionRatioRange[0], turbine.expansionRatioRange[1]],
           mapFlowParameterDivisor: turbine.mapFlowParameterDivisor,
           capacityRule: turbine.capacityRule,
@@ -103,7 +108,10 @@ export function exhaustProblems(ex: LineExhaustContext): string[] {
   const i = ex.input;
   const out: string[] = [];
   if (!(positive(i.mechanicalEfficiency) && i.mechanicalEfficiency <= 1)) out.push('mechanical efficiency is not between 0 and 1');
-  if (!(i.downstreamLoss >= 0 && Number.isFinite(i.downstreamLoss))) out.push('the loss after the turbine is negative');
+  const ds = i.downstreamLoss;
+  if (!(ds && ds.pressureLoss >= 0 && Number.isFinite(ds.pressureLoss))) out.push('the loss after the turbine is negative');
+  else if ((ds.referenceMassFlow !== undefined && !positive(ds.referenceMassFlow)) || (ds.referenceDensity !== undefined && !positive(ds.referenceDensity)))
+    out.push("the loss after the turbine has a reference flow or density that is not positive");
   if (!positive(i.pulseFactor)) out.push('the pulse factor is not positive');
   if (!(positive(i.turbineEfficiency) && i.turbineEfficiency <= 1)) out.push('the assumed turbine efficiency is not between 0 and 1');
   const g = i.wastegates;
@@ -128,8 +136,11 @@ function exhaustUsable(ex: LineExhaustContext): boolean {
   return ok;
 }
 
+/** What the exhaust side reads: the map at the shaft speed, or the mean of its lines. */
+type TurbineReader = Pick<TurbineModel, 'read' | 'expansionRatioForFlow'>;
+
 /** A turbine reading with anything non-finite or impossible made safe: no flow at ER ≤ 1, efficiency null when not in (0, 1]. */
-function readTurbine(turbine: TurbineModel, expansionRatio: number): { flowParameter: number; efficiency: number | null; location: TurbineLocation } {
+function readTurbine(turbine: TurbineReader, expansionRatio: number): { flowParameter: number; efficiency: number | null; location: TurbineLocation } {
   if (!(expansionRatio > 1)) return { flowParameter: 0, efficiency: null, location: 'below-map' };
   const r = turbine.read(expansionRatio);
   const flowParameter = typeof r.flowParameter === 'number' && Number.isFinite(r.flowParameter) && r.flowParameter > 0 ? r.flowParameter : 0;
@@ -157,16 +168,24 @@ interface ExhaustGas {
   flow: number;
   /** Turbine inlet temperature, K. */
   t3: number;
+  /** The exhaust gas's cp, γ and R at T3. */
+  gas: GasProperties;
+  /** Loss after the turbine at this flow, Pa. */
+  downstreamLoss: number;
   /** Turbine outlet pressure, Pa. */
   p4: number;
+  /** The turbine map as this point reads it: at its shaft speed, or the mean of its lines. */
+  reader: TurbineReader;
+  /** The map at the shaft speed, when one is known and the map's lines carry speeds. */
+  atSpeed: TurbineAtSpeed | null;
   /** p4/√T3, Pa/K^0.5: ṁ_t = FP·ER·this. */
   swallow: number;
   pulse: number;
   fallbackEfficiency: number;
 }
 
-function stateAt(turbine: TurbineModel, g: ExhaustGas, expansionRatio: number): TurbineState {
-  const r = readTurbine(turbine, expansionRatio);
+function stateAt(g: ExhaustGas, expansionRatio: number): TurbineState {
+  const r = readTurbine(g.reader, expansionRatio);
   const efficiency = r.efficiency ?? g.fallbackEfficiency;
   const massFlow = r.flowParameter * expansionRatio * g.swallow;
   return {
@@ -176,36 +195,36 @@ function stateAt(turbine: TurbineModel, g: ExhaustGas, expansionRatio: number): 
     efficiencyAssumed: r.efficiency === null,
     location: r.location,
     massFlow,
-    power: g.pulse * massFlow * gas.cp * g.t3 * efficiency * isentropicExpansionShare(expansionRatio, gas.gamma),
+    power: g.pulse * massFlow * g.gas.cp * g.t3 * efficiency * isentropicExpansionShare(expansionRatio, g.gas.gamma),
   };
 }
 
 /** Turbine power at one expansion ratio, W, without building a state (the root finder's inner loop). */
-function powerAt(turbine: TurbineModel, g: ExhaustGas, expansionRatio: number): number {
+function powerAt(g: ExhaustGas, expansionRatio: number): number {
   if (!(expansionRatio > 1)) return 0;
-  const r = turbine.read(expansionRatio);
+  const r = g.reader.read(expansionRatio);
   const fp = typeof r.flowParameter === 'number' && Number.isFinite(r.flowParameter) && r.flowParameter > 0 ? r.flowParameter : 0;
   const eta = typeof r.efficiency === 'number' && Number.isFinite(r.efficiency) && r.efficiency > 0 && r.efficiency <= 1 ? r.efficiency : g.fallbackEfficiency;
-  return g.pulse * fp * expansionRatio * g.swallow * gas.cp * g.t3 * eta * isentropicExpansionShare(expansionRatio, gas.gamma);
+  return g.pulse * fp * expansionRatio * g.swallow * g.gas.cp * g.t3 * eta * isentropicExpansionShare(expansionRatio, g.gas.gamma);
 }
 
 type Solved<T> = { ok: true; value: T; iterations: number } | { ok: false; value: T; reason: string };
 
 /** The state with all the exhaust through the wheel: its flow taken as exactly the exhaust flow. */
-function allThroughWheel(turbine: TurbineModel, g: ExhaustGas, er: number): TurbineState {
-  const state = stateAt(turbine, g, er);
+function allThroughWheel(g: ExhaustGas, er: number): TurbineState {
+  const state = stateAt(g, er);
   state.massFlow = g.flow;
-  state.power = g.pulse * g.flow * gas.cp * g.t3 * state.efficiency * isentropicExpansionShare(er, gas.gamma);
+  state.power = g.pulse * g.flow * g.gas.cp * g.t3 * state.efficiency * isentropicExpansionShare(er, g.gas.gamma);
   return state;
 }
 
 /** Case 1: the expansion ratio at which the turbine swallows all the exhaust. */
 function shutGate(turbine: TurbineModel, g: ExhaustGas): Solved<TurbineState> {
-  if (turbine.expansionRatioForFlow) {
+  if (g.reader.expansionRatioForFlow) {
     // The map's own inverse, checked against its reading.
-    const er = turbine.expansionRatioForFlow(g.flow / g.swallow);
+    const er = g.reader.expansionRatioForFlow(g.flow / g.swallow);
     if (Number.isFinite(er) && er > 1) {
-      const state = allThroughWheel(turbine, g, er);
+      const state = allThroughWheel(g, er);
       if (Math.abs(state.flowParameter * er * g.swallow - g.flow) <= 1e-9 * g.flow) return { ok: true, value: state, iterations: 0 };
     }
   }
@@ -213,7 +232,7 @@ function shutGate(turbine: TurbineModel, g: ExhaustGas): Solved<TurbineState> {
 }
 
 function shutGateByRoot(turbine: TurbineModel, g: ExhaustGas): Solved<TurbineState> {
-  const excess = (er: number) => readTurbine(turbine, er).flowParameter * er * g.swallow - g.flow;
+  const excess = (er: number) => readTurbine(g.reader, er).flowParameter * er * g.swallow - g.flow;
   let hi = Math.max(2, turbine.expansionRatioRange[1]);
   let fHi = excess(hi);
   while (fHi < 0 && hi < MAX_EXPANSION_RATIO) {
@@ -222,13 +241,13 @@ function shutGateByRoot(turbine: TurbineModel, g: ExhaustGas): Solved<TurbineSta
   }
   const root = findRoot(excess, 1, hi, { fa: -g.flow, fb: fHi, absoluteTolerance: RATIO_TOLERANCE, relativeTolerance: RATIO_TOLERANCE });
   const er = root.ok ? root.x : hi;
-  const state = allThroughWheel(turbine, g, er);
+  const state = allThroughWheel(g, er);
   return root.ok ? { ok: true, value: state, iterations: root.iterations } : { ok: false, value: state, reason: root.reason };
 }
 
 /** Case 3: the smaller expansion ratio at which the turbine gives exactly the power needed (W). */
-function gateOpen(turbine: TurbineModel, g: ExhaustGas, powerNeeded: number, shut: TurbineState): Solved<TurbineState> {
-  const balance = (er: number) => powerAt(turbine, g, er) - powerNeeded;
+function gateOpen(g: ExhaustGas, powerNeeded: number, shut: TurbineState): Solved<TurbineState> {
+  const balance = (er: number) => powerAt(g, er) - powerNeeded;
   const root = findRoot(balance, 1, shut.expansionRatio, {
     fa: -powerNeeded,
     fb: shut.power - powerNeeded,
@@ -236,31 +255,68 @@ function gateOpen(turbine: TurbineModel, g: ExhaustGas, powerNeeded: number, shu
     relativeTolerance: RATIO_TOLERANCE,
     functionTolerance: 1e-3 * POWER_BALANCE_TOLERANCE * powerNeeded,
   });
-  if (root.ok) return { ok: true, value: stateAt(turbine, g, root.x), iterations: root.iterations };
+  if (root.ok) return { ok: true, value: stateAt(g, root.x), iterations: root.iterations };
   // The safe end holds at least the power needed.
   const end = root.bracket ? (root.bracket.fa >= 0 ? root.bracket.a : root.bracket.b) : shut.expansionRatio;
-  return { ok: false, value: end === shut.expansionRatio ? shut : stateAt(turbine, g, end), reason: root.reason };
+  return { ok: false, value: end === shut.expansionRatio ? shut : stateAt(g, end), reason: root.reason };
 }
 
 /** Gates wide open (no compressor power needed): the ratio at which turbine and fitted gates together pass the exhaust. */
-function gatesWideOpen(turbine: TurbineModel, g: ExhaustGas, ex: LineExhaustContext, shut: TurbineState): Solved<TurbineState> {
+function gatesWideOpen(g: ExhaustGas, ex: LineExhaustContext, shut: TurbineState): Solved<TurbineState> {
   const gates = ex.input.wastegates;
   const gateArea = gates.count * gates.dischargeCoefficient * valveArea(gates.valveDiameter);
-  const split = (er: number) => stateAt(turbine, g, er).massFlow + gateArea * orificeMassFlux(er * g.p4, g.t3, g.p4, gas).massFlux - g.flow;
-  const fShut = gateArea * orificeMassFlux(shut.expansionRatio * g.p4, g.t3, g.p4, gas).massFlux;
+  const split = (er: number) => stateAt(g, er).massFlow + gateArea * orificeMassFlux(er * g.p4, g.t3, g.p4, g.gas).massFlux - g.flow;
+  const fShut = gateArea * orificeMassFlux(shut.expansionRatio * g.p4, g.t3, g.p4, g.gas).massFlux;
   const root = findRoot(split, 1, shut.expansionRatio, { fa: -g.flow, fb: fShut, absoluteTolerance: RATIO_TOLERANCE, relativeTolerance: RATIO_TOLERANCE });
-  if (root.ok) return { ok: true, value: stateAt(turbine, g, root.x), iterations: root.iterations };
+  if (root.ok) return { ok: true, value: stateAt(g, root.x), iterations: root.iterations };
   return { ok: false, value: shut, reason: root.reason };
 }
 
-/** The gas one turbocharger's turbine sees at a solved compressor point. */
-function exhaustGasOf(v: PointValues, ex: LineExhaustContext, turbochargers: number): ExhaustGas {
+/**
+ * Exhaust gases already worked out, by what sets them: the held-boost search asks again at one
+ * speed's lambda and T3, and the lines of other plans and rows at the same speeds ask the same.
+ * Bounded: emptied when full.
+ */
+const gasCache = new Map<string, GasProperties>();
+const GAS_CACHE_SIZE = 4096;
+
+/**
+ * The exhaust gas of a point at T3: the products of the fuel burnt at the point's lambda, with the
+ * humid air's water and a two-stroke's short-circuited air (physics/exhaust-gas.ts). Without a
+ * fuel and lambda (no fuel system), the lean gas-turbine pair of TURBINE_GAS.
+ */
+function exhaustGasProperties(ctx: LineContext, lambda: number | null, t3: number): GasProperties {
+  if (!ctx.fuel || lambda === null) return TURBINE_GAS;
+  const fuel = ctx.fuel.choice;
+  const key = `${fuel.kind}|${fuel.kind === 'ethanol-blend' ? fuel.ethanolPercent : ''}|${lambda}|${t3}|${ctx.air.humidityRatio}|${ctx.engine.trappingEfficiency}`;
+  let gas = gasCache.get(key);
+  if (!gas) {
+    const products = exhaustGasAt({ fuel, lambda, temperature: t3, humidityRatio: ctx.air.humidityRatio, trappingEfficiency: ctx.engine.trappingEfficiency });
+    gas = { cp: products.cp, gasConstant: products.gasConstant, gamma: products.gamma };
+    if (gasCache.size >= GAS_CACHE_SIZE) gasCache.clear();
+    gasCache.set(key, gas);
+  }
+  return gas;
+}
+
+/** The gas one turbocharger's turbine sees at a solved compressor point, and the map as it reads it there. */
+function exhaustGasOf(v: PointValues, ctx: LineContext, ex: LineExhaustContext, turbine: TurbineModel): ExhaustGas {
+  const turbochargers = ctx.plan.turbochargers;
   const t3 = valueAtRpm(ex.input.turbineInletTemperature, v.rpm);
-  const p4 = v.ambientPressure + ex.input.downstreamLoss;
+  const gas = exhaustGasProperties(ctx, v.lambda, t3);
+  const engineExhaustFlow = v.engineMassFlow + (v.fuelMassFlow ?? 0);
+  // The gas after the turbine taken at ambient pressure and T3 (its cooling through the turbine is left out: docs/physics.md §8).
+  const downstreamLoss = scaledPressureLoss(ex.input.downstreamLoss, engineExhaustFlow, v.ambientPressure / (gas.gasConstant * t3));
+  const p4 = v.ambientPressure + downstreamLoss;
+  const atSpeed = turbine.atSpeed && v.shaftSpeed !== null && v.shaftSpeed > 0 ? turbine.atSpeed(v.shaftSpeed) : null;
   return {
-    flow: (v.engineMassFlow + (v.fuelMassFlow ?? 0)) / turbochargers,
+    flow: engineExhaustFlow / turbochargers,
     t3,
+    gas,
+    downstreamLoss,
     p4,
+    reader: atSpeed ?? turbine,
+    atSpeed,
     swallow: p4 / Math.sqrt(t3),
     pulse: ex.input.pulseFactor,
     fallbackEfficiency: ex.input.turbineEfficiency,
@@ -271,6 +327,10 @@ const EXHAUST_KEYS = [
   'exhaustMassFlow',
   'turbineInletTemperature',
   'turbineOutletPressure',
+  'downstreamLoss',
+  'exhaustGasCp',
+  'exhaustGasGamma',
+  'exhaustGasConstant',
   'turbineInletPressure',
   'expansionRatio',
   'drivePressureRatio',
@@ -309,6 +369,11 @@ function writeExhaust(
   v.exhaustMassFlow = g.flow;
   v.turbineInletTemperature = g.t3;
   v.turbineOutletPressure = g.p4;
+  v.downstreamLoss = g.downstreamLoss;
+  v.exhaustGasCp = g.gas.cp;
+  v.exhaustGasGamma = g.gas.gamma;
+  v.exhaustGasConstant = g.gas.gasConstant;
+  v.turbineSpeedReading = speedReadingOf(g, at.expansionRatio, v.shaftSpeed);
   v.turbineInletPressure = p3;
   v.expansionRatio = at.expansionRatio;
   v.drivePressureRatio = p3 / v.manifoldPressure;
@@ -324,7 +389,7 @@ function writeExhaust(
   v.wastegateMassFlow = gateFlow;
   v.wastegateFraction = gateFlow / g.flow;
   v.wastegateDiameterFitted = gates.valveDiameter;
-  const flux = orificeMassFlux(p3, g.t3, g.p4, gas);
+  const flux = orificeMassFlux(p3, g.t3, g.p4, g.gas);
   v.wastegateChoked = gateFlow > 0 ? flux.choked : null;
   if (kind === 'no-power-needed') {
     // The throttle sets boost; the gates are simply open, so no size is asked of them.
@@ -338,7 +403,7 @@ function writeExhaust(
       upstreamPressure: p3,
       upstreamTemperature: g.t3,
       downstreamPressure: g.p4,
-      gas,
+      gas: g.gas,
     });
     v.wastegateDiameterNeeded = size ? size.diameter : null;
     v.wastegateMargin = size ? (gates.valveDiameter - size.diameter) / gates.valveDiameter : null;
@@ -356,8 +421,17 @@ function exhaustFinite(v: PointValues): boolean {
   return Number.isFinite(sum);
 }
 
+/** How the point read the turbine map against its shaft speed, with each line's efficiency at the point's ratio (for the Working). */
+function speedReadingOf(g: ExhaustGas, expansionRatio: number, shaftSpeed: number | null): PointValues['turbineSpeedReading'] {
+  const at = g.atSpeed;
+  if (!at) return { basis: 'mean-of-lines', shaftSpeed: shaftSpeed ?? null, lowerSpeed: null, upperSpeed: null, lowerEfficiency: null, upperEfficiency: null };
+  const lines = at.linesAt(expansionRatio);
+  return { basis: at.speedBasis, shaftSpeed: at.shaftSpeed, lowerSpeed: at.lowerSpeed, upperSpeed: at.upperSpeed, ...lines };
+}
+
 function clearExhaust(v: PointValues): void {
   for (const key of EXHAUST_KEYS) v[key] = null;
+  v.turbineSpeedReading = null;
   v.targetHeld = null;
   v.exhaustCase = null;
   v.turbineMapLocation = null;
@@ -407,6 +481,17 @@ export function exhaustLineFindings(ctx: LineContext, rpm: number): Finding[] {
       ),
     );
   }
+  if (t.efficiencyKind === 'with-bearing-losses' && ex.input.mechanicalEfficiency !== 1) {
+    out.push(
+      exhaustFinding(
+        'mechanical-efficiency-in-map',
+        'info',
+        `The turbine map's efficiency is total-to-static with the bearings' losses in it, so the Plan's mechanical efficiency of ${fmt(ex.input.mechanicalEfficiency * 100, 3)} % is not applied again.`,
+        rpm,
+        { value: ex.input.mechanicalEfficiency, kind: 'fraction' },
+      ),
+    );
+  }
   if (ex.input.pulseFactor !== 1) {
     out.push(
       exhaustFinding(
@@ -440,14 +525,13 @@ export function solveExhaustPoint(
     if (lineFindings.length > 0) atTarget.findings.push(...lineFindings);
     return atTarget;
   }
-  const n = ctx.plan.turbochargers;
-  const etaM = ex.input.mechanicalEfficiency;
+  const etaM = ex.mechanicalEfficiency;
   const divisor = ex.turbine.mapFlowParameterDivisor > 0 ? ex.turbine.mapFlowParameterDivisor : 1;
   const extra: Finding[] = [];
 
   let point: SolvedPoint = atTarget;
   let v = point.values;
-  let g = exhaustGasOf(v, ex, n);
+  let g = exhaustGasOf(v, ctx, ex, turbine);
   let shut = shutGate(turbine, g);
   if (!shut.ok) extra.push(exhaustNotConvergedFinding(op.rpm, 'The expansion ratio with the gates shut', shut.reason));
   const compressorPower = solvedPower(v);
@@ -458,12 +542,12 @@ export function solveExhaustPoint(
 
   if (!(compressorPower > 0)) {
     kind = 'no-power-needed';
-    const open = gatesWideOpen(turbine, g, ex, shut.value);
+    const open = gatesWideOpen(g, ex, shut.value);
     if (!open.ok) extra.push(exhaustNotConvergedFinding(op.rpm, 'The flow split between turbine and open gates', open.reason));
     at = open.value;
   } else if (etaM * shut.value.power >= compressorPower) {
     kind = 'gate-open';
-    const open = gateOpen(turbine, g, compressorPower / etaM, shut.value);
+    const open = gateOpen(g, compressorPower / etaM, shut.value);
     if (!open.ok) extra.push(exhaustNotConvergedFinding(op.rpm, 'The expansion ratio with the gates open', open.reason));
     at = open.value;
   } else {
@@ -473,7 +557,8 @@ export function solveExhaustPoint(
     const target = op.boost;
     const p1 = v.compressorInletPressure;
     // At this boost p2 = p1: pressure ratio 1, no compressor power, so the turbine has power to spare.
-    let low = p1 - ctx.losses.chargeCooler - v.ambientPressure;
+    // (Losses that follow the flow are smaller at the lower flow there, which keeps p2 at or below p1.)
+    let low = p1 - (v.chargeCoolerLoss ?? ctx.losses.chargeCooler.pressureLoss) - v.ambientPressure;
     if (!(v.ambientPressure + low > 0)) low = 0.5 * p1 - v.ambientPressure;
     // Each trial starts the compressor's fixed point from the last one's efficiency, and the last
     // few trials are kept: Brent's answer is always a boost it has tried.
@@ -485,7 +570,7 @@ export function solveExhaustPoint(
       if (kept.length === KEPT_TRIALS) kept.shift();
       kept.push(trial);
       startEfficiency = trial.values.compressorEfficiency ?? undefined;
-      const s = shutGate(turbine, exhaustGasOf(trial.values, ex, n));
+      const s = shutGate(turbine, exhaustGasOf(trial.values, ctx, ex, turbine));
       return etaM * s.value.power - solvedPower(trial.values);
     };
     let a = low;
@@ -529,7 +614,7 @@ export function solveExhaustPoint(
     point = final;
     v = point.values;
     v.boostTarget = target;
-    g = exhaustGasOf(v, ex, n);
+    g = exhaustGasOf(v, ctx, ex, turbine);
     shut = shutGate(turbine, g);
     at = shut.value;
     // At a compressor-map edge the compressor's own state may not settle (its efficiency jumps

@@ -5,9 +5,15 @@
  */
 import {
   AIR_CP,
-  AIR_GAMMA,
   AIR_GAS_CONSTANT,
   ETHANOL,
+  injectionPeriod,
+  LOSS_REFERENCE_DENSITY,
+  ratingFluidFactor,
+  saturationVapourPressure,
+  WATER_TO_AIR_MOLAR_MASS,
+  WATER_VAPOUR_CP,
+  type PressureLossInput,
   ISA_LAPSE_RATE,
   ISA_PRESSURE_EXPONENT,
   ISA_SEA_LEVEL_PRESSURE,
@@ -23,11 +29,78 @@ import { missingMarginWords } from './margin-words';
 import { MAP_REGION_WORDS } from './reach';
 import { lookupByRpm } from './rpm-table';
 import type { LineContext, OperatingPoint, PointValues, RpmTable } from './types';
-import { fmt, kelvin, pct, SOURCES, step, wv, type WorkingKind, type WorkingStep } from './working';
+import { fmt, gammaStep, kelvin, pct, SOURCES, step, wv, type WorkingKind, type WorkingStep } from './working';
 
 const R_UNIT = 'J/(kg K)';
+const HUMID_SOURCE = 'ASHRAE Handbook Fundamentals 2017, ch. 1 (eqs. 20, 24 and 32; saturation pressure eqs. 5–6 through psychrolib)';
+const LOSS_SOURCE = 'Duct loss Δp ∝ ṁ²/ρ (constant loss coefficient, incompressible duct flow)';
+
+/** The ideal-gas source: ISO 2533's dry-air R, or the humid charge's. */
+const idealGasSource = (ctx: LineContext) => (ctx.air.humidityRatio > 0 ? `Ideal-gas law, R of the humid charge (${HUMID_SOURCE})` : SOURCES.idealGas);
+
+/** What the air is in the Working: "humid air" when it holds water. */
+const chargeWords = (ctx: LineContext) => (ctx.air.humidityRatio > 0 ? 'humid air' : 'dry air');
+
+/** The humidity of the air, and the gas constant, cp and γ it gives the charge (none for dry air). */
+function humidSteps(ctx: LineContext): WorkingStep[] {
+  const a = ctx.ambient;
+  const air = ctx.air;
+  if (!(a.relativeHumidity > 0) || !(air.humidityRatio > 0)) return [];
+  const pws = saturationVapourPressure(a.temperature);
+  return [
+    step(
+      'humidity-ratio',
+      'Water in the air (humidity ratio)',
+      `At ${fmt(a.relativeHumidity * 100, 3)} % relative humidity the vapour holds that share of the saturation pressure at the air's temperature; the humidity ratio is the mass of water per kg of dry air.`,
+      'eps_w * RH * p_ws / (p_amb - RH * p_ws)',
+      [wv('eps_w', WATER_TO_AIR_MOLAR_MASS, 'ratio'), wv('RH', a.relativeHumidity, 'fraction'), wv('p_ws', pws, 'pressure'), wv('p_amb', a.pressure, 'pressure')],
+      wv('W', air.humidityRatio, 'none', 'kg/kg'),
+      HUMID_SOURCE,
+    ),
+    step(
+      'humid-gas-constant',
+      'Gas constant of the humid charge',
+      'Water vapour is lighter than air, so a kilogram of humid air takes more room: its gas constant is higher and its density lower at the same pressure and temperature.',
+      'R_a * (1 + W / eps_w) / (1 + W)',
+      [wv('R_a', AIR_GAS_CONSTANT, 'none', R_UNIT), wv('W', air.humidityRatio, 'none', 'kg/kg'), wv('eps_w', WATER_TO_AIR_MOLAR_MASS, 'ratio')],
+      wv('R', air.gasConstant, 'none', R_UNIT),
+      HUMID_SOURCE,
+    ),
+    step(
+      'humid-cp',
+      'Specific heat of the humid charge',
+      'Dry air and water vapour each carry their own heat, by mass.',
+      '(c_pa + W * c_pw) / (1 + W)',
+      [wv('c_pa', AIR_CP, 'none', R_UNIT), wv('W', air.humidityRatio, 'none', 'kg/kg'), wv('c_pw', WATER_VAPOUR_CP, 'none', R_UNIT)],
+      wv('c_p', air.cp, 'none', R_UNIT),
+      HUMID_SOURCE,
+    ),
+    gammaStep('humid-gamma', 'Ratio of specific heats of the humid charge', 'For an ideal gas cv = cp − R.', ['c_p', air.cp], ['R', air.gasConstant], ['gamma', air.gamma]),
+  ];
+}
+
+/** A loss at this point: given (the same at every flow), or scaled from its reference flow and density. */
+function lossStep(id: string, title: string, where: string, loss: PressureLossInput, value: number, flow: number, density: { symbol: string; value: number; words: string }, symbol: string): WorkingStep {
+  if (loss.referenceMassFlow === undefined) {
+    return step(id, title, `${where} Given as the same loss at every flow (state the engine flow it was measured at to have it follow the flow).`, `${symbol}_ref`, [wv(`${symbol}_ref`, loss.pressureLoss, 'pressure')], wv(symbol, value, 'pressure'), SOURCES.given);
+  }
+  const rhoRef = loss.referenceDensity ?? LOSS_REFERENCE_DENSITY;
+  return step(
+    id,
+    `${title} at this flow`,
+    `${where} The loss stated at an engine air flow of ${fmt(loss.referenceMassFlow)} kg/s and ${fmt(rhoRef)} kg/m³${loss.referenceDensity === undefined ? ' (standard sea-level air, as none was stated)' : ''}, scaled with the square of the flow over the density (${density.words}).`,
+    `${symbol}_ref * (m_dot_air / m_dot_ref) ^ 2 * rho_ref / ${density.symbol}`,
+    [wv(`${symbol}_ref`, loss.pressureLoss, 'pressure'), wv('m_dot_air', flow, 'massFlow'), wv('m_dot_ref', loss.referenceMassFlow, 'massFlow'), wv('rho_ref', rhoRef, 'density'), wv(density.symbol, density.value, 'density')],
+    wv(symbol, value, 'pressure'),
+    LOSS_SOURCE,
+  );
+}
 
 function ambientSteps(ctx: LineContext): WorkingStep[] {
+  return [...pressureTemperatureSteps(ctx), ...humidSteps(ctx)];
+}
+
+function pressureTemperatureSteps(ctx: LineContext): WorkingStep[] {
   const a = ctx.ambient;
   const steps: WorkingStep[] = [];
   if (a.input.altitude !== undefined) {
@@ -300,11 +373,11 @@ function airflowSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
     step(
       'manifold-density',
       'Air density in the manifold',
-      'Ideal gas: density is pressure over R times absolute temperature.',
+      `Ideal gas: density is pressure over R times absolute temperature (R of ${chargeWords(ctx)}).`,
       'p_man / (R * T_man)',
-      [wv('p_man', v.manifoldPressure, 'pressure'), wv('R', AIR_GAS_CONSTANT, 'none', R_UNIT), wv('T_man', v.manifoldTemperature, 'temperature')],
+      [wv('p_man', v.manifoldPressure, 'pressure'), wv('R', ctx.air.gasConstant, 'none', R_UNIT), wv('T_man', v.manifoldTemperature, 'temperature')],
       wv('rho_man', v.airDensity, 'density'),
-      SOURCES.idealGas,
+      idealGasSource(ctx),
     ),
     step(
       'engine-airflow',
@@ -333,11 +406,11 @@ function airflowSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
     step(
       'inlet-density',
       'Air density at the compressor inlet',
-      'Ideal gas at the compressor inlet.',
+      `Ideal gas at the compressor inlet (${chargeWords(ctx)}).`,
       'p_1 / (R * T_1)',
-      [wv('p_1', v.compressorInletPressure, 'pressure'), wv('R', AIR_GAS_CONSTANT, 'none', R_UNIT), wv('T_1', v.compressorInletTemperature, 'temperature')],
+      [wv('p_1', v.compressorInletPressure, 'pressure'), wv('R', ctx.air.gasConstant, 'none', R_UNIT), wv('T_1', v.compressorInletTemperature, 'temperature')],
       wv('rho_1', v.inletDensity, 'density'),
-      SOURCES.idealGas,
+      idealGasSource(ctx),
     ),
     step(
       'inlet-volume-flow',
@@ -421,13 +494,45 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       step('fuel-density', `Density of ${name}`, choice.kind === 'petrol' ? 'The middle of the 720–780 kg/m³ range.' : 'Liquid density near room temperature.', 'rho_f', [wv('rho_f', p.density, 'density')], wv('rho_f', p.density, 'density'), SOURCES.fuelProperties),
     );
   }
+  // Fuel and power follow the dry air the cylinders trap: the engine's air flow itself for dry air and a four-stroke.
+  const humid = ctx.air.humidityRatio > 0;
+  const trapping = ctx.engine.trappingEfficiency;
+  const burnSymbol = humid || trapping < 1 ? 'm_dot_tr' : 'm_dot_air';
+  const burnAir = v.trappedAirMassFlow ?? v.engineMassFlow;
+  const dryAir = v.dryAirMassFlow ?? v.engineMassFlow;
+  if (humid) {
+    steps.push(
+      step(
+        'dry-air-flow',
+        'Dry air in the engine\'s air flow',
+        'The water in humid air burns no fuel: fuel and power follow the dry air alone.',
+        'm_dot_air / (1 + W)',
+        [wv('m_dot_air', v.engineMassFlow, 'massFlow'), wv('W', ctx.air.humidityRatio, 'none', 'kg/kg')],
+        wv(trapping < 1 ? 'm_dot_da' : 'm_dot_tr', dryAir, 'massFlow'),
+        HUMID_SOURCE,
+      ),
+    );
+  }
+  if (trapping < 1) {
+    steps.push(
+      step(
+        'trapped-air',
+        'Air the cylinders trap',
+        `A two-stroke scavenges with fresh charge: of the air delivered, the share ${pct(trapping)} stays in the cylinder when the ports close and the rest short-circuits to the exhaust. Fuel and power follow the trapped air; the compressor still passes all of it (charging efficiency = delivery ratio × trapping efficiency).`,
+        `${humid ? 'm_dot_da' : 'm_dot_air'} * eta_tr`,
+        [wv(humid ? 'm_dot_da' : 'm_dot_air', dryAir, 'massFlow'), wv('eta_tr', trapping, 'fraction')],
+        wv('m_dot_tr', burnAir, 'massFlow'),
+        'Heywood, Internal Combustion Engine Fundamentals (1988), §6.6 (trapping efficiency); the trapping efficiency is the Study\'s',
+      ),
+    );
+  }
   steps.push(
     step(
       'fuel-mass-flow',
       'Fuel mass flow',
-      'Lambda is the air-fuel ratio over the stoichiometric one; below 1 the mixture is rich.',
-      'm_dot_air / (lambda * AFR_s)',
-      [wv('m_dot_air', v.engineMassFlow, 'massFlow'), wv('lambda', v.lambda, 'ratio'), wv('AFR_s', p.stoichiometricAfr, 'ratio')],
+      `Lambda is the air-fuel ratio over the stoichiometric one; below 1 the mixture is rich.${burnSymbol === 'm_dot_tr' ? ' The air is the dry air the cylinders trap.' : ''}`,
+      `${burnSymbol} / (lambda * AFR_s)`,
+      [wv(burnSymbol, burnAir, 'massFlow'), wv('lambda', v.lambda, 'ratio'), wv('AFR_s', p.stoichiometricAfr, 'ratio')],
       wv('m_dot_f', v.fuelMassFlow, 'massFlow'),
       SOURCES.definition,
     ),
@@ -469,9 +574,9 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         : step(
             'brake-power',
             'Brake power from the air',
-            'The mixture is rich or stoichiometric (lambda at or below 1), so the air sets the power: only the fuel it can burn, m_dot_air/AFR_s, releases its heat; the extra fuel does not. η_b·LHV·min(m_dot_f, m_dot_air/AFR_s) takes the air.',
-            'eta_b * m_dot_air * LHV / AFR_s',
-            [wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'), wv('m_dot_air', v.engineMassFlow, 'massFlow'), wv('LHV', p.lowerHeatingValue, 'energyPerMass'), wv('AFR_s', p.stoichiometricAfr, 'ratio')],
+            `The mixture is rich or stoichiometric (lambda at or below 1), so the air sets the power: only the fuel it can burn, ${burnSymbol}/AFR_s, releases its heat; the extra fuel does not. η_b·LHV·min(m_dot_f, ${burnSymbol}/AFR_s) takes the air.`,
+            `eta_b * ${burnSymbol} * LHV / AFR_s`,
+            [wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'), wv(burnSymbol, burnAir, 'massFlow'), wv('LHV', p.lowerHeatingValue, 'energyPerMass'), wv('AFR_s', p.stoichiometricAfr, 'ratio')],
             wv('P_b', v.brakePower, 'power'),
             SOURCES.power,
           ),
@@ -537,20 +642,30 @@ function injectorSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   if (dp <= 0 || v.injectorDuty === null || v.injectorCapacity === null) return steps;
   const both = v.injectorStage === 'both' && inj.secondary !== undefined;
   const sets = both ? [['p', inj.primary], ['s', inj.secondary!]] as const : [['p', inj.primary]] as const;
+  const fuelDensity = v.fuelDensity ?? undefined;
+  const oneInjector = (set: typeof inj.primary) => scaleInjectorFlow(set.ratedFlow, set.ratedPressure, dp) * ratingFluidFactor(set, fuelDensity);
   for (const [tag, set] of sets) {
+    const rated = set.ratingFluidDensity !== undefined && fuelDensity !== undefined;
     steps.push(
       step(
         `injector-flow-${tag === 'p' ? 'primary' : 'secondary'}`,
         `Flow of one ${tag === 'p' ? 'primary' : 'secondary'} injector`,
-        'An injector is an orifice: its flow goes with the square root of the pressure across it.',
-        'Q_rated * sqrt(dP_inj / dP_rated)',
-        [wv('Q_rated', set.ratedFlow, 'volumeFlow'), wv('dP_inj', dp, 'pressure'), wv('dP_rated', set.ratedPressure, 'pressure')],
-        wv(`Q_inj_${tag}`, scaleInjectorFlow(set.ratedFlow, set.ratedPressure, dp), 'volumeFlow'),
+        rated
+          ? `An injector is an orifice: its flow goes with the square root of the pressure across it, and, at one pressure, with the square root of the rating fluid's density over the fuel's (rated with a ${fmt(set.ratingFluidDensity!)} kg/m³ fluid).`
+          : 'An injector is an orifice: its flow goes with the square root of the pressure across it (rated with the fuel itself, as no rating fluid is named).',
+        rated ? 'Q_rated * sqrt(dP_inj / dP_rated) * sqrt(rho_rating / rho_f)' : 'Q_rated * sqrt(dP_inj / dP_rated)',
+        [
+          wv('Q_rated', set.ratedFlow, 'volumeFlow'),
+          wv('dP_inj', dp, 'pressure'),
+          wv('dP_rated', set.ratedPressure, 'pressure'),
+          ...(rated ? [wv('rho_rating', set.ratingFluidDensity!, 'density'), wv('rho_f', fuelDensity!, 'density')] : []),
+        ],
+        wv(`Q_inj_${tag}`, oneInjector(set), 'volumeFlow'),
         SOURCES.injector,
       ),
     );
   }
-  const qp = scaleInjectorFlow(inj.primary.ratedFlow, inj.primary.ratedPressure, dp);
+  const qp = oneInjector(inj.primary);
   steps.push(
     both
       ? step(
@@ -558,7 +673,7 @@ function injectorSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
           'Flow of all open injectors',
           `Above ${fmt(inj.secondary!.switchOverRpm)} rpm the secondaries open too; both sets share the fuel in proportion to their flow, so all run at one duty.`,
           'n_p * Q_inj_p + n_s * Q_inj_s',
-          [wv('n_p', inj.primary.count, 'count'), wv('Q_inj_p', qp, 'volumeFlow'), wv('n_s', inj.secondary!.count, 'count'), wv('Q_inj_s', scaleInjectorFlow(inj.secondary!.ratedFlow, inj.secondary!.ratedPressure, dp), 'volumeFlow')],
+          [wv('n_p', inj.primary.count, 'count'), wv('Q_inj_p', qp, 'volumeFlow'), wv('n_s', inj.secondary!.count, 'count'), wv('Q_inj_s', oneInjector(inj.secondary!), 'volumeFlow')],
           wv('Q_avail', v.injectorCapacity, 'volumeFlow'),
           SOURCES.definition,
         )
@@ -571,16 +686,45 @@ function injectorSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
           wv('Q_avail', v.injectorCapacity, 'volumeFlow'),
           SOURCES.definition,
         ),
-    step(
-      'injector-duty',
-      'Injector duty cycle',
-      'The share of the time the injectors must be open: fuel needed over what they pass when open all the time. Common practice keeps it at or under 80–85 %.',
-      'Q_f / Q_avail',
-      [wv('Q_f', v.fuelVolumeFlow, 'volumeFlow'), wv('Q_avail', v.injectorCapacity, 'volumeFlow')],
-      wv('duty', v.injectorDuty, 'fraction'),
-      `${SOURCES.definition}; limits: ${SOURCES.commonPractice}`,
-    ),
   );
+  const deadSets = (both ? [inj.primary, inj.secondary!] : [inj.primary]).filter((s) => s.deadTime !== undefined && s.deadTime.time > 0);
+  if (deadSets.length === 0) {
+    steps.push(
+      step(
+        'injector-duty',
+        'Injector duty cycle',
+        'The share of the time the injectors must be open: fuel needed over what they pass when open all the time (no dead time given). Common practice keeps it at or under 80–85 %.',
+        'Q_f / Q_avail',
+        [wv('Q_f', v.fuelVolumeFlow, 'volumeFlow'), wv('Q_avail', v.injectorCapacity, 'volumeFlow')],
+        wv('duty', v.injectorDuty, 'fraction'),
+        `${SOURCES.definition}; limits: ${SOURCES.commonPractice}`,
+      ),
+    );
+  } else {
+    const worst = deadSets.reduce((a, b) => (b.deadTime!.time > a.deadTime!.time ? b : a));
+    const nR = revolutionsPerCycle(ctx.engine.strokes);
+    const period = injectionPeriod(v.rpm, nR);
+    steps.push(
+      step(
+        'injection-period',
+        'Time between injections',
+        `Each injector fires once per working cycle (sequential injection), and a ${ctx.engine.strokes}-stroke completes a cycle every ${nR} revolution${nR === 1 ? '' : 's'}.`,
+        '60 * n_R / N',
+        [wv('n_R', nR, 'count'), wv('N', v.rpm, 'speed')],
+        wv('t_inj', period, 'none', 's'),
+        SOURCES.heywoodAirflow,
+      ),
+      step(
+        'injector-duty',
+        'Injector duty cycle with the dead time',
+        `The fuel needs the injectors open for its share of the time, and every opening loses the dead time (${fmt(worst.deadTime!.time * 1000, 3)} ms at ${fmt(worst.deadTime!.voltage, 3)} V${deadSets.length > 1 || both ? ', the longer of the open sets' : ''}; longer at a lower battery voltage). Common practice keeps it at or under 80–85 %.`,
+        'Q_f / Q_avail + t_dead / t_inj',
+        [wv('Q_f', v.fuelVolumeFlow, 'volumeFlow'), wv('Q_avail', v.injectorCapacity, 'volumeFlow'), wv('t_dead', worst.deadTime!.time, 'none', 's'), wv('t_inj', period, 'none', 's')],
+        wv('duty', v.injectorDuty, 'fraction'),
+        `${SOURCES.definition}; dead time: the injector maker's data (${SOURCES.given.toLowerCase()}); limits: ${SOURCES.commonPractice}`,
+      ),
+    );
+  }
   if (ctx.pumpFlowAvailable !== null) {
     steps.push(
       step(
@@ -624,8 +768,15 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
   );
   if (held) steps.push(held);
   if (v.lambda !== null) steps.push(lookupStep('lambda', 'Lambda target at this speed', t.lambda, rpm, 'lambda', v.lambda, 'ratio'));
+  const inletLoss = v.inletLoss ?? ctx.losses.inlet.pressureLoss;
+  const coolerLoss = v.chargeCoolerLoss ?? ctx.losses.chargeCooler.pressureLoss;
   steps.push(
-    step('inlet-pressure', 'Compressor inlet pressure', 'Ambient pressure less what the filter and intake lose.', 'p_amb - dp_in', [wv('p_amb', v.ambientPressure, 'pressure'), wv('dp_in', ctx.losses.inlet, 'pressure')], wv('p_1', v.compressorInletPressure, 'pressure'), SOURCES.definition),
+    lossStep('inlet-loss', 'Filter and intake loss', 'What the filter and intake lose before the compressor.', ctx.losses.inlet, inletLoss, v.engineMassFlow, {
+      symbol: 'rho_in',
+      value: v.ambientPressure / (ctx.air.gasConstant * v.compressorInletTemperature),
+      words: 'of the intake air at ambient pressure and the compressor inlet temperature, p_amb/(R·T_1)',
+    }, 'dp_in'),
+    step('inlet-pressure', 'Compressor inlet pressure', 'Ambient pressure less what the filter and intake lose.', 'p_amb - dp_in', [wv('p_amb', v.ambientPressure, 'pressure'), wv('dp_in', inletLoss, 'pressure')], wv('p_1', v.compressorInletPressure, 'pressure'), SOURCES.definition),
     step(
       'inlet-temperature',
       'Compressor inlet temperature',
@@ -636,13 +787,18 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
       SOURCES.definition,
     ),
     step('manifold-pressure', 'Manifold pressure', 'Boost is gauge pressure: it adds to the ambient pressure.', 'p_amb + boost', [wv('p_amb', v.ambientPressure, 'pressure'), wv('boost', v.boost, 'pressure')], wv('p_man', v.manifoldPressure, 'pressure'), SOURCES.definition),
+    lossStep('charge-cooler-loss', 'Charge-cooler and pipe loss', 'What the charge cooler and pipes lose from the compressor to the manifold.', ctx.losses.chargeCooler, coolerLoss, v.engineMassFlow, {
+      symbol: 'rho_man',
+      value: v.airDensity,
+      words: 'of the charge in the manifold',
+    }, 'dp_cc'),
     v.throttled
       ? step(
           'outlet-pressure',
           'Compressor outlet pressure',
           'The manifold is below the compressor inlet pressure: the throttle after the compressor takes the drop, so the compressor is taken at its inlet pressure.',
           'max(p_man + dp_cc, p_1)',
-          [wv('p_man', v.manifoldPressure, 'pressure'), wv('dp_cc', ctx.losses.chargeCooler, 'pressure'), wv('p_1', v.compressorInletPressure, 'pressure')],
+          [wv('p_man', v.manifoldPressure, 'pressure'), wv('dp_cc', coolerLoss, 'pressure'), wv('p_1', v.compressorInletPressure, 'pressure')],
           wv('p_2', v.compressorOutletPressure, 'pressure'),
           SOURCES.definition,
         )
@@ -651,7 +807,7 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
           'Compressor outlet pressure',
           'The compressor must also make up what the charge cooler and pipes lose on the way to the manifold.',
           'p_man + dp_cc',
-          [wv('p_man', v.manifoldPressure, 'pressure'), wv('dp_cc', ctx.losses.chargeCooler, 'pressure')],
+          [wv('p_man', v.manifoldPressure, 'pressure'), wv('dp_cc', coolerLoss, 'pressure')],
           wv('p_2', v.compressorOutletPressure, 'pressure'),
           SOURCES.definition,
         ),
@@ -669,7 +825,7 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
       'Ideal (isentropic) outlet temperature',
       'The temperature a perfect compressor would reach at this pressure ratio.',
       'T_1 * PR ^ ((gamma - 1) / gamma)',
-      [wv('T_1', v.compressorInletTemperature, 'temperature'), wv('PR', v.pressureRatio, 'ratio'), wv('gamma', AIR_GAMMA, 'ratio')],
+      [wv('T_1', v.compressorInletTemperature, 'temperature'), wv('PR', v.pressureRatio, 'ratio'), wv('gamma', ctx.air.gamma, 'ratio')],
       wv('T_2s', v.isentropicOutletTemperature, 'temperature'),
       SOURCES.compressorThermo,
     ),
@@ -685,7 +841,7 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
             'Compressor power',
             'The shaft power that heats the air from T_1 to T_2.',
             'm_dot * c_p * (T_2 - T_1)',
-            [wv('m_dot', v.massFlow, 'massFlow'), wv('c_p', AIR_CP, 'none', R_UNIT), wv('T_2', t2, 'temperature'), wv('T_1', v.compressorInletTemperature, 'temperature')],
+            [wv('m_dot', v.massFlow, 'massFlow'), wv('c_p', ctx.air.cp, 'none', R_UNIT), wv('T_2', t2, 'temperature'), wv('T_1', v.compressorInletTemperature, 'temperature')],
             wv('P_c', v.compressorPower, 'power'),
             SOURCES.compressorThermo,
           ),

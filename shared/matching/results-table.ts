@@ -60,6 +60,16 @@ export const RESULT_COLUMNS: ResultColumn[] = [
   { key: 'wastegateMargin', label: 'Wastegate margin', kind: 'fraction' },
 ];
 
+/**
+ * Columns the CSV export appends after the plan's verdict, with their headers exactly as written:
+ * they came later than the rest, so the earlier columns keep their places.
+ */
+export const APPENDED_RESULT_COLUMNS: { key: keyof PointValues; header: string }[] = [
+  { key: 'exhaustGasCp', header: 'Exhaust gas cp (J/(kg K))' },
+  { key: 'exhaustGasGamma', header: 'Exhaust gas gamma' },
+  { key: 'humidityRatio', header: 'Humidity ratio (kg/kg)' },
+];
+
 /** The SI unit text written beside a column in exports. */
 export function siUnitText(column: ResultColumn): string {
   switch (column.kind) {
@@ -118,15 +128,17 @@ export function reachableText(values: PointValues | null): 'yes' | 'no' {
 /**
  * The results as plain records for a CSV writer: headers carry SI units; numbers stay numbers.
  * A point the compressor cannot deliver has empty result cells; "Reachable" says why, and the
- * plan's verdict is on every row of the plan. The last three columns came later than the rest and
- * are appended, so that the earlier columns keep their places.
+ * plan's verdict is on every row of the plan. "Map region", "Reachable" and "Plan verdict" came
+ * later than the value columns, and the exhaust gas's cp and gamma and the air's humidity ratio
+ * later still (APPENDED_RESULT_COLUMNS): each group is appended, so that earlier columns keep their
+ * places.
  */
 export function resultRecords(result: StudyResult): { fields: string[]; data: (string | number | null)[][] } {
   const head = RESULT_COLUMNS.map((c) => {
     const unit = siUnitText(c);
     return unit ? `${c.label} (${unit})` : c.label;
   });
-  const fields = ['Plan', 'Scenario', 'Boost row', ...head, 'Findings', 'Map region', 'Reachable', 'Plan verdict'];
+  const fields = ['Plan', 'Scenario', 'Boost row', ...head, 'Findings', 'Map region', 'Reachable', 'Plan verdict', ...APPENDED_RESULT_COLUMNS.map((c) => c.header)];
   const verdicts = new Map(planVerdicts(result).map((v) => [v.planIndex, v]));
   const data = resultRows(result).map((r) => {
     const verdict = verdicts.get(r.line.planIndex);
@@ -142,6 +154,10 @@ export function resultRecords(result: StudyResult): { fields: string[]; data: (s
       mapRegionText(r.values),
       reachableText(r.values),
       verdict ? verdict.headline : VERDICT_WORDS['not-judged'],
+      ...APPENDED_RESULT_COLUMNS.map((c) => {
+        const v = r.values?.[c.key];
+        return typeof v === 'number' ? v : null;
+      }),
     ];
   });
   return { fields, data };

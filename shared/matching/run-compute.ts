@@ -4,7 +4,7 @@
  */
 import { efficiencyFromBsfc, fuelProperties, type FuelChoice } from '../physics';
 import { STANDARD_REFERENCE, type ComputeRequest, type ComputeResponse, type ComputeResultPoint } from '../schemas/compute';
-import { resolveAmbient } from './ambient';
+import { chargeGasOf, resolveAmbient } from './ambient';
 import { pointWorking } from './explain-point';
 import { resolveRequirements } from './requirements';
 import { DEFAULT_COMPRESSOR_EFFICIENCY, solvePoint } from './run-point';
@@ -29,17 +29,19 @@ export function computeContext(req: ComputeRequest): LineContext {
         : { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: f.brakeThermalEfficiency!, bsfc: null, drivetrainLoss: f.drivetrainLoss ?? null };
   }
   const reference = req.mapReference ?? STANDARD_REFERENCE;
+  const ambient = resolveAmbient(req.ambient);
   return {
-    engine: { displacement: req.engine.displacement, cylinders: req.engine.cylinders, strokes: req.engine.strokes, limits: {} },
+    engine: { displacement: req.engine.displacement, cylinders: req.engine.cylinders, strokes: req.engine.strokes, limits: {}, trappingEfficiency: 1 },
     tables: { volumetricEfficiency: null, boost: null, lambda: null },
     fuel: choice && properties ? { choice, properties } : null,
     injectors: null,
     pumpFlowAvailable: null,
     power,
-    losses: { inlet: req.losses?.inlet ?? 0, chargeCooler: req.losses?.chargeCooler ?? 0, inletTemperatureRise: 0 },
+    losses: { inlet: req.losses?.inlet ?? { pressureLoss: 0 }, chargeCooler: req.losses?.chargeCooler ?? { pressureLoss: 0 }, inletTemperatureRise: 0 },
     // Each point states its own manifold temperature; this placeholder is never read.
     intercooler: { kind: 'effectiveness', effectiveness: 0 },
-    ambient: resolveAmbient(req.ambient),
+    ambient,
+    air: chargeGasOf(ambient),
     plan: {
       name: 'compute request',
       turbochargers: req.turbochargers ?? 1,

@@ -1,22 +1,22 @@
 /**
  * One operating point: from ambient, boost and the engine's breathing to the compressor's
  * pressure ratio, corrected flow, outlet temperature and power, then fuel, power and injectors.
- * Each point is solved on its own (quasi-steady), as the trade does by hand.
+ * Each point is solved on its own (quasi-steady), as the trade does by hand. The charge is the
+ * line's air (dry, or humid with its own gas constant, cp and γ); fuel and power follow the dry
+ * air the cylinders trap.
  */
 // Imported from the modules themselves, not the physics index: re-export chains cost on the hot path.
-import { revolutionsPerCycle } from '../physics/airflow';
-import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT, isentropicExponent } from '../physics/gas';
-import { injectorPressureDifference as injectorPressureDifferenceOf, railGaugePressure, setCapacity } from '../physics/injectors';
+import { revolutionsPerCycle, trappedAirMassFlow } from '../physics/airflow';
+import { isentropicExponent } from '../physics/gas';
+import { dryAirMassFlow } from '../physics/humid-air';
+import { dutyWithDeadTime, injectionPeriod, injectorPressureDifference as injectorPressureDifferenceOf, railGaugePressure, setCapacity } from '../physics/injectors';
+import { lossFollowsFlow, scaledPressureLoss } from '../physics/losses';
 import type { CompressorModel, CompressorReading, MapLocation } from './compressor-model';
 import { lineInputFindings, pointFindings, unsolvableFinding } from './findings';
 import { assumptionCovers, isReachable, mapRegionOf } from './reach';
 import type { EfficiencySource, Finding, LineContext, OperatingPoint, PointMarginBasis, PointValues } from './types';
-import { fmt } from './working';
+import { fmt, kelvin } from './working';
 
-// Module-level copies: the solver reads them for every point.
-const R = AIR_GAS_CONSTANT;
-const CP = AIR_CP;
-const AIR_ISENTROPIC_EXPONENT = isentropicExponent(AIR_GAMMA);
 
 /** Compressor efficiency used when neither a point, a Plan nor a map gives one, fraction (from memory: a mid-island figure). */
 export const DEFAULT_COMPRESSOR_EFFICIENCY = 0.7;
@@ -26,6 +26,8 @@ export const MAX_ITERATIONS = 40;
 export const EFFICIENCY_TOLERANCE = 1e-7;
 /** From this pass on, each new efficiency is averaged with the last to damp any back-and-forth at a map edge. */
 const DAMPING_FROM_PASS = 10;
+/** Losses that follow the flow have settled when the pressure ratio changes by less than this share between passes. */
+export const PRESSURE_RATIO_TOLERANCE = 1e-10;
 
 /** The inputs of one point that vary with rpm. */
 export interface PointOperation {
@@ -70,10 +72,18 @@ export function lineProblems(ctx: LineContext): string[] {
   const { pressure, temperature } = ctx.ambient;
   if (!positive(pressure)) problems.push(`Ambient pressure ${fmt(pressure)} Pa is not positive.`);
   if (!positive(temperature)) problems.push(`Ambient temperature ${fmt(temperature)} K is not positive.`);
-  const p1 = pressure - ctx.losses.inlet;
-  if (!positive(p1)) problems.push(`The inlet loss ${fmt(ctx.losses.inlet)} Pa leaves no pressure at the compressor inlet.`);
+  const inlet = ctx.losses.inlet;
+  if (!(inlet.pressureLoss >= 0)) problems.push('Inlet loss is negative.');
+  else if (!lossFollowsFlow(inlet) && !positive(pressure - inlet.pressureLoss)) problems.push(`The inlet loss ${fmt(inlet.pressureLoss)} Pa leaves no pressure at the compressor inlet.`);
   if (!positive(temperature + ctx.losses.inletTemperatureRise)) problems.push('Compressor inlet temperature is not positive.');
-  if (!(ctx.losses.chargeCooler >= 0)) problems.push('Charge-cooler loss is negative.');
+  if (!(ctx.losses.chargeCooler.pressureLoss >= 0)) problems.push('Charge-cooler loss is negative.');
+  for (const [what, loss] of [['inlet', inlet], ['charge-cooler', ctx.losses.chargeCooler]] as const) {
+    if (loss.referenceMassFlow !== undefined && !positive(loss.referenceMassFlow)) problems.push(`The ${what} loss's reference flow is not positive.`);
+    if (loss.referenceDensity !== undefined && !positive(loss.referenceDensity)) problems.push(`The ${what} loss's reference density is not positive.`);
+  }
+  if (!positive(ctx.air.gasConstant) || !positive(ctx.air.cp) || !(ctx.air.gamma > 1))
+    problems.push(`Relative humidity ${fmt(ctx.ambient.relativeHumidity * 100, 3)} % is more water than air at ${fmt(pressure / 1000)} kPa and ${kelvin(temperature)} can hold.`);
+  if (!(positive(ctx.engine.trappingEfficiency) && ctx.engine.trappingEfficiency <= 1)) problems.push('Trapping efficiency is not between 0 and 1.');
   if (!positive(ctx.engine.displacement)) problems.push('Displacement is not positive.');
   if (!(Number.isInteger(ctx.plan.turbochargers) && ctx.plan.turbochargers >= 1)) problems.push('Turbocharger count is not a whole number of at least 1.');
   if (!(positive(ctx.plan.compressorEfficiency) && ctx.plan.compressorEfficiency <= 1)) problems.push('Plan compressor efficiency is not between 0 and 1.');
@@ -91,7 +101,11 @@ export function lineProblems(ctx: LineContext): string[] {
   const inj = ctx.injectors;
   if (inj) {
     const sets = inj.secondary ? [inj.primary, inj.secondary] : [inj.primary];
-    for (const s of sets) if (!(positive(s.count) && positive(s.ratedFlow) && positive(s.ratedPressure))) problems.push('An injector set has a non-positive count, flow or rated pressure.');
+    for (const s of sets) {
+      if (!(positive(s.count) && positive(s.ratedFlow) && positive(s.ratedPressure))) problems.push('An injector set has a non-positive count, flow or rated pressure.');
+      if (s.ratingFluidDensity !== undefined && !positive(s.ratingFluidDensity)) problems.push("An injector set's rating fluid density is not positive.");
+      if (s.deadTime !== undefined && !(s.deadTime.time >= 0)) problems.push("An injector set's dead time is negative.");
+    }
     if (!positive(inj.fuelPressure)) problems.push('Fuel pressure is not positive.');
   }
   return problems;
@@ -131,22 +145,49 @@ export function solvePoint(
     problems.push(`Boost ${fmt(boost / 1000)} kPa makes the manifold pressure ${fmt(manifoldPressure / 1000)} kPa, which is not positive.`);
   if (problems.length > 0) return unsolved(rpm, problems);
 
-  const p1 = ambientPressure - ctx.losses.inlet;
+  const air = ctx.air;
+  const R = air.gasConstant;
+  const CP = air.cp;
+  const exponent = isentropicExponent(air.gamma);
   const t1 = ambientTemperature + ctx.losses.inletTemperatureRise;
-  const p2Unthrottled = manifoldPressure + ctx.losses.chargeCooler;
-  // The throttle sits after the compressor: below the compressor inlet pressure it takes the drop.
-  const throttled = p2Unthrottled < p1;
-  const p2 = throttled ? p1 : p2Unthrottled;
-  const pressureRatio = p2 / p1;
-  const inletDensity = p1 / (R * t1);
-  const temperatureRatio = Math.pow(pressureRatio, AIR_ISENTROPIC_EXPONENT);
-  const isentropicOutletTemperature = t1 * temperatureRatio;
   const turbochargers = ctx.plan.turbochargers;
   // Volume of manifold-density air the engine swallows per second, m³/s.
   const sweptFlow = (ve * ctx.engine.displacement * rpm) / (60 * revolutionsPerCycle(ctx.engine.strokes));
   const refTemperature = ctx.reference.temperature;
   const refPressure = ctx.reference.pressure;
-  const correctionFactor = Math.sqrt(t1 / refTemperature) / (p1 / refPressure);
+
+  // The compressor's pressures follow the losses, and losses that follow the flow follow the
+  // manifold temperature (through the flow and the density): set at one manifold temperature.
+  const inletLossInput = ctx.losses.inlet;
+  const coolerLossInput = ctx.losses.chargeCooler;
+  const lossesFollowFlow = lossFollowsFlow(inletLossInput) || lossFollowsFlow(coolerLossInput);
+  // The intake's air: ambient pressure at the compressor inlet temperature.
+  const upstreamDensity = ambientPressure / (R * t1);
+  let inletLoss = 0;
+  let chargeCoolerLoss = 0;
+  let p1 = 0;
+  let p2 = 0;
+  let throttled = false;
+  let pressureRatio = 1;
+  let temperatureRatio = 1;
+  let correctionFactor = 1;
+  // Corrected flow per kelvin of manifold temperature: ṁc = flowPerKelvin / T_man.
+  let flowPerKelvin = 0;
+  const setLosses = (manifoldTemperatureNow: number): void => {
+    const density = manifoldPressure / (R * manifoldTemperatureNow);
+    const engineFlow = sweptFlow * density;
+    inletLoss = scaledPressureLoss(inletLossInput, engineFlow, upstreamDensity);
+    chargeCoolerLoss = scaledPressureLoss(coolerLossInput, engineFlow, density);
+    p1 = ambientPressure - inletLoss;
+    const p2Unthrottled = manifoldPressure + chargeCoolerLoss;
+    // The throttle sits after the compressor: below the compressor inlet pressure it takes the drop.
+    throttled = p2Unthrottled < p1;
+    p2 = throttled ? p1 : p2Unthrottled;
+    pressureRatio = p2 / p1;
+    temperatureRatio = Math.pow(pressureRatio, exponent);
+    correctionFactor = Math.sqrt(t1 / refTemperature) / (p1 / refPressure);
+    flowPerKelvin = ((sweptFlow * manifoldPressure) / R / turbochargers) * correctionFactor;
+  };
 
   const planFallback = op.compressorEfficiency ?? ctx.plan.compressorEfficiency;
   const offMapEfficiency = op.compressorEfficiency === undefined ? ctx.plan.offMapEfficiency : undefined;
@@ -156,8 +197,6 @@ export function solvePoint(
   const fallback = planFallback;
   const fallbackSource: EfficiencySource = op.compressorEfficiency !== undefined ? 'point' : 'plan';
   const efficiencyFromMap = model !== null && op.compressorEfficiency === undefined;
-  // Corrected flow per kelvin of manifold temperature: ṁc = flowPerKelvin / T_man.
-  const flowPerKelvin = ((sweptFlow * manifoldPressure) / R / turbochargers) * correctionFactor;
 
   let manifoldTemperature: number;
   let efficiency = fallback;
@@ -168,26 +207,57 @@ export function solvePoint(
   const ic = ctx.intercooler;
   const effectiveness = ic.kind === 'effectiveness' ? ic.effectiveness : 0;
   const coolantTemperature = ic.kind === 'effectiveness' ? (ic.coolantTemperature ?? ambientTemperature) : ambientTemperature;
+  // With fixed losses the argument does not matter; otherwise it is the first guess of the manifold temperature.
+  setLosses(fixedTemperature ?? t1);
 
   if (fixedTemperature !== null) {
     manifoldTemperature = fixedTemperature;
     if (model) reading = readMap(model, flowPerKelvin / manifoldTemperature, pressureRatio);
-  } else if (!efficiencyFromMap) {
+  } else if (!efficiencyFromMap && !lossesFollowFlow) {
     manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
     if (model) reading = readMap(model, flowPerKelvin / manifoldTemperature, pressureRatio);
   } else {
-    // T_man depends on T2, T2 on the efficiency, and the efficiency on where the flow (set by
-    // T_man) lands on the map: iterate to the fixed point.
+    // T_man depends on T2, T2 on the efficiency and the pressure ratio, the efficiency on where the
+    // flow (set by T_man) lands on the map, and losses that follow the flow on the flow itself:
+    // iterate to the fixed point.
     converged = false;
     manifoldTemperature = t1;
     // A caller solving nearby boosts in turn starts from the last settled efficiency: fewer passes.
-    if (options.startEfficiency !== undefined && options.startEfficiency > 0 && options.startEfficiency <= 1) efficiency = options.startEfficiency;
+    if (efficiencyFromMap && options.startEfficiency !== undefined && options.startEfficiency > 0 && options.startEfficiency <= 1) efficiency = options.startEfficiency;
     const maxPasses = options.maxPasses !== undefined && options.maxPasses >= 1 ? Math.min(MAX_ITERATIONS, Math.floor(options.maxPasses)) : MAX_ITERATIONS;
+    // The manifold temperature the losses were last set at, and the pass before's, with how far
+    // the temperature each gave was from it: while the efficiency holds (nearly) still the losses settle
+    // by secant steps, far fewer passes than plain substitution takes.
+    let lossTemperature = fixedTemperature ?? t1;
+    let lastLossTemperature = Number.NaN;
+    let lastResidual = Number.NaN;
+    let lastEfficiency = Number.NaN;
     for (iterations = 1; iterations <= maxPasses; iterations++) {
       manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
-      reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
-      const next = reading.efficiency ?? fallbackAt(reading);
-      if (Math.abs(next - efficiency) <= EFFICIENCY_TOLERANCE) {
+      let pressuresSettled = true;
+      if (lossesFollowFlow) {
+        const residual = manifoldTemperature - lossTemperature;
+        let next = manifoldTemperature;
+        if (Math.abs(efficiency - lastEfficiency) <= 1e-4 * efficiency && residual !== lastResidual && Number.isFinite(lastResidual)) {
+          const secant = lossTemperature - (residual * (lossTemperature - lastLossTemperature)) / (residual - lastResidual);
+          // A step that leaves the plausible range falls back to plain substitution.
+          if (secant > 0.5 * t1 && secant < 2 * manifoldTemperature) next = secant;
+        }
+        lastLossTemperature = lossTemperature;
+        lastResidual = residual;
+        lastEfficiency = efficiency;
+        const before = pressureRatio;
+        setLosses(next);
+        lossTemperature = next;
+        pressuresSettled = Math.abs(pressureRatio - before) <= PRESSURE_RATIO_TOLERANCE * pressureRatio;
+        manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+      }
+      let next = efficiency;
+      if (efficiencyFromMap) {
+        reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
+        next = reading.efficiency ?? fallbackAt(reading);
+      }
+      if (Math.abs(next - efficiency) <= EFFICIENCY_TOLERANCE && pressuresSettled) {
         converged = true;
         break;
       }
@@ -196,8 +266,13 @@ export function solvePoint(
     if (!converged) {
       iterations = maxPasses;
       manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
-      reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
+      if (lossesFollowFlow) {
+        setLosses(manifoldTemperature);
+        manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+      }
+      if (efficiencyFromMap) reading = readMap(model!, flowPerKelvin / manifoldTemperature, pressureRatio);
     }
+    if (!efficiencyFromMap && model) reading = readMap(model, flowPerKelvin / manifoldTemperature, pressureRatio);
   }
   let efficiencySource: EfficiencySource = fallbackSource;
   if (efficiencyFromMap && reading && reading.efficiency !== null) {
@@ -207,15 +282,27 @@ export function solvePoint(
     // Off the map at the settled point: the fallback holds, and the state must match it.
     efficiency = fallbackAt(reading);
     if (efficiency !== planFallback) efficiencySource = 'off-map-assumption';
-    if (fixedTemperature === null) manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+    if (fixedTemperature === null) {
+      manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+      if (lossesFollowFlow) {
+        setLosses(manifoldTemperature);
+        manifoldTemperature = cooledTemperature(t1, temperatureRatio, efficiency, effectiveness, coolantTemperature);
+      }
+    }
   }
+  if (!positive(p1)) return unsolved(rpm, [`At this flow the inlet loss (${fmt(inletLoss / 1000)} kPa) leaves no pressure at the compressor inlet.`]);
 
+  const isentropicOutletTemperature = t1 * temperatureRatio;
+  const inletDensity = p1 / (R * t1);
   const airDensity = manifoldPressure / (R * manifoldTemperature);
   const engineMassFlow = sweptFlow * airDensity;
   const massFlow = engineMassFlow / turbochargers;
   const correctedMassFlow = massFlow * correctionFactor;
   const compressorOutletTemperature = t1 * (1 + (temperatureRatio - 1) / efficiency);
   const compressorPower = massFlow * CP * (compressorOutletTemperature - t1);
+  const dryAirMassFlowValue = dryAirMassFlow(engineMassFlow, air.humidityRatio);
+  const trappingEfficiency = ctx.engine.trappingEfficiency;
+  const trapped = trappingEfficiency === 1 ? dryAirMassFlowValue : trappedAirMassFlow(dryAirMassFlowValue, trappingEfficiency);
 
   const planMax = positive(ctx.plan.maxShaftSpeed) ? ctx.plan.maxShaftSpeed : null;
   const mapMax = model && positive(model.maxSpeed) ? model.maxSpeed : null;
@@ -250,7 +337,12 @@ export function solvePoint(
     manifoldPressure,
     manifoldTemperature,
     airDensity,
+    humidityRatio: air.humidityRatio,
     engineMassFlow,
+    dryAirMassFlow: dryAirMassFlowValue,
+    trappedAirMassFlow: trapped,
+    inletLoss,
+    chargeCoolerLoss,
     massFlow,
     correctedMassFlow,
     inletVolumeFlow: massFlow / inletDensity,
@@ -290,6 +382,7 @@ export function solvePoint(
     injectorPressureDifference: null,
     injectorStage: null,
     injectorCapacity: null,
+    injectorFlowDuty: null,
     injectorDuty: null,
     railPressure: null,
     pumpFlowRequired: null,
@@ -299,6 +392,11 @@ export function solvePoint(
     exhaustMassFlow: null,
     turbineInletTemperature: null,
     turbineOutletPressure: null,
+    downstreamLoss: null,
+    exhaustGasCp: null,
+    exhaustGasGamma: null,
+    exhaustGasConstant: null,
+    turbineSpeedReading: null,
     turbineInletPressure: null,
     expansionRatio: null,
     drivePressureRatio: null,
@@ -325,7 +423,7 @@ export function solvePoint(
   // Inputs inside the schema cannot get here, but a direct caller might pass extreme numbers.
   // One sum carries any NaN or Infinity; only then name the culprits.
   const sum =
-    pressureRatio + compressorPower + compressorOutletTemperature + correctedMassFlow + manifoldTemperature + airDensity + inletDensity +
+    pressureRatio + compressorPower + compressorOutletTemperature + correctedMassFlow + manifoldTemperature + airDensity + inletDensity + trapped + inletLoss + chargeCoolerLoss +
     (values.fuelVolumeFlow ?? 0) + (values.brakePower ?? 0) + (values.torque ?? 0) + (values.injectorDuty ?? 0) + (values.apparentBsfc ?? 0) +
     (values.speedMargin ?? 0) + (values.surgeMargin ?? 0) + (values.chokeMargin ?? 0) + (values.shaftSpeed ?? 0);
   const bad = Number.isFinite(sum) ? NONE : nonFiniteKeys(values);
@@ -354,13 +452,18 @@ function cooledTemperature(t1: number, temperatureRatio: number, efficiency: num
   return t2 - effectiveness * (t2 - coolantTemperature);
 }
 
-/** Fuel flow, power and injectors of a solved point (in place: the point is still being built). */
+/**
+ * Fuel flow, power and injectors of a solved point (in place: the point is still being built).
+ * Fuel and power follow the dry air the cylinders trap: humidity burns nothing, and the air a
+ * two-stroke short-circuits to the exhaust meets no fuel that burns.
+ */
 function addFuel(v: PointValues, ctx: LineContext, lambda: number): void {
   const { stoichiometricAfr, lowerHeatingValue, density } = ctx.fuel!.properties;
   v.stoichiometricAfr = stoichiometricAfr;
   v.lowerHeatingValue = lowerHeatingValue;
   v.fuelDensity = density;
-  const fuelMassFlow = v.engineMassFlow / (lambda * stoichiometricAfr);
+  const air = v.trappedAirMassFlow ?? v.engineMassFlow;
+  const fuelMassFlow = air / (lambda * stoichiometricAfr);
   const fuelVolumeFlow = fuelMassFlow / density;
   v.fuelMassFlow = fuelMassFlow;
   v.fuelVolumeFlow = fuelVolumeFlow;
@@ -370,7 +473,7 @@ function addFuel(v: PointValues, ctx: LineContext, lambda: number): void {
     // Only fuel that finds air burns: rich, the air runs out first (the excess fuel leaves unburnt);
     // lean, the fuel does (the excess air only dilutes). Heywood 1988, eq. 2.23 with the burnt fuel.
     const airLimited = lambda <= 1;
-    const burntFuel = airLimited ? v.engineMassFlow / stoichiometricAfr : fuelMassFlow;
+    const burntFuel = airLimited ? air / stoichiometricAfr : fuelMassFlow;
     const brakePower = eta * burntFuel * lowerHeatingValue;
     v.powerLimitedBy = airLimited ? 'air' : 'fuel';
     v.brakeThermalEfficiency = eta;
@@ -392,9 +495,13 @@ function addFuel(v: PointValues, ctx: LineContext, lambda: number): void {
     const both = inj.secondary !== undefined && v.rpm >= inj.secondary.switchOverRpm;
     v.injectorStage = both ? 'both' : 'primary';
     if (dp > 0) {
-      const capacity = setCapacity(inj.primary, dp) + (both ? setCapacity(inj.secondary!, dp) : 0);
+      const capacity = setCapacity(inj.primary, dp, density) + (both ? setCapacity(inj.secondary!, dp, density) : 0);
+      const flowDuty = fuelVolumeFlow / capacity;
+      // Every opening loses the dead time: the set that loses most sets the duty.
+      const deadTime = Math.max(inj.primary.deadTime?.time ?? 0, both ? (inj.secondary!.deadTime?.time ?? 0) : 0);
       v.injectorCapacity = capacity;
-      v.injectorDuty = fuelVolumeFlow / capacity;
+      v.injectorFlowDuty = flowDuty;
+      v.injectorDuty = deadTime > 0 ? dutyWithDeadTime(flowDuty, deadTime, injectionPeriod(v.rpm, revolutionsPerCycle(ctx.engine.strokes))) : flowDuty;
     } else {
       v.injectorCapacity = 0;
     }

@@ -5,7 +5,7 @@
 import type { z } from 'zod';
 import { efficiencyFromBsfc, fuelProperties } from '../physics';
 import { STANDARD_REFERENCE, studyInputSchema } from '../schemas/compute';
-import { resolveAmbient } from './ambient';
+import { chargeGasOf, resolveAmbient } from './ambient';
 import type { CompressorModel } from './compressor-model';
 import { finishExhaustLine, lineExhaustContext, solveExhaustPoint } from './exhaust';
 import type { TurbineModel } from './exhaust-model';
@@ -65,8 +65,15 @@ export function lineContext(
   const fuel = { choice: study.fuelSystem.fuel, properties: fuelProperties(study.fuelSystem.fuel) };
   const power = study.power;
   const reference = model ? model.reference : (plan.mapReference ?? STANDARD_REFERENCE);
+  const ambient = resolveAmbient(scenario.ambient);
   return {
-    engine: { displacement: study.engine.displacement, cylinders: study.engine.cylinders, strokes: study.engine.strokes, limits: study.engine.limits ?? {} },
+    engine: {
+      displacement: study.engine.displacement,
+      cylinders: study.engine.cylinders,
+      strokes: study.engine.strokes,
+      limits: study.engine.limits ?? {},
+      trappingEfficiency: study.engine.strokes === 2 ? (study.engine.trappingEfficiency ?? 1) : 1,
+    },
     tables: { volumetricEfficiency: study.engine.volumetricEfficiency, boost: row.boost, lambda: study.fuelSystem.lambda },
     fuel,
     injectors: study.fuelSystem.injectors,
@@ -77,7 +84,8 @@ export function lineContext(
         : { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: power.brakeThermalEfficiency, bsfc: null, drivetrainLoss: power.drivetrainLoss },
     losses: { inlet: study.losses.inlet, chargeCooler: study.losses.chargeCooler, inletTemperatureRise: study.losses.inletTemperatureRise ?? 0 },
     intercooler: study.intercooler,
-    ambient: resolveAmbient(scenario.ambient),
+    ambient,
+    air: chargeGasOf(ambient),
     plan,
     reference: { temperature: reference.temperature, pressure: reference.pressure },
     referenceFrom: model ? 'map' : plan.mapReference ? 'plan' : 'standard',

@@ -2,9 +2,10 @@
  * The study input the engine runs (SI throughout) and what it returns. The Study screen edits
  * the input; the zod schemas in shared/schemas/compute.ts check it at every edge.
  */
-import type { FuelChoice, FuelProperties, FuelRegulator, Strokes } from '../physics';
+import type { ChargeGas, FuelChoice, FuelProperties, FuelRegulator, PressureLossInput, Strokes } from '../physics';
+export type { PressureLossInput } from '../physics';
 import type { MapLocation, MapReference, MarginBasis, SpeedBasis } from './compressor-model';
-import type { TurbineHousing, TurbineLocation } from './exhaust-model';
+import type { TurbineEfficiencyKind, TurbineHousing, TurbineLocation, TurbineSpeedBasis } from './exhaust-model';
 import type { WorkingKind, WorkingStep } from './working';
 
 /** One row of a table by engine speed: rpm and the value at that speed (unit set by the table). */
@@ -39,8 +40,13 @@ export interface EngineInput {
   /** 2 or 4 stroke cycle. */
   strokes: Strokes;
   rpm: RpmPoints;
-  /** Volumetric efficiency (fraction, referred to manifold density) by rpm. */
+  /** Volumetric efficiency (fraction, referred to manifold density) by rpm: of a two-stroke, its delivery ratio. */
   volumetricEfficiency: RpmTable;
+  /**
+   * Two-strokes only: the share of the delivered air the cylinders trap, fraction (Heywood 1988
+   * §6.6). Fuel and power follow the trapped air; the compressor still passes all of it. Default 1.
+   */
+  trappingEfficiency?: number;
   limits?: EngineLimits;
 }
 
@@ -51,6 +57,10 @@ export interface InjectorSetInput {
   ratedFlow: number;
   /** Pressure difference across the injector at which `ratedFlow` holds, Pa. */
   ratedPressure: number;
+  /** Density of the fluid the rating was measured with, kg/m³; absent: rated with the fuel itself. */
+  ratingFluidDensity?: number;
+  /** Opening delay lost on every injection, s, and the battery voltage it was measured at, V; absent: none. */
+  deadTime?: { time: number; voltage: number };
 }
 
 /** The staged secondary set: opens together with the primaries from `switchOverRpm` up. */
@@ -93,11 +103,15 @@ export type PowerAssumptions =
       drivetrainLoss: number;
     };
 
+/**
+ * Pressure losses, each at the engine flow it was measured at (and the gas density then), so that
+ * it follows the flow as ṁ²/ρ; without a flow a loss is the same at every flow (the older form).
+ */
 export interface LossesInput {
-  /** Filter and intake pressure loss before the compressor, Pa. */
-  inlet: number;
-  /** Pressure loss from compressor outlet to manifold (charge cooler and pipes), Pa. */
-  chargeCooler: number;
+  /** Filter and intake pressure loss before the compressor, at an engine air flow. */
+  inlet: PressureLossInput;
+  /** Pressure loss from compressor outlet to manifold (charge cooler and pipes), at an engine air flow. */
+  chargeCooler: PressureLossInput;
   /** Heating of the air before the compressor (under-bonnet intake), K. Default 0. */
   inletTemperatureRise?: number;
 }
@@ -124,6 +138,8 @@ export type AmbientInput =
       pressure: number;
       /** Air temperature, K. */
       temperature: number;
+      /** Relative humidity, fraction 0–1; absent: dry air. */
+      relativeHumidity?: number;
       altitude?: undefined;
     }
   | {
@@ -131,6 +147,8 @@ export type AmbientInput =
       altitude: number;
       /** Air temperature, K; ISA temperature at the altitude when absent. */
       temperature?: number;
+      /** Relative humidity, fraction 0–1; absent: dry air. */
+      relativeHumidity?: number;
       pressure?: undefined;
     };
 
@@ -174,8 +192,8 @@ export interface ExhaustInput {
   mechanicalEfficiency: number;
   /** Turbine inlet (exhaust gas) temperature T3 by rpm, K. */
   turbineInletTemperature: RpmTable;
-  /** Pressure loss after the turbine (downpipe, catalyst, silencers), Pa: p4 = p_amb + this. */
-  downstreamLoss: number;
+  /** Pressure loss after the turbine (downpipe, catalyst, silencers), at an engine exhaust flow: p4 = p_amb + this. */
+  downstreamLoss: PressureLossInput;
   /**
    * Pulse-energy factor of a divided housing, multiplying turbine energy (default 1.0: none).
    * A steady model sees only mean pressures; the exhaust pulses a divided manifold keeps apart
@@ -283,7 +301,9 @@ export type FindingCode =
   | 'speed-margin-thin'
   | 'lean-under-boost'
   | 'lean-under-boost-limit'
-  | 'off-map-assumption';
+  | 'off-map-assumption'
+  | 'turbine-speed-outside-lines'
+  | 'mechanical-efficiency-in-map';
 
 /**
  * Where a point sits for the builder: on the map, or where the compressor cannot deliver it (left
@@ -345,10 +365,20 @@ export interface PointValues {
   manifoldPressure: number;
   /** Manifold temperature, K. */
   manifoldTemperature: number;
-  /** Air density in the manifold, kg/m³. */
+  /** Density of the charge (humid air) in the manifold, kg/m³. */
   airDensity: number;
-  /** Air mass flow of the whole engine, kg/s. */
+  /** Humidity ratio of the air, kg of water per kg of dry air (0 for dry air). */
+  humidityRatio?: number;
+  /** Air mass flow of the whole engine (humid air, as delivered), kg/s. */
   engineMassFlow: number;
+  /** Dry air in the engine's delivered air flow, kg/s: ṁ/(1 + W). */
+  dryAirMassFlow?: number;
+  /** Dry air the cylinders trap, kg/s: fuel and power follow it (all of the dry air for a four-stroke). */
+  trappedAirMassFlow?: number;
+  /** Filter and intake loss at this point, Pa. */
+  inletLoss?: number;
+  /** Charge-cooler and pipe loss at this point, Pa. */
+  chargeCoolerLoss?: number;
   /** Air mass flow through ONE turbocharger, kg/s. */
   massFlow: number;
   /** Corrected mass flow of one turbocharger against the map's reference, kg/s. */
@@ -433,7 +463,9 @@ export interface PointValues {
   injectorStage: 'primary' | 'both' | null;
   /** Flow the open injectors deliver at 100 % duty, m³/s. */
   injectorCapacity: number | null;
-  /** Injector duty cycle, fraction. */
+  /** Share of the time the fuel alone needs the injectors open, fraction (the duty without dead time). */
+  injectorFlowDuty?: number | null;
+  /** Injector duty cycle, fraction: the fuel's share plus the dead time of every injection (the set that loses most). */
   injectorDuty: number | null;
   /** Rail pressure the pump must hold, Pa gauge. */
   railPressure: number | null;
@@ -455,6 +487,16 @@ export interface PointValues {
   turbineInletTemperature?: number | null;
   /** Turbine outlet pressure p4, Pa absolute. */
   turbineOutletPressure?: number | null;
+  /** Pressure loss after the turbine at this point, Pa: p4 − p_amb. */
+  downstreamLoss?: number | null;
+  /** Specific heat of the exhaust gas at T3, J/(kg·K): from the fuel burnt, lambda and humidity. */
+  exhaustGasCp?: number | null;
+  /** Ratio of specific heats of the exhaust gas at T3. */
+  exhaustGasGamma?: number | null;
+  /** Gas constant of the exhaust gas, J/(kg·K). */
+  exhaustGasConstant?: number | null;
+  /** How the turbine map was read at the shaft speed (the two lines and their efficiencies at the point's ER). */
+  turbineSpeedReading?: TurbineSpeedReading | null;
   /** Turbine inlet (exhaust manifold) pressure p3, Pa absolute. */
   turbineInletPressure?: number | null;
   /** Expansion ratio p3/p4. */
@@ -495,6 +537,19 @@ export interface PointValues {
   boostIterations?: number | null;
 }
 
+/** How a point's turbine reading used the shaft speed (see TurbineSpeedBasis). */
+export interface TurbineSpeedReading {
+  basis: TurbineSpeedBasis;
+  /** The turbocharger's shaft speed read at, rpm; null where none is known (the mean of the lines). */
+  shaftSpeed: number | null;
+  /** The speed lines read, rpm (the same line twice when one is held); null for the mean of the lines. */
+  lowerSpeed: number | null;
+  upperSpeed: number | null;
+  /** Each line's efficiency at the point's expansion ratio, fraction; null where the line gives none. */
+  lowerEfficiency: number | null;
+  upperEfficiency: number | null;
+}
+
 /** The case of the quasi-steady power balance a point falls in (physics note §5). */
 export type ExhaustCase = 'gate-open' | 'target-not-held' | 'no-power-needed';
 
@@ -526,6 +581,8 @@ export interface LineContext {
     cylinders: number;
     strokes: Strokes;
     limits: EngineLimits;
+    /** Share of the delivered air the cylinders trap, fraction (1 for a four-stroke). */
+    trappingEfficiency: number;
   };
   /** The Study tables the point inputs were read from; null where the value was given per point. */
   tables: {
@@ -556,7 +613,11 @@ export interface LineContext {
     temperature: number;
     pressureFrom: 'given' | 'isa';
     temperatureFrom: 'given' | 'isa';
+    /** Relative humidity, fraction (0 when not given). */
+    relativeHumidity: number;
   };
+  /** The charge's gas: dry air, or humid air with its humidity ratio, gas constant, cp and γ. */
+  air: ChargeGas;
   plan: PlanInput;
   /** Reference of corrected flow used, and where it came from. */
   reference: MapReference;
@@ -572,12 +633,21 @@ export interface LineContext {
 export interface LineExhaustContext {
   /** The Plan's exhaust block with its defaults filled in. */
   input: ExhaustInput & { pulseFactor: number; turbineEfficiency: number };
+  /**
+   * The mechanical efficiency the power balance applies, fraction: the Plan's, or 1 where the
+   * turbine map's efficiency already counts the bearings' losses.
+   */
+  mechanicalEfficiency: number;
   /** The turbine map used; null when the Plan names none (then the exhaust side is not computed). */
   turbine: {
     name: string | null;
     housing: TurbineHousing;
     scrollFeed: 'both' | 'per-scroll' | null;
     areaRatio: number | null;
+    /** What the map's efficiency counts; null when the map does not say (read as aerodynamic only). */
+    efficiencyKind: TurbineEfficiencyKind | null;
+    /** Speeds of the lines it is read between, rpm (empty: read as the mean of its lines). */
+    speedLines: readonly number[];
     expansionRatioRange: readonly [number, number];
     mapFlowParameterDivisor: number;
     capacityRule: string;

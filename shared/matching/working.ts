@@ -69,6 +69,22 @@ export function step(
   return { id, title, explanation, formula, values, result, source };
 }
 
+/**
+ * The ratio of specific heats of an ideal gas from its cp and R (cv = cp − R): one relation, used
+ * for the charge and for the exhaust gas. Symbols are the caller's; units J/(kg K).
+ */
+export function gammaStep(id: string, title: string, explanation: string, cp: [symbol: string, value: number], r: [symbol: string, value: number], gamma: [symbol: string, value: number]): WorkingStep {
+  return step(
+    id,
+    title,
+    explanation,
+    `${cp[0]} / (${cp[0]} - ${r[0]})`,
+    [wv(cp[0], cp[1], 'none', 'J/(kg K)'), wv(r[0], r[1], 'none', 'J/(kg K)')],
+    wv(gamma[0], gamma[1], 'ratio'),
+    SOURCES.definition,
+  );
+}
+
 /** Formats a number for messages and explanations: 4 significant figures, no exponent for everyday sizes. */
 export function fmt(value: number, digits = 4): string {
   if (!Number.isFinite(value)) return String(value);

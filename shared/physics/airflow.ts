@@ -42,3 +42,13 @@ export function sharePerTurbocharger(engineMassFlow: number, count: number): num
 export function volumeFlow(massFlow: number, density: number): number {
   return massFlow / density;
 }
+
+/**
+ * Air a two-stroke's cylinders keep, kg/s: the delivered air times the trapping efficiency, the
+ * share of the delivered charge retained when the ports close (Heywood 1988 §6.6: trapping
+ * efficiency = retained/delivered; charging efficiency = delivery ratio × trapping efficiency).
+ * The rest short-circuits to the exhaust unburnt. A four-stroke is taken to trap all of it.
+ */
+export function trappedAirMassFlow(deliveredAirMassFlow: number, trappingEfficiency: number): number {
+  return deliveredAirMassFlow * trappingEfficiency;
+}

@@ -1,6 +1,7 @@
 /**
  * Gas constants and isentropic relations for air and hot exhaust, treated as ideal gases with
- * constant specific heats (the usual simplification for a one-point-per-rpm model).
+ * constant specific heats at each state (the usual simplification for a one-point-per-rpm model).
+ * The exhaust's own properties follow from the fuel and lambda (exhaust-gas.ts).
  */
 
 /** Specific gas constant of dry air, J/(kg·K): ISO 2533:1975 (the ISA value). */
@@ -12,10 +13,6 @@ export const AIR_GAMMA = 1.4;
  * consistent with R and γ (tables give 1005 at 300 K, NBS Circular 564).
  */
 export const AIR_CP = (AIR_GAMMA * AIR_GAS_CONSTANT) / (AIR_GAMMA - 1);
-/** Ratio of specific heats of hot exhaust, dimensionless (Saravanamuttoo, Gas Turbine Theory: 1.333). */
-export const EXHAUST_GAMMA = 1.33;
-/** Specific heat of hot exhaust at constant pressure, J/(kg·K) (Saravanamuttoo: 1.148 kJ/(kg·K)). */
-export const EXHAUST_CP = 1150;
 
 /** Ideal-gas density, kg/m³, from absolute pressure (Pa), temperature (K) and gas constant (J/(kg·K)). */
 export function idealGasDensity(pressure: number, temperature: number, gasConstant = AIR_GAS_CONSTANT): number {

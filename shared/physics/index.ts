@@ -7,3 +7,6 @@ export * from './injectors';
 export * from './power';
 export * from './turbine';
 export * from './wastegate';
+export * from './humid-air';
+export * from './losses';
+export * from './exhaust-gas';

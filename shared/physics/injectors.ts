@@ -46,11 +46,43 @@ export interface InjectorSet {
   ratedFlow: number;
   /** Pressure difference of the rating, Pa. */
   ratedPressure: number;
+  /** Density of the fluid the rating was measured with, kg/m³; absent: the fuel itself. */
+  ratingFluidDensity?: number;
+  /** Opening delay lost on every injection, at the battery voltage it was measured at; absent: none. */
+  deadTime?: { /** s */ time: number; /** V */ voltage: number };
 }
 
-/** Flow the set can deliver at 100 % duty, m³/s, at a pressure difference (Pa). */
-export function setCapacity(set: InjectorSet, pressureDifference: number): number {
-  return set.count * scaleInjectorFlow(set.ratedFlow, set.ratedPressure, pressureDifference);
+/**
+ * Volume flow of a fluid of density ρ against the rating fluid's at the same pressure difference:
+ * an orifice passes Q = C_d·A·√(2ΔP/ρ), so Q_fuel = Q_rating·√(ρ_rating/ρ_fuel). 1 when the set
+ * names no rating fluid (rated with the fuel itself).
+ */
+export function ratingFluidFactor(set: InjectorSet, fuelDensity: number | undefined): number {
+  return set.ratingFluidDensity === undefined || fuelDensity === undefined ? 1 : Math.sqrt(set.ratingFluidDensity / fuelDensity);
+}
+
+/**
+ * Flow the set can deliver at 100 % duty, m³/s of fuel, at a pressure difference (Pa): √ΔP
+ * scaling and, when the rating fluid is named, its density against the fuel's (kg/m³).
+ */
+export function setCapacity(set: InjectorSet, pressureDifference: number, fuelDensity?: number): number {
+  return set.count * scaleInjectorFlow(set.ratedFlow, set.ratedPressure, pressureDifference) * ratingFluidFactor(set, fuelDensity);
+}
+
+/**
+ * Time between two injections of one injector, s: one injection per working cycle (sequential
+ * injection), a cycle every n_R revolutions, so 60·n_R/N (Heywood 1988 §2.10 for n_R).
+ */
+export function injectionPeriod(rpm: number, revolutionsPerCycle: number): number {
+  return (60 * revolutionsPerCycle) / rpm;
+}
+
+/**
+ * Duty cycle with the dead time: the injector must be commanded open for the fuel's share of the
+ * period plus the dead time it loses on each opening, so duty = flow duty + t_dead/t_period.
+ */
+export function dutyWithDeadTime(flowDuty: number, deadTime: number, period: number): number {
+  return flowDuty + deadTime / period;
 }
 
 /**

@@ -4,7 +4,7 @@
  * never passes silently. Messages name the unit expected, since most bad values are unit slips.
  */
 import { z } from 'zod';
-import { ISA_MIN_HEIGHT, ISA_TROPOPAUSE_HEIGHT, ISA_SEA_LEVEL_PRESSURE, ISA_SEA_LEVEL_TEMPERATURE, fuelProperties, type FuelChoice } from '../physics';
+import { humidityRatioFromRelativeHumidity, ISA_MIN_HEIGHT, ISA_TROPOPAUSE_HEIGHT, ISA_SEA_LEVEL_PRESSURE, ISA_SEA_LEVEL_TEMPERATURE, fuelProperties, type FuelChoice, type PressureLossInput } from '../physics';
 import { resolveAmbient } from '../matching/ambient';
 import { MAX_RPM_POINTS, rpmPointCount } from '../matching/rpm-table';
 import { REQUIREMENT_DEFAULTS } from '../matching/requirements';
@@ -108,6 +108,10 @@ export const ambientSchema = z
         if (issue) c.issues.push({ code: 'custom', input: c.value, message: issue });
       })
       .optional(),
+    relativeHumidity: num('relative humidity')
+      .min(0, 'relative humidity is a fraction from 0 to 1')
+      .max(1, 'relative humidity is a fraction from 0 to 1 (50 % = 0.5), not a percentage')
+      .optional(),
   })
   .superRefine((a, ctx) => {
     if (a.pressure !== undefined && a.altitude !== undefined) {
@@ -116,17 +120,52 @@ export const ambientSchema = z
       ctx.addIssue({ code: 'custom', path: [], message: 'give pressure (Pa) and temperature (K), or altitude (m)' });
     } else if (a.pressure !== undefined && a.temperature === undefined) {
       ctx.addIssue({ code: 'custom', path: ['temperature'], message: 'temperature (K) is needed with pressure' });
+    } else if (isNum(a.relativeHumidity) && a.relativeHumidity > 0) {
+      const resolved = resolveAmbient(a.pressure !== undefined ? { pressure: a.pressure, temperature: a.temperature! } : { altitude: a.altitude ?? 0, temperature: a.temperature });
+      if (isNum(resolved.pressure) && isNum(resolved.temperature) && !Number.isFinite(humidityRatioFromRelativeHumidity(resolved.temperature, resolved.pressure, a.relativeHumidity))) {
+        ctx.addIssue({ code: 'custom', path: ['relativeHumidity'], message: `air at ${fmtKpa(resolved.pressure)} and ${Number((resolved.temperature - 273.15).toFixed(1))} °C cannot hold that much water: its vapour pressure would reach the air's pressure` });
+      }
     }
   })
   .transform((a): AmbientInput => {
-    if (a.pressure !== undefined) return { pressure: a.pressure, temperature: a.temperature ?? ISA_SEA_LEVEL_TEMPERATURE };
-    return a.temperature === undefined ? { altitude: a.altitude ?? 0 } : { altitude: a.altitude ?? 0, temperature: a.temperature };
+    const humidity = a.relativeHumidity !== undefined ? { relativeHumidity: a.relativeHumidity } : {};
+    if (a.pressure !== undefined) return { pressure: a.pressure, temperature: a.temperature ?? ISA_SEA_LEVEL_TEMPERATURE, ...humidity };
+    return a.temperature === undefined ? { altitude: a.altitude ?? 0, ...humidity } : { altitude: a.altitude ?? 0, temperature: a.temperature, ...humidity };
   });
 
 const lambdaSchema = num('lambda').min(0.5, 'lambda must be at least 0.5').max(2, 'lambda must be at most 2');
 const boostSchema = num('boost').min(-200_000, 'boost is gauge pressure in Pa: at least −200 000 Pa').max(1_000_000, 'boost is gauge pressure in Pa: at most 1 000 000 Pa');
 const inletLossSchema = num('inlet loss').min(0, 'inlet loss must be 0 Pa or more').max(50_000, 'inlet loss must be at most 50 000 Pa');
 const chargeCoolerLossSchema = num('charge-cooler loss').min(0, 'charge-cooler loss must be 0 Pa or more').max(100_000, 'charge-cooler loss must be at most 100 000 Pa');
+const downstreamLossSchema = num('downstream loss').min(0, 'downstream loss must be 0 Pa or more').max(200_000, 'downstream loss is in Pa; at most 200 000 Pa');
+
+/**
+ * A pressure loss at the engine flow it was measured at (and the gas density then): it follows
+ * the flow as ṁ²/ρ. Without `referenceMassFlow` it is the same at every flow (the older form).
+ */
+export function pressureLossSchema(loss: z.ZodNumber, what: string, flow: 'air' | 'exhaust') {
+  return z
+    .strictObject({
+      pressureLoss: loss,
+      referenceMassFlow: num(`${what} reference flow`)
+        .gt(0, `${what} reference flow is the engine's ${flow} mass flow the loss was measured at, above 0 kg/s`)
+        .max(5, `${what} reference flow is in kg/s (40 lb/min = 0.302 kg/s); at most 5 kg/s`)
+        .optional(),
+      referenceDensity: num(`${what} reference density`)
+        .gt(0.05, `${what} reference density is in kg/m³ (sea-level air is 1.225): above 0.05`)
+        .max(20, `${what} reference density is in kg/m³ (sea-level air is 1.225); at most 20`)
+        .optional(),
+    })
+    .superRefine((l, ctx) => {
+      if (l.referenceDensity !== undefined && l.referenceMassFlow === undefined)
+        ctx.addIssue({ code: 'custom', path: ['referenceDensity'], message: `${what} reference density applies only with the reference flow it was measured at` });
+    });
+}
+const inletLossInputSchema = pressureLossSchema(inletLossSchema, 'inlet loss', 'air');
+const chargeCoolerLossInputSchema = pressureLossSchema(chargeCoolerLossSchema, 'charge-cooler loss', 'air');
+/** The compute contract's loss: Pa at every flow (its first form), or a loss at a stated flow. */
+const computeLoss = (plain: z.ZodNumber, object: ReturnType<typeof pressureLossSchema>) =>
+  z.union([plain, object], { error: 'a loss is a number in Pa, or { pressureLoss, referenceMassFlow?, referenceDensity? }' }).transform((l): PressureLossInput => (typeof l === 'number' ? { pressureLoss: l } : l));
 const drivetrainLossSchema = num('drivetrain loss').min(0, 'drivetrain loss must be 0 or more').max(0.9, 'drivetrain loss is a fraction, at most 0.9');
 const bsfcSchema = num('bsfc').gt(0, 'bsfc must be above 0 kg/J').max(1e-6, 'bsfc is in kg/J (250 g/kWh = 6.94e-8 kg/J); at most 1e-6 kg/J');
 const ethanolPercentSchema = num('ethanol percent').min(0, 'ethanol percent must be 0 to 100').max(100, 'ethanol percent must be 0 to 100');
@@ -200,7 +239,7 @@ export const computeRequestSchema = z
   .strictObject({
     engine: z.strictObject({ displacement: displacementSchema, cylinders: cylindersSchema, strokes: strokesSchema }),
     ambient: ambientSchema,
-    losses: z.strictObject({ inlet: inletLossSchema, chargeCooler: chargeCoolerLossSchema }).optional(),
+    losses: z.strictObject({ inlet: computeLoss(inletLossSchema, inletLossInputSchema), chargeCooler: computeLoss(chargeCoolerLossSchema, chargeCoolerLossInputSchema) }).optional(),
     turbochargers: count('turbochargers', 8).optional(),
     mapReference: mapReferenceSchema.optional(),
     fuel: computeFuelSchema.optional(),
@@ -213,7 +252,7 @@ export const computeRequestSchema = z
   .superRefine((req, ctx) => {
     const pAmb = ambientPressureOf(req.ambient);
     if (pAmb === null) return;
-    const inlet = req.losses?.inlet ?? 0;
+    const inlet = req.losses?.inlet.pressureLoss ?? 0;
     if (isNum(inlet) && pAmb - inlet <= 0) ctx.addIssue({ code: 'custom', path: ['losses', 'inlet'], message: `inlet loss leaves no pressure at the compressor inlet (ambient ${fmtKpa(pAmb)})` });
     req.points.forEach((p, i) => {
       if (!isNum(p.boost)) return;
@@ -294,14 +333,20 @@ const engineLimitsSchema = z.strictObject({
   maxCompressorOutletTemperature: temperature('maxCompressorOutletTemperature', 250, 700).optional(),
 });
 
-export const studyEngineSchema = z.strictObject({
-  displacement: displacementSchema,
-  cylinders: cylindersSchema,
-  strokes: strokesSchema,
-  rpm: rpmPointsSchema,
-  volumetricEfficiency: rpmTableSchema(num('volumetric efficiency').gt(0, 'volumetric efficiency must be above 0').max(2, 'volumetric efficiency is a fraction, at most 2'), 'volumetric efficiency'),
-  limits: engineLimitsSchema.optional(),
-});
+export const studyEngineSchema = z
+  .strictObject({
+    displacement: displacementSchema,
+    cylinders: cylindersSchema,
+    strokes: strokesSchema,
+    rpm: rpmPointsSchema,
+    volumetricEfficiency: rpmTableSchema(num('volumetric efficiency').gt(0, 'volumetric efficiency must be above 0').max(2, 'volumetric efficiency is a fraction, at most 2'), 'volumetric efficiency'),
+    trappingEfficiency: fraction('trapping efficiency').optional(),
+    limits: engineLimitsSchema.optional(),
+  })
+  .superRefine((e, ctx) => {
+    if (e.trappingEfficiency !== undefined && e.strokes !== 2)
+      ctx.addIssue({ code: 'custom', path: ['trappingEfficiency'], message: 'trapping efficiency applies only to a two-stroke engine' });
+  });
 
 export const fuelChoiceSchema = z.discriminatedUnion(
   'kind',
@@ -315,6 +360,16 @@ export const fuelChoiceSchema = z.discriminatedUnion(
 
 const injectorSetShape = {
   count: count('injector count', 32),
+  ratingFluidDensity: num('rating fluid density')
+    .min(500, 'rating fluid density is in kg/m³ (test fluids are about 680–780): at least 500')
+    .max(1200, 'rating fluid density is in kg/m³: at most 1200')
+    .optional(),
+  deadTime: z
+    .strictObject({
+      time: num('dead time').min(0, 'dead time must be 0 s or more').max(0.005, 'dead time is in s (0.9 ms = 0.0009 s); at most 0.005 s'),
+      voltage: num('dead time voltage').min(6, 'dead time voltage is the battery voltage it was measured at, 6 to 30 V').max(30, 'dead time voltage is the battery voltage it was measured at, 6 to 30 V'),
+    })
+    .optional(),
   ratedFlow: num('rated flow').gt(0, 'rated flow must be above 0 m³/s').max(2e-4, 'rated flow is per injector in m³/s (1000 cc/min = 1.667e-5 m³/s); at most 2e-4'),
   ratedPressure: num('rated pressure')
     // Injectors are rated at a few hundred kPa (common practice, no source); far below is a slip of units, and a pressure near 0 Pa would scale the flow to infinity.
@@ -346,8 +401,8 @@ export const powerSchema = z.discriminatedUnion(
 );
 
 export const lossesSchema = z.strictObject({
-  inlet: inletLossSchema,
-  chargeCooler: chargeCoolerLossSchema,
+  inlet: inletLossInputSchema,
+  chargeCooler: chargeCoolerLossInputSchema,
   inletTemperatureRise: num('inlet temperature rise').min(0, 'inlet temperature rise must be 0 K or more').max(100, 'inlet temperature rise must be at most 100 K').optional(),
 });
 
@@ -398,7 +453,7 @@ export const exhaustSchema = z
     wastegates: wastegatesSchema,
     mechanicalEfficiency: fraction('mechanical efficiency'),
     turbineInletTemperature: rpmTableSchema(temperature('turbine inlet temperature', 400, 1500), 'turbine inlet temperature'),
-    downstreamLoss: num('downstream loss').min(0, 'downstream loss must be 0 Pa or more').max(200_000, 'downstream loss is in Pa; at most 200 000 Pa'),
+    downstreamLoss: pressureLossSchema(downstreamLossSchema, 'downstream loss', 'exhaust'),
     pulseFactor: num('pulse factor').gt(0, 'pulse factor multiplies turbine energy: above 0 (1.0 = no pulse gain)').max(2, 'pulse factor must be at most 2').optional(),
     turbineEfficiency: fraction('turbine efficiency').optional(),
   })
@@ -438,12 +493,12 @@ export const studyInputSchema = z
     };
     seen(study.scenarios, 'scenarios', 'scenarios');
     seen(study.plans, 'plans', 'plans');
-    const inlet = study.losses.inlet;
+    const inlet = study.losses.inlet.pressureLoss;
     study.scenarios.forEach((s, si) => {
       const pAmb = ambientPressureOf(s.ambient);
       if (pAmb === null) return;
       if (isNum(inlet) && pAmb - inlet <= 0)
-        ctx.addIssue({ code: 'custom', path: ['losses', 'inlet'], message: `inlet loss leaves no pressure at the compressor inlet in scenario "${s.name}" (ambient ${fmtKpa(pAmb)})` });
+        ctx.addIssue({ code: 'custom', path: ['losses', 'inlet', 'pressureLoss'], message: `inlet loss leaves no pressure at the compressor inlet in scenario "${s.name}" (ambient ${fmtKpa(pAmb)})` });
       s.boostSchedule.forEach((row, ri) =>
         row.boost.forEach((r, k) => {
           if (!isNum(r.value)) return;

@@ -9,6 +9,7 @@ import {
   MAX_NOTES_LENGTH,
   SCROLL_FEEDS,
   TURBINE_CURVE_KINDS,
+  TURBINE_EFFICIENCY_KINDS,
 } from '../maps/format';
 import type { SpoolbookMap } from '../maps/types';
 import { readUnit, type MapQuantity } from '../maps/units';
@@ -160,6 +161,7 @@ export const turbineMapSchema = z
     housing: z.enum(HOUSINGS),
     scrollFeed: z.enum(SCROLL_FEEDS).nullable(),
     areaRatio: positive.nullable(),
+    efficiencyKind: z.enum(TURBINE_EFFICIENCY_KINDS).optional(),
     curves: z.array(turbineCurveSchema).min(1),
     fileUnits: turbineFileUnitsSchema,
   })

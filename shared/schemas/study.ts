@@ -7,7 +7,11 @@ import { z } from 'zod';
 import type { StudyInput } from '../matching/types';
 import { planSchema, studyInputSchema } from './compute';
 
-export const STUDY_SCHEMA_VERSION = 1;
+/**
+ * The document version. 2: losses are objects that may name the flow they were measured at
+ * (`{ pressureLoss, referenceMassFlow?, referenceDensity? }`); 1 had them as plain Pa.
+ */
+export const STUDY_SCHEMA_VERSION = 2;
 
 export const studyTitleSchema = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters');
 
@@ -113,10 +117,18 @@ export function toStudyInput(doc: StudyDocument): StudyInput {
 
 export class StudyVersionError extends Error {}
 
+/** A version-1 loss (plain Pa) as a version-2 one: the same loss at every flow. Anything else is left for the schema to judge. */
+function fixedLoss(value: unknown): unknown {
+  return typeof value === 'number' ? { pressureLoss: value } : value;
+}
+
 /**
- * Brings a stored document of any earlier schema version up to the current one. Version 0 is the
- * pre-release shape without `schemaVersion`, `engineLabel` or `notes`, whose plans named their map
- * in `mapId` and had no ids.
+ * Brings a stored document of any earlier schema version up to the current one, one version at a
+ * time. Version 0 is the pre-release shape without `schemaVersion`, `engineLabel` or `notes`,
+ * whose plans named their map in `mapId` and had no ids. Version 1 gave the inlet, charge-cooler
+ * and after-turbine losses as plain Pa; version 2 states each as `{ pressureLoss }`, the same loss
+ * at every flow, so an old study computes exactly as before until its losses are given the flow
+ * they were measured at.
  */
 export function migrateStudyDocument(raw: unknown): unknown {
   if (!raw || typeof raw !== 'object' || Array.isArray(raw)) return raw;
@@ -135,6 +147,23 @@ export function migrateStudyDocument(raw: unknown): unknown {
         if (!p || typeof p !== 'object') return p;
         const { mapId, ...rest } = p as Record<string, unknown>;
         return { id: `plan-${i + 1}`, compressorMapId: typeof mapId === 'string' ? mapId : null, ...rest };
+      });
+    }
+  }
+  if (doc.schemaVersion === 1) {
+    doc.schemaVersion = 2;
+    if (doc.losses && typeof doc.losses === 'object' && !Array.isArray(doc.losses)) {
+      const losses = doc.losses as Record<string, unknown>;
+      doc.losses = { ...losses, inlet: fixedLoss(losses.inlet), chargeCooler: fixedLoss(losses.chargeCooler) };
+    }
+    if (Array.isArray(doc.plans)) {
+      doc.plans = doc.plans.map((p) => {
+        if (!p || typeof p !== 'object') return p;
+        const plan = p as Record<string, unknown>;
+        const exhaust = plan.exhaust;
+        if (!exhaust || typeof exhaust !== 'object' || Array.isArray(exhaust)) return plan;
+        const block = exhaust as Record<string, unknown>;
+        return { ...plan, exhaust: { ...block, downstreamLoss: fixedLoss(block.downstreamLoss) } };
       });
     }
   }

@@ -33,6 +33,14 @@ export type DiffValueKind =
   | 'percent'
   | 'ratio'
   | 'count'
+  /** Mass flow, kg/s. */
+  | 'massFlow'
+  /** Density, kg/m³. */
+  | 'density'
+  /** A short time, s (an injector's dead time: ms). */
+  | 'duration'
+  /** Electric potential, V. */
+  | 'voltage'
   | 'text';
 
 export interface DocumentChange {
@@ -123,6 +131,15 @@ export const FIELD_WORDS: Record<string, string> = {
   // An rpm table: its rows read "turbine inlet temperature at 4000 rpm".
   turbineInletTemperature: 'turbine inlet temperature',
   downstreamLoss: 'pressure loss after the turbine',
+  pressureLoss: 'pressure loss',
+  referenceMassFlow: 'at engine flow',
+  referenceDensity: 'at gas density',
+  relativeHumidity: 'relative humidity',
+  trappingEfficiency: 'trapping efficiency',
+  ratingFluidDensity: 'rating fluid density',
+  deadTime: 'dead time',
+  time: 'time',
+  voltage: 'at battery voltage',
   pulseFactor: 'pulse-energy factor',
   turbineEfficiency: 'default turbine efficiency',
   mapReference: 'map reference',
@@ -191,7 +208,20 @@ export function kindOfPath(keys: Key[]): DiffValueKind | null {
     case 'inlet':
     case 'chargeCooler':
     case 'downstreamLoss':
+    case 'pressureLoss':
       return 'pressure';
+    case 'referenceMassFlow':
+      return 'massFlow';
+    case 'referenceDensity':
+    case 'ratingFluidDensity':
+      return 'density';
+    case 'time':
+      return parent === 'deadTime' ? 'duration' : null;
+    case 'voltage':
+      return 'voltage';
+    case 'relativeHumidity':
+    case 'trappingEfficiency':
+      return 'fraction';
     case 'pressure':
       return 'pressure';
     case 'fuelPressure':

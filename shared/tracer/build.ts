@@ -1,4 +1,4 @@
-import { COMPRESSOR_COLUMNS, HEADER_KEYS, MAP_FORMAT_VERSION, TURBINE_COLUMNS } from '../maps/format';
+import { COMPRESSOR_COLUMNS, HEADER_KEYS, MAP_FORMAT_VERSION, TURBINE_COLUMNS, TURBINE_EFFICIENCY_KIND_WORDS } from '../maps/format';
 import { parseMapFile } from '../maps/parse';
 import type { MapParseResult, MapProblem } from '../maps/types';
 import { headerLines as csvHeaderLines } from '../maps/write';
@@ -136,6 +136,7 @@ const SETTING_LABELS: Record<string, string> = {
   housing: 'Housing',
   scrollFeed: 'Scroll feed',
   areaRatio: 'A/R',
+  efficiencyKind: 'Efficiency kind',
 };
 
 /** Header keys of the format → the Tracer setting that writes them. */
@@ -151,6 +152,7 @@ const KEY_FIELDS: Record<string, string> = {
   [HEADER_KEYS.housing]: 'housing',
   [HEADER_KEYS.scrollFeed]: 'scrollFeed',
   [HEADER_KEYS.areaRatio]: 'areaRatio',
+  [HEADER_KEYS.efficiencyKind]: 'efficiencyKind',
 };
 
 function header(state: TraceState, calibration: CalibrationResult): Array<[string, string, string | null]> {
@@ -176,7 +178,9 @@ function header(state: TraceState, calibration: CalibrationResult): Array<[strin
     entries.push([HEADER_KEYS.flowParameter, safeHeaderText(t.flowParameterUnit), 'flowParameterUnit'], [HEADER_KEYS.housing, t.housing, 'housing']);
     if (t.housing === 'divided') entries.push([HEADER_KEYS.scrollFeed, t.scrollFeed === 'per-scroll' ? 'per scroll' : 'both', 'scrollFeed']);
     if (t.areaRatio !== null) entries.push([HEADER_KEYS.areaRatio, numberText(t.areaRatio), 'areaRatio']);
-    entries.push([HEADER_KEYS.efficiency, state.efficiency, 'efficiency'], [HEADER_KEYS.speed, state.speedUnit, 'speedUnit']);
+    entries.push([HEADER_KEYS.efficiency, state.efficiency, 'efficiency']);
+    if (t.efficiencyKind) entries.push([HEADER_KEYS.efficiencyKind, TURBINE_EFFICIENCY_KIND_WORDS[t.efficiencyKind], 'efficiencyKind']);
+    entries.push([HEADER_KEYS.speed, state.speedUnit, 'speedUnit']);
   }
   for (const note of state.notes.split(/\r\n|\r|\n/)) {
     const text = safeHeaderText(note);

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { EFFICIENCY_SCALES, HOUSINGS, MAP_KINDS, SCROLL_FEEDS, UNIT_EXAMPLES, type MapKind } from '../maps/format';
+import { EFFICIENCY_SCALES, HOUSINGS, MAP_KINDS, SCROLL_FEEDS, TURBINE_EFFICIENCY_KINDS, UNIT_EXAMPLES, type MapKind } from '../maps/format';
 import { AXIS_SCALES } from './axes';
 import { REFERENCE_ROLES } from './calibration';
 
@@ -81,6 +81,8 @@ export const turbineTraceSettingsSchema = z.strictObject({
   housing: z.enum(HOUSINGS),
   scrollFeed: z.enum(SCROLL_FEEDS),
   areaRatio: typedNumber,
+  /** What the map's efficiency counts (the `efficiency kind` header); absent or null: the map does not say. */
+  efficiencyKind: z.enum(TURBINE_EFFICIENCY_KINDS).nullable().optional(),
 });
 
 export const traceCurveSchema = z.strictObject({

@@ -73,6 +73,24 @@ describe('upload, read, edit, download, delete', () => {
     expect(reuploaded.body.map.map.curves).toEqual(original.map.curves);
   });
 
+  it('keeps what a turbine map\'s efficiency counts through upload, list, download and upload', async () => {
+    const text = readFileSync(path.join(demoMaps, 'turbine-t64-ar082-single.csv'), 'utf8');
+    expect(text).toContain('# efficiency kind: total-to-static, with bearing losses\n'); // the demo maps state theirs (docs/map-format.md)
+    const created = await upload(owner.c, teamId, 't.csv', text);
+    expect(created.status).toBe(201);
+    expect(created.body.map.map.efficiencyKind).toBe('with-bearing-losses');
+    const list = await owner.c.get(`/api/teams/${teamId}/maps?kind=turbine`);
+    const mine = list.body.maps.find((m: { id: string }) => m.id === created.body.map.id);
+    expect(mine.summary.efficiencyKind).toBe('with-bearing-losses');
+    const file = await owner.c.get(`/api/teams/${teamId}/maps/${created.body.map.id}/file`);
+    expect(file.text).toContain('# efficiency kind: total-to-static, with bearing losses\n');
+    const again = await upload(owner.c, teamId, 'again.csv', file.text.replace('total-to-static, with bearing losses', 'aerodynamic only'));
+    expect(again.body.map.map.efficiencyKind).toBe('aerodynamic');
+    const unstated = await upload(owner.c, teamId, 'plain.csv', text.replace(/# efficiency kind: .*\n/, ''));
+    expect(unstated.body.map.summary.efficiencyKind).toBeNull();
+    for (const id of [created.body.map.id, again.body.map.id, unstated.body.map.id]) await owner.c.delete(`/api/teams/${teamId}/maps/${id}`);
+  });
+
   it('downloads a built-in map; built-in maps cannot be changed or deleted', async () => {
     const list = await owner.c.get(`/api/teams/${teamId}/maps?kind=turbine`);
     const builtin = list.body.maps.find((m: { builtin: boolean }) => m.builtin);

@@ -4,6 +4,7 @@ import path from 'node:path';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { shareLinks, studies, studyRevisions, teamMembers } from '../../server/db/schema';
+import { STUDY_SCHEMA_VERSION } from '../../shared/schemas/study';
 import { client, expectErrorShape, ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
 
 const demo = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'demo', 'hillclimb-study.json'), 'utf8'));
@@ -124,10 +125,13 @@ describe('create, read, save, revisions', () => {
     delete old.engineLabel;
     delete old.notes;
     old.plans = old.plans.map(({ id: _id, compressorMapId, ...p }: Record<string, unknown>) => ({ ...p, mapId: compressorMapId }));
+    // Before version 2 a loss was plain Pa, the same at every flow.
+    old.losses = { inlet: 2500, chargeCooler: 12_000, inletTemperatureRise: 5 };
     const res = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: old });
     expect(res.status).toBe(200);
-    expect(res.body.study.document.schemaVersion).toBe(1);
+    expect(res.body.study.document.schemaVersion).toBe(STUDY_SCHEMA_VERSION);
     expect(res.body.study.document.plans[0]).toMatchObject({ id: 'plan-1', compressorMapId: demo.plans[0].compressorMapId });
+    expect(res.body.study.document.losses).toEqual({ inlet: { pressureLoss: 2500 }, chargeCooler: { pressureLoss: 12_000 }, inletTemperatureRise: 5 });
     const future = { ...structuredClone(demo), schemaVersion: 99 };
     const refused = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 2, document: future });
     expect(refused.status).toBe(400);
@@ -304,6 +308,10 @@ describe('CSV export', () => {
     const region = col('Map region');
     const reachable = col('Reachable');
     const verdict = col('Plan verdict');
+    // Appended later, after the verdict, so every earlier column keeps its place (issue: exact names).
+    expect(head.slice(verdict + 1)).toEqual(['Exhaust gas cp (J/(kg K))', 'Exhaust gas gamma', 'Humidity ratio (kg/kg)']);
+    for (const row of rows) expect(row[verdict + 3]).toBe('0'); // the demo scenarios give no humidity: dry air
+    for (const row of rows) expect(row[verdict + 1]).toBe(''); // a compressor-only study has no exhaust gas
     const surge = col('Surge margin (fraction)');
     const choke = col('Choke margin (fraction)');
     const speed = col('Speed margin (fraction)');
@@ -377,7 +385,7 @@ describe('the exhaust side in saved studies', () => {
     { rpm: 2500, value: 1050 },
     { rpm: 8000, value: 1200 },
   ];
-  const exhaust = { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: 15_000 };
+  const exhaust = { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000 } };
 
   it('saves a plan with a built-in turbine map, shares it with the turbine map and exports the exhaust columns', async () => {
     const { owner, teamId, study } = await teamWithStudy();
@@ -401,6 +409,16 @@ describe('the exhaust side in saved studies', () => {
     expect(m58.length).toBeGreaterThan(0);
     expect(m58.every((r) => Number(r[p3]) > 0)).toBe(true);
     expect(rows.filter((r) => r[0] === demo.plans[0].name).every((r) => r[p3] === '')).toBe(true);
+    // The exhaust gas the turbine was computed with: E85 products at rich lambda near 1100 K have cp
+    // about 1.32–1.42 kJ/(kg K) and γ below the 1.333 of lean gas-turbine practice (Heywood 1988 ch. 4; from memory).
+    const cp = head.indexOf('Exhaust gas cp (J/(kg K))');
+    const gamma = head.indexOf('Exhaust gas gamma');
+    for (const r of m58) {
+      expect(Number(r[cp])).toBeGreaterThan(1280);
+      expect(Number(r[cp])).toBeLessThan(1450);
+      expect(Number(r[gamma])).toBeGreaterThan(1.25);
+      expect(Number(r[gamma])).toBeLessThan(4 / 3);
+    }
   });
 
   it('refuses a compressor map as a turbine map, and a map of another team', async () => {

@@ -49,11 +49,12 @@ function benchStudy(): StudyInput {
       pumpFlowAvailable: 1e-4,
     },
     power: { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: 0.33, drivetrainLoss: 0.12 },
-    losses: { inlet: 2500, chargeCooler: 10_000 },
+    // Losses at a stated flow, so the manifold-temperature fixed point also settles the losses.
+    losses: { inlet: { pressureLoss: 2500, referenceMassFlow: 0.25 }, chargeCooler: { pressureLoss: 10_000, referenceMassFlow: 0.25, referenceDensity: 2.4 } },
     intercooler: { kind: 'effectiveness', effectiveness: 0.75 },
     scenarios: [
       { name: 'Sea level, mild', ambient: { pressure: 101_325, temperature: 293.15 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
-      { name: 'Hot day', ambient: { pressure: 100_000, temperature: 313.15 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
+      { name: 'Hot day', ambient: { pressure: 100_000, temperature: 313.15, relativeHumidity: 0.5 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
       { name: 'Mountain pass', ambient: { altitude: 2200 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
       { name: 'Gear 1', ambient: { pressure: 101_325, temperature: 293.15 }, boostSchedule: [{ label: 'Gear 1', kind: 'gear', gear: 1, boost: boostRow(90_000) }] },
     ],
@@ -137,9 +138,9 @@ try {
     { rpm: 8000, value: 1180 },
   ];
   const exhausts: { turbine: string; exhaust: ExhaustInput }[] = [
-    { turbine: 'turbine-t64-ar064-single', exhaust: { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: 15_000 } },
-    { turbine: 'turbine-t64-ar082-single', exhaust: { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: 15_000 } },
-    { turbine: 'turbine-t64-ar082-divided', exhaust: { housing: 'divided', wastegates: { count: 2, valveDiameter: 0.038, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: 15_000, pulseFactor: 1 } },
+    { turbine: 'turbine-t64-ar064-single', exhaust: { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 } } },
+    { turbine: 'turbine-t64-ar082-single', exhaust: { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 } } },
+    { turbine: 'turbine-t64-ar082-divided', exhaust: { housing: 'divided', wastegates: { count: 2, valveDiameter: 0.038, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 }, pulseFactor: 1 } },
   ];
   const withExhaust: StudyInput = { ...demoInput, plans: demoInput.plans.map((p, i) => ({ ...p, exhaust: exhausts[i % exhausts.length].exhaust })) };
   const turbines = doc.plans.map((_, i) => {

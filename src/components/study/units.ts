@@ -7,7 +7,7 @@ import { formatNumber } from '../plots/quantities';
  * The quantities a study shows and edits, beyond the plain kinds of shared/units: gauge
  * pressure (labelled so), temperature differences (converted by factor only: 1 K = 1.8 °F),
  * injector flow (cc/min in both systems, the trade's unit), fuel flow (L/h or US gal/h), BSFC,
- * and plain numbers read as percentages.
+ * injector dead time (ms), battery voltage (V), and plain numbers read as percentages.
  */
 export type StudyQuantity = DiffValueKind | 'massFlow' | 'power' | 'torque' | 'volumeFlow' | 'density' | 'energyPerMass' | 'area';
 
@@ -87,6 +87,11 @@ function makeUnit(quantity: StudyQuantity, system: UnitSystem): QuantityUnit {
       return us ? mathUnit('gal/h', 'volumeFlow', 'US gal/h') : mathUnit('L/h', 'volumeFlow', 'L/h');
     case 'bsfc':
       return us ? { label: 'lb/(hp·h)', short: 'lb/(hp·h)', toSI: (v) => v * LB_PER_HP_H, fromSI: (v) => v / LB_PER_HP_H } : scaled(1 / G_PER_KWH, 'g/kWh');
+    case 'duration':
+      // Injector dead times are milliseconds in both systems (the trade's unit).
+      return scaled(1000, 'ms');
+    case 'voltage':
+      return scaled(1, 'V');
     case 'fraction':
       return scaled(100, '%');
     case 'percent':
@@ -142,4 +147,16 @@ export function parseTypedNumber(raw: string): { ok: true; value: number } | { o
   if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(t)) return { ok: false, message: 'Type a number (digits and a decimal point).' };
   const value = Number(t);
   return Number.isFinite(value) ? { ok: true, value } : { ok: false, message: 'That number is too large.' };
+}
+
+/**
+ * A pressure loss as a study states it, in the user's units: "15 kPa at 0.38 kg/s and
+ * 0.29 kg/m³" when it follows the flow, "12 kPa at every flow" when it is fixed.
+ */
+export function formatPressureLoss(loss: { pressureLoss: number; referenceMassFlow?: number; referenceDensity?: number } | undefined, system: UnitSystem): string {
+  if (!loss || typeof loss !== 'object') return '—';
+  const dp = formatStudyValue(loss.pressureLoss, 'pressure', system);
+  if (loss.referenceMassFlow === undefined) return `${dp} at every flow`;
+  const density = loss.referenceDensity === undefined ? `${formatStudyValue(1.225, 'density', system)} (standard air)` : formatStudyValue(loss.referenceDensity, 'density', system);
+  return `${dp} at ${formatStudyValue(loss.referenceMassFlow, 'massFlow', system)} and ${density}`;
 }

@@ -42,7 +42,7 @@ export const LESSON_ENGINE = {
 export function lessonDocument(inputs: LessonInputs, withMap: boolean): StudyDocument {
   const e = LESSON_ENGINE;
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     engineLabel: '2.0 L four, Learn example',
     notes: '',
     engine: {
@@ -58,7 +58,7 @@ export function lessonDocument(inputs: LessonInputs, withMap: boolean): StudyDoc
       injectors: { primary: { count: 4, ratedFlow: 1e-5, ratedPressure: 300_000 }, fuelPressure: 300_000, regulator: 'manifold-referenced' },
     },
     power: { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: 0.33, drivetrainLoss: 0.15 },
-    losses: { inlet: e.inletLoss, chargeCooler: e.chargeCoolerLoss, inletTemperatureRise: 0 },
+    losses: { inlet: { pressureLoss: e.inletLoss }, chargeCooler: { pressureLoss: e.chargeCoolerLoss }, inletTemperatureRise: 0 },
     intercooler: { kind: 'fixed', manifoldTemperature: inputs.ambientTemperature + e.intercoolerApproach },
     scenarios: [
       {

@@ -72,8 +72,8 @@ describe('report inputs: the exhaust side', () => {
     expect(exhaustRow('Pulse-energy factor')).toEqual(['— (single scroll)', '1.1']);
     // Neither plan states a turbine efficiency: DEFAULT_TURBINE_EFFICIENCY = 0.65 (shared/matching/exhaust.ts, "from memory" there).
     expect(exhaustRow('Turbine efficiency off the map')).toEqual(['65 % (default)', '65 % (default)']);
-    // downstreamLoss 15000 Pa = 15 kPa (fixture; SI prefix).
-    expect(exhaustRow('Pressure loss after the turbine')).toEqual(['15 kPa', '15 kPa']);
+    // downstreamLoss 15000 Pa = 15 kPa at 0.38 kg/s and 0.29 kg/m³ (the demo document's own values; SI prefix).
+    expect(exhaustRow('Pressure loss after the turbine')).toEqual(['15 kPa at 0.38 kg/s and 0.29 kg/m³', '15 kPa at 0.38 kg/s and 0.29 kg/m³']);
     expect(screen.queryByText('Compressor only')).toBeNull();
   });
 
@@ -91,8 +91,8 @@ describe('report inputs: the exhaust side', () => {
     render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} system="us" />);
     // 0.044 m / 0.0254 m/in = 1.732 in; 0.038 / 0.0254 = 1.496 in (1 in = 25.4 mm exactly, NIST SP 811 B.8).
     expect(exhaustRow('Wastegates')).toEqual(['1 × 1.732 in valve', '2 × 1.496 in valve']);
-    // 15000 Pa / 6894.757 Pa/psi = 2.176 psi (NIST SP 811 B.8).
-    expect(exhaustRow('Pressure loss after the turbine')).toEqual(['2.176 psi', '2.176 psi']);
+    // 15000 Pa / 6894.757 Pa/psi = 2.176 psi; 0.38 kg/s × 60/0.45359237 = 50.27 lb/min; 0.29 kg/m³ × 0.0624280 = 0.0181 lb/ft³ (NIST SP 811 B.8).
+    expect(exhaustRow('Pressure loss after the turbine')).toEqual(['2.176 psi at 50.27 lb/min and 0.0181 lb/ft³', '2.176 psi at 50.27 lb/min and 0.0181 lb/ft³']);
   });
 
   it('says "Compressor only" for a plan without an exhaust block, and "1.0 (default)" for a divided plan with no pulse factor', () => {

@@ -52,7 +52,7 @@ export function exhaustOf(change: Partial<ExhaustInput> = {}): ExhaustInput {
       { rpm: 2000, value: 1000 },
       { rpm: 7000, value: 1170 },
     ],
-    downstreamLoss: 15_000,
+    downstreamLoss: { pressureLoss: 15_000 },
     ...change,
   };
 }

@@ -17,6 +17,8 @@ const exhaustArb: fc.Arbitrary<ExhaustInput> = fc
     t3Low: fc.double({ min: 400, max: 1500, noNaN: true }),
     t3High: fc.double({ min: 400, max: 1500, noNaN: true }),
     downstreamLoss: fc.double({ min: 0, max: 200_000, noNaN: true }),
+    // Absent: the loss is the same at every flow; given: it follows the exhaust flow as ṁ²/ρ.
+    downstreamReference: fc.option(fc.record({ flow: fc.double({ min: 0.01, max: 5, noNaN: true }), density: fc.double({ min: 0.06, max: 20, noNaN: true }) }), { nil: undefined }),
     pulseFactor: fc.double({ min: 0.5, max: 2, noNaN: true }),
   })
   .map((r) =>
@@ -28,7 +30,9 @@ const exhaustArb: fc.Arbitrary<ExhaustInput> = fc
         { rpm: 2000, value: r.t3Low },
         { rpm: 7000, value: r.t3High },
       ],
-      downstreamLoss: r.downstreamLoss,
+      downstreamLoss: r.downstreamReference
+        ? { pressureLoss: r.downstreamLoss, referenceMassFlow: r.downstreamReference.flow, referenceDensity: r.downstreamReference.density }
+        : { pressureLoss: r.downstreamLoss },
       ...(r.divided ? { pulseFactor: r.pulseFactor } : {}),
     }),
   );

@@ -115,3 +115,61 @@ describe('a turbine map as one capacity curve', () => {
     );
   });
 });
+
+describe('the turbine map read at the shaft speed', () => {
+  it('interpolates between the two speed lines around the speed, as worked by hand', () => {
+    const at = turbineModelFromMap(twoLines()).atSpeed!(75_000);
+    expect(at.speedBasis).toBe('speed-lines');
+    expect([at.lowerSpeed, at.upperSpeed]).toEqual([60_000, 90_000]);
+    const r = at.read(1.8);
+    // 60 000 line at ER 1.8: η 0.6 + (0.4/0.6)·0.04 = 0.62667, FP 2e-5 + (0.4/0.6)·1e-5 = 2.6667e-5;
+    // 90 000 line at 1.8: η 0.7 (its only efficiency, held), FP 2.3e-5 + (0.1/0.9)·0.9e-5 = 2.4e-5;
+    // halfway in speed: η (0.62667 + 0.7)/2 = 0.66333, FP (2.6667e-5 + 2.4e-5)/2 = 2.5333e-5 (by hand, straight lines).
+    expectClose(r.efficiency!, 0.663333, 1e-5);
+    expectClose(r.flowParameter, 2.53333e-5, 1e-5);
+    expect(r.location).toBe('inside');
+    const lines = at.linesAt(1.8);
+    expectClose(lines.lowerEfficiency!, 0.626667, 1e-5); // the 60 000 line at 1.8 (hand-read)
+    expectClose(lines.upperEfficiency!, 0.7, 1e-12); // the 90 000 line (hand-read)
+    // A quarter of the way from 60 000 to 90 000 rpm: η 0.62667 + 0.25·(0.7 − 0.62667) = 0.645 (by hand).
+    expectClose(turbineModelFromMap(twoLines()).atSpeed!(67_500).read(1.8).efficiency!, 0.645, 1e-5);
+  });
+
+  it('reads a line exactly at its own speed, and holds the nearest line outside the lines, saying so', () => {
+    const map = demoTurbine('ar082-single');
+    const model = turbineModelFromMap(map);
+    const line = map.curves.find((c) => c.label === '90000')!;
+    const on = model.atSpeed!(90_000);
+    for (const p of line.points) {
+      expectClose(on.read(p.expansionRatio).efficiency!, p.efficiency!, 1e-12); // the file's own number (data/maps/turbine-t64-ar082-single.csv)
+      expectClose(on.read(p.expansionRatio).flowParameter, p.flowParameter, 1e-12);
+    }
+    const slow = model.atSpeed!(40_000);
+    expect(slow.speedBasis).toBe('held-at-lowest-line');
+    expect(slow.lowerSpeed).toBe(60_000);
+    expect(slow.read(1.5)).toEqual(model.atSpeed!(60_000).read(1.5)); // held at the 60 000 rpm line (design, docs/physics.md §8)
+    const fast = model.atSpeed!(170_000);
+    expect(fast.speedBasis).toBe('held-at-top-line');
+    expect(fast.read(3.2)).toEqual(model.atSpeed!(150_000).read(3.2));
+  });
+
+  it('differs from the mean of the lines where the lines differ, and keeps the mean where no line has a speed', () => {
+    const model = turbineModelFromMap(demoTurbine('ar064-single'));
+    // At ER 2.2 the slow lines are far from their best blade-speed ratio: the lines' efficiencies spread widely (the demo file).
+    expect(Math.abs(model.atSpeed!(150_000).read(2.2).efficiency! - model.read(2.2).efficiency!)).toBeGreaterThan(0.02);
+    const noSpeeds = demoTurbine('ar064-single');
+    noSpeeds.curves = noSpeeds.curves.map((c) => ({ ...c, points: c.points.map((p) => ({ ...p, speed: null })) }));
+    expect(turbineModelFromMap(noSpeeds).atSpeed).toBeUndefined(); // the mean of the lines is all it has (design)
+  });
+
+  it('has an inverse that agrees with its reading at any shaft speed (fast-check)', () => {
+    const models = [turbineModelFromMap(demoTurbine('ar064-single')), turbineModelFromMap(demoTurbine('ar082-divided')), turbineModelFromMap(twoLines())];
+    fc.assert(
+      fc.property(fc.constantFrom(...models), fc.double({ min: 20_000, max: 200_000, noNaN: true }), fc.double({ min: 1.0001, max: 6, noNaN: true }), (model, speed, er) => {
+        const at = model.atSpeed!(speed);
+        const q = at.read(er).flowParameter * er;
+        expectClose(at.expansionRatioForFlow!(q), er, 1e-9); // FP(ER)·ER strictly increasing at every speed (running maximum)
+      }),
+    );
+  });
+});

@@ -27,7 +27,7 @@ export function baseStudy(): StudyInput {
       injectors: { primary: { count: 4, ratedFlow: 1000 * CC_PER_MIN, ratedPressure: 3e5 }, fuelPressure: 3e5, regulator: 'manifold-referenced' },
     },
     power: { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: 0.33, drivetrainLoss: 0.12 },
-    losses: { inlet: 2000, chargeCooler: 8000 },
+    losses: { inlet: { pressureLoss: 2000 }, chargeCooler: { pressureLoss: 8000 } },
     intercooler: { kind: 'effectiveness', effectiveness: 0.7 },
     scenarios: [
       {

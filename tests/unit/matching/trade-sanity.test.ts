@@ -29,7 +29,7 @@ function built24(staged: 'eight' | 'four'): StudyInput {
       },
     },
     power: { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: DEFAULT_BRAKE_THERMAL_EFFICIENCY, drivetrainLoss: 0.12 },
-    losses: { inlet: 2000, chargeCooler: 10_000 },
+    losses: { inlet: { pressureLoss: 2000 }, chargeCooler: { pressureLoss: 10_000 } },
     intercooler: { kind: 'fixed', manifoldTemperature: toSI(45, 'degC', 'temperature') },
     scenarios: [{ name: 'Sea level', ambient: { pressure: 101_325, temperature: 298.15 }, boostSchedule: [{ label: 'Full', kind: 'full-load', boost: [{ rpm: 8500, value: toSI(20, 'psi', 'pressure') }] }] }],
     plans: [{ name: 'Plan', turbochargers: 1, compressorEfficiency: 0.72 }],

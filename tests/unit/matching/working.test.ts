@@ -79,17 +79,18 @@ function variedStudy(): StudyInput {
   study.engine.rpm = { kind: 'range', min: 1500, max: 8000, step: 500 };
   study.fuelSystem.fuel = { kind: 'ethanol-blend', ethanolPercent: 85 };
   study.fuelSystem.injectors = {
-    primary: { count: 4, ratedFlow: 1000 * CC_PER_MIN, ratedPressure: 3e5 },
-    secondary: { count: 4, ratedFlow: 800 * CC_PER_MIN, ratedPressure: 4e5, switchOverRpm: 5000 },
+    primary: { count: 4, ratedFlow: 1000 * CC_PER_MIN, ratedPressure: 3e5, ratingFluidDensity: 700, deadTime: { time: 0.0009, voltage: 14 } },
+    secondary: { count: 4, ratedFlow: 800 * CC_PER_MIN, ratedPressure: 4e5, switchOverRpm: 5000, deadTime: { time: 0.0011, voltage: 13.5 } },
     fuelPressure: 4e5,
     regulator: 'fixed-rail',
   };
   study.fuelSystem.pumpFlowAvailable = 1e-4;
   study.power = { basis: 'bsfc', bsfc: 1.1e-7, drivetrainLoss: 0.15 };
-  study.losses = { inlet: 3000, chargeCooler: 12_000, inletTemperatureRise: 8 };
+  // Losses at a stated flow: they follow the flow as ṁ²/ρ.
+  study.losses = { inlet: { pressureLoss: 3000, referenceMassFlow: 0.2 }, chargeCooler: { pressureLoss: 12_000, referenceMassFlow: 0.2, referenceDensity: 2.2 }, inletTemperatureRise: 8 };
   study.scenarios.push({
     name: 'High',
-    ambient: { altitude: 2500 },
+    ambient: { altitude: 2500, temperature: 303.15, relativeHumidity: 0.6 },
     boostSchedule: [
       { label: 'Part', kind: 'part-throttle', boost: [{ rpm: 1500, value: -30_000 }, { rpm: 8000, value: 20_000 }] },
       { label: 'Full', kind: 'full-load', boost: [{ rpm: 1500, value: 60_000 }, { rpm: 4000, value: 180_000 }] },
@@ -111,6 +112,21 @@ describe('the Working', () => {
     study.intercooler = { kind: 'fixed', manifoldTemperature: 315 };
     study.fuelSystem.fuel = { kind: 'methanol' };
     expect(checkLines(runStudy(study, { compressorModels: [fakeModel()] }).lines)).toBeGreaterThan(1000);
+  });
+
+  it('works out humid air, losses at a flow, a two-stroke’s trapped air and the injectors’ dead time, each step with its source', () => {
+    const study = variedStudy();
+    study.engine.strokes = 2;
+    study.engine.trappingEfficiency = 0.75;
+    expect(checkLines(runStudy(study, { compressorModels: [fakeModel(), fakeModel()] }).lines)).toBeGreaterThan(1000);
+    const line = runStudy(study).lines.find((l) => l.scenarioName === 'High' && l.rowLabel === 'Full')!;
+    const ids = pointWorking(line.context, line.points[8]).map((s) => s.id);
+    for (const id of ['humidity-ratio', 'humid-gas-constant', 'humid-cp', 'humid-gamma', 'inlet-loss', 'charge-cooler-loss', 'dry-air-flow', 'trapped-air', 'injection-period', 'injector-duty'])
+      expect(ids, id).toContain(id);
+    const steps = pointWorking(line.context, line.points[8]);
+    expect(steps.find((s) => s.id === 'humidity-ratio')!.source).toMatch(/ASHRAE Handbook Fundamentals 2017/);
+    expect(steps.find((s) => s.id === 'trapped-air')!.source).toMatch(/Heywood.*§6\.6/);
+    expect(steps.find((s) => s.id === 'inlet-loss')!.formula).toMatch(/\^ 2/);
   });
 
   it('names the interpolation and the hold in the table steps', () => {

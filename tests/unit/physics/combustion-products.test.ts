@@ -10,6 +10,7 @@ import {
   stoichiometricOxygen,
   WATER_GAS_SHIFT_CONSTANT,
 } from '../../../shared/physics/combustion-products';
+import { exhaustGasAt } from '../../../shared/physics/exhaust-gas';
 import { molarHeatCapacity, type ExhaustSpecies } from '../../../shared/physics/thermo-polynomials';
 import { expectClose } from './expect-close';
 
@@ -138,6 +139,31 @@ describe('the exhaust gas of the fuel burnt', () => {
       expect(g.gasConstant).toBeLessThan(320);
       expect(g.gamma).toBeLessThan(4 / 3);
     }
+  });
+
+  it('adds the humid air’s water and a two-stroke’s short-circuited air to the products, worked by hand', () => {
+    const { carbon: c, hydrogen: h, oxygen: o } = PETROL_ATOMS;
+    for (const [lambda, w, trapping] of [
+      [0.9, 0.02, 0.8],
+      [1.1, 0.01, 1],
+      [0.8, 0, 0.7],
+    ] as const) {
+      const moles = productsByHand(c, h, o, lambda);
+      const trappedO2 = lambda * (c + h / 4 - o / 2);
+      const deliveredO2 = trappedO2 / trapping; // trapping efficiency = trapped/delivered (Heywood 1988 §6.6)
+      const bypass = deliveredO2 - trappedO2;
+      moles.O2 = (moles.O2 ?? 0) + bypass;
+      moles.N2 += 3.773 * bypass; // air as O2 + 3.773 N2 (Heywood 1988, §3.1)
+      const dryAirKg = deliveredO2 * (0.0319988 + 3.773 * 0.0280134);
+      moles.H2O += (w * dryAirKg) / 0.0180153; // W kg of water per kg of dry air (ASHRAE 2017 ch. 1)
+      const hand = byHand(moles, 1100);
+      const g = exhaustGasAt({ fuel: { kind: 'petrol' }, lambda, temperature: 1100, humidityRatio: w, trappingEfficiency: trapping });
+      expectClose(g.cp, hand.cp, 1e-9);
+      expectClose(g.gasConstant, hand.r, 1e-9);
+      expectClose(g.gamma, hand.gamma, 1e-9);
+    }
+    // Dry air and a four-stroke: exactly the products of the fuel burnt.
+    expect(exhaustGasAt({ fuel: { kind: 'methanol' }, lambda: 0.85, temperature: 1150 })).toEqual(exhaustGasProperties({ kind: 'methanol' }, 0.85, 1150));
   });
 
   it('conserves every atom and keeps the water-gas balance at any lambda and fuel (fast-check)', () => {

@@ -133,7 +133,7 @@ describe('diffDocuments on the exhaust side of a plan', () => {
       { rpm: 3000, value: 1073.15 },
       { rpm: 6000, value: 1223.15 },
     ],
-    downstreamLoss: 15_000,
+    downstreamLoss: { pressureLoss: 15_000 },
   });
   const withExhaust = () => {
     const doc = demoJson();
@@ -178,7 +178,7 @@ describe('diffDocuments on the exhaust side of a plan', () => {
     ex.wastegates.count = 2;
     ex.wastegates.dischargeCoefficient = 0.7;
     ex.mechanicalEfficiency = 0.93;
-    ex.downstreamLoss = 20_000;
+    ex.downstreamLoss.pressureLoss = 20_000;
     ex.pulseFactor = 1.1;
     ex.turbineEfficiency = 0.68;
     b.plans[0].turbineMapId = 'builtin-turbine-b';
@@ -189,7 +189,7 @@ describe('diffDocuments on the exhaust side of a plan', () => {
       ['exhaust side › wastegates › count', 'count'],
       ['exhaust side › wastegates › wastegate discharge coefficient', 'fraction'],
       ['exhaust side › mechanical efficiency', 'fraction'],
-      ['exhaust side › pressure loss after the turbine', 'pressure'],
+      ['exhaust side › pressure loss after the turbine › pressure loss', 'pressure'],
       ['exhaust side › pulse-energy factor', 'ratio'],
       ['exhaust side › default turbine efficiency', 'fraction'],
       ['turbine map', 'text'],

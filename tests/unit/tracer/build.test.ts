@@ -166,7 +166,7 @@ describe('a traced turbine map', () => {
     state.scales = scales;
     state.efficiency = map.fileUnits.efficiency;
     state.speedUnit = map.fileUnits.speedUnit as 'rpm' | 'krpm';
-    state.turbine = { flowParameterUnit: unit, flowParameterAxis: 'x', housing: map.housing, scrollFeed: map.scrollFeed ?? 'both', areaRatio: map.areaRatio };
+    state.turbine = { flowParameterUnit: unit, flowParameterAxis: 'x', housing: map.housing, scrollFeed: map.scrollFeed ?? 'both', areaRatio: map.areaRatio, efficiencyKind: 'with-bearing-losses' };
     const place = (fp: number, er: number) => drawnAt(pic, { x: fp, y: er }, scales);
     // The vertical axis stands at 0.005 (a log axis has no zero), the horizontal one at ER 1.
     state.calibration.crossing = { x: 0.005, y: 1 };
@@ -189,6 +189,9 @@ describe('a traced turbine map', () => {
     const traced = build.result.map;
     expect(traced.housing).toBe(map.housing);
     expect(traced.scrollFeed).toBe(map.scrollFeed);
+    // What the map's efficiency counts, as the tracer was told (docs/map-format.md's words).
+    expect(build.text).toContain('# efficiency kind: total-to-static, with bearing losses\n');
+    expect(traced.efficiencyKind).toBe('with-bearing-losses');
     traced.curves.forEach((curve, i) =>
       curve.points.forEach((p, j) => {
         expectNear(p.expansionRatio, map.curves[i].points[j].expansionRatio, 1e-5);

@@ -16,6 +16,8 @@ export const mapListSummarySchema = z.object({
   maxSpeed: z.number().nullable(),
   housing: z.enum(['single', 'divided']).nullable(),
   areaRatio: z.number().nullable(),
+  /** Turbine maps: what the efficiency counts; null when the file does not say (absent from older servers). */
+  efficiencyKind: z.enum(['with-bearing-losses', 'aerodynamic']).nullable().optional(),
 });
 
 export const mapSummarySchema = z.object({

@@ -1,5 +1,6 @@
 import { mapValueFromSI } from '../../../../shared/maps/units';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../../shared/maps/types';
+import { turbineEfficiencyKindMeaning } from '../../../../shared/maps/format';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, unitLabel } from '../../../components/plots/quantities';
 import { fromSI } from '../../../../shared/units';
 import { displayUnitOf, type UnitSystem } from '../../../lib/units';
@@ -75,6 +76,7 @@ function turbineFacts(map: TurbineMap): MapFact[] {
   return [
     { term: 'Housing', value: housing },
     { term: 'A/R', value: map.areaRatio !== null ? formatNumber(map.areaRatio) : 'not given' },
+    { term: 'Efficiency', value: turbineEfficiencyKindMeaning(map.efficiencyKind) },
     { term: 'Speed lines', value: lineSpeeds(map.curves.map((c) => c.points.find((p) => p.speed !== null)?.speed ?? null)) },
     ...(ratios ? [{ term: 'Expansion ratio', value: `${formatNumber(ratios.min)} to ${formatNumber(ratios.max)}` }] : []),
     { term: 'Flow parameter in the file', value: unitLabel(map.fileUnits.flowParameterUnit) },

@@ -5,7 +5,7 @@ import type { RpmTable } from '../../../../shared/matching/types';
 import type { StudyDocument } from '../../../../shared/schemas/study';
 import { formatNumber } from '../../../components/plots/quantities';
 import { planColour } from '../../../components/plots/style';
-import { formatStudyValue, quantityUnit, type StudyQuantity } from '../../../components/study/units';
+import { formatPressureLoss, formatStudyValue, quantityUnit, type StudyQuantity } from '../../../components/study/units';
 import type { UnitSystem } from '../../../lib/units';
 import { mapName, type StudyViewData } from '../study-view';
 
@@ -134,7 +134,7 @@ function ExhaustInputs({ data, system }: { data: Pick<StudyViewData, 'document' 
       label: 'Turbine efficiency off the map',
       value: (_, x) => (x.turbineEfficiency === undefined ? `${v(DEFAULT_TURBINE_EFFICIENCY, 'fraction')} (default)` : v(x.turbineEfficiency, 'fraction')),
     },
-    { label: 'Pressure loss after the turbine', value: (_, x) => v(x.downstreamLoss, 'pressure') },
+    { label: 'Pressure loss after the turbine', value: (_, x) => formatPressureLoss(x.downstreamLoss, system) },
   ];
   const indexed = plans.map((plan, index) => ({ plan, index }));
   return (
@@ -268,8 +268,8 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
   powerFacts.push(['Drivetrain loss', v(p.drivetrainLoss, 'fraction')]);
 
   const lossFacts: [string, ReactNode][] = [
-    ['Filter and intake loss (before the compressor)', v(doc.losses.inlet, 'pressure')],
-    ['Intercooler and pipe loss (compressor to manifold)', v(doc.losses.chargeCooler, 'pressure')],
+    ['Filter and intake loss (before the compressor)', formatPressureLoss(doc.losses.inlet, system)],
+    ['Intercooler and pipe loss (compressor to manifold)', formatPressureLoss(doc.losses.chargeCooler, system)],
     ['Intake heating before the compressor', v(doc.losses.inletTemperatureRise ?? 0, 'temperatureDifference')],
   ];
   const ic = doc.intercooler;

@@ -15,6 +15,8 @@ const mapListItemSchema = z.object({
       topSpeed: z.number().nullable().optional(),
       housing: z.enum(['single', 'divided']).nullable().optional(),
       areaRatio: z.number().nullable().optional(),
+      /** Turbine maps: what the efficiency counts; null when the file does not say. */
+      efficiencyKind: z.enum(['with-bearing-losses', 'aerodynamic']).nullable().optional(),
     })
     .passthrough(),
 });

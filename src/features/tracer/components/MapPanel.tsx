@@ -135,6 +135,17 @@ export function MapPanel({ state, change, disabled }: { state: TraceState; chang
               value={t.areaRatio}
               onChange={(areaRatio) => change((s) => ({ ...s, turbine: { ...s.turbine, areaRatio } }), 'ar')}
             />
+            <ChoiceField
+              label="Efficiency counts"
+              id={settingId('efficiencyKind')}
+              value={t.efficiencyKind ?? ''}
+              options={[
+                { value: '', label: 'Not stated (read as aerodynamic only)' },
+                { value: 'with-bearing-losses', label: 'The bearings too (total-to-static, gas stand)' },
+                { value: 'aerodynamic', label: 'The wheel alone (aerodynamic only)' },
+              ]}
+              onChange={(kind) => change((s) => ({ ...s, turbine: { ...s.turbine, efficiencyKind: kind === '' ? null : kind } }))}
+            />
           </div>
         </>
       )}

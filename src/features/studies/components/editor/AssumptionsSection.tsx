@@ -2,6 +2,7 @@ import { fuelProperties, type FuelChoice } from '../../../../../shared/physics';
 import { getIn } from '../../lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField } from './fields';
+import { LossFields } from './LossFields';
 import { FieldRow, Section, SubHeading } from './Section';
 
 type Power = { basis: 'brake-thermal-efficiency'; brakeThermalEfficiency: number; drivetrainLoss: number } | { basis: 'bsfc'; bsfc: number; drivetrainLoss: number };
@@ -60,10 +61,8 @@ export function AssumptionsSection() {
         <NumberField path={['power', 'drivetrainLoss']} label="Drivetrain loss" quantity="fraction" hint="Share of crank power lost before the wheels." />
       </FieldRow>
       <SubHeading>Losses</SubHeading>
-      <FieldRow>
-        <NumberField path={['losses', 'inlet']} label="Inlet loss" quantity="pressure" hint="Filter and intake, before the compressor." />
-        <NumberField path={['losses', 'chargeCooler']} label="Charge-cooler loss" quantity="pressure" hint="Compressor outlet to manifold." />
-      </FieldRow>
+      <LossFields path={['losses', 'inlet']} label="Inlet loss" hint="Filter and intake, before the compressor." flow="air" testId="loss-inlet" />
+      <LossFields path={['losses', 'chargeCooler']} label="Charge-cooler loss" hint="Compressor outlet to manifold." flow="air" testId="loss-charge-cooler" />
       <NumberField
         path={['losses', 'inletTemperatureRise']}
         label="Intake heating"

@@ -81,7 +81,21 @@ export function EngineSection() {
           { value: 4, label: 'Four-stroke' },
           { value: 2, label: 'Two-stroke' },
         ]}
+        onChoose={(strokes) => {
+          // The trapping efficiency belongs to a two-stroke: switching to four drops it.
+          editor.update(['engine', 'strokes'], strokes);
+          if (strokes === 4) editor.update(['engine', 'trappingEfficiency'], undefined);
+        }}
       />
+      {getIn(editor.draft, ['engine', 'strokes']) === 2 && (
+        <NumberField
+          path={['engine', 'trappingEfficiency']}
+          label="Trapping efficiency"
+          quantity="fraction"
+          optional
+          hint="Share of the delivered air the cylinders keep when the ports close; the rest short-circuits to the exhaust. Fuel and power follow the trapped air, the compressor passes all of it. Empty: 100 %."
+        />
+      )}
       <SubHeading>Engine speeds computed</SubHeading>
       <ChoiceField
         path={['engine', 'rpm', 'kind']}

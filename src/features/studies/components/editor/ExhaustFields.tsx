@@ -1,9 +1,11 @@
+import { turbineEfficiencyKindMeaning } from '../../../../../shared/maps/format';
 import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '../../../../../shared/matching/exhaust';
 import { formatNumber } from '../../../../components/plots/quantities';
 import type { MapListItem } from '../../api/get-team-maps';
 import { getIn } from '../../lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField, ToggleField } from './fields';
+import { LossFields } from './LossFields';
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, SubHeading } from './Section';
 
@@ -17,7 +19,8 @@ type Exhaust = {
 /**
  * A new exhaust side's starting values (a user sets every one before trusting a result): one
  * 44 mm gate, discharge coefficient 0.8, 95 % mechanical efficiency, exhaust gas about 850 °C
- * rising to 900 °C, 15 kPa after the turbine. Typical of a small petrol engine (from memory).
+ * rising to 900 °C, 15 kPa after the turbine (the same at every flow until the user gives the flow
+ * it was measured at). Typical of a small petrol engine (from memory).
  */
 function startingExhaust(housing: Housing) {
   return {
@@ -28,7 +31,7 @@ function startingExhaust(housing: Housing) {
       { rpm: 3000, value: 1123.15 },
       { rpm: 6000, value: 1173.15 },
     ],
-    downstreamLoss: 15_000,
+    downstreamLoss: { pressureLoss: 15_000 },
   };
 }
 
@@ -105,6 +108,11 @@ export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { pl
           <ChoiceField path={[...base, 'turbineMapId']} label="Turbine map" value={turbineMapId ?? ''} options={mapOptions} onChoose={chooseMap} />
           {turbineMapId === null && <p className="text-sm text-copper-ink">Choose a turbine map: without one the exhaust side is not computed.</p>}
           {chosen && turbineMapFacts(chosen) && <p className="-mt-2 text-xs text-ink-soft">{turbineMapFacts(chosen)}</p>}
+          {chosen && (
+            <p className="-mt-2 text-xs text-ink-soft" data-testid={`plan-${planIndex}-turbine-efficiency-kind`}>
+              The map&apos;s turbine efficiency: {turbineEfficiencyKindMeaning(chosen.summary.efficiencyKind)}.
+            </p>
+          )}
           <ChoiceField
             path={[...base, 'exhaust', 'housing']}
             label="Turbine housing"
@@ -155,7 +163,16 @@ export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { pl
           </FieldRow>
           <SubHeading>Turbine</SubHeading>
           <FieldRow>
-            <NumberField path={[...base, 'exhaust', 'mechanicalEfficiency']} label="Mechanical efficiency" quantity="fraction" hint="Share of turbine power that reaches the compressor past the bearings." />
+            <NumberField
+              path={[...base, 'exhaust', 'mechanicalEfficiency']}
+              label="Mechanical efficiency"
+              quantity="fraction"
+              hint={
+                chosen?.summary.efficiencyKind === 'with-bearing-losses'
+                  ? "Not applied with this map: its efficiency already counts the bearings' losses."
+                  : 'Share of turbine power that reaches the compressor past the bearings.'
+              }
+            />
             <NumberField
               path={[...base, 'exhaust', 'turbineEfficiency']}
               label="Default turbine efficiency"
@@ -165,11 +182,12 @@ export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { pl
               hint={`Used where the turbine map gives none; empty: ${formatNumber(DEFAULT_TURBINE_EFFICIENCY * 100)} %.`}
             />
           </FieldRow>
-          <NumberField
+          <LossFields
             path={[...base, 'exhaust', 'downstreamLoss']}
             label="Pressure loss after the turbine"
-            quantity="pressure"
             hint="Downpipe, catalyst and silencers: the turbine outlet sits this far above ambient."
+            flow="exhaust"
+            testId={`plan-${planIndex}-downstream-loss`}
           />
           <RpmTableEditor
             path={[...base, 'exhaust', 'turbineInletTemperature']}

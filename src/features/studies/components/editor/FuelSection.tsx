@@ -1,7 +1,8 @@
 import { Button } from '../../../../components/Button';
-import { getIn } from '../../lib/draft';
+import { getIn, pathKey } from '../../lib/draft';
+import { localizeIssue } from '../../lib/localize-issue';
 import { useEditor } from './context';
-import { ChoiceField, CountField, NumberField, ToggleField } from './fields';
+import { ChoiceField, CountField, NumberField, ToggleField, UnitNumberInput } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, Section, SubHeading } from './Section';
 
@@ -49,6 +50,7 @@ export function FuelSection() {
         <NumberField path={['fuelSystem', 'injectors', 'primary', 'ratedFlow']} label="Rated flow, each" quantity="injectorFlow" />
       </FieldRow>
       <NumberField path={['fuelSystem', 'injectors', 'primary', 'ratedPressure']} label="Rated at a pressure difference of" quantity="pressure" />
+      <InjectorRatingFields set="primary" />
       <NumberField path={['fuelSystem', 'injectors', 'fuelPressure']} label="Base fuel pressure" quantity="pressureGauge" />
       <ChoiceField
         path={['fuelSystem', 'injectors', 'regulator']}
@@ -79,6 +81,7 @@ export function FuelSection() {
             <NumberField path={['fuelSystem', 'injectors', 'secondary', 'ratedPressure']} label="Rated at" quantity="pressure" />
             <NumberField path={['fuelSystem', 'injectors', 'secondary', 'switchOverRpm']} label="Switch-over speed" quantity="speed" />
           </FieldRow>
+          <InjectorRatingFields set="secondary" />
         </div>
       )}
       <NumberField
@@ -89,5 +92,47 @@ export function FuelSection() {
         hint="At the rail pressure it must hold. Leave empty if unknown."
       />
     </Section>
+  );
+}
+
+/** Battery voltage a dead time is taken at when none is typed yet, V (a running engine's charging voltage, common practice). */
+const DEFAULT_DEAD_TIME_VOLTAGE = 14;
+
+/**
+ * What an injector's rating leaves out: the density of the fluid it was rated with (a denser fuel
+ * flows less at the same pressure) and its dead time, the opening delay lost on every injection,
+ * at the battery voltage it was measured at.
+ */
+function InjectorRatingFields({ set }: { set: 'primary' | 'secondary' }) {
+  const editor = useEditor();
+  const base = ['fuelSystem', 'injectors', set];
+  const deadTime = getIn(editor.draft, [...base, 'deadTime']) as { time: number; voltage: number } | undefined;
+  const deadTimeIssue = editor.issues[pathKey([...base, 'deadTime', 'time'])];
+  return (
+    <>
+      <FieldRow>
+        <NumberField
+          path={[...base, 'ratingFluidDensity']}
+          label="Rating fluid density"
+          quantity="density"
+          optional
+          hint="The test fluid the flow was rated with. Empty: rated with this fuel."
+        />
+        <UnitNumberInput
+          label="Dead time"
+          value={deadTime?.time}
+          onChange={(si) => editor.update([...base, 'deadTime'], si === undefined ? undefined : { time: si, voltage: deadTime?.voltage ?? DEFAULT_DEAD_TIME_VOLTAGE })}
+          quantity="duration"
+          optional
+          error={deadTimeIssue ? localizeIssue(deadTimeIssue, 'duration', editor.unitSystem) : null}
+          hint="Opening delay lost on every injection, from the maker's data. Empty: none."
+          readOnly={editor.readOnly}
+          unitSystem={editor.unitSystem}
+        />
+      </FieldRow>
+      {deadTime !== undefined && (
+        <NumberField path={[...base, 'deadTime', 'voltage']} label="Dead time measured at" quantity="voltage" hint="Battery voltage: at a lower voltage the dead time is longer." />
+      )}
+    </>
   );
 }

@@ -6,7 +6,7 @@ import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, Section, SubHeading } from './Section';
 
-type Ambient = { pressure?: number; altitude?: number; temperature?: number };
+type Ambient = { pressure?: number; altitude?: number; temperature?: number; relativeHumidity?: number };
 type BoostRow = { label: string; kind: 'full-load' | 'gear' | 'part-throttle'; gear?: number; boost: { rpm: number; value: number }[] };
 type Scenario = { name: string; ambient: Ambient; boostSchedule: BoostRow[] };
 
@@ -64,8 +64,9 @@ export function ScenariosSection() {
 
   function chooseAmbient(si: number, mode: 'altitude' | 'pressure') {
     const a = scenarios[si].ambient;
-    if (mode === 'altitude') editor.update(['scenarios', si, 'ambient'], a.temperature === undefined ? { altitude: 0 } : { altitude: 0, temperature: a.temperature });
-    else editor.update(['scenarios', si, 'ambient'], { pressure: 101_325, temperature: a.temperature ?? 288.15 });
+    const humidity = a.relativeHumidity !== undefined ? { relativeHumidity: a.relativeHumidity } : {};
+    if (mode === 'altitude') editor.update(['scenarios', si, 'ambient'], a.temperature === undefined ? { altitude: 0, ...humidity } : { altitude: 0, temperature: a.temperature, ...humidity });
+    else editor.update(['scenarios', si, 'ambient'], { pressure: 101_325, temperature: a.temperature ?? 288.15, ...humidity });
   }
 
   function addScenario() {
@@ -112,6 +113,13 @@ export function ScenariosSection() {
                 hint={mode === 'altitude' ? 'Empty: the standard-day temperature at that altitude.' : undefined}
               />
             </FieldRow>
+            <NumberField
+              path={['scenarios', si, 'ambient', 'relativeHumidity']}
+              label="Relative humidity"
+              quantity="fraction"
+              optional
+              hint="Empty: dry air (0 %). Water vapour takes room in the charge but burns nothing: humid air makes less power."
+            />
             <GroupIssue path={['scenarios', si, 'ambient']} />
             <GroupIssue path={['scenarios', si, 'boostSchedule']} />
             {s.boostSchedule?.map((row, ri) => <BoostRowEditor key={ri} si={si} ri={ri} row={row} count={s.boostSchedule.length} />)}

@@ -1,0 +1,52 @@
+import { LOSS_REFERENCE_DENSITY, type PressureLossInput } from '../../../../../shared/physics/losses';
+import { inputText, quantityUnit } from '../../../../components/study/units';
+import { getIn, pathKey, type DocPath } from '../../lib/draft';
+import { localizeIssue } from '../../lib/localize-issue';
+import { useEditor } from './context';
+import { NumberField, UnitNumberInput } from './fields';
+import { FieldRow } from './Section';
+
+/**
+ * A pressure loss as the study states it: the loss, and the engine flow (and gas density) it was
+ * measured at, so that it follows the flow as flow²/density. Without the flow the loss is the same
+ * at every flow (the older form); clearing the flow clears its density too.
+ */
+export function LossFields({ path, label, hint, flow, testId }: { path: DocPath; label: string; hint: string; flow: 'air' | 'exhaust'; testId?: string }) {
+  const editor = useEditor();
+  const loss = getIn(editor.draft, path) as PressureLossInput | undefined;
+  const flowPath = [...path, 'referenceMassFlow'];
+  const issue = editor.issues[pathKey(flowPath)];
+  const density = quantityUnit('density', editor.unitSystem);
+  const follows = loss?.referenceMassFlow !== undefined;
+  return (
+    <div className="space-y-2" data-testid={testId}>
+      <FieldRow>
+        <NumberField path={[...path, 'pressureLoss']} label={label} quantity="pressure" hint={hint} />
+        <UnitNumberInput
+          label={`At engine ${flow} flow`}
+          value={loss?.referenceMassFlow}
+          onChange={(si) => {
+            const { referenceMassFlow: _flow, referenceDensity: _density, ...rest } = loss ?? { pressureLoss: 0 };
+            editor.update(path, si === undefined ? rest : { ...rest, referenceMassFlow: si, ...(loss?.referenceDensity !== undefined ? { referenceDensity: loss.referenceDensity } : {}) });
+          }}
+          quantity="massFlow"
+          optional
+          error={issue ? localizeIssue(issue, 'massFlow', editor.unitSystem) : null}
+          hint={follows ? 'The engine flow the loss was measured at: it follows the flow, flow² over density.' : 'Empty: the same loss at every flow. Give the engine flow it was measured at to have it follow the flow.'}
+          readOnly={editor.readOnly}
+          unitSystem={editor.unitSystem}
+        />
+      </FieldRow>
+      {follows && (
+        <NumberField
+          path={[...path, 'referenceDensity']}
+          label={`Density of the ${flow === 'air' ? 'air' : 'exhaust gas'} then`}
+          quantity="density"
+          optional
+          placeholder={inputText(density.fromSI(LOSS_REFERENCE_DENSITY))}
+          hint={`Empty: ${inputText(density.fromSI(LOSS_REFERENCE_DENSITY))} ${density.label}, standard sea-level air (a flow bench).`}
+        />
+      )}
+    </div>
+  );
+}
