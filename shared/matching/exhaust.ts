@@ -670,7 +670,9 @@ export function exhaustLineSummary(ctx: LineContext, points: readonly OperatingP
   const boostAsked = points.some((p) => p.values !== null && asksForBoost(p.values));
   let threshold: number | null = null;
   for (const p of points) {
-    if (boostAsked && p.values && p.values.targetHeld === true && asksForBoost(p.values)) {
+    // Full boost counts only where the compressor can deliver it: a target held at a point left of
+    // surge is boost the engine cannot use.
+    if (boostAsked && p.values && p.values.targetHeld === true && asksForBoost(p.values) && p.values.reachable !== false) {
       threshold = p.rpm;
       break;
     }
@@ -679,6 +681,7 @@ export function exhaustLineSummary(ctx: LineContext, points: readonly OperatingP
   const atPeak = peakPower ? points.find((p) => p.rpm === peakPower.rpm)?.values?.turbineInletPressure : null;
   return {
     boostThresholdRpm: threshold,
+    turbineHoldsFromRpm: boostAsked ? (points.find((p) => p.values?.targetHeld === true && asksForBoost(p.values))?.rpm ?? null) : null,
     boostAsked,
     // Below the threshold the manifold is barely boosted and p3/p_man says little: the peak that
     // matters is at the boost the builder asked for.

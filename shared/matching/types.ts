@@ -663,8 +663,13 @@ export interface ValueAtRpm {
 
 /** The exhaust figures of a whole operating line (for Side by side and the line's headline). */
 export interface ExhaustLineSummary {
-  /** Boost threshold: the first engine speed of the line that holds the boost target, rpm; null when none does or none asks for boost. */
+  /**
+   * Boost threshold: the first engine speed of the line that holds the boost target at a point the
+   * compressor can deliver, rpm; null when none does or none asks for boost.
+   */
   boostThresholdRpm: number | null;
+  /** The first engine speed whose turbine holds the target, reachable or not (earlier than the threshold where the compressor surges there), rpm. */
+  turbineHoldsFromRpm?: number | null;
   /** Whether any point of the line asks for boost (a target above ambient); a line that never does has no threshold. */
   boostAsked?: boolean;
   /** Highest drive pressure ratio p3/p_man of the line, over the points that hold their boost target. */
