@@ -15,6 +15,8 @@ export async function enqueueMail(db: Db | Tx, message: MailMessage): Promise<vo
 /** Attempts before a message is given up (logged); waits between them double from 30 s. */
 const MAX_ATTEMPTS = 6;
 const BATCH = 10;
+/** Longest `drain` waits for messages another instance has claimed, ms. */
+const DRAIN_WAIT_MS = 5_000;
 
 export interface MailWorker {
   /** Looks at the queue now instead of at the next tick. */
@@ -60,6 +62,14 @@ export function startMailWorker(db: Db, mailer: Mailer, logger: Logger, interval
     return claimed.rows.length;
   }
 
+  /** Messages some worker has claimed and neither sent nor failed yet. */
+  async function inFlight(): Promise<number> {
+    const r = await db.execute<{ n: number }>(
+      sql`SELECT count(*)::int AS n FROM mail_queue WHERE sent_at IS NULL AND last_error IS NULL AND attempts > 0 AND next_attempt_at > now()`,
+    );
+    return r.rows[0]?.n ?? 0;
+  }
+
   function runOnce(): Promise<void> {
     running ??= (async () => {
       try {
@@ -90,6 +100,10 @@ export function startMailWorker(db: Db, mailer: Mailer, logger: Logger, interval
       await new Promise((r) => setImmediate(r));
       if (running) await running;
       while (!stopped && (await sendDue()) > 0);
+      // Another instance on the same database may have claimed some of these messages: wait (a
+      // little) until nothing claimed is still on its way, so the caller finds them delivered.
+      const deadline = Date.now() + DRAIN_WAIT_MS;
+      while (!stopped && Date.now() < deadline && (await inFlight()) > 0) await new Promise((r) => setTimeout(r, 25));
     },
     later(what, work) {
       const p = new Promise<void>((resolve) => setImmediate(resolve))
