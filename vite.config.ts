@@ -6,6 +6,7 @@ import tailwindcss from '@tailwindcss/vite';
 // In development (`npm run dev`) Vite serves the client and forwards /api to the server.
 export default defineConfig({
   plugins: [react(), tailwindcss()],
+  resolve: { tsconfigPaths: true },
   build: { outDir: 'dist/client', emptyOutDir: true, chunkSizeWarningLimit: 5000 },
   server: {
     port: 5173,

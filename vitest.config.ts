@@ -3,9 +3,11 @@ import { defineConfig } from 'vitest/config';
 // Unit and API tests. Node for shared/ and server/, jsdom for React components.
 // API tests need DATABASE_URL pointing at a migrated, disposable database: `npm test` sets it.
 export default defineConfig({
+  resolve: { tsconfigPaths: true },
   test: {
     projects: [
       {
+        extends: true,
         test: {
           name: 'node',
           environment: 'node',
@@ -16,6 +18,7 @@ export default defineConfig({
         },
       },
       {
+        extends: true,
         test: {
           name: 'jsdom',
           environment: 'jsdom',

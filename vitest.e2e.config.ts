@@ -3,6 +3,7 @@ import { defineConfig } from 'vitest/config';
 // Browser tests: the production build served by the real server over the test database,
 // driven through playwright-core in Debian's chromium. `npm test` runs them after the build.
 export default defineConfig({
+  resolve: { tsconfigPaths: true },
   test: {
     name: 'browser',
     environment: 'node',
