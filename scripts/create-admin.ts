@@ -6,9 +6,9 @@
  */
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { emailSchema } from '../shared/schemas/account';
-import { connectDatabase } from '../server/db/client';
-import { FIRST_ADMIN_LINK_MINUTES, makeSiteAdmin } from '../server/services/admins';
+import { emailSchema } from '#shared/schemas/account';
+import { connectDatabase } from '#server/db/client';
+import { FIRST_ADMIN_LINK_MINUTES, makeSiteAdmin } from '#server/services/admins';
 import { prepareDatabase } from './lib/database';
 import { SetupError } from './lib/postgres';
 
@@ -28,7 +28,9 @@ async function main() {
     const { created, token } = await makeSiteAdmin(database.db, email.data, name);
     const publicUrl = (process.env.PUBLIC_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}`).replace(/\/$/, '');
     if (created) {
-      console.log(`${email.data} is now a site admin. Open this link within ${FIRST_ADMIN_LINK_MINUTES / 60} hours to choose the password (it works once):\n\n  ${publicUrl}/reset-password?token=${token}\n`);
+      console.log(
+        `${email.data} is now a site admin. Open this link within ${FIRST_ADMIN_LINK_MINUTES / 60} hours to choose the password (it works once):\n\n  ${publicUrl}/reset-password?token=${token}\n`,
+      );
     } else {
       console.log(`${email.data} already had an account; it is now a site admin and keeps its password.`);
     }

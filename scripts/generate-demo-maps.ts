@@ -24,9 +24,9 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
-import { parseMapFile } from '../shared/maps/parse';
-import { writeMapFile } from '../shared/maps/write';
-import { compressorFlowScale, efficiencyScale, flowParameterScale, speedScale } from '../shared/maps/scales';
+import { parseMapFile } from '#shared/maps/parse';
+import { writeMapFile } from '#shared/maps/write';
+import { compressorFlowScale, efficiencyScale, flowParameterScale, speedScale } from '#shared/maps/scales';
 import type {
   CompressorCurve,
   CompressorFileUnits,
@@ -35,8 +35,8 @@ import type {
   MapReferenceConditions,
   TurbineCurve,
   TurbineMap,
-} from '../shared/maps/types';
-import { mapValueToSI } from '../shared/maps/units';
+} from '#shared/maps/types';
+import { mapValueToSI } from '#shared/maps/units';
 
 const GAMMA = 1.4;
 const R_AIR = 287.05287; // J/(kg·K), ISO 2533
@@ -161,7 +161,14 @@ interface Factors {
   speed: number;
 }
 
-function compressorPoint(physics: CompressorPhysics, phi: number, speed: number, factors: Factors, withEfficiency: boolean, withSpeed: boolean): CompressorMapPoint {
+function compressorPoint(
+  physics: CompressorPhysics,
+  phi: number,
+  speed: number,
+  factors: Factors,
+  withEfficiency: boolean,
+  withSpeed: boolean,
+): CompressorMapPoint {
   const percent = physics.spec.units.efficiency === 'percent';
   return {
     correctedMassFlow: viaFile(physics.flowOf(phi, speed), factors.flow, (v) => roundSignificant(v, 4)),
@@ -294,7 +301,15 @@ const COMPRESSORS: CompressorSpec[] = [
     chokeFlowCoefficient: 0.16,
     backsweep: 3,
     reference: reference(298, 'K', 100, 'kPa'),
-    units: { flowAxis: 'corrected-mass', flowUnit: 'kg/s', referenceTemperatureUnit: 'K', referencePressureUnit: 'kPa', efficiency: 'percent', speedUnit: 'rpm', maxSpeedUnit: 'rpm' },
+    units: {
+      flowAxis: 'corrected-mass',
+      flowUnit: 'kg/s',
+      referenceTemperatureUnit: 'K',
+      referencePressureUnit: 'kPa',
+      efficiency: 'percent',
+      speedUnit: 'rpm',
+      maxSpeedUnit: 'rpm',
+    },
     islandLevels: [0.6, 0.65, 0.7, 0.72, 0.74, 0.75],
   },
   {
@@ -308,7 +323,15 @@ const COMPRESSORS: CompressorSpec[] = [
     chokeFlowCoefficient: 0.165,
     backsweep: 3,
     reference: reference(545, 'degR', 13.95, 'psi'),
-    units: { flowAxis: 'corrected-mass', flowUnit: 'lb/min', referenceTemperatureUnit: 'degR', referencePressureUnit: 'psi', efficiency: 'percent', speedUnit: 'rpm', maxSpeedUnit: 'rpm' },
+    units: {
+      flowAxis: 'corrected-mass',
+      flowUnit: 'lb/min',
+      referenceTemperatureUnit: 'degR',
+      referencePressureUnit: 'psi',
+      efficiency: 'percent',
+      speedUnit: 'rpm',
+      maxSpeedUnit: 'rpm',
+    },
     islandLevels: [0.6, 0.65, 0.7, 0.74, 0.76, 0.77],
   },
   {
@@ -322,7 +345,15 @@ const COMPRESSORS: CompressorSpec[] = [
     chokeFlowCoefficient: 0.17,
     backsweep: 3.2,
     reference: reference(85, 'degF', 28.4, 'inHg'),
-    units: { flowAxis: 'corrected-mass', flowUnit: 'lb/min', referenceTemperatureUnit: 'degF', referencePressureUnit: 'inHg', efficiency: 'fraction', speedUnit: 'rpm', maxSpeedUnit: 'rpm' },
+    units: {
+      flowAxis: 'corrected-mass',
+      flowUnit: 'lb/min',
+      referenceTemperatureUnit: 'degF',
+      referencePressureUnit: 'inHg',
+      efficiency: 'fraction',
+      speedUnit: 'rpm',
+      maxSpeedUnit: 'rpm',
+    },
     islandLevels: [0.62, 0.68, 0.72, 0.76, 0.78, 0.79],
   },
   {
@@ -336,7 +367,15 @@ const COMPRESSORS: CompressorSpec[] = [
     chokeFlowCoefficient: 0.16,
     backsweep: 3,
     reference: reference(77, 'degF', 14.7, 'psi'),
-    units: { flowAxis: 'volume', flowUnit: 'cfm', referenceTemperatureUnit: 'degF', referencePressureUnit: 'psi', efficiency: 'percent', speedUnit: 'krpm', maxSpeedUnit: 'krpm' },
+    units: {
+      flowAxis: 'volume',
+      flowUnit: 'cfm',
+      referenceTemperatureUnit: 'degF',
+      referencePressureUnit: 'psi',
+      efficiency: 'percent',
+      speedUnit: 'krpm',
+      maxSpeedUnit: 'krpm',
+    },
     islandLevels: [0.6, 0.66, 0.7, 0.73, 0.75, 0.76],
   },
 ];

@@ -50,7 +50,8 @@ function count(report: string, suite: string) {
   totals.failed += json.numFailedTests + (json.numFailedTests === 0 ? json.numFailedTestSuites : 0);
   totals.skipped += json.numPendingTests + json.numTodoTests;
   if (json.numTotalTests === 0) problems.push(`${suite}: no test ran`);
-  if (json.numFailedTests > 0 || json.numFailedTestSuites > 0) problems.push(`${suite}: ${json.numFailedTests} failed tests, ${json.numFailedTestSuites} failed files`);
+  if (json.numFailedTests > 0 || json.numFailedTestSuites > 0)
+    problems.push(`${suite}: ${json.numFailedTests} failed tests, ${json.numFailedTestSuites} failed files`);
 }
 
 function ensureChromium() {

@@ -5,7 +5,7 @@
 import { existsSync, mkdirSync, readFileSync, readdirSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { ADMIN_USER, DEMO_USER } from '../server/db/seed';
+import { ADMIN_USER, DEMO_USER } from '#server/db/seed';
 import { prepareDatabase } from './lib/database';
 import { SetupError } from './lib/postgres';
 
@@ -56,7 +56,9 @@ async function buildClientIfStale() {
 async function main() {
   const running = await alreadyRunning();
   if (running) {
-    console.error(`Spoolbook is already running on port ${port} (${running}). Open http://${host}:${port}, stop it first, or start another one with PORT=<other port> npm start.`);
+    console.error(
+      `Spoolbook is already running on port ${port} (${running}). Open http://${host}:${port}, stop it first, or start another one with PORT=<other port> npm start.`,
+    );
     process.exit(1);
   }
   // Development is `npm start` on its own local cluster, served on loopback: only there do the demo
@@ -69,7 +71,7 @@ async function main() {
   await buildClientIfStale();
   process.env.DATABASE_URL = databaseUrl;
   process.env.NODE_ENV ??= development ? 'development' : 'production';
-  const { startServer } = await import('../server/index');
+  const { startServer } = await import('#server/index');
   const server = await startServer();
   mkdirSync(path.dirname(pidFile), { recursive: true });
   writeFileSync(pidFile, String(process.pid));

@@ -60,7 +60,16 @@ export interface CreateAppOptions {
 const defaultClientDir = fileURLToPath(new URL('../dist/client', import.meta.url));
 
 /** Builds the whole app without listening, so tests can drive it with supertest. */
-export function createApp({ database, config, mailer, logger = pino({ level: config.logLevel }), computeRateLimitPerMinute, limitSettings, mailIntervalMs, rateLimitNamespace }: CreateAppOptions): { app: Express; deps: AppDeps } {
+export function createApp({
+  database,
+  config,
+  mailer,
+  logger = pino({ level: config.logLevel }),
+  computeRateLimitPerMinute,
+  limitSettings,
+  mailIntervalMs,
+  rateLimitNamespace,
+}: CreateAppOptions): { app: Express; deps: AppDeps } {
   const auth = createLucia(database.db, config);
   const settings: LimitSettings = {
     ...defaultLimitSettings(config.authRateLimit),

@@ -124,7 +124,14 @@ export async function startServer(config: Config = loadConfig(), options: StartO
     logger.info({ port: fakeSmtp.port }, 'local fake SMTP server is catching mail into the outbox');
   }
   const mailer = createMailer(smtpUrl, config.mailFrom);
-  const { app, deps } = createApp({ database, config, mailer, logger, computeRateLimitPerMinute: options.computeRateLimitPerMinute, limitSettings: options.limitSettings });
+  const { app, deps } = createApp({
+    database,
+    config,
+    mailer,
+    logger,
+    computeRateLimitPerMinute: options.computeRateLimitPerMinute,
+    limitSettings: options.limitSettings,
+  });
   if (config.firstAdmin) await ensureFirstAdmin(database, config, deps.mail, logger);
 
   let stopping = false;
@@ -199,7 +206,8 @@ export async function startServer(config: Config = loadConfig(), options: StartO
           new Promise<false>((r) => setTimeout(() => r(false), 5_000).unref()),
         ]);
         if (poolClosed) logger.info('database pool closed; stopped');
-        else logger.warn({ checkedOut: database.pool.totalCount - database.pool.idleCount }, 'database pool still had clients in use after 5 s; stopped anyway');
+        else
+          logger.warn({ checkedOut: database.pool.totalCount - database.pool.idleCount }, 'database pool still had clients in use after 5 s; stopped anyway');
         resolve();
       });
       closeIdleConnections();
@@ -228,7 +236,10 @@ async function ensureFirstAdmin(database: Database, config: Config, mail: MailWo
     await enqueueMail(database.db, firstAdminMail(wanted.email, `${config.publicUrl}/reset-password?token=${token}`, FIRST_ADMIN_LINK_MINUTES));
     mail.kick();
   }
-  logger.info({ created }, created ? 'first site admin made from ADMIN_EMAIL; a link to choose the password was mailed' : 'the account of ADMIN_EMAIL is now a site admin');
+  logger.info(
+    { created },
+    created ? 'first site admin made from ADMIN_EMAIL; a link to choose the password was mailed' : 'the account of ADMIN_EMAIL is now a site admin',
+  );
 }
 
 /**

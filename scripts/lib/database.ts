@@ -1,6 +1,6 @@
-import { connectDatabase } from '../../server/db/client';
-import { runMigrations } from '../../server/db/migrate';
-import { seedDemo } from '../../server/db/seed';
+import { connectDatabase } from '#server/db/client';
+import { runMigrations } from '#server/db/migrate';
+import { seedDemo } from '#server/db/seed';
 import { ensureDatabase, ensureLocalCluster } from './postgres';
 
 /**

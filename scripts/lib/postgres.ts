@@ -4,9 +4,8 @@
  * when this process is root the cluster belongs to the `postgres` system user.
  */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
+import { randomBytes, createHash } from 'node:crypto';
 import { chmodSync, chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { createHash } from 'node:crypto';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
@@ -35,11 +34,11 @@ export function ensurePostgresInstalled(): string {
   if (bin) return bin;
   if (!isRoot) {
     throw new SetupError(
-      'PostgreSQL is not installed. Install Debian\'s package and run again:\n  sudo apt-get install -y postgresql\n' +
+      "PostgreSQL is not installed. Install Debian's package and run again:\n  sudo apt-get install -y postgresql\n" +
         'or set DATABASE_URL to a PostgreSQL server you already have.',
     );
   }
-  log('PostgreSQL is missing: installing Debian\'s postgresql package with apt-get (once)…');
+  log("PostgreSQL is missing: installing Debian's postgresql package with apt-get (once)…");
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   run('apt-get', ['update', '-qq'], { env });
   run('apt-get', ['install', '-y', '-qq', 'postgresql'], { env });
@@ -114,7 +113,9 @@ export function ensureLocalCluster(repoRoot: string): LocalCluster {
       run('chown', ['-R', 'postgres:postgres', dataDir]);
     }
     try {
-      run(path.join(bin, 'initdb'), ['-D', dataDir, '-U', 'postgres', '--auth=scram-sha-256', `--pwfile=${pwfile}`, '-E', 'UTF8', '--locale=C.UTF-8'], { asPostgres: true });
+      run(path.join(bin, 'initdb'), ['-D', dataDir, '-U', 'postgres', '--auth=scram-sha-256', `--pwfile=${pwfile}`, '-E', 'UTF8', '--locale=C.UTF-8'], {
+        asPostgres: true,
+      });
     } finally {
       rmSync(pwfile, { force: true });
     }
@@ -213,12 +214,18 @@ export function createClusterAt(parentDir: string, port: number): ClusterAt {
   if (isRoot) run('chown', ['-R', 'postgres:postgres', parentDir]);
   if (!postgresCanUse(parentDir)) {
     rmSync(pwfile, { force: true });
-    throw new SetupError(`the postgres user cannot reach ${parentDir}; make the cluster somewhere every folder above is searchable (such as the system temp folder)`);
+    throw new SetupError(
+      `the postgres user cannot reach ${parentDir}; make the cluster somewhere every folder above is searchable (such as the system temp folder)`,
+    );
   }
   try {
-    run(path.join(bin, 'initdb'), ['-D', dataDir, '-U', 'postgres', '--auth=scram-sha-256', `--pwfile=${pwfile}`, '-E', 'UTF8', '--locale=C.UTF-8', '--no-sync'], {
-      asPostgres: true,
-    });
+    run(
+      path.join(bin, 'initdb'),
+      ['-D', dataDir, '-U', 'postgres', '--auth=scram-sha-256', `--pwfile=${pwfile}`, '-E', 'UTF8', '--locale=C.UTF-8', '--no-sync'],
+      {
+        asPostgres: true,
+      },
+    );
   } finally {
     rmSync(pwfile, { force: true });
   }
@@ -248,7 +255,10 @@ export function createClusterAt(parentDir: string, port: number): ClusterAt {
 /** Starts a cluster made by createClusterAt (waiting until it accepts connections). */
 export function startClusterAt(cluster: ClusterAt) {
   const bin = ensurePostgresInstalled();
-  const started = run(path.join(bin, 'pg_ctl'), ['-D', cluster.dataDir, '-l', cluster.logFile, '-w', '-t', '60', 'start'], { asPostgres: true, allowFail: true });
+  const started = run(path.join(bin, 'pg_ctl'), ['-D', cluster.dataDir, '-l', cluster.logFile, '-w', '-t', '60', 'start'], {
+    asPostgres: true,
+    allowFail: true,
+  });
   if (started.status !== 0) {
     const tail = existsSync(cluster.logFile) ? readFileSync(cluster.logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
     throw new SetupError(`PostgreSQL did not start on port ${cluster.port}.\n${started.stderr}\n${tail}`);

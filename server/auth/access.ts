@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm';
 import type { User } from 'lucia';
-import type { Role } from '../../shared/schemas/account';
+import type { Role } from '#shared/schemas/account';
 import type { Db } from '../db/client';
 import { teamMembers, teams } from '../db/schema';
 import { forbidden, HttpError, notFound } from '../http/errors';
@@ -23,7 +23,17 @@ export type Permission =
 
 const viewer: Permission[] = ['team:read', 'members:list', 'team:leave', 'content:read'];
 const editor: Permission[] = [...viewer, 'content:write'];
-const owner: Permission[] = [...editor, 'team:rename', 'team:delete', 'members:invite', 'members:change-role', 'members:remove', 'audit:read', 'team:export', 'team:import'];
+const owner: Permission[] = [
+  ...editor,
+  'team:rename',
+  'team:delete',
+  'members:invite',
+  'members:change-role',
+  'members:remove',
+  'audit:read',
+  'team:export',
+  'team:import',
+];
 
 export const rolePermissions: Record<Role, ReadonlySet<Permission>> = {
   viewer: new Set(viewer),
@@ -68,7 +78,11 @@ export async function requireTeamPermission(db: Db, user: User, teamId: string, 
   const access: TeamAccess = { teamId: row.teamId, teamName: row.teamName, personal: row.personal, role: row.role, requireTwoFactor: row.requireTwoFactor };
   if (!can(access.role, permission, user.isAdmin)) throw forbidden();
   if (access.requireTwoFactor && access.role && !user.twoFactor && !WITHOUT_SECOND_FACTOR.has(permission)) {
-    throw new HttpError(403, 'two_factor_required', `The team "${access.teamName}" asks its members to use a second factor. Turn it on under Account → Second factor, then come back.`);
+    throw new HttpError(
+      403,
+      'two_factor_required',
+      `The team "${access.teamName}" asks its members to use a second factor. Turn it on under Account → Second factor, then come back.`,
+    );
   }
   return access;
 }

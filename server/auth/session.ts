@@ -47,7 +47,10 @@ export function sessionMiddleware(auth: Auth, absoluteLifetimeMs: number, db: Db
     if (session) {
       const ip = clientAddress(req);
       if (Date.now() - new Date(session.lastSeenAt).getTime() > LAST_SEEN_EVERY_MS || session.ip !== ip) {
-        await db.update(sessions).set({ lastSeenAt: new Date(), ip }).where(eq(sessions.id, hashToken(session.id)));
+        await db
+          .update(sessions)
+          .set({ lastSeenAt: new Date(), ip })
+          .where(eq(sessions.id, hashToken(session.id)));
       }
     }
     res.locals.user = user;
@@ -84,6 +87,10 @@ export function requireAdmin(res: Response): User {
 /** Sending invitations, creating and joining teams need an address that has been confirmed. */
 export function requireConfirmedEmail(user: User) {
   if (!user.emailConfirmed) {
-    throw new HttpError(403, 'email_unconfirmed', `Confirm your e-mail address first: open the link we sent to ${user.email}. You can have it sent again from Settings.`);
+    throw new HttpError(
+      403,
+      'email_unconfirmed',
+      `Confirm your e-mail address first: open the link we sent to ${user.email}. You can have it sent again from Settings.`,
+    );
   }
 }

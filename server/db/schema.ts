@@ -14,7 +14,9 @@ export const users = pgTable(
     name: text('name').notNull(),
     passwordHash: text('password_hash').notNull(),
     isAdmin: boolean('is_admin').notNull().default(false),
-    unitSystem: text('unit_system', { enum: ['si', 'us'] }).notNull().default('si'),
+    unitSystem: text('unit_system', { enum: ['si', 'us'] })
+      .notNull()
+      .default('si'),
     createdAt: createdAt(),
     passwordChangedAt: timestamp('password_changed_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
     /** When the owner of the address opened the confirmation link; null until then (no joining or creating teams). */
@@ -166,7 +168,9 @@ export const passwordResets = pgTable(
   (t) => [
     uniqueIndex('password_resets_token_unique').on(t.tokenHash),
     // One live link per user: a new request ends the earlier one first.
-    uniqueIndex('password_resets_live_unique').on(t.userId).where(sql`used_at IS NULL`),
+    uniqueIndex('password_resets_live_unique')
+      .on(t.userId)
+      .where(sql`used_at IS NULL`),
   ],
 );
 
@@ -188,7 +192,11 @@ export const mailQueue = pgTable(
     lastError: text('last_error'),
     createdAt: createdAt(),
   },
-  (t) => [index('mail_queue_due_idx').on(t.nextAttemptAt).where(sql`sent_at IS NULL`)],
+  (t) => [
+    index('mail_queue_due_idx')
+      .on(t.nextAttemptAt)
+      .where(sql`sent_at IS NULL`),
+  ],
 );
 
 /**

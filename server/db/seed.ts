@@ -35,7 +35,10 @@ async function ensureUser(db: Db, u: { email: string; password: string; name: st
 export async function seedDemo(db: Db) {
   await ensureUser(db, ADMIN_USER, true);
   const demoId = await ensureUser(db, DEMO_USER);
-  let [team] = await db.select({ id: teams.id }).from(teams).where(and(eq(teams.name, DEMO_TEAM_NAME), eq(teams.personal, false)));
+  let [team] = await db
+    .select({ id: teams.id })
+    .from(teams)
+    .where(and(eq(teams.name, DEMO_TEAM_NAME), eq(teams.personal, false)));
   if (!team) {
     team = { id: newId() };
     await db.insert(teams).values({ id: team.id, name: DEMO_TEAM_NAME, personal: false });
@@ -46,12 +49,17 @@ export async function seedDemo(db: Db) {
     await db.insert(teamMembers).values({ teamId: team.id, userId: id, role: m.role }).onConflictDoNothing();
   }
   for (const demo of DEMO_STUDIES) {
-    const [study] = await db.select({ id: studies.id }).from(studies).where(and(eq(studies.teamId, team.id), eq(studies.title, demo.title)));
+    const [study] = await db
+      .select({ id: studies.id })
+      .from(studies)
+      .where(and(eq(studies.teamId, team.id), eq(studies.title, demo.title)));
     if (study) continue;
     const document = demoStudyDocument(demo.file);
     const id = newId();
     await db.transaction(async (tx) => {
-      await tx.insert(studies).values({ id, teamId: team.id, title: demo.title, engineLabel: document.engineLabel, document, createdBy: demoId, updatedBy: demoId });
+      await tx
+        .insert(studies)
+        .values({ id, teamId: team.id, title: demo.title, engineLabel: document.engineLabel, document, createdBy: demoId, updatedBy: demoId });
       await tx.insert(studyRevisions).values({ studyId: id, revision: 1, document, title: demo.title, message: 'Demo study', authorId: demoId });
     });
   }

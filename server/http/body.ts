@@ -29,8 +29,7 @@ export function jsonBody({ limitBytes = JSON_BODY_LIMIT_BYTES, maxDepth = JSON_M
     // req.is answers null when the request has no body at all, false for another content type.
     if (!req.is('application/json')) return next();
 
-    const tooLarge = () =>
-      new HttpError(413, 'too_large', `The request body is larger than ${formatBytes(limitBytes)}.`, undefined, { Connection: 'close' });
+    const tooLarge = () => new HttpError(413, 'too_large', `The request body is larger than ${formatBytes(limitBytes)}.`, undefined, { Connection: 'close' });
     const declaredText = req.headers['content-length'];
     const declared = declaredText === undefined ? null : Number(declaredText);
     if (declared !== null && declared > limitBytes) return next(tooLarge());
@@ -41,7 +40,9 @@ export function jsonBody({ limitBytes = JSON_BODY_LIMIT_BYTES, maxDepth = JSON_M
     }
     const charset = charsetOf(req);
     if (charset !== null && charset !== 'utf-8' && charset !== 'utf8') {
-      return next(new HttpError(415, 'unsupported_charset', `Send the JSON body as UTF-8 (charset ${charset} is not accepted).`, undefined, { Connection: 'close' }));
+      return next(
+        new HttpError(415, 'unsupported_charset', `Send the JSON body as UTF-8 (charset ${charset} is not accepted).`, undefined, { Connection: 'close' }),
+      );
     }
 
     const chunks: Buffer[] = [];
@@ -143,7 +144,8 @@ export function nestingDepth(text: string, limit = Infinity): number {
   for (let i = 0; i < text.length; i++) {
     const c = text.charCodeAt(i);
     if (inString) {
-      if (c === 0x5c) i++; // backslash: skip the escaped character
+      if (c === 0x5c)
+        i++; // backslash: skip the escaped character
       else if (c === 0x22) inString = false;
       continue;
     }

@@ -1,6 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import type { ZodType } from 'zod';
-import { z } from 'zod';
+import type { ZodType, z } from 'zod';
 
 /** An error meant for the client: status, a stable code, a plain message and optional details. */
 export class HttpError extends Error {
@@ -94,7 +93,14 @@ export function errorHandler(log: { error: (obj: unknown, msg?: string) => void 
       httpError = new HttpError(413, 'too_large', 'The request body is too large.');
     } else if (err && typeof err === 'object' && 'type' in err && (err as { type: string }).type === 'entity.parse.failed') {
       httpError = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
-    } else if (err && typeof err === 'object' && 'status' in err && typeof (err as { status: unknown }).status === 'number' && (err as { status: number }).status >= 400 && (err as { status: number }).status < 500) {
+    } else if (
+      err &&
+      typeof err === 'object' &&
+      'status' in err &&
+      typeof (err as { status: unknown }).status === 'number' &&
+      (err as { status: number }).status >= 400 &&
+      (err as { status: number }).status < 500
+    ) {
       const status = (err as { status: number }).status;
       httpError = new HttpError(status, 'bad_request', status === 413 ? 'The request body is too large.' : 'The request could not be read.');
     } else if (isDatabaseUnavailable(err)) {
@@ -104,7 +110,11 @@ export function errorHandler(log: { error: (obj: unknown, msg?: string) => void 
       const code = databaseDataException(err);
       // Logged as an error all the same: the route let a value through that it should have refused.
       log.error({ err: { message: (err as Error).message, code }, url: req.originalUrl }, 'input the database refused reached it');
-      httpError = new HttpError(400, 'invalid_input', 'A value in the request cannot be stored (for example text with a NUL character, or a number out of range).');
+      httpError = new HttpError(
+        400,
+        'invalid_input',
+        'A value in the request cannot be stored (for example text with a NUL character, or a number out of range).',
+      );
     } else {
       log.error({ err, url: req.originalUrl }, 'unhandled error');
       httpError = new HttpError(500, 'internal', 'Something went wrong on our side. It has been logged.');

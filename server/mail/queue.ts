@@ -54,9 +54,15 @@ export function startMailWorker(db: Db, mailer: Mailer, logger: Logger, interval
         await db.update(mailQueue).set({ sentAt: new Date(), lastError: null }).where(eq(mailQueue.id, m.id));
       } catch (err) {
         const message = (err as Error).message ?? String(err);
-        await db.update(mailQueue).set({ lastError: message.slice(0, 500) }).where(eq(mailQueue.id, m.id));
+        await db
+          .update(mailQueue)
+          .set({ lastError: message.slice(0, 500) })
+          .where(eq(mailQueue.id, m.id));
         // The address is personal data, the subject may name a team: log the id only.
-        logger[m.attempts >= MAX_ATTEMPTS ? 'error' : 'warn']({ mailId: m.id, attempt: m.attempts, err: message }, m.attempts >= MAX_ATTEMPTS ? 'mail given up' : 'mail not sent; will retry');
+        logger[m.attempts >= MAX_ATTEMPTS ? 'error' : 'warn'](
+          { mailId: m.id, attempt: m.attempts, err: message },
+          m.attempts >= MAX_ATTEMPTS ? 'mail given up' : 'mail not sent; will retry',
+        );
       }
     }
     return claimed.rows.length;

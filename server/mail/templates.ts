@@ -6,7 +6,10 @@ import type { MailMessage } from './mailer';
 
 /** A name someone typed, safe to show inside a plain-text message. */
 function quotedName(name: string): string {
-  const oneLine = name.replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]+/g, ' ').replace(/\s+/g, ' ').trim();
+  const oneLine = name
+    .replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]+/g, ' ')
+    .replace(/\s+/g, ' ')
+    .trim();
   return `"${oneLine.length > 80 ? `${oneLine.slice(0, 79)}…` : oneLine}"`;
 }
 

@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
-import { MAX_ARCHIVE_BYTES } from '../../shared/schemas/archive';
+import { MAX_ARCHIVE_BYTES } from '#shared/schemas/archive';
 import { requireTeamPermission } from '../auth/access';
 import { requireUser } from '../auth/session';
 import { HttpError } from '../http/errors';
@@ -22,7 +22,12 @@ const archiveFile: RequestHandler = (req, res, next) => {
 };
 
 function safeName(name: string) {
-  return name.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'team';
+  return (
+    name
+      .replace(/[^A-Za-z0-9._-]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 60) || 'team'
+  );
 }
 
 /** A team's data leaving as one archive, and coming back into any team (owners only). */
@@ -33,7 +38,13 @@ export function archiveRouter({ db, limits }: AppDeps): Router {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, (req.params as { teamId: string }).teamId, 'team:export');
     const archive = await exportTeam(db, access.teamId, access.teamName);
-    await audit(db, { action: 'team.exported', teamId: access.teamId, actor: user, details: { maps: archive.maps.length, studies: archive.studies.length }, req });
+    await audit(db, {
+      action: 'team.exported',
+      teamId: access.teamId,
+      actor: user,
+      details: { maps: archive.maps.length, studies: archive.studies.length },
+      req,
+    });
     res.set('Content-Disposition', `attachment; filename="spoolbook-${safeName(access.teamName)}-${archive.exportedAt.slice(0, 10)}.json"`);
     res.json(archive);
   });
@@ -41,7 +52,10 @@ export function archiveRouter({ db, limits }: AppDeps): Router {
   router.post('/import', countUpload(limits), archiveFile, async (req, res) => {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, (req.params as { teamId: string }).teamId, 'team:import');
-    if (!req.file) throw new HttpError(400, 'invalid_upload', 'Choose an archive file to import (the form field "archive" was empty).', { issues: [{ path: 'archive', message: 'is required' }] });
+    if (!req.file)
+      throw new HttpError(400, 'invalid_upload', 'Choose an archive file to import (the form field "archive" was empty).', {
+        issues: [{ path: 'archive', message: 'is required' }],
+      });
     let raw: unknown;
     try {
       raw = JSON.parse(req.file.buffer.toString('utf8'));

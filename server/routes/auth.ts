@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { Router, type Request, type Response } from 'express';
 import type { User } from 'lucia';
-import { judgePassword } from '../../shared/passwords/strength';
+import { judgePassword } from '#shared/passwords/strength';
 import {
   changePasswordSchema,
   confirmEmailSchema,
@@ -13,7 +13,7 @@ import {
   signInSchema,
   signUpSchema,
   updateProfileSchema,
-} from '../../shared/schemas/account';
+} from '#shared/schemas/account';
 import { burnVerifyTime, hashPassword, verifyPassword } from '../auth/passwords';
 import { clientAddress, requireUser, startSession } from '../auth/session';
 import { hashToken } from '../auth/tokens';
@@ -107,7 +107,12 @@ export function authRouter(deps: AppDeps): Router {
   router.post('/confirm-email', async (req, res) => {
     const input = parseOr400(confirmEmailSchema, req.body);
     const userId = await confirmEmail(db, hashToken(input.token));
-    if (!userId) throw new HttpError(400, 'invalid_token', 'This confirmation link is not valid any more: it was used, it expired, or a newer one was sent. Sign in and have a new one sent from Settings.');
+    if (!userId)
+      throw new HttpError(
+        400,
+        'invalid_token',
+        'This confirmation link is not valid any more: it was used, it expired, or a newer one was sent. Sign in and have a new one sent from Settings.',
+      );
     const [row] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
     await audit(db, { action: 'auth.email-confirmed', actor: { id: userId, email: row.email }, req });
     res.json({ confirmed: true, email: row.email });
@@ -158,7 +163,13 @@ export function authRouter(deps: AppDeps): Router {
     }
     await endChallenge(db, input.challenge);
     await succeeded(user.email, address);
-    if (used === 'recovery') await audit(db, { action: 'auth.recovery-code-used', actor: { id: userId, email: user.email }, details: { left: await recoveryCodesLeft(db, userId) }, req });
+    if (used === 'recovery')
+      await audit(db, {
+        action: 'auth.recovery-code-used',
+        actor: { id: userId, email: user.email },
+        details: { left: await recoveryCodesLeft(db, userId) },
+        req,
+      });
     await signedIn(req, res, userId, user.email);
   });
 
@@ -200,7 +211,10 @@ export function authRouter(deps: AppDeps): Router {
     await assertCurrentPassword(user, input.currentPassword, 'currentPassword', req);
     assertStrongPassword(input.newPassword, 'newPassword', user);
     await db.transaction(async (tx) => {
-      await tx.update(users).set({ passwordHash: await hashPassword(input.newPassword), passwordChangedAt: new Date() }).where(eq(users.id, user.id));
+      await tx
+        .update(users)
+        .set({ passwordHash: await hashPassword(input.newPassword), passwordChangedAt: new Date() })
+        .where(eq(users.id, user.id));
       await endResetLinks(tx, user.id);
     });
     // A changed password ends every session of the user (OWASP ASVS 5.0 7.4.3) and every reset link; this one gets a new session.
@@ -232,7 +246,12 @@ export function authRouter(deps: AppDeps): Router {
     await limits.resetByAddress.take(clientAddress(req));
     const input = parseOr400(resetConfirmSchema, req.body);
     const tokenHash = hashToken(input.token);
-    const invalid = () => new HttpError(400, 'invalid_token', 'This reset link is not valid any more: it was used, it expired, a newer one was sent, or it was mistyped. Ask for a new one.');
+    const invalid = () =>
+      new HttpError(
+        400,
+        'invalid_token',
+        'This reset link is not valid any more: it was used, it expired, a newer one was sent, or it was mistyped. Ask for a new one.',
+      );
     const owner = await liveResetUser(db, tokenHash);
     if (!owner) throw invalid();
     assertStrongPassword(input.password, 'password', owner);
@@ -296,7 +315,9 @@ export function authRouter(deps: AppDeps): Router {
     const [row] = await db.select({ secret: users.totpSecret }).from(users).where(eq(users.id, user.id));
     if (!row?.secret) throw new HttpError(409, 'not_started', 'Start the set-up first: it shows the code to scan.');
     if (!(await acceptCode(db, user.id, input.code))) {
-      throw new HttpError(400, 'invalid_code', 'That code is not right. Check the time on your phone and enter the newest code.', { issues: [{ path: 'code', message: 'is not right' }] });
+      throw new HttpError(400, 'invalid_code', 'That code is not right. Check the time on your phone and enter the newest code.', {
+        issues: [{ path: 'code', message: 'is not right' }],
+      });
     }
     const recoveryCodes = await db.transaction(async (tx) => {
       await tx.update(users).set({ totpEnabledAt: new Date() }).where(eq(users.id, user.id));

@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { ComputeError, runComputeRequest } from '../../shared/matching/run-compute';
-import { computeRequestSchema } from '../../shared/schemas/compute';
+import { ComputeError, runComputeRequest } from '#shared/matching/run-compute';
+import { computeRequestSchema } from '#shared/schemas/compute';
 import { clientAddress } from '../auth/session';
 import { HttpError, parseOr400 } from '../http/errors';
 import type { AppDeps } from '../app';

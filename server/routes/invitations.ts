@@ -28,7 +28,14 @@ export function invitationsRouter({ db }: AppDeps): Router {
       .from(invitations)
       .innerJoin(teams, eq(teams.id, invitations.teamId))
       .innerJoin(users, eq(users.id, invitations.invitedBy))
-      .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt), gt(invitations.expiresAt, new Date())));
+      .where(
+        and(
+          eq(invitations.tokenHash, hashToken(token)),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.cancelledAt),
+          gt(invitations.expiresAt, new Date()),
+        ),
+      );
     if (!row) throw notFound('This invitation is not valid any more: it was used, cancelled or replaced, or it expired. Ask for a new one.');
     return row;
   }
@@ -42,7 +49,11 @@ export function invitationsRouter({ db }: AppDeps): Router {
     const user = requireUser(res);
     const inv = await pending(req.params.token);
     if (inv.email !== user.email) {
-      throw new HttpError(403, 'wrong_account', `This invitation is for ${inv.email}, but you are signed in as ${user.email}. Sign out and sign in with the invited address.`);
+      throw new HttpError(
+        403,
+        'wrong_account',
+        `This invitation is for ${inv.email}, but you are signed in as ${user.email}. Sign out and sign in with the invited address.`,
+      );
     }
     await db.transaction(async (tx) => {
       // The invitation's link was mailed to this very address, and the account has that address:
@@ -55,7 +66,15 @@ export function invitationsRouter({ db }: AppDeps): Router {
         .returning({ id: invitations.id });
       if (used.length === 0) throw notFound('This invitation was used already.');
       await tx.insert(teamMembers).values({ teamId: inv.teamId, userId: user.id, role: inv.role }).onConflictDoNothing();
-      await audit(tx, { action: 'invitation.accepted', teamId: inv.teamId, actor: user, targetType: 'invitation', targetId: inv.id, details: { role: inv.role }, req });
+      await audit(tx, {
+        action: 'invitation.accepted',
+        teamId: inv.teamId,
+        actor: user,
+        targetType: 'invitation',
+        targetId: inv.id,
+        details: { role: inv.role },
+        req,
+      });
     });
     const [member] = await db
       .select({ role: teamMembers.role })

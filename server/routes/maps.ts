@@ -1,10 +1,10 @@
 import { and, asc, eq } from 'drizzle-orm';
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
-import { MAX_MAP_FILE_BYTES } from '../../shared/maps/format';
-import { parseMapFile, writeMapFile } from '../../shared/maps';
-import type { SpoolbookMap } from '../../shared/maps/types';
-import { mapKindQuerySchema, updateMapSchema, uploadMapFieldsSchema } from '../../shared/schemas/map-library';
+import { MAX_MAP_FILE_BYTES } from '#shared/maps/format';
+import { parseMapFile, writeMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { mapKindQuerySchema, updateMapSchema, uploadMapFieldsSchema } from '#shared/schemas/map-library';
 import { requireTeamPermission } from '../auth/access';
 import { requireUser } from '../auth/session';
 import { newId } from '../auth/tokens';
@@ -27,7 +27,13 @@ const singleFile: RequestHandler = (req, res, next) => {
     if (!err) return next();
     if (err instanceof multer.MulterError) {
       if (err.code === 'LIMIT_FILE_SIZE') {
-        return next(new HttpError(413, 'too_large', `The map file is larger than ${MAX_MAP_FILE_BYTES / 1024 / 1024} MB. Map files are small text files; check that this is the right file.`));
+        return next(
+          new HttpError(
+            413,
+            'too_large',
+            `The map file is larger than ${MAX_MAP_FILE_BYTES / 1024 / 1024} MB. Map files are small text files; check that this is the right file.`,
+          ),
+        );
       }
       return next(new HttpError(400, 'invalid_upload', `The upload could not be read: ${err.message}. Send one file in the field "file".`));
     }
@@ -38,13 +44,32 @@ const singleFile: RequestHandler = (req, res, next) => {
 function summary(map: SpoolbookMap) {
   if (map.kind === 'compressor') {
     const speeds = map.curves.filter((c) => c.kind === 'speed').map((c) => c.points[0]?.speed ?? 0);
-    return { curves: map.curves.length, topSpeed: speeds.length ? Math.max(...speeds) : null, maxSpeed: map.maxSpeed, housing: null, areaRatio: null, efficiencyKind: null };
+    return {
+      curves: map.curves.length,
+      topSpeed: speeds.length ? Math.max(...speeds) : null,
+      maxSpeed: map.maxSpeed,
+      housing: null,
+      areaRatio: null,
+      efficiencyKind: null,
+    };
   }
-  return { curves: map.curves.length, topSpeed: null, maxSpeed: null, housing: map.housing, areaRatio: map.areaRatio, efficiencyKind: map.efficiencyKind ?? null };
+  return {
+    curves: map.curves.length,
+    topSpeed: null,
+    maxSpeed: null,
+    housing: map.housing,
+    areaRatio: map.areaRatio,
+    efficiencyKind: map.efficiencyKind ?? null,
+  };
 }
 
 function safeFileName(name: string) {
-  const base = name.replace(/[^A-Za-z0-9._ -]+/g, '').trim().replace(/\s+/g, '-').slice(0, 80) || 'map';
+  const base =
+    name
+      .replace(/[^A-Za-z0-9._ -]+/g, '')
+      .trim()
+      .replace(/\s+/g, '-')
+      .slice(0, 80) || 'map';
   return `${base}.csv`;
 }
 
@@ -53,7 +78,10 @@ export function mapsRouter({ db, limits }: AppDeps): Router {
   const router = Router({ mergeParams: true });
 
   async function teamMap(teamId: string, mapId: string) {
-    const [row] = await db.select().from(maps).where(and(eq(maps.id, mapId), eq(maps.teamId, teamId)));
+    const [row] = await db
+      .select()
+      .from(maps)
+      .where(and(eq(maps.id, mapId), eq(maps.teamId, teamId)));
     if (!row) throw notFound('No such map in this team.');
     return row;
   }
@@ -117,7 +145,16 @@ export function mapsRouter({ db, limits }: AppDeps): Router {
     }));
     const demo = builtinMaps()
       .filter((b) => !kind || b.map.kind === kind)
-      .map((b) => ({ id: b.id, kind: b.map.kind, name: b.map.name, notes: b.map.notes.join('\n'), builtin: true, createdBy: null, updatedAt: null, summary: summary(b.map) }));
+      .map((b) => ({
+        id: b.id,
+        kind: b.map.kind,
+        name: b.map.name,
+        notes: b.map.notes.join('\n'),
+        builtin: true,
+        createdBy: null,
+        updatedAt: null,
+        summary: summary(b.map),
+      }));
     res.json({ maps: [...own, ...demo] });
   });
 
@@ -125,7 +162,10 @@ export function mapsRouter({ db, limits }: AppDeps): Router {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, (req.params as { teamId: string }).teamId, 'content:write');
     const fields = parseOr400(uploadMapFieldsSchema, { ...(req.body ?? {}) }, 'upload fields');
-    if (!req.file) throw new HttpError(400, 'invalid_upload', 'Choose a map file to upload (the form field "file" was empty).', { issues: [{ path: 'file', message: 'is required' }] });
+    if (!req.file)
+      throw new HttpError(400, 'invalid_upload', 'Choose a map file to upload (the form field "file" was empty).', {
+        issues: [{ path: 'file', message: 'is required' }],
+      });
     const result = parseMapFile(new Uint8Array(req.file.buffer.buffer, req.file.buffer.byteOffset, req.file.buffer.byteLength));
     if (!result.ok) {
       const n = result.problems.length;
@@ -147,7 +187,15 @@ export function mapsRouter({ db, limits }: AppDeps): Router {
         createdBy: user.id,
       })
       .returning();
-    await audit(db, { action: 'map.uploaded', teamId: access.teamId, actor: user, targetType: 'map', targetId: id, details: { name: map.name, kind: map.kind }, req });
+    await audit(db, {
+      action: 'map.uploaded',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'map',
+      targetId: id,
+      details: { name: map.name, kind: map.kind },
+      req,
+    });
     res.status(201).json({ map: detail(row, user.name), notes: result.notes });
   });
 
@@ -188,7 +236,8 @@ export function mapsRouter({ db, limits }: AppDeps): Router {
     const user = requireUser(res);
     const { teamId, mapId } = req.params as { teamId: string; mapId: string };
     const access = await requireTeamPermission(db, user, teamId, 'content:write');
-    if (mapId.startsWith(BUILTIN_PREFIX)) throw new HttpError(403, 'builtin', 'Built-in demo maps cannot be changed. Download one and upload it as your own to edit it.');
+    if (mapId.startsWith(BUILTIN_PREFIX))
+      throw new HttpError(403, 'builtin', 'Built-in demo maps cannot be changed. Download one and upload it as your own to edit it.');
     const input = parseOr400(updateMapSchema, req.body);
     const row = await teamMap(access.teamId, mapId);
     const [updated] = await db
@@ -208,11 +257,21 @@ export function mapsRouter({ db, limits }: AppDeps): Router {
     const row = await teamMap(access.teamId, mapId);
     const using = await studiesUsingMap(db, access.teamId, row.id);
     if (using.length > 0) {
-      throw new HttpError(409, 'map_in_use', `This map is used by ${using.length} ${using.length === 1 ? 'study' : 'studies'}; change their plans first.`, { studies: using });
+      throw new HttpError(409, 'map_in_use', `This map is used by ${using.length} ${using.length === 1 ? 'study' : 'studies'}; change their plans first.`, {
+        studies: using,
+      });
     }
     await db.transaction(async (tx) => {
       await tx.delete(maps).where(eq(maps.id, row.id));
-      await audit(tx, { action: 'map.deleted', teamId: access.teamId, actor: user, targetType: 'map', targetId: row.id, details: { name: row.name, kind: row.kind }, req });
+      await audit(tx, {
+        action: 'map.deleted',
+        teamId: access.teamId,
+        actor: user,
+        targetType: 'map',
+        targetId: row.id,
+        details: { name: row.name, kind: row.kind },
+        req,
+      });
     });
     res.status(204).end();
   });

@@ -16,7 +16,9 @@ export function shareRouter({ db }: AppDeps): Router {
       .select({ study: studies })
       .from(shareLinks)
       .innerJoin(studies, eq(studies.id, shareLinks.studyId))
-      .where(and(eq(shareLinks.tokenHash, hashToken(token)), isNull(shareLinks.revokedAt), or(isNull(shareLinks.expiresAt), gt(shareLinks.expiresAt, new Date()))));
+      .where(
+        and(eq(shareLinks.tokenHash, hashToken(token)), isNull(shareLinks.revokedAt), or(isNull(shareLinks.expiresAt), gt(shareLinks.expiresAt, new Date()))),
+      );
     if (!row) throw notFound('This share link is not valid any more: it was revoked or it expired. Ask the team for a new one.');
     return row.study;
   }

@@ -11,7 +11,7 @@ import {
   STUDY_SCHEMA_VERSION,
   studyListQuerySchema,
   updateStudyMetaSchema,
-} from '../../shared/schemas/study';
+} from '#shared/schemas/study';
 import { can, requireTeamPermission, type TeamAccess } from '../auth/access';
 import { requireUser } from '../auth/session';
 import { newId, newToken } from '../auth/tokens';
@@ -139,7 +139,15 @@ export function studiesRouter({ db, config }: AppDeps): Router {
   });
 
   /** Saves `document` as the next revision if nobody saved since `baseRevision`; else 409 with the newer one. */
-  async function saveRevision(access: TeamAccess, res: Response, studyId: string, baseRevision: number, document: ReturnType<typeof validDocument>, message: string, userId: string) {
+  async function saveRevision(
+    access: TeamAccess,
+    res: Response,
+    studyId: string,
+    baseRevision: number,
+    document: ReturnType<typeof validDocument>,
+    message: string,
+    userId: string,
+  ) {
     const saved = await db.transaction(async (tx) => {
       const [row] = await tx
         .update(studies)
@@ -192,7 +200,16 @@ export function studiesRouter({ db, config }: AppDeps): Router {
         .delete(studies)
         .where(and(eq(studies.id, studyIdOf(req.params)), eq(studies.teamId, access.teamId)))
         .returning({ id: studies.id, title: studies.title });
-      if (deleted.length) await audit(tx, { action: 'study.deleted', teamId: access.teamId, actor: user, targetType: 'study', targetId: deleted[0].id, details: { title: deleted[0].title }, req });
+      if (deleted.length)
+        await audit(tx, {
+          action: 'study.deleted',
+          teamId: access.teamId,
+          actor: user,
+          targetType: 'study',
+          targetId: deleted[0].id,
+          details: { title: deleted[0].title },
+          req,
+        });
       return deleted;
     });
     if (rows.length === 0) throw notFound('No such study in this team.');
@@ -228,7 +245,13 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const revision = Number(revisionText);
     if (!Number.isInteger(revision) || revision < 1) throw notFound('No such revision.');
     const [row] = await db
-      .select({ revision: studyRevisions.revision, message: studyRevisions.message, author: revisionAuthor, createdAt: studyRevisions.createdAt, document: studyRevisions.document })
+      .select({
+        revision: studyRevisions.revision,
+        message: studyRevisions.message,
+        author: revisionAuthor,
+        createdAt: studyRevisions.createdAt,
+        document: studyRevisions.document,
+      })
       .from(studyRevisions)
       .leftJoin(users, eq(users.id, studyRevisions.authorId))
       .where(and(eq(studyRevisions.studyId, studyId), eq(studyRevisions.revision, revision)));
@@ -269,7 +292,14 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, teamIdOf(req.params), 'content:write');
     await loadStudy(access, studyIdOf(req.params));
     const rows = await db
-      .select({ id: shareLinks.id, createdAt: shareLinks.createdAt, createdBy: users.name, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt, kept: sql<boolean>`${shareLinks.keptBy} IS NOT NULL` })
+      .select({
+        id: shareLinks.id,
+        createdAt: shareLinks.createdAt,
+        createdBy: users.name,
+        expiresAt: shareLinks.expiresAt,
+        revokedAt: shareLinks.revokedAt,
+        kept: sql<boolean>`${shareLinks.keptBy} IS NOT NULL`,
+      })
       .from(shareLinks)
       .leftJoin(users, eq(users.id, shareLinks.createdBy))
       .where(eq(shareLinks.studyId, studyIdOf(req.params)))
@@ -293,8 +323,19 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const id = newId();
     // 30 days unless the maker chose otherwise; null ("never") only when asked for by name.
     const expiresAt = input.expiresInDays === null ? null : new Date(Date.now() + input.expiresInDays * 86_400_000);
-    const [row] = await db.insert(shareLinks).values({ id, studyId: studyIdOf(req.params), tokenHash, createdBy: user.id, expiresAt }).returning();
-    await audit(db, { action: 'share-link.created', teamId: access.teamId, actor: user, targetType: 'share-link', targetId: id, details: { studyId: studyIdOf(req.params), expiresAt: expiresAt?.toISOString() ?? null }, req });
+    const [row] = await db
+      .insert(shareLinks)
+      .values({ id, studyId: studyIdOf(req.params), tokenHash, createdBy: user.id, expiresAt })
+      .returning();
+    await audit(db, {
+      action: 'share-link.created',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'share-link',
+      targetId: id,
+      details: { studyId: studyIdOf(req.params), expiresAt: expiresAt?.toISOString() ?? null },
+      req,
+    });
     res.status(201).json({
       shareLink: {
         id,
@@ -320,7 +361,15 @@ export function studiesRouter({ db, config }: AppDeps): Router {
       .where(and(eq(shareLinks.id, (req.params as { linkId: string }).linkId), eq(shareLinks.studyId, studyIdOf(req.params)), isNull(shareLinks.revokedAt)))
       .returning({ id: shareLinks.id });
     if (rows.length === 0) throw notFound('No such active share link.');
-    await audit(db, { action: input.kept ? 'share-link.kept' : 'share-link.unkept', teamId: access.teamId, actor: user, targetType: 'share-link', targetId: rows[0].id, details: { studyId: studyIdOf(req.params) }, req });
+    await audit(db, {
+      action: input.kept ? 'share-link.kept' : 'share-link.unkept',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'share-link',
+      targetId: rows[0].id,
+      details: { studyId: studyIdOf(req.params) },
+      req,
+    });
     res.json({ kept: input.kept });
   });
 
@@ -334,7 +383,15 @@ export function studiesRouter({ db, config }: AppDeps): Router {
       .where(and(eq(shareLinks.id, (req.params as { linkId: string }).linkId), eq(shareLinks.studyId, studyIdOf(req.params)), isNull(shareLinks.revokedAt)))
       .returning({ id: shareLinks.id });
     if (rows.length === 0) throw notFound('No such active share link.');
-    await audit(db, { action: 'share-link.revoked', teamId: access.teamId, actor: user, targetType: 'share-link', targetId: rows[0].id, details: { studyId: studyIdOf(req.params) }, req });
+    await audit(db, {
+      action: 'share-link.revoked',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'share-link',
+      targetId: rows[0].id,
+      details: { studyId: studyIdOf(req.params) },
+      req,
+    });
     res.status(204).end();
   });
 

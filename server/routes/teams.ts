@@ -1,6 +1,6 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import { Router } from 'express';
-import { changeRoleSchema, createInvitationSchema, createTeamSchema, renameTeamSchema, teamTwoFactorSchema } from '../../shared/schemas/account';
+import { changeRoleSchema, createInvitationSchema, createTeamSchema, renameTeamSchema, teamTwoFactorSchema } from '#shared/schemas/account';
 import { requireTeamPermission } from '../auth/access';
 import { requireConfirmedEmail, requireUser } from '../auth/session';
 import { newId, newToken } from '../auth/tokens';
@@ -33,7 +33,10 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     const user = requireUser(res);
     const mine = await teamsOf(db, user.id);
     if (!user.isAdmin) return void res.json({ teams: mine });
-    const all = await db.select({ id: teams.id, name: teams.name, personal: teams.personal, requireTwoFactor: teams.requireTwoFactor }).from(teams).orderBy(teams.name);
+    const all = await db
+      .select({ id: teams.id, name: teams.name, personal: teams.personal, requireTwoFactor: teams.requireTwoFactor })
+      .from(teams)
+      .orderBy(teams.name);
     const roles = new Map(mine.map((t) => [t.id, t.role]));
     res.json({ teams: all.map((t) => ({ ...t, role: roles.get(t.id) ?? null })) });
   });
@@ -67,7 +70,15 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, req.params.teamId, 'team:rename');
     const input = parseOr400(renameTeamSchema, req.body);
     await db.update(teams).set({ name: input.name }).where(eq(teams.id, access.teamId));
-    await audit(db, { action: 'team.renamed', teamId: access.teamId, actor: user, targetType: 'team', targetId: access.teamId, details: { from: access.teamName, to: input.name }, req });
+    await audit(db, {
+      action: 'team.renamed',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'team',
+      targetId: access.teamId,
+      details: { from: access.teamName, to: input.name },
+      req,
+    });
     res.json({ team: { id: access.teamId, name: input.name, personal: access.personal, role: access.role, requireTwoFactor: access.requireTwoFactor } });
   });
 
@@ -77,10 +88,22 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, req.params.teamId, 'team:rename');
     const input = parseOr400(teamTwoFactorSchema, req.body);
     if (input.required && !user.twoFactor) {
-      throw new HttpError(400, 'two_factor_needed', 'Turn on your own second factor first (Account → Second factor), or you would lock yourself out of this team.');
+      throw new HttpError(
+        400,
+        'two_factor_needed',
+        'Turn on your own second factor first (Account → Second factor), or you would lock yourself out of this team.',
+      );
     }
     await db.update(teams).set({ requireTwoFactor: input.required }).where(eq(teams.id, access.teamId));
-    await audit(db, { action: 'team.two-factor-rule', teamId: access.teamId, actor: user, targetType: 'team', targetId: access.teamId, details: { required: input.required }, req });
+    await audit(db, {
+      action: 'team.two-factor-rule',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'team',
+      targetId: access.teamId,
+      details: { required: input.required },
+      req,
+    });
     res.json({ team: { id: access.teamId, name: access.teamName, personal: access.personal, role: access.role, requireTwoFactor: input.required } });
   });
 
@@ -90,7 +113,15 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     if (access.personal) throw new HttpError(400, 'personal_team', 'A personal team cannot be deleted.');
     await db.transaction(async (tx) => {
       await tx.delete(teams).where(eq(teams.id, access.teamId));
-      await audit(tx, { action: 'team.deleted', teamId: access.teamId, actor: user, targetType: 'team', targetId: access.teamId, details: { name: access.teamName }, req });
+      await audit(tx, {
+        action: 'team.deleted',
+        teamId: access.teamId,
+        actor: user,
+        targetType: 'team',
+        targetId: access.teamId,
+        details: { name: access.teamName },
+        req,
+      });
     });
     res.status(204).end();
   });
@@ -107,8 +138,19 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     const input = parseOr400(changeRoleSchema, req.body);
     await db.transaction(async (tx) => {
       await assertOwnerRemains(tx, access.teamId, req.params.userId, input.role, access.role === 'owner' ? user.id : null);
-      await tx.update(teamMembers).set({ role: input.role }).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, req.params.userId)));
-      await audit(tx, { action: 'member.role-changed', teamId: access.teamId, actor: user, targetType: 'user', targetId: req.params.userId, details: { role: input.role }, req });
+      await tx
+        .update(teamMembers)
+        .set({ role: input.role })
+        .where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, req.params.userId)));
+      await audit(tx, {
+        action: 'member.role-changed',
+        teamId: access.teamId,
+        actor: user,
+        targetType: 'user',
+        targetId: req.params.userId,
+        details: { role: input.role },
+        req,
+      });
     });
     const member = (await membersOf(db, access.teamId)).find((m) => m.userId === req.params.userId);
     res.json({ member });
@@ -121,7 +163,15 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
       await assertOwnerRemains(tx, access.teamId, req.params.userId, null, access.role === 'owner' ? user.id : null);
       await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, req.params.userId)));
       const shareLinksRevoked = await revokeShareLinksOfLeaver(tx, access.teamId, req.params.userId);
-      await audit(tx, { action: 'member.removed', teamId: access.teamId, actor: user, targetType: 'user', targetId: req.params.userId, details: { shareLinksRevoked }, req });
+      await audit(tx, {
+        action: 'member.removed',
+        teamId: access.teamId,
+        actor: user,
+        targetType: 'user',
+        targetId: req.params.userId,
+        details: { shareLinksRevoked },
+        req,
+      });
     });
     res.status(204).end();
   });
@@ -134,7 +184,15 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
       await assertOwnerRemains(tx, access.teamId, user.id, null);
       await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, access.teamId), eq(teamMembers.userId, user.id)));
       const shareLinksRevoked = await revokeShareLinksOfLeaver(tx, access.teamId, user.id);
-      await audit(tx, { action: 'member.left', teamId: access.teamId, actor: user, targetType: 'user', targetId: user.id, details: { shareLinksRevoked }, req });
+      await audit(tx, {
+        action: 'member.left',
+        teamId: access.teamId,
+        actor: user,
+        targetType: 'user',
+        targetId: user.id,
+        details: { shareLinksRevoked },
+        req,
+      });
     });
     res.status(204).end();
   });
@@ -157,7 +215,9 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
       .innerJoin(users, eq(users.id, teamMembers.userId))
       .where(and(eq(teamMembers.teamId, access.teamId), eq(users.email, input.email)));
     if (already) {
-      throw new HttpError(409, 'already_member', `${input.email} is already a member of this team.`, { issues: [{ path: 'email', message: 'is already a member' }] });
+      throw new HttpError(409, 'already_member', `${input.email} is already a member of this team.`, {
+        issues: [{ path: 'email', message: 'is already a member' }],
+      });
     }
     // A new invitation replaces any earlier pending one for the same address.
     await db
@@ -175,7 +235,15 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
       invitedBy: user.id,
       expiresAt: new Date(Date.now() + INVITATION_VALID_DAYS * 86_400_000),
     });
-    await audit(db, { action: 'invitation.created', teamId: access.teamId, actor: user, targetType: 'invitation', targetId: id, details: { email: input.email, role: input.role }, req });
+    await audit(db, {
+      action: 'invitation.created',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'invitation',
+      targetId: id,
+      details: { email: input.email, role: input.role },
+      req,
+    });
     await sendInvitation(input.email, token, access.teamName, user.name, input.role);
     const invitation = (await pendingInvitationsOf(db, access.teamId)).find((i) => i.id === id);
     res.status(201).json({ invitation });
@@ -188,18 +256,40 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     const [pendingOne] = await db
       .select({ email: invitations.email })
       .from(invitations)
-      .where(and(eq(invitations.id, req.params.invitationId), eq(invitations.teamId, access.teamId), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt)));
+      .where(
+        and(
+          eq(invitations.id, req.params.invitationId),
+          eq(invitations.teamId, access.teamId),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.cancelledAt),
+        ),
+      );
     if (!pendingOne) throw notFound('No such pending invitation.');
     await takeInvitationQuota(access.teamId, user.id, pendingOne.email);
     const { token, tokenHash } = newToken();
     const rows = await db
       .update(invitations)
       .set({ tokenHash, expiresAt: new Date(Date.now() + INVITATION_VALID_DAYS * 86_400_000) })
-      .where(and(eq(invitations.id, req.params.invitationId), eq(invitations.teamId, access.teamId), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt)))
+      .where(
+        and(
+          eq(invitations.id, req.params.invitationId),
+          eq(invitations.teamId, access.teamId),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.cancelledAt),
+        ),
+      )
       .returning();
     const row = rows[0];
     if (!row) throw notFound('No such pending invitation.');
-    await audit(db, { action: 'invitation.resent', teamId: access.teamId, actor: user, targetType: 'invitation', targetId: row.id, details: { email: row.email, role: row.role }, req });
+    await audit(db, {
+      action: 'invitation.resent',
+      teamId: access.teamId,
+      actor: user,
+      targetType: 'invitation',
+      targetId: row.id,
+      details: { email: row.email, role: row.role },
+      req,
+    });
     await sendInvitation(row.email, token, access.teamName, user.name, row.role);
     const invitation = (await pendingInvitationsOf(db, access.teamId)).find((i) => i.id === row.id);
     res.json({ invitation });
@@ -211,7 +301,14 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
     const rows = await db
       .update(invitations)
       .set({ cancelledAt: new Date() })
-      .where(and(eq(invitations.id, req.params.invitationId), eq(invitations.teamId, access.teamId), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt)))
+      .where(
+        and(
+          eq(invitations.id, req.params.invitationId),
+          eq(invitations.teamId, access.teamId),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.cancelledAt),
+        ),
+      )
       .returning({ id: invitations.id });
     if (rows.length === 0) throw notFound('No such pending invitation.');
     await audit(db, { action: 'invitation.cancelled', teamId: access.teamId, actor: user, targetType: 'invitation', targetId: req.params.invitationId, req });

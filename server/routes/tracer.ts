@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
-import { createDraftSchema, imageListQuerySchema, saveDraftSchema, saveTraceToLibrarySchema } from '../../shared/tracer/api';
-import { checkImage, MAX_IMAGE_BYTES, type ImageProblemCode } from '../../shared/tracer/image-header';
-import { idSchema } from '../../shared/schemas/common';
+import { createDraftSchema, imageListQuerySchema, saveDraftSchema, saveTraceToLibrarySchema } from '#shared/tracer/api';
+import { checkImage, MAX_IMAGE_BYTES, type ImageProblemCode } from '#shared/tracer/image-header';
+import { idSchema } from '#shared/schemas/common';
 import type { AppDeps } from '../app';
 import { countUpload } from '../services/limits';
 import { requireTeamPermission, type TeamAccess } from '../auth/access';
@@ -36,11 +36,23 @@ const singlePicture: RequestHandler = (req, res, next) => {
     if (!err) return next();
     if (err instanceof multer.MulterError) {
       if (err.code === 'LIMIT_FILE_SIZE') {
-        return next(new HttpError(413, 'too_large', `The picture is larger than ${MEGABYTES} MB. Save it at a smaller size or as a JPEG and choose it again.`, { field: 'file' }));
+        return next(
+          new HttpError(413, 'too_large', `The picture is larger than ${MEGABYTES} MB. Save it at a smaller size or as a JPEG and choose it again.`, {
+            field: 'file',
+          }),
+        );
       }
-      return next(new HttpError(400, 'invalid_upload', `The upload could not be read: ${err.message}. Send one picture, alone, in the form field "file".`, { field: err.field ?? 'file' }));
+      return next(
+        new HttpError(400, 'invalid_upload', `The upload could not be read: ${err.message}. Send one picture, alone, in the form field "file".`, {
+          field: err.field ?? 'file',
+        }),
+      );
     }
-    next(new HttpError(400, 'invalid_upload', 'The upload could not be read. Send one picture as multipart/form-data in the form field "file".', { field: 'file' }));
+    next(
+      new HttpError(400, 'invalid_upload', 'The upload could not be read. Send one picture as multipart/form-data in the form field "file".', {
+        field: 'file',
+      }),
+    );
   });
 };
 
@@ -81,7 +93,10 @@ export function tracerRouter({ db, limits }: AppDeps): Router {
   router.post('/images', canWrite, countUpload(limits), singlePicture, async (req, res) => {
     const user = requireUser(res);
     const access = res.locals.access as TeamAccess;
-    if (!req.file) throw new HttpError(400, 'invalid_upload', 'Choose a picture to upload (the form field "file" was empty).', { issues: [{ path: 'file', message: 'is required' }] });
+    if (!req.file)
+      throw new HttpError(400, 'invalid_upload', 'Choose a picture to upload (the form field "file" was empty).', {
+        issues: [{ path: 'file', message: 'is required' }],
+      });
     const bytes = req.file.buffer;
     // The name and type the browser sent are ignored: only the bytes say what this is.
     const check = checkImage(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
@@ -89,7 +104,14 @@ export function tracerRouter({ db, limits }: AppDeps): Router {
       const [status, code] = IMAGE_PROBLEM_STATUS[check.code];
       throw new HttpError(status, code, check.message, { field: 'file', problem: check.code });
     }
-    const image = await storeImage(db, { teamId: access.teamId, userId: user.id, bytes, contentType: check.contentType, width: check.width, height: check.height });
+    const image = await storeImage(db, {
+      teamId: access.teamId,
+      userId: user.id,
+      bytes,
+      contentType: check.contentType,
+      width: check.width,
+      height: check.height,
+    });
     res.status(201).json({ image });
   });
 

@@ -1,6 +1,6 @@
 import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { User } from 'lucia';
-import type { Me, TeamSummary } from '../../shared/schemas/account';
+import type { Me, TeamSummary } from '#shared/schemas/account';
 import { hashPassword } from '../auth/passwords';
 import { newId, newToken } from '../auth/tokens';
 import type { Db } from '../db/client';
@@ -90,7 +90,10 @@ export async function consumeResetToken(db: Db | Tx, tokenHash: string): Promise
 
 /** Ends every reset link of a user that was not used yet (a new one, a reset, a password change). */
 export async function endResetLinks(db: Db | Tx, userId: string) {
-  await db.update(passwordResets).set({ usedAt: new Date() }).where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
+  await db
+    .update(passwordResets)
+    .set({ usedAt: new Date() })
+    .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
 }
 
 /** A new reset link for the user; the earlier one stops working (one live link per user). */
@@ -107,7 +110,10 @@ export async function createResetToken(db: Db, userId: string, validMinutes = RE
 export async function createConfirmationToken(db: Db, userId: string): Promise<string> {
   const { token, tokenHash } = newToken();
   await db.transaction(async (tx) => {
-    await tx.update(emailConfirmations).set({ usedAt: new Date() }).where(and(eq(emailConfirmations.userId, userId), isNull(emailConfirmations.usedAt)));
+    await tx
+      .update(emailConfirmations)
+      .set({ usedAt: new Date() })
+      .where(and(eq(emailConfirmations.userId, userId), isNull(emailConfirmations.usedAt)));
     await tx.insert(emailConfirmations).values({ id: newId(), userId, tokenHash, expiresAt: new Date(Date.now() + CONFIRMATION_VALID_HOURS * 3600_000) });
   });
   return token;
@@ -123,11 +129,17 @@ export async function confirmEmail(db: Db, tokenHash: string): Promise<string | 
       .returning({ userId: emailConfirmations.userId });
     const userId = rows[0]?.userId;
     if (!userId) return null;
-    await tx.update(users).set({ emailConfirmedAt: new Date() }).where(and(eq(users.id, userId), isNull(users.emailConfirmedAt)));
+    await tx
+      .update(users)
+      .set({ emailConfirmedAt: new Date() })
+      .where(and(eq(users.id, userId), isNull(users.emailConfirmedAt)));
     return userId;
   });
 }
 
 export async function markEmailConfirmed(db: Db | Tx, userId: string) {
-  await db.update(users).set({ emailConfirmedAt: new Date() }).where(and(eq(users.id, userId), isNull(users.emailConfirmedAt)));
+  await db
+    .update(users)
+    .set({ emailConfirmedAt: new Date() })
+    .where(and(eq(users.id, userId), isNull(users.emailConfirmedAt)));
 }

@@ -20,7 +20,10 @@ export async function hasSiteAdmin(db: Db): Promise<boolean> {
 export async function makeSiteAdmin(db: Db, email: string, name: string): Promise<{ userId: string; created: boolean; token: string | null }> {
   const existing = await findUserByEmail(db, email);
   if (existing) {
-    await db.update(users).set({ isAdmin: true, emailConfirmedAt: existing.emailConfirmedAt ?? new Date() }).where(eq(users.id, existing.id));
+    await db
+      .update(users)
+      .set({ isAdmin: true, emailConfirmedAt: existing.emailConfirmedAt ?? new Date() })
+      .where(eq(users.id, existing.id));
     return { userId: existing.id, created: false, token: null };
   }
   const { userId } = await createAccount(db, { email, name, password: randomBytes(32).toString('base64url'), isAdmin: true, confirmed: true });

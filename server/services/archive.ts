@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
-import { parseMapFile } from '../../shared/maps';
-import { PLAN_MAP_FIELDS, teamArchiveSchema, type TeamArchive } from '../../shared/schemas/archive';
-import type { StudyDocument } from '../../shared/schemas/study';
+import { parseMapFile } from '#shared/maps';
+import { PLAN_MAP_FIELDS, teamArchiveSchema, type TeamArchive } from '#shared/schemas/archive';
+import type { StudyDocument } from '#shared/schemas/study';
 import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
 import { maps, studies, studyRevisions, teamMembers, users } from '../db/schema';
@@ -18,7 +18,12 @@ export async function exportTeam(db: Db, teamId: string, teamName: string): Prom
         .select({ r: studyRevisions, author: sql<string | null>`coalesce(${users.email}, ${studyRevisions.authorName})` })
         .from(studyRevisions)
         .leftJoin(users, eq(users.id, studyRevisions.authorId))
-        .where(inArray(studyRevisions.studyId, studyRows.map((s) => s.id)))
+        .where(
+          inArray(
+            studyRevisions.studyId,
+            studyRows.map((s) => s.id),
+          ),
+        )
         .orderBy(asc(studyRevisions.studyId), asc(studyRevisions.revision))
     : [];
   return {
@@ -26,7 +31,15 @@ export async function exportTeam(db: Db, teamId: string, teamName: string): Prom
     version: 1,
     exportedAt: new Date().toISOString(),
     team: { name: teamName },
-    maps: mapRows.map((m) => ({ id: m.id, kind: m.kind, name: m.name, notes: m.notes, fileName: m.fileName, fileText: m.fileText, createdAt: m.createdAt.toISOString() })),
+    maps: mapRows.map((m) => ({
+      id: m.id,
+      kind: m.kind,
+      name: m.name,
+      notes: m.notes,
+      fileName: m.fileName,
+      fileText: m.fileText,
+      createdAt: m.createdAt.toISOString(),
+    })),
     studies: studyRows.map((s) => ({
       id: s.id,
       title: s.title,
@@ -34,7 +47,14 @@ export async function exportTeam(db: Db, teamId: string, teamName: string): Prom
       createdAt: s.createdAt.toISOString(),
       revisions: revisionRows
         .filter((x) => x.r.studyId === s.id)
-        .map((x) => ({ revision: x.r.revision, title: x.r.title, message: x.r.message, author: x.author, createdAt: x.r.createdAt.toISOString(), document: x.r.document })),
+        .map((x) => ({
+          revision: x.r.revision,
+          title: x.r.title,
+          message: x.r.message,
+          author: x.author,
+          createdAt: x.r.createdAt.toISOString(),
+          document: x.r.document,
+        })),
     })),
   };
 }
@@ -78,7 +98,8 @@ export async function importTeam(db: Db, teamId: string, importerId: string, raw
     archiveMapKinds.set(m.id, m.kind);
     const result = parseMapFile(m.fileText);
     if (!result.ok) {
-      for (const p of result.problems) problems.push({ item: label, message: `${p.line ? `line ${p.line}${p.column ? `, column ${p.column}` : ''}: ` : ''}${p.message}` });
+      for (const p of result.problems)
+        problems.push({ item: label, message: `${p.line ? `line ${p.line}${p.column ? `, column ${p.column}` : ''}: ` : ''}${p.message}` });
       return null;
     }
     if (result.map.kind !== m.kind) problems.push({ item: label, message: `the file is a ${result.map.kind} map but the archive says ${m.kind}` });
@@ -97,7 +118,8 @@ export async function importTeam(db: Db, teamId: string, importerId: string, raw
             const kind = id.startsWith(BUILTIN_PREFIX) ? builtinMap(id)?.map.kind : archiveMapKinds.get(id);
             const wanted = field === 'compressorMapId' ? 'compressor' : 'turbine';
             if (!kind) problems.push({ item: label, message: `document.plans.${k}.${field}: names map ${id}, which is neither in the archive nor built in` });
-            else if (kind !== wanted) problems.push({ item: label, message: `document.plans.${k}.${field}: names a ${kind} map where a ${wanted} map belongs` });
+            else if (kind !== wanted)
+              problems.push({ item: label, message: `document.plans.${k}.${field}: names a ${kind} map where a ${wanted} map belongs` });
           }
         });
         return doc;
@@ -110,7 +132,9 @@ export async function importTeam(db: Db, teamId: string, importerId: string, raw
     }),
   );
   if (problems.length > 0) {
-    throw new HttpError(400, 'invalid_archive', `The archive has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, { problems: problems.slice(0, 500) });
+    throw new HttpError(400, 'invalid_archive', `The archive has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, {
+      problems: problems.slice(0, 500),
+    });
   }
 
   // Authors are matched only among the members of the team the archive goes into: an archive
@@ -168,7 +192,7 @@ export async function importTeam(db: Db, teamId: string, importerId: string, raw
           document: docs[j],
           title: r.title,
           message: r.message,
-          authorId: r.author ? authorIds.get(r.author.trim().toLowerCase()) ?? null : null,
+          authorId: r.author ? (authorIds.get(r.author.trim().toLowerCase()) ?? null) : null,
           authorName: r.author && !authorIds.has(r.author.trim().toLowerCase()) ? r.author : null,
           createdAt: new Date(r.createdAt),
         });

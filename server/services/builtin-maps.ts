@@ -1,8 +1,8 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
-import { parseMapFile } from '../../shared/maps';
-import type { SpoolbookMap } from '../../shared/maps/types';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
 
 /** The invented demo maps shipped in data/maps/, offered read-only to every team. */
 export interface BuiltinMap {
@@ -20,7 +20,9 @@ export const BUILTIN_PREFIX = 'builtin-';
 export function builtinMaps(): BuiltinMap[] {
   if (cache) return cache;
   const found: BuiltinMap[] = [];
-  for (const fileName of readdirSync(folder).filter((f) => f.endsWith('.csv')).sort()) {
+  for (const fileName of readdirSync(folder)
+    .filter((f) => f.endsWith('.csv'))
+    .sort()) {
     const fileText = readFileSync(path.join(folder, fileName), 'utf8');
     const result = parseMapFile(fileText);
     // A broken demo file is a bug in the generator; the maps tests catch it, the server skips it.

@@ -95,7 +95,14 @@ export class GrowingDelay {
 export class Quota {
   private readonly limiter: RateLimiterPostgres;
 
-  constructor(pool: pg.Pool, name: string, points: number, windowSeconds: number, private readonly message: string, clearsTable = false) {
+  constructor(
+    pool: pg.Pool,
+    name: string,
+    points: number,
+    windowSeconds: number,
+    private readonly message: string,
+    clearsTable = false,
+  ) {
     // The table is shared: one limiter deleting expired rows (every 5 minutes) serves them all.
     // While PostgreSQL is unreachable this process counts in memory instead (the library's
     // "insurance" limiter), so open routes such as compute keep working and stay limited.
@@ -132,7 +139,13 @@ export class Quota {
 
 export function tooMany(message: string, waitMs: number): HttpError {
   const seconds = Math.max(1, Math.ceil(waitMs / 1000));
-  return new HttpError(429, 'rate_limited', `${message} Wait ${seconds} second${seconds === 1 ? '' : 's'} and try again.`, { retryAfterSeconds: seconds }, { 'Retry-After': String(seconds) });
+  return new HttpError(
+    429,
+    'rate_limited',
+    `${message} Wait ${seconds} second${seconds === 1 ? '' : 's'} and try again.`,
+    { retryAfterSeconds: seconds },
+    { 'Retry-After': String(seconds) },
+  );
 }
 
 export interface Limits {
@@ -163,11 +176,23 @@ export function createLimits(pool: pg.Pool, settings: LimitSettings, namespace =
     signUpByAddress: new Quota(pool, ns('sign-up-address'), settings.signUpsPerAddress, 15 * MINUTE, 'Too many sign-ups from your address.'),
     resetByAddress: new Quota(pool, ns('reset-address'), settings.resetsPerAddress, 15 * MINUTE, 'Too many password reset requests from your address.'),
     resetByAccount: new Quota(pool, ns('reset-account'), settings.resetsPerAccount, HOUR, 'Too many password reset requests for this account.'),
-    confirmationByAccount: new Quota(pool, ns('confirm-account'), settings.confirmationsPerAccount, HOUR, 'The confirmation link was sent several times in the last hour.'),
+    confirmationByAccount: new Quota(
+      pool,
+      ns('confirm-account'),
+      settings.confirmationsPerAccount,
+      HOUR,
+      'The confirmation link was sent several times in the last hour.',
+    ),
     computeByAddress: new Quota(pool, ns('compute-address'), settings.computePerMinute, MINUTE, 'Too many compute requests.', true),
     invitationByTeam: new Quota(pool, ns('invite-team'), settings.invitationsPerTeam, HOUR, 'This team has sent many invitations in the last hour.'),
     invitationByUser: new Quota(pool, ns('invite-user'), settings.invitationsPerUser, HOUR, 'You have sent many invitations in the last hour.'),
-    invitationByAddress: new Quota(pool, ns('invite-address'), settings.invitationsPerAddress, HOUR, 'This address has been sent several invitations in the last hour.'),
+    invitationByAddress: new Quota(
+      pool,
+      ns('invite-address'),
+      settings.invitationsPerAddress,
+      HOUR,
+      'This address has been sent several invitations in the last hour.',
+    ),
     uploadByUser: new Quota(pool, ns('upload-user'), settings.uploadsPerUser, HOUR, 'You have uploaded many files in the last hour.'),
   };
 }

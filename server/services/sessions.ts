@@ -29,7 +29,11 @@ export function describeBrowser(userAgent: string | null): string {
 
 export async function sessionsOf(db: Db, userId: string, currentSessionId: string | null): Promise<SessionView[]> {
   const current = currentSessionId ? hashToken(currentSessionId) : null;
-  const rows = await db.select().from(sessions).where(and(eq(sessions.userId, userId))).orderBy(desc(sessions.lastSeenAt));
+  const rows = await db
+    .select()
+    .from(sessions)
+    .where(and(eq(sessions.userId, userId)))
+    .orderBy(desc(sessions.lastSeenAt));
   return rows
     .filter((r) => r.expiresAt.getTime() > Date.now())
     .map((r) => ({
@@ -44,13 +48,19 @@ export async function sessionsOf(db: Db, userId: string, currentSessionId: strin
 
 /** Ends one of the user's sessions by its handle; false when the user has no such session. */
 export async function endSession(db: Db, userId: string, handle: string): Promise<boolean> {
-  const rows = await db.delete(sessions).where(and(eq(sessions.userId, userId), eq(sessions.id, handle))).returning({ id: sessions.id });
+  const rows = await db
+    .delete(sessions)
+    .where(and(eq(sessions.userId, userId), eq(sessions.id, handle)))
+    .returning({ id: sessions.id });
   return rows.length === 1;
 }
 
 /** Ends every session of the user but the one given; returns how many ended. */
 export async function endOtherSessions(db: Db, userId: string, currentSessionId: string): Promise<number> {
-  const rows = await db.delete(sessions).where(and(eq(sessions.userId, userId), ne(sessions.id, hashToken(currentSessionId)))).returning({ id: sessions.id });
+  const rows = await db
+    .delete(sessions)
+    .where(and(eq(sessions.userId, userId), ne(sessions.id, hashToken(currentSessionId))))
+    .returning({ id: sessions.id });
   return rows.length;
 }
 

@@ -2,11 +2,11 @@ import { and, eq, inArray } from 'drizzle-orm';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { writeCsv } from '../../shared/csv';
-import type { SpoolbookMap } from '../../shared/maps/types';
-import { runStudyDocument } from '../../shared/study/run';
-import { resultRecords } from '../../shared/matching/results-table';
-import { migrateStudyDocument, studyDocumentSchema, StudyVersionError, type StudyDocument } from '../../shared/schemas/study';
+import { writeCsv } from '#shared/csv';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { runStudyDocument } from '#shared/study/run';
+import { resultRecords } from '#shared/matching/results-table';
+import { migrateStudyDocument, studyDocumentSchema, StudyVersionError, type StudyDocument } from '#shared/schemas/study';
 import type { Db } from '../db/client';
 import { maps, studies, users } from '../db/schema';
 import { HttpError, issuesOf } from '../http/errors';
@@ -31,7 +31,8 @@ export function validDocument(raw: unknown): StudyDocument {
   try {
     migrated = migrateStudyDocument(raw);
   } catch (err) {
-    if (err instanceof StudyVersionError) throw new HttpError(400, 'invalid_input', err.message, { issues: [{ path: 'document.schemaVersion', message: err.message }] });
+    if (err instanceof StudyVersionError)
+      throw new HttpError(400, 'invalid_input', err.message, { issues: [{ path: 'document.schemaVersion', message: err.message }] });
     throw err;
   }
   const parsed = studyDocumentSchema.safeParse(migrated);
@@ -50,7 +51,10 @@ export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocumen
   const ids = [...new Set(doc.plans.flatMap((p) => [p.compressorMapId, p.turbineMapId ?? null]).filter((id): id is string => !!id))];
   const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
   const found = teamIds.length
-    ? await db.select({ id: maps.id, kind: maps.kind }).from(maps).where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)))
+    ? await db
+        .select({ id: maps.id, kind: maps.kind })
+        .from(maps)
+        .where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)))
     : [];
   const kinds = new Map(found.map((m) => [m.id, m.kind]));
   const kindOf = (id: string) => (id.startsWith(BUILTIN_PREFIX) ? builtinMap(id)?.map.kind : kinds.get(id));
@@ -59,14 +63,16 @@ export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocumen
     const id = p.compressorMapId;
     if (id) {
       const kind = kindOf(id);
-      if (!kind) issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'no such map in this team\'s library' });
-      else if (kind !== 'compressor') issues.push({ path: `document.plans.${i}.compressorMapId`, message: 'is a turbine map; a plan\'s compressor needs a compressor map' });
+      if (!kind) issues.push({ path: `document.plans.${i}.compressorMapId`, message: "no such map in this team's library" });
+      else if (kind !== 'compressor')
+        issues.push({ path: `document.plans.${i}.compressorMapId`, message: "is a turbine map; a plan's compressor needs a compressor map" });
     }
     const turbineId = p.turbineMapId;
     if (turbineId) {
       const kind = kindOf(turbineId);
-      if (!kind) issues.push({ path: `document.plans.${i}.turbineMapId`, message: 'no such map in this team\'s library' });
-      else if (kind !== 'turbine') issues.push({ path: `document.plans.${i}.turbineMapId`, message: 'is a compressor map; a plan\'s exhaust side needs a turbine map' });
+      if (!kind) issues.push({ path: `document.plans.${i}.turbineMapId`, message: "no such map in this team's library" });
+      else if (kind !== 'turbine')
+        issues.push({ path: `document.plans.${i}.turbineMapId`, message: "is a compressor map; a plan's exhaust side needs a turbine map" });
     }
   });
   if (issues.length) throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
@@ -84,7 +90,10 @@ export async function mapsOfStudy(db: Db, teamId: string, doc: StudyDocument): P
   }
   const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
   if (teamIds.length) {
-    const rows = await db.select({ id: maps.id, parsed: maps.parsed }).from(maps).where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)));
+    const rows = await db
+      .select({ id: maps.id, parsed: maps.parsed })
+      .from(maps)
+      .where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)));
     for (const r of rows) out[r.id] = r.parsed as SpoolbookMap;
   }
   return out;

@@ -1,5 +1,5 @@
 import { and, asc, count, eq, gt, inArray, isNull } from 'drizzle-orm';
-import type { Invitation, Member, Role } from '../../shared/schemas/account';
+import type { Invitation, Member, Role } from '#shared/schemas/account';
 import type { Db } from '../db/client';
 import { invitations, shareLinks, studies, teamMembers, teams, users } from '../db/schema';
 import { HttpError } from '../http/errors';
@@ -45,7 +45,10 @@ export async function assertOwnerRemains(tx: Tx, teamId: string, userId: string,
   await tx.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for('update');
   if (actingOwnerId) {
     // The actor's role was checked before the lock; a change that ran first may have taken it away.
-    const [actor] = await tx.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, actingOwnerId)));
+    const [actor] = await tx
+      .select({ role: teamMembers.role })
+      .from(teamMembers)
+      .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, actingOwnerId)));
     if (actor?.role !== 'owner') throw new HttpError(403, 'forbidden', 'You are no longer an owner of this team.');
   }
   const [member] = await tx

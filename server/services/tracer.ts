@@ -1,12 +1,12 @@
 import { and, count, desc, eq, sql } from 'drizzle-orm';
 import type { User } from 'lucia';
 import type { Request } from 'express';
-import { parseMapFile } from '../../shared/maps';
-import type { MapProblem } from '../../shared/maps/types';
-import { buildTrace, traceFileName } from '../../shared/tracer/build';
-import type { ImageContentType } from '../../shared/tracer/image-header';
-import { newTraceState, type TraceState } from '../../shared/tracer/state';
-import type { DraftDetail, DraftSummary, MapImage } from '../../shared/tracer/api';
+import { parseMapFile } from '#shared/maps';
+import type { MapProblem } from '#shared/maps/types';
+import { buildTrace, traceFileName } from '#shared/tracer/build';
+import type { ImageContentType } from '#shared/tracer/image-header';
+import { newTraceState, type TraceState } from '#shared/tracer/state';
+import type { DraftDetail, DraftSummary, MapImage } from '#shared/tracer/api';
 import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
 import { mapImages, maps, traceDrafts, users } from '../db/schema';
@@ -33,17 +33,38 @@ const imageColumns = {
   createdAt: mapImages.createdAt,
 };
 
-type ImageRow = { id: string; contentType: ImageContentType; byteSize: number; width: number; height: number; mapId: string | null; mapName: string | null; createdAt: Date };
+type ImageRow = {
+  id: string;
+  contentType: ImageContentType;
+  byteSize: number;
+  width: number;
+  height: number;
+  mapId: string | null;
+  mapName: string | null;
+  createdAt: Date;
+};
 
 function imageView(row: ImageRow): MapImage {
   return { ...row, createdAt: row.createdAt.toISOString() };
 }
 
 /** Stores a checked picture; the bytes are already known to be a PNG or JPEG of this size. */
-export async function storeImage(db: Db, input: { teamId: string; userId: string; bytes: Buffer; contentType: ImageContentType; width: number; height: number }): Promise<MapImage> {
+export async function storeImage(
+  db: Db,
+  input: { teamId: string; userId: string; bytes: Buffer; contentType: ImageContentType; width: number; height: number },
+): Promise<MapImage> {
   const [row] = await db
     .insert(mapImages)
-    .values({ id: newId(), teamId: input.teamId, contentType: input.contentType, bytes: input.bytes, byteSize: input.bytes.length, width: input.width, height: input.height, createdBy: input.userId })
+    .values({
+      id: newId(),
+      teamId: input.teamId,
+      contentType: input.contentType,
+      bytes: input.bytes,
+      byteSize: input.bytes.length,
+      width: input.width,
+      height: input.height,
+      createdBy: input.userId,
+    })
     .returning();
   return imageView({ ...row, mapName: null });
 }
@@ -61,7 +82,11 @@ export async function listImages(db: Db, teamId: string, mapId?: string): Promis
 }
 
 export async function teamImage(db: Db, teamId: string, imageId: string): Promise<MapImage> {
-  const [row] = await db.select(imageColumns).from(mapImages).leftJoin(maps, eq(maps.id, mapImages.mapId)).where(and(eq(mapImages.id, imageId), eq(mapImages.teamId, teamId)));
+  const [row] = await db
+    .select(imageColumns)
+    .from(mapImages)
+    .leftJoin(maps, eq(maps.id, mapImages.mapId))
+    .where(and(eq(mapImages.id, imageId), eq(mapImages.teamId, teamId)));
   if (!row) throw notFound('No such picture in this team.');
   return imageView(row);
 }
@@ -136,7 +161,9 @@ export async function createDraft(db: Db, input: { teamId: string; userId: strin
   await teamImage(db, input.teamId, input.imageId); // 404 for a picture of another team
   const state = input.state ?? newTraceState(input.name ?? '');
   const id = newId();
-  await db.insert(traceDrafts).values({ id, teamId: input.teamId, imageId: input.imageId, name: draftName(state, input.name ?? ''), state, createdBy: input.userId });
+  await db
+    .insert(traceDrafts)
+    .values({ id, teamId: input.teamId, imageId: input.imageId, name: draftName(state, input.name ?? ''), state, createdBy: input.userId });
   return draftDetail(db, input.teamId, id);
 }
 
@@ -152,7 +179,10 @@ async function stale(db: Db, teamId: string, draftId: string, baseRevision: numb
 
 /** Saves the state as the next revision if nobody saved since `baseRevision`; else 409 with the newer draft. */
 export async function updateDraft(db: Db, input: { teamId: string; draftId: string; baseRevision: number; state: TraceState }): Promise<DraftDetail> {
-  const [current] = await db.select({ name: traceDrafts.name }).from(traceDrafts).where(and(eq(traceDrafts.id, input.draftId), eq(traceDrafts.teamId, input.teamId)));
+  const [current] = await db
+    .select({ name: traceDrafts.name })
+    .from(traceDrafts)
+    .where(and(eq(traceDrafts.id, input.draftId), eq(traceDrafts.teamId, input.teamId)));
   if (!current) throw notFound('No such trace in this team.');
   const [row] = await db
     .update(traceDrafts)
@@ -166,7 +196,10 @@ export async function updateDraft(db: Db, input: { teamId: string; draftId: stri
 /** Deletes a draft, and its picture too when nothing else keeps it (no saved map, no other draft). */
 export async function deleteDraft(db: Db, teamId: string, draftId: string): Promise<void> {
   await db.transaction(async (tx) => {
-    const [draft] = await tx.delete(traceDrafts).where(and(eq(traceDrafts.id, draftId), eq(traceDrafts.teamId, teamId))).returning({ imageId: traceDrafts.imageId });
+    const [draft] = await tx
+      .delete(traceDrafts)
+      .where(and(eq(traceDrafts.id, draftId), eq(traceDrafts.teamId, teamId)))
+      .returning({ imageId: traceDrafts.imageId });
     if (!draft) throw notFound('No such trace in this team.');
     const [others] = await tx.select({ n: count() }).from(traceDrafts).where(eq(traceDrafts.imageId, draft.imageId));
     if (others.n === 0) {

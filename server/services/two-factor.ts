@@ -23,7 +23,10 @@ type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 /** Starts setting up (or again): a new secret, kept aside until a code from it is shown. */
 export async function beginTwoFactor(db: Db, user: { id: string; email: string }) {
   const secret = generateSecret();
-  await db.update(users).set({ totpSecret: secret }).where(and(eq(users.id, user.id), isNull(users.totpEnabledAt)));
+  await db
+    .update(users)
+    .set({ totpSecret: secret })
+    .where(and(eq(users.id, user.id), isNull(users.totpEnabledAt)));
   const uri = generateURI({ issuer: ISSUER, label: user.email, secret });
   return { secret, uri, qrCode: await QRCode.toDataURL(uri, { margin: 1, width: 200 }) };
 }
@@ -71,7 +74,10 @@ export async function useRecoveryCode(db: Db | Tx, userId: string, code: string)
 }
 
 export async function recoveryCodesLeft(db: Db, userId: string): Promise<number> {
-  const rows = await db.select({ id: recoveryCodes.id }).from(recoveryCodes).where(and(eq(recoveryCodes.userId, userId), isNull(recoveryCodes.usedAt)));
+  const rows = await db
+    .select({ id: recoveryCodes.id })
+    .from(recoveryCodes)
+    .where(and(eq(recoveryCodes.userId, userId), isNull(recoveryCodes.usedAt)));
   return rows.length;
 }
 

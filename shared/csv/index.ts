@@ -27,6 +27,7 @@ export function writeCsv(fields: readonly string[], rows: ReadonlyArray<Readonly
  */
 export function csvLine(text: string): string {
   // A line ending in commas would read back as a spreadsheet's padding: quote it too.
-  const risky = /["\r\n]/.test(text) || /,\s*$/.test(text) || text.split(',').some((piece) => FORMULA_START.test(piece.trimStart()) || FORMULA_START.test(piece));
+  const risky =
+    /["\r\n]/.test(text) || /,\s*$/.test(text) || text.split(',').some((piece) => FORMULA_START.test(piece.trimStart()) || FORMULA_START.test(piece));
   return risky ? Papa.unparse([[text]], { ...options('\n'), quotes: true }) : text;
 }

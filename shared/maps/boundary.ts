@@ -118,7 +118,13 @@ export function chokeMarginAt(b: MapBoundary, correctedMassFlow: number, pressur
 /** Where a point lies against the edge, from its margins and the top and bottom speed lines. */
 export type EdgeLocation = 'inside' | 'left-of-surge' | 'beyond-choke' | 'above-top-speed' | 'below-map';
 
-export function locateAgainstBoundary(b: MapBoundary, correctedMassFlow: number, pressureRatio: number, surge: BoundaryMargin, choke: BoundaryMargin): EdgeLocation {
+export function locateAgainstBoundary(
+  b: MapBoundary,
+  correctedMassFlow: number,
+  pressureRatio: number,
+  surge: BoundaryMargin,
+  choke: BoundaryMargin,
+): EdgeLocation {
   if (surge.value !== null && surge.value < 0) return 'left-of-surge';
   if (choke.value !== null && choke.value < 0) return 'beyond-choke';
   if (pressureRatio > b.top.line.clamped(correctedMassFlow)) return 'above-top-speed';

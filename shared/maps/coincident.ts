@@ -144,7 +144,7 @@ function placesOf(points: readonly SurfacePoint[]): { root: Int32Array; order: n
     // The next column: from the first point at v ≥ v_i − tolerance (binary search) to a tolerance above.
     let low = end;
     const high = columnEnd[end];
-    for (let span = high - low; span > 0; ) {
+    for (let span = high - low; span > 0;) {
       const half = span >> 1;
       if (v[order[low + half]] < v[i] - COINCIDENCE_TOLERANCE) {
         low += half + 1;

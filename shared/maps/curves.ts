@@ -84,11 +84,21 @@ export function checkEfficiencyScale(rows: DataRow[], scale: EfficiencyScale | n
   const values = rows.map((r) => r.values[2]).filter((e): e is number => e !== null);
   if (values.length === 0) return false;
   if (scale === 'percent' && values.every((e) => e > 0 && e <= 1)) {
-    problems.add('efficiency-scale', headerLine, null, 'the header says efficiency is in percent, but every efficiency is at most 1; write "# efficiency: fraction" or give percent values');
+    problems.add(
+      'efficiency-scale',
+      headerLine,
+      null,
+      'the header says efficiency is in percent, but every efficiency is at most 1; write "# efficiency: fraction" or give percent values',
+    );
     return true;
   }
   if (scale === 'fraction' && values.every((e) => e > 1 && e <= 100)) {
-    problems.add('efficiency-scale', headerLine, null, 'the header says efficiency is a fraction, but every efficiency is above 1; write "# efficiency: percent" or give fractions');
+    problems.add(
+      'efficiency-scale',
+      headerLine,
+      null,
+      'the header says efficiency is a fraction, but every efficiency is above 1; write "# efficiency: percent" or give fractions',
+    );
     return true;
   }
   return false;
@@ -112,7 +122,12 @@ export function checkSameAlongLine(group: RowGroup, column: number, columnName: 
   for (const row of group.rows) {
     const value = row.values[index];
     if (value !== null && value !== first) {
-      problems.add('inconsistent-line', row.line, column, `${curveName(group)} has ${columnName} ${value} here but ${first} on line ${firstRow.line}; one line has one ${columnName}`);
+      problems.add(
+        'inconsistent-line',
+        row.line,
+        column,
+        `${curveName(group)} has ${columnName} ${value} here but ${first} on line ${firstRow.line}; one line has one ${columnName}`,
+      );
     }
   }
 }
@@ -150,7 +165,12 @@ export function checkDistinctSpeeds(groups: RowGroup[], problems: ProblemList): 
     if (speed === undefined || speed === null) continue;
     const other = bySpeed.get(speed);
     if (other) {
-      problems.add('duplicate-label', group.rows[0].line, 6, `${curveName(group)} and ${curveName(other)} (line ${other.rows[0].line}) both run at speed ${speed}; give each speed one line`);
+      problems.add(
+        'duplicate-label',
+        group.rows[0].line,
+        6,
+        `${curveName(group)} and ${curveName(other)} (line ${other.rows[0].line}) both run at speed ${speed}; give each speed one line`,
+      );
     } else {
       bySpeed.set(speed, group);
     }

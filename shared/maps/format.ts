@@ -128,7 +128,8 @@ export const TURBINE_EFFICIENCY_KIND_WORDS: Record<TurbineEfficiencyKind, string
 
 /** What a turbine map's efficiency kind means for a study, in words (absent: the file does not say). */
 export function turbineEfficiencyKindMeaning(kind: TurbineEfficiencyKind | null | undefined): string {
-  if (kind === 'with-bearing-losses') return `${TURBINE_EFFICIENCY_KIND_WORDS['with-bearing-losses']}: the bearings' losses are in it, so a plan's mechanical efficiency is not applied again`;
+  if (kind === 'with-bearing-losses')
+    return `${TURBINE_EFFICIENCY_KIND_WORDS['with-bearing-losses']}: the bearings' losses are in it, so a plan's mechanical efficiency is not applied again`;
   if (kind === 'aerodynamic') return `${TURBINE_EFFICIENCY_KIND_WORDS.aerodynamic}: a plan's mechanical efficiency takes the bearings' share`;
   return "not stated, read as aerodynamic only: a plan's mechanical efficiency takes the bearings' share";
 }

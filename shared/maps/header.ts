@@ -229,7 +229,12 @@ export function readQuantity(entry: HeaderEntry, kind: MapQuantity, example: str
   const value = parseDecimal(numberText);
   if (value === null) {
     if (looksLikeDecimalComma(numberText)) {
-      problems.add('decimal-comma', entry.line, null, `${entry.key}: "${numberText}" uses a decimal comma; write it with a decimal point (${numberText.replace(',', '.')})`);
+      problems.add(
+        'decimal-comma',
+        entry.line,
+        null,
+        `${entry.key}: "${numberText}" uses a decimal comma; write it with a decimal point (${numberText.replace(',', '.')})`,
+      );
     } else {
       problems.add('bad-value', entry.line, null, `${entry.key} must be a number and a unit, such as "${example}" (found ${quoteCell(entry.value)})`);
     }

@@ -39,7 +39,10 @@ export interface UnitSquare {
 
 /** The unit square `triangulate` works in (a side of zero length is left unscaled). */
 export function unitSquare(xs: ArrayLike<number>, ys: ArrayLike<number>): UnitSquare {
-  let xMin = Infinity, xMax = -Infinity, yMin = Infinity, yMax = -Infinity;
+  let xMin = Infinity,
+    xMax = -Infinity,
+    yMin = Infinity,
+    yMax = -Infinity;
   for (let i = 0; i < xs.length; i++) {
     xMin = Math.min(xMin, xs[i]);
     xMax = Math.max(xMax, xs[i]);
@@ -97,7 +100,9 @@ export function triangulate(xs: ArrayLike<number>, ys: ArrayLike<number>, channe
   const geometry = new Float64Array(6 * triangleCount);
   const degenerate = new Uint8Array(triangleCount);
   for (let t = 0; t < triangleCount; t++) {
-    const a = triangles[3 * t], b = triangles[3 * t + 1], c = triangles[3 * t + 2];
+    const a = triangles[3 * t],
+      b = triangles[3 * t + 1],
+      c = triangles[3 * t + 2];
     const det = (v[b] - v[c]) * (u[a] - u[c]) + (u[c] - u[b]) * (v[a] - v[c]);
     const g = 6 * t;
     geometry[g] = u[c];
@@ -182,7 +187,9 @@ export function triangulate(xs: ArrayLike<number>, ys: ArrayLike<number>, channe
       const t = locate(pu, pv);
       if (t === -1) return null;
       weighAt(t, pu, pv);
-      const a = triangles[3 * t], b = triangles[3 * t + 1], c = triangles[3 * t + 2];
+      const a = triangles[3 * t],
+        b = triangles[3 * t + 1],
+        c = triangles[3 * t + 2];
       // Written around vertex c so that a plane comes back exactly up to rounding.
       return data[c] + weights[0] * (data[a] - data[c]) + weights[1] * (data[b] - data[c]);
     },

@@ -55,7 +55,12 @@ function readFlowHeader(section: HeaderSection, problems: ProblemList): FlowHead
   const axis: CompressorFlowAxis = match[1].toLowerCase() === 'volume' ? 'volume' : 'corrected-mass';
   const unitText = (match[2] ?? '').trim();
   if (unitText === '') {
-    problems.add('missing-unit', entry.line, null, `flow needs a unit after the comma, such as "${axis === 'volume' ? 'volume, cfm' : 'corrected mass, kg/s'}"`);
+    problems.add(
+      'missing-unit',
+      entry.line,
+      null,
+      `flow needs a unit after the comma, such as "${axis === 'volume' ? 'volume, cfm' : 'corrected mass, kg/s'}"`,
+    );
     return null;
   }
   const unit = readUnitValue({ ...entry, value: unitText }, axis === 'volume' ? 'volumeFlow' : 'massFlow', problems);
@@ -70,14 +75,24 @@ function readReference(section: HeaderSection, problems: ProblemList): { tempera
   if (tEntry && temperature) {
     const [low, high] = REFERENCE_TEMPERATURE_RANGE_K;
     if (!(temperature.si >= low && temperature.si <= high)) {
-      problems.add('out-of-range', tEntry.line, null, `reference temperature ${tEntry.value} is ${temperature.si.toFixed(1)} K; a map's reference inlet temperature lies between ${low} K and ${high} K (check the number and its unit)`);
+      problems.add(
+        'out-of-range',
+        tEntry.line,
+        null,
+        `reference temperature ${tEntry.value} is ${temperature.si.toFixed(1)} K; a map's reference inlet temperature lies between ${low} K and ${high} K (check the number and its unit)`,
+      );
       temperature = null;
     }
   }
   if (pEntry && pressure) {
     const [low, high] = REFERENCE_PRESSURE_RANGE_PA;
     if (!(pressure.si >= low && pressure.si <= high)) {
-      problems.add('out-of-range', pEntry.line, null, `reference pressure ${pEntry.value} is ${(pressure.si / 1000).toFixed(1)} kPa; a map's reference inlet pressure is absolute and lies between ${low / 1000} and ${high / 1000} kPa (check the number and its unit)`);
+      problems.add(
+        'out-of-range',
+        pEntry.line,
+        null,
+        `reference pressure ${pEntry.value} is ${(pressure.si / 1000).toFixed(1)} kPa; a map's reference inlet pressure is absolute and lies between ${low / 1000} and ${high / 1000} kPa (check the number and its unit)`,
+      );
       pressure = null;
     }
   }
@@ -100,13 +115,19 @@ function checkRow(row: DataRow, common: CommonHeader, problems: ProblemList): vo
   if (flow === null) problems.add('missing-value', row.line, 3, 'flow is empty; every row needs a flow');
   else if (!(flow > 0)) problems.add('out-of-range', row.line, 3, `flow ${flow} must be above 0`);
   if (pressureRatio === null) problems.add('missing-value', row.line, 4, 'pressure_ratio is empty; every row needs a pressure ratio');
-  else if (!(pressureRatio >= 1)) problems.add('pressure-ratio-below-one', row.line, 4, `pressure ratio ${pressureRatio} is below 1; a compressor raises pressure, so the ratio is at least 1`);
+  else if (!(pressureRatio >= 1))
+    problems.add(
+      'pressure-ratio-below-one',
+      row.line,
+      4,
+      `pressure ratio ${pressureRatio} is below 1; a compressor raises pressure, so the ratio is at least 1`,
+    );
   if (efficiency !== null && common.efficiency) checkEfficiency(efficiency, common.efficiency, row.line, problems);
   if (row.curve === 'island' && efficiency === null) {
     problems.add('missing-value', row.line, 5, 'efficiency is empty; every row of an efficiency island gives its efficiency');
   }
   if (row.curve === 'speed' && speed === null) {
-    problems.add('missing-value', row.line, 6, 'speed is empty; every row of a speed line gives the line\'s speed');
+    problems.add('missing-value', row.line, 6, "speed is empty; every row of a speed line gives the line's speed");
   }
   if (speed !== null && !(speed > 0)) problems.add('out-of-range', row.line, 6, `speed ${speed} must be above 0`);
 }
@@ -143,12 +164,15 @@ export function readCompressor(
     checkPointCount(group, 2, problems);
     if (group.curve === 'speed') {
       checkSameAlongLine(group, 6, 'speed', problems);
-      checkIncreasing(group, 3, 'flow', 'list a speed line\'s points from surge to choke', problems);
+      checkIncreasing(group, 3, 'flow', "list a speed line's points from surge to choke", problems);
     } else {
       checkIncreasing(group, 4, 'pressure ratio', `list the ${group.curve} line's points from low to high pressure ratio`, problems);
     }
   }
-  checkDistinctSpeeds(groups.filter((g) => g.curve === 'speed'), problems);
+  checkDistinctSpeeds(
+    groups.filter((g) => g.curve === 'speed'),
+    problems,
+  );
 
   const count = (curve: string) => groups.filter((g) => g.curve === curve).length;
   if (rows.length > 0) {
@@ -156,7 +180,13 @@ export function readCompressor(
     if (count('surge') === 0) missing.push('a surge line');
     if (count('choke') === 0) missing.push('a choke line');
     if (count('speed') < 2) missing.push(`at least two speed lines (found ${count('speed')})`);
-    if (missing.length > 0) problems.add('missing-curve', null, null, `a compressor map needs a surge line, a choke line and at least two speed lines; this file lacks ${missing.join(', ')}`);
+    if (missing.length > 0)
+      problems.add(
+        'missing-curve',
+        null,
+        null,
+        `a compressor map needs a surge line, a choke line and at least two speed lines; this file lacks ${missing.join(', ')}`,
+      );
     const efficiencies = rows.map((r) => r.values[2]).filter((e): e is number => e !== null);
     if (efficiencies.length === 0 && rows.length > 0) {
       problems.add('missing-curve', null, null, 'no row gives an efficiency; add efficiencies on the speed lines or efficiency islands');

@@ -1,4 +1,13 @@
-import { HEADER_KEYS, HOUSINGS, TURBINE_EFFICIENCY_KIND_WORDS, TURBINE_OPTIONAL_KEYS, TURBINE_REQUIRED_KEYS, type Housing, type ScrollFeed, type TurbineEfficiencyKind } from './format';
+import {
+  HEADER_KEYS,
+  HOUSINGS,
+  TURBINE_EFFICIENCY_KIND_WORDS,
+  TURBINE_OPTIONAL_KEYS,
+  TURBINE_REQUIRED_KEYS,
+  type Housing,
+  type ScrollFeed,
+  type TurbineEfficiencyKind,
+} from './format';
 import { checkDistinctSpeeds, checkEfficiency, checkEfficiencyScale, checkIncreasing, checkPointCount, checkSameAlongLine, groupRows } from './curves';
 import { checkKeysForKind, parseDecimal, readUnitValue, type CommonHeader, type HeaderSection } from './header';
 import { quoteCell, type ProblemList } from './problems';
@@ -34,7 +43,13 @@ function readScrollFeed(section: HeaderSection, housing: Housing | null, problem
     return null;
   }
   if (!entry) {
-    if (housing === 'divided') problems.add('missing-key', null, null, 'a divided housing needs "# scroll feed: both" (measured with both scrolls fed) or "# scroll feed: per scroll" (flow of one scroll)');
+    if (housing === 'divided')
+      problems.add(
+        'missing-key',
+        null,
+        null,
+        'a divided housing needs "# scroll feed: both" (measured with both scrolls fed) or "# scroll feed: per scroll" (flow of one scroll)',
+      );
     return undefined;
   }
   const value = entry.value.toLowerCase().replace(/[\s-]+/g, ' ');
@@ -64,7 +79,12 @@ function readAreaRatio(section: HeaderSection, problems: ProblemList): number | 
 function readEfficiencyKind(section: HeaderSection, problems: ProblemList): TurbineEfficiencyKind | null | undefined {
   const entry = section.entries.get(HEADER_KEYS.efficiencyKind);
   if (!entry) return null;
-  const loose = (text: string) => text.toLowerCase().replace(/[\s-]+/g, ' ').replace(/\s*,\s*/g, ', ').trim();
+  const loose = (text: string) =>
+    text
+      .toLowerCase()
+      .replace(/[\s-]+/g, ' ')
+      .replace(/\s*,\s*/g, ', ')
+      .trim();
   const value = loose(entry.value);
   for (const [kind, words] of Object.entries(TURBINE_EFFICIENCY_KIND_WORDS) as [TurbineEfficiencyKind, string][]) if (value === loose(words)) return kind;
   problems.add(
@@ -79,7 +99,13 @@ function readEfficiencyKind(section: HeaderSection, problems: ProblemList): Turb
 function checkRow(row: DataRow, common: CommonHeader, problems: ProblemList): void {
   const [expansionRatio, flowParameter, efficiency, speed] = row.values;
   if (expansionRatio === null) problems.add('missing-value', row.line, 3, 'expansion_ratio is empty; every row needs an expansion ratio');
-  else if (!(expansionRatio >= 1)) problems.add('pressure-ratio-below-one', row.line, 3, `expansion ratio ${expansionRatio} is below 1; a turbine expands the gas, so the ratio is at least 1`);
+  else if (!(expansionRatio >= 1))
+    problems.add(
+      'pressure-ratio-below-one',
+      row.line,
+      3,
+      `expansion ratio ${expansionRatio} is below 1; a turbine expands the gas, so the ratio is at least 1`,
+    );
   if (flowParameter === null) problems.add('missing-value', row.line, 4, 'flow_parameter is empty; every row needs a flow parameter');
   else if (!(flowParameter >= 0)) problems.add('out-of-range', row.line, 4, `flow parameter ${flowParameter} must not be negative`);
   if (efficiency !== null && common.efficiency) checkEfficiency(efficiency, common.efficiency, row.line, problems);
@@ -104,11 +130,20 @@ export function readTurbine(section: HeaderSection, common: CommonHeader, rows: 
     if (group.duplicate) continue;
     checkPointCount(group, 2, problems);
     checkSameAlongLine(group, 6, 'speed', problems);
-    checkIncreasing(group, 3, 'expansion ratio', 'list a flow line\'s points from low to high expansion ratio', problems);
+    checkIncreasing(group, 3, 'expansion ratio', "list a flow line's points from low to high expansion ratio", problems);
   }
   checkDistinctSpeeds(groups, problems);
 
-  if (!problems.isEmpty || !flowParameterUnit || !housing || scrollFeed === undefined || areaRatio === undefined || efficiencyKind === undefined || !common.name || !common.efficiency) {
+  if (
+    !problems.isEmpty ||
+    !flowParameterUnit ||
+    !housing ||
+    scrollFeed === undefined ||
+    areaRatio === undefined ||
+    efficiencyKind === undefined ||
+    !common.name ||
+    !common.efficiency
+  ) {
     return null;
   }
   const flowFactor = flowParameterScale(flowParameterUnit);

@@ -1,11 +1,4 @@
-import {
-  COMPRESSOR_COLUMNS,
-  COMPRESSOR_CURVE_KINDS,
-  MAX_MAP_DATA_ROWS,
-  TURBINE_COLUMNS,
-  TURBINE_CURVE_KINDS,
-  type MapKind,
-} from './format';
+import { COMPRESSOR_COLUMNS, COMPRESSOR_CURVE_KINDS, MAX_MAP_DATA_ROWS, TURBINE_COLUMNS, TURBINE_CURVE_KINDS, type MapKind } from './format';
 import { decodeMapInput } from './decode';
 import { isBlankLine, looksLikeDecimalComma, readCommonHeader, readHeaderSection } from './header';
 import { readCompressor } from './parse-compressor';
@@ -78,7 +71,12 @@ export function parseMapFile(input: string | Uint8Array): MapParseResult {
   const common = readCommonHeader(section, problems);
   const delimiter = otherDelimiter(columnLine);
   if (delimiter) {
-    problems.add('wrong-delimiter', columnIndex + 1, null, `the columns are separated by ${delimiter}; Spoolbook map files separate them with commas (save as "CSV UTF-8, comma-separated")`);
+    problems.add(
+      'wrong-delimiter',
+      columnIndex + 1,
+      null,
+      `the columns are separated by ${delimiter}; Spoolbook map files separate them with commas (save as "CSV UTF-8, comma-separated")`,
+    );
     const commaLine = firstDecimalCommaLine(lines, columnIndex + 1);
     if (commaLine !== null) {
       problems.add('decimal-comma', commaLine, null, 'numbers here use decimal commas (1,35); write them with a decimal point (1.35)');
@@ -89,11 +87,21 @@ export function parseMapFile(input: string | Uint8Array): MapParseResult {
   const kind = common.kind ?? columnsKind;
   if (kind === null) {
     if (!section.entries.has('kind')) problems.add('missing-key', null, null, 'header key "kind" is missing, for example "# kind: compressor"');
-    problems.add('bad-columns', columnIndex + 1, null, `the column names must be "${COMPRESSOR_COLUMNS.join(',')}" for a compressor map or "${TURBINE_COLUMNS.join(',')}" for a turbine map`);
+    problems.add(
+      'bad-columns',
+      columnIndex + 1,
+      null,
+      `the column names must be "${COMPRESSOR_COLUMNS.join(',')}" for a compressor map or "${TURBINE_COLUMNS.join(',')}" for a turbine map`,
+    );
     return refuse(problems);
   }
   if (names.join(',') !== COLUMNS[kind].join(',')) {
-    problems.add('bad-columns', columnIndex + 1, null, `the column names of a ${kind} map are "${COLUMNS[kind].join(',')}", in this order (found "${names.join(',').slice(0, 120)}")`);
+    problems.add(
+      'bad-columns',
+      columnIndex + 1,
+      null,
+      `the column names of a ${kind} map are "${COLUMNS[kind].join(',')}", in this order (found "${names.join(',').slice(0, 120)}")`,
+    );
     return refuse(problems);
   }
 
@@ -105,7 +113,12 @@ export function parseMapFile(input: string | Uint8Array): MapParseResult {
     return refuse(problems);
   }
   if (dataRowCount > MAX_MAP_DATA_ROWS) {
-    problems.add('too-many-rows', null, null, `the file has ${dataRowCount.toLocaleString('en-US')} data rows; the limit is ${MAX_MAP_DATA_ROWS.toLocaleString('en-US')}`);
+    problems.add(
+      'too-many-rows',
+      null,
+      null,
+      `the file has ${dataRowCount.toLocaleString('en-US')} data rows; the limit is ${MAX_MAP_DATA_ROWS.toLocaleString('en-US')}`,
+    );
     return refuse(problems);
   }
 

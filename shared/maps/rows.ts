@@ -34,7 +34,12 @@ function readNumberCell(text: string, line: number, column: number, columnName: 
   const value = parseDecimal(text);
   if (value !== null) return value;
   if (looksLikeDecimalComma(text)) {
-    problems.add('decimal-comma', line, column, `${columnName} "${text}" uses a decimal comma; write numbers with a decimal point (${text.replace(/\./g, '').replace(',', '.')})`);
+    problems.add(
+      'decimal-comma',
+      line,
+      column,
+      `${columnName} "${text}" uses a decimal comma; write numbers with a decimal point (${text.replace(/\./g, '').replace(',', '.')})`,
+    );
   } else if (FORMULA_START.test(text)) {
     problems.add('formula-cell', line, column, `${columnName} ${quoteCell(text)} looks like a spreadsheet formula; write the number itself`);
   } else {
@@ -70,7 +75,12 @@ export function readDataRows(
     for (const c of cells) for (let at = c.indexOf('\n'); at !== -1; at = c.indexOf('\n', at + 1)) breaks++;
     line += 1 + breaks;
     if (breaks > 0) {
-      problems.add('unclosed-quote', rowLine, null, 'a quoted cell runs past the end of the line (a missing closing quote?); the rest of the file could not be read');
+      problems.add(
+        'unclosed-quote',
+        rowLine,
+        null,
+        'a quoted cell runs past the end of the line (a missing closing quote?); the rest of the file could not be read',
+      );
       quoteReported = true;
       break;
     }
@@ -82,19 +92,17 @@ export function readDataRows(
   for (const error of parsed.errors) {
     if (error.type !== 'Quotes' || quoteReported) continue;
     const errorLine = typeof error.row === 'number' ? (rowLines[error.row] ?? null) : null;
-    problems.add('unclosed-quote', errorLine, null, 'a quote mark is missing or misplaced in this row; quote whole cells only, and close every quote on its own line');
+    problems.add(
+      'unclosed-quote',
+      errorLine,
+      null,
+      'a quote mark is missing or misplaced in this row; quote whole cells only, and close every quote on its own line',
+    );
   }
   return { rows, complete: !quoteReported };
 }
 
-function readRow(
-  cells: string[],
-  raw: string,
-  line: number,
-  columns: readonly string[],
-  curveKinds: readonly string[],
-  problems: ProblemList,
-): DataRow | null {
+function readRow(cells: string[], raw: string, line: number, columns: readonly string[], curveKinds: readonly string[], problems: ProblemList): DataRow | null {
   const first = raw.trimStart();
   if (first.startsWith('#') || first.startsWith('"#')) {
     problems.add('header-after-data', line, null, 'header lines ("# key: value") go above the column names, not among the data rows');
@@ -125,7 +133,12 @@ function readRow(
 
   const label = text[1];
   if (FORMULA_START.test(cells[1] ?? '') || FORMULA_START.test(label)) {
-    problems.add('formula-cell', line, 2, `label ${quoteCell(cells[1])} starts with =, +, -, @ or a tab, which a spreadsheet would run as a formula; start it with a letter or digit`);
+    problems.add(
+      'formula-cell',
+      line,
+      2,
+      `label ${quoteCell(cells[1])} starts with =, +, -, @ or a tab, which a spreadsheet would run as a formula; start it with a letter or digit`,
+    );
     readable = false;
   } else if (label.length > MAX_LABEL_LENGTH) {
     problems.add('out-of-range', line, 2, `label is ${label.length} characters long; the limit is ${MAX_LABEL_LENGTH}`);

@@ -265,7 +265,10 @@ function speedLineRows(map: TurbineMap, nodes: CapacityNodes, divisor: number): 
     const speed = pts.find((p) => p.speed !== null)?.speed ?? null;
     if (speed === null || !(speed > 0) || pts.length === 0) continue;
     const ers = pts.map((p) => p.expansionRatio);
-    const etas = fillGaps(ers, pts.map((p) => p.efficiency));
+    const etas = fillGaps(
+      ers,
+      pts.map((p) => p.efficiency),
+    );
     const first = 0;
     const last = pts.length - 1;
     const meanAt = (i: number) => meanFp[Math.max(0, nodeIndex(ers[i]))];

@@ -167,6 +167,4 @@ export interface MapProblem {
 }
 
 /** What reading a file gives: a map (with notes about what was adjusted) or every problem found. */
-export type MapParseResult =
-  | { ok: true; map: SpoolbookMap; notes: MapProblem[] }
-  | { ok: false; problems: MapProblem[] };
+export type MapParseResult = { ok: true; map: SpoolbookMap; notes: MapProblem[] } | { ok: false; problems: MapProblem[] };

@@ -33,9 +33,7 @@ export function unitExamples(kind: MapQuantity): string {
   return EXAMPLES[kind].join(', ');
 }
 
-export type UnitReading =
-  | { ok: true; unit: string }
-  | { ok: false; reason: 'unknown-unit' | 'wrong-unit-kind'; message: string };
+export type UnitReading = { ok: true; unit: string } | { ok: false; reason: 'unknown-unit' | 'wrong-unit-kind'; message: string };
 
 // One unit word, optionally with a power: kg, m3, K^0.5, s^-1. Digits elsewhere (such as "5 kg/s")
 // would be swallowed by mathjs's unit parser without a word, so they are refused here.

@@ -21,11 +21,19 @@ export function fileNumber(si: number, fromSI: (si: number) => number, toSI: (fi
 /** A column read as value·factor is written as the number that reads back to the same SI value. */
 function scaled(si: number | null, factor: number): number | null {
   if (si === null) return null;
-  return fileNumber(si, (v) => v / factor, (v) => v * factor);
+  return fileNumber(
+    si,
+    (v) => v / factor,
+    (v) => v * factor,
+  );
 }
 
 function quantityText(si: number, unit: string, kind: MapQuantity): string {
-  const value = fileNumber(si, (v) => mapValueFromSI(v, unit, kind), (v) => mapValueToSI(v, unit, kind));
+  const value = fileNumber(
+    si,
+    (v) => mapValueFromSI(v, unit, kind),
+    (v) => mapValueToSI(v, unit, kind),
+  );
   return `${value} ${unit}`;
 }
 

@@ -1,5 +1,8 @@
 /** Reference conditions of a compressor map's corrected flow: K and Pa absolute. */
-export interface MapReference { temperature: number; pressure: number }
+export interface MapReference {
+  temperature: number;
+  pressure: number;
+}
 /** Where a point lies against the edges of the map (geometry only; speed limits are judged by the engine). */
 export type MapLocation = 'inside' | 'left-of-surge' | 'beyond-choke' | 'above-top-speed' | 'below-map' | 'off-map';
 
@@ -9,14 +12,7 @@ export type MapLocation = 'inside' | 'left-of-surge' | 'beyond-choke' | 'above-t
  * the map cannot give the margin at the point's pressure ratio.
  */
 export type MarginBasis =
-  | 'surge-line'
-  | 'choke-line'
-  | 'top-speed-line'
-  | 'above-surge-line'
-  | 'below-surge-line'
-  | 'below-choke-line'
-  | 'above-map'
-  | 'no-map';
+  'surge-line' | 'choke-line' | 'top-speed-line' | 'above-surge-line' | 'below-surge-line' | 'below-choke-line' | 'above-map' | 'no-map';
 
 /**
  * Where a shaft speed comes from: read between the speed lines, extrapolated along the map's edge

@@ -11,7 +11,13 @@ import { fmt, pct, type WorkingKind } from './working';
  */
 export const DRIVE_PRESSURE_RATIO_WARNING = 2.0;
 
-function finding(code: FindingCode, severity: Severity, message: string, rpm: number, quantity?: { value: number; threshold?: number; kind: WorkingKind }): Finding {
+function finding(
+  code: FindingCode,
+  severity: Severity,
+  message: string,
+  rpm: number,
+  quantity?: { value: number; threshold?: number; kind: WorkingKind },
+): Finding {
   return quantity ? { code, severity, message, rpm, ...quantity } : { code, severity, message, rpm };
 }
 
@@ -109,7 +115,14 @@ export function exhaustPointFindings(v: PointValues, heldBefore: boolean, effici
     );
   }
   if (v.exhaustCase === 'no-power-needed' && !v.throttled) {
-    out.push(finding('throttle-sets-boost', 'info', 'The compressor needs no power at this boost: the gates are taken wide open and the throttle sets the boost.', rpm));
+    out.push(
+      finding(
+        'throttle-sets-boost',
+        'info',
+        'The compressor needs no power at this boost: the gates are taken wide open and the throttle sets the boost.',
+        rpm,
+      ),
+    );
   }
   return out;
 }

@@ -48,7 +48,25 @@ export function heldBoostStep(ctx: LineContext, v: PointValues): WorkingStep | n
 export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const ex = ctx.exhaust;
   if (!ex || !ex.turbine || !v.exhaustCase) return [];
-  const need = [v.compressorPower, v.exhaustMassFlow, v.turbineInletTemperature, v.turbineOutletPressure, v.turbineInletPressure, v.expansionRatio, v.turbineFlowParameter, v.turbineMapFlowParameter, v.turbineEfficiency, v.turbineMassFlow, v.turbinePower, v.shutGateExpansionRatio, v.shutGateTurbineEfficiency, v.shutGateTurbinePower, v.wastegateMassFlow, v.wastegateFraction, v.drivePressureRatio];
+  const need = [
+    v.compressorPower,
+    v.exhaustMassFlow,
+    v.turbineInletTemperature,
+    v.turbineOutletPressure,
+    v.turbineInletPressure,
+    v.expansionRatio,
+    v.turbineFlowParameter,
+    v.turbineMapFlowParameter,
+    v.turbineEfficiency,
+    v.turbineMassFlow,
+    v.turbinePower,
+    v.shutGateExpansionRatio,
+    v.shutGateTurbineEfficiency,
+    v.shutGateTurbinePower,
+    v.wastegateMassFlow,
+    v.wastegateFraction,
+    v.drivePressureRatio,
+  ];
   if (need.some((x) => typeof x !== 'number' || !Number.isFinite(x))) return [];
   const pC = v.compressorPower!;
   const mEx = v.exhaustMassFlow!;
@@ -66,7 +84,8 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const gas = gasOf(v);
   const gamma = gas.gamma;
   const cp = gas.cp;
-  const gasSource = v.exhaustGasCp !== null && v.exhaustGasCp !== undefined && ctx.fuel && v.lambda !== null ? EXHAUST_SOURCES.gas : EXHAUST_SOURCES.gasFallback;
+  const gasSource =
+    v.exhaustGasCp !== null && v.exhaustGasCp !== undefined && ctx.fuel && v.lambda !== null ? EXHAUST_SOURCES.gas : EXHAUST_SOURCES.gasFallback;
   const n = ctx.plan.turbochargers;
   const t = ex.turbine;
   const divisor = t.mapFlowParameterDivisor;
@@ -90,7 +109,9 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       ? step(
           'turbine-inlet-temperature',
           'Turbine inlet temperature',
-          l.held ? `${fmt(v.rpm)} rpm is outside the table (${fmt(table[0].rpm)}–${fmt(table[table.length - 1].rpm)} rpm), so the nearest row is held.` : 'The table has a row at this speed.',
+          l.held
+            ? `${fmt(v.rpm)} rpm is outside the table (${fmt(table[0].rpm)}–${fmt(table[table.length - 1].rpm)} rpm), so the nearest row is held.`
+            : 'The table has a row at this speed.',
           'T_3_row',
           [wv('T_3_row', l.lower.value, 'temperature')],
           wv('T_3', t3, 'temperature'),
@@ -101,7 +122,13 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
           'Turbine inlet temperature',
           `Read between the Plan's rows at ${fmt(l.lower.rpm)} and ${fmt(l.upper.rpm)} rpm, on a straight line.`,
           'y_0 + (y_1 - y_0) * (N - N_0) / (N_1 - N_0)',
-          [wv('y_0', l.lower.value, 'temperature'), wv('y_1', l.upper.value, 'temperature'), wv('N', v.rpm, 'speed'), wv('N_0', l.lower.rpm, 'speed'), wv('N_1', l.upper.rpm, 'speed')],
+          [
+            wv('y_0', l.lower.value, 'temperature'),
+            wv('y_1', l.upper.value, 'temperature'),
+            wv('N', v.rpm, 'speed'),
+            wv('N_0', l.lower.rpm, 'speed'),
+            wv('N_1', l.upper.rpm, 'speed'),
+          ],
           wv('T_3', t3, 'temperature'),
           `${SOURCES.given}; ${SOURCES.interpolation}`,
         ),
@@ -121,7 +148,12 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       'Expansion ratio with the gates shut',
       `With the gates shut every kg of exhaust goes through the wheel. The turbine swallows ṁ = FP·ER·p4/√T3, with FP read from the map at each ER (${t.capacityRule}); the ratio at which it swallows all of it was found by root finding. FP_shut is the map's flow parameter there.`,
       'm_dot_ex * sqrt(T_3) / (FP_shut * p_4)',
-      [wv('m_dot_ex', mEx, 'massFlow'), wv('T_3', t3, 'temperature'), wv('FP_shut', (mEx * Math.sqrt(t3)) / (erShut * p4), 'none', FP_UNIT), wv('p_4', p4, 'pressure')],
+      [
+        wv('m_dot_ex', mEx, 'massFlow'),
+        wv('T_3', t3, 'temperature'),
+        wv('FP_shut', (mEx * Math.sqrt(t3)) / (erShut * p4), 'none', FP_UNIT),
+        wv('p_4', p4, 'pressure'),
+      ],
       wv('ER_shut', erShut, 'ratio'),
       `${EXHAUST_SOURCES.swallowing}; ${EXHAUST_SOURCES.root}`,
     ),
@@ -177,10 +209,28 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       ),
     );
   } else {
-    steps.push(step('expansion-ratio', 'Expansion ratio', 'The gates are shut: the turbine works at the shut-gate ratio.', 'ER_shut', [wv('ER_shut', erShut, 'ratio')], wv('ER', er, 'ratio'), SOURCES.definition));
+    steps.push(
+      step(
+        'expansion-ratio',
+        'Expansion ratio',
+        'The gates are shut: the turbine works at the shut-gate ratio.',
+        'ER_shut',
+        [wv('ER_shut', erShut, 'ratio')],
+        wv('ER', er, 'ratio'),
+        SOURCES.definition,
+      ),
+    );
   }
   steps.push(
-    step('turbine-inlet-pressure', 'Turbine inlet (exhaust manifold) pressure', 'The expansion ratio times the pressure after the turbine.', 'ER * p_4', [wv('ER', er, 'ratio'), wv('p_4', p4, 'pressure')], wv('p_3', p3, 'pressure'), SOURCES.definition),
+    step(
+      'turbine-inlet-pressure',
+      'Turbine inlet (exhaust manifold) pressure',
+      'The expansion ratio times the pressure after the turbine.',
+      'ER * p_4',
+      [wv('ER', er, 'ratio'), wv('p_4', p4, 'pressure')],
+      wv('p_3', p3, 'pressure'),
+      SOURCES.definition,
+    ),
     step(
       'drive-pressure-ratio',
       'Drive pressure ratio',
@@ -206,7 +256,9 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         : step(
             'turbine-flow-parameter',
             'Turbine flow parameter',
-            v.turbineMapLocation === 'inside' ? 'Read on the map at ER, at the shaft speed where one is known (as the efficiency below).' : 'Outside the map\'s range of expansion ratio (see the findings).',
+            v.turbineMapLocation === 'inside'
+              ? 'Read on the map at ER, at the shaft speed where one is known (as the efficiency below).'
+              : "Outside the map's range of expansion ratio (see the findings).",
             'FP_map',
             [wv('FP_map', v.turbineMapFlowParameter!, 'none', FP_UNIT)],
             wv('FP', v.turbineFlowParameter!, 'none', FP_UNIT),
@@ -225,7 +277,7 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       step(
         'turbine-power',
         'Turbine power',
-        'The wheel\'s flow expanding through ER at the map\'s efficiency there.',
+        "The wheel's flow expanding through ER at the map's efficiency there.",
         'PF * m_dot_t * c_pe * T_3 * eta_t * (1 - ER ^ (-(gamma_e - 1) / gamma_e))',
         [
           wv('PF', pulse, 'ratio'),
@@ -254,8 +306,24 @@ export function exhaustSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       );
     }
     steps.push(
-      step('wastegate-mass-flow', 'Flow through the wastegates', 'What the wheel does not take goes through the gates: mass is conserved.', 'm_dot_ex - m_dot_t', [wv('m_dot_ex', mEx, 'massFlow'), wv('m_dot_t', mT, 'massFlow')], wv('m_dot_wg', mWg, 'massFlow'), SOURCES.definition),
-      step('wastegate-fraction', 'Wastegate share of the exhaust', 'The share of the exhaust that bypasses the wheel.', 'm_dot_wg / m_dot_ex', [wv('m_dot_wg', mWg, 'massFlow'), wv('m_dot_ex', mEx, 'massFlow')], wv('WG', v.wastegateFraction!, 'fraction'), SOURCES.definition),
+      step(
+        'wastegate-mass-flow',
+        'Flow through the wastegates',
+        'What the wheel does not take goes through the gates: mass is conserved.',
+        'm_dot_ex - m_dot_t',
+        [wv('m_dot_ex', mEx, 'massFlow'), wv('m_dot_t', mT, 'massFlow')],
+        wv('m_dot_wg', mWg, 'massFlow'),
+        SOURCES.definition,
+      ),
+      step(
+        'wastegate-fraction',
+        'Wastegate share of the exhaust',
+        'The share of the exhaust that bypasses the wheel.',
+        'm_dot_wg / m_dot_ex',
+        [wv('m_dot_wg', mWg, 'massFlow'), wv('m_dot_ex', mEx, 'massFlow')],
+        wv('WG', v.wastegateFraction!, 'fraction'),
+        SOURCES.definition,
+      ),
     );
   } else {
     steps.push(
@@ -359,7 +427,10 @@ function mechanicalWords(ctx: LineContext): string {
   const ex = ctx.exhaust!;
   if (ex.turbine?.efficiencyKind === 'with-bearing-losses')
     return `The turbine map's efficiency is total-to-static with the bearings' losses in it, so the Plan's mechanical efficiency (${pct(ex.input.mechanicalEfficiency)}) is not applied again: η_m = 100 %.`;
-  const unstated = ex.turbine?.efficiencyKind === 'aerodynamic' ? "The turbine map's efficiency is aerodynamic only" : "The turbine map does not say what its efficiency counts, so it is read as aerodynamic only";
+  const unstated =
+    ex.turbine?.efficiencyKind === 'aerodynamic'
+      ? "The turbine map's efficiency is aerodynamic only"
+      : 'The turbine map does not say what its efficiency counts, so it is read as aerodynamic only';
   return `${unstated}: the bearings take a share, and η_m = ${pct(ex.mechanicalEfficiency)} (the Plan's) reaches the compressor.`;
 }
 
@@ -369,15 +440,29 @@ const SPECIES: ExhaustSpecies[] = ['N2', 'O2', 'CO2', 'H2O', 'CO', 'H2'];
 function exhaustGasSteps(ctx: LineContext, v: PointValues, t3: number, gas: GasProperties): WorkingStep[] {
   if (!ctx.fuel || v.lambda === null || typeof v.exhaustGasCp !== 'number') {
     return [
-      step('exhaust-gas-cp', 'Exhaust gas specific heat', 'No fuel is given, so the lean pair of gas-turbine practice stands in (it understates a rich engine\'s turbine work).', 'c_pe', [wv('c_pe', gas.cp, 'none', CP_UNIT)], wv('c_pe', gas.cp, 'none', CP_UNIT), EXHAUST_SOURCES.gasFallback),
+      step(
+        'exhaust-gas-cp',
+        'Exhaust gas specific heat',
+        "No fuel is given, so the lean pair of gas-turbine practice stands in (it understates a rich engine's turbine work).",
+        'c_pe',
+        [wv('c_pe', gas.cp, 'none', CP_UNIT)],
+        wv('c_pe', gas.cp, 'none', CP_UNIT),
+        EXHAUST_SOURCES.gasFallback,
+      ),
     ];
   }
-  const products = exhaustGasAt({ fuel: ctx.fuel.choice, lambda: v.lambda, temperature: t3, humidityRatio: ctx.air.humidityRatio, trappingEfficiency: ctx.engine.trappingEfficiency });
+  const products = exhaustGasAt({
+    fuel: ctx.fuel.choice,
+    lambda: v.lambda,
+    temperature: t3,
+    humidityRatio: ctx.air.humidityRatio,
+    trappingEfficiency: ctx.engine.trappingEfficiency,
+  });
   const present = SPECIES.filter((s) => products.moleFractions[s] > 0);
   const molar = products.molarMass;
   const rich = v.lambda < 1;
   const extras = [
-    ctx.air.humidityRatio > 0 ? "the water the humid air brought" : null,
+    ctx.air.humidityRatio > 0 ? 'the water the humid air brought' : null,
     ctx.engine.trappingEfficiency < 1 ? `the ${pct(1 - ctx.engine.trappingEfficiency)} of the delivered air that short-circuits to the exhaust` : null,
   ].filter(Boolean);
   return [
@@ -396,7 +481,7 @@ function exhaustGasSteps(ctx: LineContext, v: PointValues, t3: number, gas: GasP
     step(
       'exhaust-gas-constant',
       'Exhaust gas constant',
-      'The universal gas constant over the mixture\'s molar mass.',
+      "The universal gas constant over the mixture's molar mass.",
       'R_u / M_e',
       [wv('R_u', UNIVERSAL_GAS_CONSTANT, 'none', 'J/(mol K)'), wv('M_e', molar, 'none', 'kg/mol')],
       wv('R_e', gas.gasConstant, 'none', CP_UNIT),
@@ -460,7 +545,7 @@ function turbineSpeedSteps(v: PointValues): WorkingStep[] {
         'turbine-speed',
         'Turbine efficiency without a shaft speed',
         r.shaftSpeed === null
-          ? "The compressor side gives no shaft speed here (no compressor map, or the point lies where the map has no speed), so the turbine map is read as the mean of its speed lines at this expansion ratio."
+          ? 'The compressor side gives no shaft speed here (no compressor map, or the point lies where the map has no speed), so the turbine map is read as the mean of its speed lines at this expansion ratio.'
           : "The turbine map's lines carry no speeds, so it is read as the mean of its lines at this expansion ratio.",
         'eta_t_mean',
         [wv('eta_t_mean', eta, 'fraction')],

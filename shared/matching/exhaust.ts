@@ -25,17 +25,7 @@ import { lineInputFindings, pointFindings } from './findings';
 import type { TurbineAtSpeed, TurbineLocation, TurbineModel } from './exhaust-model';
 import { valueAtRpm } from './rpm-table';
 import { solvePoint, type PointOperation } from './run-point';
-import type {
-  ExhaustLineSummary,
-  Finding,
-  LineContext,
-  LineExhaustContext,
-  OperatingPoint,
-  PlanInput,
-  PointValues,
-  SolvedPoint,
-  ValueAtRpm,
-} from './types';
+import type { ExhaustLineSummary, Finding, LineContext, LineExhaustContext, OperatingPoint, PlanInput, PointValues, SolvedPoint, ValueAtRpm } from './types';
 import { fmt } from './working';
 
 /** Turbine efficiency assumed where the map gives none, fraction (from memory: small radial turbines run about 0.6–0.75). */
@@ -111,7 +101,7 @@ export function exhaustProblems(ex: LineExhaustContext): string[] {
   const ds = i.downstreamLoss;
   if (!(ds && ds.pressureLoss >= 0 && Number.isFinite(ds.pressureLoss))) out.push('the loss after the turbine is negative');
   else if ((ds.referenceMassFlow !== undefined && !positive(ds.referenceMassFlow)) || (ds.referenceDensity !== undefined && !positive(ds.referenceDensity)))
-    out.push("the loss after the turbine has a reference flow or density that is not positive");
+    out.push('the loss after the turbine has a reference flow or density that is not positive');
   if (!positive(i.pulseFactor)) out.push('the pulse factor is not positive');
   if (!(positive(i.turbineEfficiency) && i.turbineEfficiency <= 1)) out.push('the assumed turbine efficiency is not between 0 and 1');
   const g = i.wastegates;
@@ -120,7 +110,11 @@ export function exhaustProblems(ex: LineExhaustContext): string[] {
     if (!positive(g.valveDiameter)) out.push('the gate valve diameter is not positive');
     if (!(positive(g.dischargeCoefficient) && g.dischargeCoefficient <= 1)) out.push('the gate discharge coefficient is not between 0 and 1');
   }
-  if (!Array.isArray(i.turbineInletTemperature) || i.turbineInletTemperature.length === 0 || !i.turbineInletTemperature.every((r) => positive(r.value) && Number.isFinite(r.rpm)))
+  if (
+    !Array.isArray(i.turbineInletTemperature) ||
+    i.turbineInletTemperature.length === 0 ||
+    !i.turbineInletTemperature.every((r) => positive(r.value) && Number.isFinite(r.rpm))
+  )
     out.push('the turbine inlet temperature table is empty or not positive');
   return out;
 }
@@ -413,11 +407,25 @@ function writeExhaust(
 /** True when every exhaust number of the point is finite (or null): one sum carries any NaN or Infinity. */
 function exhaustFinite(v: PointValues): boolean {
   const sum =
-    (v.exhaustMassFlow ?? 0) + (v.turbineInletTemperature ?? 0) + (v.turbineOutletPressure ?? 0) + (v.turbineInletPressure ?? 0) +
-    (v.expansionRatio ?? 0) + (v.drivePressureRatio ?? 0) + (v.turbineFlowParameter ?? 0) + (v.turbineMapFlowParameter ?? 0) +
-    (v.turbineEfficiency ?? 0) + (v.turbineMassFlow ?? 0) + (v.turbinePower ?? 0) + (v.shutGateExpansionRatio ?? 0) +
-    (v.shutGateTurbineEfficiency ?? 0) + (v.shutGateTurbinePower ?? 0) + (v.wastegateMassFlow ?? 0) + (v.wastegateFraction ?? 0) +
-    (v.wastegateDiameterNeeded ?? 0) + (v.wastegateDiameterFitted ?? 0) + (v.wastegateMargin ?? 0);
+    (v.exhaustMassFlow ?? 0) +
+    (v.turbineInletTemperature ?? 0) +
+    (v.turbineOutletPressure ?? 0) +
+    (v.turbineInletPressure ?? 0) +
+    (v.expansionRatio ?? 0) +
+    (v.drivePressureRatio ?? 0) +
+    (v.turbineFlowParameter ?? 0) +
+    (v.turbineMapFlowParameter ?? 0) +
+    (v.turbineEfficiency ?? 0) +
+    (v.turbineMassFlow ?? 0) +
+    (v.turbinePower ?? 0) +
+    (v.shutGateExpansionRatio ?? 0) +
+    (v.shutGateTurbineEfficiency ?? 0) +
+    (v.shutGateTurbinePower ?? 0) +
+    (v.wastegateMassFlow ?? 0) +
+    (v.wastegateFraction ?? 0) +
+    (v.wastegateDiameterNeeded ?? 0) +
+    (v.wastegateDiameterFitted ?? 0) +
+    (v.wastegateMargin ?? 0);
   return Number.isFinite(sum);
 }
 
@@ -471,7 +479,8 @@ export function exhaustLineFindings(ctx: LineContext, rpm: number): Finding[] {
   }
   const t = ex.turbine;
   if (t.housing !== ex.input.housing) {
-    const mapWords = t.housing === 'divided' ? `a divided housing${t.scrollFeed === 'per-scroll' ? ' (flow per scroll, doubled)' : ''}` : 'a single-scroll housing';
+    const mapWords =
+      t.housing === 'divided' ? `a divided housing${t.scrollFeed === 'per-scroll' ? ' (flow per scroll, doubled)' : ''}` : 'a single-scroll housing';
     out.push(
       exhaustFinding(
         'turbine-housing-mismatch',
@@ -605,10 +614,19 @@ export function solveExhaustPoint(
     }
     const hit = kept.find((t) => t.values.boost === boost && t.values.converged);
     const final: OperatingPoint = hit
-      ? { solved: true, rpm: op.rpm, values: hit.values, findings: options.firstOfLine ? [...lineInputFindings(ctx, op.rpm), ...pointFindings(hit.values, ctx)] : pointFindings(hit.values, ctx) }
+      ? {
+          solved: true,
+          rpm: op.rpm,
+          values: hit.values,
+          findings: options.firstOfLine ? [...lineInputFindings(ctx, op.rpm), ...pointFindings(hit.values, ctx)] : pointFindings(hit.values, ctx),
+        }
       : solvePoint(ctx, compressorModel, { ...op, boost }, { lineChecked: true, firstOfLine: options.firstOfLine, startEfficiency });
     if (!final.solved) {
-      atTarget.findings.push(...lineFindings, ...extra, exhaustNotConvergedFinding(op.rpm, 'The boost the turbine holds', final.findings[0]?.message ?? 'no physical state'));
+      atTarget.findings.push(
+        ...lineFindings,
+        ...extra,
+        exhaustNotConvergedFinding(op.rpm, 'The boost the turbine holds', final.findings[0]?.message ?? 'no physical state'),
+      );
       return atTarget;
     }
     point = final;
@@ -637,7 +655,11 @@ export function solveExhaustPoint(
   v.boostIterations = boostIterations;
   if (!exhaustFinite(v)) {
     clearExhaust(v);
-    point.findings.push(...lineFindings, ...extra, exhaustFinding('exhaust-not-converged', 'warning', 'The exhaust side gives no finite numbers at this point; it is left out.', op.rpm));
+    point.findings.push(
+      ...lineFindings,
+      ...extra,
+      exhaustFinding('exhaust-not-converged', 'warning', 'The exhaust side gives no finite numbers at this point; it is left out.', op.rpm),
+    );
     return point;
   }
   const exhaustFindings = exhaustPointFindings(v, options.heldBefore === true, at.efficiencyAssumed || shut.value.efficiencyAssumed);
@@ -700,7 +722,12 @@ export function finishExhaustLine(ctx: LineContext, points: OperatingPoint[]): E
   const computed = points.filter((p) => p.values && p.values.targetHeld !== null && p.values.targetHeld !== undefined);
   if (computed.length > 0 && summary.boostThresholdRpm === null && summary.boostAsked) {
     computed[0].findings.push(
-      exhaustFinding('boost-target-not-held', 'warning', 'The turbine holds the boost target at no engine speed of this line: there is no boost threshold.', computed[0].rpm),
+      exhaustFinding(
+        'boost-target-not-held',
+        'warning',
+        'The turbine holds the boost target at no engine speed of this line: there is no boost threshold.',
+        computed[0].rpm,
+      ),
     );
   }
   return summary;

@@ -53,7 +53,12 @@ function humidSteps(ctx: LineContext): WorkingStep[] {
       'Water in the air (humidity ratio)',
       `At ${fmt(a.relativeHumidity * 100, 3)} % relative humidity the vapour holds that share of the saturation pressure at the air's temperature; the humidity ratio is the mass of water per kg of dry air.`,
       'eps_w * RH * p_ws / (p_amb - RH * p_ws)',
-      [wv('eps_w', WATER_TO_AIR_MOLAR_MASS, 'ratio'), wv('RH', a.relativeHumidity, 'fraction'), wv('p_ws', pws, 'pressure'), wv('p_amb', a.pressure, 'pressure')],
+      [
+        wv('eps_w', WATER_TO_AIR_MOLAR_MASS, 'ratio'),
+        wv('RH', a.relativeHumidity, 'fraction'),
+        wv('p_ws', pws, 'pressure'),
+        wv('p_amb', a.pressure, 'pressure'),
+      ],
       wv('W', air.humidityRatio, 'none', 'kg/kg'),
       HUMID_SOURCE,
     ),
@@ -75,14 +80,38 @@ function humidSteps(ctx: LineContext): WorkingStep[] {
       wv('c_p', air.cp, 'none', R_UNIT),
       HUMID_SOURCE,
     ),
-    gammaStep('humid-gamma', 'Ratio of specific heats of the humid charge', 'For an ideal gas cv = cp − R.', ['c_p', air.cp], ['R', air.gasConstant], ['gamma', air.gamma]),
+    gammaStep(
+      'humid-gamma',
+      'Ratio of specific heats of the humid charge',
+      'For an ideal gas cv = cp − R.',
+      ['c_p', air.cp],
+      ['R', air.gasConstant],
+      ['gamma', air.gamma],
+    ),
   ];
 }
 
 /** A loss at this point: given (the same at every flow), or scaled from its reference flow and density. */
-function lossStep(id: string, title: string, where: string, loss: PressureLossInput, value: number, flow: number, density: { symbol: string; value: number; words: string }, symbol: string): WorkingStep {
+function lossStep(
+  id: string,
+  title: string,
+  where: string,
+  loss: PressureLossInput,
+  value: number,
+  flow: number,
+  density: { symbol: string; value: number; words: string },
+  symbol: string,
+): WorkingStep {
   if (loss.referenceMassFlow === undefined) {
-    return step(id, title, `${where} Given as the same loss at every flow (state the engine flow it was measured at to have it follow the flow).`, `${symbol}_ref`, [wv(`${symbol}_ref`, loss.pressureLoss, 'pressure')], wv(symbol, value, 'pressure'), SOURCES.given);
+    return step(
+      id,
+      title,
+      `${where} Given as the same loss at every flow (state the engine flow it was measured at to have it follow the flow).`,
+      `${symbol}_ref`,
+      [wv(`${symbol}_ref`, loss.pressureLoss, 'pressure')],
+      wv(symbol, value, 'pressure'),
+      SOURCES.given,
+    );
   }
   const rhoRef = loss.referenceDensity ?? LOSS_REFERENCE_DENSITY;
   return step(
@@ -90,7 +119,13 @@ function lossStep(id: string, title: string, where: string, loss: PressureLossIn
     `${title} at this flow`,
     `${where} The loss stated at an engine air flow of ${fmt(loss.referenceMassFlow)} kg/s and ${fmt(rhoRef)} kg/m³${loss.referenceDensity === undefined ? ' (standard sea-level air, as none was stated)' : ''}, scaled with the square of the flow over the density (${density.words}).`,
     `${symbol}_ref * (m_dot_air / m_dot_ref) ^ 2 * rho_ref / ${density.symbol}`,
-    [wv(`${symbol}_ref`, loss.pressureLoss, 'pressure'), wv('m_dot_air', flow, 'massFlow'), wv('m_dot_ref', loss.referenceMassFlow, 'massFlow'), wv('rho_ref', rhoRef, 'density'), wv(density.symbol, density.value, 'density')],
+    [
+      wv(`${symbol}_ref`, loss.pressureLoss, 'pressure'),
+      wv('m_dot_air', flow, 'massFlow'),
+      wv('m_dot_ref', loss.referenceMassFlow, 'massFlow'),
+      wv('rho_ref', rhoRef, 'density'),
+      wv(density.symbol, density.value, 'density'),
+    ],
     wv(symbol, value, 'pressure'),
     LOSS_SOURCE,
   );
@@ -135,13 +170,45 @@ function pressureTemperatureSteps(ctx: LineContext): WorkingStep[] {
     );
     steps.push(
       a.temperatureFrom === 'isa'
-        ? step('ambient-temperature', 'Ambient temperature', 'No temperature was given, so the standard-day temperature at the altitude is used.', 'T_isa', [wv('T_isa', tIsa, 'temperature')], wv('T_amb', a.temperature, 'temperature'), SOURCES.isa)
-        : step('ambient-temperature', 'Ambient temperature', 'The temperature of the day is given; the pressure still follows the standard atmosphere.', 'T_amb', [wv('T_amb', a.temperature, 'temperature')], wv('T_amb', a.temperature, 'temperature'), SOURCES.given),
+        ? step(
+            'ambient-temperature',
+            'Ambient temperature',
+            'No temperature was given, so the standard-day temperature at the altitude is used.',
+            'T_isa',
+            [wv('T_isa', tIsa, 'temperature')],
+            wv('T_amb', a.temperature, 'temperature'),
+            SOURCES.isa,
+          )
+        : step(
+            'ambient-temperature',
+            'Ambient temperature',
+            'The temperature of the day is given; the pressure still follows the standard atmosphere.',
+            'T_amb',
+            [wv('T_amb', a.temperature, 'temperature')],
+            wv('T_amb', a.temperature, 'temperature'),
+            SOURCES.given,
+          ),
     );
   } else {
     steps.push(
-      step('ambient-pressure', 'Ambient pressure', 'The barometric pressure is given in the Scenario.', 'p_amb', [wv('p_amb', a.pressure, 'pressure')], wv('p_amb', a.pressure, 'pressure'), SOURCES.given),
-      step('ambient-temperature', 'Ambient temperature', 'The air temperature is given in the Scenario.', 'T_amb', [wv('T_amb', a.temperature, 'temperature')], wv('T_amb', a.temperature, 'temperature'), SOURCES.given),
+      step(
+        'ambient-pressure',
+        'Ambient pressure',
+        'The barometric pressure is given in the Scenario.',
+        'p_amb',
+        [wv('p_amb', a.pressure, 'pressure')],
+        wv('p_amb', a.pressure, 'pressure'),
+        SOURCES.given,
+      ),
+      step(
+        'ambient-temperature',
+        'Ambient temperature',
+        'The air temperature is given in the Scenario.',
+        'T_amb',
+        [wv('T_amb', a.temperature, 'temperature')],
+        wv('T_amb', a.temperature, 'temperature'),
+        SOURCES.given,
+      ),
     );
   }
   return steps;
@@ -180,10 +247,16 @@ function mapSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
     steps.push(
       step(
         'shaft-speed',
-        basis?.speed === 'above-top-speed-line' || basis?.speed === 'surge-edge' ? 'Shaft speed, extrapolated along the map\'s edge' : 'Shaft speed from the map',
+        basis?.speed === 'above-top-speed-line' || basis?.speed === 'surge-edge'
+          ? "Shaft speed, extrapolated along the map's edge"
+          : 'Shaft speed from the map',
         `${where} Like corrected flow, the speed is referred to the map's reference temperature, so the wheel's real speed is N_c·√(T1/T_ref): faster on a hot day.`,
         'N_c * sqrt(T_1 / T_ref)',
-        [wv('N_c', v.correctedShaftSpeed ?? v.shaftSpeed, 'speed'), wv('T_1', v.compressorInletTemperature, 'temperature'), wv('T_ref', ctx.reference.temperature, 'temperature')],
+        [
+          wv('N_c', v.correctedShaftSpeed ?? v.shaftSpeed, 'speed'),
+          wv('T_1', v.compressorInletTemperature, 'temperature'),
+          wv('T_ref', ctx.reference.temperature, 'temperature'),
+        ],
         wv('N_tc', v.shaftSpeed, 'speed'),
         basis?.speed === 'above-top-speed-line' || basis?.speed === 'surge-edge' ? `${SOURCES.map}; ${SOURCES.similarity}` : SOURCES.map,
       ),
@@ -225,7 +298,7 @@ function mapSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         step(
           'speed-margin',
           'Speed margin',
-          `Headroom below the shaft speed limit (${ctx.plan.maxShaftSpeed !== undefined ? 'the lower of the Plan\'s and the map\'s' : 'the map\'s'}).`,
+          `Headroom below the shaft speed limit (${ctx.plan.maxShaftSpeed !== undefined ? "the lower of the Plan's and the map's" : "the map's"}).`,
           '(N_max - N_tc) / N_max',
           [wv('N_max', v.maxShaftSpeed, 'speed'), wv('N_tc', v.shaftSpeed, 'speed')],
           wv('SpM', v.speedMargin, 'fraction'),
@@ -233,7 +306,17 @@ function mapSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         ),
       );
     } else {
-      steps.push(step('speed-margin', 'Speed margin', 'As the map reports it.', 'SpM', [wv('SpM', v.speedMargin, 'fraction')], wv('SpM', v.speedMargin, 'fraction'), SOURCES.map));
+      steps.push(
+        step(
+          'speed-margin',
+          'Speed margin',
+          'As the map reports it.',
+          'SpM',
+          [wv('SpM', v.speedMargin, 'fraction')],
+          wv('SpM', v.speedMargin, 'fraction'),
+          SOURCES.map,
+        ),
+      );
     }
   }
   const region = regionStep(v);
@@ -246,7 +329,7 @@ const SPEED_BASIS_WORDS: Partial<Record<string, string>> = {
   'above-top-speed-line':
     'The point is above the top speed line, so the map has no speed for it: N_c is extrapolated up from the top line at the same flow, taking the isentropic head PR^((γ−1)/γ) − 1 to rise with the square of the tip speed (similar operation). An estimate, not a map reading.',
   'surge-edge':
-    'The point is left of the surge line: N_c is the speed along the surge line at this pressure ratio, between the speed lines\' first points (the isentropic head taken to rise with the square of the tip speed). An estimate, not a map reading.',
+    "The point is left of the surge line: N_c is the speed along the surge line at this pressure ratio, between the speed lines' first points (the isentropic head taken to rise with the square of the tip speed). An estimate, not a map reading.",
 };
 
 /** Where the point sits on the map, what that means for its results, and why any margin is missing. */
@@ -326,9 +409,17 @@ function efficiencyStep(ctx: LineContext, v: PointValues): WorkingStep {
     v.efficiencySource === 'point'
       ? 'Given for this point.'
       : ctx.hasMap
-        ? 'The map has no efficiency at this point, so the Plan\'s stated efficiency is used (see the findings).'
-        : 'No compressor map is attached, so the Plan\'s stated efficiency is used.';
-  return step('compressor-efficiency', 'Compressor efficiency', why, 'eta_stated', [wv('eta_stated', eta, 'fraction')], wv('eta_c', eta, 'fraction'), v.efficiencySource === 'point' ? SOURCES.given : SOURCES.assumption);
+        ? "The map has no efficiency at this point, so the Plan's stated efficiency is used (see the findings)."
+        : "No compressor map is attached, so the Plan's stated efficiency is used.";
+  return step(
+    'compressor-efficiency',
+    'Compressor efficiency',
+    why,
+    'eta_stated',
+    [wv('eta_stated', eta, 'fraction')],
+    wv('eta_c', eta, 'fraction'),
+    v.efficiencySource === 'point' ? SOURCES.given : SOURCES.assumption,
+  );
 }
 
 function compressorTemperatureStep(v: PointValues): WorkingStep {
@@ -340,7 +431,11 @@ function compressorTemperatureStep(v: PointValues): WorkingStep {
       ? 'Only to place the point on the map (through the intercooler and the manifold density): the compressor cannot deliver the point, so this is no result.'
       : 'A real compressor heats the air more than an ideal one: the ideal rise is divided by the efficiency.',
     `T_1 + (T_2s - T_1) / ${placing ? 'eta_place' : 'eta_c'}`,
-    [wv('T_1', v.compressorInletTemperature, 'temperature'), wv('T_2s', v.isentropicOutletTemperature, 'temperature'), wv(placing ? 'eta_place' : 'eta_c', efficiencyOf(v), 'fraction')],
+    [
+      wv('T_1', v.compressorInletTemperature, 'temperature'),
+      wv('T_2s', v.isentropicOutletTemperature, 'temperature'),
+      wv(placing ? 'eta_place' : 'eta_c', efficiencyOf(v), 'fraction'),
+    ],
     wv('T_2', outletTemperatureOf(v), 'temperature'),
     SOURCES.compressorThermo,
   );
@@ -349,7 +444,15 @@ function compressorTemperatureStep(v: PointValues): WorkingStep {
 function manifoldTemperatureStep(ctx: LineContext, v: PointValues, fixedGiven: boolean): WorkingStep {
   const ic = ctx.intercooler;
   if (fixedGiven || ic.kind === 'fixed') {
-    return step('manifold-temperature', 'Manifold temperature', 'Given: the temperature the charge reaches the manifold at.', 'T_man', [wv('T_man', v.manifoldTemperature, 'temperature')], wv('T_man', v.manifoldTemperature, 'temperature'), SOURCES.given);
+    return step(
+      'manifold-temperature',
+      'Manifold temperature',
+      'Given: the temperature the charge reaches the manifold at.',
+      'T_man',
+      [wv('T_man', v.manifoldTemperature, 'temperature')],
+      wv('T_man', v.manifoldTemperature, 'temperature'),
+      SOURCES.given,
+    );
   }
   const coolant = ic.coolantTemperature ?? v.ambientTemperature;
   const iterationNote =
@@ -489,9 +592,33 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   } else {
     const name = choice.kind === 'petrol' ? 'petrol' : 'methanol';
     steps.push(
-      step('stoichiometric-afr', `Stoichiometric air-fuel ratio of ${name}`, 'Mass of air that burns one kg of the fuel completely.', 'AFR_s', [wv('AFR_s', p.stoichiometricAfr, 'ratio')], wv('AFR_s', p.stoichiometricAfr, 'ratio'), SOURCES.fuelProperties),
-      step('lower-heating-value', `Lower heating value of ${name}`, 'Heat released per kg of fuel, water leaving as vapour.', 'LHV', [wv('LHV', p.lowerHeatingValue, 'energyPerMass')], wv('LHV', p.lowerHeatingValue, 'energyPerMass'), SOURCES.fuelProperties),
-      step('fuel-density', `Density of ${name}`, choice.kind === 'petrol' ? 'The middle of the 720–780 kg/m³ range.' : 'Liquid density near room temperature.', 'rho_f', [wv('rho_f', p.density, 'density')], wv('rho_f', p.density, 'density'), SOURCES.fuelProperties),
+      step(
+        'stoichiometric-afr',
+        `Stoichiometric air-fuel ratio of ${name}`,
+        'Mass of air that burns one kg of the fuel completely.',
+        'AFR_s',
+        [wv('AFR_s', p.stoichiometricAfr, 'ratio')],
+        wv('AFR_s', p.stoichiometricAfr, 'ratio'),
+        SOURCES.fuelProperties,
+      ),
+      step(
+        'lower-heating-value',
+        `Lower heating value of ${name}`,
+        'Heat released per kg of fuel, water leaving as vapour.',
+        'LHV',
+        [wv('LHV', p.lowerHeatingValue, 'energyPerMass')],
+        wv('LHV', p.lowerHeatingValue, 'energyPerMass'),
+        SOURCES.fuelProperties,
+      ),
+      step(
+        'fuel-density',
+        `Density of ${name}`,
+        choice.kind === 'petrol' ? 'The middle of the 720–780 kg/m³ range.' : 'Liquid density near room temperature.',
+        'rho_f',
+        [wv('rho_f', p.density, 'density')],
+        wv('rho_f', p.density, 'density'),
+        SOURCES.fuelProperties,
+      ),
     );
   }
   // Fuel and power follow the dry air the cylinders trap: the engine's air flow itself for dry air and a four-stroke.
@@ -504,7 +631,7 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
     steps.push(
       step(
         'dry-air-flow',
-        'Dry air in the engine\'s air flow',
+        "Dry air in the engine's air flow",
         'The water in humid air burns no fuel: fuel and power follow the dry air alone.',
         'm_dot_air / (1 + W)',
         [wv('m_dot_air', v.engineMassFlow, 'massFlow'), wv('W', ctx.air.humidityRatio, 'none', 'kg/kg')],
@@ -522,7 +649,7 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         `${humid ? 'm_dot_da' : 'm_dot_air'} * eta_tr`,
         [wv(humid ? 'm_dot_da' : 'm_dot_air', dryAir, 'massFlow'), wv('eta_tr', trapping, 'fraction')],
         wv('m_dot_tr', burnAir, 'massFlow'),
-        'Heywood, Internal Combustion Engine Fundamentals (1988), §6.6 (trapping efficiency); the trapping efficiency is the Study\'s',
+        "Heywood, Internal Combustion Engine Fundamentals (1988), §6.6 (trapping efficiency); the trapping efficiency is the Study's",
       ),
     );
   }
@@ -567,7 +694,11 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
             'Brake power from the fuel (lean)',
             'The mixture is lean (lambda above 1): all the fuel finds air and burns, and the excess air only dilutes the charge, so the fuel sets the power: η_b·LHV·min(m_dot_f, m_dot_air/AFR_s) takes the fuel.',
             'eta_b * m_dot_f * LHV',
-            [wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'), wv('m_dot_f', v.fuelMassFlow, 'massFlow'), wv('LHV', p.lowerHeatingValue, 'energyPerMass')],
+            [
+              wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'),
+              wv('m_dot_f', v.fuelMassFlow, 'massFlow'),
+              wv('LHV', p.lowerHeatingValue, 'energyPerMass'),
+            ],
             wv('P_b', v.brakePower, 'power'),
             SOURCES.power,
           )
@@ -576,7 +707,12 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
             'Brake power from the air',
             `The mixture is rich or stoichiometric (lambda at or below 1), so the air sets the power: only the fuel it can burn, ${burnSymbol}/AFR_s, releases its heat; the extra fuel does not. η_b·LHV·min(m_dot_f, ${burnSymbol}/AFR_s) takes the air.`,
             `eta_b * ${burnSymbol} * LHV / AFR_s`,
-            [wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'), wv(burnSymbol, burnAir, 'massFlow'), wv('LHV', p.lowerHeatingValue, 'energyPerMass'), wv('AFR_s', p.stoichiometricAfr, 'ratio')],
+            [
+              wv('eta_b', ctx.power.brakeThermalEfficiency, 'fraction'),
+              wv(burnSymbol, burnAir, 'massFlow'),
+              wv('LHV', p.lowerHeatingValue, 'energyPerMass'),
+              wv('AFR_s', p.stoichiometricAfr, 'ratio'),
+            ],
             wv('P_b', v.brakePower, 'power'),
             SOURCES.power,
           ),
@@ -592,7 +728,15 @@ function fuelSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
     );
     if (v.wheelPower !== null && ctx.power.drivetrainLoss !== null) {
       steps.push(
-        step('wheel-power', 'Wheel power', 'Brake power less the share the drivetrain loses.', 'P_b * (1 - loss_dt)', [wv('P_b', v.brakePower, 'power'), wv('loss_dt', ctx.power.drivetrainLoss, 'fraction')], wv('P_w', v.wheelPower, 'power'), SOURCES.assumption),
+        step(
+          'wheel-power',
+          'Wheel power',
+          'Brake power less the share the drivetrain loses.',
+          'P_b * (1 - loss_dt)',
+          [wv('P_b', v.brakePower, 'power'), wv('loss_dt', ctx.power.drivetrainLoss, 'fraction')],
+          wv('P_w', v.wheelPower, 'power'),
+          SOURCES.assumption,
+        ),
       );
     }
     if (v.apparentBsfc !== null) {
@@ -619,7 +763,15 @@ function injectorSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
   const dp = v.injectorPressureDifference;
   const steps: WorkingStep[] = [
     inj.regulator === 'manifold-referenced'
-      ? step('injector-pressure-difference', 'Pressure across the injectors', 'A 1:1 regulator raises the rail with the manifold, so the difference stays the base fuel pressure.', 'p_fuel', [wv('p_fuel', inj.fuelPressure, 'pressure')], wv('dP_inj', dp, 'pressure'), SOURCES.definition)
+      ? step(
+          'injector-pressure-difference',
+          'Pressure across the injectors',
+          'A 1:1 regulator raises the rail with the manifold, so the difference stays the base fuel pressure.',
+          'p_fuel',
+          [wv('p_fuel', inj.fuelPressure, 'pressure')],
+          wv('dP_inj', dp, 'pressure'),
+          SOURCES.definition,
+        )
       : step(
           'injector-pressure-difference',
           'Pressure across the injectors',
@@ -634,14 +786,21 @@ function injectorSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
       'Rail pressure the pump must hold',
       inj.regulator === 'manifold-referenced' ? 'Base pressure plus boost (gauge).' : 'The fixed rail pressure (gauge).',
       inj.regulator === 'manifold-referenced' ? 'p_fuel + boost' : 'p_fuel',
-      inj.regulator === 'manifold-referenced' ? [wv('p_fuel', inj.fuelPressure, 'pressure'), wv('boost', v.boost, 'pressure')] : [wv('p_fuel', inj.fuelPressure, 'pressure')],
+      inj.regulator === 'manifold-referenced'
+        ? [wv('p_fuel', inj.fuelPressure, 'pressure'), wv('boost', v.boost, 'pressure')]
+        : [wv('p_fuel', inj.fuelPressure, 'pressure')],
       wv('p_rail', v.railPressure!, 'pressure'),
       SOURCES.definition,
     ),
   ];
   if (dp <= 0 || v.injectorDuty === null || v.injectorCapacity === null) return steps;
   const both = v.injectorStage === 'both' && inj.secondary !== undefined;
-  const sets = both ? [['p', inj.primary], ['s', inj.secondary!]] as const : [['p', inj.primary]] as const;
+  const sets = both
+    ? ([
+        ['p', inj.primary],
+        ['s', inj.secondary!],
+      ] as const)
+    : ([['p', inj.primary]] as const);
   const fuelDensity = v.fuelDensity ?? undefined;
   const oneInjector = (set: typeof inj.primary) => scaleInjectorFlow(set.ratedFlow, set.ratedPressure, dp) * ratingFluidFactor(set, fuelDensity);
   for (const [tag, set] of sets) {
@@ -673,7 +832,12 @@ function injectorSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
           'Flow of all open injectors',
           `Above ${fmt(inj.secondary!.switchOverRpm)} rpm the secondaries open too; both sets share the fuel in proportion to their flow, so all run at one duty.`,
           'n_p * Q_inj_p + n_s * Q_inj_s',
-          [wv('n_p', inj.primary.count, 'count'), wv('Q_inj_p', qp, 'volumeFlow'), wv('n_s', inj.secondary!.count, 'count'), wv('Q_inj_s', oneInjector(inj.secondary!), 'volumeFlow')],
+          [
+            wv('n_p', inj.primary.count, 'count'),
+            wv('Q_inj_p', qp, 'volumeFlow'),
+            wv('n_s', inj.secondary!.count, 'count'),
+            wv('Q_inj_s', oneInjector(inj.secondary!), 'volumeFlow'),
+          ],
           wv('Q_avail', v.injectorCapacity, 'volumeFlow'),
           SOURCES.definition,
         )
@@ -719,7 +883,12 @@ function injectorSteps(ctx: LineContext, v: PointValues): WorkingStep[] {
         'Injector duty cycle with the dead time',
         `The fuel needs the injectors open for its share of the time, and every opening loses the dead time (${fmt(worst.deadTime!.time * 1000, 3)} ms at ${fmt(worst.deadTime!.voltage, 3)} V${deadSets.length > 1 || both ? ', the longer of the open sets' : ''}; longer at a lower battery voltage). Common practice keeps it at or under 80–85 %.`,
         'Q_f / Q_avail + t_dead / t_inj',
-        [wv('Q_f', v.fuelVolumeFlow, 'volumeFlow'), wv('Q_avail', v.injectorCapacity, 'volumeFlow'), wv('t_dead', worst.deadTime!.time, 'none', 's'), wv('t_inj', period, 'none', 's')],
+        [
+          wv('Q_f', v.fuelVolumeFlow, 'volumeFlow'),
+          wv('Q_avail', v.injectorCapacity, 'volumeFlow'),
+          wv('t_dead', worst.deadTime!.time, 'none', 's'),
+          wv('t_inj', period, 'none', 's'),
+        ],
         wv('duty', v.injectorDuty, 'fraction'),
         `${SOURCES.definition}; dead time: the injector maker's data (${SOURCES.given.toLowerCase()}); limits: ${SOURCES.commonPractice}`,
       ),
@@ -754,7 +923,8 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
   const v = point.values;
   const t = ctx.tables;
   if (!v) {
-    if (t.volumetricEfficiency) steps.push(lookupStep('volumetric-efficiency', 'Volumetric efficiency at this speed', t.volumetricEfficiency, rpm, 'VE', 0, 'fraction'));
+    if (t.volumetricEfficiency)
+      steps.push(lookupStep('volumetric-efficiency', 'Volumetric efficiency at this speed', t.volumetricEfficiency, rpm, 'VE', 0, 'fraction'));
     if (t.boost) steps.push(lookupStep('boost', 'Boost target at this speed', t.boost, rpm, 'boost', 0, 'pressure'));
     return steps.filter(allFinite);
   }
@@ -771,12 +941,29 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
   const inletLoss = v.inletLoss ?? ctx.losses.inlet.pressureLoss;
   const coolerLoss = v.chargeCoolerLoss ?? ctx.losses.chargeCooler.pressureLoss;
   steps.push(
-    lossStep('inlet-loss', 'Filter and intake loss', 'What the filter and intake lose before the compressor.', ctx.losses.inlet, inletLoss, v.engineMassFlow, {
-      symbol: 'rho_in',
-      value: v.ambientPressure / (ctx.air.gasConstant * v.compressorInletTemperature),
-      words: 'of the intake air at ambient pressure and the compressor inlet temperature, p_amb/(R·T_1)',
-    }, 'dp_in'),
-    step('inlet-pressure', 'Compressor inlet pressure', 'Ambient pressure less what the filter and intake lose.', 'p_amb - dp_in', [wv('p_amb', v.ambientPressure, 'pressure'), wv('dp_in', inletLoss, 'pressure')], wv('p_1', v.compressorInletPressure, 'pressure'), SOURCES.definition),
+    lossStep(
+      'inlet-loss',
+      'Filter and intake loss',
+      'What the filter and intake lose before the compressor.',
+      ctx.losses.inlet,
+      inletLoss,
+      v.engineMassFlow,
+      {
+        symbol: 'rho_in',
+        value: v.ambientPressure / (ctx.air.gasConstant * v.compressorInletTemperature),
+        words: 'of the intake air at ambient pressure and the compressor inlet temperature, p_amb/(R·T_1)',
+      },
+      'dp_in',
+    ),
+    step(
+      'inlet-pressure',
+      'Compressor inlet pressure',
+      'Ambient pressure less what the filter and intake lose.',
+      'p_amb - dp_in',
+      [wv('p_amb', v.ambientPressure, 'pressure'), wv('dp_in', inletLoss, 'pressure')],
+      wv('p_1', v.compressorInletPressure, 'pressure'),
+      SOURCES.definition,
+    ),
     step(
       'inlet-temperature',
       'Compressor inlet temperature',
@@ -786,12 +973,29 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
       wv('T_1', v.compressorInletTemperature, 'temperature'),
       SOURCES.definition,
     ),
-    step('manifold-pressure', 'Manifold pressure', 'Boost is gauge pressure: it adds to the ambient pressure.', 'p_amb + boost', [wv('p_amb', v.ambientPressure, 'pressure'), wv('boost', v.boost, 'pressure')], wv('p_man', v.manifoldPressure, 'pressure'), SOURCES.definition),
-    lossStep('charge-cooler-loss', 'Charge-cooler and pipe loss', 'What the charge cooler and pipes lose from the compressor to the manifold.', ctx.losses.chargeCooler, coolerLoss, v.engineMassFlow, {
-      symbol: 'rho_man',
-      value: v.airDensity,
-      words: 'of the charge in the manifold',
-    }, 'dp_cc'),
+    step(
+      'manifold-pressure',
+      'Manifold pressure',
+      'Boost is gauge pressure: it adds to the ambient pressure.',
+      'p_amb + boost',
+      [wv('p_amb', v.ambientPressure, 'pressure'), wv('boost', v.boost, 'pressure')],
+      wv('p_man', v.manifoldPressure, 'pressure'),
+      SOURCES.definition,
+    ),
+    lossStep(
+      'charge-cooler-loss',
+      'Charge-cooler and pipe loss',
+      'What the charge cooler and pipes lose from the compressor to the manifold.',
+      ctx.losses.chargeCooler,
+      coolerLoss,
+      v.engineMassFlow,
+      {
+        symbol: 'rho_man',
+        value: v.airDensity,
+        words: 'of the charge in the manifold',
+      },
+      'dp_cc',
+    ),
     v.throttled
       ? step(
           'outlet-pressure',
@@ -841,14 +1045,26 @@ export function pointWorking(ctx: LineContext, point: OperatingPoint, options: {
             'Compressor power',
             'The shaft power that heats the air from T_1 to T_2.',
             'm_dot * c_p * (T_2 - T_1)',
-            [wv('m_dot', v.massFlow, 'massFlow'), wv('c_p', ctx.air.cp, 'none', R_UNIT), wv('T_2', t2, 'temperature'), wv('T_1', v.compressorInletTemperature, 'temperature')],
+            [
+              wv('m_dot', v.massFlow, 'massFlow'),
+              wv('c_p', ctx.air.cp, 'none', R_UNIT),
+              wv('T_2', t2, 'temperature'),
+              wv('T_1', v.compressorInletTemperature, 'temperature'),
+            ],
             wv('P_c', v.compressorPower, 'power'),
             SOURCES.compressorThermo,
           ),
         ];
   if (!fixedGiven && ctx.intercooler.kind === 'effectiveness') {
     // The manifold temperature needs T2 first (for a point that cannot be delivered, only to place it).
-    steps.push(efficiencyStep(ctx, v), compressorTemperatureStep(v), manifoldTemperatureStep(ctx, v, fixedGiven), ...airflowSteps(ctx, v), ...mapSteps(ctx, v), ...power);
+    steps.push(
+      efficiencyStep(ctx, v),
+      compressorTemperatureStep(v),
+      manifoldTemperatureStep(ctx, v, fixedGiven),
+      ...airflowSteps(ctx, v),
+      ...mapSteps(ctx, v),
+      ...power,
+    );
   } else {
     // With the manifold temperature given, the point's place needs no efficiency: a point that
     // cannot be delivered shows no efficiency or outlet temperature at all.

@@ -49,7 +49,7 @@ const NOT_REACHABLE = 'Not reachable with this compressor: its power, torque and
 
 /** Words on how a margin beyond the choke line's top was measured. */
 function chokeEdgeWords(v: PointValues): string {
-  return v.marginBasis?.choke === 'top-speed-line' ? ', measured to the top speed line above the choke line\'s top' : '';
+  return v.marginBasis?.choke === 'top-speed-line' ? ", measured to the top speed line above the choke line's top" : '';
 }
 
 /** The finding that says where a point off the map sits and what that means; null on or below the map. */
@@ -60,7 +60,12 @@ function regionFinding(region: MapRegion, v: PointValues): Finding | null {
     case 'on-map':
       return null;
     case 'below-map':
-      return finding('map-below-map', 'info', 'The point is below the map (a low pressure ratio, usual at light load): the wheel turns slower than the lowest speed line.', rpm);
+      return finding(
+        'map-below-map',
+        'info',
+        'The point is below the map (a low pressure ratio, usual at light load): the wheel turns slower than the lowest speed line.',
+        rpm,
+      );
     case 'left-of-surge':
       return finding(
         'map-left-of-surge',
@@ -108,7 +113,13 @@ function thinMarginFindings(v: PointValues, ctx: LineContext): Finding[] {
   const out: Finding[] = [];
   const thin = (code: FindingCode, what: string, margin: number | null, required: number) => {
     if (margin === null || !(margin >= 0) || !(margin < required)) return;
-    out.push(finding(code, 'warning', `${what} ${pct(margin)} is under the ${pct(required)} the study requires.`, v.rpm, { value: margin, threshold: required, kind: 'fraction' }));
+    out.push(
+      finding(code, 'warning', `${what} ${pct(margin)} is under the ${pct(required)} the study requires.`, v.rpm, {
+        value: margin,
+        threshold: required,
+        kind: 'fraction',
+      }),
+    );
   };
   thin('surge-margin-thin', 'Surge margin', v.surgeMargin, req.minSurgeMargin);
   thin('choke-margin-thin', 'Choke margin', v.chokeMargin, req.minChokeMargin);
@@ -246,13 +257,16 @@ export function pointFindings(v: PointValues, ctx: LineContext): Finding[] {
   }
   if (v.throttled) {
     out.push(
-      finding('throttled', 'info', 'Manifold pressure is below compressor inlet pressure: the throttle takes the drop and the compressor is taken at pressure ratio 1.', rpm),
+      finding(
+        'throttled',
+        'info',
+        'Manifold pressure is below compressor inlet pressure: the throttle takes the drop and the compressor is taken at pressure ratio 1.',
+        rpm,
+      ),
     );
   }
   if (!v.converged) {
-    out.push(
-      finding('not-converged', 'warning', `The manifold temperature did not settle in ${v.iterations} passes; the last pass is shown.`, rpm),
-    );
+    out.push(finding('not-converged', 'warning', `The manifold temperature did not settle in ${v.iterations} passes; the last pass is shown.`, rpm));
   }
   const reachable = v.reachable !== false;
   if (ctx.hasMap && reachable && v.efficiencySource === 'plan' && v.compressorEfficiency !== null) {
@@ -334,11 +348,35 @@ export function pointFindings(v: PointValues, ctx: LineContext): Finding[] {
   if (v.injectorDuty !== null) {
     const duty = v.injectorDuty;
     if (duty >= INJECTOR_DUTY_SATURATED) {
-      out.push(finding('injector-saturated', 'limit', `Injector duty ${pct(duty)}: the injectors are saturated and cannot deliver the fuel.`, rpm, dutyQuantity(duty, INJECTOR_DUTY_SATURATED)));
+      out.push(
+        finding(
+          'injector-saturated',
+          'limit',
+          `Injector duty ${pct(duty)}: the injectors are saturated and cannot deliver the fuel.`,
+          rpm,
+          dutyQuantity(duty, INJECTOR_DUTY_SATURATED),
+        ),
+      );
     } else if (duty > INJECTOR_DUTY_LIMIT) {
-      out.push(finding('injector-duty-limit', 'limit', `Injector duty ${pct(duty)} is over the ${pct(INJECTOR_DUTY_LIMIT)} limit (common practice).`, rpm, dutyQuantity(duty, INJECTOR_DUTY_LIMIT)));
+      out.push(
+        finding(
+          'injector-duty-limit',
+          'limit',
+          `Injector duty ${pct(duty)} is over the ${pct(INJECTOR_DUTY_LIMIT)} limit (common practice).`,
+          rpm,
+          dutyQuantity(duty, INJECTOR_DUTY_LIMIT),
+        ),
+      );
     } else if (duty > INJECTOR_DUTY_WARNING) {
-      out.push(finding('injector-duty-high', 'warning', `Injector duty ${pct(duty)} is over the usual ${pct(INJECTOR_DUTY_WARNING)} (common practice).`, rpm, dutyQuantity(duty, INJECTOR_DUTY_WARNING)));
+      out.push(
+        finding(
+          'injector-duty-high',
+          'warning',
+          `Injector duty ${pct(duty)} is over the usual ${pct(INJECTOR_DUTY_WARNING)} (common practice).`,
+          rpm,
+          dutyQuantity(duty, INJECTOR_DUTY_WARNING),
+        ),
+      );
     }
   }
   if (ctx.pumpFlowAvailable !== null && v.pumpFlowRequired !== null) {

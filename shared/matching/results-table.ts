@@ -138,7 +138,17 @@ export function resultRecords(result: StudyResult): { fields: string[]; data: (s
     const unit = siUnitText(c);
     return unit ? `${c.label} (${unit})` : c.label;
   });
-  const fields = ['Plan', 'Scenario', 'Boost row', ...head, 'Findings', 'Map region', 'Reachable', 'Plan verdict', ...APPENDED_RESULT_COLUMNS.map((c) => c.header)];
+  const fields = [
+    'Plan',
+    'Scenario',
+    'Boost row',
+    ...head,
+    'Findings',
+    'Map region',
+    'Reachable',
+    'Plan verdict',
+    ...APPENDED_RESULT_COLUMNS.map((c) => c.header),
+  ];
   const verdicts = new Map(planVerdicts(result).map((v) => [v.planIndex, v]));
   const data = resultRows(result).map((r) => {
     const verdict = verdicts.get(r.line.planIndex);

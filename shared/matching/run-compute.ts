@@ -19,13 +19,22 @@ export class ComputeError extends Error {}
 /** The line context of a compute request (fixed manifold temperature per point). */
 export function computeContext(req: ComputeRequest): LineContext {
   const f = req.fuel;
-  const choice: FuelChoice | null = f ? (f.kind === 'ethanol-blend' ? { kind: 'ethanol-blend', ethanolPercent: f.ethanolPercent ?? 0 } : { kind: f.kind }) : null;
+  const choice: FuelChoice | null = f
+    ? f.kind === 'ethanol-blend'
+      ? { kind: 'ethanol-blend', ethanolPercent: f.ethanolPercent ?? 0 }
+      : { kind: f.kind }
+    : null;
   const properties = choice ? fuelProperties(choice) : null;
   let power: LineContext['power'] = null;
   if (f && properties && (f.brakeThermalEfficiency !== undefined || f.bsfc !== undefined)) {
     power =
       f.bsfc !== undefined
-        ? { basis: 'bsfc', brakeThermalEfficiency: efficiencyFromBsfc(f.bsfc, properties.lowerHeatingValue), bsfc: f.bsfc, drivetrainLoss: f.drivetrainLoss ?? null }
+        ? {
+            basis: 'bsfc',
+            brakeThermalEfficiency: efficiencyFromBsfc(f.bsfc, properties.lowerHeatingValue),
+            bsfc: f.bsfc,
+            drivetrainLoss: f.drivetrainLoss ?? null,
+          }
         : { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: f.brakeThermalEfficiency!, bsfc: null, drivetrainLoss: f.drivetrainLoss ?? null };
   }
   const reference = req.mapReference ?? STANDARD_REFERENCE;

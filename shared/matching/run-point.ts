@@ -9,14 +9,19 @@
 import { revolutionsPerCycle, trappedAirMassFlow } from '../physics/airflow';
 import { isentropicExponent } from '../physics/gas';
 import { dryAirMassFlow } from '../physics/humid-air';
-import { dutyWithDeadTime, injectionPeriod, injectorPressureDifference as injectorPressureDifferenceOf, railGaugePressure, setCapacity } from '../physics/injectors';
+import {
+  dutyWithDeadTime,
+  injectionPeriod,
+  injectorPressureDifference as injectorPressureDifferenceOf,
+  railGaugePressure,
+  setCapacity,
+} from '../physics/injectors';
 import { lossFollowsFlow, scaledPressureLoss } from '../physics/losses';
 import type { CompressorModel, CompressorReading, MapLocation } from './compressor-model';
 import { lineInputFindings, pointFindings, unsolvableFinding } from './findings';
 import { assumptionCovers, isReachable, mapRegionOf } from './reach';
 import type { EfficiencySource, Finding, LineContext, OperatingPoint, PointMarginBasis, PointValues } from './types';
 import { fmt, kelvin } from './working';
-
 
 /** Compressor efficiency used when neither a point, a Plan nor a map gives one, fraction (from memory: a mid-island figure). */
 export const DEFAULT_COMPRESSOR_EFFICIENCY = 0.7;
@@ -74,15 +79,21 @@ export function lineProblems(ctx: LineContext): string[] {
   if (!positive(temperature)) problems.push(`Ambient temperature ${fmt(temperature)} K is not positive.`);
   const inlet = ctx.losses.inlet;
   if (!(inlet.pressureLoss >= 0)) problems.push('Inlet loss is negative.');
-  else if (!lossFollowsFlow(inlet) && !positive(pressure - inlet.pressureLoss)) problems.push(`The inlet loss ${fmt(inlet.pressureLoss)} Pa leaves no pressure at the compressor inlet.`);
+  else if (!lossFollowsFlow(inlet) && !positive(pressure - inlet.pressureLoss))
+    problems.push(`The inlet loss ${fmt(inlet.pressureLoss)} Pa leaves no pressure at the compressor inlet.`);
   if (!positive(temperature + ctx.losses.inletTemperatureRise)) problems.push('Compressor inlet temperature is not positive.');
   if (!(ctx.losses.chargeCooler.pressureLoss >= 0)) problems.push('Charge-cooler loss is negative.');
-  for (const [what, loss] of [['inlet', inlet], ['charge-cooler', ctx.losses.chargeCooler]] as const) {
+  for (const [what, loss] of [
+    ['inlet', inlet],
+    ['charge-cooler', ctx.losses.chargeCooler],
+  ] as const) {
     if (loss.referenceMassFlow !== undefined && !positive(loss.referenceMassFlow)) problems.push(`The ${what} loss's reference flow is not positive.`);
     if (loss.referenceDensity !== undefined && !positive(loss.referenceDensity)) problems.push(`The ${what} loss's reference density is not positive.`);
   }
   if (!positive(ctx.air.gasConstant) || !positive(ctx.air.cp) || !(ctx.air.gamma > 1))
-    problems.push(`Relative humidity ${fmt(ctx.ambient.relativeHumidity * 100, 3)} % is more water than air at ${fmt(pressure / 1000)} kPa and ${kelvin(temperature)} can hold.`);
+    problems.push(
+      `Relative humidity ${fmt(ctx.ambient.relativeHumidity * 100, 3)} % is more water than air at ${fmt(pressure / 1000)} kPa and ${kelvin(temperature)} can hold.`,
+    );
   if (!(positive(ctx.engine.trappingEfficiency) && ctx.engine.trappingEfficiency <= 1)) problems.push('Trapping efficiency is not between 0 and 1.');
   if (!positive(ctx.engine.displacement)) problems.push('Displacement is not positive.');
   if (!(Number.isInteger(ctx.plan.turbochargers) && ctx.plan.turbochargers >= 1)) problems.push('Turbocharger count is not a whole number of at least 1.');
@@ -93,16 +104,23 @@ export function lineProblems(ctx: LineContext): string[] {
   const ic = ctx.intercooler;
   if (ic.kind === 'fixed' && !positive(ic.manifoldTemperature)) problems.push('Manifold temperature is not positive.');
   if (ic.kind === 'effectiveness' && !(ic.effectiveness >= 0 && ic.effectiveness <= 1)) problems.push('Intercooler effectiveness is not between 0 and 1.');
-  if (ic.kind === 'effectiveness' && ic.coolantTemperature !== undefined && !positive(ic.coolantTemperature)) problems.push('Coolant temperature is not positive.');
-  if (ctx.fuel && !(positive(ctx.fuel.properties.stoichiometricAfr) && positive(ctx.fuel.properties.lowerHeatingValue) && positive(ctx.fuel.properties.density)))
+  if (ic.kind === 'effectiveness' && ic.coolantTemperature !== undefined && !positive(ic.coolantTemperature))
+    problems.push('Coolant temperature is not positive.');
+  if (
+    ctx.fuel &&
+    !(positive(ctx.fuel.properties.stoichiometricAfr) && positive(ctx.fuel.properties.lowerHeatingValue) && positive(ctx.fuel.properties.density))
+  )
     problems.push('The fuel properties are not positive (ethanol percent outside 0–100?).');
-  if (ctx.power && !(positive(ctx.power.brakeThermalEfficiency) && ctx.power.brakeThermalEfficiency <= 1)) problems.push('Brake thermal efficiency is not between 0 and 1.');
-  if (ctx.power && ctx.power.drivetrainLoss !== null && !(ctx.power.drivetrainLoss >= 0 && ctx.power.drivetrainLoss < 1)) problems.push('Drivetrain loss is not between 0 and 1.');
+  if (ctx.power && !(positive(ctx.power.brakeThermalEfficiency) && ctx.power.brakeThermalEfficiency <= 1))
+    problems.push('Brake thermal efficiency is not between 0 and 1.');
+  if (ctx.power && ctx.power.drivetrainLoss !== null && !(ctx.power.drivetrainLoss >= 0 && ctx.power.drivetrainLoss < 1))
+    problems.push('Drivetrain loss is not between 0 and 1.');
   const inj = ctx.injectors;
   if (inj) {
     const sets = inj.secondary ? [inj.primary, inj.secondary] : [inj.primary];
     for (const s of sets) {
-      if (!(positive(s.count) && positive(s.ratedFlow) && positive(s.ratedPressure))) problems.push('An injector set has a non-positive count, flow or rated pressure.');
+      if (!(positive(s.count) && positive(s.ratedFlow) && positive(s.ratedPressure)))
+        problems.push('An injector set has a non-positive count, flow or rated pressure.');
       if (s.ratingFluidDensity !== undefined && !positive(s.ratingFluidDensity)) problems.push("An injector set's rating fluid density is not positive.");
       if (s.deadTime !== undefined && !(s.deadTime.time >= 0)) problems.push("An injector set's dead time is negative.");
     }
@@ -223,7 +241,8 @@ export function solvePoint(
     converged = false;
     manifoldTemperature = t1;
     // A caller solving nearby boosts in turn starts from the last settled efficiency: fewer passes.
-    if (efficiencyFromMap && options.startEfficiency !== undefined && options.startEfficiency > 0 && options.startEfficiency <= 1) efficiency = options.startEfficiency;
+    if (efficiencyFromMap && options.startEfficiency !== undefined && options.startEfficiency > 0 && options.startEfficiency <= 1)
+      efficiency = options.startEfficiency;
     const maxPasses = options.maxPasses !== undefined && options.maxPasses >= 1 ? Math.min(MAX_ITERATIONS, Math.floor(options.maxPasses)) : MAX_ITERATIONS;
     // The manifold temperature the losses were last set at, and the pass before's, with how far
     // the temperature each gave was from it: while the efficiency holds (nearly) still the losses settle
@@ -423,9 +442,25 @@ export function solvePoint(
   // Inputs inside the schema cannot get here, but a direct caller might pass extreme numbers.
   // One sum carries any NaN or Infinity; only then name the culprits.
   const sum =
-    pressureRatio + compressorPower + compressorOutletTemperature + correctedMassFlow + manifoldTemperature + airDensity + inletDensity + trapped + inletLoss + chargeCoolerLoss +
-    (values.fuelVolumeFlow ?? 0) + (values.brakePower ?? 0) + (values.torque ?? 0) + (values.injectorDuty ?? 0) + (values.apparentBsfc ?? 0) +
-    (values.speedMargin ?? 0) + (values.surgeMargin ?? 0) + (values.chokeMargin ?? 0) + (values.shaftSpeed ?? 0);
+    pressureRatio +
+    compressorPower +
+    compressorOutletTemperature +
+    correctedMassFlow +
+    manifoldTemperature +
+    airDensity +
+    inletDensity +
+    trapped +
+    inletLoss +
+    chargeCoolerLoss +
+    (values.fuelVolumeFlow ?? 0) +
+    (values.brakePower ?? 0) +
+    (values.torque ?? 0) +
+    (values.injectorDuty ?? 0) +
+    (values.apparentBsfc ?? 0) +
+    (values.speedMargin ?? 0) +
+    (values.surgeMargin ?? 0) +
+    (values.chokeMargin ?? 0) +
+    (values.shaftSpeed ?? 0);
   const bad = Number.isFinite(sum) ? NONE : nonFiniteKeys(values);
   if (bad.length > 0) return unsolved(rpm, [`The inputs lead to numbers too large to compute (${bad.join(', ')}).`]);
 

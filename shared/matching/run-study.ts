@@ -80,7 +80,12 @@ export function lineContext(
     pumpFlowAvailable: study.fuelSystem.pumpFlowAvailable ?? null,
     power:
       power.basis === 'bsfc'
-        ? { basis: 'bsfc', brakeThermalEfficiency: efficiencyFromBsfc(power.bsfc, fuel.properties.lowerHeatingValue), bsfc: power.bsfc, drivetrainLoss: power.drivetrainLoss }
+        ? {
+            basis: 'bsfc',
+            brakeThermalEfficiency: efficiencyFromBsfc(power.bsfc, fuel.properties.lowerHeatingValue),
+            bsfc: power.bsfc,
+            drivetrainLoss: power.drivetrainLoss,
+          }
         : { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: power.brakeThermalEfficiency, bsfc: null, drivetrainLoss: power.drivetrainLoss },
     losses: { inlet: study.losses.inlet, chargeCooler: study.losses.chargeCooler, inletTemperatureRise: study.losses.inletTemperatureRise ?? 0 },
     intercooler: study.intercooler,

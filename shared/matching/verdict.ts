@@ -106,7 +106,8 @@ function rpmText(rpm: number): string {
 
 /** Where a reason holds, in words: "from 4,750 rpm at “1,500 m, 35 °C”". */
 export function reasonWhere(r: VerdictReason): string {
-  const speeds = r.points === 1 ? `at ${rpmText(r.fromRpm)} rpm` : r.toEnd ? `from ${rpmText(r.fromRpm)} rpm` : `at ${rpmText(r.fromRpm)}–${rpmText(r.toRpm)} rpm`;
+  const speeds =
+    r.points === 1 ? `at ${rpmText(r.fromRpm)} rpm` : r.toEnd ? `from ${rpmText(r.fromRpm)} rpm` : `at ${rpmText(r.fromRpm)}–${rpmText(r.toRpm)} rpm`;
   const row = r.namesRow ? `, ${r.rowLabel}` : '';
   return `${speeds} at “${r.scenarioName}${row}”`;
 }

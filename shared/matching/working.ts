@@ -73,7 +73,14 @@ export function step(
  * The ratio of specific heats of an ideal gas from its cp and R (cv = cp − R): one relation, used
  * for the charge and for the exhaust gas. Symbols are the caller's; units J/(kg K).
  */
-export function gammaStep(id: string, title: string, explanation: string, cp: [symbol: string, value: number], r: [symbol: string, value: number], gamma: [symbol: string, value: number]): WorkingStep {
+export function gammaStep(
+  id: string,
+  title: string,
+  explanation: string,
+  cp: [symbol: string, value: number],
+  r: [symbol: string, value: number],
+  gamma: [symbol: string, value: number],
+): WorkingStep {
   return step(
     id,
     title,

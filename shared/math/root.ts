@@ -62,14 +62,15 @@ export function findRoot(f: (x: number) => number, a: number, b: number, options
   const maxIterations = options.maxIterations ?? 100;
   const fTol = options.functionTolerance ?? 0;
   if (!Number.isFinite(a) || !Number.isFinite(b)) return { ok: false, reason: `the bracket [${fmtNumber(a)}, ${fmtNumber(b)}] is not finite`, iterations: 0 };
-  if (!(absTol >= 0) || !(relTol >= 0) || !(fTol >= 0) || !(maxIterations >= 1)) return { ok: false, reason: 'the tolerances must be 0 or more and the iteration cap at least 1', iterations: 0 };
+  if (!(absTol >= 0) || !(relTol >= 0) || !(fTol >= 0) || !(maxIterations >= 1))
+    return { ok: false, reason: 'the tolerances must be 0 or more and the iteration cap at least 1', iterations: 0 };
   let fa = options.fa ?? f(a);
   let fb = options.fb ?? f(b);
   if (!Number.isFinite(fa)) return { ok: false, reason: `the function is not finite at ${fmtNumber(a)}`, iterations: 0 };
   if (!Number.isFinite(fb)) return { ok: false, reason: `the function is not finite at ${fmtNumber(b)}`, iterations: 0 };
   if (Math.abs(fb) <= fTol) return { ok: true, x: b, fx: fb, iterations: 0 };
   if (Math.abs(fa) <= fTol) return { ok: true, x: a, fx: fa, iterations: 0 };
-  if ((fa > 0) === (fb > 0)) {
+  if (fa > 0 === fb > 0) {
     return { ok: false, reason: `no sign change between ${fmtNumber(a)} and ${fmtNumber(b)} (f = ${fmtNumber(fa)} and ${fmtNumber(fb)})`, iterations: 0 };
   }
 
@@ -79,7 +80,7 @@ export function findRoot(f: (x: number) => number, a: number, b: number, options
   let d = b - a;
   let e = d;
   for (let iterations = 1; iterations <= maxIterations + 1; iterations++) {
-    if ((fb > 0) === (fc > 0)) {
+    if (fb > 0 === fc > 0) {
       c = a;
       fc = fa;
       d = b - a;
@@ -97,7 +98,12 @@ export function findRoot(f: (x: number) => number, a: number, b: number, options
     const m = 0.5 * (c - b);
     if (Math.abs(m) <= tol || Math.abs(fb) <= fTol) return { ok: true, x: b, fx: fb, iterations: iterations - 1 };
     if (iterations > maxIterations) {
-      return { ok: false, reason: `no convergence in ${maxIterations} iterations (bracket ${fmtNumber(b)} to ${fmtNumber(c)})`, iterations: maxIterations, bracket: { a: b, fa: fb, b: c, fb: fc } };
+      return {
+        ok: false,
+        reason: `no convergence in ${maxIterations} iterations (bracket ${fmtNumber(b)} to ${fmtNumber(c)})`,
+        iterations: maxIterations,
+        bracket: { a: b, fa: fb, b: c, fb: fc },
+      };
     }
     if (Math.abs(e) >= tol && Math.abs(fa) > Math.abs(fb)) {
       // Interpolate: secant when only two points are known, inverse quadratic with three.

@@ -52,7 +52,11 @@ export function judgePassword(password: string, context: { email?: string; name?
   if (password.length < 8) return { score, problem: 'must be at least 8 characters', hint: 'Too short: use at least 8 characters' };
   const own = words.find((w) => lower.includes(w));
   if (own) {
-    const what = PRODUCT_WORDS.includes(own) ? 'the product\'s name' : own.includes('@') || (context.email ?? '').toLowerCase().startsWith(own) ? 'your e-mail address' : 'your name';
+    const what = PRODUCT_WORDS.includes(own)
+      ? "the product's name"
+      : own.includes('@') || (context.email ?? '').toLowerCase().startsWith(own)
+        ? 'your e-mail address'
+        : 'your name';
     return { score: Math.min(score, 1), problem: `must not contain ${what}`, hint: `Contains ${what}` };
   }
   if (score < MIN_PASSWORD_SCORE) {

@@ -6,7 +6,15 @@
  * products as they are, after the water-gas shift (frozen composition); the short-circuit air's
  * oxygen is taken not to burn the rich products' CO and H2 in the manifold.
  */
-import { combustionProducts, fuelAtoms, mixtureProperties, NITROGEN_PER_OXYGEN, stoichiometricOxygen, type ExhaustGasProperties, type ProductMoles } from './combustion-products';
+import {
+  combustionProducts,
+  fuelAtoms,
+  mixtureProperties,
+  NITROGEN_PER_OXYGEN,
+  stoichiometricOxygen,
+  type ExhaustGasProperties,
+  type ProductMoles,
+} from './combustion-products';
 import type { FuelChoice } from './fuel';
 import { NASA_FITS } from './thermo-polynomials';
 

@@ -22,10 +22,7 @@ export const ETHANOL: FuelProperties = { stoichiometricAfr: 9.0, lowerHeatingVal
 export const METHANOL: FuelProperties = { stoichiometricAfr: 6.47, lowerHeatingValue: 20.0e6, density: 792 };
 
 /** A fuel as a Study names it. `ethanolPercent` is percent by volume, 0 to 100. */
-export type FuelChoice =
-  | { kind: 'petrol' }
-  | { kind: 'ethanol-blend'; ethanolPercent: number }
-  | { kind: 'methanol' };
+export type FuelChoice = { kind: 'petrol' } | { kind: 'ethanol-blend'; ethanolPercent: number } | { kind: 'methanol' };
 
 /** Named presets the screens offer; E85 is simply an ethanol blend at 85 % by volume. */
 export const FUEL_PRESETS = {

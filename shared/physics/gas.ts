@@ -62,8 +62,7 @@ export function orificeMassFlow(args: {
   const { dischargeCoefficient: cd, area, upstreamPressure: p0, upstreamTemperature: t0 } = args;
   const r = Math.max(0, Math.min(1, args.downstreamPressure / p0));
   if (r <= criticalPressureRatio(gamma)) {
-    const massFlow =
-      cd * area * p0 * Math.sqrt(gamma / (gasConstant * t0)) * Math.pow(2 / (gamma + 1), (gamma + 1) / (2 * (gamma - 1)));
+    const massFlow = cd * area * p0 * Math.sqrt(gamma / (gasConstant * t0)) * Math.pow(2 / (gamma + 1), (gamma + 1) / (2 * (gamma - 1)));
     return { massFlow, choked: true };
   }
   const rho0 = p0 / (gasConstant * t0);

@@ -24,7 +24,12 @@ export function orificeFlowFunction(pressureRatio: number, gamma: number): { val
 }
 
 /** Mass flux of an ideal orifice, kg/(s·m²), from upstream p0 (Pa) and T0 (K) to a downstream pressure (Pa). */
-export function orificeMassFlux(upstreamPressure: number, upstreamTemperature: number, downstreamPressure: number, gas: GasProperties = TURBINE_GAS): { massFlux: number; choked: boolean } {
+export function orificeMassFlux(
+  upstreamPressure: number,
+  upstreamTemperature: number,
+  downstreamPressure: number,
+  gas: GasProperties = TURBINE_GAS,
+): { massFlux: number; choked: boolean } {
   const phi = orificeFlowFunction(downstreamPressure / upstreamPressure, gas.gamma);
   return { massFlux: (upstreamPressure * phi.value) / Math.sqrt(gas.gasConstant * upstreamTemperature), choked: phi.choked };
 }
@@ -51,7 +56,10 @@ export interface GateConditions {
 }
 
 /** Mass flow, kg/s, of `gates` identical gates of a valve diameter (m) and discharge coefficient, together. */
-export function wastegateMassFlow(args: GateConditions & { gates: number; valveDiameter: number; dischargeCoefficient: number }): { massFlow: number; choked: boolean } {
+export function wastegateMassFlow(args: GateConditions & { gates: number; valveDiameter: number; dischargeCoefficient: number }): {
+  massFlow: number;
+  choked: boolean;
+} {
   const flux = orificeMassFlux(args.upstreamPressure, args.upstreamTemperature, args.downstreamPressure, args.gas);
   return { massFlow: args.gates * args.dischargeCoefficient * valveArea(args.valveDiameter) * flux.massFlux, choked: flux.choked };
 }

@@ -3,18 +3,10 @@ import { z } from 'zod';
 // Request and response shapes of the account and team API, shared by the client and the server.
 // Request objects are strict: an unknown key is refused by name (no mass assignment).
 
-export const emailSchema = z
-  .string()
-  .trim()
-  .toLowerCase()
-  .max(254, 'must be at most 254 characters')
-  .pipe(z.email('must be an e-mail address'));
+export const emailSchema = z.string().trim().toLowerCase().max(254, 'must be at most 254 characters').pipe(z.email('must be an e-mail address'));
 
 /** Length-based password policy (OWASP ASVS 5.0 6.2.1: at least 8; 6.2.9: allow at least 64). */
-export const passwordSchema = z
-  .string()
-  .min(8, 'must be at least 8 characters')
-  .max(128, 'must be at most 128 characters');
+export const passwordSchema = z.string().min(8, 'must be at least 8 characters').max(128, 'must be at most 128 characters');
 
 export const displayNameSchema = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
 
@@ -42,7 +34,12 @@ export const confirmEmailSchema = z.strictObject({ token: z.string().min(10).max
 /** A 6-digit code from an authenticator app, or a recovery code (`abcde-fghjk`). */
 export const secondFactorCodeSchema = z.string().trim().min(6, 'is required').max(20, 'is not a code');
 export const secondFactorSignInSchema = z.strictObject({ challenge: z.string().min(10).max(200), code: secondFactorCodeSchema });
-export const enableTwoFactorSchema = z.strictObject({ code: z.string().trim().regex(/^\d{6}$/, 'must be the 6 digits your app shows') });
+export const enableTwoFactorSchema = z.strictObject({
+  code: z
+    .string()
+    .trim()
+    .regex(/^\d{6}$/, 'must be the 6 digits your app shows'),
+});
 /** Turning the second factor off or making new recovery codes asks for the password again. */
 export const confirmPasswordSchema = z.strictObject({ password: z.string().min(1, 'is required').max(128) });
 export const teamTwoFactorSchema = z.strictObject({ required: z.boolean() });

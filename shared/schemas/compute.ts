@@ -4,7 +4,16 @@
  * never passes silently. Messages name the unit expected, since most bad values are unit slips.
  */
 import { z } from 'zod';
-import { humidityRatioFromRelativeHumidity, ISA_MIN_HEIGHT, ISA_TROPOPAUSE_HEIGHT, ISA_SEA_LEVEL_PRESSURE, ISA_SEA_LEVEL_TEMPERATURE, fuelProperties, type FuelChoice, type PressureLossInput } from '../physics';
+import {
+  humidityRatioFromRelativeHumidity,
+  ISA_MIN_HEIGHT,
+  ISA_TROPOPAUSE_HEIGHT,
+  ISA_SEA_LEVEL_PRESSURE,
+  ISA_SEA_LEVEL_TEMPERATURE,
+  fuelProperties,
+  type FuelChoice,
+  type PressureLossInput,
+} from '../physics';
 import { resolveAmbient } from '../matching/ambient';
 import { MAX_RPM_POINTS, rpmPointCount } from '../matching/rpm-table';
 import { REQUIREMENT_DEFAULTS } from '../matching/requirements';
@@ -27,11 +36,18 @@ const num = (what: string) => z.number({ error: `${what} must be a number` });
 const fraction = (what: string) =>
   num(what).gt(0, `${what} is a fraction above 0`).max(1, `${what} is a fraction from 0 to 1 (not a percentage); above 1 is impossible`);
 const temperature = (what: string, min = 150, max = 400) =>
-  num(what).min(min, `${what} is absolute temperature in K, at least ${min} K (was °C given?)`).max(max, `${what} is absolute temperature in K, at most ${max} K`);
+  num(what)
+    .min(min, `${what} is absolute temperature in K, at least ${min} K (was °C given?)`)
+    .max(max, `${what} is absolute temperature in K, at most ${max} K`);
 const rpm = (what = 'rpm') => num(what).gt(0, `${what} must be above 0 rpm`).max(30_000, `${what} must be at most 30 000 rpm`);
 const count = (what: string, max: number) =>
   num(what).int(`${what} must be a whole number`).min(1, `${what} must be at least 1`).max(max, `${what} must be at most ${max}`);
-const name = (what: string) => z.string({ error: `${what} must be text` }).trim().min(1, `${what} must not be empty`).max(100, `${what} must be at most 100 characters`);
+const name = (what: string) =>
+  z
+    .string({ error: `${what} must be text` })
+    .trim()
+    .min(1, `${what} must not be empty`)
+    .max(100, `${what} must be at most 100 characters`);
 
 /** Displacement, m³: all cylinders together. */
 export const displacementSchema = num('displacement')
@@ -43,7 +59,9 @@ export const strokesSchema = z.literal([2, 4], { error: 'strokes must be 2 or 4'
 /** Reference conditions of corrected flow. */
 export const mapReferenceSchema = z.strictObject({
   temperature: temperature('reference temperature'),
-  pressure: num('reference pressure').min(10_000, 'reference pressure is absolute, in Pa: at least 10 000 Pa').max(200_000, 'reference pressure is absolute, in Pa: at most 200 000 Pa'),
+  pressure: num('reference pressure')
+    .min(10_000, 'reference pressure is absolute, in Pa: at least 10 000 Pa')
+    .max(200_000, 'reference pressure is absolute, in Pa: at most 200 000 Pa'),
 });
 
 /** Barometric pressures the atmosphere gives where engines run, Pa: about 11 km up to a deep low below sea level (ISO 2533 ISA; from memory for the weather). */
@@ -121,9 +139,19 @@ export const ambientSchema = z
     } else if (a.pressure !== undefined && a.temperature === undefined) {
       ctx.addIssue({ code: 'custom', path: ['temperature'], message: 'temperature (K) is needed with pressure' });
     } else if (isNum(a.relativeHumidity) && a.relativeHumidity > 0) {
-      const resolved = resolveAmbient(a.pressure !== undefined ? { pressure: a.pressure, temperature: a.temperature! } : { altitude: a.altitude ?? 0, temperature: a.temperature });
-      if (isNum(resolved.pressure) && isNum(resolved.temperature) && !Number.isFinite(humidityRatioFromRelativeHumidity(resolved.temperature, resolved.pressure, a.relativeHumidity))) {
-        ctx.addIssue({ code: 'custom', path: ['relativeHumidity'], message: `air at ${fmtKpa(resolved.pressure)} and ${Number((resolved.temperature - 273.15).toFixed(1))} °C cannot hold that much water: its vapour pressure would reach the air's pressure` });
+      const resolved = resolveAmbient(
+        a.pressure !== undefined ? { pressure: a.pressure, temperature: a.temperature! } : { altitude: a.altitude ?? 0, temperature: a.temperature },
+      );
+      if (
+        isNum(resolved.pressure) &&
+        isNum(resolved.temperature) &&
+        !Number.isFinite(humidityRatioFromRelativeHumidity(resolved.temperature, resolved.pressure, a.relativeHumidity))
+      ) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['relativeHumidity'],
+          message: `air at ${fmtKpa(resolved.pressure)} and ${Number((resolved.temperature - 273.15).toFixed(1))} °C cannot hold that much water: its vapour pressure would reach the air's pressure`,
+        });
       }
     }
   })
@@ -134,9 +162,13 @@ export const ambientSchema = z
   });
 
 const lambdaSchema = num('lambda').min(0.5, 'lambda must be at least 0.5').max(2, 'lambda must be at most 2');
-const boostSchema = num('boost').min(-200_000, 'boost is gauge pressure in Pa: at least −200 000 Pa').max(1_000_000, 'boost is gauge pressure in Pa: at most 1 000 000 Pa');
+const boostSchema = num('boost')
+  .min(-200_000, 'boost is gauge pressure in Pa: at least −200 000 Pa')
+  .max(1_000_000, 'boost is gauge pressure in Pa: at most 1 000 000 Pa');
 const inletLossSchema = num('inlet loss').min(0, 'inlet loss must be 0 Pa or more').max(50_000, 'inlet loss must be at most 50 000 Pa');
-const chargeCoolerLossSchema = num('charge-cooler loss').min(0, 'charge-cooler loss must be 0 Pa or more').max(100_000, 'charge-cooler loss must be at most 100 000 Pa');
+const chargeCoolerLossSchema = num('charge-cooler loss')
+  .min(0, 'charge-cooler loss must be 0 Pa or more')
+  .max(100_000, 'charge-cooler loss must be at most 100 000 Pa');
 const downstreamLossSchema = num('downstream loss').min(0, 'downstream loss must be 0 Pa or more').max(200_000, 'downstream loss is in Pa; at most 200 000 Pa');
 
 /**
@@ -158,14 +190,20 @@ export function pressureLossSchema(loss: z.ZodNumber, what: string, flow: 'air' 
     })
     .superRefine((l, ctx) => {
       if (l.referenceDensity !== undefined && l.referenceMassFlow === undefined)
-        ctx.addIssue({ code: 'custom', path: ['referenceDensity'], message: `${what} reference density applies only with the reference flow it was measured at` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['referenceDensity'],
+          message: `${what} reference density applies only with the reference flow it was measured at`,
+        });
     });
 }
 const inletLossInputSchema = pressureLossSchema(inletLossSchema, 'inlet loss', 'air');
 const chargeCoolerLossInputSchema = pressureLossSchema(chargeCoolerLossSchema, 'charge-cooler loss', 'air');
 /** The compute contract's loss: Pa at every flow (its first form), or a loss at a stated flow. */
 const computeLoss = (plain: z.ZodNumber, object: ReturnType<typeof pressureLossSchema>) =>
-  z.union([plain, object], { error: 'a loss is a number in Pa, or { pressureLoss, referenceMassFlow?, referenceDensity? }' }).transform((l): PressureLossInput => (typeof l === 'number' ? { pressureLoss: l } : l));
+  z
+    .union([plain, object], { error: 'a loss is a number in Pa, or { pressureLoss, referenceMassFlow?, referenceDensity? }' })
+    .transform((l): PressureLossInput => (typeof l === 'number' ? { pressureLoss: l } : l));
 const drivetrainLossSchema = num('drivetrain loss').min(0, 'drivetrain loss must be 0 or more').max(0.9, 'drivetrain loss is a fraction, at most 0.9');
 const bsfcSchema = num('bsfc').gt(0, 'bsfc must be above 0 kg/J').max(1e-6, 'bsfc is in kg/J (250 g/kWh = 6.94e-8 kg/J); at most 1e-6 kg/J');
 const ethanolPercentSchema = num('ethanol percent').min(0, 'ethanol percent must be 0 to 100').max(100, 'ethanol percent must be 0 to 100');
@@ -185,13 +223,31 @@ const ambientPressureOf = (a: AmbientInput | undefined): number | null => {
 /** The study's required margins and limits (each absent one takes its default, REQUIREMENT_DEFAULTS). */
 export const requirementsSchema = z
   .strictObject({
-    minSurgeMargin: num('minSurgeMargin').min(0, 'minSurgeMargin is a fraction, 0 or more').max(0.5, 'minSurgeMargin is a fraction (5 % = 0.05), at most 0.5').optional(),
-    minChokeMargin: num('minChokeMargin').min(0, 'minChokeMargin is a fraction, 0 or more').max(0.5, 'minChokeMargin is a fraction (5 % = 0.05), at most 0.5').optional(),
-    minSpeedMargin: num('minSpeedMargin').min(0, 'minSpeedMargin is a fraction, 0 or more').max(0.5, 'minSpeedMargin is a fraction (3 % = 0.03), at most 0.5').optional(),
+    minSurgeMargin: num('minSurgeMargin')
+      .min(0, 'minSurgeMargin is a fraction, 0 or more')
+      .max(0.5, 'minSurgeMargin is a fraction (5 % = 0.05), at most 0.5')
+      .optional(),
+    minChokeMargin: num('minChokeMargin')
+      .min(0, 'minChokeMargin is a fraction, 0 or more')
+      .max(0.5, 'minChokeMargin is a fraction (5 % = 0.05), at most 0.5')
+      .optional(),
+    minSpeedMargin: num('minSpeedMargin')
+      .min(0, 'minSpeedMargin is a fraction, 0 or more')
+      .max(0.5, 'minSpeedMargin is a fraction (3 % = 0.03), at most 0.5')
+      .optional(),
     maxCompressorOutletTemperature: temperature('maxCompressorOutletTemperature', 300, 700).optional(),
-    lambdaWarningUnderBoost: num('lambdaWarningUnderBoost').min(0.5, 'lambdaWarningUnderBoost must be at least 0.5').max(2, 'lambdaWarningUnderBoost must be at most 2').optional(),
-    lambdaLimitUnderBoost: num('lambdaLimitUnderBoost').min(0.5, 'lambdaLimitUnderBoost must be at least 0.5').max(2, 'lambdaLimitUnderBoost must be at most 2').optional(),
-    underBoostFrom: num('underBoostFrom').min(0, 'underBoostFrom is gauge pressure in Pa, 0 or more').max(500_000, 'underBoostFrom is gauge pressure in Pa (10 kPa = 10 000 Pa); at most 500 000 Pa').optional(),
+    lambdaWarningUnderBoost: num('lambdaWarningUnderBoost')
+      .min(0.5, 'lambdaWarningUnderBoost must be at least 0.5')
+      .max(2, 'lambdaWarningUnderBoost must be at most 2')
+      .optional(),
+    lambdaLimitUnderBoost: num('lambdaLimitUnderBoost')
+      .min(0.5, 'lambdaLimitUnderBoost must be at least 0.5')
+      .max(2, 'lambdaLimitUnderBoost must be at most 2')
+      .optional(),
+    underBoostFrom: num('underBoostFrom')
+      .min(0, 'underBoostFrom is gauge pressure in Pa, 0 or more')
+      .max(500_000, 'underBoostFrom is gauge pressure in Pa (10 kPa = 10 000 Pa); at most 500 000 Pa')
+      .optional(),
   })
   .superRefine((r, ctx) => {
     // Either one may be left to its default: compare what will apply.
@@ -217,13 +273,17 @@ export const computeFuelSchema = z
     drivetrainLoss: drivetrainLossSchema.optional(),
   })
   .superRefine((f, ctx) => {
-    if (f.kind === 'ethanol-blend' && f.ethanolPercent === undefined) ctx.addIssue({ code: 'custom', path: ['ethanolPercent'], message: 'ethanolPercent (0 to 100, by volume) is needed for an ethanol blend' });
-    if (f.kind !== 'ethanol-blend' && f.ethanolPercent !== undefined) ctx.addIssue({ code: 'custom', path: ['ethanolPercent'], message: 'ethanolPercent applies only to kind ethanol-blend' });
-    if (f.brakeThermalEfficiency !== undefined && f.bsfc !== undefined) ctx.addIssue({ code: 'custom', path: ['bsfc'], message: 'give brakeThermalEfficiency or bsfc, not both' });
+    if (f.kind === 'ethanol-blend' && f.ethanolPercent === undefined)
+      ctx.addIssue({ code: 'custom', path: ['ethanolPercent'], message: 'ethanolPercent (0 to 100, by volume) is needed for an ethanol blend' });
+    if (f.kind !== 'ethanol-blend' && f.ethanolPercent !== undefined)
+      ctx.addIssue({ code: 'custom', path: ['ethanolPercent'], message: 'ethanolPercent applies only to kind ethanol-blend' });
+    if (f.brakeThermalEfficiency !== undefined && f.bsfc !== undefined)
+      ctx.addIssue({ code: 'custom', path: ['bsfc'], message: 'give brakeThermalEfficiency or bsfc, not both' });
     if (f.bsfc !== undefined && isNum(f.bsfc)) {
       const choice: FuelChoice = f.kind === 'ethanol-blend' ? { kind: f.kind, ethanolPercent: f.ethanolPercent ?? 0 } : { kind: f.kind };
       const eta = 1 / (f.bsfc * fuelProperties(choice).lowerHeatingValue);
-      if (!(eta <= 1)) ctx.addIssue({ code: 'custom', path: ['bsfc'], message: 'bsfc is below what burning this fuel allows (brake thermal efficiency over 1)' });
+      if (!(eta <= 1))
+        ctx.addIssue({ code: 'custom', path: ['bsfc'], message: 'bsfc is below what burning this fuel allows (brake thermal efficiency over 1)' });
     }
   });
 
@@ -239,7 +299,12 @@ export const computeRequestSchema = z
   .strictObject({
     engine: z.strictObject({ displacement: displacementSchema, cylinders: cylindersSchema, strokes: strokesSchema }),
     ambient: ambientSchema,
-    losses: z.strictObject({ inlet: computeLoss(inletLossSchema, inletLossInputSchema), chargeCooler: computeLoss(chargeCoolerLossSchema, chargeCoolerLossInputSchema) }).optional(),
+    losses: z
+      .strictObject({
+        inlet: computeLoss(inletLossSchema, inletLossInputSchema),
+        chargeCooler: computeLoss(chargeCoolerLossSchema, chargeCoolerLossInputSchema),
+      })
+      .optional(),
     turbochargers: count('turbochargers', 8).optional(),
     mapReference: mapReferenceSchema.optional(),
     fuel: computeFuelSchema.optional(),
@@ -253,7 +318,8 @@ export const computeRequestSchema = z
     const pAmb = ambientPressureOf(req.ambient);
     if (pAmb === null) return;
     const inlet = req.losses?.inlet.pressureLoss ?? 0;
-    if (isNum(inlet) && pAmb - inlet <= 0) ctx.addIssue({ code: 'custom', path: ['losses', 'inlet'], message: `inlet loss leaves no pressure at the compressor inlet (ambient ${fmtKpa(pAmb)})` });
+    if (isNum(inlet) && pAmb - inlet <= 0)
+      ctx.addIssue({ code: 'custom', path: ['losses', 'inlet'], message: `inlet loss leaves no pressure at the compressor inlet (ambient ${fmtKpa(pAmb)})` });
     req.points.forEach((p, i) => {
       if (!isNum(p.boost)) return;
       const issue = manifoldPressureIssue(pAmb, p.boost);
@@ -318,10 +384,16 @@ export const rpmPointsSchema = z.discriminatedUnion(
         }),
     }),
     z
-      .strictObject({ kind: z.literal('range'), min: rpm('min'), max: rpm('max'), step: num('step').gt(0, 'step must be above 0 rpm').max(30_000, 'step must be at most 30 000 rpm') })
+      .strictObject({
+        kind: z.literal('range'),
+        min: rpm('min'),
+        max: rpm('max'),
+        step: num('step').gt(0, 'step must be above 0 rpm').max(30_000, 'step must be at most 30 000 rpm'),
+      })
       .superRefine((r, ctx) => {
         if (!(r.max >= r.min)) ctx.addIssue({ code: 'custom', path: ['max'], message: 'max must be at least min' });
-        else if (rpmPointCount(r) > MAX_RPM_POINTS) ctx.addIssue({ code: 'custom', path: ['step'], message: `the range gives more than ${MAX_RPM_POINTS} points; use a larger step` });
+        else if (rpmPointCount(r) > MAX_RPM_POINTS)
+          ctx.addIssue({ code: 'custom', path: ['step'], message: `the range gives more than ${MAX_RPM_POINTS} points; use a larger step` });
       }),
   ],
   { error: 'rpm kind must be list or range' },
@@ -329,7 +401,10 @@ export const rpmPointsSchema = z.discriminatedUnion(
 
 const engineLimitsSchema = z.strictObject({
   maxRpm: rpm('maxRpm').optional(),
-  maxManifoldPressure: num('maxManifoldPressure').gt(0, 'maxManifoldPressure is absolute, in Pa: above 0').max(2_000_000, 'maxManifoldPressure must be at most 2 000 000 Pa').optional(),
+  maxManifoldPressure: num('maxManifoldPressure')
+    .gt(0, 'maxManifoldPressure is absolute, in Pa: above 0')
+    .max(2_000_000, 'maxManifoldPressure must be at most 2 000 000 Pa')
+    .optional(),
   maxCompressorOutletTemperature: temperature('maxCompressorOutletTemperature', 250, 700).optional(),
 });
 
@@ -339,7 +414,10 @@ export const studyEngineSchema = z
     cylinders: cylindersSchema,
     strokes: strokesSchema,
     rpm: rpmPointsSchema,
-    volumetricEfficiency: rpmTableSchema(num('volumetric efficiency').gt(0, 'volumetric efficiency must be above 0').max(2, 'volumetric efficiency is a fraction, at most 2'), 'volumetric efficiency'),
+    volumetricEfficiency: rpmTableSchema(
+      num('volumetric efficiency').gt(0, 'volumetric efficiency must be above 0').max(2, 'volumetric efficiency is a fraction, at most 2'),
+      'volumetric efficiency',
+    ),
     trappingEfficiency: fraction('trapping efficiency').optional(),
     limits: engineLimitsSchema.optional(),
   })
@@ -367,10 +445,14 @@ const injectorSetShape = {
   deadTime: z
     .strictObject({
       time: num('dead time').min(0, 'dead time must be 0 s or more').max(0.005, 'dead time is in s (0.9 ms = 0.0009 s); at most 0.005 s'),
-      voltage: num('dead time voltage').min(6, 'dead time voltage is the battery voltage it was measured at, 6 to 30 V').max(30, 'dead time voltage is the battery voltage it was measured at, 6 to 30 V'),
+      voltage: num('dead time voltage')
+        .min(6, 'dead time voltage is the battery voltage it was measured at, 6 to 30 V')
+        .max(30, 'dead time voltage is the battery voltage it was measured at, 6 to 30 V'),
     })
     .optional(),
-  ratedFlow: num('rated flow').gt(0, 'rated flow must be above 0 m³/s').max(2e-4, 'rated flow is per injector in m³/s (1000 cc/min = 1.667e-5 m³/s); at most 2e-4'),
+  ratedFlow: num('rated flow')
+    .gt(0, 'rated flow must be above 0 m³/s')
+    .max(2e-4, 'rated flow is per injector in m³/s (1000 cc/min = 1.667e-5 m³/s); at most 2e-4'),
   ratedPressure: num('rated pressure')
     // Injectors are rated at a few hundred kPa (common practice, no source); far below is a slip of units, and a pressure near 0 Pa would scale the flow to infinity.
     .min(10_000, 'rated pressure is in Pa (3 bar = 300 000 Pa); at least 10 000 Pa')
@@ -388,13 +470,20 @@ export const fuelSystemSchema = z.strictObject({
   fuel: fuelChoiceSchema,
   lambda: rpmTableSchema(lambdaSchema, 'lambda'),
   injectors: injectorsSchema,
-  pumpFlowAvailable: num('pump flow').gt(0, 'pump flow must be above 0 m³/s').max(0.01, 'pump flow is in m³/s (255 L/h = 7.08e-5 m³/s); at most 0.01').optional(),
+  pumpFlowAvailable: num('pump flow')
+    .gt(0, 'pump flow must be above 0 m³/s')
+    .max(0.01, 'pump flow is in m³/s (255 L/h = 7.08e-5 m³/s); at most 0.01')
+    .optional(),
 });
 
 export const powerSchema = z.discriminatedUnion(
   'basis',
   [
-    z.strictObject({ basis: z.literal('brake-thermal-efficiency'), brakeThermalEfficiency: fraction('brake thermal efficiency'), drivetrainLoss: drivetrainLossSchema }),
+    z.strictObject({
+      basis: z.literal('brake-thermal-efficiency'),
+      brakeThermalEfficiency: fraction('brake thermal efficiency'),
+      drivetrainLoss: drivetrainLossSchema,
+    }),
     z.strictObject({ basis: z.literal('bsfc'), bsfc: bsfcSchema, drivetrainLoss: drivetrainLossSchema }),
   ],
   { error: 'power basis must be brake-thermal-efficiency or bsfc' },
@@ -403,7 +492,10 @@ export const powerSchema = z.discriminatedUnion(
 export const lossesSchema = z.strictObject({
   inlet: inletLossInputSchema,
   chargeCooler: chargeCoolerLossInputSchema,
-  inletTemperatureRise: num('inlet temperature rise').min(0, 'inlet temperature rise must be 0 K or more').max(100, 'inlet temperature rise must be at most 100 K').optional(),
+  inletTemperatureRise: num('inlet temperature rise')
+    .min(0, 'inlet temperature rise must be 0 K or more')
+    .max(100, 'inlet temperature rise must be at most 100 K')
+    .optional(),
 });
 
 export const intercoolerSchema = z.discriminatedUnion(
@@ -412,7 +504,9 @@ export const intercoolerSchema = z.discriminatedUnion(
     z.strictObject({ kind: z.literal('fixed'), manifoldTemperature: temperature('manifold temperature', 150, 600) }),
     z.strictObject({
       kind: z.literal('effectiveness'),
-      effectiveness: num('effectiveness').min(0, 'effectiveness is a fraction from 0 to 1').max(1, 'effectiveness is a fraction from 0 to 1 (not a percentage)'),
+      effectiveness: num('effectiveness')
+        .min(0, 'effectiveness is a fraction from 0 to 1')
+        .max(1, 'effectiveness is a fraction from 0 to 1 (not a percentage)'),
       coolantTemperature: temperature('coolant temperature').optional(),
     }),
   ],
@@ -434,7 +528,10 @@ export const boostRowSchema = z
 export const scenarioSchema = z.strictObject({
   name: name('scenario name'),
   ambient: ambientSchema,
-  boostSchedule: z.array(boostRowSchema).min(1, 'a scenario needs at least one boost schedule row').max(MAX_BOOST_ROWS, `at most ${MAX_BOOST_ROWS} boost schedule rows`),
+  boostSchedule: z
+    .array(boostRowSchema)
+    .min(1, 'a scenario needs at least one boost schedule row')
+    .max(MAX_BOOST_ROWS, `at most ${MAX_BOOST_ROWS} boost schedule rows`),
 });
 
 /** The wastegates of one turbocharger. */
@@ -454,7 +551,10 @@ export const exhaustSchema = z
     mechanicalEfficiency: fraction('mechanical efficiency'),
     turbineInletTemperature: rpmTableSchema(temperature('turbine inlet temperature', 400, 1500), 'turbine inlet temperature'),
     downstreamLoss: pressureLossSchema(downstreamLossSchema, 'downstream loss', 'exhaust'),
-    pulseFactor: num('pulse factor').gt(0, 'pulse factor multiplies turbine energy: above 0 (1.0 = no pulse gain)').max(2, 'pulse factor must be at most 2').optional(),
+    pulseFactor: num('pulse factor')
+      .gt(0, 'pulse factor multiplies turbine energy: above 0 (1.0 = no pulse gain)')
+      .max(2, 'pulse factor must be at most 2')
+      .optional(),
     turbineEfficiency: fraction('turbine efficiency').optional(),
   })
   .superRefine((e, ctx) => {
@@ -498,7 +598,11 @@ export const studyInputSchema = z
       const pAmb = ambientPressureOf(s.ambient);
       if (pAmb === null) return;
       if (isNum(inlet) && pAmb - inlet <= 0)
-        ctx.addIssue({ code: 'custom', path: ['losses', 'inlet', 'pressureLoss'], message: `inlet loss leaves no pressure at the compressor inlet in scenario "${s.name}" (ambient ${fmtKpa(pAmb)})` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['losses', 'inlet', 'pressureLoss'],
+          message: `inlet loss leaves no pressure at the compressor inlet in scenario "${s.name}" (ambient ${fmtKpa(pAmb)})`,
+        });
       s.boostSchedule.forEach((row, ri) =>
         row.boost.forEach((r, k) => {
           if (!isNum(r.value)) return;
@@ -509,12 +613,17 @@ export const studyInputSchema = z
     });
     if (study.power.basis === 'bsfc' && isNum(study.power.bsfc)) {
       const eta = 1 / (study.power.bsfc * fuelProperties(study.fuelSystem.fuel).lowerHeatingValue);
-      if (!(eta <= 1)) ctx.addIssue({ code: 'custom', path: ['power', 'bsfc'], message: 'bsfc is below what burning this fuel allows (brake thermal efficiency over 1)' });
+      if (!(eta <= 1))
+        ctx.addIssue({ code: 'custom', path: ['power', 'bsfc'], message: 'bsfc is below what burning this fuel allows (brake thermal efficiency over 1)' });
     }
     const rows = study.scenarios.reduce((n, s) => n + s.boostSchedule.length, 0);
     const total = rows * study.plans.length * rpmPointCount(study.engine.rpm);
     if (total > MAX_STUDY_POINTS)
-      ctx.addIssue({ code: 'custom', path: ['engine', 'rpm'], message: `the study would compute ${total} points; at most ${MAX_STUDY_POINTS} (fewer rpm points, rows or plans)` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['engine', 'rpm'],
+        message: `the study would compute ${total} points; at most ${MAX_STUDY_POINTS} (fewer rpm points, rows or plans)`,
+      });
   });
 
 /** A parsed study input is exactly what runStudy takes (checked by the compiler). */

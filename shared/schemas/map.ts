@@ -49,7 +49,10 @@ export type MapMetadataUpdate = z.infer<typeof mapMetadataUpdateSchema>;
 
 const positive = z.number().positive();
 const efficiency = z.number().gt(0, 'must be above 0').lte(1, 'must be at most 1 (a fraction)');
-const label = z.string().max(MAX_LABEL_LENGTH).refine((text) => !FORMULA_START.test(text), 'must not start with =, +, -, @ or a tab');
+const label = z
+  .string()
+  .max(MAX_LABEL_LENGTH)
+  .refine((text) => !FORMULA_START.test(text), 'must not start with =, +, -, @ or a tab');
 
 function unitText(kind: MapQuantity) {
   return z

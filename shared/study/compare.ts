@@ -328,7 +328,10 @@ function extremeOf(line: ComparableLine, value: (v: PointValues) => number | nul
 function countPoints(line: ComparableLine, severity: Severity): number {
   let n = 0;
   for (const point of line.points) {
-    const worst = point.findings.reduce<Severity | null>((w, f) => (w === 'limit' || f.severity === 'limit' ? 'limit' : w === 'warning' || f.severity === 'warning' ? 'warning' : 'info'), null);
+    const worst = point.findings.reduce<Severity | null>(
+      (w, f) => (w === 'limit' || f.severity === 'limit' ? 'limit' : w === 'warning' || f.severity === 'warning' ? 'warning' : 'info'),
+      null,
+    );
     if (worst === severity) n++;
   }
   return n;
@@ -405,7 +408,15 @@ export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
       lines.map((line) => extremeOf(line, spec.value, spec.extreme, spec.margin === true)),
       lines,
     );
-    rows.push({ key: spec.key, label: spec.label, kind: spec.kind, best: spec.best, bestMeaning: spec.bestMeaning, cells, bestIndices: bestIndicesOf(cells, spec.best) });
+    rows.push({
+      key: spec.key,
+      label: spec.label,
+      kind: spec.kind,
+      best: spec.best,
+      bestMeaning: spec.bestMeaning,
+      cells,
+      bestIndices: bestIndicesOf(cells, spec.best),
+    });
     if (spec.key === 'peakBrakePower') {
       // Where the peak comes matters as much as its size, but neither end is "better" by itself.
       const rpmCells = cells.map((c) => ({ value: c.rpm, rpm: c.rpm }));
@@ -428,7 +439,15 @@ export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
       lines.map((line) => ({ value: countPoints(line, spec.severity), rpm: null })),
       lines,
     );
-    rows.push({ key: spec.key, label: spec.label, kind: 'count', best: 'lowest', bestMeaning: spec.bestMeaning, cells, bestIndices: bestIndicesOf(cells, 'lowest') });
+    rows.push({
+      key: spec.key,
+      label: spec.label,
+      kind: 'count',
+      best: 'lowest',
+      bestMeaning: spec.bestMeaning,
+      cells,
+      bestIndices: bestIndicesOf(cells, 'lowest'),
+    });
   }
   return rows;
 }

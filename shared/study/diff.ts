@@ -301,13 +301,7 @@ interface Walk {
 
 function push(walk: Walk, labels: string[], keys: Key[], change: DocumentChange['change'], before: Json, after: Json) {
   const value = before ?? after;
-  const kind = Array.isArray(value)
-    ? value.every((x) => typeof x === 'number')
-      ? kindOfPath([...keys, 0])
-      : null
-    : isObject(value)
-      ? null
-      : kindOfPath(keys);
+  const kind = Array.isArray(value) ? (value.every((x) => typeof x === 'number') ? kindOfPath([...keys, 0]) : null) : isObject(value) ? null : kindOfPath(keys);
   walk.out.push({ path: labels.join(' › '), keys, change, before, after, kind });
 }
 

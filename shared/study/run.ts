@@ -27,7 +27,11 @@ function cached<M extends object, T>(cache: WeakMap<M, T> | undefined, map: M, b
 }
 
 /** The compressor model of each plan, from the maps its plan names (null: no map, or not loaded). */
-export function planCompressorModels(doc: StudyDocument, mapsById: Record<string, SpoolbookMap | undefined>, cache?: MapModelCache): (CompressorModel | null)[] {
+export function planCompressorModels(
+  doc: StudyDocument,
+  mapsById: Record<string, SpoolbookMap | undefined>,
+  cache?: MapModelCache,
+): (CompressorModel | null)[] {
   return doc.plans.map((plan) => {
     const map = plan.compressorMapId ? mapsById[plan.compressorMapId] : undefined;
     return map && map.kind === 'compressor' ? cached(cache?.compressor, map, (m) => compressorModelFromMap(m)) : null;

@@ -165,10 +165,18 @@ function header(state: TraceState, calibration: CalibrationResult): Array<[strin
     const c = state.compressor;
     entries.push([HEADER_KEYS.flow, `${c.flowAxis === 'volume' ? 'volume' : 'corrected mass'}, ${safeHeaderText(c.flowUnit)}`, 'flowUnit']);
     if (c.referenceTemperature.value !== null) {
-      entries.push([HEADER_KEYS.referenceTemperature, `${numberText(c.referenceTemperature.value)} ${safeHeaderText(c.referenceTemperature.unit)}`, 'referenceTemperature']);
+      entries.push([
+        HEADER_KEYS.referenceTemperature,
+        `${numberText(c.referenceTemperature.value)} ${safeHeaderText(c.referenceTemperature.unit)}`,
+        'referenceTemperature',
+      ]);
     }
     if (c.referencePressure.value !== null) {
-      entries.push([HEADER_KEYS.referencePressure, `${numberText(c.referencePressure.value)} ${safeHeaderText(c.referencePressure.unit)}`, 'referencePressure']);
+      entries.push([
+        HEADER_KEYS.referencePressure,
+        `${numberText(c.referencePressure.value)} ${safeHeaderText(c.referencePressure.unit)}`,
+        'referencePressure',
+      ]);
     }
     entries.push([HEADER_KEYS.efficiency, state.efficiency, 'efficiency']);
     if (c.maxSpeed !== null) entries.push([HEADER_KEYS.maxSpeed, `${numberText(c.maxSpeed)} ${state.speedUnit}`, 'maxSpeed']);
@@ -277,19 +285,30 @@ function fileProblem(problem: MapProblem, written: Written, state: TraceState, l
       const along = line ? line.points.findIndex((p) => p.index === origin.pointIndex) + 1 : 0;
       // Cell problems are at one point; the others (too few points, a repeated label) are the line's.
       const where = along > 0 && problem.column !== null ? `, point ${along} along the line` : '';
-      return { ...base, area: 'lines', curveId: origin.curveId, pointIndex: origin.pointIndex, message: `${line?.title ?? 'A line'}${where}: ${problem.message}` };
+      return {
+        ...base,
+        area: 'lines',
+        curveId: origin.curveId,
+        pointIndex: origin.pointIndex,
+        message: `${line?.title ?? 'A line'}${where}: ${problem.message}`,
+      };
     }
     return { ...base, area: 'file', message: `Line ${problem.line} of the file: ${problem.message}` };
   }
   if (problem.code === 'missing-key') {
     const key = /header key "([^"]+)"/.exec(problem.message)?.[1] ?? '';
     const field = KEY_FIELDS[key] ?? null;
-    if (field) return { ...base, area: 'map', field, message: `${SETTING_LABELS[field]}: type it (the map gives it, usually near the title or the axis labels)` };
+    if (field)
+      return { ...base, area: 'map', field, message: `${SETTING_LABELS[field]}: type it (the map gives it, usually near the title or the axis labels)` };
   }
   if (problem.code === 'no-data-rows') {
     // Before the calibration fits, nothing can be written; the calibration's problems say why.
     if (!calibrated) return null;
-    return { ...base, area: 'lines', message: state.curves.length === 0 ? 'Nothing traced yet: add a line and click along it in the picture' : 'No line has any points yet' };
+    return {
+      ...base,
+      area: 'lines',
+      message: state.curves.length === 0 ? 'Nothing traced yet: add a line and click along it in the picture' : 'No line has any points yet',
+    };
   }
   if (problem.code === 'missing-curve') return { ...base, area: 'lines', message: capitalise(problem.message) };
   return { ...base, area: 'file', message: capitalise(problem.message) };
@@ -323,7 +342,12 @@ export function buildTrace(state: TraceState): TraceBuild {
   }
   for (const curve of state.curves) {
     if (curve.points.length === 0) {
-      problems.push({ ...none, area: 'lines', curveId: curve.id, message: `${curveTitle(curve, state)} has no points yet: choose it and click along the line in the picture` });
+      problems.push({
+        ...none,
+        area: 'lines',
+        curveId: curve.id,
+        message: `${curveTitle(curve, state)} has no points yet: choose it and click along the line in the picture`,
+      });
     }
   }
   if (!result.ok || headerCheck.length > 0) {
@@ -367,7 +391,9 @@ function headerOnlyProblems(state: TraceState, written: Written): MapProblem[] {
   const checked = parseMapFile(`${written.text}${sampleBody(state)}\n`);
   if (checked.ok) return [];
   const headerEnd = Math.max(0, ...written.headerFields.keys());
-  return checked.problems.filter((p) => (p.line !== null && p.line <= headerEnd) || (p.line === null && p.code !== 'missing-curve' && p.code !== 'too-many-problems'));
+  return checked.problems.filter(
+    (p) => (p.line !== null && p.line <= headerEnd) || (p.line === null && p.code !== 'missing-curve' && p.code !== 'too-many-problems'),
+  );
 }
 
 /** A file name for the built map: letters, digits and dashes from its name. */

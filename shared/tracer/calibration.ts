@@ -70,7 +70,10 @@ export function calibrate(points: readonly ReferencePoint[], scales: AxisScales)
   });
   if (problems.length > 0) return { ok: false, problems };
   if (pairs.length < MIN_REFERENCE_POINTS) {
-    return { ok: false, problems: [{ index: null, message: `place at least ${MIN_REFERENCE_POINTS} reference points (${pairs.length} so far): two on each axis is usual` }] };
+    return {
+      ok: false,
+      problems: [{ index: null, message: `place at least ${MIN_REFERENCE_POINTS} reference points (${pairs.length} so far): two on each axis is usual` }],
+    };
   }
   const result = fitAffine(pairs);
   if (!result.ok) {
@@ -82,7 +85,10 @@ export function calibrate(points: readonly ReferencePoint[], scales: AxisScales)
   }
   const fromPixel = invertAffine(result.fit.transform);
   if (fromPixel === null) {
-    return { ok: false, problems: [{ index: null, message: 'the clicks lie on one line in the picture, so they cannot place both axes: click points on both axes' }] };
+    return {
+      ok: false,
+      problems: [{ index: null, message: 'the clicks lie on one line in the picture, so they cannot place both axes: click points on both axes' }],
+    };
   }
   const { transform, residuals, rmsResidual, maxResidual, degreesOfFreedom } = result.fit;
   return { ok: true, calibration: { scales, toPixel: transform, fromPixel, residuals, rmsResidual, maxResidual, degreesOfFreedom } };
@@ -140,7 +146,10 @@ export interface AxesCrossing {
  * the vertical value is the crossing's `y`, and likewise for the vertical axis. Clicks not placed
  * yet are left out; a placed click without the values it needs is a problem naming it.
  */
-export function referencePoints(clicks: readonly ReferenceClick[], crossing: AxesCrossing): { points: ReferencePoint[]; indexes: number[]; problems: CalibrationProblem[] } {
+export function referencePoints(
+  clicks: readonly ReferenceClick[],
+  crossing: AxesCrossing,
+): { points: ReferencePoint[]; indexes: number[]; problems: CalibrationProblem[] } {
   const points: ReferencePoint[] = [];
   const indexes: number[] = [];
   const problems: CalibrationProblem[] = [];

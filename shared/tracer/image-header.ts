@@ -19,8 +19,7 @@ export type ImageContentType = (typeof IMAGE_CONTENT_TYPES)[number];
 export type ImageProblemCode = 'empty' | 'too-large' | 'not-an-image' | 'unsupported-image' | 'unreadable-header' | 'too-many-pixels';
 
 export type ImageCheck =
-  | { ok: true; contentType: ImageContentType; extension: 'png' | 'jpg'; width: number; height: number }
-  | { ok: false; code: ImageProblemCode; message: string };
+  { ok: true; contentType: ImageContentType; extension: 'png' | 'jpg'; width: number; height: number } | { ok: false; code: ImageProblemCode; message: string };
 
 const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
 
@@ -54,7 +53,10 @@ function otherKind(bytes: Uint8Array): string | null {
   if (ascii(bytes, 4, 4) === 'ftyp') return /heic|heix|mif1|avif/.test(ascii(bytes, 8, 4)) ? 'a HEIC or AVIF picture' : 'a video or ISO media file';
   if (head.startsWith('%PDF')) return 'a PDF document';
   if (startsWith(bytes, [0x50, 0x4b, 0x03, 0x04])) return 'a zip archive (or an office document)';
-  const text = ascii(bytes, 0, 256).replace(/^\uFEFF|^\xEF\xBB\xBF/, '').trimStart().toLowerCase();
+  const text = ascii(bytes, 0, 256)
+    .replace(/^\uFEFF|^\xEF\xBB\xBF/, '')
+    .trimStart()
+    .toLowerCase();
   if (text.startsWith('<svg') || (text.startsWith('<?xml') && text.includes('<svg'))) return 'an SVG drawing';
   return null;
 }
@@ -67,7 +69,11 @@ function refuse(code: ImageProblemCode, message: string): ImageCheck {
 
 function checkSize(type: ImageContentType, width: number, height: number): ImageCheck {
   const extension = type === 'image/png' ? 'png' : 'jpg';
-  if (width <= 0 || height <= 0) return refuse('unreadable-header', `The ${extension.toUpperCase()} header gives a size of ${width} × ${height} pixels, which no picture has. The file may be damaged.`);
+  if (width <= 0 || height <= 0)
+    return refuse(
+      'unreadable-header',
+      `The ${extension.toUpperCase()} header gives a size of ${width} × ${height} pixels, which no picture has. The file may be damaged.`,
+    );
   if (width > MAX_IMAGE_SIDE || height > MAX_IMAGE_SIDE || width * height > MAX_IMAGE_PIXELS) {
     const megapixels = ((width * height) / 1e6).toFixed(1);
     return refuse(
@@ -92,7 +98,10 @@ function isStartOfFrame(marker: number): boolean {
 }
 
 function readJpeg(bytes: Uint8Array): ImageCheck {
-  const damaged = refuse('unreadable-header', 'The file starts like a JPEG picture but its size could not be read from it (no frame header before the image data). Export the picture again.');
+  const damaged = refuse(
+    'unreadable-header',
+    'The file starts like a JPEG picture but its size could not be read from it (no frame header before the image data). Export the picture again.',
+  );
   let at = 2;
   while (at < bytes.length) {
     if (bytes[at] !== 0xff) return damaged;
@@ -119,9 +128,13 @@ function readJpeg(bytes: Uint8Array): ImageCheck {
  * a header that cannot be read, or more pixels than the Tracer takes. Messages are for people.
  */
 export function checkImage(bytes: Uint8Array): ImageCheck {
-  if (bytes.length === 0) return refuse('empty', 'The file is empty (0 bytes). Choose the picture again; if it came from a download, it may not have finished.');
+  if (bytes.length === 0)
+    return refuse('empty', 'The file is empty (0 bytes). Choose the picture again; if it came from a download, it may not have finished.');
   if (bytes.length > MAX_IMAGE_BYTES) {
-    return refuse('too-large', `The picture is ${(bytes.length / 1024 / 1024).toFixed(1)} MB; the limit is ${MAX_IMAGE_BYTES / 1024 / 1024} MB. Save it at a smaller size or as a JPEG and choose it again.`);
+    return refuse(
+      'too-large',
+      `The picture is ${(bytes.length / 1024 / 1024).toFixed(1)} MB; the limit is ${MAX_IMAGE_BYTES / 1024 / 1024} MB. Save it at a smaller size or as a JPEG and choose it again.`,
+    );
   }
   if (startsWith(bytes, PNG_SIGNATURE)) return readPng(bytes);
   if (startsWith(bytes, [0xff, 0xd8, 0xff])) return readJpeg(bytes);

@@ -28,13 +28,7 @@ export interface ButtonProps extends ComponentProps<'button'> {
 
 export function Button({ variant = 'secondary', pending = false, disabled, className = '', children, type = 'button', ...rest }: ButtonProps) {
   return (
-    <button
-      type={type}
-      className={buttonClass(variant, className)}
-      disabled={disabled || pending}
-      aria-busy={pending || undefined}
-      {...rest}
-    >
+    <button type={type} className={buttonClass(variant, className)} disabled={disabled || pending} aria-busy={pending || undefined} {...rest}>
       {pending && <Spinner />}
       {children}
     </button>

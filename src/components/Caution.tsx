@@ -12,10 +12,7 @@ export const hazardText =
 
 export function Caution({ className = '' }: { className?: string }) {
   return (
-    <aside
-      aria-label="Safety caution"
-      className={`rounded-md border-l-4 border-copper bg-copper-light/40 px-4 py-3 text-sm text-ink-soft ${className}`}
-    >
+    <aside aria-label="Safety caution" className={`rounded-md border-l-4 border-copper bg-copper-light/40 px-4 py-3 text-sm text-ink-soft ${className}`}>
       <p>
         <strong className="font-semibold text-ink">Caution. </strong>
         {cautionText}

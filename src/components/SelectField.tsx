@@ -18,14 +18,7 @@ export function SelectField({ label, name, options, error, hideLabel = false, cl
       <label htmlFor={id} className={hideLabel ? 'sr-only' : 'block text-sm font-semibold text-ink'}>
         {label}
       </label>
-      <select
-        id={id}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={errorId}
-        className={`${inputClass} pr-8`}
-        {...rest}
-      >
+      <select id={id} name={name} aria-invalid={error ? true : undefined} aria-describedby={errorId} className={`${inputClass} pr-8`} {...rest}>
         {options.map((option) => (
           <option key={option.value} value={option.value}>
             {option.label}

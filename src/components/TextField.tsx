@@ -23,15 +23,7 @@ export function TextField({ label, name, error, hint, className = '', type = 'te
       <label htmlFor={id} className="block text-sm font-semibold text-ink">
         {label}
       </label>
-      <input
-        id={id}
-        name={name}
-        type={type}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy}
-        className={inputClass}
-        {...rest}
-      />
+      <input id={id} name={name} type={type} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={inputClass} {...rest} />
       {error && <FieldError id={errorId!}>{error}</FieldError>}
       {hint && (
         <p id={hintId} className="text-sm text-ink-soft">

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { apiErrorSchema, fieldIssuesSchema } from '../../shared/schemas/common';
+import { apiErrorSchema, fieldIssuesSchema } from '#shared/schemas/common';
 
 /**
  * An API failure as the client sees it: the HTTP status (0 when the server could not be

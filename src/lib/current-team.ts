@@ -1,6 +1,6 @@
 import { useEffect, useSyncExternalStore } from 'react';
 import { useParams } from 'react-router';
-import type { TeamSummary } from '../../shared/schemas/account';
+import type { TeamSummary } from '#shared/schemas/account';
 import { useMe } from './session';
 
 /** Where the last team the user worked in is remembered between visits. */

@@ -36,7 +36,10 @@ export const paths = {
   },
   /** The Tracer: turn a picture of a map into a map file; and one trace in progress. */
   teamTracer: { path: '/teams/:teamId/tracer', href: (teamId: string) => `/teams/${encodeURIComponent(teamId)}/tracer` },
-  teamTracerDraft: { path: '/teams/:teamId/tracer/:draftId', href: (teamId: string, draftId: string) => `/teams/${encodeURIComponent(teamId)}/tracer/${encodeURIComponent(draftId)}` },
+  teamTracerDraft: {
+    path: '/teams/:teamId/tracer/:draftId',
+    href: (teamId: string, draftId: string) => `/teams/${encodeURIComponent(teamId)}/tracer/${encodeURIComponent(draftId)}`,
+  },
   teamStudy: {
     path: '/teams/:teamId/studies/:studyId',
     href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}`,

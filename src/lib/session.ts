@@ -1,5 +1,5 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
-import { meSchema, type Me } from '../../shared/schemas/account';
+import { meSchema, type Me } from '#shared/schemas/account';
 import { api, isApiError, onTwoFactorRequired, onUnauthorized } from './api-client';
 
 /**

@@ -1,5 +1,5 @@
 import { useSyncExternalStore } from 'react';
-import type { Me, TeamSummary } from '../../shared/schemas/account';
+import type { Me, TeamSummary } from '#shared/schemas/account';
 import { useMe } from './session';
 
 /** The user's teams that ask for a second factor they have not turned on (their data is closed to them). */

@@ -1,5 +1,5 @@
-import type { UnitSystem } from '../../shared/schemas/account';
-import type { QuantityKind } from '../../shared/units';
+import type { UnitSystem } from '#shared/schemas/account';
+import type { QuantityKind } from '#shared/units';
 import { useMe } from './session';
 
 export type { UnitSystem };

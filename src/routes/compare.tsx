@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
-import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '../../shared/schemas/study';
+import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
 import { Alert } from '../components/Alert';
 import { buttonClass } from '../components/Button';
 import { Loading, Page } from '../components/Page';

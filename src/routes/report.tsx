@@ -1,8 +1,8 @@
 import '../styles/print.css';
 import { useMemo } from 'react';
 import { useParams } from 'react-router';
-import type { StudyDocument } from '../../shared/schemas/study';
-import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
+import type { StudyDocument } from '#shared/schemas/study';
+import { migrateStudyDocument, studyDocumentSchema } from '#shared/schemas/study';
 import { Alert } from '../components/Alert';
 import { Loading, Page } from '../components/Page';
 import { studyMapIds } from '../components/study/run';
@@ -37,7 +37,9 @@ export function ReportRoute() {
     return (
       <main className="px-4 py-10">
         <Page title="The report could not be made" width="narrow">
-          <Alert tone="error">{study.error ? study.error.message : parsed && !parsed.ok ? `The saved study does not read: ${parsed.message}` : 'No study.'}</Alert>
+          <Alert tone="error">
+            {study.error ? study.error.message : parsed && !parsed.ok ? `The saved study does not read: ${parsed.message}` : 'No study.'}
+          </Alert>
         </Page>
       </main>
     );

@@ -7,11 +7,7 @@ import { paths } from '../lib/paths';
 /** What the router shows when a page throws or the start-up check of the session fails. */
 export function RouteError() {
   const error = useRouteError();
-  const message = isRouteErrorResponse(error)
-    ? `${error.status} ${error.statusText}`
-    : error instanceof Error
-      ? error.message
-      : 'Something went wrong.';
+  const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : error instanceof Error ? error.message : 'Something went wrong.';
   return (
     <main id="main" className="px-4 py-12">
       <Page title="Something went wrong" width="narrow">

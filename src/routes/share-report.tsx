@@ -32,12 +32,6 @@ export function ShareReportRoute() {
     );
   }
   return (
-    <StudyReport
-      data={shared.data}
-      system={system}
-      backHref={paths.share.href(token)}
-      backLabel="Back to the shared study"
-      source="A read-only share link"
-    />
+    <StudyReport data={shared.data} system={system} backHref={paths.share.href(token)} backLabel="Back to the shared study" source="A read-only share link" />
   );
 }

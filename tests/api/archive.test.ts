@@ -2,7 +2,7 @@ import { count, eq } from 'drizzle-orm';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { maps, studies, teamMembers } from '../../server/db/schema';
+import { maps, studies, teamMembers } from '#server/db/schema';
 import { ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
@@ -52,7 +52,10 @@ async function populatedTeam() {
 }
 
 /** An archive without ids and timestamps of export, with map references replaced by map names. */
-function meaning(archive: { maps: { id: string; name: string; [k: string]: unknown }[]; studies: { revisions: { document: { plans: { compressorMapId: string | null }[] } }[]; [k: string]: unknown }[] }) {
+function meaning(archive: {
+  maps: { id: string; name: string; [k: string]: unknown }[];
+  studies: { revisions: { document: { plans: { compressorMapId: string | null }[] } }[]; [k: string]: unknown }[];
+}) {
   const names = new Map(archive.maps.map((m) => [m.id, m.name]));
   return {
     maps: archive.maps.map(({ id: _id, ...m }) => m),
@@ -60,7 +63,10 @@ function meaning(archive: { maps: { id: string; name: string; [k: string]: unkno
       ...s,
       revisions: s.revisions.map((r) => ({
         ...r,
-        document: { ...r.document, plans: r.document.plans.map((p) => ({ ...p, compressorMapId: p.compressorMapId ? names.get(p.compressorMapId) ?? p.compressorMapId : null })) },
+        document: {
+          ...r.document,
+          plans: r.document.plans.map((p) => ({ ...p, compressorMapId: p.compressorMapId ? (names.get(p.compressorMapId) ?? p.compressorMapId) : null })),
+        },
       })),
     })),
   };
@@ -115,7 +121,31 @@ describe('team export and import', () => {
     const wrong = await importArchive(owner.c, owner.personalTeamId, JSON.stringify({ format: 'something else' }));
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.details.problems[0].item).toBe('archive');
-    const missingMap = { format: 'spoolbook-team-archive', version: 1, exportedAt: new Date().toISOString(), team: { name: 'x' }, maps: [], studies: [{ id: 's', title: 'Orphan', archived: false, createdAt: new Date().toISOString(), revisions: [{ revision: 1, title: 'Orphan', message: '', author: null, createdAt: new Date().toISOString(), document: { ...demo, plans: [{ ...demo.plans[0], compressorMapId: 'gone' }] } }] }] };
+    const missingMap = {
+      format: 'spoolbook-team-archive',
+      version: 1,
+      exportedAt: new Date().toISOString(),
+      team: { name: 'x' },
+      maps: [],
+      studies: [
+        {
+          id: 's',
+          title: 'Orphan',
+          archived: false,
+          createdAt: new Date().toISOString(),
+          revisions: [
+            {
+              revision: 1,
+              title: 'Orphan',
+              message: '',
+              author: null,
+              createdAt: new Date().toISOString(),
+              document: { ...demo, plans: [{ ...demo.plans[0], compressorMapId: 'gone' }] },
+            },
+          ],
+        },
+      ],
+    };
     const orphan = await importArchive(owner.c, owner.personalTeamId, JSON.stringify(missingMap));
     expect(orphan.status).toBe(400);
     expect(orphan.body.error.details.problems[0].message).toMatch(/compressorMapId: names map gone/);

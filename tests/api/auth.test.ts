@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { passwordResets, sessions, users } from '../../server/db/schema';
+import { passwordResets, sessions, users } from '#server/db/schema';
 import { client, expectErrorShape, latestMailTo, linkIn, PASSWORD, signedUp, startTestApp, uniqueEmail, type TestApp } from './helpers';
 
 let t: TestApp;
@@ -147,7 +147,10 @@ describe('password reset through the e-mailed link', () => {
     const { email, user } = await signedUp(t, 'expired');
     await client(t).post('/api/auth/password-reset', { email });
     const token = new URL(linkIn((await latestMailTo(t, email)).text, '/reset-password?token=')).searchParams.get('token')!;
-    await t.database.db.update(passwordResets).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(passwordResets.userId, user.id));
+    await t.database.db
+      .update(passwordResets)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(passwordResets.userId, user.id));
     const res = await client(t).post('/api/auth/password-reset/confirm', { token, password: 'a brand new password' });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_token');

@@ -28,7 +28,11 @@ describe('bad input never gets a 500', () => {
   it('an oversized body answers 413', async () => {
     const { c } = await signedUp(t, 'oversized');
     // The JSON body limit is 1 MB (server/app.ts).
-    const res = await c.agent.post('/api/teams').set('Origin', ORIGIN).set('Content-Type', 'application/json').send(JSON.stringify({ name: 'x'.repeat(1_100_000) }));
+    const res = await c.agent
+      .post('/api/teams')
+      .set('Origin', ORIGIN)
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ name: 'x'.repeat(1_100_000) }));
     expect(res.status).toBe(413);
     expectErrorShape(res.body);
   });

@@ -2,12 +2,12 @@ import { randomUUID } from 'node:crypto';
 import express from 'express';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
-import type { AppDeps } from '../../server/app';
-import { connectDatabase } from '../../server/db/client';
-import { errorHandler } from '../../server/http/errors';
-import { computeRouter } from '../../server/routes/compute';
-import { createLimits, defaultLimitSettings } from '../../server/services/limits';
-import { computeResponseSchema, MAX_COMPUTE_POINTS } from '../../shared/schemas/compute';
+import type { AppDeps } from '#server/app';
+import { connectDatabase } from '#server/db/client';
+import { errorHandler } from '#server/http/errors';
+import { computeRouter } from '#server/routes/compute';
+import { createLimits, defaultLimitSettings } from '#server/services/limits';
+import { computeResponseSchema, MAX_COMPUTE_POINTS } from '#shared/schemas/compute';
 import { expectClose } from '../unit/physics/expect-close';
 
 // The limit is counted in PostgreSQL (the test database); each app counts under its own namespace.
@@ -18,7 +18,11 @@ function appWith(options: { rateLimitPerMinute?: number } = {}) {
   const logged: unknown[] = [];
   const app = express();
   app.use(express.json({ limit: '1mb' }));
-  const limits = createLimits(database.pool, { ...defaultLimitSettings(10), computePerMinute: options.rateLimitPerMinute ?? 300 }, `compute-test-${randomUUID()}:`);
+  const limits = createLimits(
+    database.pool,
+    { ...defaultLimitSettings(10), computePerMinute: options.rateLimitPerMinute ?? 300 },
+    `compute-test-${randomUUID()}:`,
+  );
   app.use('/api/compute', computeRouter({ limits } as AppDeps));
   app.use(errorHandler({ error: (obj: unknown) => void logged.push(obj) }));
   return { app, logged };
@@ -109,7 +113,11 @@ describe('POST /api/compute', () => {
   it('takes brake power from the fuel when lean: λ 1.2 and 2.0 give less than λ 0.8, as 1/λ', async () => {
     const { app } = appWith();
     const at = async (lambda: number) =>
-      (await request(app).post('/api/compute').send({ ...body, fuel: { kind: 'petrol', lambda, brakeThermalEfficiency: 0.3 } })).body.points[0];
+      (
+        await request(app)
+          .post('/api/compute')
+          .send({ ...body, fuel: { kind: 'petrol', lambda, brakeThermalEfficiency: 0.3 } })
+      ).body.points[0];
     const rich = await at(0.8);
     // P = η_b·LHV·min(ṁ_fuel, ṁ_air/AFR_s) (Heywood 1988, eq. 2.23 with the fuel that burns): lean, P ∝ ṁ_fuel ∝ 1/λ.
     expectClose((await at(1.2)).brakePower, rich.brakePower / 1.2, 1e-9);
@@ -128,7 +136,9 @@ describe('POST /api/compute', () => {
   for (const [what, ambient, path, message] of slips) {
     it(`refuses ${what}, naming ${path} and the likely slip`, async () => {
       const { app } = appWith();
-      const res = await request(app).post('/api/compute').send({ ...body, ambient });
+      const res = await request(app)
+        .post('/api/compute')
+        .send({ ...body, ambient });
       expect(res.status).toBe(400);
       const issue = res.body.error.details.issues.find((i: { path: string }) => i.path === path);
       expect(issue?.message).toMatch(message); // 20–120 kPa, 200–340 K: what the atmosphere allows (ISO 2533 ISA to 11 km; from memory for weather)

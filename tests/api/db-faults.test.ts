@@ -11,8 +11,8 @@ import path from 'node:path';
 import pino from 'pino';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadConfig } from '../../server/config';
-import { startServer, type RunningServer } from '../../server/index';
+import { loadConfig } from '#server/config';
+import { startServer, type RunningServer } from '#server/index';
 import { expectErrorShape, ORIGIN, PASSWORD, uniqueEmail } from './helpers';
 import { createPrivateCluster, freePort, type PrivateCluster } from './private-cluster';
 
@@ -44,7 +44,10 @@ async function call(base: string, method: string, url: string, { body, cookie }:
 }
 
 function cookieOf(res: Answer): string {
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  return res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 }
 
 /** Retries `attempt` every 200 ms until it answers true; returns how long that took, ms. */
@@ -82,9 +85,23 @@ function changed(displacement: number) {
 
 beforeAll(async () => {
   pc = await createPrivateCluster();
-  const config = loadConfig({ DATABASE_URL: pc.url, PORT: '0', HOST: '127.0.0.1', PUBLIC_URL: ORIGIN, FAKE_SMTP_PORT: '0', LOG_LEVEL: 'silent', NODE_ENV: 'test' });
+  const config = loadConfig({
+    DATABASE_URL: pc.url,
+    PORT: '0',
+    HOST: '127.0.0.1',
+    PUBLIC_URL: ORIGIN,
+    FAKE_SMTP_PORT: '0',
+    LOG_LEVEL: 'silent',
+    NODE_ENV: 'test',
+  });
   // FAULTS_LOG=<file> keeps the server's log there, for looking into a failure.
-  server = await startServer({ ...config, authRateLimit: 1000 }, { handleSignals: false, logger: process.env.FAULTS_LOG ? pino({ level: 'info' }, pino.destination({ dest: process.env.FAULTS_LOG, sync: true })) : pino({ level: 'silent' }) });
+  server = await startServer(
+    { ...config, authRateLimit: 1000 },
+    {
+      handleSignals: false,
+      logger: process.env.FAULTS_LOG ? pino({ level: 'info' }, pino.destination({ dest: process.env.FAULTS_LOG, sync: true })) : pino({ level: 'silent' }),
+    },
+  );
   base = server.address;
   const signUp = await call(base, 'POST', '/api/auth/sign-up', { body: { email: uniqueEmail('faults'), password: PASSWORD, name: 'Fault Finder' } });
   if (signUp.status !== 201) throw new Error(`sign-up: ${signUp.status} ${JSON.stringify(signUp.body)}`);
@@ -117,7 +134,10 @@ describe.each(['fast', 'immediate'] as const)('PostgreSQL stopped (%s mode) whil
       expect(read.body.error.code).toBe('unavailable');
       expect(read.headers.get('retry-after')).toBe('5'); // server/http/errors.ts: the retry hint, in seconds
 
-      const save = await call(base, 'PUT', `/api/teams/${teamId}/studies/${study.id}`, { cookie, body: { baseRevision: study.revision, document: changed(0.0021) } });
+      const save = await call(base, 'PUT', `/api/teams/${teamId}/studies/${study.id}`, {
+        cookie,
+        body: { baseRevision: study.revision, document: changed(0.0021) },
+      });
       expect(save.status).toBe(503);
       expectErrorShape(save.body);
       expect(save.headers.get('retry-after')).toBe('5');
@@ -148,7 +168,10 @@ describe.each(['fast', 'immediate'] as const)('PostgreSQL stopped (%s mode) whil
     const health = await call(base, 'GET', '/api/health');
     expect(health.status).toBe(200);
     expect(health.body.database).toBe('up');
-    const save = await call(base, 'PUT', `/api/teams/${teamId}/studies/${study.id}`, { cookie, body: { baseRevision: study.revision, document: changed(0.0021) } });
+    const save = await call(base, 'PUT', `/api/teams/${teamId}/studies/${study.id}`, {
+      cookie,
+      body: { baseRevision: study.revision, document: changed(0.0021) },
+    });
     expect(save.status).toBe(200);
     expect(save.body.study.revision).toBe(study.revision + 1);
   }, 90_000);
@@ -237,7 +260,15 @@ describe('start-up with the database down', () => {
     const lines: string[] = [];
     child = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), [path.join(root, 'server', 'index.ts')], {
       cwd: root,
-      env: { ...withoutSmtp(process.env), DATABASE_URL: pc.url, PORT: String(port), HOST: '127.0.0.1', FAKE_SMTP_PORT: '0', LOG_LEVEL: 'info', NODE_ENV: 'test' },
+      env: {
+        ...withoutSmtp(process.env),
+        DATABASE_URL: pc.url,
+        PORT: String(port),
+        HOST: '127.0.0.1',
+        FAKE_SMTP_PORT: '0',
+        LOG_LEVEL: 'info',
+        NODE_ENV: 'test',
+      },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     const exited = new Promise<number | null>((resolve) => child!.once('exit', (code) => resolve(code)));
@@ -250,7 +281,14 @@ describe('start-up with the database down', () => {
     };
     child.stdout!.on('data', onOutput);
     child.stderr!.on('data', onOutput);
-    const messages = () => lines.map((l) => { try { return String(JSON.parse(l).msg); } catch { return l; } });
+    const messages = () =>
+      lines.map((l) => {
+        try {
+          return String(JSON.parse(l).msg);
+        } catch {
+          return l;
+        }
+      });
     const waiting = () => messages().filter((m) => m.includes('is not reachable yet'));
 
     try {

@@ -2,13 +2,13 @@ import { desc, eq } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
 import pino from 'pino';
 import request from 'supertest';
-import { createApp } from '../../server/app';
-import { loadConfig, type Config } from '../../server/config';
-import { connectDatabase, type Database } from '../../server/db/client';
-import { outbox, users } from '../../server/db/schema';
-import type { LimitSettings } from '../../server/services/limits';
-import { startFakeSmtp } from '../../server/mail/fake-smtp';
-import { createMailer } from '../../server/mail/mailer';
+import { createApp } from '#server/app';
+import { loadConfig, type Config } from '#server/config';
+import { connectDatabase, type Database } from '#server/db/client';
+import { outbox, users } from '#server/db/schema';
+import type { LimitSettings } from '#server/services/limits';
+import { startFakeSmtp } from '#server/mail/fake-smtp';
+import { createMailer } from '#server/mail/mailer';
 
 export const ORIGIN = 'http://127.0.0.1:3000';
 
@@ -38,7 +38,14 @@ export async function startTestApp(overrides: Partial<Config> = {}, limitSetting
     config,
     mailer,
     logger: pino({ level: 'silent' }),
-    limitSettings: { invitationsPerTeam: 1000, invitationsPerUser: 1000, invitationsPerAddress: 1000, resetsPerAccount: 1000, confirmationsPerAccount: 1000, ...limitSettings },
+    limitSettings: {
+      invitationsPerTeam: 1000,
+      invitationsPerUser: 1000,
+      invitationsPerAddress: 1000,
+      resetsPerAccount: 1000,
+      confirmationsPerAccount: 1000,
+      ...limitSettings,
+    },
     rateLimitNamespace: `test-${randomUUID()}:`,
   });
   return {

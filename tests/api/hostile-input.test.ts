@@ -13,15 +13,15 @@ import path from 'node:path';
 import pino from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { users } from '../../server/db/schema';
-import { loadConfig } from '../../server/config';
-import { startServer, type RunningServer } from '../../server/index';
-import { builtinMaps } from '../../server/services/builtin-maps';
-import { parseMapFile } from '../../shared/maps';
-import { runComputeRequest } from '../../shared/matching/run-compute';
-import { computeRequestSchema } from '../../shared/schemas/compute';
-import { studyDocumentSchema } from '../../shared/schemas/study';
-import { runStudyDocument } from '../../shared/study/run';
+import { users } from '#server/db/schema';
+import { loadConfig } from '#server/config';
+import { startServer, type RunningServer } from '#server/index';
+import { builtinMaps } from '#server/services/builtin-maps';
+import { parseMapFile } from '#shared/maps';
+import { runComputeRequest } from '#shared/matching/run-compute';
+import { computeRequestSchema } from '#shared/schemas/compute';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import { runStudyDocument } from '#shared/study/run';
 import { expectErrorShape, ORIGIN, PASSWORD, uniqueEmail } from './helpers';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
@@ -106,11 +106,17 @@ beforeAll(async () => {
   });
   // Warnings and errors are kept: a request the net in server/http/errors.ts caught is a route's bug.
   const logger = pino({ level: 'warn' }, { write: (line: string) => void logs.push(JSON.parse(line) as LogLine) });
-  server = await startServer({ ...config, authRateLimit: 1000, smtpUrl: null }, { handleSignals: false, logger, computeRateLimitPerMinute: 100_000, limitSettings: { uploadsPerUser: 100_000 } });
+  server = await startServer(
+    { ...config, authRateLimit: 1000, smtpUrl: null },
+    { handleSignals: false, logger, computeRateLimitPerMinute: 100_000, limitSettings: { uploadsPerUser: 100_000 } },
+  );
   base = server.address;
   const signUp = await sendJson('POST', '/api/auth/sign-up', { email: uniqueEmail('hostile'), password: PASSWORD, name: 'Hostile Tester' }, false);
   if (signUp.status !== 201) throw new Error(`sign-up: ${signUp.status} ${signUp.text}`);
-  cookie = signUp.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  cookie = signUp.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
   teamId = signUp.body.teams[0].id;
   // As if the mailed confirmation link was opened: this account creates teams below.
   await server.database.db.update(users).set({ emailConfirmedAt: new Date() }).where(eq(users.id, signUp.body.user.id));
@@ -128,7 +134,31 @@ const finite = (min: number, max: number) => fc.double({ min, max, noNaN: true, 
 
 /** Values a careless or hostile client puts where a field should be. */
 const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
-  fc.constantFrom(null, true, false, 0, -0, -1, 1e308, -1e308, 5e-324, 2 ** 53 + 1, '', '0', '0.002', '1e3', 'NaN', 'Infinity', [], {}, '💥', '\u202Eevil', 'e\u0301\u0301\u0301', '\u0000', '\uD800'),
+  fc.constantFrom(
+    null,
+    true,
+    false,
+    0,
+    -0,
+    -1,
+    1e308,
+    -1e308,
+    5e-324,
+    2 ** 53 + 1,
+    '',
+    '0',
+    '0.002',
+    '1e3',
+    'NaN',
+    'Infinity',
+    [],
+    {},
+    '💥',
+    '\u202Eevil',
+    'e\u0301\u0301\u0301',
+    '\u0000',
+    '\uD800',
+  ),
   fc.double(),
   fc.integer(),
   fc.string({ unit: 'binary', maxLength: 20 }),
@@ -158,7 +188,11 @@ type Mutation = { kind: 'replace'; value: unknown } | { kind: 'delete' } | { kin
 const mutationArb: fc.Arbitrary<Mutation> = fc.oneof(
   fc.record({ kind: fc.constant('replace' as const), value: hostileValue }),
   fc.record({ kind: fc.constant('delete' as const) }),
-  fc.record({ kind: fc.constant('extra' as const), key: fc.oneof(fc.string({ maxLength: 12 }), fc.constantFrom('__proto__', 'constructor', 'isAdmin', 'id')), value: hostileValue }),
+  fc.record({
+    kind: fc.constant('extra' as const),
+    key: fc.oneof(fc.string({ maxLength: 12 }), fc.constantFrom('__proto__', 'constructor', 'isAdmin', 'id')),
+    value: hostileValue,
+  }),
   fc.record({ kind: fc.constant('retype' as const) }),
 );
 
@@ -177,7 +211,8 @@ function mutate(value: Json, pick: number, m: Mutation): Json {
     else delete parent[key];
   } else {
     const node = parent[key];
-    if (node && typeof node === 'object' && !Array.isArray(node)) Object.defineProperty(node, m.key, { value: m.value, enumerable: true, configurable: true, writable: true });
+    if (node && typeof node === 'object' && !Array.isArray(node))
+      Object.defineProperty(node, m.key, { value: m.value, enumerable: true, configurable: true, writable: true });
     else parent[key] = { [m.key]: m.value };
   }
   return copy;
@@ -261,7 +296,10 @@ describe('generated compute requests', () => {
   }, 60_000);
 
   it('nearly valid ones (one field replaced, retyped, removed or added) never answer 500', async () => {
-    await fc.assert(fc.asyncProperty(validComputeArb, fc.nat(), mutationArb, async (input, pick, m) => check(mutate(input, pick, m))), { numRuns: 200 });
+    await fc.assert(
+      fc.asyncProperty(validComputeArb, fc.nat(), mutationArb, async (input, pick, m) => check(mutate(input, pick, m))),
+      { numRuns: 200 },
+    );
   }, 60_000);
 
   it('garbage never answers 500', async () => {
@@ -307,26 +345,54 @@ describe('generated study documents', () => {
   }
 
   it('valid ones are saved as the next revision, and compute to finite numbers', async () => {
-    await fc.assert(fc.asyncProperty(validStudyArb, (doc) => save(doc)), { numRuns: 12 });
+    await fc.assert(
+      fc.asyncProperty(validStudyArb, (doc) => save(doc)),
+      { numRuns: 12 },
+    );
   }, 60_000);
 
   it('nearly valid ones never answer 500 and a refused one leaves the study as it was', async () => {
-    await fc.assert(fc.asyncProperty(fc.nat(), mutationArb, (pick, m) => save(mutate(demo, pick, m))), { numRuns: 120 });
+    await fc.assert(
+      fc.asyncProperty(fc.nat(), mutationArb, (pick, m) => save(mutate(demo, pick, m))),
+      { numRuns: 120 },
+    );
   }, 90_000);
 
   it('garbage documents and base revisions never answer 500', async () => {
-    await fc.assert(fc.asyncProperty(fc.jsonValue({ maxDepth: 3 }), hostileValue, async (doc, baseRevision) => save(doc, baseRevision)), { numRuns: 40 });
+    await fc.assert(
+      fc.asyncProperty(fc.jsonValue({ maxDepth: 3 }), hostileValue, async (doc, baseRevision) => save(doc, baseRevision)),
+      { numRuns: 40 },
+    );
   }, 60_000);
 });
 
 // ——— map files ———
 
 const sampleMapFiles = [
-  ...readdirSync(path.join(root, 'data', 'maps')).filter((f) => f.endsWith('.csv')).map((f) => path.join(root, 'data', 'maps', f)),
+  ...readdirSync(path.join(root, 'data', 'maps'))
+    .filter((f) => f.endsWith('.csv'))
+    .map((f) => path.join(root, 'data', 'maps', f)),
   ...readdirSync(path.join(root, 'tests', 'fixtures', 'maps', 'good')).map((f) => path.join(root, 'tests', 'fixtures', 'maps', 'good', f)),
 ].map((file) => readFileSync(file, 'utf8'));
 
-const oddNumber = fc.constantFrom('1e308', '-1e308', '1e999', '-0', 'NaN', 'Infinity', '0x10', '1,5', '', ' ', '5e-324', '9007199254740993', '1_000', '+1', '.', '-');
+const oddNumber = fc.constantFrom(
+  '1e308',
+  '-1e308',
+  '1e999',
+  '-0',
+  'NaN',
+  'Infinity',
+  '0x10',
+  '1,5',
+  '',
+  ' ',
+  '5e-324',
+  '9007199254740993',
+  '1_000',
+  '+1',
+  '.',
+  '-',
+);
 type LineEdit =
   | { op: 'delete' | 'duplicate'; line: number }
   | { op: 'swap'; line: number; other: number }
@@ -337,7 +403,12 @@ const lineEditArb: fc.Arbitrary<LineEdit> = fc.oneof(
   fc.record({ op: fc.constantFrom('delete' as const, 'duplicate' as const), line: fc.nat() }),
   fc.record({ op: fc.constant('swap' as const), line: fc.nat(), other: fc.nat() }),
   fc.record({ op: fc.constant('replace' as const), line: fc.nat(), text: fc.string({ unit: 'binary', maxLength: 40 }) }),
-  fc.record({ op: fc.constant('insert' as const), line: fc.nat(), at: fc.nat(), text: fc.oneof(fc.string({ maxLength: 5 }), fc.constantFrom(',', '"', '\u0000', '\r', '=', ';', '#')) }),
+  fc.record({
+    op: fc.constant('insert' as const),
+    line: fc.nat(),
+    at: fc.nat(),
+    text: fc.oneof(fc.string({ maxLength: 5 }), fc.constantFrom(',', '"', '\u0000', '\r', '=', ';', '#')),
+  }),
   fc.record({ op: fc.constant('number' as const), line: fc.nat(), cell: fc.nat(), text: oddNumber }),
 );
 

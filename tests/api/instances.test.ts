@@ -26,7 +26,17 @@ async function startInstance(): Promise<string> {
   const { SMTP_URL: _smtp, ...inherited } = process.env;
   const child = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), [path.join(root, 'server', 'index.ts')], {
     cwd: root,
-    env: { ...inherited, PORT: String(port), HOST: '127.0.0.1', PUBLIC_URL: ORIGIN, FAKE_SMTP_PORT: '0', LOG_LEVEL: 'warn', NODE_ENV: 'test', AUTH_RATE_LIMIT: '3', TRUST_PROXY: 'loopback' },
+    env: {
+      ...inherited,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      PUBLIC_URL: ORIGIN,
+      FAKE_SMTP_PORT: '0',
+      LOG_LEVEL: 'warn',
+      NODE_ENV: 'test',
+      AUTH_RATE_LIMIT: '3',
+      TRUST_PROXY: 'loopback',
+    },
     stdio: ['ignore', 'inherit', 'inherit'],
   });
   children.push(child);
@@ -65,11 +75,19 @@ afterAll(async () => {
 async function call(base: string, method: string, url: string, body?: unknown, cookie?: string) {
   const res = await fetch(`${base}${url}`, {
     method,
-    headers: { Origin: ORIGIN, 'X-Forwarded-For': address, ...(body === undefined ? {} : { 'Content-Type': 'application/json' }), ...(cookie ? { Cookie: cookie } : {}) },
+    headers: {
+      Origin: ORIGIN,
+      'X-Forwarded-For': address,
+      ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
+      ...(cookie ? { Cookie: cookie } : {}),
+    },
     body: body === undefined ? undefined : JSON.stringify(body),
   });
   const text = await res.text();
-  const setCookie = res.headers.getSetCookie().map((c) => c.split(';')[0]).find((c) => c.startsWith('spoolbook_session=') && c !== 'spoolbook_session=');
+  const setCookie = res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .find((c) => c.startsWith('spoolbook_session=') && c !== 'spoolbook_session=');
   return { status: res.status, body: text ? JSON.parse(text) : null, cookie: setCookie };
 }
 

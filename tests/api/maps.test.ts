@@ -2,8 +2,8 @@ import { count, eq } from 'drizzle-orm';
 import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../shared/maps';
-import { maps, teamMembers } from '../../server/db/schema';
+import { parseMapFile } from '#shared/maps';
+import { maps, teamMembers } from '#server/db/schema';
 import { expectErrorShape, ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
 
 const fixtures = path.resolve(import.meta.dirname, '..', 'fixtures', 'maps');
@@ -73,7 +73,7 @@ describe('upload, read, edit, download, delete', () => {
     expect(reuploaded.body.map.map.curves).toEqual(original.map.curves);
   });
 
-  it('keeps what a turbine map\'s efficiency counts through upload, list, download and upload', async () => {
+  it("keeps what a turbine map's efficiency counts through upload, list, download and upload", async () => {
     const text = readFileSync(path.join(demoMaps, 'turbine-t64-ar082-single.csv'), 'utf8');
     expect(text).toContain('# efficiency kind: total-to-static, with bearing losses\n'); // the demo maps state theirs (docs/map-format.md)
     const created = await upload(owner.c, teamId, 't.csv', text);
@@ -174,11 +174,7 @@ describe('bad files: every problem listed, 400, nothing saved', () => {
 
   it('two files in one request are refused', async () => {
     const text = readFileSync(path.join(demoMaps, 'compressor-m58.csv'));
-    const res = await owner.c.agent
-      .post(`/api/teams/${teamId}/maps`)
-      .set('Origin', ORIGIN)
-      .attach('file', text, 'a.csv')
-      .attach('file', text, 'b.csv');
+    const res = await owner.c.agent.post(`/api/teams/${teamId}/maps`).set('Origin', ORIGIN).attach('file', text, 'a.csv').attach('file', text, 'b.csv');
     expect(res.status).toBe(400);
     expectErrorShape(res.body);
   });

@@ -8,9 +8,9 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import net from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { connectDatabase } from '../../server/db/client';
-import { runMigrations } from '../../server/db/migrate';
-import { clusterIsRunning, createClusterAt, ensureDatabase, ensurePostgresInstalled, stopLocalCluster, type ClusterAt } from '../../scripts/lib/postgres';
+import { connectDatabase } from '#server/db/client';
+import { runMigrations } from '#server/db/migrate';
+import { clusterIsRunning, createClusterAt, ensureDatabase, ensurePostgresInstalled, stopLocalCluster, type ClusterAt } from '#scripts/lib/postgres';
 
 /** Ports other people's servers use here: never hand one of them out. */
 const RESERVED_PORTS = new Set([3000, 5173, 54329]);

@@ -3,10 +3,10 @@ import { desc, eq } from 'drizzle-orm';
 import { generate } from 'otplib';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadConfig } from '../../server/config';
-import { outbox, passwordResets, sessions, users } from '../../server/db/schema';
-import { ADMIN_USER } from '../../server/db/seed';
-import type { MailMessage, Mailer } from '../../server/mail/mailer';
+import { loadConfig } from '#server/config';
+import { outbox, passwordResets, sessions, users } from '#server/db/schema';
+import { ADMIN_USER } from '#server/db/seed';
+import type { MailMessage, Mailer } from '#server/mail/mailer';
 import {
   client,
   confirmAddress,
@@ -35,7 +35,10 @@ afterAll(async () => {
 
 const tokenOf = (link: string) => new URL(link).searchParams.get('token')!;
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
-const sessionCookie = (res: request.Response) => (res.headers['set-cookie'] as unknown as string[] | undefined)?.find((c) => c.startsWith('spoolbook_session=') && !c.startsWith('spoolbook_session=;'))?.split(';')[0];
+const sessionCookie = (res: request.Response) =>
+  (res.headers['set-cookie'] as unknown as string[] | undefined)
+    ?.find((c) => c.startsWith('spoolbook_session=') && !c.startsWith('spoolbook_session=;'))
+    ?.split(';')[0];
 
 describe('reset links (ASVS 6.3.x, 6.4.x)', () => {
   it('only the newest link works; using it ends every link', async () => {
@@ -69,13 +72,22 @@ describe('reset links (ASVS 6.3.x, 6.4.x)', () => {
     const gate = new Promise<void>((r) => (release = r));
     const sent: MailMessage[] = [];
     const held: Mailer = { send: async (m) => void (await gate, sent.push(m)), close: () => undefined };
-    const { createApp } = await import('../../server/app');
+    const { createApp } = await import('#server/app');
     const pino = (await import('pino')).default;
-    const { app, deps } = createApp({ database: t.database, config: t.config, mailer: held, logger: pino({ level: 'silent' }), rateLimitNamespace: `held-${Date.now()}:` });
+    const { app, deps } = createApp({
+      database: t.database,
+      config: t.config,
+      mailer: held,
+      logger: pino({ level: 'silent' }),
+      rateLimitNamespace: `held-${Date.now()}:`,
+    });
     try {
       const { email } = await signedUp(t, 'reset-held');
       const known = await request(app).post('/api/auth/password-reset').set('Origin', ORIGIN).send({ email });
-      const unknown = await request(app).post('/api/auth/password-reset').set('Origin', ORIGIN).send({ email: uniqueEmail('nobody') });
+      const unknown = await request(app)
+        .post('/api/auth/password-reset')
+        .set('Origin', ORIGIN)
+        .send({ email: uniqueEmail('nobody') });
       expect(known.status).toBe(202);
       expect(known.text).toBe(unknown.text);
       expect(sent).toEqual([]); // answered while the mail was still held
@@ -182,10 +194,14 @@ describe('sessions (ASVS 7.2.x, 7.4.x, 7.5.x)', () => {
     expect(rows.map((r) => r.id)).toEqual([sha256(id)]);
   });
 
-  it('lists the user\'s sessions with when, where and which browser; ends one, or all others', async () => {
+  it("lists the user's sessions with when, where and which browser; ends one, or all others", async () => {
     const { c, email } = await signedUp(t, 'sessions');
     const other = request.agent(t.app);
-    await other.post('/api/auth/sign-in').set('Origin', ORIGIN).set('User-Agent', 'Mozilla/5.0 (X11; Linux x86_64; rv:128.0) Gecko/20100101 Firefox/128.0').send({ email, password: PASSWORD });
+    await other
+      .post('/api/auth/sign-in')
+      .set('Origin', ORIGIN)
+      .set('User-Agent', 'Mozilla/5.0 (X11; Linux x86_64; rv:128.0) Gecko/20100101 Firefox/128.0')
+      .send({ email, password: PASSWORD });
     const third = request.agent(t.app);
     await third.post('/api/auth/sign-in').set('Origin', ORIGIN).send({ email, password: PASSWORD });
     const list = await c.get('/api/auth/sessions');
@@ -207,7 +223,7 @@ describe('sessions (ASVS 7.2.x, 7.4.x, 7.5.x)', () => {
     expect((await c.get('/api/auth/me')).status).toBe(200);
   });
 
-  it('cannot end someone else\'s session', async () => {
+  it("cannot end someone else's session", async () => {
     const a = await signedUp(t, 'owner-a');
     const b = await signedUp(t, 'owner-b');
     const [bSession] = (await b.c.get('/api/auth/sessions')).body.sessions;
@@ -236,7 +252,10 @@ describe('sessions (ASVS 7.2.x, 7.4.x, 7.5.x)', () => {
     expect(rows).toHaveLength(2);
     // One session ran out yesterday; the other was last used an hour ago.
     const hourAgo = new Date(Date.now() - 3_600_000);
-    await t.database.db.update(sessions).set({ expiresAt: new Date(Date.now() - 86_400_000) }).where(eq(sessions.id, rows[0].id));
+    await t.database.db
+      .update(sessions)
+      .set({ expiresAt: new Date(Date.now() - 86_400_000) })
+      .where(eq(sessions.id, rows[0].id));
     await t.database.db.update(sessions).set({ lastSeenAt: hourAgo }).where(eq(sessions.id, rows[1].id));
     const [listed] = (await admin.get(`/api/admin/users?q=${encodeURIComponent(user.email)}`)).body.users;
     expect(listed).toMatchObject({ email: user.email, sessions: 1, twoFactor: false, emailConfirmed: true });

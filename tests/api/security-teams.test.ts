@@ -3,9 +3,9 @@ import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { outbox, teamMembers } from '../../server/db/schema';
-import { ADMIN_USER } from '../../server/db/seed';
-import { FORMULA_START } from '../../shared/csv';
+import { outbox, teamMembers } from '#server/db/schema';
+import { ADMIN_USER } from '#server/db/seed';
+import { FORMULA_START } from '#shared/csv';
 import { pngPicture } from '../unit/tracer/images';
 import { latestLinkTo, ORIGIN, signedUp, startTestApp, uniqueEmail, type Client, type TestApp } from './helpers';
 
@@ -36,18 +36,33 @@ async function join(owner: Client, teamId: string, role: 'owner' | 'editor' | 'v
   return member;
 }
 
-describe('archive import matches authors only among the team\'s members', () => {
+describe("archive import matches authors only among the team's members", () => {
   it('an archive naming the site admin as author does not make history say "by Site Admin"; a member is matched', async () => {
     const { owner, teamId } = await teamOf('archive');
     const editor = await join(owner.c, teamId, 'editor', 'archive-editor');
-    const revision = (n: number, author: string) => ({ revision: n, title: 'Imported', message: `r${n}`, author, createdAt: new Date().toISOString(), document: demo });
+    const revision = (n: number, author: string) => ({
+      revision: n,
+      title: 'Imported',
+      message: `r${n}`,
+      author,
+      createdAt: new Date().toISOString(),
+      document: demo,
+    });
     const archive = {
       format: 'spoolbook-team-archive',
       version: 1,
       exportedAt: new Date().toISOString(),
       team: { name: 'x' },
       maps: [],
-      studies: [{ id: 's1', title: 'Imported', archived: false, createdAt: new Date().toISOString(), revisions: [revision(1, ADMIN_USER.email), revision(2, editor.email), revision(3, uniqueEmail('stranger'))] }],
+      studies: [
+        {
+          id: 's1',
+          title: 'Imported',
+          archived: false,
+          createdAt: new Date().toISOString(),
+          revisions: [revision(1, ADMIN_USER.email), revision(2, editor.email), revision(3, uniqueEmail('stranger'))],
+        },
+      ],
     };
     const res = await owner.c.agent
       .post(`/api/teams/${teamId}/archive/import`)
@@ -89,7 +104,8 @@ describe('invitations: limited per team and per user, plain-text mail', () => {
       const owner = await signedUp(limited, 'inviter');
       const teamId = (await owner.c.post('/api/teams', { name: 'Spam team' })).body.team.id;
       const statuses: number[] = [];
-      for (let i = 0; i < 4; i++) statuses.push((await owner.c.post(`/api/teams/${teamId}/invitations`, { email: uniqueEmail('target'), role: 'viewer' })).status);
+      for (let i = 0; i < 4; i++)
+        statuses.push((await owner.c.post(`/api/teams/${teamId}/invitations`, { email: uniqueEmail('target'), role: 'viewer' })).status);
       expect(statuses).toEqual([201, 201, 201, 429]); // 3 per team per hour in this test's settings
     } finally {
       await limited.close();
@@ -211,7 +227,7 @@ describe('uploads are limited per user per hour', () => {
 });
 
 describe('pictures cannot be framed', () => {
-  it('a Tracer picture is served with frame-ancestors \'none\'', async () => {
+  it("a Tracer picture is served with frame-ancestors 'none'", async () => {
     const owner = await signedUp(t, 'picture');
     const png = pngPicture(40, 30);
     const up = await owner.c.agent.post(`/api/teams/${owner.personalTeamId}/tracer/images`).set('Origin', ORIGIN).attach('file', png, 'tiny.png');

@@ -43,7 +43,17 @@ async function startServerProcess(env: Record<string, string> = {}): Promise<Ser
   const { SMTP_URL: _smtp, ...inherited } = process.env;
   const child = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), [path.join(root, 'server', 'index.ts')], {
     cwd: root,
-    env: { ...inherited, PORT: String(port), HOST: '127.0.0.1', PUBLIC_URL: ORIGIN, FAKE_SMTP_PORT: '0', LOG_LEVEL: 'info', NODE_ENV: 'test', AUTH_RATE_LIMIT: '1000', ...env },
+    env: {
+      ...inherited,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      PUBLIC_URL: ORIGIN,
+      FAKE_SMTP_PORT: '0',
+      LOG_LEVEL: 'info',
+      NODE_ENV: 'test',
+      AUTH_RATE_LIMIT: '1000',
+      ...env,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   children.push(child);
@@ -81,7 +91,10 @@ async function signedUpWithStudy(base: string) {
     body: JSON.stringify({ email: uniqueEmail('shutdown'), password: PASSWORD, name: 'Shut Down' }),
   });
   if (signUp.status !== 201) throw new Error(`sign-up: ${signUp.status} ${await signUp.text()}`);
-  const cookie = signUp.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const cookie = signUp.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
   const teamId = ((await signUp.json()) as { teams: { id: string }[] }).teams[0].id;
   const created = await fetch(`${base}/api/teams/${teamId}/studies`, {
     method: 'POST',
@@ -97,7 +110,14 @@ async function signedUpWithStudy(base: string) {
 function heldRequest(port: number, method: string, url: string, headers: Record<string, string>, body: string) {
   const socket = net.connect(port, '127.0.0.1');
   const bytes = Buffer.from(body, 'utf8');
-  const head = [`${method} ${url} HTTP/1.1`, `Host: 127.0.0.1:${port}`, ...Object.entries(headers).map(([k, v]) => `${k}: ${v}`), `Content-Length: ${bytes.length}`, '', ''].join('\r\n');
+  const head = [
+    `${method} ${url} HTTP/1.1`,
+    `Host: 127.0.0.1:${port}`,
+    ...Object.entries(headers).map(([k, v]) => `${k}: ${v}`),
+    `Content-Length: ${bytes.length}`,
+    '',
+    '',
+  ].join('\r\n');
   const half = Math.floor(bytes.length / 2);
   let received = '';
   socket.on('data', (d: Buffer) => (received += d.toString('utf8')));
@@ -179,7 +199,10 @@ describe('SIGTERM', () => {
     const check = new pg.Client({ connectionString: process.env.DATABASE_URL });
     await check.connect();
     try {
-      const { rows } = await check.query('SELECT s.revision, (SELECT max(revision) FROM study_revisions r WHERE r.study_id = s.id) AS newest FROM studies s WHERE s.id = $1', [study.id]);
+      const { rows } = await check.query(
+        'SELECT s.revision, (SELECT max(revision) FROM study_revisions r WHERE r.study_id = s.id) AS newest FROM studies s WHERE s.id = $1',
+        [study.id],
+      );
       expect(rows[0]).toEqual({ revision: study.revision + 1, newest: study.revision + 1 });
     } finally {
       await check.end();
@@ -194,7 +217,11 @@ describe('SIGTERM', () => {
       'POST',
       '/api/compute',
       { Origin: ORIGIN, 'Content-Type': 'application/json' },
-      JSON.stringify({ engine: { displacement: 0.002, cylinders: 4, strokes: 4 }, ambient: { altitude: 0 }, points: [{ rpm: 5000, volumetricEfficiency: 0.9, boost: 80000, manifoldTemperature: 320 }] }),
+      JSON.stringify({
+        engine: { displacement: 0.002, cylinders: 4, strokes: 4 },
+        ambient: { altitude: 0 },
+        points: [{ rpm: 5000, volumetricEfficiency: 0.9, boost: 80000, manifoldTemperature: 320 }],
+      }),
     );
     await held.connected;
     await new Promise((r) => setTimeout(r, 300));

@@ -3,8 +3,8 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { shareLinks, studies, studyRevisions, teamMembers } from '../../server/db/schema';
-import { STUDY_SCHEMA_VERSION } from '../../shared/schemas/study';
+import { shareLinks, studies, studyRevisions, teamMembers } from '#server/db/schema';
+import { STUDY_SCHEMA_VERSION } from '#shared/schemas/study';
 import { client, expectErrorShape, ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
 
 const demo = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'demo', 'hillclimb-study.json'), 'utf8'));
@@ -263,7 +263,10 @@ describe('share links', () => {
 
     const second = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/share-links`, { expiresInDays: 1 });
     const token2 = second.body.shareLink.url.split('/share/')[1];
-    await t.database.db.update(shareLinks).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(shareLinks.id, second.body.shareLink.id));
+    await t.database.db
+      .update(shareLinks)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(shareLinks.id, second.body.shareLink.id));
     const expired = await anon.get(`/api/share/${token2}`);
     expect(expired.status).toBe(404);
     expectErrorShape(expired.body);
@@ -291,7 +294,7 @@ describe('CSV export', () => {
     for (const row of rows) {
       for (const cell of row.slice(0, 3)) expect(cell).not.toMatch(/^[=+\-@]/);
     }
-    expect(rows.some((r) => r[0] === "'=HYPERLINK(\"http://x\")")).toBe(true);
+    expect(rows.some((r) => r[0] === '\'=HYPERLINK("http://x")')).toBe(true);
     expect(rows.some((r) => r[1] === "'-1 bar day")).toBe(true);
   });
 
@@ -385,7 +388,13 @@ describe('the exhaust side in saved studies', () => {
     { rpm: 2500, value: 1050 },
     { rpm: 8000, value: 1200 },
   ];
-  const exhaust = { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000 } };
+  const exhaust = {
+    housing: 'single',
+    wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 },
+    mechanicalEfficiency: 0.95,
+    turbineInletTemperature: t3,
+    downstreamLoss: { pressureLoss: 15_000 },
+  };
 
   it('saves a plan with a built-in turbine map, shares it with the turbine map and exports the exhaust columns', async () => {
     const { owner, teamId, study } = await teamWithStudy();

@@ -1,10 +1,10 @@
 import { count, eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../shared/maps';
-import { applyAffine } from '../../shared/tracer/affine';
-import { newTraceState, type TraceState } from '../../shared/tracer/state';
-import { auditEvents, mapImages, maps, teamMembers, traceDrafts } from '../../server/db/schema';
+import { parseMapFile } from '#shared/maps';
+import { applyAffine } from '#shared/tracer/affine';
+import { newTraceState, type TraceState } from '#shared/tracer/state';
+import { auditEvents, mapImages, maps, teamMembers, traceDrafts } from '#server/db/schema';
 import { GIF_BYTES, jpegHeaderOnly, pngHeaderOnly, pngPicture } from '../unit/tracer/images';
 import { expectErrorShape, ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
 
@@ -62,11 +62,46 @@ function tracedState(name = 'Traced wheel'): TraceState {
     points: pts.map(([f, r]) => at(f, r)),
   });
   state.curves = [
-    line('surge', 'surge', [[0.05, 1.2], [0.08, 1.8], [0.1, 2.4]]),
-    line('choke', 'choke', [[0.14, 1.1], [0.2, 1.6], [0.24, 2.1]]),
-    line('s80', 'speed', [[0.05, 1.2], [0.1, 1.17], [0.14, 1.1]], { speed: 80000 }),
-    line('s120', 'speed', [[0.08, 1.8], [0.14, 1.72], [0.2, 1.6]], { speed: 120000 }),
-    line('i74', 'island', [[0.12, 1.7], [0.16, 1.72], [0.15, 1.6]], { efficiency: 74 }),
+    line('surge', 'surge', [
+      [0.05, 1.2],
+      [0.08, 1.8],
+      [0.1, 2.4],
+    ]),
+    line('choke', 'choke', [
+      [0.14, 1.1],
+      [0.2, 1.6],
+      [0.24, 2.1],
+    ]),
+    line(
+      's80',
+      'speed',
+      [
+        [0.05, 1.2],
+        [0.1, 1.17],
+        [0.14, 1.1],
+      ],
+      { speed: 80000 },
+    ),
+    line(
+      's120',
+      'speed',
+      [
+        [0.08, 1.8],
+        [0.14, 1.72],
+        [0.2, 1.6],
+      ],
+      { speed: 120000 },
+    ),
+    line(
+      'i74',
+      'island',
+      [
+        [0.12, 1.7],
+        [0.16, 1.72],
+        [0.15, 1.6],
+      ],
+      { efficiency: 74 },
+    ),
   ];
   return state;
 }
@@ -87,11 +122,14 @@ describe('picture upload: checked by content, limited, never stored when refused
     expect(res.status).toBe(201);
     expect(res.body.image).toMatchObject({ contentType: 'image/png', width: 64, height: 48, byteSize: bytes.length, mapId: null });
     const id = res.body.image.id;
-    const served = await owner.c.get(`/api/teams/${teamId}/tracer/images/${id}`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const served = await owner.c
+      .get(`/api/teams/${teamId}/tracer/images/${id}`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(served.status).toBe(200);
     expect(served.headers['content-type']).toBe('image/png');
     expect(served.headers['x-content-type-options']).toBe('nosniff');
@@ -109,12 +147,33 @@ describe('picture upload: checked by content, limited, never stored when refused
   });
 
   const refused: [string, () => Buffer, string, number, string, RegExp][] = [
-    ['text renamed to .png', () => Buffer.from('curve,label,flow\nsurge,,1,1.2\n'), 'map.png', 400, 'not_an_image', /not a PNG or JPEG picture, whatever its name says/],
+    [
+      'text renamed to .png',
+      () => Buffer.from('curve,label,flow\nsurge,,1,1.2\n'),
+      'map.png',
+      400,
+      'not_an_image',
+      /not a PNG or JPEG picture, whatever its name says/,
+    ],
     ['a GIF renamed to .png', () => GIF_BYTES, 'map.png', 400, 'not_an_image', /GIF picture, whatever its name says/],
-    ['an SVG renamed to .png', () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), 'map.png', 400, 'not_an_image', /SVG drawing/],
+    [
+      'an SVG renamed to .png',
+      () => Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'),
+      'map.png',
+      400,
+      'not_an_image',
+      /SVG drawing/,
+    ],
     ['a zero-byte file', () => Buffer.alloc(0), 'empty.png', 400, 'empty_file', /empty \(0 bytes\)/],
     ['a PNG of 48 megapixels', () => pngHeaderOnly(8000, 6000), 'huge.png', 413, 'too_many_pixels', /8000 × 6000 pixels .* the limit is 40 megapixels/],
-    ['a PNG with a damaged header', () => pngHeaderOnly(10, 10).subarray(0, 14), 'broken.png', 400, 'unreadable_image', /header \(IHDR\) is missing or damaged/],
+    [
+      'a PNG with a damaged header',
+      () => pngHeaderOnly(10, 10).subarray(0, 14),
+      'broken.png',
+      400,
+      'unreadable_image',
+      /header \(IHDR\) is missing or damaged/,
+    ],
     ['a file over 8 MB', () => Buffer.concat([pngHeaderOnly(100, 100), Buffer.alloc(8 * 1024 * 1024)]), 'big.png', 413, 'too_large', /larger than 8 MB/],
   ];
   for (const [what, bytes, name, status, code, message] of refused) {
@@ -146,7 +205,10 @@ describe('picture upload: checked by content, limited, never stored when refused
 
   it('an upload from another origin, or with no origin on a signed-in session, is refused (ASVS 3.5)', async () => {
     const before = await imageRows(teamId);
-    const foreign = await owner.c.agent.post(`/api/teams/${teamId}/tracer/images`).set('Origin', 'https://evil.example').attach('file', pngPicture(4, 4), 'a.png');
+    const foreign = await owner.c.agent
+      .post(`/api/teams/${teamId}/tracer/images`)
+      .set('Origin', 'https://evil.example')
+      .attach('file', pngPicture(4, 4), 'a.png');
     expect(foreign.status).toBe(403);
     const bare = await owner.c.agent.post(`/api/teams/${teamId}/tracer/images`).attach('file', pngPicture(4, 4), 'a.png');
     expect(bare.status).toBe(403);

@@ -9,8 +9,8 @@
  */
 import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
-import { pointWorking, runStudy, type ExhaustInput, type RunStudyOptions, type StudyInput } from '../../shared/matching';
-import { studyInputSchema } from '../../shared/schemas/compute';
+import { pointWorking, runStudy, type ExhaustInput, type RunStudyOptions, type StudyInput } from '#shared/matching';
+import { studyInputSchema } from '#shared/schemas/compute';
 import { CC_PER_MIN, fakeModel } from '../unit/matching/fixtures';
 
 function benchStudy(): StudyInput {
@@ -53,10 +53,22 @@ function benchStudy(): StudyInput {
     losses: { inlet: { pressureLoss: 2500, referenceMassFlow: 0.25 }, chargeCooler: { pressureLoss: 10_000, referenceMassFlow: 0.25, referenceDensity: 2.4 } },
     intercooler: { kind: 'effectiveness', effectiveness: 0.75 },
     scenarios: [
-      { name: 'Sea level, mild', ambient: { pressure: 101_325, temperature: 293.15 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
-      { name: 'Hot day', ambient: { pressure: 100_000, temperature: 313.15, relativeHumidity: 0.5 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
+      {
+        name: 'Sea level, mild',
+        ambient: { pressure: 101_325, temperature: 293.15 },
+        boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }],
+      },
+      {
+        name: 'Hot day',
+        ambient: { pressure: 100_000, temperature: 313.15, relativeHumidity: 0.5 },
+        boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }],
+      },
       { name: 'Mountain pass', ambient: { altitude: 2200 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: boostRow(150_000) }] },
-      { name: 'Gear 1', ambient: { pressure: 101_325, temperature: 293.15 }, boostSchedule: [{ label: 'Gear 1', kind: 'gear', gear: 1, boost: boostRow(90_000) }] },
+      {
+        name: 'Gear 1',
+        ambient: { pressure: 101_325, temperature: 293.15 },
+        boostSchedule: [{ label: 'Gear 1', kind: 'gear', gear: 1, boost: boostRow(90_000) }],
+      },
     ],
     plans: [
       { name: 'Small', turbochargers: 1, compressorEfficiency: 0.72, maxShaftSpeed: 190_000 },
@@ -83,15 +95,24 @@ function measure(name: string, run: () => void, runs: number, warmUp = 100): voi
   const at = (list: number[], q: number) => list[Math.min(list.length - 1, Math.floor(q * list.length))];
   const ms = (x: number) => x.toFixed(3);
   // CPU time beside wall time: on a shared, busy machine the wall clock also counts time spent waiting for a core.
-  console.log(`${name.padEnd(58)} median ${ms(at(times, 0.5))} ms   p10–p90 ${ms(at(times, 0.1))}–${ms(at(times, 0.9))} ms   CPU median ${ms(at(cpu, 0.5))} ms   runs ${runs}`);
+  console.log(
+    `${name.padEnd(58)} median ${ms(at(times, 0.5))} ms   p10–p90 ${ms(at(times, 0.1))}–${ms(at(times, 0.9))} ms   CPU median ${ms(at(cpu, 0.5))} ms   runs ${runs}`,
+  );
 }
 
 const study = benchStudy();
 const models = [fakeModel(), fakeModel({ surgeSlope: 0.08, chokeFlow: 0.5 }), fakeModel({ chokeFlow: 0.3 })];
-console.log(`load average ${(await import('node:os')).loadavg().map((x) => x.toFixed(1)).join(' ')} on ${(await import('node:os')).cpus().length} cores`);
+console.log(
+  `load average ${(await import('node:os'))
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ')} on ${(await import('node:os')).cpus().length} cores`,
+);
 const check = runStudy(study);
 const points = check.lines.reduce((n, l) => n + l.points.length, 0);
-console.log(`study: ${study.plans.length} plans × ${study.scenarios.length} scenarios × ${check.lines[0].points.length} rpm points = ${points} points (Node ${process.version})`);
+console.log(
+  `study: ${study.plans.length} plans × ${study.scenarios.length} scenarios × ${check.lines[0].points.length} rpm points = ${points} points (Node ${process.version})`,
+);
 
 const whole = (options: RunStudyOptions) => () => void runStudy(study, options);
 measure('whole study, validated, Working lazy (the keystroke case)', whole({}), 1000);
@@ -104,7 +125,7 @@ measure('Working of one point, on demand', () => void pointWorking(line.context,
 
 // The demo compressor maps through the maps module, when it is there to read them.
 try {
-  const { compressorModelFromMap, parseMapFile } = await import('../../shared/maps');
+  const { compressorModelFromMap, parseMapFile } = await import('#shared/maps');
   const demo = ['s44', 'm58', 'l76'].map((name) => {
     const parsed = parseMapFile(readFileSync(new URL(`../../data/maps/compressor-${name}.csv`, import.meta.url), 'utf8'));
     if (!('map' in parsed) || !parsed.map || parsed.map.kind !== 'compressor') throw new Error(`demo map ${name} did not parse`);
@@ -117,8 +138,8 @@ try {
 
 // The demo study with the demo maps: compressor only, then with the exhaust side on every plan.
 try {
-  const { compressorModelFromMap, parseMapFile, turbineModelFromMap } = await import('../../shared/maps');
-  const { studyDocumentSchema, toStudyInput } = await import('../../shared/schemas/study');
+  const { compressorModelFromMap, parseMapFile, turbineModelFromMap } = await import('#shared/maps');
+  const { studyDocumentSchema, toStudyInput } = await import('#shared/schemas/study');
   const mapOf = (file: string) => {
     const parsed = parseMapFile(readFileSync(new URL(`../../data/maps/${file}.csv`, import.meta.url), 'utf8'));
     if (!parsed.ok) throw new Error(`demo map ${file} did not parse`);
@@ -138,9 +159,37 @@ try {
     { rpm: 8000, value: 1180 },
   ];
   const exhausts: { turbine: string; exhaust: ExhaustInput }[] = [
-    { turbine: 'turbine-t64-ar064-single', exhaust: { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 } } },
-    { turbine: 'turbine-t64-ar082-single', exhaust: { housing: 'single', wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 } } },
-    { turbine: 'turbine-t64-ar082-divided', exhaust: { housing: 'divided', wastegates: { count: 2, valveDiameter: 0.038, dischargeCoefficient: 0.8 }, mechanicalEfficiency: 0.95, turbineInletTemperature: t3, downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 }, pulseFactor: 1 } },
+    {
+      turbine: 'turbine-t64-ar064-single',
+      exhaust: {
+        housing: 'single',
+        wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 },
+        mechanicalEfficiency: 0.95,
+        turbineInletTemperature: t3,
+        downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 },
+      },
+    },
+    {
+      turbine: 'turbine-t64-ar082-single',
+      exhaust: {
+        housing: 'single',
+        wastegates: { count: 1, valveDiameter: 0.044, dischargeCoefficient: 0.8 },
+        mechanicalEfficiency: 0.95,
+        turbineInletTemperature: t3,
+        downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 },
+      },
+    },
+    {
+      turbine: 'turbine-t64-ar082-divided',
+      exhaust: {
+        housing: 'divided',
+        wastegates: { count: 2, valveDiameter: 0.038, dischargeCoefficient: 0.8 },
+        mechanicalEfficiency: 0.95,
+        turbineInletTemperature: t3,
+        downstreamLoss: { pressureLoss: 15_000, referenceMassFlow: 0.26, referenceDensity: 0.6 },
+        pulseFactor: 1,
+      },
+    },
   ];
   const withExhaust: StudyInput = { ...demoInput, plans: demoInput.plans.map((p, i) => ({ ...p, exhaust: exhausts[i % exhausts.length].exhaust })) };
   const turbines = doc.plans.map((_, i) => {
@@ -151,10 +200,21 @@ try {
   const demoCheck = runStudy(withExhaust, { compressorModels: compressors, turbineModels: turbines });
   const demoPoints = demoCheck.lines.reduce((n, l) => n + l.points.length, 0);
   const notHeld = demoCheck.lines.reduce((n, l) => n + l.points.filter((p) => p.values?.targetHeld === false).length, 0);
-  console.log(`demo study: ${demoInput.plans.length} plans × ${demoCheck.lines.length / demoInput.plans.length} boost rows × ${demoCheck.lines[0].points.length} rpm points = ${demoPoints} points; ${notHeld} below target (boost re-solved)`);
+  console.log(
+    `demo study: ${demoInput.plans.length} plans × ${demoCheck.lines.length / demoInput.plans.length} boost rows × ${demoCheck.lines[0].points.length} rpm points = ${demoPoints} points; ${notHeld} below target (boost re-solved)`,
+  );
   measure('demo study, demo maps, compressor only', () => void runStudy(demoInput, { compressorModels: compressors }), 1000);
-  measure('demo study, demo maps, exhaust side on every plan', () => void runStudy(withExhaust, { compressorModels: compressors, turbineModels: turbines }), 1000);
-  measure('turbine models of the three demo turbine maps, built', () => void exhausts.map((e) => mapOf(e.turbine)).forEach((m) => m.kind === 'turbine' && turbineModelFromMap(m)), 300, 10);
+  measure(
+    'demo study, demo maps, exhaust side on every plan',
+    () => void runStudy(withExhaust, { compressorModels: compressors, turbineModels: turbines }),
+    1000,
+  );
+  measure(
+    'turbine models of the three demo turbine maps, built',
+    () => void exhausts.map((e) => mapOf(e.turbine)).forEach((m) => m.kind === 'turbine' && turbineModelFromMap(m)),
+    300,
+    10,
+  );
 } catch (err) {
   console.log(`demo study with the exhaust side: skipped (${(err as Error).message})`);
 }

@@ -6,10 +6,10 @@
 import autocannon from 'autocannon';
 import type { AddressInfo } from 'node:net';
 import pino from 'pino';
-import { createApp } from '../../server/app';
-import { loadConfig, type Config } from '../../server/config';
-import { connectDatabase, type Database } from '../../server/db/client';
-import { createMailer } from '../../server/mail/mailer';
+import { createApp } from '#server/app';
+import { loadConfig, type Config } from '#server/config';
+import { connectDatabase, type Database } from '#server/db/client';
+import { createMailer } from '#server/mail/mailer';
 
 /** Simulated users (connections) of every HTTP benchmark. */
 export const CONNECTIONS = 50;
@@ -22,7 +22,10 @@ export interface BenchServer {
 }
 
 /** The whole app on 127.0.0.1 with a free port; mail goes nowhere, logs are off. */
-export async function startBenchServer({ computeRateLimitPerMinute, poolMax = 20 }: { computeRateLimitPerMinute?: number; poolMax?: number } = {}): Promise<BenchServer> {
+export async function startBenchServer({
+  computeRateLimitPerMinute,
+  poolMax = 20,
+}: { computeRateLimitPerMinute?: number; poolMax?: number } = {}): Promise<BenchServer> {
   // Sign-ups are rate limited per address; every simulated user comes from 127.0.0.1 here.
   const config: Config = { ...loadConfig({ ...process.env, PORT: '0' }), logLevel: 'silent', authRateLimit: 1_000_000 };
   const database = connectDatabase(config.databaseUrl, { max: poolMax });
@@ -58,7 +61,10 @@ export async function postJson(base: string, origin: string, url: string, body: 
 }
 
 export function cookieOf(headers: Headers): string {
-  return headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  return headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 }
 
 export interface RunSummary {

@@ -51,7 +51,13 @@ const computeBody = JSON.stringify({
   ambient: { altitude: 300, temperature: 298.15 },
   losses: { inlet: 2500, chargeCooler: 12000 },
   fuel: { kind: 'ethanol-blend', ethanolPercent: 85, lambda: 0.8, brakeThermalEfficiency: 0.33, drivetrainLoss: 0.15 },
-  points: Array.from({ length: 20 }, (_, i) => ({ rpm: 2500 + i * 300, volumetricEfficiency: 0.95, boost: 60_000 + i * 4_000, manifoldTemperature: 318, compressorEfficiency: 0.72 })),
+  points: Array.from({ length: 20 }, (_, i) => ({
+    rpm: 2500 + i * 300,
+    volumetricEfficiency: 0.95,
+    boost: 60_000 + i * 4_000,
+    manifoldTemperature: 318,
+    compressorEfficiency: 0.72,
+  })),
 });
 
 function percentile(sorted: number[], p: number) {
@@ -118,7 +124,13 @@ async function main() {
         if (kind === 'compute') return { ...req, method: 'POST', path: '/api/compute', headers, body: computeBody };
         const document = documents[(u.savesAnswered + ctx.user) % documents.length];
         u.saveInFlight = true;
-        return { ...req, method: 'PUT', path: `/api/teams/${u.teamId}/studies/${u.studyId}`, headers, body: JSON.stringify({ baseRevision: u.revision, document, message: 'load bench' }) };
+        return {
+          ...req,
+          method: 'PUT',
+          path: `/api/teams/${u.teamId}/studies/${u.studyId}`,
+          headers,
+          body: JSON.stringify({ baseRevision: u.revision, document, message: 'load bench' }),
+        };
       },
       onResponse: (status, body, context) => {
         const ctx = context as { user?: number; sentAt?: number };
@@ -200,7 +212,13 @@ async function main() {
     const s = stats.get(name)!;
     const sorted = [...s.latencies].sort((a, b) => a - b);
     const ok = [...s.statuses].filter(([st]) => st >= 200 && st < 300).reduce((a, [, n]) => a + n, 0);
-    return { rps: s.latencies.length / SECONDS, p50: percentile(sorted, 50), p99: percentile(sorted, 99), errors: s.latencies.length - ok, total: s.latencies.length };
+    return {
+      rps: s.latencies.length / SECONDS,
+      p50: percentile(sorted, 50),
+      p99: percentile(sorted, 99),
+      errors: s.latencies.length - ok,
+      total: s.latencies.length,
+    };
   };
 
   console.log(`\nautocannon, ${CONNECTIONS} connections (one signed-in user each), loopback; baseline ${baselineSeconds} s, mixed load ${SECONDS} s`);
@@ -208,8 +226,12 @@ async function main() {
   line('mixed load, all requests', load);
   for (const kind of ['read study', 'list studies', 'list maps', 'save study', 'compute'] as Kind[]) line(`  ${kind}`, summary(kind));
   console.log(`mixed load / bare endpoint throughput: ${(load.rps / bare.rps).toFixed(2)}`);
-  const statuses = Object.entries(load.result.statusCodeStats ?? {}).map(([k, v]) => `${k}: ${(v as { count: number }).count}`).join(', ');
-  console.log(`errors: ${load.errors} (connection errors ${load.result.errors}, timeouts ${load.result.timeouts}, non-2xx ${load.result.non2xx}); statuses ${statuses}`);
+  const statuses = Object.entries(load.result.statusCodeStats ?? {})
+    .map(([k, v]) => `${k}: ${(v as { count: number }).count}`)
+    .join(', ');
+  console.log(
+    `errors: ${load.errors} (connection errors ${load.result.errors}, timeouts ${load.result.timeouts}, non-2xx ${load.result.non2xx}); statuses ${statuses}`,
+  );
   for (const p of saveProblems.slice(0, 5)) console.log(`  save problem: ${p}`);
   const answered = users.reduce((a, u) => a + u.savesAnswered, 0);
   console.log(
@@ -221,10 +243,14 @@ async function main() {
   const heap = samples.map((s) => s.heapUsed);
   const third = Math.max(1, Math.floor(samples.length / 3));
   const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / Math.max(1, xs.length);
-  console.log(`memory of this process (server and load generator): before rss ${mb(memoryBefore.rss)} heap ${mb(memoryBefore.heapUsed)}; ` +
-    `during rss ${mb(Math.min(...rss))}–${mb(Math.max(...rss))} heap ${mb(Math.min(...heap))}–${mb(Math.max(...heap))}; ` +
-    `after rss ${mb(memoryAfter.rss)} heap ${mb(memoryAfter.heapUsed)}`);
-  console.log(`heap, mean of the first and last third of the run: ${mb(mean(heap.slice(0, third)))} → ${mb(mean(heap.slice(-third)))} (steady when these are close)`);
+  console.log(
+    `memory of this process (server and load generator): before rss ${mb(memoryBefore.rss)} heap ${mb(memoryBefore.heapUsed)}; ` +
+      `during rss ${mb(Math.min(...rss))}–${mb(Math.max(...rss))} heap ${mb(Math.min(...heap))}–${mb(Math.max(...heap))}; ` +
+      `after rss ${mb(memoryAfter.rss)} heap ${mb(memoryAfter.heapUsed)}`,
+  );
+  console.log(
+    `heap, mean of the first and last third of the run: ${mb(mean(heap.slice(0, third)))} → ${mb(mean(heap.slice(-third)))} (steady when these are close)`,
+  );
   await server.close();
 }
 

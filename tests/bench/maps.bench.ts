@@ -8,8 +8,8 @@
  */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { compressorModelFromMap, parseMapFile, triangulate } from '../../shared/maps';
-import type { CompressorMap } from '../../shared/maps/types';
+import { compressorModelFromMap, parseMapFile, triangulate } from '#shared/maps';
+import type { CompressorMap } from '#shared/maps/types';
 
 function quantile(sorted: number[], q: number): number {
   const at = (sorted.length - 1) * q;

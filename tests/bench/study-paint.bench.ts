@@ -13,11 +13,11 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pino from 'pino';
 import { chromium } from 'playwright-core';
-import { createApp } from '../../server/app';
-import { loadConfig } from '../../server/config';
-import { connectDatabase } from '../../server/db/client';
-import { DEMO_STUDY_TITLE, DEMO_TEAM_NAME, DEMO_USER } from '../../server/db/seed';
-import { createMailer } from '../../server/mail/mailer';
+import { createApp } from '#server/app';
+import { loadConfig } from '#server/config';
+import { connectDatabase } from '#server/db/client';
+import { DEMO_STUDY_TITLE, DEMO_TEAM_NAME, DEMO_USER } from '#server/db/seed';
+import { createMailer } from '#server/mail/mailer';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const RUNS = Number(process.env.BENCH_RUNS ?? 30);
@@ -67,7 +67,9 @@ async function main() {
     );
     await page.goto(`${base}/teams/${where.teamId}/studies/${where.studyId}`);
     await page.getByTestId(`ve-table-value-${RPM}`).waitFor({ timeout: 120_000 });
-    await page.waitForFunction(() => (document.querySelector('[data-testid="study-map"] .js-plotly-plot') as { data?: unknown[] } | null)?.data?.length, null, { timeout: 120_000 });
+    await page.waitForFunction(() => (document.querySelector('[data-testid="study-map"] .js-plotly-plot') as { data?: unknown[] } | null)?.data?.length, null, {
+      timeout: 120_000,
+    });
 
     const times: number[] = [];
     for (let i = 0; i < RUNS + 3; i++) {
@@ -75,7 +77,8 @@ async function main() {
       const ms = await page.evaluate(
         ({ rpm, value }) =>
           new Promise<number>((resolve, reject) => {
-            const gd = document.querySelector('[data-testid="study-map"] .js-plotly-plot') as (HTMLElement & { on?: (e: string, f: () => void) => void; removeAllListeners?: (e: string) => void }) | null;
+            const gd = document.querySelector('[data-testid="study-map"] .js-plotly-plot') as
+              (HTMLElement & { on?: (e: string, f: () => void) => void; removeAllListeners?: (e: string) => void }) | null;
             const input = document.querySelector(`[data-testid="ve-table-value-${rpm}"]`) as HTMLInputElement | null;
             if (!gd?.on || !input) return reject(new Error('the study page has no map plot or VE input'));
             const setValue = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
@@ -100,7 +103,9 @@ async function main() {
     }
     const s = stats(times);
     console.log(`Chromium, demo study (3 plans × 4 scenarios), VE edit at ${RPM} rpm → map plot painted`);
-    console.log(`input change to painted plot   median ${s.median.toFixed(1)} ms   p10–p90 ${s.p10.toFixed(1)}–${s.p90.toFixed(1)} ms   runs ${times.length}   (target under 50 ms median)`);
+    console.log(
+      `input change to painted plot   median ${s.median.toFixed(1)} ms   p10–p90 ${s.p10.toFixed(1)}–${s.p90.toFixed(1)} ms   runs ${times.length}   (target under 50 ms median)`,
+    );
   } finally {
     await browser.close();
     server.close();

@@ -3,10 +3,10 @@ import path from 'node:path';
 import { desc, eq } from 'drizzle-orm';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, inject } from 'vitest';
-import { connectDatabase, type Database } from '../../server/db/client';
-import { outbox } from '../../server/db/schema';
-import { parseMapFile } from '../../shared/maps';
-import type { SpoolbookMap } from '../../shared/maps/types';
+import { connectDatabase, type Database } from '#server/db/client';
+import { outbox } from '#server/db/schema';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
 
 export const screenshotDir = path.resolve(import.meta.dirname, '..', '..', 'test-results', 'screenshots');
 
@@ -18,7 +18,16 @@ export function baseUrl(): string {
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run', '--disable-sync', '--disable-quic'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--no-first-run',
+      '--disable-sync',
+      '--disable-quic',
+    ],
   });
 }
 

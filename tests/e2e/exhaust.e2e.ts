@@ -3,9 +3,9 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
-import { compareLines } from '../../shared/study/compare';
-import { runStudyDocument } from '../../shared/study/run';
+import { migrateStudyDocument, studyDocumentSchema } from '#shared/schemas/study';
+import { compareLines } from '#shared/study/compare';
+import { runStudyDocument } from '#shared/study/run';
 import { baseUrl, builtinMap, screenshot, shownNumber, suiteBrowser } from './browser';
 
 // The exhaust side in the production build: a study with a single-scroll plan (one gate) and a
@@ -18,19 +18,19 @@ const PLOT_TIMEOUT = 180_000;
 /** Polls wait as long as a plot may take on a busy machine. */
 const POLL = { timeout: 60_000 };
 
-
-
-
 /** The traces plotly drew in the figure under `selector`: name and y values. */
 async function traces(page: Page, selector: string): Promise<{ name: string; x: number[]; y: (number | null)[]; dash: string | null }[]> {
-  return page.locator(`${selector} .js-plotly-plot`).first().evaluate((div) =>
-    ((div as unknown as { data: { name?: string; x?: number[]; y?: (number | null)[]; line?: { dash?: string } }[] }).data ?? []).map((t) => ({
-      name: t.name ?? '',
-      x: t.x ?? [],
-      y: t.y ?? [],
-      dash: t.line?.dash ?? null,
-    })),
-  );
+  return page
+    .locator(`${selector} .js-plotly-plot`)
+    .first()
+    .evaluate((div) =>
+      ((div as unknown as { data: { name?: string; x?: number[]; y?: (number | null)[]; line?: { dash?: string } }[] }).data ?? []).map((t) => ({
+        name: t.name ?? '',
+        x: t.x ?? [],
+        y: t.y ?? [],
+        dash: t.line?.dash ?? null,
+      })),
+    );
 }
 
 describe('the exhaust side in the browser', () => {
@@ -54,7 +54,9 @@ describe('the exhaust side in the browser', () => {
     expect(divided.exhaust?.wastegates.count).toBe(2);
 
     // The same document run in node with the same built-in maps: what the page must show.
-    const maps = Object.fromEntries(doc.plans.flatMap((p) => [p.compressorMapId, p.turbineMapId].filter((id): id is string => !!id).map((id) => [id, builtinMap(id)])));
+    const maps = Object.fromEntries(
+      doc.plans.flatMap((p) => [p.compressorMapId, p.turbineMapId].filter((id): id is string => !!id).map((id) => [id, builtinMap(id)])),
+    );
     const result = runStudyDocument(doc, maps);
     const lineOf = (planIndex: number) => result.lines.find((l) => l.planIndex === planIndex && l.scenarioIndex === 0 && l.rowIndex === 0)!;
     // The demo holds its target only from some speed on (a turbine that big does not spool at 2500 rpm):
@@ -137,10 +139,34 @@ describe('the exhaust side in the browser', () => {
     const dpr = rows.find((r) => r.key === 'peakDrivePressureRatio')!;
     const gate = rows.find((r) => r.key === 'wastegateDiameterNeeded')!;
     const p3 = rows.find((r) => r.key === 'turbineInletPressureAtPeakPower')!;
-    for (const [i, cell] of threshold.cells.entries()) expect(await table.locator('tr[data-row="boostThresholdRpm"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value!, 21));
-    for (const [i, cell] of dpr.cells.entries()) expect(await table.locator('tr[data-row="peakDrivePressureRatio"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value!));
-    for (const [i, cell] of gate.cells.entries()) expect(await table.locator('tr[data-row="wastegateDiameterNeeded"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value! * 1000)); // m → mm
-    for (const [i, cell] of p3.cells.entries()) expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').nth(2 + i).innerText()).toContain(shownNumber(cell.value! / 1000)); // Pa → kPa
+    for (const [i, cell] of threshold.cells.entries())
+      expect(
+        await table
+          .locator('tr[data-row="boostThresholdRpm"] td')
+          .nth(2 + i)
+          .innerText(),
+      ).toContain(shownNumber(cell.value!, 21));
+    for (const [i, cell] of dpr.cells.entries())
+      expect(
+        await table
+          .locator('tr[data-row="peakDrivePressureRatio"] td')
+          .nth(2 + i)
+          .innerText(),
+      ).toContain(shownNumber(cell.value!));
+    for (const [i, cell] of gate.cells.entries())
+      expect(
+        await table
+          .locator('tr[data-row="wastegateDiameterNeeded"] td')
+          .nth(2 + i)
+          .innerText(),
+      ).toContain(shownNumber(cell.value! * 1000)); // m → mm
+    for (const [i, cell] of p3.cells.entries())
+      expect(
+        await table
+          .locator('tr[data-row="turbineInletPressureAtPeakPower"] td')
+          .nth(2 + i)
+          .innerText(),
+      ).toContain(shownNumber(cell.value! / 1000)); // Pa → kPa
     expect(await table.locator('tr[data-row="turbineInletPressureAtPeakPower"] td').first().innerText()).toContain('abs');
     // Each chosen plan on its own turbine map: the first drawn, the other chosen.
     await page.getByTestId('compare-turbine-map').locator('.js-plotly-plot .main-svg').first().waitFor();

@@ -29,7 +29,6 @@ function place(problem: ExpectedProblem): string {
 // plotly.js is 4.6 MB and this machine may be busy: give the first plot time to arrive.
 const PLOT_TIMEOUT = 120_000;
 
-
 async function expectProblems(page: Page, file: string) {
   const problems = expected.files[file];
   expect(problems.length).toBeGreaterThan(0);
@@ -78,7 +77,10 @@ describe('map library in the browser', () => {
     await page.getByText('“compressor-m58.csv” reads as a compressor map with no problems.').waitFor();
     // Its islands meet on the surge line: the preview notes how those places are read (docs/map-format.md).
     await page.getByText(/^Whole file: \d+ places hold points with different efficiencies/).waitFor();
-    await page.locator('section[aria-label="Preview of the chosen map"] .js-plotly-plot .main-svg').first().waitFor({ state: 'attached', timeout: PLOT_TIMEOUT });
+    await page
+      .locator('section[aria-label="Preview of the chosen map"] .js-plotly-plot .main-svg')
+      .first()
+      .waitFor({ state: 'attached', timeout: PLOT_TIMEOUT });
     await page.getByLabel('Name', { exact: true }).fill(name);
     await page.getByRole('button', { name: 'Save to library' }).click();
     await page.getByText(`Saved “${name}” to the library.`).waitFor();

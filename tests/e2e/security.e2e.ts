@@ -4,7 +4,7 @@ import path from 'node:path';
 import { generate } from 'otplib';
 import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ADMIN_USER, DEMO_USER as DEMO_ACCOUNT } from '../../server/db/seed';
+import { ADMIN_USER, DEMO_USER as DEMO_ACCOUNT } from '#server/db/seed';
 import { baseUrl, closeTestDatabase, DEMO_USER, launchBrowser, linkFromOutbox, screenshot, screenshotDir, signIn, watchForPageErrors } from './browser';
 
 let browser: Browser;
@@ -34,7 +34,10 @@ async function signUpThroughForm(page: Page, email: string) {
   await page.getByTestId('password-strength').filter({ hasText: 'Very easy to guess' }).waitFor();
   await screenshot(page, 'sign-up-weak-password');
   await form.getByLabel('Password').fill(PASSWORD);
-  await page.getByTestId('password-strength').filter({ hasText: /strong/i }).waitFor();
+  await page
+    .getByTestId('password-strength')
+    .filter({ hasText: /strong/i })
+    .waitFor();
   await form.getByRole('button', { name: 'Create account' }).click();
   await page.getByRole('link', { name: 'Team' }).first().waitFor();
 }
@@ -206,7 +209,10 @@ describe("security screens: a team's second-factor rule, share links, the admin'
     const me = (await (await page.request.get(`${base}/api/auth/me`)).json()) as { teams: { id: string; name: string }[] };
     const teamId = me.teams.find((t) => t.name === DEMO_USER.team)!.id;
     // A study of this test's own, from the demo.
-    const created = await page.request.post(`${base}/api/teams/${teamId}/studies`, { data: { title: `Shared ${randomUUID().slice(0, 8)}` }, headers: origin() });
+    const created = await page.request.post(`${base}/api/teams/${teamId}/studies`, {
+      data: { title: `Shared ${randomUUID().slice(0, 8)}` },
+      headers: origin(),
+    });
     expect(created.status()).toBe(201);
     const studyId = ((await created.json()) as { study: { id: string } }).study.id;
 
@@ -230,9 +236,14 @@ describe("security screens: a team's second-factor rule, share links, the admin'
     await rows.nth(0).getByText('Does not expire').waitFor();
 
     const listed = async () =>
-      ((await (await page.request.get(`${base}/api/teams/${teamId}/studies/${studyId}/share-links`)).json()) as { shareLinks: { id: string; createdAt: string; expiresAt: string | null; kept: boolean }[] }).shareLinks;
+      (
+        (await (await page.request.get(`${base}/api/teams/${teamId}/studies/${studyId}/share-links`)).json()) as {
+          shareLinks: { id: string; createdAt: string; expiresAt: string | null; kept: boolean }[];
+        }
+      ).shareLinks;
     const [never, week, month] = await listed();
-    const daysAfter = (link: { createdAt: string; expiresAt: string | null }) => Math.round((Date.parse(link.expiresAt!) - Date.parse(link.createdAt)) / 86_400_000);
+    const daysAfter = (link: { createdAt: string; expiresAt: string | null }) =>
+      Math.round((Date.parse(link.expiresAt!) - Date.parse(link.createdAt)) / 86_400_000);
     expect(never.expiresAt).toBeNull();
     expect(daysAfter(week)).toBe(7); // typed above
     expect(daysAfter(month)).toBe(30); // the default of docs/api.md

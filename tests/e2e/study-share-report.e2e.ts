@@ -2,12 +2,12 @@ import { randomUUID } from 'node:crypto';
 import { mkdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import type { CompressorMap } from '../../shared/maps/types';
-import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
-import { planVerdicts, VERDICT_RANK } from '../../shared/matching/verdict';
-import { compareLines } from '../../shared/study/compare';
-import { runStudyDocument } from '../../shared/study/run';
-import { DEFAULT_LESSON, runLesson } from '../../src/features/learn/lesson';
+import type { CompressorMap } from '#shared/maps/types';
+import { migrateStudyDocument, studyDocumentSchema } from '#shared/schemas/study';
+import { planVerdicts, VERDICT_RANK } from '#shared/matching/verdict';
+import { compareLines } from '#shared/study/compare';
+import { runStudyDocument } from '#shared/study/run';
+import { DEFAULT_LESSON, runLesson } from '#src/features/learn/lesson';
 import { baseUrl, builtinMap, DEMO_USER, screenshot, shownNumber, signIn, suiteBrowser } from './browser';
 
 // Side by side, the printable report, a share link opened signed out (and revoked), and the Learn
@@ -18,14 +18,11 @@ const DEMO = { ...DEMO_USER, study: 'Hill-climb 2.0: which compressor?' };
 // plotly.js is large and this machine may be busy: give plots time to arrive (the report draws ten).
 const PLOT_TIMEOUT = 180_000;
 
-
-
 function builtinCompressor(id: string): CompressorMap {
   const map = builtinMap(id);
   if (map.kind !== 'compressor') throw new Error(`demo map ${id} is not a compressor map`);
   return map;
 }
-
 
 /** State-changing API calls need the app's own Origin (docs/api.md). */
 function origin() {
@@ -80,7 +77,10 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     const maps = Object.fromEntries(doc.plans.flatMap((p) => (p.compressorMapId ? [[p.compressorMapId, builtinMap(p.compressorMapId)]] : [])));
     const result = runStudyDocument(doc, maps);
     const statusOf = new Map(planVerdicts(result).map((v) => [v.planIndex, v.status]));
-    const pick = (planIndex: number) => ({ ...result.lines.find((l) => l.planIndex === planIndex && l.scenarioIndex === 0 && l.rowIndex === 0)!, planVerdict: statusOf.get(planIndex) });
+    const pick = (planIndex: number) => ({
+      ...result.lines.find((l) => l.planIndex === planIndex && l.scenarioIndex === 0 && l.rowIndex === 0)!,
+      planVerdict: statusOf.get(planIndex),
+    });
     const rows = compareLines([pick(0), pick(1)].sort((a, b) => VERDICT_RANK[a.planVerdict!] - VERDICT_RANK[b.planVerdict!]));
     // Best only where the shared rows give it (none at all when neither plan fits).
     expect(await table.locator('[data-best]').count()).toBe(rows.reduce((n, r) => n + r.bestIndices.length, 0));
@@ -101,7 +101,14 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     await page.goto(`${base}/teams/${teamId}/studies/${studyId}/report`);
     await page.getByRole('heading', { name: title, level: 1 }).waitFor();
     await page.getByTestId('plan-verdicts').waitFor(); // the verdicts on the first page, before the inputs
-    for (const heading of ['1. Inputs', '2. Assumptions', '3. Compressor maps with every operating line', '4. Curves against engine speed', '5. Findings', '6. Results by operating point']) {
+    for (const heading of [
+      '1. Inputs',
+      '2. Assumptions',
+      '3. Compressor maps with every operating line',
+      '4. Curves against engine speed',
+      '5. Findings',
+      '6. Results by operating point',
+    ]) {
       await page.getByRole('heading', { name: heading, level: 2 }).waitFor();
     }
     await page.getByTestId('study-caution').first().waitFor();
@@ -186,7 +193,12 @@ describe('Side by side, report, share link and Learn in the browser', () => {
     expect(await ratio.innerText()).toBe(shownNumber(more.point.values!.pressureRatio, 3)); // 4 steps of 5 kPa, from the slider's own grid
 
     // Every section of the walk-through is there, with formulas and sources.
-    for (const heading of ['1. The air outside', '4. Corrected flow: the across-the-page axis of the map', '5. Pressure ratio: the up-the-page axis', '7. Where the point lands on the map']) {
+    for (const heading of [
+      '1. The air outside',
+      '4. Corrected flow: the across-the-page axis of the map',
+      '5. Pressure ratio: the up-the-page axis',
+      '7. Where the point lands on the map',
+    ]) {
       await page.getByRole('heading', { name: heading, level: 3 }).waitFor();
     }
     expect(await page.getByText(/^Source: /).count()).toBeGreaterThan(8);

@@ -49,7 +49,8 @@ async function switchUnits(page: Page, system: 'SI' | 'US customary') {
 async function plottedFlow(page: Page): Promise<number> {
   return page.evaluate(
     ({ label, rpm }) => {
-      const gd = document.querySelector('[data-testid="study-map"] .js-plotly-plot') as (HTMLElement & { data?: { name?: string; x?: number[]; customdata?: [string, number][] }[] }) | null;
+      const gd = document.querySelector('[data-testid="study-map"] .js-plotly-plot') as
+        (HTMLElement & { data?: { name?: string; x?: number[]; customdata?: [string, number][] }[] }) | null;
       const trace = gd?.data?.find((t) => t.name === label);
       const i = trace?.customdata?.findIndex((c) => c[1] === rpm) ?? -1;
       return trace && i >= 0 ? trace.x![i] : Number.NaN;
@@ -133,7 +134,8 @@ describe('study workspace', () => {
       await ve.fill('110');
       await a.waitForFunction(
         ({ label, rpm, old }) => {
-          const gd = document.querySelector('[data-testid="study-map"] .js-plotly-plot') as (HTMLElement & { data?: { name?: string; x?: number[]; customdata?: [string, number][] }[] }) | null;
+          const gd = document.querySelector('[data-testid="study-map"] .js-plotly-plot') as
+            (HTMLElement & { data?: { name?: string; x?: number[]; customdata?: [string, number][] }[] }) | null;
           const trace = gd?.data?.find((t) => t.name === label);
           const i = trace?.customdata?.findIndex((c) => c[1] === rpm) ?? -1;
           return trace !== undefined && i >= 0 && trace.x![i] !== old;
@@ -156,7 +158,9 @@ describe('study workspace', () => {
       await switchUnits(a, 'US customary');
       await a.getByText('(lb/min)').first().waitFor();
       // Both cells are rounded to 4 significant figures, hence the tolerance.
-      await expect.poll(async () => Math.abs((await tableFlow(a)) / flowSi - LB_PER_MIN_PER_KG_PER_S) / LB_PER_MIN_PER_KG_PER_S, { timeout: 30_000 }).toBeLessThan(2e-3);
+      await expect
+        .poll(async () => Math.abs((await tableFlow(a)) / flowSi - LB_PER_MIN_PER_KG_PER_S) / LB_PER_MIN_PER_KG_PER_S, { timeout: 30_000 })
+        .toBeLessThan(2e-3);
       expect(await ve.inputValue()).toBe('110'); // a percentage reads the same in both systems
       await switchUnits(a, 'SI');
       await a.getByText('(kg/s)').first().waitFor();
@@ -203,7 +207,9 @@ describe('study workspace', () => {
       await b.getByRole('heading', { name: `${title} (my version)`, level: 1 }).waitFor();
       expect(await b.getByTestId('section-engine').getByLabel('Displacement').inputValue()).toBe('2.1');
       // …and the original still holds the first person's revision 2.
-      const original = (await (await b.request.get(`${baseUrl()}/api/teams/${teamId}/studies/${studyId}`)).json()) as { study: { revision: number; document: { engine: { displacement: number } } } };
+      const original = (await (await b.request.get(`${baseUrl()}/api/teams/${teamId}/studies/${studyId}`)).json()) as {
+        study: { revision: number; document: { engine: { displacement: number } } };
+      };
       expect(original.study.revision).toBe(2);
       expect(original.study.document.engine.displacement).toBe(0.001998); // the demo study's displacement, m³
 
@@ -211,7 +217,8 @@ describe('study workspace', () => {
       expect(errorsB).toEqual([]);
     } finally {
       await switchUnits(a, 'SI').catch(() => undefined);
-      for (const id of made) await a.request.delete(`${baseUrl()}/api/teams/${teamId}/studies/${id}`, { headers: { Origin: baseUrl() } }).catch(() => undefined);
+      for (const id of made)
+        await a.request.delete(`${baseUrl()}/api/teams/${teamId}/studies/${id}`, { headers: { Origin: baseUrl() } }).catch(() => undefined);
       await contextB.close();
       await contextA.close();
     }

@@ -237,7 +237,9 @@ async function traceTheDemoMap(page: Page, errors: string[]) {
   expect(Math.abs(saved.map.map.reference.temperature / demo.map.map.reference.temperature - 1)).toBeLessThan(1e-12);
   expect(Math.abs(saved.map.map.reference.pressure / demo.map.map.reference.pressure - 1)).toBeLessThan(1e-12);
   // The picture is kept with the map.
-  const kept = (await (await page.request.get(`${baseUrl()}/api/teams/${teamId}/tracer/images?mapId=${mapId}`)).json()) as { images: { contentType: string }[] };
+  const kept = (await (await page.request.get(`${baseUrl()}/api/teams/${teamId}/tracer/images?mapId=${mapId}`)).json()) as {
+    images: { contentType: string }[];
+  };
   expect(kept.images).toEqual([expect.objectContaining({ contentType: 'image/png' })]);
   const xSpan = photo.xRange[1] - photo.xRange[0];
   const ySpan = photo.yRange[1] - photo.yRange[0];
@@ -254,7 +256,7 @@ async function traceTheDemoMap(page: Page, errors: string[]) {
     });
     if (curve.kind === 'speed') expect(curve.points.every((p) => p.speed === SPEED_LINES[i - 2])).toBe(true);
     // 70 % read as a fraction (70 / 100 carries a last-digit rounding).
-  if (curve.kind === 'island') expect(curve.points.every((p) => Math.abs(p.efficiency! - 0.7) < 1e-12)).toBe(true);
+    if (curve.kind === 'island') expect(curve.points.every((p) => Math.abs(p.efficiency! - 0.7) < 1e-12)).toBe(true);
   });
 
   await open.click();

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { planVerdicts, reasonText, VERDICT_RANK } from '../../shared/matching/verdict';
-import { migrateStudyDocument, studyDocumentSchema } from '../../shared/schemas/study';
-import { compareLines } from '../../shared/study/compare';
-import { runStudyDocument } from '../../shared/study/run';
-import { DEMO_STUDY_TITLE } from '../../server/db/seed';
+import { planVerdicts, reasonText, VERDICT_RANK } from '#shared/matching/verdict';
+import { migrateStudyDocument, studyDocumentSchema } from '#shared/schemas/study';
+import { compareLines } from '#shared/study/compare';
+import { runStudyDocument } from '#shared/study/run';
+import { DEMO_STUDY_TITLE } from '#server/db/seed';
 import { baseUrl, builtinMap, screenshot, shownNumber, suiteBrowser } from './browser';
 
 // The verdict of each plan in the production build: the seeded demo study (only read here), its
@@ -21,7 +21,9 @@ describe('verdicts in the browser', () => {
   it('judges the S44 plan "does not fit" with its reason, and marks no best on it side by side', async () => {
     const base = baseUrl();
     const { page, errors, teamId } = await suite.demoPage({ width: 1440, height: 900 });
-    const list = (await (await page.request.get(`${base}/api/teams/${teamId}/studies?q=${encodeURIComponent(DEMO_STUDY)}`)).json()) as { studies: { id: string; title: string }[] };
+    const list = (await (await page.request.get(`${base}/api/teams/${teamId}/studies?q=${encodeURIComponent(DEMO_STUDY)}`)).json()) as {
+      studies: { id: string; title: string }[];
+    };
     const studyId = list.studies.find((s) => s.title === DEMO_STUDY)?.id;
     expect(studyId, 'the seeded demo study').toBeTruthy();
     const { study } = (await (await page.request.get(`${base}/api/teams/${teamId}/studies/${studyId}`)).json()) as { study: { document: unknown } };
@@ -79,7 +81,12 @@ describe('verdicts in the browser', () => {
       .sort((a, b) => VERDICT_RANK[statusOf.get(a.planIndex)!] - VERDICT_RANK[statusOf.get(b.planIndex)!] || a.i - b.i);
     const rows = compareLines(chosen.map((c) => ({ ...c.line, planVerdict: statusOf.get(c.planIndex) })));
     const s44Column = chosen.findIndex((c) => c.planIndex === s44.planIndex);
-    expect(await table.locator('thead th').nth(3 + s44Column).innerText()).toContain(s44.planName);
+    expect(
+      await table
+        .locator('thead th')
+        .nth(3 + s44Column)
+        .innerText(),
+    ).toContain(s44.planName);
 
     // The verdict row first, with each plan's verdict.
     const first = table.locator('tbody tr').first();
@@ -93,7 +100,12 @@ describe('verdicts in the browser', () => {
     for (let i = 0; i < rows.length; i++) expect(await s44Cells.nth(i).getAttribute('data-best')).toBeNull();
     // Its values still show, plainly: the smallest choke margin, negative past choke.
     const choke = rows.find((r) => r.key === 'minChokeMargin')!.cells[s44Column];
-    expect(await table.locator('tr[data-row="minChokeMargin"] td').nth(2 + s44Column).innerText()).toContain(shownNumber(choke.value! * 100)); // fraction → %
+    expect(
+      await table
+        .locator('tr[data-row="minChokeMargin"] td')
+        .nth(2 + s44Column)
+        .innerText(),
+    ).toContain(shownNumber(choke.value! * 100)); // fraction → %
 
     // The chosen lines' verdicts sit above the map, the S44 one with its reason.
     const card = page.getByTestId('compare-verdicts');

@@ -6,7 +6,6 @@ import type { CompressorMapPlotProps } from './types';
 
 const DEFAULT_HEIGHT = 520;
 
-
 /**
  * The compressor map (surge line, choke limit, speed lines, efficiency islands) with the
  * operating lines of a study over it, in the user's units. plotly.js loads when this first shows.

@@ -19,14 +19,7 @@ export function FlowAxisSwitch({ value, onChange }: { value: 'corrected' | 'volu
               value === option.value ? 'bg-teal-light/80 text-teal-dark' : 'text-ink-soft hover:bg-paper-deep'
             }`}
           >
-            <input
-              type="radio"
-              name={name}
-              value={option.value}
-              checked={value === option.value}
-              onChange={() => onChange(option.value)}
-              className="sr-only"
-            />
+            <input type="radio" name={name} value={option.value} checked={value === option.value} onChange={() => onChange(option.value)} className="sr-only" />
             {option.label}
           </label>
         ))}

@@ -1,10 +1,9 @@
 import { useMemo } from 'react';
-import type { TurbineMap } from '../../../shared/maps/types';
-import type { UnitSystem } from '../../lib/units';
+import type { TurbineMap } from '#shared/maps/types';
+import type { UnitSystem } from '#src/lib/units';
 import { PlotFrame } from './PlotFrame';
 import { turbineMapFigure } from './turbine-map-figure';
 import type { TurbineOperatingLineView } from './types';
-
 
 /**
  * A turbine map in the same style as the compressor map: flow parameter against expansion ratio
@@ -28,13 +27,5 @@ export function TurbineMapPlot({
   onPointClick?: (lineKey: string, rpm: number) => void;
 }) {
   const figure = useMemo(() => turbineMapFigure({ map, unitSystem, height, lines, highlight }), [map, unitSystem, height, lines, highlight]);
-  return (
-    <PlotFrame
-      figure={figure}
-      height={height}
-      label={`Turbine map: ${map.name}`}
-      exportName={exportName ?? map.name}
-      onPointClick={onPointClick}
-    />
-  );
+  return <PlotFrame figure={figure} height={height} label={`Turbine map: ${map.name}`} exportName={exportName ?? map.name} onPointClick={onPointClick} />;
 }

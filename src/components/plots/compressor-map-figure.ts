@@ -1,11 +1,21 @@
 import type { Annotation, Data, Layout } from 'plotly.js-dist-min';
-import { referenceDensity } from '../../../shared/maps/scales';
-import type { CompressorCurve, CompressorMap } from '../../../shared/maps/types';
-import { fromSI } from '../../../shared/units';
-import { displayUnitOf, type UnitSystem } from '../../lib/units';
+import { referenceDensity } from '#shared/maps/scales';
+import type { CompressorCurve, CompressorMap } from '#shared/maps/types';
+import { fromSI } from '#shared/units';
+import { displayUnitOf, type UnitSystem } from '#src/lib/units';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
 import { builtForMap } from './map-cache';
-import { legendUnderMap, lineEndLabel, mapPlotPaper, notReachableMarker, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
+import {
+  legendUnderMap,
+  lineEndLabel,
+  mapPlotPaper,
+  notReachableMarker,
+  operatingLineStyle,
+  plotAxis,
+  plotColours,
+  plotFont,
+  selectedPointMarker,
+} from './style';
 import type { CompressorMapPlotProps, HoverItem, OperatingLineView, OperatingPointView } from './types';
 
 /** What plotly draws: traces and layout. Built by a pure function so it can be checked without a browser. */
@@ -217,7 +227,10 @@ export function islandLabelPoints(map: CompressorMap, islands: readonly Compress
   const byEfficiency = [...islands.keys()].sort((a, b) => (curveEfficiency(islands[b]) ?? -Infinity) - (curveEfficiency(islands[a]) ?? -Infinity));
   const peak = islands[byEfficiency[0]];
   if (!peak || peak.points.length === 0) return islands.map(() => null);
-  const centre = peak.points.map(unit).reduce((a, b) => [a[0] + b[0], a[1] + b[1]]).map((v) => v / peak.points.length);
+  const centre = peak.points
+    .map(unit)
+    .reduce((a, b) => [a[0] + b[0], a[1] + b[1]])
+    .map((v) => v / peak.points.length);
   const surgeFoot = map.curves.find((c) => c.kind === 'surge')?.points[0];
   const target = surgeFoot ? unit(surgeFoot) : [0, 0];
   const length = Math.hypot(target[0] - centre[0], target[1] - centre[1]) || 1;

@@ -1,5 +1,5 @@
-import { siUnitOf, unitConverter, type QuantityKind } from '../../../shared/units';
-import { displayUnitOf, type UnitSystem } from '../../lib/units';
+import { siUnitOf, unitConverter, type QuantityKind } from '#shared/units';
+import { displayUnitOf, type UnitSystem } from '#src/lib/units';
 
 // Numbers as the plots and map screens show them: in the user's units, with the unit written the
 // way people read it (°C, m³/s) rather than the way mathjs spells it (degC, m^3/s).

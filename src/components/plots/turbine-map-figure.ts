@@ -1,7 +1,7 @@
 import type { Annotation, Data } from 'plotly.js-dist-min';
-import type { TurbineMap } from '../../../shared/maps/types';
-import { mapValueFromSI } from '../../../shared/maps/units';
-import type { UnitSystem } from '../../lib/units';
+import type { TurbineMap } from '#shared/maps/types';
+import { mapValueFromSI } from '#shared/maps/units';
+import type { UnitSystem } from '#src/lib/units';
 import type { PlotFigure } from './compressor-map-figure';
 import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
 import { builtForMap } from './map-cache';
@@ -30,9 +30,15 @@ function operatingTraces(lines: readonly TurbineOperatingLineView[], perSI: numb
       showlegend: true,
       x: line.points.map((p) => p.expansionRatio),
       y: line.points.map((p) => p.flowParameter * perSI),
-      ...operatingLineStyle(line.planIndex, line.scenarioIndex, line.points.map((p) => p.severity)),
+      ...operatingLineStyle(
+        line.planIndex,
+        line.scenarioIndex,
+        line.points.map((p) => p.severity),
+      ),
       customdata: line.points.map((p) => [line.key, p.rpm]),
-      text: line.points.map((p) => [`<b>${plotText(line.label)}</b>`, ...p.hover.map((h) => `${plotText(h.label)}: ${formatQuantity(h.value, h.kind, system)}`)].join('<br>')),
+      text: line.points.map((p) =>
+        [`<b>${plotText(line.label)}</b>`, ...p.hover.map((h) => `${plotText(h.label)}: ${formatQuantity(h.value, h.kind, system)}`)].join('<br>'),
+      ),
       hovertemplate: '%{text}<extra></extra>',
     } satisfies Data;
   });

@@ -1,5 +1,5 @@
-import type { CompressorMap } from '../../../shared/maps/types';
-import type { UnitSystem } from '../../../shared/schemas/account';
+import type { CompressorMap } from '#shared/maps/types';
+import type { UnitSystem } from '#shared/schemas/account';
 
 /**
  * The contract between the compressor-map plot and the screens that use it (map library preview,

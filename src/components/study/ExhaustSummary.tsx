@@ -1,4 +1,4 @@
-import type { UnitSystem } from '../../lib/units';
+import type { UnitSystem } from '#src/lib/units';
 import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';
 import type { StudyLine } from './lines';
@@ -16,7 +16,9 @@ export function ExhaustSummary({ lines, unitSystem }: { lines: readonly StudyLin
   return (
     <div className="overflow-x-auto">
       <table className="w-full min-w-[40rem] border-collapse text-left text-sm" data-testid="exhaust-summary">
-        <caption className="mb-1 text-left text-xs text-ink-soft">Each line’s exhaust side at a glance. Full boost arrives at the first speed whose target the turbine holds.</caption>
+        <caption className="mb-1 text-left text-xs text-ink-soft">
+          Each line’s exhaust side at a glance. Full boost arrives at the first speed whose target the turbine holds.
+        </caption>
         <thead className="border-b-2 border-ink/20 align-bottom text-xs uppercase tracking-wider text-ink-soft">
           <tr>
             <th scope="col" className="px-2 py-1.5 font-semibold">
@@ -56,7 +58,8 @@ export function ExhaustSummary({ lines, unitSystem }: { lines: readonly StudyLin
                   {e.peakDrivePressureRatio ? `${formatNumber(e.peakDrivePressureRatio.value, 3)}${at(e.peakDrivePressureRatio.rpm)}` : '—'}
                 </td>
                 <td className={`numeric px-2 py-1.5 text-right ${tooSmall ? 'font-semibold text-copper-ink' : ''}`}>
-                  {needed ? formatStudyValue(needed.value, 'diameter', unitSystem, 3) : 'gates shut'} / {formatStudyValue(e.wastegateDiameterFitted, 'diameter', unitSystem, 3)}
+                  {needed ? formatStudyValue(needed.value, 'diameter', unitSystem, 3) : 'gates shut'} /{' '}
+                  {formatStudyValue(e.wastegateDiameterFitted, 'diameter', unitSystem, 3)}
                   {tooSmall && <span className="block text-xs">too small: boost creeps above target</span>}
                 </td>
                 <td className="numeric px-2 py-1.5 text-right">

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
-import type { Finding, FindingCode, Severity } from '../../../shared/matching/types';
-import type { UnitSystem } from '../../lib/units';
+import type { Finding, FindingCode, Severity } from '#shared/matching/types';
+import type { UnitSystem } from '#src/lib/units';
 import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
@@ -20,7 +20,10 @@ export interface FindingGroup {
 const ORDER: Severity[] = ['limit', 'warning', 'info'];
 
 const SEVERITY_TEXT: Record<Severity, { title: string; hint: string }> = {
-  limit: { title: 'Limits crossed', hint: 'Hard limits: points the compressor cannot deliver (surge, choke, overspeed, off the map), saturated injectors, lean under boost, stated limits.' },
+  limit: {
+    title: 'Limits crossed',
+    hint: 'Hard limits: points the compressor cannot deliver (surge, choke, overspeed, off the map), saturated injectors, lean under boost, stated limits.',
+  },
   warning: { title: 'Warnings', hint: 'Margins thinner than the study requires, close to a limit, or outside what the map or common practice covers.' },
   info: { title: 'Notes', hint: 'Worth knowing; usually expected (part throttle, light load).' },
 };
@@ -51,7 +54,9 @@ export function localizeMessage(message: string, system: UnitSystem): string {
   if (system === 'si') return message;
   return message
     .replace(/(-?[\d.]+(?:e[-+]?\d+)?) K \(−?-?[\d.]+ °C\)/g, (_m, kelvin: string) => formatStudyValue(Number(kelvin), 'temperature', system))
-    .replace(/(−|-)?([\d.]+(?:e[-+]?\d+)?) kPa/g, (_m, minus: string | undefined, kpa: string) => formatStudyValue((minus ? -1 : 1) * Number(kpa) * 1000, 'pressure', system))
+    .replace(/(−|-)?([\d.]+(?:e[-+]?\d+)?) kPa/g, (_m, minus: string | undefined, kpa: string) =>
+      formatStudyValue((minus ? -1 : 1) * Number(kpa) * 1000, 'pressure', system),
+    )
     .replace(/([\d.]+) mm\b/g, (_m, mm: string) => formatStudyValue(Number(mm) / 1000, 'diameter', system));
 }
 
@@ -114,7 +119,17 @@ export function findingTitle(code: FindingCode): string {
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
 
-function LineFinding({ group, unitSystem, selected, onSelect }: { group: FindingGroup; unitSystem: UnitSystem; selected: PointRef | null; onSelect: (point: PointRef) => void }) {
+function LineFinding({
+  group,
+  unitSystem,
+  selected,
+  onSelect,
+}: {
+  group: FindingGroup;
+  unitSystem: UnitSystem;
+  selected: PointRef | null;
+  onSelect: (point: PointRef) => void;
+}) {
   const rpms = [...group.rpms].sort((a, b) => a - b);
   const isSelected = selected !== null && selected.lineKey === group.line.key && rpms.some((r) => sameRpm(r, selected.rpm));
   const message = localizeMessage(group.finding.message, unitSystem);

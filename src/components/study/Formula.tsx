@@ -1,6 +1,6 @@
 import type { MathNode } from 'mathjs';
 import type { ReactNode } from 'react';
-import { math } from '../../../shared/units';
+import { math } from '#shared/units';
 
 // The Working's formulas are mathjs expressions over ASCII symbols (`m_dot_c`, `eta_c`, `T_2s`).
 // Here they are drawn the way a student writes them: ṁ with subscripts, Greek letters, stacked
@@ -60,11 +60,7 @@ function render(node: Node, key: string): ReactNode {
     case 'ConstantNode':
       return <span key={key}>{constantText(node.value)}</span>;
     case 'ParenthesisNode':
-      return (
-        <span key={key}>
-          ({render(node.content as Node, `${key}c`)})
-        </span>
-      );
+      return <span key={key}>({render(node.content as Node, `${key}c`)})</span>;
     case 'OperatorNode': {
       const args = node.args as Node[];
       const op = node.op as string;

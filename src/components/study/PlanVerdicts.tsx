@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
-import { REQUIREMENT_DEFAULTS, type Requirements } from '../../../shared/matching/requirements';
-import { planVerdicts, reasonWhere, VERDICT_WORDS, type PlanVerdict, type VerdictReason, type VerdictStatus } from '../../../shared/matching/verdict';
+import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/requirements';
+import { planVerdicts, reasonWhere, VERDICT_WORDS, type PlanVerdict, type VerdictReason, type VerdictStatus } from '#shared/matching/verdict';
 import { formatNumber } from '../plots/quantities';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { PlanSwatch } from './PlanSwatch';
@@ -59,7 +59,12 @@ function ReasonText({ reason }: { reason: VerdictReason }) {
 export function pointsText(v: Pick<PlanVerdict, 'pointsAtLimit' | 'pointsWithWarnings'>, total: number): string {
   const parts: string[] = [];
   if (v.pointsAtLimit > 0) parts.push(`${formatNumber(v.pointsAtLimit, 21)} of ${formatNumber(total, 21)} points at a limit`);
-  if (v.pointsWithWarnings > 0) parts.push(parts.length > 0 ? `${formatNumber(v.pointsWithWarnings, 21)} with warnings` : `${formatNumber(v.pointsWithWarnings, 21)} of ${formatNumber(total, 21)} points with warnings`);
+  if (v.pointsWithWarnings > 0)
+    parts.push(
+      parts.length > 0
+        ? `${formatNumber(v.pointsWithWarnings, 21)} with warnings`
+        : `${formatNumber(v.pointsWithWarnings, 21)} of ${formatNumber(total, 21)} points with warnings`,
+    );
   return parts.join(' · ');
 }
 
@@ -102,7 +107,11 @@ function PlanVerdictRow({
   const total = lines.reduce((n, l) => (l.planIndex === verdict.planIndex ? n + l.line.points.length : n), 0);
   const counts = pointsText(verdict, total);
   return (
-    <li className={`rounded-md border border-l-4 border-paper-line bg-white/80 px-3 py-2 ${STAMP[verdict.status].edge}`} data-testid={`verdict-plan-${verdict.planIndex}`} data-verdict={verdict.status}>
+    <li
+      className={`rounded-md border border-l-4 border-paper-line bg-white/80 px-3 py-2 ${STAMP[verdict.status].edge}`}
+      data-testid={`verdict-plan-${verdict.planIndex}`}
+      data-verdict={verdict.status}
+    >
       <div className="flex flex-wrap items-start gap-x-3 gap-y-1">
         <span className="flex min-w-[10rem] items-center gap-1.5 font-semibold text-ink">
           <PlanSwatch index={verdict.planIndex} />
@@ -153,7 +162,10 @@ function PlanVerdictRow({
 export function requiredMarginsText(requirements: Requirements | undefined): string {
   const r = requirements ?? REQUIREMENT_DEFAULTS;
   const pct = (x: number) => `${formatNumber(x * 100, 3)} %`;
-  const defaults = r.minSurgeMargin === REQUIREMENT_DEFAULTS.minSurgeMargin && r.minChokeMargin === REQUIREMENT_DEFAULTS.minChokeMargin && r.minSpeedMargin === REQUIREMENT_DEFAULTS.minSpeedMargin;
+  const defaults =
+    r.minSurgeMargin === REQUIREMENT_DEFAULTS.minSurgeMargin &&
+    r.minChokeMargin === REQUIREMENT_DEFAULTS.minChokeMargin &&
+    r.minSpeedMargin === REQUIREMENT_DEFAULTS.minSpeedMargin;
   return `surge ${pct(r.minSurgeMargin)}, choke ${pct(r.minChokeMargin)}, speed ${pct(r.minSpeedMargin)}${defaults ? ' (common-practice defaults)' : ''}`;
 }
 
@@ -181,9 +193,7 @@ export function PlanVerdicts({
         <h2 id="plan-verdicts-title" className="text-lg font-semibold text-ink">
           Verdict by plan
         </h2>
-        <p className="text-xs text-ink-soft">
-          Every point of every scenario and boost row, against the required margins: {requiredMarginsText(requirements)}.
-        </p>
+        <p className="text-xs text-ink-soft">Every point of every scenario and boost row, against the required margins: {requiredMarginsText(requirements)}.</p>
       </div>
       <ul className="space-y-1.5">
         {verdicts.map((v) => (

@@ -11,8 +11,8 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
-import { RESULT_COLUMNS, type ResultColumn } from '../../../shared/matching/results-table';
-import type { UnitSystem } from '../../lib/units';
+import { RESULT_COLUMNS, type ResultColumn } from '#shared/matching/results-table';
+import type { UnitSystem } from '#src/lib/units';
 import { Button } from '../Button';
 import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';
@@ -71,8 +71,18 @@ function buildColumns(system: UnitSystem) {
         </span>
       ),
     }),
-    helper.accessor('scenario', { id: 'scenario', header: () => <HeaderText label="Scenario" />, sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
-    helper.accessor('row', { id: 'row', header: () => <HeaderText label="Boost row" />, sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
+    helper.accessor('scenario', {
+      id: 'scenario',
+      header: () => <HeaderText label="Scenario" />,
+      sortFn: 'alphanumeric',
+      cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+    }),
+    helper.accessor('row', {
+      id: 'row',
+      header: () => <HeaderText label="Boost row" />,
+      sortFn: 'alphanumeric',
+      cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+    }),
     ...RESULT_COLUMNS.flatMap((column) => {
       const value = helper.accessor((row) => cellValue(row, column, system) ?? undefined, {
         id: column.key,
@@ -191,7 +201,7 @@ export function ResultsTable({
 
   const sortedRows = table.getPrePaginatedRowModel().rows;
   const pageCount = Math.max(1, Math.ceil(sortedRows.length / PAGE_SIZE));
-  const selectedId = selected ? allRows.find((r) => r.lineKey === selected.lineKey && sameRpm(r.rpm, selected.rpm))?.id ?? null : null;
+  const selectedId = selected ? (allRows.find((r) => r.lineKey === selected.lineKey && sameRpm(r.rpm, selected.rpm))?.id ?? null) : null;
 
   // Show the page that holds the selected point, so a click on a finding lands on its row.
   useEffect(() => {
@@ -217,7 +227,12 @@ export function ResultsTable({
 
   async function copy() {
     try {
-      await copyText(resultsTsv(sortedRows.map((r) => r.original), unitSystem));
+      await copyText(
+        resultsTsv(
+          sortedRows.map((r) => r.original),
+          unitSystem,
+        ),
+      );
       setCopyState({ tone: 'ok', text: `Copied ${sortedRows.length} rows as tab-separated text: paste them into a spreadsheet.` });
     } catch {
       setCopyState({ tone: 'error', text: 'The browser did not allow copying. Use the CSV download instead.' });
@@ -277,7 +292,11 @@ export function ResultsTable({
                       aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}
                       className={`px-2.5 py-2 align-bottom font-semibold ${header.id === 'plan' ? 'sticky left-0 z-20 bg-paper' : ''}`}
                     >
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="flex items-end gap-1 text-left uppercase hover:text-ink">
+                      <button
+                        type="button"
+                        onClick={header.column.getToggleSortingHandler()}
+                        className="flex items-end gap-1 text-left uppercase hover:text-ink"
+                      >
                         <table.FlexRender header={header} />
                         <span aria-hidden="true" className="w-3 text-ink">
                           {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}

@@ -1,9 +1,8 @@
 import { useMemo, useState } from 'react';
-import type { UnitSystem } from '../../lib/units';
+import type { UnitSystem } from '#src/lib/units';
 import { PlotFrame } from '../plots/PlotFrame';
 import { hasExhaust, type PointRef, type StudyLine } from './lines';
 import { curveViewsFor, rpmCurvesFigure } from './rpm-curves-figure';
-
 
 /**
  * Curves against engine speed, one quantity at a time (boost, pressure ratio, mass flow, power
@@ -58,7 +57,9 @@ export function RpmCurves({
                 aria-pressed={v.id === view.id}
                 onClick={() => setViewId(v.id)}
                 className={`rounded-md border px-2.5 py-1 text-sm font-semibold transition-colors ${
-                  v.id === view.id ? 'border-teal bg-teal-light/80 text-teal-dark' : 'border-ink/20 bg-white/70 text-ink-soft hover:border-teal hover:text-teal-dark'
+                  v.id === view.id
+                    ? 'border-teal bg-teal-light/80 text-teal-dark'
+                    : 'border-ink/20 bg-white/70 text-ink-soft hover:border-teal hover:text-teal-dark'
                 }`}
               >
                 {v.label}

@@ -1,10 +1,10 @@
 import { useMemo } from 'react';
-import { pointWorking } from '../../../shared/matching/explain-point';
-import { mapRegionText } from '../../../shared/matching/results-table';
-import type { OperatingPoint } from '../../../shared/matching/types';
-import type { WorkingStep, WorkingValue } from '../../../shared/matching/working';
-import { math } from '../../../shared/units';
-import type { UnitSystem } from '../../lib/units';
+import { pointWorking } from '#shared/matching/explain-point';
+import { mapRegionText } from '#shared/matching/results-table';
+import type { OperatingPoint } from '#shared/matching/types';
+import type { WorkingStep, WorkingValue } from '#shared/matching/working';
+import { math } from '#shared/units';
+import type { UnitSystem } from '#src/lib/units';
 import { formatNumber } from '../plots/quantities';
 import { Formula, MathSymbol } from './Formula';
 import type { StudyLine } from './lines';
@@ -67,7 +67,10 @@ function StepView({ step, index, system }: { step: WorkingStep; index: number; s
   const given = isFormula ? step.values : [];
   return (
     <li className="relative border-l-2 border-teal/30 pb-5 pl-5 last:pb-0" data-step={step.id}>
-      <span aria-hidden="true" className="absolute -left-[13px] top-0 flex size-6 items-center justify-center rounded-full border border-teal/40 bg-paper text-xs font-semibold text-teal-dark">
+      <span
+        aria-hidden="true"
+        className="absolute -left-[13px] top-0 flex size-6 items-center justify-center rounded-full border border-teal/40 bg-paper text-xs font-semibold text-teal-dark"
+      >
         {index + 1}
       </span>
       <h4 className="font-semibold text-ink">{step.title}</h4>

@@ -1,7 +1,7 @@
-import { worstSeverity } from '../../../shared/matching/findings';
-import { missingMarginWords, type MarginName } from '../../../shared/matching/margin-words';
-import { mapRegionText } from '../../../shared/matching/results-table';
-import type { OperatingLine, OperatingPoint, SolvedPoint, StudyResult } from '../../../shared/matching/types';
+import { worstSeverity } from '#shared/matching/findings';
+import { missingMarginWords, type MarginName } from '#shared/matching/margin-words';
+import { mapRegionText } from '#shared/matching/results-table';
+import type { OperatingLine, OperatingPoint, SolvedPoint, StudyResult } from '#shared/matching/types';
 import type { HoverItem, OperatingLineView, OperatingPointView, TurbineOperatingLineView, TurbineOperatingPointView } from '../plots/types';
 
 /** One operating line of a study with the key every view of the study uses for it. */
@@ -77,7 +77,16 @@ function pointView(point: SolvedPoint): OperatingPointView {
     hover: [
       { label: 'Engine speed', value: v.rpm, kind: 'speed' },
       ...(v.mapRegion ? [{ label: 'Where', value: null, kind: 'text', text: mapRegionText(v) }] : []),
-      ...(v.mapRegion ? [{ label: 'Reachable', value: null, kind: 'text', text: reachable ? (v.offMapAssumed ? 'yes, on the off-map efficiency assumption' : 'yes') : 'no: the compressor cannot deliver it' }] : []),
+      ...(v.mapRegion
+        ? [
+            {
+              label: 'Reachable',
+              value: null,
+              kind: 'text',
+              text: reachable ? (v.offMapAssumed ? 'yes, on the off-map efficiency assumption' : 'yes') : 'no: the compressor cannot deliver it',
+            },
+          ]
+        : []),
       { label: 'Boost (gauge)', value: v.boost, kind: 'pressure' },
       { label: 'Pressure ratio', value: v.pressureRatio, kind: 'ratio' },
       { label: 'Corrected mass flow', value: v.correctedMassFlow, kind: 'massFlow' },
@@ -105,7 +114,12 @@ export function mapLineViews(lines: readonly StudyLine[]): OperatingLineView[] {
 
 function turbinePointView(point: SolvedPoint): TurbineOperatingPointView | null {
   const v = point.values;
-  if (typeof v.expansionRatio !== 'number' || typeof v.turbineMapFlowParameter !== 'number' || !Number.isFinite(v.expansionRatio) || !Number.isFinite(v.turbineMapFlowParameter))
+  if (
+    typeof v.expansionRatio !== 'number' ||
+    typeof v.turbineMapFlowParameter !== 'number' ||
+    !Number.isFinite(v.expansionRatio) ||
+    !Number.isFinite(v.turbineMapFlowParameter)
+  )
     return null;
   return {
     rpm: v.rpm,

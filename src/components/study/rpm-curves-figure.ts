@@ -1,10 +1,10 @@
 import type { Annotation, Data, Layout, Shape } from 'plotly.js-dist-min';
-import { DRIVE_PRESSURE_RATIO_WARNING } from '../../../shared/matching/exhaust-findings';
-import { INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '../../../shared/matching/findings';
-import { REQUIREMENT_DEFAULTS } from '../../../shared/matching/requirements';
-import { mapRegionText } from '../../../shared/matching/results-table';
-import type { PointValues, SolvedPoint } from '../../../shared/matching/types';
-import type { UnitSystem } from '../../lib/units';
+import { DRIVE_PRESSURE_RATIO_WARNING } from '#shared/matching/exhaust-findings';
+import { INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '#shared/matching/findings';
+import { REQUIREMENT_DEFAULTS } from '#shared/matching/requirements';
+import { mapRegionText } from '#shared/matching/results-table';
+import type { PointValues, SolvedPoint } from '#shared/matching/types';
+import type { UnitSystem } from '#src/lib/units';
 import type { PlotFigure } from '../plots/compressor-map-figure';
 import { formatNumber, plotText } from '../plots/quantities';
 import { planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash } from '../plots/style';
@@ -101,7 +101,11 @@ export const CURVE_VIEWS: CurveView[] = [
     sameScale: true,
     panels: [
       { title: 'Turbine power (per turbocharger)', quantity: 'power', value: (v) => v.turbinePower ?? null },
-      { title: 'Compressor power (per turbocharger)', quantity: 'power', value: (v) => (v.turbinePower === null || v.turbinePower === undefined ? null : v.compressorPower) },
+      {
+        title: 'Compressor power (per turbocharger)',
+        quantity: 'power',
+        value: (v) => (v.turbinePower === null || v.turbinePower === undefined ? null : v.compressorPower),
+      },
     ],
   },
   {
@@ -133,8 +137,27 @@ function axisTitle(series: Series, system: UnitSystem): string {
 function guide(y: number, colour: string, label: string, axis: number): { shape: Partial<Shape>; annotation: Partial<Annotation> } {
   const suffix = axis === 1 ? '' : String(axis);
   return {
-    shape: { type: 'line', xref: `x${suffix} domain` as Shape['xref'], x0: 0, x1: 1, yref: `y${suffix}` as Shape['yref'], y0: y, y1: y, line: { color: colour, width: 1.25, dash: 'dot' } },
-    annotation: { xref: `x${suffix} domain` as Annotation['xref'], x: 1, xanchor: 'right', yref: `y${suffix}` as Annotation['yref'], y, yanchor: 'bottom', text: plotText(label), showarrow: false, font: { ...plotFont, size: 10, color: colour } },
+    shape: {
+      type: 'line',
+      xref: `x${suffix} domain` as Shape['xref'],
+      x0: 0,
+      x1: 1,
+      yref: `y${suffix}` as Shape['yref'],
+      y0: y,
+      y1: y,
+      line: { color: colour, width: 1.25, dash: 'dot' },
+    },
+    annotation: {
+      xref: `x${suffix} domain` as Annotation['xref'],
+      x: 1,
+      xanchor: 'right',
+      yref: `y${suffix}` as Annotation['yref'],
+      y,
+      yanchor: 'bottom',
+      text: plotText(label),
+      showarrow: false,
+      font: { ...plotFont, size: 10, color: colour },
+    },
   };
 }
 
@@ -147,10 +170,16 @@ function guides(view: CurveView, system: UnitSystem, outletTemperatureLimit: num
   }
   if (view.id === 'outlet-temperature') {
     const unit = quantityUnit('temperature', system);
-    out.push(guide(unit.fromSI(outletTemperatureAccepted), plotColours.copper, `${formatStudyValue(outletTemperatureAccepted, 'temperature', system)} accepted`, 1));
-    if (outletTemperatureLimit !== null) out.push(guide(unit.fromSI(outletTemperatureLimit), plotColours.limit, `${formatStudyValue(outletTemperatureLimit, 'temperature', system)} stated limit`, 1));
+    out.push(
+      guide(unit.fromSI(outletTemperatureAccepted), plotColours.copper, `${formatStudyValue(outletTemperatureAccepted, 'temperature', system)} accepted`, 1),
+    );
+    if (outletTemperatureLimit !== null)
+      out.push(
+        guide(unit.fromSI(outletTemperatureLimit), plotColours.limit, `${formatStudyValue(outletTemperatureLimit, 'temperature', system)} stated limit`, 1),
+      );
   }
-  if (view.id === 'exhaust-pressure') out.push(guide(DRIVE_PRESSURE_RATIO_WARNING, plotColours.copper, `${formatNumber(DRIVE_PRESSURE_RATIO_WARNING)} high`, 2));
+  if (view.id === 'exhaust-pressure')
+    out.push(guide(DRIVE_PRESSURE_RATIO_WARNING, plotColours.copper, `${formatNumber(DRIVE_PRESSURE_RATIO_WARNING)} high`, 2));
   return out;
 }
 
@@ -182,7 +211,13 @@ function unreachableWords(points: readonly SolvedPoint[], series: Series): { at:
   const gaps = unreachable.filter((p) => series.value(p.values) === null).map((p) => p.rpm);
   return {
     at: (p) => (p.values.reachable === false ? `<br><i>Not reachable with this compressor (${plotText(mapRegionText(p.values))})</i>` : ''),
-    line: gaps.length > 0 ? `<br><i>Not reachable with this compressor at ${rpmRuns(gaps, points.map((p) => p.rpm))}: no ${plotText(series.title.toLowerCase())} there</i>` : '',
+    line:
+      gaps.length > 0
+        ? `<br><i>Not reachable with this compressor at ${rpmRuns(
+            gaps,
+            points.map((p) => p.rpm),
+          )}: no ${plotText(series.title.toLowerCase())} there</i>`
+        : '',
   };
 }
 
@@ -318,7 +353,12 @@ export function rpmCurvesFigure({
     ...plotAxis,
     title: { font: { ...plotFont, size: 12 } },
   };
-  const g = guides(view, unitSystem, outletTemperatureLimit, lines[0]?.line.context.requirements?.maxCompressorOutletTemperature ?? REQUIREMENT_DEFAULTS.maxCompressorOutletTemperature);
+  const g = guides(
+    view,
+    unitSystem,
+    outletTemperatureLimit,
+    lines[0]?.line.context.requirements?.maxCompressorOutletTemperature ?? REQUIREMENT_DEFAULTS.maxCompressorOutletTemperature,
+  );
   const layout: Partial<Layout> = {
     height,
     autosize: true,
@@ -334,20 +374,18 @@ export function rpmCurvesFigure({
     annotations: [
       ...g.map((x) => x.annotation),
       ...(view.panels.length > 1
-        ? view.panels.map(
-            (series, i): Partial<Annotation> => ({
-              xref: `x${i === 0 ? '' : i + 1} domain` as Annotation['xref'],
-              yref: 'paper',
-              x: 0,
-              y: 1,
-              xanchor: 'left',
-              yanchor: 'bottom',
-              yshift: 4,
-              text: `<b>${plotText(series.title)}</b>`,
-              showarrow: false,
-              font: { ...plotFont, size: 12 },
-            }),
-          )
+        ? view.panels.map((series, i): Partial<Annotation> => ({
+            xref: `x${i === 0 ? '' : i + 1} domain` as Annotation['xref'],
+            yref: 'paper',
+            x: 0,
+            y: 1,
+            xanchor: 'left',
+            yanchor: 'bottom',
+            yshift: 4,
+            text: `<b>${plotText(series.title)}</b>`,
+            showarrow: false,
+            font: { ...plotFont, size: 12 },
+          }))
         : []),
     ],
     dragmode: 'zoom',

@@ -1,7 +1,7 @@
-import type { SpoolbookMap } from '../../../shared/maps/types';
-import type { StudyResult } from '../../../shared/matching';
-import type { StudyDocument } from '../../../shared/schemas/study';
-import { mapModelCache, runStudyDocument } from '../../../shared/study/run';
+import type { SpoolbookMap } from '#shared/maps/types';
+import type { StudyResult } from '#shared/matching';
+import type { StudyDocument } from '#shared/schemas/study';
+import { mapModelCache, runStudyDocument } from '#shared/study/run';
 
 // The browser recomputes on every edit: it keeps one model per loaded map object and reuses it.
 const cache = mapModelCache();

@@ -1,6 +1,6 @@
-import type { DiffValueKind } from '../../../shared/study/diff';
-import { unitConverter, type QuantityKind } from '../../../shared/units';
-import { displayUnits, type UnitSystem } from '../../lib/units';
+import type { DiffValueKind } from '#shared/study/diff';
+import { unitConverter, type QuantityKind } from '#shared/units';
+import { displayUnits, type UnitSystem } from '#src/lib/units';
 import { formatNumber } from '../plots/quantities';
 
 /**
@@ -153,10 +153,16 @@ export function parseTypedNumber(raw: string): { ok: true; value: number } | { o
  * A pressure loss as a study states it, in the user's units: "15 kPa at 0.38 kg/s and
  * 0.29 kg/m³" when it follows the flow, "12 kPa at every flow" when it is fixed.
  */
-export function formatPressureLoss(loss: { pressureLoss: number; referenceMassFlow?: number; referenceDensity?: number } | undefined, system: UnitSystem): string {
+export function formatPressureLoss(
+  loss: { pressureLoss: number; referenceMassFlow?: number; referenceDensity?: number } | undefined,
+  system: UnitSystem,
+): string {
   if (!loss || typeof loss !== 'object') return '—';
   const dp = formatStudyValue(loss.pressureLoss, 'pressure', system);
   if (loss.referenceMassFlow === undefined) return `${dp} at every flow`;
-  const density = loss.referenceDensity === undefined ? `${formatStudyValue(1.225, 'density', system)} (standard air)` : formatStudyValue(loss.referenceDensity, 'density', system);
+  const density =
+    loss.referenceDensity === undefined
+      ? `${formatStudyValue(1.225, 'density', system)} (standard air)`
+      : formatStudyValue(loss.referenceDensity, 'density', system);
   return `${dp} at ${formatStudyValue(loss.referenceMassFlow, 'massFlow', system)} and ${density}`;
 }

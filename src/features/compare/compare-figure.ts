@@ -1,9 +1,9 @@
 import type { Data } from 'plotly.js-dist-min';
-import type { CompressorMap } from '../../../shared/maps/types';
-import { compressorMapFigure, flowScale, type PlotFigure } from '../../components/plots/compressor-map-figure';
-import { plotText } from '../../components/plots/quantities';
-import type { OperatingLineView } from '../../components/plots/types';
-import type { UnitSystem } from '../../lib/units';
+import type { CompressorMap } from '#shared/maps/types';
+import { compressorMapFigure, flowScale, type PlotFigure } from '#src/components/plots/compressor-map-figure';
+import { plotText } from '#src/components/plots/quantities';
+import type { OperatingLineView } from '#src/components/plots/types';
+import type { UnitSystem } from '#src/lib/units';
 
 /** Another map whose edges are drawn over the one shown, in the colour of its first combination. */
 export interface OverlaidMap {
@@ -56,7 +56,14 @@ export function compareFigure(args: {
   highlight?: { lineKey: string; rpm: number } | null;
   height: number;
 }): PlotFigure {
-  const base = compressorMapFigure({ map: args.map, lines: [...args.lines], flowAxis: args.flowAxis, unitSystem: args.unitSystem, highlight: args.highlight ?? null, height: args.height });
+  const base = compressorMapFigure({
+    map: args.map,
+    lines: [...args.lines],
+    flowAxis: args.flowAxis,
+    unitSystem: args.unitSystem,
+    highlight: args.highlight ?? null,
+    height: args.height,
+  });
   const extra = args.overlays.flatMap((o) => edgeTraces(o, args.flowAxis, args.unitSystem));
   // Up to four lines and the other maps' edges make a long legend: under the plot, not over the map.
   base.layout.legend = { ...base.layout.legend, orientation: 'h', x: 0, xanchor: 'left', y: -0.14, yanchor: 'top' };

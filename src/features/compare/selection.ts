@@ -1,5 +1,5 @@
-import type { StudyDocument } from '../../../shared/schemas/study';
-import { lineKeyOf } from '../../components/study/lines';
+import type { StudyDocument } from '#shared/schemas/study';
+import { lineKeyOf } from '#src/components/study/lines';
 
 /** Side by side compares at least two and at most four combinations. */
 export const MIN_COMBINATIONS = 2;

@@ -1,9 +1,9 @@
-import type { CompressorMap } from '../../../shared/maps/types';
-import { pointWorking } from '../../../shared/matching/explain-point';
-import type { LineContext, OperatingPoint, SolvedPoint } from '../../../shared/matching/types';
-import type { WorkingStep } from '../../../shared/matching/working';
-import type { StudyDocument } from '../../../shared/schemas/study';
-import { runStudyDocument } from '../../../shared/study/run';
+import type { CompressorMap } from '#shared/maps/types';
+import { pointWorking } from '#shared/matching/explain-point';
+import type { LineContext, OperatingPoint, SolvedPoint } from '#shared/matching/types';
+import type { WorkingStep } from '#shared/matching/working';
+import type { StudyDocument } from '#shared/schemas/study';
+import { runStudyDocument } from '#shared/study/run';
 import { LEARN_MAP_ID } from './api/get-demo-map';
 
 /** What the reader moves on the Learn page, SI. */
@@ -72,7 +72,9 @@ export function lessonDocument(inputs: LessonInputs, withMap: boolean): StudyDoc
         boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: [{ rpm: inputs.rpm, value: inputs.boost }] }],
       },
     ],
-    plans: [{ id: 'learn', name: 'Demo compressor', turbochargers: 1, compressorEfficiency: e.fallbackEfficiency, compressorMapId: withMap ? LEARN_MAP_ID : null }],
+    plans: [
+      { id: 'learn', name: 'Demo compressor', turbochargers: 1, compressorEfficiency: e.fallbackEfficiency, compressorMapId: withMap ? LEARN_MAP_ID : null },
+    ],
   };
 }
 

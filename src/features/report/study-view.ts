@@ -1,9 +1,9 @@
 import { useMemo } from 'react';
-import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../shared/maps/types';
-import type { StudyResult } from '../../../shared/matching/types';
-import type { StudyDocument } from '../../../shared/schemas/study';
-import { studyLines, type StudyLine } from '../../components/study/lines';
-import { runStudyLive } from '../../components/study/run';
+import type { CompressorMap, SpoolbookMap, TurbineMap } from '#shared/maps/types';
+import type { StudyResult } from '#shared/matching/types';
+import type { StudyDocument } from '#shared/schemas/study';
+import { studyLines, type StudyLine } from '#src/components/study/lines';
+import { runStudyLive } from '#src/components/study/run';
 
 /** A study as the read-only views show it: what was saved and the maps its plans use. */
 export interface StudyViewData {
@@ -71,7 +71,12 @@ function groupByMap<M extends SpoolbookMap>(
  * The lines grouped by the compressor map of their plan, in plan order. Plans on different maps
  * are drawn on separate maps: a point is only meaningful on the map it was read from.
  */
-export function mapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): MapGroup[] {
+export function mapGroups(
+  doc: StudyDocument,
+  lines: readonly StudyLine[],
+  mapsById: StudyViewData['mapsById'],
+  mapNames: Record<string, string> = {},
+): MapGroup[] {
   return groupByMap<CompressorMap>(doc, lines, mapsById, mapNames, 'compressor', (plan) => plan.compressorMapId ?? null, 'Plans without a compressor map');
 }
 
@@ -80,8 +85,21 @@ export function mapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsB
  * `mapGroups` for the compressor. Plans without an exhaust block are left out; those with one but
  * no loaded turbine map form one group without a map.
  */
-export function turbineMapGroups(doc: StudyDocument, lines: readonly StudyLine[], mapsById: StudyViewData['mapsById'], mapNames: Record<string, string> = {}): TurbineMapGroup[] {
-  return groupByMap<TurbineMap>(doc, lines, mapsById, mapNames, 'turbine', (plan) => (plan.exhaust ? (plan.turbineMapId ?? null) : undefined), 'Plans without a turbine map');
+export function turbineMapGroups(
+  doc: StudyDocument,
+  lines: readonly StudyLine[],
+  mapsById: StudyViewData['mapsById'],
+  mapNames: Record<string, string> = {},
+): TurbineMapGroup[] {
+  return groupByMap<TurbineMap>(
+    doc,
+    lines,
+    mapsById,
+    mapNames,
+    'turbine',
+    (plan) => (plan.exhaust ? (plan.turbineMapId ?? null) : undefined),
+    'Plans without a turbine map',
+  );
 }
 
 export interface ComputedStudy {

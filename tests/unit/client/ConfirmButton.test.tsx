@@ -1,7 +1,7 @@
 import { cleanup, fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { ConfirmButton } from '../../../src/components/ConfirmButton';
-import { ApiError } from '../../../src/lib/api-client';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { ApiError } from '#src/lib/api-client';
 
 afterEach(cleanup);
 

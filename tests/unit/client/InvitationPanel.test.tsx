@@ -2,14 +2,17 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, render, screen } from '@testing-library/react';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { InvitationPreview, Me } from '../../../shared/schemas/account';
-import { invitationQueryOptions } from '../../../src/features/team/api/get-invitation';
-import { InvitationPanel } from '../../../src/features/team/components/InvitationPanel';
-import { meQueryOptions } from '../../../src/lib/session';
+import type { InvitationPreview, Me } from '#shared/schemas/account';
+import { invitationQueryOptions } from '#src/features/team/api/get-invitation';
+import { InvitationPanel } from '#src/features/team/components/InvitationPanel';
+import { meQueryOptions } from '#src/lib/session';
 
 // Rendered from data already in the query cache; no request may leave the test.
 beforeEach(() => {
-  vi.stubGlobal('fetch', vi.fn(() => Promise.reject(new Error('no request is expected in this test'))));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(() => Promise.reject(new Error('no request is expected in this test'))),
+  );
 });
 afterEach(() => {
   cleanup();

@@ -2,15 +2,18 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { Me, Role, TeamDetail } from '../../../shared/schemas/account';
-import { TeamView } from '../../../src/features/team/components/TeamView';
-import { teamQueryOptions } from '../../../src/features/team/api/get-team';
-import { meQueryOptions } from '../../../src/lib/session';
+import type { Me, Role, TeamDetail } from '#shared/schemas/account';
+import { TeamView } from '#src/features/team/components/TeamView';
+import { teamQueryOptions } from '#src/features/team/api/get-team';
+import { meQueryOptions } from '#src/lib/session';
 
 // The team page is rendered from data already in the query cache (as after a fetch); no request
 // may leave the test, so fetch is made to fail loudly rather than answering for the server.
 beforeEach(() => {
-  vi.stubGlobal('fetch', vi.fn(() => Promise.reject(new Error('no request is expected in this test'))));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(() => Promise.reject(new Error('no request is expected in this test'))),
+  );
 });
 afterEach(() => {
   cleanup();

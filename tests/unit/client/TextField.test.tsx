@@ -1,6 +1,6 @@
 import { cleanup, render, screen } from '@testing-library/react';
 import { afterEach, describe, expect, it } from 'vitest';
-import { TextField } from '../../../src/components/TextField';
+import { TextField } from '#src/components/TextField';
 
 afterEach(cleanup);
 

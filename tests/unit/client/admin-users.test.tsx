@@ -3,16 +3,34 @@ import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-li
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { json, recordFetch, type RecordedRequest } from './fetch-recorder';
-import type { AdminUser, Me } from '../../../shared/schemas/account';
-import { usersQueryOptions } from '../../../src/features/admin/api/get-users';
-import { UsersTable } from '../../../src/features/admin/components/UsersTable';
-import { meQueryOptions } from '../../../src/lib/session';
+import type { AdminUser, Me } from '#shared/schemas/account';
+import { usersQueryOptions } from '#src/features/admin/api/get-users';
+import { UsersTable } from '#src/features/admin/components/UsersTable';
+import { meQueryOptions } from '#src/lib/session';
 
 // The site admin's Users page. The first list comes from the query cache; fetch records the
 // requests these tests check and answers as docs/api.md says the server does.
 const users: AdminUser[] = [
-  { id: 'u1', email: 'admin@example.test', name: 'Ada Admin', isAdmin: true, twoFactor: true, emailConfirmed: true, sessions: 1, lastSeenAt: '2025-03-01T10:00:00Z' },
-  { id: 'u2', email: 'dana@example.test', name: 'Dana', isAdmin: false, twoFactor: false, emailConfirmed: true, sessions: 2, lastSeenAt: '2025-03-02T10:00:00Z' },
+  {
+    id: 'u1',
+    email: 'admin@example.test',
+    name: 'Ada Admin',
+    isAdmin: true,
+    twoFactor: true,
+    emailConfirmed: true,
+    sessions: 1,
+    lastSeenAt: '2025-03-01T10:00:00Z',
+  },
+  {
+    id: 'u2',
+    email: 'dana@example.test',
+    name: 'Dana',
+    isAdmin: false,
+    twoFactor: false,
+    emailConfirmed: true,
+    sessions: 2,
+    lastSeenAt: '2025-03-02T10:00:00Z',
+  },
   { id: 'u3', email: 'new@example.test', name: 'Noor', isAdmin: false, twoFactor: false, emailConfirmed: false, sessions: 0, lastSeenAt: null },
 ];
 
@@ -29,7 +47,10 @@ afterEach(() => {
 
 function renderUsers() {
   const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false } } });
-  const me: Me = { user: { id: 'u1', email: 'admin@example.test', name: 'Ada Admin', isAdmin: true, unitSystem: 'si', emailConfirmed: true, twoFactor: true }, teams: [] };
+  const me: Me = {
+    user: { id: 'u1', email: 'admin@example.test', name: 'Ada Admin', isAdmin: true, unitSystem: 'si', emailConfirmed: true, twoFactor: true },
+    teams: [],
+  };
   queryClient.setQueryData(meQueryOptions().queryKey, me);
   queryClient.setQueryData(usersQueryOptions('').queryKey, users);
   render(

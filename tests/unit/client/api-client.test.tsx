@@ -1,13 +1,15 @@
 import { QueryClient } from '@tanstack/react-query';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { z } from 'zod';
-import { meSchema } from '../../../shared/schemas/account';
-import { ApiError, api, apiErrorFrom } from '../../../src/lib/api-client';
-import { installSessionExpiry, meQueryOptions } from '../../../src/lib/session';
+import { meSchema } from '#shared/schemas/account';
+import { ApiError, api, apiErrorFrom } from '#src/lib/api-client';
+import { installSessionExpiry, meQueryOptions } from '#src/lib/session';
 
 // The one unit test that replaces fetch: it checks how the client reads answers, not the server.
 function answer(status: number, body?: unknown, headers: Record<string, string> = {}) {
-  return vi.fn(async () => new Response(body === undefined ? null : JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json', ...headers } }));
+  return vi.fn(
+    async () => new Response(body === undefined ? null : JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json', ...headers } }),
+  );
 }
 
 const me = {
@@ -64,7 +66,10 @@ describe('api client errors', () => {
   });
 
   it('reports a network failure as status 0 with a readable message', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     const error = (await api.get('/api/teams', z.object({})).catch((caught: unknown) => caught)) as ApiError;
     expect(error.status).toBe(0); // the client's own convention for "no HTTP answer", no source
     expect(error.code).toBe('network_error');
@@ -94,7 +99,10 @@ describe('api client requests and answers', () => {
   });
 
   it('resolves a 204 answer without a body to undefined', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response(null, { status: 204 }))); // HTTP 204 No Content, RFC 9110 §15.3.5
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response(null, { status: 204 })),
+    ); // HTTP 204 No Content, RFC 9110 §15.3.5
     await expect(api.post('/api/auth/sign-out')).resolves.toBeUndefined();
   });
 });

@@ -1,8 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import type { DocumentChange } from '../../../shared/study/diff';
-import { changeValueText } from '../../../src/features/studies/components/workspace/ChangeList';
+import type { DocumentChange } from '#shared/study/diff';
+import { changeValueText } from '#src/features/studies/components/workspace/ChangeList';
 
-const change = (kind: DocumentChange['kind'], before: unknown, after: unknown): DocumentChange => ({ path: 'Plan “A” › x', keys: ['plans', 0, 'x'], change: 'changed', before, after, kind });
+const change = (kind: DocumentChange['kind'], before: unknown, after: unknown): DocumentChange => ({
+  path: 'Plan “A” › x',
+  keys: ['plans', 0, 'x'],
+  change: 'changed',
+  before,
+  after,
+  kind,
+});
 
 describe('a change of the revision history in words', () => {
   it('reads a turbine map taken off a plan (stored as null) as none, not as "null"', () => {

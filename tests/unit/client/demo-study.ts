@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
 
 // The demo "which compressor?" study and its three built-in compressor maps, read from data/ as
 // the server reads them, for the client tests that run the engine on real inputs.

@@ -1,8 +1,8 @@
 import { cleanup, render, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it } from 'vitest';
-import type { ExhaustLineSummary, OperatingPoint, PointValues } from '../../../shared/matching/types';
-import { compareLines, type ComparableLine } from '../../../shared/study/compare';
-import { DifferencesTable, rowUnit, rowValueText } from '../../../src/features/compare/components/DifferencesTable';
+import type { ExhaustLineSummary, OperatingPoint, PointValues } from '#shared/matching/types';
+import { compareLines, type ComparableLine } from '#shared/study/compare';
+import { DifferencesTable, rowUnit, rowValueText } from '#src/features/compare/components/DifferencesTable';
 
 afterEach(cleanup);
 

@@ -2,12 +2,12 @@ import { cleanup, render, screen, within } from '@testing-library/react';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import { runStudyDocument } from '../../../shared/study/run';
-import { ExhaustSummary } from '../../../src/components/study/ExhaustSummary';
-import { studyLines, type StudyLine } from '../../../src/components/study/lines';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import { runStudyDocument } from '#shared/study/run';
+import { ExhaustSummary } from '#src/components/study/ExhaustSummary';
+import { studyLines, type StudyLine } from '#src/components/study/lines';
 
 afterEach(cleanup);
 

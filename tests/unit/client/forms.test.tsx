@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { signUpSchema } from '../../../shared/schemas/account';
-import { ApiError } from '../../../src/lib/api-client';
-import { asSentence, formErrorsFrom, parseForm } from '../../../src/lib/forms';
+import { signUpSchema } from '#shared/schemas/account';
+import { ApiError } from '#src/lib/api-client';
+import { asSentence, formErrorsFrom, parseForm } from '#src/lib/forms';
 
 describe('form errors from the server', () => {
   it('puts known paths beside their fields and the rest in the general message', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import type { TeamSummary } from '../../../shared/schemas/account';
-import { pathForTeamSwitch } from '../../../src/components/TeamSwitcher';
-import { chooseCurrentTeam } from '../../../src/lib/current-team';
+import type { TeamSummary } from '#shared/schemas/account';
+import { pathForTeamSwitch } from '#src/components/TeamSwitcher';
+import { chooseCurrentTeam } from '#src/lib/current-team';
 
 // Which team the Maps entry opens: the address, else the last one used, else the personal team.
 

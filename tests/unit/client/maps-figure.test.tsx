@@ -1,11 +1,11 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps/parse';
-import type { CompressorMap } from '../../../shared/maps/types';
-import { compressorMapFigure, islandLabelPoints } from '../../../src/components/plots/compressor-map-figure';
-import { formatQuantity } from '../../../src/components/plots/quantities';
-import type { OperatingLineView } from '../../../src/components/plots/types';
+import { parseMapFile } from '#shared/maps/parse';
+import type { CompressorMap } from '#shared/maps/types';
+import { compressorMapFigure, islandLabelPoints } from '#src/components/plots/compressor-map-figure';
+import { formatQuantity } from '#src/components/plots/quantities';
+import type { OperatingLineView } from '#src/components/plots/types';
 
 // The compressor-map figure is built by a pure function; plotly itself cannot run under jsdom, so
 // the traces and layout it is handed are checked here and the drawing in the browser test.
@@ -22,7 +22,14 @@ function expectClose(actual: number, expected: number, relTol: number) {
   expect(Math.abs(actual - expected)).toBeLessThanOrEqual(relTol * Math.abs(expected));
 }
 
-type Trace = { name?: string; x?: number[]; y?: number[]; text?: string[]; line?: { color?: string; dash?: string }; marker?: { symbol?: string; color?: string } };
+type Trace = {
+  name?: string;
+  x?: number[];
+  y?: number[];
+  text?: string[];
+  line?: { color?: string; dash?: string };
+  marker?: { symbol?: string; color?: string };
+};
 const traces = (data: unknown[]) => data as Trace[];
 
 const m58 = demoMap('compressor-m58.csv');

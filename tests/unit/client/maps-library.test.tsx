@@ -4,27 +4,30 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { Me, Role } from '../../../shared/schemas/account';
-import { parseMapFile } from '../../../shared/maps/parse';
-import { mapQueryOptions } from '../../../src/features/maps/api/get-map';
-import { mapsQueryOptions } from '../../../src/features/maps/api/get-maps';
-import type { MapDetail, MapSummary } from '../../../src/features/maps/api/schemas';
-import { MapLibrary } from '../../../src/features/maps/components/MapLibrary';
-import { MapProblemList } from '../../../src/features/maps/components/MapProblemList';
-import { MapUpload } from '../../../src/features/maps/components/MapUpload';
-import { MapView } from '../../../src/features/maps/components/MapView';
-import { meQueryOptions } from '../../../src/lib/session';
+import type { Me, Role } from '#shared/schemas/account';
+import { parseMapFile } from '#shared/maps/parse';
+import { mapQueryOptions } from '#src/features/maps/api/get-map';
+import { mapsQueryOptions } from '#src/features/maps/api/get-maps';
+import type { MapDetail, MapSummary } from '#src/features/maps/api/schemas';
+import { MapLibrary } from '#src/features/maps/components/MapLibrary';
+import { MapProblemList } from '#src/features/maps/components/MapProblemList';
+import { MapUpload } from '#src/features/maps/components/MapUpload';
+import { MapView } from '#src/features/maps/components/MapView';
+import { meQueryOptions } from '#src/lib/session';
 
 // plotly.js does not run under jsdom: the lazy plot is replaced by a marker. The screens are
 // rendered from data already in the query cache; no request may leave these tests.
-vi.mock('../../../src/components/plots/Plot', () => ({
+vi.mock('#src/components/plots/Plot', () => ({
   Plot: ({ height }: { height: number }) => <div data-testid="plot" style={{ height }} />,
   PlotPlaceholder: () => null,
   loadPlotly: () => Promise.reject(new Error('plotly is not loaded in unit tests')),
 }));
 
 beforeEach(() => {
-  vi.stubGlobal('fetch', vi.fn(() => Promise.reject(new Error('no request is expected in this test'))));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(() => Promise.reject(new Error('no request is expected in this test'))),
+  );
 });
 afterEach(() => {
   cleanup();
@@ -101,7 +104,14 @@ describe('problem list of a refused map file', () => {
           { code: 'unknown-key', line: 4, column: null, message: 'unknown key "refrence temperature"' },
           { code: 'decimal-comma', line: 6, column: 3, message: 'write numbers with a decimal point (0.10)' },
         ]}
-        lines={['# spoolbook-map: 1', '', '', '# refrence temperature: 298 K', 'curve,label,flow,pressure_ratio,efficiency,speed', 'speed,80000,"0,10",1.17,72,80000']}
+        lines={[
+          '# spoolbook-map: 1',
+          '',
+          '',
+          '# refrence temperature: 298 K',
+          'curve,label,flow,pressure_ratio,efficiency,speed',
+          'speed,80000,"0,10",1.17,72,80000',
+        ]}
       />,
     );
     const items = within(screen.getByRole('list', { name: 'Problems in the file' })).getAllByRole('listitem');
@@ -119,7 +129,9 @@ describe('adding a map', () => {
     choose(fileFrom('tests/fixtures/maps/bad/decimal-comma-quoted.csv'));
     const list = await screen.findByRole('list', { name: 'Problems in the file' });
     // tests/fixtures/maps/bad/expected.json: the one problem of this file.
-    expect(within(list).getByRole('listitem').textContent).toContain('Line 17, column 3: flow "0,10" uses a decimal comma; write numbers with a decimal point (0.10)');
+    expect(within(list).getByRole('listitem').textContent).toContain(
+      'Line 17, column 3: flow "0,10" uses a decimal comma; write numbers with a decimal point (0.10)',
+    );
     expect(screen.getByRole('heading', { name: '“decimal-comma-quoted.csv” has 1 problem. Nothing was saved.' })).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Save to library' })).toBeNull();
   });

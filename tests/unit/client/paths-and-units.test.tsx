@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { isUnitOf, siUnitOf, type QuantityKind } from '../../../shared/units';
-import { paths, safeNext } from '../../../src/lib/paths';
-import { displayUnits } from '../../../src/lib/units';
+import { isUnitOf, siUnitOf, type QuantityKind } from '#shared/units';
+import { paths, safeNext } from '#src/lib/paths';
+import { displayUnits } from '#src/lib/units';
 
 describe('safeNext', () => {
   it('keeps a path inside the app', () => {

@@ -3,21 +3,21 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { MemoryRouter } from 'react-router';
 import { afterEach, describe, expect, it, onTestFinished, vi } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
-import { studyDocumentSchema, type StudyDocument } from '../../../shared/schemas/study';
-import { studyLines } from '../../../src/components/study/lines';
-import { runStudyLive } from '../../../src/components/study/run';
-import { Assumptions } from '../../../src/features/report/components/Assumptions';
-import { ExhaustNotes } from '../../../src/features/report/components/ExhaustNotes';
-import { reportCurveViews } from '../../../src/features/report/components/ReportCurves';
-import { ReadOnlyStudyView } from '../../../src/features/report/components/ReadOnlyStudyView';
-import { StudyInputs } from '../../../src/features/report/components/StudyInputs';
-import { StudyReport } from '../../../src/features/report/components/StudyReport';
-import { mapGroups, turbineMapGroups } from '../../../src/features/report/study-view';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { studyLines } from '#src/components/study/lines';
+import { runStudyLive } from '#src/components/study/run';
+import { Assumptions } from '#src/features/report/components/Assumptions';
+import { ExhaustNotes } from '#src/features/report/components/ExhaustNotes';
+import { reportCurveViews } from '#src/features/report/components/ReportCurves';
+import { ReadOnlyStudyView } from '#src/features/report/components/ReadOnlyStudyView';
+import { StudyInputs } from '#src/features/report/components/StudyInputs';
+import { StudyReport } from '#src/features/report/components/StudyReport';
+import { mapGroups, turbineMapGroups } from '#src/features/report/study-view';
 
 // plotly cannot draw under jsdom: every plot frame becomes a labelled stand-in (the browser test draws them).
-vi.mock('../../../src/components/plots/PlotFrame', () => ({
+vi.mock('#src/components/plots/PlotFrame', () => ({
   PlotFrame: ({ label }: { label: string }) => <div data-testid="plot-stand-in">{label}</div>,
 }));
 
@@ -57,7 +57,9 @@ describe('report inputs: the exhaust side', () => {
   it('gives every plan’s exhaust inputs in SI, one column per plan', () => {
     render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} system="si" />);
     expect(screen.getByRole('heading', { name: 'Exhaust side', level: 3 })).toBeTruthy();
-    const columns = within(exhaustTable()).getAllByRole('columnheader').map((th) => th.textContent);
+    const columns = within(exhaustTable())
+      .getAllByRole('columnheader')
+      .map((th) => th.textContent);
     // Plan names hand-read from data/demo/turbine-housing-study.json.
     expect(columns).toEqual(['0.64 A/R single scroll, one gate', '0.82 A/R divided, two gates']);
     // No library names given: the maps' own names (the "name:" lines of data/maps/turbine-t64-*.csv).
@@ -92,7 +94,10 @@ describe('report inputs: the exhaust side', () => {
     // 0.044 m / 0.0254 m/in = 1.732 in; 0.038 / 0.0254 = 1.496 in (1 in = 25.4 mm exactly, NIST SP 811 B.8).
     expect(exhaustRow('Wastegates')).toEqual(['1 × 1.732 in valve', '2 × 1.496 in valve']);
     // 15000 Pa / 6894.757 Pa/psi = 2.176 psi; 0.38 kg/s × 60/0.45359237 = 50.27 lb/min; 0.29 kg/m³ × 0.0624280 = 0.0181 lb/ft³ (NIST SP 811 B.8).
-    expect(exhaustRow('Pressure loss after the turbine')).toEqual(['2.176 psi at 50.27 lb/min and 0.0181 lb/ft³', '2.176 psi at 50.27 lb/min and 0.0181 lb/ft³']);
+    expect(exhaustRow('Pressure loss after the turbine')).toEqual([
+      '2.176 psi at 50.27 lb/min and 0.0181 lb/ft³',
+      '2.176 psi at 50.27 lb/min and 0.0181 lb/ft³',
+    ]);
   });
 
   it('says "Compressor only" for a plan without an exhaust block, and "1.0 (default)" for a divided plan with no pulse factor', () => {
@@ -118,8 +123,16 @@ describe('report inputs: the exhaust side', () => {
     const first = screen.getByRole('table', { name: 'Exhaust side of each plan' });
     const second = screen.getByRole('table', { name: 'Exhaust side of each plan (continued)' });
     // Four plan columns per table (PLAN_COLUMNS_PER_TABLE, our page layout, no source), the fifth under them.
-    expect(within(first).getAllByRole('columnheader').map((th) => th.textContent)).toEqual(['Plan 1', 'Plan 2', 'Plan 3', 'Plan 4']);
-    expect(within(second).getAllByRole('columnheader').map((th) => th.textContent)).toEqual(['Plan 5']);
+    expect(
+      within(first)
+        .getAllByRole('columnheader')
+        .map((th) => th.textContent),
+    ).toEqual(['Plan 1', 'Plan 2', 'Plan 3', 'Plan 4']);
+    expect(
+      within(second)
+        .getAllByRole('columnheader')
+        .map((th) => th.textContent),
+    ).toEqual(['Plan 5']);
   });
 
   it('shows no exhaust block for a study judged on the compressor alone', () => {
@@ -263,7 +276,10 @@ describe('the whole report and the shared view with the exhaust side', () => {
     const choices = within(card).getAllByRole('radio');
     // The two plans' turbine maps (fixture); choosing one draws it.
     expect(choices.map((r) => r.textContent)).toEqual([expect.stringContaining('A/R 0.64'), expect.stringContaining('A/R 0.82')]);
-    for (const [i, size] of [[1, 'A/R 0.82'], [0, 'A/R 0.64']] as const) {
+    for (const [i, size] of [
+      [1, 'A/R 0.82'],
+      [0, 'A/R 0.64'],
+    ] as const) {
       fireEvent.click(choices[i]);
       expect(choices[i].getAttribute('aria-checked')).toBe('true');
       expect(within(card).getByTestId('plot-stand-in').textContent).toContain(size);

@@ -1,13 +1,16 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, cleanup, render, screen } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { Me } from '../../../shared/schemas/account';
-import { endSession, meQueryOptions, startSession, useMe } from '../../../src/lib/session';
+import type { Me } from '#shared/schemas/account';
+import { endSession, meQueryOptions, startSession, useMe } from '#src/lib/session';
 
 // Sessions change under mounted screens (the sign-in page's guard watches `me`); these check
 // that the watchers see the change. No request may leave: the cache is seeded directly.
 beforeEach(() => {
-  vi.stubGlobal('fetch', vi.fn(() => Promise.reject(new Error('no request is expected in this test'))));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(() => Promise.reject(new Error('no request is expected in this test'))),
+  );
 });
 afterEach(() => {
   cleanup();
@@ -19,7 +22,10 @@ function Who() {
   return <p>{me.data ? `signed in as ${me.data.user.email}` : 'signed out'}</p>;
 }
 
-const demo: Me = { user: { id: 'u1', email: 'demo@spoolbook.test', name: 'Demo', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false }, teams: [] };
+const demo: Me = {
+  user: { id: 'u1', email: 'demo@spoolbook.test', name: 'Demo', isAdmin: false, unitSystem: 'si', emailConfirmed: true, twoFactor: false },
+  teams: [],
+};
 
 function renderWho(queryClient: QueryClient) {
   render(

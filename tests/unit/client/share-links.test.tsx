@@ -3,10 +3,10 @@ import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-li
 import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { json, recordFetch, type RecordedRequest } from './fetch-recorder';
-import type { Me, Role } from '../../../shared/schemas/account';
-import { shareLinksQueryOptions, type ShareLink } from '../../../src/features/studies/api/get-share-links';
-import { SharePanel } from '../../../src/features/studies/components/workspace/SharePanel';
-import { meQueryOptions } from '../../../src/lib/session';
+import type { Me, Role } from '#shared/schemas/account';
+import { shareLinksQueryOptions, type ShareLink } from '#src/features/studies/api/get-share-links';
+import { SharePanel } from '#src/features/studies/components/workspace/SharePanel';
+import { meQueryOptions } from '#src/lib/session';
 
 // The share links of a study: the expiry choice when making one, and for owners the choice to
 // keep a link working after its maker leaves. The list comes from the query cache; fetch records
@@ -63,7 +63,9 @@ describe('keeping a share link when its maker leaves', () => {
   it("sends the owner's choice for that link alone", async () => {
     renderPanel('owner');
     fireEvent.click(within(rows()[0]).getByRole('switch', { name: 'Keep when its maker leaves' }));
-    await waitFor(() => expect(requests.find((r) => r.method === 'PUT')).toEqual({ method: 'PUT', url: '/api/teams/t1/studies/s1/share-links/l1/kept', body: { kept: true } }));
+    await waitFor(() =>
+      expect(requests.find((r) => r.method === 'PUT')).toEqual({ method: 'PUT', url: '/api/teams/t1/studies/s1/share-links/l1/kept', body: { kept: true } }),
+    );
     // Until the list is read again, that switch shows where it is going and the others wait.
     expect(within(rows()[0]).getByRole('switch').getAttribute('aria-checked')).toBe('true');
     expect((within(rows()[1]).getByRole('switch') as HTMLButtonElement).disabled).toBe(true);
@@ -72,7 +74,9 @@ describe('keeping a share link when its maker leaves', () => {
   it('lets an owner stop keeping a kept link', async () => {
     renderPanel('owner');
     fireEvent.click(within(rows()[1]).getByRole('switch', { name: 'Keep when its maker leaves' }));
-    await waitFor(() => expect(requests.find((r) => r.method === 'PUT')).toEqual({ method: 'PUT', url: '/api/teams/t1/studies/s1/share-links/l2/kept', body: { kept: false } }));
+    await waitFor(() =>
+      expect(requests.find((r) => r.method === 'PUT')).toEqual({ method: 'PUT', url: '/api/teams/t1/studies/s1/share-links/l2/kept', body: { kept: false } }),
+    );
   });
 
   it('shows an editor the state in words, with no switch', () => {

@@ -3,15 +3,18 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { useMemo, useState } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import type { MapListItem } from '../../../src/features/studies/api/get-team-maps';
-import { EditorContext, type Editor } from '../../../src/features/studies/components/editor/context';
-import { ExhaustFields } from '../../../src/features/studies/components/editor/ExhaustFields';
-import { issuesByPath, setIn } from '../../../src/features/studies/lib/draft';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
+import { ExhaustFields } from '#src/features/studies/components/editor/ExhaustFields';
+import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
 
 afterEach(cleanup);
 
-const compressorDemo = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '../../../data/demo/hillclimb-study.json'), 'utf8')) as Record<string, unknown>;
+const compressorDemo = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '../../../data/demo/hillclimb-study.json'), 'utf8')) as Record<
+  string,
+  unknown
+>;
 
 const turbineMaps: MapListItem[] = [
   { id: 'builtin-turbine-t64-ar064-single', kind: 'turbine', name: 'T64 0.64 single', builtin: true, summary: { housing: 'single', areaRatio: 0.64 } },

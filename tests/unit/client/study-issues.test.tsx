@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { describePath } from '../../../src/features/studies/lib/describe-path';
-import { localizeIssue } from '../../../src/features/studies/lib/localize-issue';
+import { describePath } from '#src/features/studies/lib/describe-path';
+import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 
 // The shared schemas word limits in SI for API callers; beside a box that converts units they
 // are reworded in the box's unit.
@@ -21,7 +21,9 @@ describe('localizeIssue', () => {
   });
 
   it('converts absolute temperatures and pressures', () => {
-    expect(localizeIssue('ambient temperature is absolute temperature in K, at least 150 K (was °C given?)', 'temperature', 'si')).toBe('ambient temperature at least -123.1 °C'); // 150 K − 273.15 = −123.15 °C (definition of °C), 4 significant figures
+    expect(localizeIssue('ambient temperature is absolute temperature in K, at least 150 K (was °C given?)', 'temperature', 'si')).toBe(
+      'ambient temperature at least -123.1 °C',
+    ); // 150 K − 273.15 = −123.15 °C (definition of °C), 4 significant figures
     expect(localizeIssue('boost is gauge pressure in Pa: at most 1 000 000 Pa', 'pressureGauge', 'us')).toBe('boost is gauge pressure at most 145 psi gauge'); // 1 MPa = 145.04 psi (NIST SP 811)
   });
 
@@ -33,7 +35,12 @@ describe('localizeIssue', () => {
 
 describe('describePath', () => {
   const draft = {
-    engine: { volumetricEfficiency: [{ rpm: 2500, value: 0.9 }, { rpm: 3500, value: 20 }] },
+    engine: {
+      volumetricEfficiency: [
+        { rpm: 2500, value: 0.9 },
+        { rpm: 3500, value: 20 },
+      ],
+    },
     scenarios: [{ name: 'Hot day', boostSchedule: [{ label: 'Full load', boost: [{ rpm: 3000, value: 1e7 }] }] }],
     plans: [{ name: 'M58 mid wheel' }],
   };

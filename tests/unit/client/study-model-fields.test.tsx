@@ -3,15 +3,15 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { useMemo, useState, type ReactNode } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import type { MapListItem } from '../../../src/features/studies/api/get-team-maps';
-import { AssumptionsSection } from '../../../src/features/studies/components/editor/AssumptionsSection';
-import { EditorContext, type Editor } from '../../../src/features/studies/components/editor/context';
-import { EngineSection } from '../../../src/features/studies/components/editor/EngineSection';
-import { ExhaustFields } from '../../../src/features/studies/components/editor/ExhaustFields';
-import { FuelSection } from '../../../src/features/studies/components/editor/FuelSection';
-import { ScenariosSection } from '../../../src/features/studies/components/editor/ScenariosSection';
-import { issuesByPath, setIn } from '../../../src/features/studies/lib/draft';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import { AssumptionsSection } from '#src/features/studies/components/editor/AssumptionsSection';
+import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
+import { EngineSection } from '#src/features/studies/components/editor/EngineSection';
+import { ExhaustFields } from '#src/features/studies/components/editor/ExhaustFields';
+import { FuelSection } from '#src/features/studies/components/editor/FuelSection';
+import { ScenariosSection } from '#src/features/studies/components/editor/ScenariosSection';
+import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
 
 afterEach(cleanup);
 
@@ -19,7 +19,17 @@ const root = path.resolve(import.meta.dirname, '../../..');
 const demo = (file: string) => JSON.parse(readFileSync(path.join(root, 'data/demo', file), 'utf8')) as Record<string, unknown>;
 
 /** A section of the study editor over a live draft, as the study page has it. */
-function Host({ start, unitSystem = 'si', onDraft, children }: { start: Record<string, unknown>; unitSystem?: 'si' | 'us'; onDraft: (d: Record<string, unknown>) => void; children: ReactNode }) {
+function Host({
+  start,
+  unitSystem = 'si',
+  onDraft,
+  children,
+}: {
+  start: Record<string, unknown>;
+  unitSystem?: 'si' | 'us';
+  onDraft: (d: Record<string, unknown>) => void;
+  children: ReactNode;
+}) {
   const [draft, setDraft] = useState<Record<string, unknown>>(() => structuredClone(start));
   const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
   onDraft(draft);
@@ -110,7 +120,13 @@ describe('the study editor’s new inputs', () => {
 
   it('shows what the turbine map’s efficiency counts in the plan’s exhaust block', () => {
     const maps: MapListItem[] = [
-      { id: 'builtin-turbine-t64-ar064-single', kind: 'turbine', name: 'T64 0.64 single', builtin: true, summary: { housing: 'single', areaRatio: 0.64, efficiencyKind: 'with-bearing-losses' } },
+      {
+        id: 'builtin-turbine-t64-ar064-single',
+        kind: 'turbine',
+        name: 'T64 0.64 single',
+        builtin: true,
+        summary: { housing: 'single', areaRatio: 0.64, efficiencyKind: 'with-bearing-losses' },
+      },
       { id: 'team-map', kind: 'turbine', name: 'Our own', builtin: false, summary: { housing: 'single', areaRatio: 0.7, efficiencyKind: null } },
     ];
     let draft: Record<string, unknown> = {};
@@ -127,7 +143,11 @@ describe('the study editor’s new inputs', () => {
     const loss = within(screen.getByTestId('plan-0-downstream-loss'));
     type(loss.getByLabelText('At engine exhaust flow'), '0.3');
     type(loss.getByLabelText('Density of the exhaust gas then'), '0.3');
-    expect((draft.plans as { exhaust: { downstreamLoss: unknown } }[])[0].exhaust.downstreamLoss).toEqual({ pressureLoss: 15_000, referenceMassFlow: 0.3, referenceDensity: 0.3 });
+    expect((draft.plans as { exhaust: { downstreamLoss: unknown } }[])[0].exhaust.downstreamLoss).toEqual({
+      pressureLoss: 15_000,
+      referenceMassFlow: 0.3,
+      referenceDensity: 0.3,
+    });
     expect(valid(draft)).toBe(true);
   });
 });

@@ -1,7 +1,7 @@
 import { cleanup, fireEvent, render, screen } from '@testing-library/react';
 import { useState } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { UnitNumberInput } from '../../../src/features/studies/components/editor/fields';
+import { UnitNumberInput } from '#src/features/studies/components/editor/fields';
 
 afterEach(cleanup);
 

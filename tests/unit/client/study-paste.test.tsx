@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { applyPaste, parsePastedTable } from '../../../src/features/studies/lib/paste-table';
+import { applyPaste, parsePastedTable } from '#src/features/studies/lib/paste-table';
 
 // Pasting a column, or rpm and value columns, from a spreadsheet into a table by rpm.
 
@@ -20,13 +20,41 @@ describe('parsePastedTable', () => {
   });
 
   it('takes a decimal comma where cells are split by tabs or semicolons, where it cannot be a separator', () => {
-    expect(parsePastedTable('2500\t0,86\n4500\t0,8')).toEqual({ ok: true, kind: 'rows', rows: [{ rpm: 2500, value: 0.86 }, { rpm: 4500, value: 0.8 }] });
-    expect(parsePastedTable('2500;0,86\n4500;0,8')).toEqual({ ok: true, kind: 'rows', rows: [{ rpm: 2500, value: 0.86 }, { rpm: 4500, value: 0.8 }] });
+    expect(parsePastedTable('2500\t0,86\n4500\t0,8')).toEqual({
+      ok: true,
+      kind: 'rows',
+      rows: [
+        { rpm: 2500, value: 0.86 },
+        { rpm: 4500, value: 0.8 },
+      ],
+    });
+    expect(parsePastedTable('2500;0,86\n4500;0,8')).toEqual({
+      ok: true,
+      kind: 'rows',
+      rows: [
+        { rpm: 2500, value: 0.86 },
+        { rpm: 4500, value: 0.8 },
+      ],
+    });
   });
 
   it('splits comma-separated text as columns, and spaces too', () => {
-    expect(parsePastedTable('2500, 0.86\n4500, 0.8')).toEqual({ ok: true, kind: 'rows', rows: [{ rpm: 2500, value: 0.86 }, { rpm: 4500, value: 0.8 }] });
-    expect(parsePastedTable('2500   12.5\n4000 20')).toEqual({ ok: true, kind: 'rows', rows: [{ rpm: 2500, value: 12.5 }, { rpm: 4000, value: 20 }] });
+    expect(parsePastedTable('2500, 0.86\n4500, 0.8')).toEqual({
+      ok: true,
+      kind: 'rows',
+      rows: [
+        { rpm: 2500, value: 0.86 },
+        { rpm: 4500, value: 0.8 },
+      ],
+    });
+    expect(parsePastedTable('2500   12.5\n4000 20')).toEqual({
+      ok: true,
+      kind: 'rows',
+      rows: [
+        { rpm: 2500, value: 12.5 },
+        { rpm: 4000, value: 20 },
+      ],
+    });
   });
 
   it('accepts a percent sign after a number', () => {
@@ -75,7 +103,14 @@ describe('applyPaste', () => {
 
   it('replaces the table with pasted rows', () => {
     const result = applyPaste(rows, parsePastedTable('3000\t95\n6000\t105'), 2, percent);
-    expect(result).toEqual({ ok: true, rows: [{ rpm: 3000, value: 0.95 }, { rpm: 6000, value: 1.05 }], summary: 'The table now has the 2 pasted rows.' });
+    expect(result).toEqual({
+      ok: true,
+      rows: [
+        { rpm: 3000, value: 0.95 },
+        { rpm: 6000, value: 1.05 },
+      ],
+      summary: 'The table now has the 2 pasted rows.',
+    });
   });
 
   it('refuses more values than rows below, saying how to add rows', () => {

@@ -1,13 +1,13 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { useMemo, useState } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
-import { planVerdicts } from '../../../shared/matching/verdict';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import { runStudyDocument } from '../../../shared/study/run';
-import { EditorContext, type Editor } from '../../../src/features/studies/components/editor/context';
-import { PlansSection } from '../../../src/features/studies/components/editor/PlansSection';
-import { RequirementsSection } from '../../../src/features/studies/components/editor/RequirementsSection';
-import { issuesByPath, setIn } from '../../../src/features/studies/lib/draft';
+import { planVerdicts } from '#shared/matching/verdict';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import { runStudyDocument } from '#shared/study/run';
+import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
+import { PlansSection } from '#src/features/studies/components/editor/PlansSection';
+import { RequirementsSection } from '#src/features/studies/components/editor/RequirementsSection';
+import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
 import { demoDocument, demoMaps } from './demo-study';
 
 afterEach(cleanup);
@@ -15,7 +15,17 @@ afterEach(cleanup);
 const demo = demoDocument();
 
 /** The required margins (and the plans) of the demo study, editing a live draft as the study page does. */
-function Host({ unitSystem = 'si', readOnly = false, start = demo, onDraft }: { unitSystem?: 'si' | 'us'; readOnly?: boolean; start?: Record<string, unknown>; onDraft: (draft: Record<string, unknown>) => void }) {
+function Host({
+  unitSystem = 'si',
+  readOnly = false,
+  start = demo,
+  onDraft,
+}: {
+  unitSystem?: 'si' | 'us';
+  readOnly?: boolean;
+  start?: Record<string, unknown>;
+  onDraft: (draft: Record<string, unknown>) => void;
+}) {
   const [draft, setDraft] = useState<Record<string, unknown>>(() => structuredClone(start));
   const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
   onDraft(draft);

@@ -1,12 +1,12 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import { runStudyDocument } from '../../../shared/study/run';
-import { FindingsList, groupFindings, localizeMessage } from '../../../src/components/study/FindingsList';
-import { studyLines } from '../../../src/components/study/lines';
-import { resultTableRows, resultsTsv } from '../../../src/components/study/result-rows';
-import { ResultsTable } from '../../../src/components/study/ResultsTable';
-import { runStudyLive } from '../../../src/components/study/run';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import { runStudyDocument } from '#shared/study/run';
+import { FindingsList, groupFindings, localizeMessage } from '#src/components/study/FindingsList';
+import { studyLines } from '#src/components/study/lines';
+import { resultTableRows, resultsTsv } from '#src/components/study/result-rows';
+import { ResultsTable } from '#src/components/study/ResultsTable';
+import { runStudyLive } from '#src/components/study/run';
 import { demoDocument, demoMaps } from './demo-study';
 
 afterEach(cleanup);
@@ -79,8 +79,12 @@ describe('findings', () => {
     expect(localizeMessage('Compressor outlet temperature 478.2 K (205.1 °C) is above 473.2 K (200 °C).', 'us')).toBe(
       'Compressor outlet temperature 401.1 °F is above 392.1 °F.', // °F = K × 1.8 − 459.67 (NIST SP 811), 4 significant figures
     );
-    expect(localizeMessage('Manifold pressure 250 kPa is above the stated limit 240 kPa.', 'us')).toBe('Manifold pressure 36.26 psi is above the stated limit 34.81 psi.'); // 1 psi = 6.894757 kPa (NIST SP 811)
-    expect(localizeMessage('Each wastegate needs a 25.3 mm valve here; 20.0 mm is fitted.', 'us')).toBe('Each wastegate needs a 0.9961 in valve here; 0.7874 in is fitted.'); // 1 in = 25.4 mm (NIST SP 811), 4 significant figures
+    expect(localizeMessage('Manifold pressure 250 kPa is above the stated limit 240 kPa.', 'us')).toBe(
+      'Manifold pressure 36.26 psi is above the stated limit 34.81 psi.',
+    ); // 1 psi = 6.894757 kPa (NIST SP 811)
+    expect(localizeMessage('Each wastegate needs a 25.3 mm valve here; 20.0 mm is fitted.', 'us')).toBe(
+      'Each wastegate needs a 0.9961 in valve here; 0.7874 in is fitted.',
+    ); // 1 in = 25.4 mm (NIST SP 811), 4 significant figures
     expect(localizeMessage('unchanged 250 kPa', 'si')).toBe('unchanged 250 kPa');
   });
 });

@@ -1,19 +1,19 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import type { Finding, OperatingLine, OperatingPoint, PointValues } from '../../../shared/matching/types';
-import { planVerdicts, reasonText, VERDICT_WORDS } from '../../../shared/matching/verdict';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import { compareLines, type ComparableLine } from '../../../shared/study/compare';
-import { runStudyDocument } from '../../../shared/study/run';
-import { compressorMapFigure } from '../../../src/components/plots/compressor-map-figure';
-import { mapLineViews, studyLines, type StudyLine } from '../../../src/components/study/lines';
-import { PlanVerdicts, reasonPoint } from '../../../src/components/study/PlanVerdicts';
-import { ResultsTable } from '../../../src/components/study/ResultsTable';
-import { rpmCurvesFigure, CURVE_VIEWS } from '../../../src/components/study/rpm-curves-figure';
-import type { ChosenLine } from '../../../src/features/compare/components/CombinationMark';
-import { rankByVerdict } from '../../../src/features/compare/components/CompareView';
-import { DifferencesTable } from '../../../src/features/compare/components/DifferencesTable';
-import { firstPointOfInterest } from '../../../src/features/report/components/ReadOnlyStudyView';
+import type { Finding, OperatingLine, OperatingPoint, PointValues } from '#shared/matching/types';
+import { planVerdicts, reasonText, VERDICT_WORDS } from '#shared/matching/verdict';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import { compareLines, type ComparableLine } from '#shared/study/compare';
+import { runStudyDocument } from '#shared/study/run';
+import { compressorMapFigure } from '#src/components/plots/compressor-map-figure';
+import { mapLineViews, studyLines, type StudyLine } from '#src/components/study/lines';
+import { PlanVerdicts, reasonPoint } from '#src/components/study/PlanVerdicts';
+import { ResultsTable } from '#src/components/study/ResultsTable';
+import { rpmCurvesFigure, CURVE_VIEWS } from '#src/components/study/rpm-curves-figure';
+import type { ChosenLine } from '#src/features/compare/components/CombinationMark';
+import { rankByVerdict } from '#src/features/compare/components/CompareView';
+import { DifferencesTable } from '#src/features/compare/components/DifferencesTable';
+import { firstPointOfInterest } from '#src/features/report/components/ReadOnlyStudyView';
 import { demoDocument, demoMaps } from './demo-study';
 
 afterEach(cleanup);
@@ -29,7 +29,12 @@ const verdicts = planVerdicts(result);
 function point(rpm: number, findings: Finding[] = [], values: Partial<PointValues> = {}): OperatingPoint {
   return { solved: true, rpm, values: { rpm, reachable: true, ...values } as PointValues, findings };
 }
-const warning = (rpm: number): Finding => ({ code: 'surge-margin-thin', severity: 'warning', message: 'Surge margin 3.0 % is under the 5.0 % the study requires.', rpm });
+const warning = (rpm: number): Finding => ({
+  code: 'surge-margin-thin',
+  severity: 'warning',
+  message: 'Surge margin 3.0 % is under the 5.0 % the study requires.',
+  rpm,
+});
 
 function handLine(planIndex: number, name: string, points: OperatingPoint[], hasMap = true): StudyLine {
   const line = {
@@ -126,7 +131,8 @@ describe('points the compressor cannot deliver', () => {
     const cell = (column: string) => row.querySelector(`td[data-column="${column}"]`)!.textContent;
     expect(cell('mapRegion')).toBe('past choke');
     expect(cell('reachable')).toBe('no');
-    for (const column of ['compressorEfficiency', 'compressorOutletTemperature', 'compressorPower', 'brakePower', 'torque', 'injectorDuty']) expect(cell(column)).toBe('not reachable');
+    for (const column of ['compressorEfficiency', 'compressorOutletTemperature', 'compressorPower', 'brakePower', 'torque', 'injectorDuty'])
+      expect(cell(column)).toBe('not reachable');
     // Where the point is and what the engine asks of it stay numbers.
     expect(cell('pressureRatio')).not.toBe('not reachable');
     expect(cell('chokeMargin')).toMatch(/^-/); // past choke: a negative margin, not a blank
@@ -177,7 +183,9 @@ describe('points the compressor cannot deliver', () => {
     expect(crosses.name).toMatch(/^Not reachable/);
     expect(crosses.x.length).toBe(s44.line.points.filter((p) => p.values?.reachable === false).length);
     // The line's key keeps the plan's filled marker.
-    expect(figure.data.some((t) => (t as { name?: string; showlegend?: boolean }).name === s44.label && (t as { showlegend?: boolean }).showlegend !== false)).toBe(true);
+    expect(
+      figure.data.some((t) => (t as { name?: string; showlegend?: boolean }).name === s44.label && (t as { showlegend?: boolean }).showlegend !== false),
+    ).toBe(true);
   });
 
   it('leave gaps in the curves against rpm, never a 0, and say so in the hover', () => {
@@ -198,11 +206,24 @@ describe('Side by side with verdicts', () => {
     planName: name,
     scenarioName: 'Sea level',
     rowLabel: 'Full load',
-    verdict: { planIndex: index, planName: name, status, reasons: [], pointsAtLimit: 0, pointsWithWarnings: 0, headline: `${VERDICT_WORDS[status]}: hand-made` },
+    verdict: {
+      planIndex: index,
+      planName: name,
+      status,
+      reasons: [],
+      pointsAtLimit: 0,
+      pointsWithWarnings: 0,
+      headline: `${VERDICT_WORDS[status]}: hand-made`,
+    },
   });
 
   it('ranks what fits first and keeps the chosen order within one verdict', () => {
-    const ranked = rankByVerdict([chosen(0, 'A', 'does-not-fit'), chosen(1, 'B', 'fits-with-warnings'), chosen(2, 'C', 'fits'), chosen(3, 'D', 'fits-with-warnings')]);
+    const ranked = rankByVerdict([
+      chosen(0, 'A', 'does-not-fit'),
+      chosen(1, 'B', 'fits-with-warnings'),
+      chosen(2, 'C', 'fits'),
+      chosen(3, 'D', 'fits-with-warnings'),
+    ]);
     expect(ranked.map((c) => c.planName)).toEqual(['C', 'B', 'D', 'A']); // VERDICT_RANK: fits, with warnings, (not judged), does not fit
   });
 
@@ -236,7 +257,10 @@ describe('Side by side with verdicts', () => {
       turbineInletPressureAtPeakPower: null,
       peakTurbineInletPressure: null,
     };
-    const rows = compareLines([{ points: [point(3000)], exhaust: summary }, { points: [point(3000)], exhaust: null }]);
+    const rows = compareLines([
+      { points: [point(3000)], exhaust: summary },
+      { points: [point(3000)], exhaust: null },
+    ]);
     render(<DifferencesTable rows={rows} chosen={[chosen(0, 'Part throttle', 'fits'), chosen(1, 'Other', 'fits')]} system="si" />);
     const cells = screen.getByTestId('differences-table').querySelectorAll('tr[data-row="boostThresholdRpm"] td.numeric');
     expect(cells[0].textContent).toContain('no boost asked');

@@ -2,12 +2,12 @@ import { cleanup, render, screen } from '@testing-library/react';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { runStudy } from '../../../shared/matching';
-import { pointWorking } from '../../../shared/matching/explain-point';
-import { studyDocumentSchema, toStudyInput } from '../../../shared/schemas/study';
-import { symbolParts } from '../../../src/components/study/Formula';
-import { studyLines } from '../../../src/components/study/lines';
-import { checkStep, WorkingPanel, workingQuantity } from '../../../src/components/study/WorkingPanel';
+import { runStudy } from '#shared/matching';
+import { pointWorking } from '#shared/matching/explain-point';
+import { studyDocumentSchema, toStudyInput } from '#shared/schemas/study';
+import { symbolParts } from '#src/components/study/Formula';
+import { studyLines } from '#src/components/study/lines';
+import { checkStep, WorkingPanel, workingQuantity } from '#src/components/study/WorkingPanel';
 
 afterEach(cleanup);
 

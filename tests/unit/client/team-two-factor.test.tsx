@@ -5,13 +5,13 @@ import { MemoryRouter } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { json, recordFetch, type RecordedRequest } from './fetch-recorder';
 import { z } from 'zod';
-import type { Me, Role, TeamDetail, TeamSummary } from '../../../shared/schemas/account';
-import { SecondFactorBanner } from '../../../src/components/SecondFactorNotice';
-import { MapLibrary } from '../../../src/features/maps/components/MapLibrary';
-import { teamQueryOptions } from '../../../src/features/team/api/get-team';
-import { TeamView } from '../../../src/features/team/components/TeamView';
-import { api } from '../../../src/lib/api-client';
-import { installTwoFactorRuleWatch, meQueryOptions } from '../../../src/lib/session';
+import type { Me, Role, TeamDetail, TeamSummary } from '#shared/schemas/account';
+import { SecondFactorBanner } from '#src/components/SecondFactorNotice';
+import { MapLibrary } from '#src/features/maps/components/MapLibrary';
+import { teamQueryOptions } from '#src/features/team/api/get-team';
+import { TeamView } from '#src/features/team/components/TeamView';
+import { api } from '#src/lib/api-client';
+import { installTwoFactorRuleWatch, meQueryOptions } from '#src/lib/session';
 
 // The team's second-factor rule: the owner's switch, the state every member reads, and what a
 // member without a second factor meets instead of the team's data. Screens render from the query
@@ -96,7 +96,14 @@ describe("the team's second-factor switch", () => {
 
   it('shows the error the server gives, and the switch back where it was', async () => {
     answer = ({ method }) =>
-      method === 'PUT' ? json(400, { error: { code: 'two_factor_needed', message: 'Turn on your own second factor first (Account → Second factor), or you would lock yourself out of this team.' } }) : null;
+      method === 'PUT'
+        ? json(400, {
+            error: {
+              code: 'two_factor_needed',
+              message: 'Turn on your own second factor first (Account → Second factor), or you would lock yourself out of this team.',
+            },
+          })
+        : null;
     renderWith(teamPage, { who: me('owner', { twoFactor: true, requireTwoFactor: false }), team: detail('owner', false) });
     fireEvent.click(screen.getByRole('switch', { name: 'Members must use a second factor' }));
     expect((await screen.findByRole('alert')).textContent).toContain('you would lock yourself out of this team');
@@ -114,7 +121,12 @@ describe("the team's second-factor switch", () => {
 });
 
 describe('a member without a second factor in a team that asks for one', () => {
-  const refusal = { error: { code: 'two_factor_required', message: 'The team "Hill-climb build" asks its members to use a second factor. Turn it on under Account → Second factor, then come back.' } };
+  const refusal = {
+    error: {
+      code: 'two_factor_required',
+      message: 'The team "Hill-climb build" asks its members to use a second factor. Turn it on under Account → Second factor, then come back.',
+    },
+  };
 
   it('meets the reason and the way to the set-up on the team page, not "not found", and may still leave', async () => {
     answer = ({ method, url }) => (method === 'GET' && url === '/api/teams/t1' ? json(403, refusal) : null);

@@ -3,13 +3,13 @@ import path from 'node:path';
 import fc from 'fast-check';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import { FORMULA_START, csvLine, writeCsv, type CsvCell } from '../../../shared/csv';
-import { parseMapFile, writeMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
-import { buildTrace } from '../../../shared/tracer/build';
-import { newTraceState } from '../../../shared/tracer/state';
-import { builtinMaps } from '../../../server/services/builtin-maps';
-import { demoStudyDocument, resultsCsv } from '../../../server/services/studies';
+import { FORMULA_START, csvLine, writeCsv, type CsvCell } from '#shared/csv';
+import { parseMapFile, writeMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { buildTrace } from '#shared/tracer/build';
+import { newTraceState } from '#shared/tracer/state';
+import { builtinMaps } from '#server/services/builtin-maps';
+import { demoStudyDocument, resultsCsv } from '#server/services/studies';
 
 // OWASP ASVS 5.0 1.2.10 (OWASP "CSV Injection"): no cell of any CSV Spoolbook serves may begin
 // with = + - @ tab or CR unless it is a number. Every writer is checked the way a spreadsheet
@@ -18,7 +18,7 @@ import { demoStudyDocument, resultsCsv } from '../../../server/services/studies'
 /** Text a hostile user could type: formula starts, commas, quotes, line breaks, tabs. */
 const hostileText = fc.oneof(
   fc.string({ maxLength: 40 }),
-  fc.constantFrom('=HYPERLINK("http://x.test","a")', '+1+1', '-2+3', '@SUM(A1)', '\t=1', '\r=1', 'Map,=1+1', 'a"b,=c', '=cmd|\' /C calc\'!A0', 'x\n=1'),
+  fc.constantFrom('=HYPERLINK("http://x.test","a")', '+1+1', '-2+3', '@SUM(A1)', '\t=1', '\r=1', 'Map,=1+1', 'a"b,=c', "=cmd|' /C calc'!A0", 'x\n=1'),
   fc.tuple(fc.constantFrom('=', '+', '-', '@', '\t', '\r', ',', '"', 'a'), fc.string({ maxLength: 20 })).map(([a, b]) => a + b),
 );
 
@@ -102,19 +102,23 @@ describe('every CSV the product serves', () => {
     const maps = Object.fromEntries(builtinMaps().map((b) => [b.id, b.map]));
     const doc = demoStudyDocument();
     fc.assert(
-      fc.property(hostileText.filter((t) => t.trim().length > 0), hostileText.filter((t) => t.trim().length > 0), (plan, scenario) => {
-        const hostile = {
-          ...doc,
-          plans: doc.plans.map((p, i) => ({ ...p, name: `${plan}${i}`.slice(0, 80) })),
-          scenarios: doc.scenarios.map((s) => ({ ...s, name: scenario.slice(0, 80) })),
-        };
-        expectNoFormula(resultsCsv(hostile, maps));
-      }),
+      fc.property(
+        hostileText.filter((t) => t.trim().length > 0),
+        hostileText.filter((t) => t.trim().length > 0),
+        (plan, scenario) => {
+          const hostile = {
+            ...doc,
+            plans: doc.plans.map((p, i) => ({ ...p, name: `${plan}${i}`.slice(0, 80) })),
+            scenarios: doc.scenarios.map((s) => ({ ...s, name: scenario.slice(0, 80) })),
+          };
+          expectNoFormula(resultsCsv(hostile, maps));
+        },
+      ),
       { numRuns: 15 },
     );
   });
 
-  it('the Tracer\'s map file', () => {
+  it("the Tracer's map file", () => {
     fc.assert(
       fc.property(hostileText, (name) => {
         expectNoFormula(buildTrace(newTraceState(name)).text);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, turbineModelFromMap } from '../../../shared/maps';
-import { DRIVE_PRESSURE_RATIO_WARNING, runStudy, type OperatingLine, type TurbineModel } from '../../../shared/matching';
+import { compressorModelFromMap, turbineModelFromMap } from '#shared/maps';
+import { DRIVE_PRESSURE_RATIO_WARNING, runStudy, type OperatingLine, type TurbineModel } from '#shared/matching';
 import { demoCompressor, demoTurbine, exhaustOf, exhaustStudy, scaledTurbine, solved } from './helpers';
 
 const compressor = () => compressorModelFromMap(demoCompressor('m58'));
@@ -41,7 +41,10 @@ describe('exhaust findings', () => {
   });
 
   it('finds a wastegate too small for the flow the turbine does not need', () => {
-    const line = lineWith(turbineModelFromMap(demoTurbine('ar064-single')), exhaustOf({ wastegates: { count: 1, valveDiameter: 0.01, dischargeCoefficient: 0.8 } }));
+    const line = lineWith(
+      turbineModelFromMap(demoTurbine('ar064-single')),
+      exhaustOf({ wastegates: { count: 1, valveDiameter: 0.01, dischargeCoefficient: 0.8 } }),
+    );
     const small = all(line).filter((f) => f.code === 'wastegate-too-small');
     expect(small.length).toBeGreaterThan(0);
     for (const f of small) {
@@ -78,7 +81,12 @@ describe('exhaust findings', () => {
   it('says when the Plan’s housing and the map’s differ', () => {
     const line = lineWith(turbineModelFromMap(demoTurbine('ar082-divided')), exhaustOf({ housing: 'single' }));
     expect(line.points[0].findings.map((f) => f.code)).toContain('turbine-housing-mismatch');
-    expect(line.points.slice(1).flatMap((p) => p.findings).map((f) => f.code)).not.toContain('turbine-housing-mismatch'); // once per line (design)
+    expect(
+      line.points
+        .slice(1)
+        .flatMap((p) => p.findings)
+        .map((f) => f.code),
+    ).not.toContain('turbine-housing-mismatch'); // once per line (design)
   });
 
   it('uses the assumed turbine efficiency where the map gives none, and says so', () => {
@@ -103,7 +111,11 @@ describe('exhaust findings', () => {
   });
 
   it('reports a root not found as a finding and leaves no NaN: a turbine that passes nothing', () => {
-    const blocked: TurbineModel = { ...turbineModelFromMap(demoTurbine('ar082-single')), expansionRatioForFlow: undefined, read: () => ({ flowParameter: 0, efficiency: 0.7, location: 'inside' }) };
+    const blocked: TurbineModel = {
+      ...turbineModelFromMap(demoTurbine('ar082-single')),
+      expansionRatioForFlow: undefined,
+      read: () => ({ flowParameter: 0, efficiency: 0.7, location: 'inside' }),
+    };
     const line = lineWith(blocked);
     expect(all(line).some((f) => f.code === 'exhaust-not-converged')).toBe(true);
     for (const p of line.points) for (const value of Object.values(p.values ?? {})) if (typeof value === 'number') expect(Number.isFinite(value)).toBe(true);

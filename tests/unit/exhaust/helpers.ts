@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { expect } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { CompressorMap, TurbineMap } from '../../../shared/maps/types';
-import type { ExhaustInput, OperatingPoint, PointValues, StudyInput } from '../../../shared/matching';
+import { parseMapFile } from '#shared/maps';
+import type { CompressorMap, TurbineMap } from '#shared/maps/types';
+import type { ExhaustInput, OperatingPoint, PointValues, StudyInput } from '#shared/matching';
 import { baseStudy } from '../matching/fixtures';
 
 /** Relative closeness: |actual − expected| ≤ relTol·|expected| (absolute when expected is 0). */

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { criticalPressureRatio } from '../../../shared/physics/gas';
-import { orificeFlowFunction, orificeMassFlux, valveArea, valveDiameter, wastegateDiameterFor, wastegateMassFlow } from '../../../shared/physics/wastegate';
-import { TURBINE_GAS, type GasProperties } from '../../../shared/physics/turbine';
+import { criticalPressureRatio } from '#shared/physics/gas';
+import { orificeFlowFunction, orificeMassFlux, valveArea, valveDiameter, wastegateDiameterFor, wastegateMassFlow } from '#shared/physics/wastegate';
+import { TURBINE_GAS, type GasProperties } from '#shared/physics/turbine';
 import { expectClose } from './helpers';
 
 /** The air of the physics note's check row: γ 1.4, R 287 J/(kg·K). */

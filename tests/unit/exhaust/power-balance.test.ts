@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, turbineModelFromMap } from '../../../shared/maps';
-import { runStudy, type OperatingLine, type PointValues, type TurbineModel } from '../../../shared/matching';
+import { compressorModelFromMap, turbineModelFromMap } from '#shared/maps';
+import { runStudy, type OperatingLine, type PointValues, type TurbineModel } from '#shared/matching';
 import { demoCompressor, demoTurbine, exhaustOf, exhaustStudy, expectClose, scaledTurbine, solved } from './helpers';
 
 const smallTurbine = () => turbineModelFromMap(demoTurbine('ar064-single'));
@@ -117,7 +117,9 @@ describe('the quasi-steady power balance at every point', () => {
     expect(s.boostThresholdRpm).toBe(vs.find((v) => v.targetHeld && v.reachable)!.rpm);
     expect(s.turbineHoldsFromRpm).toBe(vs.find((v) => v.targetHeld)!.rpm);
     // Over the points at their target boost only: below the threshold p3/p_man of a barely boosted manifold says little.
-    expect(s.peakDrivePressureRatio!.value).toBe(Math.max(...vs.filter((v) => v.targetHeld && v.drivePressureRatio !== null).map((v) => v.drivePressureRatio!)));
+    expect(s.peakDrivePressureRatio!.value).toBe(
+      Math.max(...vs.filter((v) => v.targetHeld && v.drivePressureRatio !== null).map((v) => v.drivePressureRatio!)),
+    );
     expect(s.wastegateDiameterNeeded!.value).toBe(Math.max(...vs.map((v) => v.wastegateDiameterNeeded ?? 0)));
     expect(s.wastegateDiameterFitted).toBe(0.04);
     const peak = vs.reduce((m, v) => (v.brakePower! > m.brakePower! ? v : m));
@@ -139,7 +141,16 @@ describe('a divided housing with per-scroll maps and two gates', () => {
     for (let i = 0; i < a.length; i++) {
       expect(b[i].reachable).toBe(a[i].reachable);
       if (!a[i].reachable) continue;
-      for (const key of ['boost', 'expansionRatio', 'turbineInletPressure', 'drivePressureRatio', 'turbinePower', 'turbineMassFlow', 'wastegateFraction', 'compressorPower'] as const)
+      for (const key of [
+        'boost',
+        'expansionRatio',
+        'turbineInletPressure',
+        'drivePressureRatio',
+        'turbinePower',
+        'turbineMassFlow',
+        'wastegateFraction',
+        'compressorPower',
+      ] as const)
         expectClose(b[i][key] as number, a[i][key] as number, 1e-9, `${key} at ${a[i].rpm} rpm`); // two scrolls in parallel at one p3 are one turbine of twice the scroll's capacity (physics note §5)
       expectClose(b[i].turbineMapFlowParameter!, a[i].turbineFlowParameter! / 2, 1e-9); // placed on the per-scroll map at half the flow (definition)
       if (a[i].wastegateDiameterNeeded) expectClose(b[i].wastegateDiameterNeeded!, a[i].wastegateDiameterNeeded! / Math.SQRT2, 1e-9); // each gate passes half (orifice relation)
@@ -148,7 +159,8 @@ describe('a divided housing with per-scroll maps and two gates', () => {
 
   it('gives more turbine energy with a pulse factor above 1, so an earlier threshold', () => {
     const perScroll = turbineModelFromMap(demoTurbine('ar082-divided'));
-    const divided = (pulseFactor: number) => exhaustOf({ housing: 'divided', pulseFactor, wastegates: { count: 2, valveDiameter: 0.032, dischargeCoefficient: 0.8 } });
+    const divided = (pulseFactor: number) =>
+      exhaustOf({ housing: 'divided', pulseFactor, wastegates: { count: 2, valveDiameter: 0.032, dischargeCoefficient: 0.8 } });
     const [plain, pulsed] = run([perScroll, perScroll], [divided(1), divided(1.15)]).lines;
     expect(pulsed.exhaust!.boostThresholdRpm!).toBeLessThan(plain.exhaust!.boostThresholdRpm!); // a factor on turbine energy (physics note §5)
     expect(pulsed.points[0].findings.some((f) => f.code === 'input-out-of-range' && /pulse-energy factor/.test(f.message))).toBe(true); // named assumption shown
@@ -164,7 +176,8 @@ describe('compressor-only plans', () => {
     expect(line.context.exhaust).toBeNull();
     for (const v of valuesOf(line)) {
       expect(v.boostTarget).toBe(v.boost); // no turbine: the target stands (definition)
-      for (const key of ['targetHeld', 'exhaustCase', 'turbineInletPressure', 'expansionRatio', 'wastegateDiameterNeeded', 'turbinePower'] as const) expect(v[key]).toBeNull();
+      for (const key of ['targetHeld', 'exhaustCase', 'turbineInletPressure', 'expansionRatio', 'wastegateDiameterNeeded', 'turbinePower'] as const)
+        expect(v[key]).toBeNull();
     }
   });
 });

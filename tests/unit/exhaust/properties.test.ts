@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { turbineModelFromMap } from '../../../shared/maps';
+import { turbineModelFromMap } from '#shared/maps';
 import { fakeModel, numbersIn } from '../matching/fixtures';
-import { pointWorking, runStudy, type ExhaustInput, type OperatingPoint } from '../../../shared/matching';
+import { pointWorking, runStudy, type ExhaustInput, type OperatingPoint } from '#shared/matching';
 import { demoTurbine, exhaustOf, exhaustStudy, scaledTurbine } from './helpers';
 
 const turbineMaps = [demoTurbine('ar064-single'), demoTurbine('ar082-single'), demoTurbine('ar064-divided'), demoTurbine('ar082-divided')];
@@ -18,7 +18,10 @@ const exhaustArb: fc.Arbitrary<ExhaustInput> = fc
     t3High: fc.double({ min: 400, max: 1500, noNaN: true }),
     downstreamLoss: fc.double({ min: 0, max: 200_000, noNaN: true }),
     // Absent: the loss is the same at every flow; given: it follows the exhaust flow as ṁ²/ρ.
-    downstreamReference: fc.option(fc.record({ flow: fc.double({ min: 0.01, max: 5, noNaN: true }), density: fc.double({ min: 0.06, max: 20, noNaN: true }) }), { nil: undefined }),
+    downstreamReference: fc.option(
+      fc.record({ flow: fc.double({ min: 0.01, max: 5, noNaN: true }), density: fc.double({ min: 0.06, max: 20, noNaN: true }) }),
+      { nil: undefined },
+    ),
     pulseFactor: fc.double({ min: 0.5, max: 2, noNaN: true }),
   })
   .map((r) =>

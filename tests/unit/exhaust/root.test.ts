@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { findRoot } from '../../../shared/math/root';
+import { findRoot } from '#shared/math/root';
 import { expectClose } from './helpers';
 
 const ok = (r: ReturnType<typeof findRoot>) => {

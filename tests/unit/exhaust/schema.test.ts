@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
-import { parseStudyInput, StudyInputError } from '../../../shared/matching';
-import { studyDocumentSchema, studyInputOf, toStudyInput } from '../../../shared/schemas/study';
-import { planTurbineModels, runStudyDocument } from '../../../shared/study/run';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { parseStudyInput, StudyInputError } from '#shared/matching';
+import { studyDocumentSchema, studyInputOf, toStudyInput } from '#shared/schemas/study';
+import { planTurbineModels, runStudyDocument } from '#shared/study/run';
 import { readFileSync } from 'node:fs';
 import { exhaustOf, exhaustStudy } from './helpers';
 
@@ -27,9 +27,18 @@ describe('the exhaust block of a Plan', () => {
 
   it('refuses unit slips and impossible values by field path', () => {
     const bad = (change: Record<string, unknown>) => issuesOf(exhaustStudy([{ ...exhaustOf(), ...change } as never]));
-    expect(bad({ wastegates: { count: 1, valveDiameter: 44, dischargeCoefficient: 0.8 } })[0]).toMatch(/^plans\.0\.exhaust\.wastegates\.valveDiameter: .*44 mm = 0\.044 m/);
+    expect(bad({ wastegates: { count: 1, valveDiameter: 44, dischargeCoefficient: 0.8 } })[0]).toMatch(
+      /^plans\.0\.exhaust\.wastegates\.valveDiameter: .*44 mm = 0\.044 m/,
+    );
     expect(bad({ wastegates: { count: 3, valveDiameter: 0.04, dischargeCoefficient: 0.8 } })[0]).toMatch(/^plans\.0\.exhaust\.wastegates\.count: /);
-    expect(bad({ turbineInletTemperature: [{ rpm: 3000, value: 850 }, { rpm: 2000, value: 900 }] })[0]).toMatch(/increasing rpm/);
+    expect(
+      bad({
+        turbineInletTemperature: [
+          { rpm: 3000, value: 850 },
+          { rpm: 2000, value: 900 },
+        ],
+      })[0],
+    ).toMatch(/increasing rpm/);
     expect(bad({ turbineInletTemperature: [{ rpm: 3000, value: 250 }] })[0]).toMatch(/turbineInletTemperature\.0\.value: .*K/);
     expect(bad({ mechanicalEfficiency: 95 })[0]).toMatch(/^plans\.0\.exhaust\.mechanicalEfficiency: .*not a percentage/);
     expect(bad({ pulseFactor: 1.2 })[0]).toMatch(/^plans\.0\.exhaust\.pulseFactor: the pulse factor applies only to a divided housing/);

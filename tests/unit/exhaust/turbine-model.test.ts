@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { capacityNodes, turbineModelFromMap } from '../../../shared/maps';
-import type { TurbineMap } from '../../../shared/maps/types';
-import { orificeFlowFunction } from '../../../shared/physics/wastegate';
+import { capacityNodes, turbineModelFromMap } from '#shared/maps';
+import type { TurbineMap } from '#shared/maps/types';
+import { orificeFlowFunction } from '#shared/physics/wastegate';
 import { demoTurbine, expectClose, scaledTurbine } from './helpers';
 
 /** A hand-made map: two speed lines over different ranges of expansion ratio. */
@@ -165,11 +165,16 @@ describe('the turbine map read at the shaft speed', () => {
   it('has an inverse that agrees with its reading at any shaft speed (fast-check)', () => {
     const models = [turbineModelFromMap(demoTurbine('ar064-single')), turbineModelFromMap(demoTurbine('ar082-divided')), turbineModelFromMap(twoLines())];
     fc.assert(
-      fc.property(fc.constantFrom(...models), fc.double({ min: 20_000, max: 200_000, noNaN: true }), fc.double({ min: 1.0001, max: 6, noNaN: true }), (model, speed, er) => {
-        const at = model.atSpeed!(speed);
-        const q = at.read(er).flowParameter * er;
-        expectClose(at.expansionRatioForFlow!(q), er, 1e-9); // FP(ER)·ER strictly increasing at every speed (running maximum)
-      }),
+      fc.property(
+        fc.constantFrom(...models),
+        fc.double({ min: 20_000, max: 200_000, noNaN: true }),
+        fc.double({ min: 1.0001, max: 6, noNaN: true }),
+        (model, speed, er) => {
+          const at = model.atSpeed!(speed);
+          const q = at.read(er).flowParameter * er;
+          expectClose(at.expansionRatioForFlow!(q), er, 1e-9); // FP(ER)·ER strictly increasing at every speed (running maximum)
+        },
+      ),
     );
   });
 });

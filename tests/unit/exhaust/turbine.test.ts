@@ -1,6 +1,14 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { expansionRatioForPower, exhaustMassFlow, flowParameter, TURBINE_GAS, turbinePower, turbineSwallowingFlow, type GasProperties } from '../../../shared/physics/turbine';
+import {
+  expansionRatioForPower,
+  exhaustMassFlow,
+  flowParameter,
+  TURBINE_GAS,
+  turbinePower,
+  turbineSwallowingFlow,
+  type GasProperties,
+} from '#shared/physics/turbine';
 import { expectClose } from './helpers';
 
 /** The gas of the check example: cp 1148 J/(kg·K), γ 4/3. */

@@ -1,13 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, turbineModelFromMap } from '../../../shared/maps';
-import { pointWorking, runStudy, type PointValues, type WorkingStep } from '../../../shared/matching';
-import { math } from '../../../shared/units';
+import { compressorModelFromMap, turbineModelFromMap } from '#shared/maps';
+import { pointWorking, runStudy, type PointValues, type WorkingStep } from '#shared/matching';
+import { math } from '#shared/units';
 import { demoCompressor, demoTurbine, exhaustOf, exhaustStudy, scaledTurbine } from './helpers';
 
 function symbolsOf(formula: string): string[] {
   const names = new Set<string>();
   math.parse(formula).traverse((node, _path, parent) => {
-    if (node.type === 'SymbolNode' && !(parent && parent.type === 'FunctionNode' && (parent as unknown as { fn: unknown }).fn === node)) names.add((node as unknown as { name: string }).name);
+    if (node.type === 'SymbolNode' && !(parent && parent.type === 'FunctionNode' && (parent as unknown as { fn: unknown }).fn === node))
+      names.add((node as unknown as { name: string }).name);
   });
   return [...names].filter((n) => n !== 'pi');
 }
@@ -15,7 +16,10 @@ function symbolsOf(formula: string): string[] {
 function checkStep(s: WorkingStep): void {
   const scope = new Map<string, number>();
   for (const v of s.values) scope.set(v.symbol, v.value);
-  expect(symbolsOf(s.formula).filter((n) => !scope.has(n)), `${s.id}: ${s.formula}`).toEqual([]); // nothing hidden
+  expect(
+    symbolsOf(s.formula).filter((n) => !scope.has(n)),
+    `${s.id}: ${s.formula}`,
+  ).toEqual([]); // nothing hidden
   const got = math.evaluate(s.formula, scope) as number;
   const rel = Math.abs(got - s.result.value) / Math.max(Math.abs(s.result.value), 1e-300);
   expect(rel, `${s.id}: ${s.formula} = ${got}, result ${s.result.value}`).toBeLessThan(1e-9); // the formula reproduces its result (mathjs as the evaluator)
@@ -50,9 +54,17 @@ describe('the Working of the exhaust side', () => {
       exhaustOf({ housing: 'divided', pulseFactor: 1.1, wastegates: { count: 2, valveDiameter: 0.03, dischargeCoefficient: 0.75 } }),
       exhaustOf({ wastegates: { count: 1, valveDiameter: 0.01, dischargeCoefficient: 0.8 } }),
     ]);
-    study.scenarios.push({ name: 'Part', ambient: { altitude: 1200 }, boostSchedule: [{ label: 'Half', kind: 'part-throttle', boost: [{ rpm: 2000, value: -30_000 }] }] });
+    study.scenarios.push({
+      name: 'Part',
+      ambient: { altitude: 1200 },
+      boostSchedule: [{ label: 'Half', kind: 'part-throttle', boost: [{ rpm: 2000, value: -30_000 }] }],
+    });
     const c = compressorModelFromMap(demoCompressor('m58'));
-    const turbines = [turbineModelFromMap(demoTurbine('ar064-single')), turbineModelFromMap(demoTurbine('ar082-divided')), turbineModelFromMap(scaledTurbine(demoTurbine('ar064-single'), 0.3))];
+    const turbines = [
+      turbineModelFromMap(demoTurbine('ar064-single')),
+      turbineModelFromMap(demoTurbine('ar082-divided')),
+      turbineModelFromMap(scaledTurbine(demoTurbine('ar064-single'), 0.3)),
+    ];
     const result = runStudy(study, { compressorModels: [c, c, c], turbineModels: turbines });
     const seen = new Set<string>();
     for (const line of result.lines)
@@ -67,7 +79,16 @@ describe('the Working of the exhaust side', () => {
         }
       }
     // Every step of the three cases and of the gate sizing appeared somewhere.
-    for (const id of ['boost-held', 'shut-gate-drive-power', 'power-balance', 'wastegate-pressure-ratio', 'wastegate-mass-flux', 'wastegate-area-needed', 'wastegate-margin', 'turbine-power'])
+    for (const id of [
+      'boost-held',
+      'shut-gate-drive-power',
+      'power-balance',
+      'wastegate-pressure-ratio',
+      'wastegate-mass-flux',
+      'wastegate-area-needed',
+      'wastegate-margin',
+      'turbine-power',
+    ])
       expect(seen.has(id), id).toBe(true);
   });
 

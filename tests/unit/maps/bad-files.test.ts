@@ -1,8 +1,8 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { MapProblem } from '../../../shared/maps/types';
+import { parseMapFile } from '#shared/maps';
+import type { MapProblem } from '#shared/maps/types';
 import { badFixtures, readBytes } from './helpers';
 
 interface Expected {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, isentropicHead } from '../../../shared/maps';
-import { isReachable, mapRegionOf } from '../../../shared/matching/reach';
+import { compressorModelFromMap, isentropicHead } from '#shared/maps';
+import { isReachable, mapRegionOf } from '#shared/matching/reach';
 import { compressorOf, expectClose, parseOk } from './helpers';
 
 // A small hand-made map; every expected value below is worked out by hand from these rows.
@@ -71,7 +71,7 @@ describe('margins against the whole edge of a compressor map', () => {
     expect(isReachable(mapRegionOf(r.location, r.speedMargin), true)).toBe(false); // surge is never assumed away (design)
   });
 
-  it('past choke below the choke line\'s top: a negative choke margin to the choke line, no speed', () => {
+  it("past choke below the choke line's top: a negative choke margin to the choke line, no speed", () => {
     const r = model.read(0.3, 1.5);
     expect(r.location).toBe('beyond-choke');
     expectClose(r.chokeMargin, (0.19 - 0.3) / 0.3, 1e-12); // choke flow 0.19 at PR 1.5 (by hand, above)
@@ -82,7 +82,7 @@ describe('margins against the whole edge of a compressor map', () => {
     expect(mapRegionOf(r.location, r.speedMargin)).toBe('past-choke');
   });
 
-  it('above the choke line\'s top: the choke margin is measured to the top speed line\'s choke side', () => {
+  it("above the choke line's top: the choke margin is measured to the top speed line's choke side", () => {
     // PR 2.3 is above the choke line's top (2.2). The top line comes down through 2.3 on its segment
     // (0.18, 2.35)–(0.25, 2.2): flow 0.25 + (0.18 − 0.25)·(2.3 − 2.2)/(2.35 − 2.2) = 0.2033… (by hand).
     const edge = 0.25 + (0.18 - 0.25) * ((2.3 - 2.2) / (2.35 - 2.2));
@@ -120,7 +120,7 @@ describe('margins against the whole edge of a compressor map', () => {
     expect(r.chokeMarginBasis).toBe('above-map');
   });
 
-  it('above the top line but under the wheel\'s limit: above the map, not over speed', () => {
+  it("above the top line but under the wheel's limit: above the map, not over speed", () => {
     const r = model.read(0.15, 2.6);
     const n = 150_000 * Math.sqrt(head(2.6) / head(2.36875)); // about 158 990 rpm, worked in this test
     expectClose(r.shaftSpeed, n, 1e-12);

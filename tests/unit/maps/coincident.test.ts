@@ -1,10 +1,20 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { COINCIDENCE_TOLERANCE, compressorModelFromMap, mergeCoincidentPoints, parseMapFile, type SurfacePoint } from '../../../shared/maps';
+import { COINCIDENCE_TOLERANCE, compressorModelFromMap, mergeCoincidentPoints, parseMapFile, type SurfacePoint } from '#shared/maps';
 import { compressorOf, expectClose, parseOk } from './helpers';
 
-const island = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({ correctedMassFlow, pressureRatio, value, source: 'island' });
-const measured = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({ correctedMassFlow, pressureRatio, value, source: 'speed-line' });
+const island = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({
+  correctedMassFlow,
+  pressureRatio,
+  value,
+  source: 'island',
+});
+const measured = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({
+  correctedMassFlow,
+  pressureRatio,
+  value,
+  source: 'speed-line',
+});
 
 describe('merging coincident map points', () => {
   // Corners at (0, 1) and (1, 2): the unit square is the data's own, so the tolerance reads in flow and PR directly.
@@ -25,7 +35,11 @@ describe('merging coincident map points', () => {
     expect(merged.value[1]).toBe(0.68);
     expect(merged.value[2]).toBe(0.72);
     expectClose(merged.value[3], 0.64, 1e-12);
-    expect(merged.conflicts.map((c) => c.points)).toEqual([[4, 5, 6], [2, 3], [7, 8]]); // input indices, by place
+    expect(merged.conflicts.map((c) => c.points)).toEqual([
+      [4, 5, 6],
+      [2, 3],
+      [7, 8],
+    ]); // input indices, by place
   });
 
   it('leaves points with the same value alone and does not call them a conflict', () => {
@@ -48,7 +62,12 @@ describe('merging coincident map points', () => {
   it('measures the tolerance in the unit square of the points, whatever the units', () => {
     // The same places in lb/min-sized numbers (x 132.277): still one place.
     const scale = 132.277;
-    const merged = mergeCoincidentPoints([measured(0, 1, 0.6), measured(scale, 2, 0.6), island(0.5 * scale, 1.5, 0.7), island(0.5 * scale + 0.9e-9 * scale, 1.5, 0.74)]);
+    const merged = mergeCoincidentPoints([
+      measured(0, 1, 0.6),
+      measured(scale, 2, 0.6),
+      island(0.5 * scale, 1.5, 0.7),
+      island(0.5 * scale + 0.9e-9 * scale, 1.5, 0.74),
+    ]);
     expect(merged.value).toHaveLength(3);
   });
 
@@ -62,9 +81,20 @@ describe('merging coincident map points', () => {
     });
     fc.assert(
       fc.property(
-        fc.array(point, { minLength: 1, maxLength: 40 }).chain((raw) => fc.tuple(fc.constant(raw), fc.shuffledSubarray(raw, { minLength: raw.length, maxLength: raw.length }))),
+        fc
+          .array(point, { minLength: 1, maxLength: 40 })
+          .chain((raw) => fc.tuple(fc.constant(raw), fc.shuffledSubarray(raw, { minLength: raw.length, maxLength: raw.length }))),
         ([raw, shuffled]) => {
-          const points = (list: typeof raw) => list.map((p) => ({ correctedMassFlow: 0.05 + p.i * 0.01, pressureRatio: 1.2 + p.j * 0.3, value: p.value / 100, source: p.measured ? 'speed-line' : 'island' }) as const);
+          const points = (list: typeof raw) =>
+            list.map(
+              (p) =>
+                ({
+                  correctedMassFlow: 0.05 + p.i * 0.01,
+                  pressureRatio: 1.2 + p.j * 0.3,
+                  value: p.value / 100,
+                  source: p.measured ? 'speed-line' : 'island',
+                }) as const,
+            );
           const a = mergeCoincidentPoints(points(raw));
           const b = mergeCoincidentPoints(points(shuffled));
           expect(b.correctedMassFlow).toEqual(a.correctedMassFlow);
@@ -170,7 +200,8 @@ describe('a map with coincident points of different efficiencies', () => {
         line: null,
         column: null,
         // one place: (0.40, 1.6) on lines 20 and 23 (counted above)
-        message: '1 place holds speed-line points with different speeds (2 rows); each place is read as one point at the mean of their speeds; the first is at lines 20 and 23',
+        message:
+          '1 place holds speed-line points with different speeds (2 rows); each place is read as one point at the mean of their speeds; the first is at lines 20 and 23',
       },
     ]);
   });

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { MAX_MAP_DATA_ROWS, MAX_MAP_FILE_BYTES, parseMapFile } from '../../../shared/maps';
-import type { MapProblemCode } from '../../../shared/maps/types';
+import { MAX_MAP_DATA_ROWS, MAX_MAP_FILE_BYTES, parseMapFile } from '#shared/maps';
+import type { MapProblemCode } from '#shared/maps/types';
 import { repoRoot } from './helpers';
 
 const docs = readFileSync(path.join(repoRoot, 'docs/map-format.md'), 'utf8');
@@ -27,12 +27,44 @@ describe('docs/map-format.md', () => {
 
   it('lists every problem code the parser can give', () => {
     const codes: MapProblemCode[] = [
-      'empty-file', 'too-large', 'too-many-rows', 'not-text', 'not-a-map-file', 'header-syntax', 'header-after-data',
-      'unknown-key', 'duplicate-key', 'missing-key', 'misplaced-key', 'wrong-version', 'unknown-kind', 'bad-value',
-      'missing-unit', 'unknown-unit', 'wrong-unit-kind', 'formula-cell', 'wrong-delimiter', 'bad-columns', 'column-count',
-      'unclosed-quote', 'decimal-comma', 'unknown-curve', 'not-a-number', 'missing-value', 'out-of-range',
-      'pressure-ratio-below-one', 'efficiency-out-of-range', 'efficiency-scale', 'too-few-points', 'island-not-closed', 'coincident-points-merged',
-      'not-increasing', 'duplicate-label', 'inconsistent-line', 'no-data-rows', 'missing-curve',
+      'empty-file',
+      'too-large',
+      'too-many-rows',
+      'not-text',
+      'not-a-map-file',
+      'header-syntax',
+      'header-after-data',
+      'unknown-key',
+      'duplicate-key',
+      'missing-key',
+      'misplaced-key',
+      'wrong-version',
+      'unknown-kind',
+      'bad-value',
+      'missing-unit',
+      'unknown-unit',
+      'wrong-unit-kind',
+      'formula-cell',
+      'wrong-delimiter',
+      'bad-columns',
+      'column-count',
+      'unclosed-quote',
+      'decimal-comma',
+      'unknown-curve',
+      'not-a-number',
+      'missing-value',
+      'out-of-range',
+      'pressure-ratio-below-one',
+      'efficiency-out-of-range',
+      'efficiency-scale',
+      'too-few-points',
+      'island-not-closed',
+      'coincident-points-merged',
+      'not-increasing',
+      'duplicate-label',
+      'inconsistent-line',
+      'no-data-rows',
+      'missing-curve',
     ];
     for (const code of codes) expect(docs, code).toContain(`| \`${code}\` |`);
   });

@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseMapFile, writeMapFile } from '../../../shared/maps';
-import type { TurbineMap } from '../../../shared/maps/types';
-import { spoolbookMapSchema } from '../../../shared/schemas/map';
+import { parseMapFile, writeMapFile } from '#shared/maps';
+import type { TurbineMap } from '#shared/maps/types';
+import { spoolbookMapSchema } from '#shared/schemas/map';
 import { demoMapsFolder, goodFixtures, parseOk } from './helpers';
 
 const turbineFile = readFileSync(path.join(goodFixtures, 'turbine-divided.csv'), 'utf8');
@@ -36,7 +36,10 @@ describe('the turbine map field saying what its efficiency counts', () => {
     const bad = parseMapFile(withKind('with the bearings'));
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.problems.map((p) => p.code)).toEqual(['bad-value']);
-    const compressor = readFileSync(path.join(goodFixtures, 'compressor-minimal.csv'), 'utf8').replace('# efficiency:', '# efficiency kind: aerodynamic only\n# efficiency:');
+    const compressor = readFileSync(path.join(goodFixtures, 'compressor-minimal.csv'), 'utf8').replace(
+      '# efficiency:',
+      '# efficiency kind: aerodynamic only\n# efficiency:',
+    );
     const misplaced = parseMapFile(compressor);
     expect(misplaced.ok).toBe(false);
     if (!misplaced.ok) expect(misplaced.problems.map((p) => p.code)).toContain('misplaced-key');

@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
+import { parseMapFile } from '#shared/maps';
 import { compressorOf, expectClose, goodFixtures, parseOk, readBytes, turbineOf } from './helpers';
 
 const minimal = compressorOf(parseOk(readBytes(path.join(goodFixtures, 'compressor-minimal.csv'))));
@@ -70,7 +70,8 @@ describe('good map files', () => {
   });
 
   it('converts a volume-flow map to corrected mass flow with the reference density', () => {
-    const text = new TextDecoder().decode(readBytes(path.join(goodFixtures, 'compressor-minimal.csv')))
+    const text = new TextDecoder()
+      .decode(readBytes(path.join(goodFixtures, 'compressor-minimal.csv')))
       .replace('# flow: corrected mass, kg/s', '# flow: volume, m3/s');
     const map = compressorOf(parseOk(text));
     // ρ_ref = p/(R·T) = 100000/(287.05287·298) = 1.169020 kg/m³ (ideal gas, R of dry air from ISO 2533; by hand)
@@ -79,7 +80,8 @@ describe('good map files', () => {
   });
 
   it('reads numbers with signs and exponents, and units written with degree signs', () => {
-    const text = new TextDecoder().decode(readBytes(path.join(goodFixtures, 'compressor-minimal.csv')))
+    const text = new TextDecoder()
+      .decode(readBytes(path.join(goodFixtures, 'compressor-minimal.csv')))
       .replace('# reference temperature: 298 K', '# reference temperature: 24.85 °C')
       .replace('speed,80000,0.05,1.20,65,80000', 'speed,80000,5e-2,+1.20,65,8.0E4');
     const map = compressorOf(parseOk(text));
@@ -88,7 +90,17 @@ describe('good map files', () => {
   });
 
   it('never throws, whatever it is given', () => {
-    const inputs: Array<string | Uint8Array> = ['', '#', '# :', ',,,,', '"', '\uFEFF', 'curve,label\n', new Uint8Array([0xc3, 0x28]), '# spoolbook-map: 1\n# kind: turbine\ncurve,label,expansion_ratio,flow_parameter,efficiency,speed\nflow,a,1e400,1,,\n'];
+    const inputs: Array<string | Uint8Array> = [
+      '',
+      '#',
+      '# :',
+      ',,,,',
+      '"',
+      '\uFEFF',
+      'curve,label\n',
+      new Uint8Array([0xc3, 0x28]),
+      '# spoolbook-map: 1\n# kind: turbine\ncurve,label,expansion_ratio,flow_parameter,efficiency,speed\nflow,a,1e400,1,,\n',
+    ];
     for (const input of inputs) {
       const result = parseMapFile(input);
       expect(result.ok).toBe(false);

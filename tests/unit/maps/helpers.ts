@@ -2,8 +2,8 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
 import { expect } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../shared/maps/types';
+import { parseMapFile } from '#shared/maps';
+import type { CompressorMap, SpoolbookMap, TurbineMap } from '#shared/maps/types';
 
 export const repoRoot = fileURLToPath(new URL('../../../', import.meta.url));
 export const badFixtures = path.join(repoRoot, 'tests/fixtures/maps/bad');

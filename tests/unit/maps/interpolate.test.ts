@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { triangulate } from '../../../shared/maps';
+import { triangulate } from '#shared/maps';
 import { expectClose } from './helpers';
 
 /** A fixed, well-spread point set: a jittered grid (deterministic, no randomness). */
@@ -38,7 +38,11 @@ describe('barycentric interpolation over a Delaunay triangulation', () => {
   it('reproduces a plane on scattered points of any shape', () => {
     fc.assert(
       fc.property(
-        fc.uniqueArray(fc.tuple(fc.integer({ min: 0, max: 1000 }), fc.integer({ min: 0, max: 1000 })), { minLength: 4, maxLength: 60, selector: ([x, y]) => `${x},${y}` }),
+        fc.uniqueArray(fc.tuple(fc.integer({ min: 0, max: 1000 }), fc.integer({ min: 0, max: 1000 })), {
+          minLength: 4,
+          maxLength: 60,
+          selector: ([x, y]) => `${x},${y}`,
+        }),
         fc.tuple(fc.nat(1000), fc.nat(1000), fc.nat(1000)),
         (points, [wa, wb, wc]) => {
           const xs = points.map(([x]) => 0.01 + x * 3e-4);
@@ -71,7 +75,7 @@ describe('barycentric interpolation over a Delaunay triangulation', () => {
   });
 
   it('converges on a smooth surface as points are added (error falls about 4× per halving of spacing)', () => {
-    const smooth = (x: number, y: number) => Math.exp(-((x - 0.55) ** 2) * 6 - ((y - 0.45) ** 2) * 4) + 0.3 * x * y;
+    const smooth = (x: number, y: number) => Math.exp(-((x - 0.55) ** 2) * 6 - (y - 0.45) ** 2 * 4) + 0.3 * x * y;
     const queries: Array<[number, number]> = [];
     for (let i = 0; i < 40; i++) for (let j = 0; j < 40; j++) queries.push([0.01 + (i + 0.37) / 41, 0.01 + (j + 0.61) / 41]);
     const maxError = (n: number) => {
@@ -88,7 +92,15 @@ describe('barycentric interpolation over a Delaunay triangulation', () => {
   it('never extrapolates: outside the convex hull there is no value', () => {
     const { xs, ys } = jitteredGrid(5, 0.1, 0.2, 1.5, 2.5);
     const surface = triangulate(xs, ys, [xs.map(() => 0.7)]);
-    for (const [x, y] of [[0.09, 2], [0.21, 2], [0.15, 1.49], [0.15, 2.51], [0, 0], [Number.NaN, 2], [Number.POSITIVE_INFINITY, 2]]) {
+    for (const [x, y] of [
+      [0.09, 2],
+      [0.21, 2],
+      [0.15, 1.49],
+      [0.15, 2.51],
+      [0, 0],
+      [Number.NaN, 2],
+      [Number.POSITIVE_INFINITY, 2],
+    ]) {
       expect(surface.valueAt(x, y)).toBeNull();
       expect(surface.findTriangle(x, y)).toBe(-1);
     }
@@ -132,7 +144,11 @@ describe('barycentric interpolation over a Delaunay triangulation', () => {
     const probes: Array<[number, number]> = [];
     for (let i = 0; i <= 40; i++) for (let j = 0; j <= 40; j++) probes.push([0.04 + (0.23 * i) / 40, 1.1 + (2.7 * j) / 40]);
     const readAll = (order: number[]) => {
-      const surface = triangulate(order.map((k) => xs[k]), order.map((k) => ys[k]), [order.map((k) => values[k])]);
+      const surface = triangulate(
+        order.map((k) => xs[k]),
+        order.map((k) => ys[k]),
+        [order.map((k) => values[k])],
+      );
       return probes.map(([x, y]) => surface.valueAt(x, y));
     };
     const indices = [...xs.keys()];

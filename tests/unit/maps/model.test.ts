@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, withCompressorFileUnits, withReference, writeMapFile } from '../../../shared/maps';
-import type { CompressorModel } from '../../../shared/matching/compressor-model';
-import { toSI } from '../../../shared/units';
+import { compressorModelFromMap, withCompressorFileUnits, withReference, writeMapFile } from '#shared/maps';
+import type { CompressorModel } from '#shared/matching/compressor-model';
+import { toSI } from '#shared/units';
 import { compressorOf, demoMapsFolder, expectClose, parseOk } from './helpers';
 
 // A tiny map whose lines are easy to follow by hand.
@@ -85,7 +85,12 @@ describe('reading a compressor map', () => {
   });
 
   it('returns "off-map" for input that is not a flow and a ratio', () => {
-    for (const [flow, ratio] of [[Number.NaN, 1.5], [0.1, Number.POSITIVE_INFINITY], [-0.1, 1.5], [0, 1.5]]) {
+    for (const [flow, ratio] of [
+      [Number.NaN, 1.5],
+      [0.1, Number.POSITIVE_INFINITY],
+      [-0.1, 1.5],
+      [0, 1.5],
+    ]) {
       expect(tiny.read(flow, ratio)).toEqual({
         efficiency: null,
         shaftSpeed: null,
@@ -115,10 +120,11 @@ describe('one map, two files with different reference conditions and units', () 
   // 545 °R and 13.95 psi, read that file, and put one physical engine point on both.
   const inKilograms = compressorOf(parseOk(readFileSync(path.join(demoMapsFolder, 'compressor-s44.csv'), 'utf8')));
   const inPoundsFile = writeMapFile(
-    withCompressorFileUnits(
-      withReference(inKilograms, { temperature: toSI(545, 'degR', 'temperature'), pressure: toSI(13.95, 'psi', 'pressure') }),
-      { flowUnit: 'lb/min', referenceTemperatureUnit: 'degR', referencePressureUnit: 'psi' },
-    ),
+    withCompressorFileUnits(withReference(inKilograms, { temperature: toSI(545, 'degR', 'temperature'), pressure: toSI(13.95, 'psi', 'pressure') }), {
+      flowUnit: 'lb/min',
+      referenceTemperatureUnit: 'degR',
+      referencePressureUnit: 'psi',
+    }),
   );
   const inPounds = compressorOf(parseOk(inPoundsFile));
 

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseMapFile, withMetadata, writeMapFile } from '../../../shared/maps';
-import { demoMaps } from '../../../scripts/generate-demo-maps';
+import { parseMapFile, withMetadata, writeMapFile } from '#shared/maps';
+import { demoMaps } from '#scripts/generate-demo-maps';
 import { compressorOf, demoMapFiles, demoMapsFolder, goodFixtures, parseOk, readBytes } from './helpers';
 
 describe('round trip: parse → write → parse', () => {
@@ -94,7 +94,10 @@ describe('writing map files', () => {
   });
 
   it('writes a map in other units and reads the same SI values back', () => {
-    const inPounds = { ...minimal, fileUnits: { ...minimal.fileUnits, flowUnit: 'lb/min', referenceTemperatureUnit: 'degF', referencePressureUnit: 'psi', efficiency: 'fraction' as const } };
+    const inPounds = {
+      ...minimal,
+      fileUnits: { ...minimal.fileUnits, flowUnit: 'lb/min', referenceTemperatureUnit: 'degF', referencePressureUnit: 'psi', efficiency: 'fraction' as const },
+    };
     const text = writeMapFile(inPounds);
     // 298 K = 76.73 °F (°F = K·9/5 − 459.67, NIST SP 811 B.9); 100 kPa = 14.5038 psi (1 psi = 6894.757 Pa, NIST SP 811)
     expect(text).toContain('# reference temperature: 76.73 degF');

@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, parseMapFile, turbineModelFromMap } from '../../../shared/maps';
-import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../shared/maps/types';
+import { compressorModelFromMap, parseMapFile, turbineModelFromMap } from '#shared/maps';
+import type { CompressorMap, SpoolbookMap, TurbineMap } from '#shared/maps/types';
 import { demoMapFiles, demoMapsFolder, parseOk } from './helpers';
 
 /**
@@ -68,10 +68,7 @@ function reorderedFile(file: SplitFile, order: number[], islands: IslandChange[]
 function reorderings(file: SplitFile) {
   const n = file.blocks.length;
   const island = fc.record({ start: fc.nat(10_000), reverse: fc.boolean(), leaveOpen: fc.boolean() });
-  return fc.tuple(
-    fc.shuffledSubarray([...Array(n).keys()], { minLength: n, maxLength: n }),
-    fc.array(island, { minLength: n, maxLength: n }),
-  );
+  return fc.tuple(fc.shuffledSubarray([...Array(n).keys()], { minLength: n, maxLength: n }), fc.array(island, { minLength: n, maxLength: n }));
 }
 
 /** `steps` + 1 values from `low` to `high`. */

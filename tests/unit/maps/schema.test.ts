@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { mapMetadataSchema, mapMetadataUpdateSchema, mapNameSchema, spoolbookMapSchema } from '../../../shared/schemas/map';
+import { mapMetadataSchema, mapMetadataUpdateSchema, mapNameSchema, spoolbookMapSchema } from '#shared/schemas/map';
 import { compressorOf, demoMapFiles, demoMapsFolder, goodFixtures, parseOk, readBytes, turbineOf } from './helpers';
 
 describe('map schemas', () => {

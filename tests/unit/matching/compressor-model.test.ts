@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { MAX_ITERATIONS, pointWorking, runStudy, type CompressorModel, type MapLocation, type OperatingPoint, type PointValues } from '../../../shared/matching';
-import { AIR_GAS_CONSTANT, compressorOutletTemperature } from '../../../shared/physics';
+import { MAX_ITERATIONS, pointWorking, runStudy, type CompressorModel, type MapLocation, type OperatingPoint, type PointValues } from '#shared/matching';
+import { AIR_GAS_CONSTANT, compressorOutletTemperature } from '#shared/physics';
 import { expectClose } from '../physics/expect-close';
 import { baseStudy, fakeModel, withBoost } from './fixtures';
 
@@ -39,7 +39,7 @@ describe('a compressor model supplied with the plan', () => {
     expectClose(va.correctedMassFlow / vb.correctedMassFlow, Math.sqrt(288.15 / 298.15) * (100_000 / 101_325), 1e-12); // definition of corrected flow
   });
 
-  it('turns the speed lines\' corrected speed into the wheel\'s real speed, N = N_c·√(T1/T_ref)', () => {
+  it("turns the speed lines' corrected speed into the wheel's real speed, N = N_c·√(T1/T_ref)", () => {
     const study = baseStudy();
     study.intercooler = { kind: 'fixed', manifoldTemperature: 320 };
     const model = fakeModel({ reference: { temperature: 298.15, pressure: 100_000 } });
@@ -68,7 +68,16 @@ describe('a compressor model supplied with the plan', () => {
     expect(v.mapRegion).toBe('outside-speed-lines');
     expect(v.reachable).toBe(false); // the map cannot say the compressor runs there (design: "not reachable")
     expect(v.placementEfficiency).toBe(0.72); // the plan's (baseStudy), used only to place the point
-    for (const key of ['compressorEfficiency', 'compressorOutletTemperature', 'compressorPower', 'brakePower', 'torque', 'fuelMassFlow', 'injectorDuty'] as const) expect(v[key], key).toBeNull();
+    for (const key of [
+      'compressorEfficiency',
+      'compressorOutletTemperature',
+      'compressorPower',
+      'brakePower',
+      'torque',
+      'fuelMassFlow',
+      'injectorDuty',
+    ] as const)
+      expect(v[key], key).toBeNull();
     expect(v.correctedMassFlow).toBeGreaterThan(0); // where it lies is still known
     expect(p.findings.map((f) => [f.code, f.severity])).toEqual(expect.arrayContaining([['map-off-map', 'limit']]));
     expect(p.findings.find((f) => f.code === 'map-off-map')?.message).toMatch(/Not reachable with this compressor/);
@@ -160,7 +169,14 @@ describe('a compressor model supplied with the plan', () => {
     const faulty: CompressorModel = {
       reference: { temperature: 298.15, pressure: 100_000 },
       maxSpeed: Number.NaN,
-      read: () => ({ efficiency: Number.NaN, shaftSpeed: Infinity, surgeMargin: Number.NaN, chokeMargin: -Infinity, speedMargin: Number.NaN, location: 'nowhere' as MapLocation }),
+      read: () => ({
+        efficiency: Number.NaN,
+        shaftSpeed: Infinity,
+        surgeMargin: Number.NaN,
+        chokeMargin: -Infinity,
+        speedMargin: Number.NaN,
+        location: 'nowhere' as MapLocation,
+      }),
     };
     const p = runStudy(baseStudy(), { compressorModels: [faulty] }).lines[0].points[2];
     const v = solved(p);

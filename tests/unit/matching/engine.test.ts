@@ -10,9 +10,9 @@ import {
   type OperatingPoint,
   type PointValues,
   type StudyInput,
-} from '../../../shared/matching';
-import { isaPressure, isaTemperature } from '../../../shared/physics';
-import { computeRequestSchema, type ComputeRequest } from '../../../shared/schemas/compute';
+} from '#shared/matching';
+import { isaPressure, isaTemperature } from '#shared/physics';
+import { computeRequestSchema, type ComputeRequest } from '#shared/schemas/compute';
 import { expectClose } from '../physics/expect-close';
 import { baseStudy, CC_PER_MIN, withBoost } from './fixtures';
 

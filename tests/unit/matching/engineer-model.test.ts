@@ -1,12 +1,12 @@
 import fc from 'fast-check';
 import psychrolib from 'psychrolib';
 import { describe, expect, it } from 'vitest';
-import { compressorModelFromMap, turbineModelFromMap } from '../../../shared/maps';
-import type { TurbineCurve, TurbineMap } from '../../../shared/maps/types';
-import { runComputeRequest, runStudy, type OperatingLine, type PointValues, type StudyInput } from '../../../shared/matching';
-import { AIR_GAS_CONSTANT, exhaustGasAt, humidAirGas, humidityRatioFromRelativeHumidity } from '../../../shared/physics';
-import { computeRequestSchema } from '../../../shared/schemas/compute';
-import { migrateStudyDocument, STUDY_SCHEMA_VERSION, studyDocumentSchema } from '../../../shared/schemas/study';
+import { compressorModelFromMap, turbineModelFromMap } from '#shared/maps';
+import type { TurbineCurve, TurbineMap } from '#shared/maps/types';
+import { runComputeRequest, runStudy, type OperatingLine, type PointValues, type StudyInput } from '#shared/matching';
+import { AIR_GAS_CONSTANT, exhaustGasAt, humidAirGas, humidityRatioFromRelativeHumidity } from '#shared/physics';
+import { computeRequestSchema } from '#shared/schemas/compute';
+import { migrateStudyDocument, STUDY_SCHEMA_VERSION, studyDocumentSchema } from '#shared/schemas/study';
 import { demoCompressor, demoTurbine, exhaustOf, exhaustStudy, expectClose, solved } from '../exhaust/helpers';
 import { baseStudy, CC_PER_MIN } from './fixtures';
 
@@ -28,7 +28,10 @@ function onePoint(change: (s: StudyInput) => void = () => {}): StudyInput {
 describe('losses that follow the flow', () => {
   it('scale as ṁ²/ρ at the point, worked by hand with the manifold temperature stated', () => {
     const study = onePoint((s) => {
-      s.losses = { inlet: { pressureLoss: 2500, referenceMassFlow: 0.2, referenceDensity: 1.2 }, chargeCooler: { pressureLoss: 12_000, referenceMassFlow: 0.2, referenceDensity: 2.4 } };
+      s.losses = {
+        inlet: { pressureLoss: 2500, referenceMassFlow: 0.2, referenceDensity: 1.2 },
+        chargeCooler: { pressureLoss: 12_000, referenceMassFlow: 0.2, referenceDensity: 2.4 },
+      };
     });
     const v = solved(runStudy(study).lines[0].points[0]);
     // By hand (definitions, Heywood 1988 §2.10 for the flow): p_man = 101 325 + 150 000 Pa; ρ_man = p_man/(R·320 K);
@@ -48,7 +51,10 @@ describe('losses that follow the flow', () => {
 
   it('settle with the manifold temperature where an intercooler sets it, and lose less at low flow than the fixed form', () => {
     const scaled = baseStudy();
-    scaled.losses = { inlet: { pressureLoss: 2000, referenceMassFlow: 0.25 }, chargeCooler: { pressureLoss: 8000, referenceMassFlow: 0.25, referenceDensity: 2.4 } };
+    scaled.losses = {
+      inlet: { pressureLoss: 2000, referenceMassFlow: 0.25 },
+      chargeCooler: { pressureLoss: 8000, referenceMassFlow: 0.25, referenceDensity: 2.4 },
+    };
     const fixed = runStudy(baseStudy()).lines[0].points.map(solved);
     const moving = runStudy(scaled).lines[0].points.map(solved);
     for (const v of moving) {
@@ -69,7 +75,9 @@ describe('losses that follow the flow', () => {
       notes: '',
       ...baseStudy(),
       losses: { inlet: 2000, chargeCooler: 8000 },
-      plans: [{ id: 'a', compressorMapId: null, name: 'Plan A', turbochargers: 1, compressorEfficiency: 0.72, exhaust: { ...exhaustOf(), downstreamLoss: 15_000 } }],
+      plans: [
+        { id: 'a', compressorMapId: null, name: 'Plan A', turbochargers: 1, compressorEfficiency: 0.72, exhaust: { ...exhaustOf(), downstreamLoss: 15_000 } },
+      ],
     };
     const migrated = migrateStudyDocument(v1) as Record<string, unknown>;
     expect(migrated.schemaVersion).toBe(STUDY_SCHEMA_VERSION);
@@ -78,9 +86,18 @@ describe('losses that follow the flow', () => {
     expect(studyDocumentSchema.safeParse(migrated).success).toBe(true);
     expect(v1.losses).toEqual({ inlet: 2000, chargeCooler: 8000 }); // the stored document is not changed in place
     // A version-0 document (no version, plans naming their map in mapId) comes up both steps.
-    const { schemaVersion: _v, engineLabel: _l, notes: _n, ...v0 } = { ...v1, plans: [{ mapId: 'builtin-compressor-m58', name: 'Plan A', turbochargers: 1, compressorEfficiency: 0.72 }] };
+    const {
+      schemaVersion: _v,
+      engineLabel: _l,
+      notes: _n,
+      ...v0
+    } = { ...v1, plans: [{ mapId: 'builtin-compressor-m58', name: 'Plan A', turbochargers: 1, compressorEfficiency: 0.72 }] };
     const fromV0 = migrateStudyDocument(v0) as Record<string, unknown>;
-    expect(fromV0).toMatchObject({ schemaVersion: STUDY_SCHEMA_VERSION, losses: { inlet: { pressureLoss: 2000 } }, plans: [{ id: 'plan-1', compressorMapId: 'builtin-compressor-m58' }] });
+    expect(fromV0).toMatchObject({
+      schemaVersion: STUDY_SCHEMA_VERSION,
+      losses: { inlet: { pressureLoss: 2000 } },
+      plans: [{ id: 'plan-1', compressorMapId: 'builtin-compressor-m58' }],
+    });
     // The fixed form computes exactly as the plain numbers did: the loss is the loss at every point.
     const v = runStudy(baseStudy()).lines[0].points.map(solved);
     for (const p of v) expect(p.compressorInletPressure).toBe(p.ambientPressure - 2000);
@@ -108,7 +125,8 @@ describe('losses that follow the flow', () => {
 describe('humid air', () => {
   const hot = (relativeHumidity?: number) =>
     onePoint((s) => {
-      s.scenarios[0].ambient = relativeHumidity === undefined ? { pressure: 101_325, temperature: 313.15 } : { pressure: 101_325, temperature: 313.15, relativeHumidity };
+      s.scenarios[0].ambient =
+        relativeHumidity === undefined ? { pressure: 101_325, temperature: 313.15 } : { pressure: 101_325, temperature: 313.15, relativeHumidity };
     });
 
   it('changes nothing at 0 % relative humidity: today’s answers', () => {
@@ -149,7 +167,11 @@ describe('humid air', () => {
             const study = baseStudy();
             study.scenarios[0].ambient = { pressure: 98_000, temperature, relativeHumidity };
             study.scenarios[0].boostSchedule[0].boost = [{ rpm: 2000, value: boost }];
-            if (scaledLosses) study.losses = { inlet: { pressureLoss: 2500, referenceMassFlow: 0.25 }, chargeCooler: { pressureLoss: 10_000, referenceMassFlow: 0.25, referenceDensity: 2.4 } };
+            if (scaledLosses)
+              study.losses = {
+                inlet: { pressureLoss: 2500, referenceMassFlow: 0.25 },
+                chargeCooler: { pressureLoss: 10_000, referenceMassFlow: 0.25, referenceDensity: 2.4 },
+              };
             return runStudy(study, { compressorModels: [model] }).lines[0].points.map((p) => solved(p).dryAirMassFlow!);
           };
           const wetter = dryAir(high);
@@ -289,7 +311,10 @@ describe('the exhaust side an engineer accepts', () => {
     expect(withBearings.context.exhaust!.mechanicalEfficiency).toBe(1);
     expect(aerodynamic.context.exhaust!.mechanicalEfficiency).toBe(0.95); // the Plan's (exhaustOf)
     expect(unstated.context.exhaust!.mechanicalEfficiency).toBe(0.95); // absent reads as aerodynamic only (docs/map-format.md)
-    for (const [line, etaM] of [[withBearings, 1], [aerodynamic, 0.95]] as const) {
+    for (const [line, etaM] of [
+      [withBearings, 1],
+      [aerodynamic, 0.95],
+    ] as const) {
       for (const v of valuesOf(line).filter((x) => x.reachable && x.exhaustCase === 'gate-open')) expectClose(etaM * v.turbinePower!, v.compressorPower!, 1e-6); // η_m·P_t = P_c
     }
     expect(withBearings.points[0].findings.some((f) => f.code === 'mechanical-efficiency-in-map')).toBe(true);
@@ -299,7 +324,10 @@ describe('the exhaust side an engineer accepts', () => {
   });
 
   it('scales the loss after the turbine with the exhaust flow over its density at T3', () => {
-    const line = run(demoTurbine('ar082-single'), (s) => (s.plans[0].exhaust!.downstreamLoss = { pressureLoss: 15_000, referenceMassFlow: 0.3, referenceDensity: 0.3 }));
+    const line = run(
+      demoTurbine('ar082-single'),
+      (s) => (s.plans[0].exhaust!.downstreamLoss = { pressureLoss: 15_000, referenceMassFlow: 0.3, referenceDensity: 0.3 }),
+    );
     for (const v of valuesOf(line).filter((x) => x.reachable && x.exhaustCase !== null)) {
       const density = v.ambientPressure / (v.exhaustGasConstant! * v.turbineInletTemperature!);
       // Δp = Δp_ref·(ṁ_ex/ṁ_ref)²·ρ_ref/ρ with the whole engine's exhaust flow (one turbocharger here), by hand.

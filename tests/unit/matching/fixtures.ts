@@ -1,5 +1,5 @@
-import type { CompressorModel, CompressorReading, MapLocation, MapReference } from '../../../shared/matching/compressor-model';
-import type { StudyInput } from '../../../shared/matching/types';
+import type { CompressorModel, CompressorReading, MapLocation, MapReference } from '#shared/matching/compressor-model';
+import type { StudyInput } from '#shared/matching/types';
 
 /** 1650 cc/min in m³/s. */
 export const CC_PER_MIN = 1e-6 / 60;
@@ -33,7 +33,16 @@ export function baseStudy(): StudyInput {
       {
         name: 'Sea level',
         ambient: { pressure: 101_325, temperature: 298.15 },
-        boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: [{ rpm: 2000, value: 40_000 }, { rpm: 4000, value: 120_000 }] }],
+        boostSchedule: [
+          {
+            label: 'Full load',
+            kind: 'full-load',
+            boost: [
+              { rpm: 2000, value: 40_000 },
+              { rpm: 4000, value: 120_000 },
+            ],
+          },
+        ],
       },
     ],
     plans: [{ name: 'Plan A', turbochargers: 1, compressorEfficiency: 0.72 }],
@@ -42,7 +51,10 @@ export function baseStudy(): StudyInput {
 
 /** A study with a boost held constant over rpm (for properties). */
 export function withBoost(study: StudyInput, boost: number): StudyInput {
-  return { ...study, scenarios: study.scenarios.map((s) => ({ ...s, boostSchedule: [{ label: 'Row', kind: 'full-load', boost: [{ rpm: 1000, value: boost }] }] })) };
+  return {
+    ...study,
+    scenarios: study.scenarios.map((s) => ({ ...s, boostSchedule: [{ label: 'Row', kind: 'full-load', boost: [{ rpm: 1000, value: boost }] }] })),
+  };
 }
 
 export interface FakeModelOptions {

@@ -1,8 +1,19 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { pointWorking, runStudy, StudyInputError, type AmbientInput, type CompressorModel, type IntercoolerInput, type MapLocation, type OperatingPoint, type PointValues, type StudyInput } from '../../../shared/matching';
-import { isaPressure } from '../../../shared/physics';
-import { studyInputSchema } from '../../../shared/schemas/compute';
+import {
+  pointWorking,
+  runStudy,
+  StudyInputError,
+  type AmbientInput,
+  type CompressorModel,
+  type IntercoolerInput,
+  type MapLocation,
+  type OperatingPoint,
+  type PointValues,
+  type StudyInput,
+} from '#shared/matching';
+import { isaPressure } from '#shared/physics';
+import { studyInputSchema } from '#shared/schemas/compute';
 import { expectClose } from '../physics/expect-close';
 import { baseStudy, CC_PER_MIN, fakeModel, numbersIn } from './fixtures';
 
@@ -44,7 +55,13 @@ type Setting = typeof pointSetting extends fc.Arbitrary<infer T> ? T : never;
 
 function studyOf(s: Setting, boost: number, ambient: AmbientInput = s.ambient): StudyInput {
   const study = baseStudy();
-  study.engine = { ...study.engine, displacement: s.displacement, strokes: s.strokes, rpm: { kind: 'list', values: [s.rpm] }, volumetricEfficiency: [{ rpm: 1000, value: s.ve }] };
+  study.engine = {
+    ...study.engine,
+    displacement: s.displacement,
+    strokes: s.strokes,
+    rpm: { kind: 'list', values: [s.rpm] },
+    volumetricEfficiency: [{ rpm: 1000, value: s.ve }],
+  };
   study.losses = { inlet: { pressureLoss: s.inlet }, chargeCooler: { pressureLoss: s.chargeCooler } };
   study.intercooler = s.intercooler;
   study.plans = [{ name: 'P', turbochargers: s.turbochargers, compressorEfficiency: s.efficiency }];
@@ -90,12 +107,18 @@ describe('properties of the engine (fast-check)', () => {
 
   it('corrected flow equals actual flow at the reference conditions', () => {
     fc.assert(
-      fc.property(pointSetting, fc.double({ min: 0, max: 200_000, noNaN: true }), temperatureArb, fc.double({ min: 60_000, max: 105_000, noNaN: true }), (s, boost, tRef, pRef) => {
-        const study = studyOf({ ...s, inlet: 0 }, boost, { pressure: pRef, temperature: tRef });
-        study.plans[0].mapReference = { temperature: tRef, pressure: pRef };
-        const v = pointOf(study);
-        expectClose(v.correctedMassFlow, v.massFlow, 1e-12); // definition: √(Tref/Tref)/(pref/pref) = 1
-      }),
+      fc.property(
+        pointSetting,
+        fc.double({ min: 0, max: 200_000, noNaN: true }),
+        temperatureArb,
+        fc.double({ min: 60_000, max: 105_000, noNaN: true }),
+        (s, boost, tRef, pRef) => {
+          const study = studyOf({ ...s, inlet: 0 }, boost, { pressure: pRef, temperature: tRef });
+          study.plans[0].mapReference = { temperature: tRef, pressure: pRef };
+          const v = pointOf(study);
+          expectClose(v.correctedMassFlow, v.massFlow, 1e-12); // definition: √(Tref/Tref)/(pref/pref) = 1
+        },
+      ),
     );
   });
 
@@ -114,28 +137,47 @@ describe('properties of the engine (fast-check)', () => {
 
   // ——— whole studies: no NaN out, invalid in refused ———
   const tableArb = (min: number, max: number) =>
-    fc.uniqueArray(fc.integer({ min: 500, max: 12_000 }), { minLength: 1, maxLength: 6 }).chain((rpms) =>
-      fc.tuple(...rpms.sort((x, y) => x - y).map((rpm) => fc.double({ min, max, noNaN: true }).map((value) => ({ rpm, value })))),
-    );
+    fc
+      .uniqueArray(fc.integer({ min: 500, max: 12_000 }), { minLength: 1, maxLength: 6 })
+      .chain((rpms) => fc.tuple(...rpms.sort((x, y) => x - y).map((rpm) => fc.double({ min, max, noNaN: true }).map((value) => ({ rpm, value })))));
   const studyArb: fc.Arbitrary<StudyInput> = fc
     .record({
       setting: pointSetting,
       rpm: fc.oneof(
-        fc.uniqueArray(fc.integer({ min: 300, max: 15_000 }), { minLength: 1, maxLength: 12 }).map((v) => ({ kind: 'list' as const, values: v.sort((x, y) => x - y) })),
-        fc.record({ kind: fc.constant('range' as const), min: fc.integer({ min: 500, max: 3000 }), max: fc.integer({ min: 3000, max: 12_000 }), step: fc.integer({ min: 250, max: 2000 }) }),
+        fc
+          .uniqueArray(fc.integer({ min: 300, max: 15_000 }), { minLength: 1, maxLength: 12 })
+          .map((v) => ({ kind: 'list' as const, values: v.sort((x, y) => x - y) })),
+        fc.record({
+          kind: fc.constant('range' as const),
+          min: fc.integer({ min: 500, max: 3000 }),
+          max: fc.integer({ min: 3000, max: 12_000 }),
+          step: fc.integer({ min: 250, max: 2000 }),
+        }),
       ),
       ve: tableArb(0.05, 2),
       lambda: tableArb(0.5, 2),
       boost: tableArb(-40_000, 400_000),
-      fuel: fc.oneof(fc.constant({ kind: 'petrol' as const }), fc.constant({ kind: 'methanol' as const }), fc.double({ min: 0, max: 100, noNaN: true }).map((e) => ({ kind: 'ethanol-blend' as const, ethanolPercent: e }))),
+      fuel: fc.oneof(
+        fc.constant({ kind: 'petrol' as const }),
+        fc.constant({ kind: 'methanol' as const }),
+        fc.double({ min: 0, max: 100, noNaN: true }).map((e) => ({ kind: 'ethanol-blend' as const, ethanolPercent: e })),
+      ),
       regulator: fc.constantFrom('manifold-referenced' as const, 'fixed-rail' as const),
       fuelPressure: fc.double({ min: 1e5, max: 6e5, noNaN: true }),
       injectorFlow: fc.double({ min: 100, max: 3000, noNaN: true }),
       staged: fc.boolean(),
       pump: fc.option(fc.double({ min: 1e-5, max: 5e-4, noNaN: true }), { nil: undefined }),
       power: fc.oneof(
-        fc.record({ basis: fc.constant('brake-thermal-efficiency' as const), brakeThermalEfficiency: fc.double({ min: 0.05, max: 1, noNaN: true }), drivetrainLoss: fc.double({ min: 0, max: 0.9, noNaN: true }) }),
-        fc.record({ basis: fc.constant('bsfc' as const), bsfc: fc.double({ min: 6e-8, max: 1e-6, noNaN: true }), drivetrainLoss: fc.double({ min: 0, max: 0.9, noNaN: true }) }),
+        fc.record({
+          basis: fc.constant('brake-thermal-efficiency' as const),
+          brakeThermalEfficiency: fc.double({ min: 0.05, max: 1, noNaN: true }),
+          drivetrainLoss: fc.double({ min: 0, max: 0.9, noNaN: true }),
+        }),
+        fc.record({
+          basis: fc.constant('bsfc' as const),
+          bsfc: fc.double({ min: 6e-8, max: 1e-6, noNaN: true }),
+          drivetrainLoss: fc.double({ min: 0, max: 0.9, noNaN: true }),
+        }),
       ),
       maxShaftSpeed: fc.option(fc.double({ min: 50_000, max: 300_000, noNaN: true }), { nil: undefined }),
     })
@@ -163,7 +205,9 @@ describe('properties of the engine (fast-check)', () => {
   const locations: MapLocation[] = ['inside', 'left-of-surge', 'beyond-choke', 'above-top-speed', 'below-map', 'off-map'];
   const modelArb = fc.option(
     fc.oneof(
-      fc.record({ surgeSlope: fc.double({ min: 0, max: 0.5, noNaN: true }), chokeFlow: fc.double({ min: 0.05, max: 1, noNaN: true }) }).map((o) => fakeModel(o)),
+      fc
+        .record({ surgeSlope: fc.double({ min: 0, max: 0.5, noNaN: true }), chokeFlow: fc.double({ min: 0.05, max: 1, noNaN: true }) })
+        .map((o) => fakeModel(o)),
       fc.constantFrom(...locations).map((forceLocation) => fakeModel({ forceLocation })),
     ),
     { nil: undefined },
@@ -192,14 +236,26 @@ describe('properties of the engine (fast-check)', () => {
     ['efficiency over 1', (s) => void (s.plans[0].compressorEfficiency = 1.2), 'plans.0.compressorEfficiency'],
     ['efficiency as percent', (s) => void (s.plans[0].compressorEfficiency = 72), 'plans.0.compressorEfficiency'],
     ['°C for kelvin', (s) => void (s.scenarios[0].ambient = { pressure: 101_325, temperature: 25 }), 'scenarios.0.ambient.temperature'],
-    ['boost that empties the manifold', (s) => void (s.scenarios[0].boostSchedule[0].boost = [{ rpm: 1000, value: -199_000 }]), 'scenarios.0.boostSchedule.0.boost.0.value'],
+    [
+      'boost that empties the manifold',
+      (s) => void (s.scenarios[0].boostSchedule[0].boost = [{ rpm: 1000, value: -199_000 }]),
+      'scenarios.0.boostSchedule.0.boost.0.value',
+    ],
     ['strokes 3', (s) => void ((s.engine as { strokes: number }).strokes = 3), 'engine.strokes'],
     ['empty rpm list', (s) => void (s.engine.rpm = { kind: 'list', values: [] }), 'engine.rpm.values'],
     ['too many rpm points', (s) => void (s.engine.rpm = { kind: 'range', min: 100, max: 20_000, step: 10 }), 'engine.rpm.step'],
     ['misspelt key', (s) => void ((s.engine as unknown as Record<string, unknown>).displacment = 0.002), 'engine'],
     ['NaN', (s) => void (s.engine.volumetricEfficiency = [{ rpm: 1000, value: Number.NaN }]), 'engine.volumetricEfficiency.0.value'],
     ['no plans', (s) => void (s.plans = []), 'plans'],
-    ['rows out of order', (s) => void (s.fuelSystem.lambda = [{ rpm: 3000, value: 0.8 }, { rpm: 2000, value: 0.9 }]), 'fuelSystem.lambda.1.rpm'],
+    [
+      'rows out of order',
+      (s) =>
+        void (s.fuelSystem.lambda = [
+          { rpm: 3000, value: 0.8 },
+          { rpm: 2000, value: 0.9 },
+        ]),
+      'fuelSystem.lambda.1.rpm',
+    ],
   ];
 
   it('refuses invalid input with a message naming the field', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { lookupByRpm, rpmPointsOf, valueAtRpm } from '../../../shared/matching/rpm-table';
+import { lookupByRpm, rpmPointsOf, valueAtRpm } from '#shared/matching/rpm-table';
 
 const table = [
   { rpm: 2000, value: 0.8 },

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { computeRequestSchema, studyInputSchema } from '../../../shared/schemas/compute';
+import { computeRequestSchema, studyInputSchema } from '#shared/schemas/compute';
 import { baseStudy } from './fixtures';
 
 /** Every path to a value inside a JSON-like object. */

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { INJECTOR_DUTY_WARNING, runStudy, type OperatingPoint, type PointValues, type StudyInput } from '../../../shared/matching';
-import { DEFAULT_BRAKE_THERMAL_EFFICIENCY, FUEL_PRESETS } from '../../../shared/physics';
-import { toSI } from '../../../shared/units';
+import { INJECTOR_DUTY_WARNING, runStudy, type OperatingPoint, type PointValues, type StudyInput } from '#shared/matching';
+import { DEFAULT_BRAKE_THERMAL_EFFICIENCY, FUEL_PRESETS } from '#shared/physics';
+import { toSI } from '#shared/units';
 import { CC_PER_MIN } from './fixtures';
 
 const solved = (p: OperatingPoint): PointValues => {
@@ -17,7 +17,13 @@ const solved = (p: OperatingPoint): PointValues => {
 function built24(staged: 'eight' | 'four'): StudyInput {
   const injector = { count: 4, ratedFlow: 1650 * CC_PER_MIN, ratedPressure: 3e5 };
   return {
-    engine: { displacement: toSI(2.4, 'L', 'volume'), cylinders: 4, strokes: 4, rpm: { kind: 'list', values: [8500] }, volumetricEfficiency: [{ rpm: 8500, value: 1.05 }] },
+    engine: {
+      displacement: toSI(2.4, 'L', 'volume'),
+      cylinders: 4,
+      strokes: 4,
+      rpm: { kind: 'list', values: [8500] },
+      volumetricEfficiency: [{ rpm: 8500, value: 1.05 }],
+    },
     fuelSystem: {
       fuel: FUEL_PRESETS.E85,
       lambda: [{ rpm: 8500, value: 0.8 }],
@@ -31,7 +37,13 @@ function built24(staged: 'eight' | 'four'): StudyInput {
     power: { basis: 'brake-thermal-efficiency', brakeThermalEfficiency: DEFAULT_BRAKE_THERMAL_EFFICIENCY, drivetrainLoss: 0.12 },
     losses: { inlet: { pressureLoss: 2000 }, chargeCooler: { pressureLoss: 10_000 } },
     intercooler: { kind: 'fixed', manifoldTemperature: toSI(45, 'degC', 'temperature') },
-    scenarios: [{ name: 'Sea level', ambient: { pressure: 101_325, temperature: 298.15 }, boostSchedule: [{ label: 'Full', kind: 'full-load', boost: [{ rpm: 8500, value: toSI(20, 'psi', 'pressure') }] }] }],
+    scenarios: [
+      {
+        name: 'Sea level',
+        ambient: { pressure: 101_325, temperature: 298.15 },
+        boostSchedule: [{ label: 'Full', kind: 'full-load', boost: [{ rpm: 8500, value: toSI(20, 'psi', 'pressure') }] }],
+      },
+    ],
     plans: [{ name: 'Plan', turbochargers: 1, compressorEfficiency: 0.72 }],
   };
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { computeRequestSchema } from '../../../shared/schemas/compute';
+import { computeRequestSchema } from '#shared/schemas/compute';
 import {
   planVerdicts,
   reasonText,
@@ -10,7 +10,7 @@ import {
   verdictOf,
   type OperatingPoint,
   type PointValues,
-} from '../../../shared/matching';
+} from '#shared/matching';
 import { expectClose } from '../physics/expect-close';
 import { baseStudy, fakeModel } from './fixtures';
 
@@ -146,7 +146,7 @@ describe('the verdict of a plan', () => {
 
 describe('the required margins block', () => {
   it('refuses a lambda warning above the limit that will apply, the default one included', async () => {
-    const { requirementsSchema } = await import('../../../shared/schemas/compute');
+    const { requirementsSchema } = await import('#shared/schemas/compute');
     // The default limit is 1.0 (common practice, no source): a warning at 1.05 would never be reached.
     const alone = requirementsSchema.safeParse({ lambdaWarningUnderBoost: 1.05 });
     expect(alone.success).toBe(false);

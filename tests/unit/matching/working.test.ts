@@ -1,7 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { computePointWorking, pointWorking, runStudy, solveComputeRequest, type OperatingLine, type PointValues, type StudyInput, type WorkingStep } from '../../../shared/matching';
-import { computeRequestSchema } from '../../../shared/schemas/compute';
-import { math, siUnitOf } from '../../../shared/units';
+import {
+  computePointWorking,
+  pointWorking,
+  runStudy,
+  solveComputeRequest,
+  type OperatingLine,
+  type PointValues,
+  type StudyInput,
+  type WorkingStep,
+} from '#shared/matching';
+import { computeRequestSchema } from '#shared/schemas/compute';
+import { math, siUnitOf } from '#shared/units';
 import { baseStudy, CC_PER_MIN, fakeModel, withBoost } from './fixtures';
 
 const kinds = new Set<string>([...Object.keys(siUnitOf), 'ratio', 'fraction', 'count', 'none']);
@@ -10,7 +19,8 @@ const kinds = new Set<string>([...Object.keys(siUnitOf), 'ratio', 'fraction', 'c
 function symbolsOf(formula: string): string[] {
   const names = new Set<string>();
   math.parse(formula).traverse((node, _path, parent) => {
-    if (node.type === 'SymbolNode' && !(parent && parent.type === 'FunctionNode' && (parent as unknown as { fn: unknown }).fn === node)) names.add((node as unknown as { name: string }).name);
+    if (node.type === 'SymbolNode' && !(parent && parent.type === 'FunctionNode' && (parent as unknown as { fn: unknown }).fn === node))
+      names.add((node as unknown as { name: string }).name);
   });
   return [...names].filter((n) => n !== 'pi');
 }
@@ -19,7 +29,10 @@ function checkStep(s: WorkingStep): void {
   const scope = new Map<string, number>();
   for (const v of s.values) scope.set(v.symbol, v.value);
   // Every symbol the formula reads is shown among the values: nothing hidden, no mathjs constant slipped in.
-  expect(symbolsOf(s.formula).filter((n) => !scope.has(n)), `${s.id}: ${s.formula}`).toEqual([]);
+  expect(
+    symbolsOf(s.formula).filter((n) => !scope.has(n)),
+    `${s.id}: ${s.formula}`,
+  ).toEqual([]);
   const got = math.evaluate(s.formula, scope) as number;
   const rel = Math.abs(got - s.result.value) / Math.max(Math.abs(s.result.value), 1e-300);
   expect(rel, `${s.id}: ${s.formula} = ${got}, result ${s.result.value}`).toBeLessThan(1e-9); // the formula reproduces its result (mathjs as the evaluator)
@@ -87,16 +100,40 @@ function variedStudy(): StudyInput {
   study.fuelSystem.pumpFlowAvailable = 1e-4;
   study.power = { basis: 'bsfc', bsfc: 1.1e-7, drivetrainLoss: 0.15 };
   // Losses at a stated flow: they follow the flow as ṁ²/ρ.
-  study.losses = { inlet: { pressureLoss: 3000, referenceMassFlow: 0.2 }, chargeCooler: { pressureLoss: 12_000, referenceMassFlow: 0.2, referenceDensity: 2.2 }, inletTemperatureRise: 8 };
+  study.losses = {
+    inlet: { pressureLoss: 3000, referenceMassFlow: 0.2 },
+    chargeCooler: { pressureLoss: 12_000, referenceMassFlow: 0.2, referenceDensity: 2.2 },
+    inletTemperatureRise: 8,
+  };
   study.scenarios.push({
     name: 'High',
     ambient: { altitude: 2500, temperature: 303.15, relativeHumidity: 0.6 },
     boostSchedule: [
-      { label: 'Part', kind: 'part-throttle', boost: [{ rpm: 1500, value: -30_000 }, { rpm: 8000, value: 20_000 }] },
-      { label: 'Full', kind: 'full-load', boost: [{ rpm: 1500, value: 60_000 }, { rpm: 4000, value: 180_000 }] },
+      {
+        label: 'Part',
+        kind: 'part-throttle',
+        boost: [
+          { rpm: 1500, value: -30_000 },
+          { rpm: 8000, value: 20_000 },
+        ],
+      },
+      {
+        label: 'Full',
+        kind: 'full-load',
+        boost: [
+          { rpm: 1500, value: 60_000 },
+          { rpm: 4000, value: 180_000 },
+        ],
+      },
     ],
   });
-  study.plans.push({ name: 'Twin', turbochargers: 2, compressorEfficiency: 0.7, maxShaftSpeed: 150_000, mapReference: { temperature: 293.15, pressure: 98_000 } });
+  study.plans.push({
+    name: 'Twin',
+    turbochargers: 2,
+    compressorEfficiency: 0.7,
+    maxShaftSpeed: 150_000,
+    mapReference: { temperature: 293.15, pressure: 98_000 },
+  });
   return study;
 }
 
@@ -121,7 +158,18 @@ describe('the Working', () => {
     expect(checkLines(runStudy(study, { compressorModels: [fakeModel(), fakeModel()] }).lines)).toBeGreaterThan(1000);
     const line = runStudy(study).lines.find((l) => l.scenarioName === 'High' && l.rowLabel === 'Full')!;
     const ids = pointWorking(line.context, line.points[8]).map((s) => s.id);
-    for (const id of ['humidity-ratio', 'humid-gas-constant', 'humid-cp', 'humid-gamma', 'inlet-loss', 'charge-cooler-loss', 'dry-air-flow', 'trapped-air', 'injection-period', 'injector-duty'])
+    for (const id of [
+      'humidity-ratio',
+      'humid-gas-constant',
+      'humid-cp',
+      'humid-gamma',
+      'inlet-loss',
+      'charge-cooler-loss',
+      'dry-air-flow',
+      'trapped-air',
+      'injection-period',
+      'injector-duty',
+    ])
       expect(ids, id).toContain(id);
     const steps = pointWorking(line.context, line.points[8]);
     expect(steps.find((s) => s.id === 'humidity-ratio')!.source).toMatch(/ASHRAE Handbook Fundamentals 2017/);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { engineAirMassFlow, manifoldDensity, revolutionsPerCycle, sharePerTurbocharger, volumeFlow } from '../../../shared/physics';
+import { engineAirMassFlow, manifoldDensity, revolutionsPerCycle, sharePerTurbocharger, volumeFlow } from '#shared/physics';
 import { expectClose } from './expect-close';
 
 describe('engine airflow', () => {

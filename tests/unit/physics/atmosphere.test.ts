@@ -1,14 +1,7 @@
 import fc from 'fast-check';
 import psychrolib from 'psychrolib';
 import { describe, expect, it } from 'vitest';
-import {
-  geopotentialHeight,
-  isaPressure,
-  isaTemperature,
-  ISA_PRESSURE_EXPONENT,
-  isInTroposphere,
-  standardAtmosphere,
-} from '../../../shared/physics';
+import { geopotentialHeight, isaPressure, isaTemperature, ISA_PRESSURE_EXPONENT, isInTroposphere, standardAtmosphere } from '#shared/physics';
 import { expectClose } from './expect-close';
 
 describe('ISA troposphere by geopotential height', () => {

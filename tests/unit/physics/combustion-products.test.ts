@@ -9,9 +9,9 @@ import {
   PETROL_ATOMS,
   stoichiometricOxygen,
   WATER_GAS_SHIFT_CONSTANT,
-} from '../../../shared/physics/combustion-products';
-import { exhaustGasAt } from '../../../shared/physics/exhaust-gas';
-import { molarHeatCapacity, type ExhaustSpecies } from '../../../shared/physics/thermo-polynomials';
+} from '#shared/physics/combustion-products';
+import { exhaustGasAt } from '#shared/physics/exhaust-gas';
+import { molarHeatCapacity, type ExhaustSpecies } from '#shared/physics/thermo-polynomials';
 import { expectClose } from './expect-close';
 
 describe('specific heats from the NASA polynomials', () => {
@@ -50,12 +50,36 @@ describe('specific heats from the NASA polynomials', () => {
 
 /** cp/R_u of the NASA 7-coefficient fits as published (GRI-Mech 3.0 thermo data), written out again here. */
 const FITS: Record<string, { m: number; lo: number[]; hi: number[] }> = {
-  N2: { m: 28.0134, lo: [3.298677, 1.4082404e-3, -3.963222e-6, 5.641515e-9, -2.444854e-12], hi: [2.92664, 1.4879768e-3, -5.68476e-7, 1.0097038e-10, -6.753351e-15] },
-  O2: { m: 31.9988, lo: [3.78245636, -2.99673416e-3, 9.84730201e-6, -9.68129509e-9, 3.24372837e-12], hi: [3.28253784, 1.48308754e-3, -7.57966669e-7, 2.09470555e-10, -2.16717794e-14] },
-  CO2: { m: 44.0095, lo: [2.35677352, 8.98459677e-3, -7.12356269e-6, 2.45919022e-9, -1.43699548e-13], hi: [3.85746029, 4.41437026e-3, -2.21481404e-6, 5.23490188e-10, -4.72084164e-14] },
-  H2O: { m: 18.0153, lo: [4.19864056, -2.0364341e-3, 6.52040211e-6, -5.48797062e-9, 1.77197817e-12], hi: [3.03399249, 2.17691804e-3, -1.64072518e-7, -9.7041987e-11, 1.68200992e-14] },
-  CO: { m: 28.0101, lo: [3.57953347, -6.1035368e-4, 1.01681433e-6, 9.07005884e-10, -9.04424499e-13], hi: [2.71518561, 2.06252743e-3, -9.98825771e-7, 2.30053008e-10, -2.03647716e-14] },
-  H2: { m: 2.0159, lo: [2.34433112, 7.98052075e-3, -1.9478151e-5, 2.01572094e-8, -7.37611761e-12], hi: [3.3372792, -4.94024731e-5, 4.99456778e-7, -1.79566394e-10, 2.00255376e-14] },
+  N2: {
+    m: 28.0134,
+    lo: [3.298677, 1.4082404e-3, -3.963222e-6, 5.641515e-9, -2.444854e-12],
+    hi: [2.92664, 1.4879768e-3, -5.68476e-7, 1.0097038e-10, -6.753351e-15],
+  },
+  O2: {
+    m: 31.9988,
+    lo: [3.78245636, -2.99673416e-3, 9.84730201e-6, -9.68129509e-9, 3.24372837e-12],
+    hi: [3.28253784, 1.48308754e-3, -7.57966669e-7, 2.09470555e-10, -2.16717794e-14],
+  },
+  CO2: {
+    m: 44.0095,
+    lo: [2.35677352, 8.98459677e-3, -7.12356269e-6, 2.45919022e-9, -1.43699548e-13],
+    hi: [3.85746029, 4.41437026e-3, -2.21481404e-6, 5.23490188e-10, -4.72084164e-14],
+  },
+  H2O: {
+    m: 18.0153,
+    lo: [4.19864056, -2.0364341e-3, 6.52040211e-6, -5.48797062e-9, 1.77197817e-12],
+    hi: [3.03399249, 2.17691804e-3, -1.64072518e-7, -9.7041987e-11, 1.68200992e-14],
+  },
+  CO: {
+    m: 28.0101,
+    lo: [3.57953347, -6.1035368e-4, 1.01681433e-6, 9.07005884e-10, -9.04424499e-13],
+    hi: [2.71518561, 2.06252743e-3, -9.98825771e-7, 2.30053008e-10, -2.03647716e-14],
+  },
+  H2: {
+    m: 2.0159,
+    lo: [2.34433112, 7.98052075e-3, -1.9478151e-5, 2.01572094e-8, -7.37611761e-12],
+    hi: [3.3372792, -4.94024731e-5, 4.99456778e-7, -1.79566394e-10, 2.00255376e-14],
+  },
 };
 const RU = 8.314462618; // J/(mol·K), CODATA 2018
 
@@ -111,10 +135,13 @@ describe('the exhaust gas of the fuel burnt', () => {
     const w = (0.85 * 789) / (0.85 * 789 + 0.15 * 745);
     expectClose(fuelAtoms({ kind: 'ethanol-blend', ethanolPercent: 85 }).hydrogen, w * ETHANOL_ATOMS.hydrogen + (1 - w) * PETROL_ATOMS.hydrogen, 1e-12);
     // Stoichiometric air of CH1.87: (1 + 1.87/4) mol O2 per mol C, 14.54 kg air per kg with air O2 + 3.773 N2 (by hand).
-    expectClose((stoichiometricOxygen(PETROL_ATOMS) * (0.0319988 + 3.773 * 0.0280134)), 14.54, 1e-3);
+    expectClose(stoichiometricOxygen(PETROL_ATOMS) * (0.0319988 + 3.773 * 0.0280134), 14.54, 1e-3);
   });
 
-  for (const [name, fuel, atoms] of [...fuels, ['E85', { kind: 'ethanol-blend', ethanolPercent: 85 }, fuelAtoms({ kind: 'ethanol-blend', ethanolPercent: 85 })]] as const) {
+  for (const [name, fuel, atoms] of [
+    ...fuels,
+    ['E85', { kind: 'ethanol-blend', ethanolPercent: 85 }, fuelAtoms({ kind: 'ethanol-blend', ethanolPercent: 85 })],
+  ] as const) {
     for (const lambda of [0.8, 1.0]) {
       for (const t of [900, 1300]) {
         it(`${name} at λ ${lambda} and ${t} K: cp, R and γ as worked from the polynomials`, () => {

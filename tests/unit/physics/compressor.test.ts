@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, it } from 'vitest';
-import { actualMassFlow, compressorOutletTemperature, compressorPower, correctedMassFlow, intercoolerOutletTemperature, pressureRatio } from '../../../shared/physics';
+import { actualMassFlow, compressorOutletTemperature, compressorPower, correctedMassFlow, intercoolerOutletTemperature, pressureRatio } from '#shared/physics';
 import { expectClose } from './expect-close';
 
 describe('compressor relations', () => {
@@ -27,10 +27,17 @@ describe('compressor relations', () => {
 
   it('changes between two references by exactly √(T_refB/T_refA)·(p_refA/p_refB)', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0.001, max: 2, noNaN: true }), fc.double({ min: 220, max: 330, noNaN: true }), fc.double({ min: 40_000, max: 105_000, noNaN: true }), reference, reference, (m, t1, p1, a, b) => {
-        const ratio = correctedMassFlow(m, t1, p1, a) / correctedMassFlow(m, t1, p1, b);
-        expectClose(ratio, Math.sqrt(b.temperature / a.temperature) * (a.pressure / b.pressure), 1e-12); // definition of corrected flow
-      }),
+      fc.property(
+        fc.double({ min: 0.001, max: 2, noNaN: true }),
+        fc.double({ min: 220, max: 330, noNaN: true }),
+        fc.double({ min: 40_000, max: 105_000, noNaN: true }),
+        reference,
+        reference,
+        (m, t1, p1, a, b) => {
+          const ratio = correctedMassFlow(m, t1, p1, a) / correctedMassFlow(m, t1, p1, b);
+          expectClose(ratio, Math.sqrt(b.temperature / a.temperature) * (a.pressure / b.pressure), 1e-12); // definition of corrected flow
+        },
+      ),
     );
   });
 

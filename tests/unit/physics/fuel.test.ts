@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ETHANOL, ethanolBlend, ethanolMassFraction, FUEL_PRESETS, fuelMassFlow, fuelProperties, fuelVolumeFlow, METHANOL, PETROL } from '../../../shared/physics';
+import { ETHANOL, ethanolBlend, ethanolMassFraction, FUEL_PRESETS, fuelMassFlow, fuelProperties, fuelVolumeFlow, METHANOL, PETROL } from '#shared/physics';
 import { expectClose } from './expect-close';
 
 describe('fuels', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { AIR_CP, criticalPressureRatio, idealGasDensity, isentropicOutletTemperature, orificeMassFlow } from '../../../shared/physics';
+import { AIR_CP, criticalPressureRatio, idealGasDensity, isentropicOutletTemperature, orificeMassFlow } from '#shared/physics';
 import { expectClose } from './expect-close';
 
 describe('gas relations', () => {

@@ -1,5 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { dutyCycle, dutyWithDeadTime, injectionPeriod, injectorPressureDifference, railGaugePressure, ratingFluidFactor, scaleInjectorFlow, setCapacity } from '../../../shared/physics';
+import {
+  dutyCycle,
+  dutyWithDeadTime,
+  injectionPeriod,
+  injectorPressureDifference,
+  railGaugePressure,
+  ratingFluidFactor,
+  scaleInjectorFlow,
+  setCapacity,
+} from '#shared/physics';
 import { expectClose } from './expect-close';
 
 describe('injectors', () => {

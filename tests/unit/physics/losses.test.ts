@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { LOSS_REFERENCE_DENSITY, scaledPressureLoss } from '../../../shared/physics';
+import { LOSS_REFERENCE_DENSITY, scaledPressureLoss } from '#shared/physics';
 import { expectClose } from './expect-close';
 
 describe('losses that follow the flow', () => {

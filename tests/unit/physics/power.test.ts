@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { bsfcFromEfficiency, brakePowerFromAir, DEFAULT_BRAKE_THERMAL_EFFICIENCY, efficiencyFromBsfc, PETROL, torque, wheelPower } from '../../../shared/physics';
-import { toSI } from '../../../shared/units';
+import { bsfcFromEfficiency, brakePowerFromAir, DEFAULT_BRAKE_THERMAL_EFFICIENCY, efficiencyFromBsfc, PETROL, torque, wheelPower } from '#shared/physics';
+import { toSI } from '#shared/units';
 import { expectClose } from './expect-close';
 
 describe('power from air', () => {

@@ -1,5 +1,5 @@
 import { describe, it } from 'vitest';
-import { fromSI, math, toSI, unitConverter } from '../../../shared/units';
+import { fromSI, math, toSI, unitConverter } from '#shared/units';
 import { expectClose } from './expect-close';
 
 describe('units at the edges', () => {

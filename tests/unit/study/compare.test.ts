@@ -1,7 +1,16 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { ExhaustLineSummary, Finding, OperatingPoint, PointValues, Severity } from '../../../shared/matching/types';
-import { bestIndicesOf, COMPARE_ROW_KEYS, compareLines, compareRowKeys, EXHAUST_ROW_KEYS, type CompareRow, type CompareRowKey, type ComparableLine } from '../../../shared/study/compare';
+import type { ExhaustLineSummary, Finding, OperatingPoint, PointValues, Severity } from '#shared/matching/types';
+import {
+  bestIndicesOf,
+  COMPARE_ROW_KEYS,
+  compareLines,
+  compareRowKeys,
+  EXHAUST_ROW_KEYS,
+  type CompareRow,
+  type CompareRowKey,
+  type ComparableLine,
+} from '#shared/study/compare';
 
 // Tiny synthetic lines: only the values compareLines reads are set on purpose; the rest are
 // filler of the right type. Every expected number below is hand-read from these points.
@@ -73,17 +82,88 @@ function unsolved(rpm: number, findings: Severity[]): OperatingPoint {
 /** Plan A on a map: margins shrink towards 5000 rpm, choke tightest at 7000 rpm. */
 const lineA: ComparableLine = {
   points: [
-    solved(3000, { surgeMargin: 0.2, chokeMargin: 0.5, speedMargin: 0.3, shaftSpeed: 100_000, brakePower: 100_000, wheelPower: 85_000, torque: 318, injectorDuty: 0.5, compressorOutletTemperature: 380, pressureRatio: 1.8 }, ['info']),
-    solved(5000, { surgeMargin: 0.12, chokeMargin: 0.25, speedMargin: 0.1, shaftSpeed: 135_000, brakePower: 180_000, wheelPower: 153_000, torque: 344, injectorDuty: 0.82, compressorOutletTemperature: 420, pressureRatio: 2.4 }, ['warning']),
-    solved(7000, { surgeMargin: 0.3, chokeMargin: 0.05, speedMargin: 0.12, shaftSpeed: 132_000, brakePower: 170_000, wheelPower: 144_500, torque: 232, injectorDuty: 0.78, compressorOutletTemperature: 415, pressureRatio: 2.35 }),
+    solved(
+      3000,
+      {
+        surgeMargin: 0.2,
+        chokeMargin: 0.5,
+        speedMargin: 0.3,
+        shaftSpeed: 100_000,
+        brakePower: 100_000,
+        wheelPower: 85_000,
+        torque: 318,
+        injectorDuty: 0.5,
+        compressorOutletTemperature: 380,
+        pressureRatio: 1.8,
+      },
+      ['info'],
+    ),
+    solved(
+      5000,
+      {
+        surgeMargin: 0.12,
+        chokeMargin: 0.25,
+        speedMargin: 0.1,
+        shaftSpeed: 135_000,
+        brakePower: 180_000,
+        wheelPower: 153_000,
+        torque: 344,
+        injectorDuty: 0.82,
+        compressorOutletTemperature: 420,
+        pressureRatio: 2.4,
+      },
+      ['warning'],
+    ),
+    solved(7000, {
+      surgeMargin: 0.3,
+      chokeMargin: 0.05,
+      speedMargin: 0.12,
+      shaftSpeed: 132_000,
+      brakePower: 170_000,
+      wheelPower: 144_500,
+      torque: 232,
+      injectorDuty: 0.78,
+      compressorOutletTemperature: 415,
+      pressureRatio: 2.35,
+    }),
   ],
 };
 
 /** Plan B on another map: left of surge at 3000 rpm, and the 7000 rpm point could not be solved. */
 const lineB: ComparableLine = {
   points: [
-    solved(3000, { surgeMargin: -0.05, chokeMargin: 0.6, speedMargin: 0.4, shaftSpeed: 90_000, brakePower: 95_000, wheelPower: 80_750, torque: 302, injectorDuty: 0.45, compressorOutletTemperature: 375, pressureRatio: 1.75 }, ['limit', 'info']),
-    solved(5000, { surgeMargin: 0.15, chokeMargin: 0.35, speedMargin: 0.2, shaftSpeed: 120_000, brakePower: 190_000, wheelPower: 161_500, torque: 363, injectorDuty: 0.86, compressorOutletTemperature: 430, pressureRatio: 2.45 }, ['limit']),
+    solved(
+      3000,
+      {
+        surgeMargin: -0.05,
+        chokeMargin: 0.6,
+        speedMargin: 0.4,
+        shaftSpeed: 90_000,
+        brakePower: 95_000,
+        wheelPower: 80_750,
+        torque: 302,
+        injectorDuty: 0.45,
+        compressorOutletTemperature: 375,
+        pressureRatio: 1.75,
+      },
+      ['limit', 'info'],
+    ),
+    solved(
+      5000,
+      {
+        surgeMargin: 0.15,
+        chokeMargin: 0.35,
+        speedMargin: 0.2,
+        shaftSpeed: 120_000,
+        brakePower: 190_000,
+        wheelPower: 161_500,
+        torque: 363,
+        injectorDuty: 0.86,
+        compressorOutletTemperature: 430,
+        pressureRatio: 2.45,
+      },
+      ['limit'],
+    ),
     unsolved(7000, ['limit']),
   ],
 };
@@ -91,7 +171,10 @@ const lineB: ComparableLine = {
 /** Plan C without a map: no margins, no shaft speed; its power peaks twice (first one counts). */
 const lineC: ComparableLine = {
   points: [
-    solved(4000, { brakePower: 150_000, wheelPower: 127_500, torque: 358, injectorDuty: 0.7, compressorOutletTemperature: 400, pressureRatio: 2.1 }, ['warning', 'warning']),
+    solved(4000, { brakePower: 150_000, wheelPower: 127_500, torque: 358, injectorDuty: 0.7, compressorOutletTemperature: 400, pressureRatio: 2.1 }, [
+      'warning',
+      'warning',
+    ]),
     solved(6000, { brakePower: 150_000, wheelPower: 127_500, torque: 239, injectorDuty: 0.75, compressorOutletTemperature: 405, pressureRatio: 2.1 }),
   ],
 };
@@ -178,7 +261,7 @@ describe('compareLines with plan verdicts', () => {
   const fits: ComparableLine = { ...lineA, planVerdict: 'fits' };
   const unfit: ComparableLine = { points: [solved(3000, { surgeMargin: 0.4, brakePower: 250_000 })], planVerdict: 'does-not-fit' };
 
-  it('gives the verdict row first, with each line\'s plan verdict', () => {
+  it("gives the verdict row first, with each line's plan verdict", () => {
     const rows = compareLines([fits, unfit, lineC]);
     expect(rows[0].key).toBe('planVerdict');
     expect(rows[0].cells.map((c) => c.verdict)).toEqual(['fits', 'does-not-fit', 'not-judged']);
@@ -267,7 +350,8 @@ describe('compareLines properties', () => {
         const given = surge.cells.map((c) => c.value).filter((x): x is number => x !== null && x >= 0);
         for (const i of surge.bestIndices) expect(surge.cells[i].value!).toBeGreaterThanOrEqual(0);
         // Highest margin wins (definition), ties within the 1e-9 tolerance included.
-        for (const i of surge.bestIndices) expect(Math.abs(surge.cells[i].value! - Math.max(...given))).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(Math.max(...given))));
+        for (const i of surge.bestIndices)
+          expect(Math.abs(surge.cells[i].value! - Math.max(...given))).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(Math.max(...given))));
         // A cell clearly below the best is never marked.
         surge.cells.forEach((c, i) => {
           if (c.value !== null && c.value < Math.max(...given) - 1e-6) expect(surge.bestIndices).not.toContain(i);
@@ -309,7 +393,12 @@ describe('compareLines with an exhaust side', () => {
   /** Far too large: the turbine never holds the target, the gate never opens. */
   const lazy: ComparableLine = {
     points: neverHeld,
-    exhaust: summary({ boostThresholdRpm: null, peakDrivePressureRatio: { value: 0.9, rpm: 7000 }, wastegateDiameterNeeded: null, turbineInletPressureAtPeakPower: { value: 200_000, rpm: 7000 } }),
+    exhaust: summary({
+      boostThresholdRpm: null,
+      peakDrivePressureRatio: { value: 0.9, rpm: 7000 },
+      wastegateDiameterNeeded: null,
+      turbineInletPressureAtPeakPower: { value: 200_000, rpm: 7000 },
+    }),
   };
   /** A compressor-only Plan beside them. */
   const compressorOnly: ComparableLine = { points: heldFrom3500, exhaust: null };

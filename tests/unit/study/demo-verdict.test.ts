@@ -1,13 +1,13 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
-import { planVerdicts } from '../../../shared/matching/verdict';
-import type { PointValues } from '../../../shared/matching/types';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import { compareLines } from '../../../shared/study/compare';
-import { runStudyDocument } from '../../../shared/study/run';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { planVerdicts } from '#shared/matching/verdict';
+import type { PointValues } from '#shared/matching/types';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import { compareLines } from '#shared/study/compare';
+import { runStudyDocument } from '#shared/study/run';
 import { repoRoot } from '../maps/helpers';
 
 // The demo studies with the built-in demo maps, as a new user first sees them. The checks are of
@@ -26,9 +26,22 @@ const studies = ['hillclimb-study.json', 'turbine-housing-study.json'].map((f) =
 const limited = demo('hillclimb-study.json');
 limited.plans[0].maxShaftSpeed = 172_000;
 const variants = [{ file: 'hillclimb-study.json, S44 limited to 172 000 rpm', result: runStudyDocument(limited, maps) }];
-const allValues = [...studies, ...variants].flatMap((s) => s.result.lines.flatMap((l) => l.points.flatMap((p) => (p.values ? [{ line: l, v: p.values }] : []))));
+const allValues = [...studies, ...variants].flatMap((s) =>
+  s.result.lines.flatMap((l) => l.points.flatMap((p) => (p.values ? [{ line: l, v: p.values }] : []))),
+);
 
-const RESULTS: (keyof PointValues)[] = ['compressorEfficiency', 'compressorOutletTemperature', 'compressorPower', 'brakePower', 'wheelPower', 'torque', 'fuelMassFlow', 'injectorDuty', 'turbinePower', 'drivePressureRatio'];
+const RESULTS: (keyof PointValues)[] = [
+  'compressorEfficiency',
+  'compressorOutletTemperature',
+  'compressorPower',
+  'brakePower',
+  'wheelPower',
+  'torque',
+  'fuelMassFlow',
+  'injectorDuty',
+  'turbinePower',
+  'drivePressureRatio',
+];
 
 describe('the demo studies judged at the edge of the map', () => {
   it('has points in every kind of place, so the checks below bite', () => {

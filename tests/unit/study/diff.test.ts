@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { studyDocumentSchema, type StudyDocument } from '../../../shared/schemas/study';
-import { diffDocuments, kindOfPath } from '../../../shared/study/diff';
+import { studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { diffDocuments, kindOfPath } from '#shared/study/diff';
 
 const demoPath = path.resolve(import.meta.dirname, '..', '..', '..', 'data', 'demo', 'hillclimb-study.json');
 const demoJson = () => JSON.parse(readFileSync(demoPath, 'utf8')) as StudyDocument;
@@ -106,7 +106,14 @@ describe('diffDocuments', () => {
     a.engine.rpm = { kind: 'list', values: [3000, 5000] };
     b.engine.rpm = { kind: 'list', values: [3000, 5000, 7000] };
     expect(diffDocuments(a, b)).toEqual([
-      { path: 'Engine › rpm points › rpm list', keys: ['engine', 'rpm', 'values'], change: 'changed', before: [3000, 5000], after: [3000, 5000, 7000], kind: 'speed' },
+      {
+        path: 'Engine › rpm points › rpm list',
+        keys: ['engine', 'rpm', 'values'],
+        change: 'changed',
+        before: [3000, 5000],
+        after: [3000, 5000, 7000],
+        kind: 'speed',
+      },
     ]);
   });
 

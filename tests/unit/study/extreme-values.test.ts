@@ -1,10 +1,10 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseMapFile } from '../../../shared/maps';
-import type { SpoolbookMap } from '../../../shared/maps/types';
-import { studyDocumentSchema } from '../../../shared/schemas/study';
-import { runStudyDocument } from '../../../shared/study/run';
+import { parseMapFile } from '#shared/maps';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { studyDocumentSchema } from '#shared/schemas/study';
+import { runStudyDocument } from '#shared/study/run';
 
 // Every number of the demo studies, one at a time, set to the smallest positive double, a tiny
 // value and the largest double: the study schema refuses it by field, or the engine computes

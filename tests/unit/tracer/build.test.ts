@@ -1,10 +1,10 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { mapValueFromSI, parseMapFile } from '../../../shared/maps';
-import type { CompressorMap, TurbineMap } from '../../../shared/maps/types';
-import { buildTrace, traceFileName, tracedNumber } from '../../../shared/tracer/build';
-import { newTraceState, traceStateSchema, type TraceCurve, type TraceState } from '../../../shared/tracer/state';
+import { mapValueFromSI, parseMapFile } from '#shared/maps';
+import type { CompressorMap, TurbineMap } from '#shared/maps/types';
+import { buildTrace, traceFileName, tracedNumber } from '#shared/tracer/build';
+import { newTraceState, traceStateSchema, type TraceCurve, type TraceState } from '#shared/tracer/state';
 import { drawnAt, expectNear, pictureTransform } from './helpers';
 
 // The fixture maps are read, drawn into a hand-made picture (helpers.ts), traced by "clicking" at
@@ -105,7 +105,12 @@ describe('problems are placed where the user fixes them', () => {
     const fresh = newTraceState('');
     const build = buildTrace(fresh);
     // A new trace has no name and no reference conditions (newTraceState leaves them to the user).
-    expect(build.problems.filter((p) => p.area === 'map').map((p) => p.field).sort()).toEqual(['name', 'referencePressure', 'referenceTemperature']);
+    expect(
+      build.problems
+        .filter((p) => p.area === 'map')
+        .map((p) => p.field)
+        .sort(),
+    ).toEqual(['name', 'referencePressure', 'referenceTemperature']);
     fresh.name = 'Named';
     fresh.compressor.referenceTemperature.value = 298;
     fresh.compressor.referencePressure.value = 100;
@@ -166,7 +171,14 @@ describe('a traced turbine map', () => {
     state.scales = scales;
     state.efficiency = map.fileUnits.efficiency;
     state.speedUnit = map.fileUnits.speedUnit as 'rpm' | 'krpm';
-    state.turbine = { flowParameterUnit: unit, flowParameterAxis: 'x', housing: map.housing, scrollFeed: map.scrollFeed ?? 'both', areaRatio: map.areaRatio, efficiencyKind: 'with-bearing-losses' };
+    state.turbine = {
+      flowParameterUnit: unit,
+      flowParameterAxis: 'x',
+      housing: map.housing,
+      scrollFeed: map.scrollFeed ?? 'both',
+      areaRatio: map.areaRatio,
+      efficiencyKind: 'with-bearing-losses',
+    };
     const place = (fp: number, er: number) => drawnAt(pic, { x: fp, y: er }, scales);
     // The vertical axis stands at 0.005 (a log axis has no zero), the horizontal one at ER 1.
     state.calibration.crossing = { x: 0.005, y: 1 };

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { applyAffine, fitAffine, invertAffine } from '../../../shared/tracer/affine';
-import { axisCoordinate, axisValue } from '../../../shared/tracer/axes';
-import { calibrate, calibrateClicks, dataToPixel, pixelToData, type ReferenceClick, type ReferencePoint } from '../../../shared/tracer/calibration';
+import { applyAffine, fitAffine, invertAffine } from '#shared/tracer/affine';
+import { axisCoordinate, axisValue } from '#shared/tracer/axes';
+import { calibrate, calibrateClicks, dataToPixel, pixelToData, type ReferenceClick, type ReferencePoint } from '#shared/tracer/calibration';
 import { drawnAt, expectNear, pictureTransform } from './helpers';
 
 // Every picture below is made by hand from a chosen transform (helpers.ts), so the values a

@@ -1,6 +1,6 @@
 import { expect } from 'vitest';
-import { applyAffine, type Affine, type PlanePoint } from '../../../shared/tracer/affine';
-import { axisCoordinate, type AxisScale } from '../../../shared/tracer/axes';
+import { applyAffine, type Affine, type PlanePoint } from '#shared/tracer/affine';
+import { axisCoordinate, type AxisScale } from '#shared/tracer/axes';
 
 /** |actual − expected| ≤ tol·max(|expected|, 1): relative for large values, absolute near zero. */
 export function expectNear(actual: number, expected: number, tol: number): void {

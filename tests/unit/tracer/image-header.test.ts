@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkImage, MAX_IMAGE_BYTES } from '../../../shared/tracer/image-header';
+import { checkImage, MAX_IMAGE_BYTES } from '#shared/tracer/image-header';
 import { GIF_BYTES, jpegHeaderOnly, pngHeaderOnly, pngPicture } from './images';
 
 // The sizes below are the ones written into the hand-made files (images.ts), so the header parse
@@ -12,7 +12,13 @@ describe('picture files are recognised by their bytes', () => {
   });
 
   it('reads the size of a JPEG from its frame header, after an APP1 block', () => {
-    expect(checkImage(jpegHeaderOnly(3000, 2000, { exifBytes: 20_000 }))).toEqual({ ok: true, contentType: 'image/jpeg', extension: 'jpg', width: 3000, height: 2000 });
+    expect(checkImage(jpegHeaderOnly(3000, 2000, { exifBytes: 20_000 }))).toEqual({
+      ok: true,
+      contentType: 'image/jpeg',
+      extension: 'jpg',
+      width: 3000,
+      height: 2000,
+    });
     // A progressive JPEG (SOF2) carries its size the same way.
     expect(checkImage(jpegHeaderOnly(640, 480, { frameMarker: 0xc2 }))).toMatchObject({ ok: true, width: 640, height: 480 });
   });

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { api, segment } from '../../../lib/api-client';
+import { api, segment } from '#src/lib/api-client';
 import { usersKey } from './get-users';
 
 const endedSchema = z.object({ ended: z.number() });

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { teamSummarySchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
+import { teamSummarySchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
 
 const teamsResponseSchema = z.object({ teams: z.array(teamSummarySchema) });
 

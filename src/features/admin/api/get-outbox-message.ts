@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { outboxMessageSchema } from '../../../../shared/schemas/account';
-import { api, segment } from '../../../lib/api-client';
+import { outboxMessageSchema } from '#shared/schemas/account';
+import { api, segment } from '#src/lib/api-client';
 
 const outboxMessageResponseSchema = z.object({ message: outboxMessageSchema });
 

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { outboxSummarySchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
+import { outboxSummarySchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
 
 const outboxResponseSchema = z.object({ messages: z.array(outboxSummarySchema) });
 
@@ -11,8 +11,7 @@ export function getOutbox() {
 }
 
 // New mail arrives while a developer watches the list: keep it fresh without a reload.
-export const outboxQueryOptions = () =>
-  queryOptions({ queryKey: ['admin', 'outbox'] as const, queryFn: getOutbox, staleTime: 0, refetchInterval: 10_000 });
+export const outboxQueryOptions = () => queryOptions({ queryKey: ['admin', 'outbox'] as const, queryFn: getOutbox, staleTime: 0, refetchInterval: 10_000 });
 
 export function useOutbox() {
   return useQuery(outboxQueryOptions());

@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { adminUserSchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
+import { adminUserSchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
 
 const usersResponseSchema = z.object({ users: z.array(adminUserSchema) });
 

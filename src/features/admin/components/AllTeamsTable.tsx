@@ -1,10 +1,10 @@
 import { Link } from 'react-router';
-import { Alert } from '../../../components/Alert';
-import { Badge } from '../../../components/Badge';
-import { Loading } from '../../../components/Page';
-import { Table, td, th } from '../../../components/Table';
-import { roleNames } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { Loading } from '#src/components/Page';
+import { Table, td, th } from '#src/components/Table';
+import { roleNames } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
 import { useAllTeams } from '../api/get-all-teams';
 
 export function AllTeamsTable() {

@@ -1,9 +1,9 @@
 import { Link } from 'react-router';
-import { Alert } from '../../../components/Alert';
-import { Loading } from '../../../components/Page';
-import { Table, td, th } from '../../../components/Table';
-import { formatDateTime } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
+import { Alert } from '#src/components/Alert';
+import { Loading } from '#src/components/Page';
+import { Table, td, th } from '#src/components/Table';
+import { formatDateTime } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
 import { useOutbox } from '../api/get-outbox';
 
 export function OutboxList() {

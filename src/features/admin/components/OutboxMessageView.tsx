@@ -1,12 +1,12 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
-import type { OutboxMessage } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Card } from '../../../components/Card';
-import { Loading, Page } from '../../../components/Page';
-import { isApiError } from '../../../lib/api-client';
-import { formatDateTime } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
+import type { OutboxMessage } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Card } from '#src/components/Card';
+import { Loading, Page } from '#src/components/Page';
+import { isApiError } from '#src/lib/api-client';
+import { formatDateTime } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
 import { useOutboxMessage } from '../api/get-outbox-message';
 
 /** One captured message, with its links clickable so a developer can follow reset and invitation mails. */
@@ -29,11 +29,7 @@ export function OutboxMessageView({ messageId }: { messageId: string }) {
 
 function MessageDetail({ message }: { message: OutboxMessage }) {
   return (
-    <Page
-      eyebrow="Outbox"
-      title={message.subject || '(no subject)'}
-      actions={<Link to={paths.adminOutbox.href()}>Back to the outbox</Link>}
-    >
+    <Page eyebrow="Outbox" title={message.subject || '(no subject)'} actions={<Link to={paths.adminOutbox.href()}>Back to the outbox</Link>}>
       <Card>
         <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[6rem_1fr]">
           <dt className="font-semibold text-ink-soft">From</dt>

@@ -1,13 +1,13 @@
 import { useEffect, useState } from 'react';
-import type { AdminUser } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Badge } from '../../../components/Badge';
-import { ConfirmButton } from '../../../components/ConfirmButton';
-import { Loading } from '../../../components/Page';
-import { Table, td, th } from '../../../components/Table';
-import { TextField } from '../../../components/TextField';
-import { formatDateTime } from '../../../lib/format';
-import { useMe } from '../../../lib/session';
+import type { AdminUser } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { Loading } from '#src/components/Page';
+import { Table, td, th } from '#src/components/Table';
+import { TextField } from '#src/components/TextField';
+import { formatDateTime } from '#src/lib/format';
+import { useMe } from '#src/lib/session';
 import { useEndUserSessions } from '../api/end-user-sessions';
 import { useUsers } from '../api/get-users';
 

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { changePasswordSchema, meSchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
-import { meQueryOptions } from '../../../lib/session';
+import { type z } from 'zod';
+import { type changePasswordSchema, meSchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
+import { meQueryOptions } from '#src/lib/session';
 
 export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
 

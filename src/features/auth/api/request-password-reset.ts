@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
-import { z } from 'zod';
-import { resetRequestSchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
+import { type z } from 'zod';
+import { type resetRequestSchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
 
 export type ResetRequestInput = z.infer<typeof resetRequestSchema>;
 

@@ -1,12 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { meSchema, recoveryCodesSchema, sessionListSchema, twoFactorSetupSchema, twoFactorStatusSchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
-import { meQueryOptions } from '../../../lib/session';
+import { meSchema, recoveryCodesSchema, sessionListSchema, twoFactorSetupSchema, twoFactorStatusSchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
+import { meQueryOptions } from '#src/lib/session';
 
 // The Sessions page, the second factor and the address confirmation: one file per area's endpoints.
 
-export const sessionsQueryOptions = () => queryOptions({ queryKey: ['auth', 'sessions'] as const, queryFn: () => api.get('/api/auth/sessions', sessionListSchema) });
+export const sessionsQueryOptions = () =>
+  queryOptions({ queryKey: ['auth', 'sessions'] as const, queryFn: () => api.get('/api/auth/sessions', sessionListSchema) });
 
 export function useSessions() {
   return useQuery(sessionsQueryOptions());
@@ -28,7 +29,8 @@ export function useEndOtherSessions() {
   });
 }
 
-export const twoFactorQueryOptions = () => queryOptions({ queryKey: ['auth', 'two-factor'] as const, queryFn: () => api.get('/api/auth/two-factor', twoFactorStatusSchema) });
+export const twoFactorQueryOptions = () =>
+  queryOptions({ queryKey: ['auth', 'two-factor'] as const, queryFn: () => api.get('/api/auth/two-factor', twoFactorStatusSchema) });
 
 export function useTwoFactorStatus() {
   return useQuery(twoFactorQueryOptions());

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { meSchema, secondFactorNeededSchema, secondFactorSignInSchema, signInSchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
-import { startSession } from '../../../lib/session';
+import { meSchema, secondFactorNeededSchema, type secondFactorSignInSchema, type signInSchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
+import { startSession } from '#src/lib/session';
 
 export type SignInInput = z.infer<typeof signInSchema>;
 export type SecondFactorInput = z.infer<typeof secondFactorSignInSchema>;

@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api } from '#src/lib/api-client';
 
 export function signOut() {
   return api.post('/api/auth/sign-out');

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { meSchema, signUpSchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
-import { startSession } from '../../../lib/session';
+import { type z } from 'zod';
+import { meSchema, type signUpSchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
+import { startSession } from '#src/lib/session';
 
 export type SignUpInput = z.infer<typeof signUpSchema>;
 

@@ -1,12 +1,12 @@
 import { useState } from 'react';
-import { changePasswordSchema } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
-import { useMe } from '../../../lib/session';
+import { changePasswordSchema } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
+import { useMe } from '#src/lib/session';
 import { PasswordField } from './PasswordField';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
 import { useChangePassword } from '../api/change-password';
 
 const FIELDS = ['currentPassword', 'newPassword', 'confirmPassword'] as const;
@@ -18,11 +18,7 @@ export function ChangePasswordForm() {
 
   function submit(form: HTMLFormElement) {
     const values = formValues(form);
-    const parsed = parseForm(
-      changePasswordSchema,
-      { currentPassword: values.currentPassword ?? '', newPassword: values.newPassword ?? '' },
-      FIELDS,
-    );
+    const parsed = parseForm(changePasswordSchema, { currentPassword: values.currentPassword ?? '', newPassword: values.newPassword ?? '' }, FIELDS);
     if (!parsed.ok) return setErrors(parsed.errors);
     if (values.newPassword !== values.confirmPassword) {
       return setErrors({ form: null, fields: { confirmPassword: 'Does not match the new password.' } });
@@ -36,7 +32,14 @@ export function ChangePasswordForm() {
 
   return (
     <Form errors={errors} onSubmit={submit} aria-label="Change password">
-      <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" error={errors.fields.currentPassword} required />
+      <TextField
+        label="Current password"
+        name="currentPassword"
+        type="password"
+        autoComplete="current-password"
+        error={errors.fields.currentPassword}
+        required
+      />
       <PasswordField label="New password" name="newPassword" error={errors.fields.newPassword} context={user ?? {}} required />
       <TextField label="Confirm password" name="confirmPassword" type="password" autoComplete="new-password" error={errors.fields.confirmPassword} required />
       {change.isSuccess && !change.isPending && (

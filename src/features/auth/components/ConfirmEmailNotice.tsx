@@ -1,5 +1,5 @@
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
 import { useResendConfirmation } from '../api/security';
 
 /** Shown until the address is confirmed: what waits on it, and a way to have the link sent again. */
@@ -8,8 +8,8 @@ export function ConfirmEmailNotice({ email }: { email: string }) {
   return (
     <Alert tone="info" title="Confirm your e-mail address">
       <p>
-        We sent a link to {email}. Open it to confirm the address; until then you can work in your personal team, but not create or join other teams or
-        invite anyone.
+        We sent a link to {email}. Open it to confirm the address; until then you can work in your personal team, but not create or join other teams or invite
+        anyone.
       </p>
       <p className="mt-2">
         {resend.isSuccess ? (

@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import { resetRequestSchema } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
+import { resetRequestSchema } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
 import { useRequestPasswordReset } from '../api/request-password-reset';
 
 const FIELDS = ['email'] as const;
@@ -28,8 +28,7 @@ export function ForgotPasswordForm() {
     // The server answers alike for known and unknown addresses; so does this message.
     return (
       <Alert tone="success" title="Check your mail">
-        If an account uses {sentTo}, a link to choose a new password is on its way. The link works once and expires
-        after a while; ask for another if it does.
+        If an account uses {sentTo}, a link to choose a new password is on its way. The link works once and expires after a while; ask for another if it does.
       </Alert>
     );
   }

@@ -1,13 +1,13 @@
 import { useEffect, useState } from 'react';
-import { TextField, type TextFieldProps } from '../../../components/TextField';
+import { TextField, type TextFieldProps } from '#src/components/TextField';
 
-type Judge = typeof import('../../../../shared/passwords/strength').judgePassword;
+type Judge = typeof import('#shared/passwords/strength').judgePassword;
 
 // The strength estimator carries a dictionary of common passwords: load it only on forms that
 // ask for a new password, and only once.
 let judgeLoading: Promise<Judge> | null = null;
 function loadJudge(): Promise<Judge> {
-  judgeLoading ??= import('../../../../shared/passwords/strength').then((m) => m.judgePassword);
+  judgeLoading ??= import('#shared/passwords/strength').then((m) => m.judgePassword);
   return judgeLoading;
 }
 

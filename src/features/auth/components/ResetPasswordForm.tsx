@@ -1,14 +1,14 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
-import { resetConfirmSchema } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Button, ButtonLink } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
+import { resetConfirmSchema } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Button, ButtonLink } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
 import { PasswordField } from './PasswordField';
-import { isApiError } from '../../../lib/api-client';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
-import { paths } from '../../../lib/paths';
+import { isApiError } from '#src/lib/api-client';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
+import { paths } from '#src/lib/paths';
 import { useConfirmPasswordReset } from '../api/confirm-password-reset';
 
 const FIELDS = ['password', 'confirmPassword'] as const;
@@ -54,14 +54,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
   return (
     <Form errors={errors} onSubmit={submit} aria-label="Password reset">
       <PasswordField label="New password" name="password" error={errors.fields.password} required />
-      <TextField
-        label="Confirm password"
-        name="confirmPassword"
-        type="password"
-        autoComplete="new-password"
-        error={errors.fields.confirmPassword}
-        required
-      />
+      <TextField label="Confirm password" name="confirmPassword" type="password" autoComplete="new-password" error={errors.fields.confirmPassword} required />
       <FormActions>
         <Button type="submit" variant="primary" pending={confirm.isPending}>
           Set new password

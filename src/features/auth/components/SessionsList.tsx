@@ -1,8 +1,8 @@
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Loading } from '../../../components/Page';
-import { Table, td, th } from '../../../components/Table';
-import { formatDateTime } from '../../../lib/format';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Loading } from '#src/components/Page';
+import { Table, td, th } from '#src/components/Table';
+import { formatDateTime } from '#src/lib/format';
 import { useEndOtherSessions, useEndSession, useSessions } from '../api/security';
 
 /** Where this account is signed in: when each session began, when it was last used, from where, in which browser. */
@@ -40,7 +40,11 @@ export function SessionsList() {
             <td className={td}>{formatDateTime(s.lastSeenAt)}</td>
             <td className={`${td} text-right`}>
               {!s.current && (
-                <Button onClick={() => end.mutate(s.id)} pending={end.isPending && end.variables === s.id} aria-label={`End the session in ${s.browser} from ${s.ip ?? 'an unknown address'}`}>
+                <Button
+                  onClick={() => end.mutate(s.id)}
+                  pending={end.isPending && end.variables === s.id}
+                  aria-label={`End the session in ${s.browser} from ${s.ip ?? 'an unknown address'}`}
+                >
                   End
                 </Button>
               )}

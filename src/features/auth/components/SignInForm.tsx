@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { Link } from 'react-router';
-import { signInSchema } from '../../../../shared/schemas/account';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
-import { paths } from '../../../lib/paths';
+import { signInSchema } from '#shared/schemas/account';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
+import { paths } from '#src/lib/paths';
 import { useSecondFactorSignIn, useSignIn } from '../api/sign-in';
 
 const FIELDS = ['email', 'password'] as const;

@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import { signUpSchema } from '../../../../shared/schemas/account';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
+import { signUpSchema } from '#shared/schemas/account';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
 import { PasswordField } from './PasswordField';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
 import { useSignUp } from '../api/sign-up';
 
 const FIELDS = ['name', 'email', 'password'] as const;

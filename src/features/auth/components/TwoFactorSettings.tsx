@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { Loading } from '../../../components/Page';
-import { TextField } from '../../../components/TextField';
-import { formErrorsFrom, formValues, noFormErrors, type FormErrors } from '../../../lib/forms';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { Loading } from '#src/components/Page';
+import { TextField } from '#src/components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, type FormErrors } from '#src/lib/forms';
 import { useBeginTwoFactor, useDisableTwoFactor, useEnableTwoFactor, useNewRecoveryCodes, useTwoFactorStatus } from '../api/security';
 
 /** The optional second factor: an authenticator app (TOTP) plus one-time recovery codes. */
@@ -16,7 +16,19 @@ export function TwoFactorSettings() {
   return status.data.enabled ? <TwoFactorOn left={status.data.recoveryCodesLeft} onCodes={setCodes} /> : <TwoFactorSetup onCodes={setCodes} />;
 }
 
-function PasswordStep({ label, action, pending, onPassword, errors }: { label: string; action: string; pending: boolean; onPassword: (p: string) => void; errors: FormErrors }) {
+function PasswordStep({
+  label,
+  action,
+  pending,
+  onPassword,
+  errors,
+}: {
+  label: string;
+  action: string;
+  pending: boolean;
+  onPassword: (p: string) => void;
+  errors: FormErrors;
+}) {
   return (
     <Form errors={errors} onSubmit={(form) => onPassword(formValues(form).password ?? '')} aria-label={label}>
       <TextField label="Your password" name="password" type="password" autoComplete="current-password" error={errors.fields.password} required />
@@ -39,8 +51,8 @@ function TwoFactorSetup({ onCodes }: { onCodes: (codes: string[]) => void }) {
     return (
       <div className="space-y-4">
         <p className="text-sm text-ink-soft">
-          With a second factor on, signing in asks for your password and then a 6-digit code from an authenticator app on your phone. Give your
-          password to begin.
+          With a second factor on, signing in asks for your password and then a 6-digit code from an authenticator app on your phone. Give your password to
+          begin.
         </p>
         <PasswordStep
           label="Set up a second factor"
@@ -62,7 +74,13 @@ function TwoFactorSetup({ onCodes }: { onCodes: (codes: string[]) => void }) {
         <li>Enter the 6-digit code the app then shows.</li>
       </ol>
       <div className="flex flex-wrap items-center gap-5">
-        <img src={begin.data.qrCode} alt="A code to scan with an authenticator app" width={160} height={160} className="rounded border border-paper-line bg-white p-1" />
+        <img
+          src={begin.data.qrCode}
+          alt="A code to scan with an authenticator app"
+          width={160}
+          height={160}
+          className="rounded border border-paper-line bg-white p-1"
+        />
         <div className="text-sm">
           <p className="font-semibold">Key</p>
           <code className="break-all rounded bg-paper-deep px-2 py-1 font-mono text-sm" data-testid="totp-key">
@@ -75,7 +93,10 @@ function TwoFactorSetup({ onCodes }: { onCodes: (codes: string[]) => void }) {
         aria-label="Turn on the second factor"
         onSubmit={(form) => {
           setErrors(noFormErrors);
-          enable.mutate((formValues(form).code ?? '').trim(), { onSuccess: (r) => onCodes(r.recoveryCodes), onError: (e) => setErrors(formErrorsFrom(e, ['code'])) });
+          enable.mutate((formValues(form).code ?? '').trim(), {
+            onSuccess: (r) => onCodes(r.recoveryCodes),
+            onError: (e) => setErrors(formErrorsFrom(e, ['code'])),
+          });
         }}
       >
         <TextField label="Code from the app" name="code" inputMode="numeric" autoComplete="one-time-code" error={errors.fields.code} required />
@@ -127,8 +148,7 @@ function RecoveryCodes({ codes, onDone }: { codes: string[]; onDone: () => void 
   return (
     <div className="space-y-4">
       <Alert tone="info" title="Keep these recovery codes">
-        Each works once, in place of a code from the app, if you lose your phone. They are shown only now: print them or keep them in a password
-        manager.
+        Each works once, in place of a code from the app, if you lose your phone. They are shown only now: print them or keep them in a password manager.
       </Alert>
       <ul className="grid grid-cols-2 gap-2 font-mono text-sm" aria-label="Recovery codes">
         {codes.map((c) => (

@@ -1,5 +1,5 @@
-import { unitSystemSchema } from '../../../../shared/schemas/account';
-import { unitSystemNames, useUnitSystem } from '../../../lib/units';
+import { unitSystemSchema } from '#shared/schemas/account';
+import { unitSystemNames, useUnitSystem } from '#src/lib/units';
 import { useUpdateProfile } from '../api/update-profile';
 
 const shortNames = { si: 'SI', us: 'US' } as const;

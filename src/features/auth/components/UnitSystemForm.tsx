@@ -1,6 +1,6 @@
-import { unitSystemSchema, type UnitSystem } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { unitSystemNames } from '../../../lib/units';
+import { unitSystemSchema, type UnitSystem } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { unitSystemNames } from '#src/lib/units';
 import { useUpdateProfile } from '../api/update-profile';
 
 const examples: Record<UnitSystem, string> = {
@@ -16,7 +16,10 @@ export function UnitSystemForm({ value }: { value: UnitSystem }) {
     <fieldset className="space-y-3" aria-busy={update.isPending || undefined}>
       <legend className="mb-2 text-sm font-semibold text-ink">Unit system</legend>
       {unitSystemSchema.options.map((system) => (
-        <label key={system} className="flex cursor-pointer items-start gap-3 rounded-md border border-paper-line bg-white/60 px-3 py-2 has-[:checked]:border-teal has-[:checked]:bg-teal-light/40">
+        <label
+          key={system}
+          className="flex cursor-pointer items-start gap-3 rounded-md border border-paper-line bg-white/60 px-3 py-2 has-[:checked]:border-teal has-[:checked]:bg-teal-light/40"
+        >
           <input
             type="radio"
             name="unitSystem"

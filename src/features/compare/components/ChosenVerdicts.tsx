@@ -1,5 +1,5 @@
-import { reasonText } from '../../../../shared/matching/verdict';
-import { VerdictStamp } from '../../../components/study/PlanVerdicts';
+import { reasonText } from '#shared/matching/verdict';
+import { VerdictStamp } from '#src/components/study/PlanVerdicts';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
 
 /** The plan verdict of each chosen line, what fits first, each with its first reason and where. */

@@ -1,5 +1,5 @@
-import type { PlanVerdict } from '../../../../shared/matching/verdict';
-import { planColour, scenarioDash } from '../../../components/plots/style';
+import type { PlanVerdict } from '#shared/matching/verdict';
+import { planColour, scenarioDash } from '#src/components/plots/style';
 
 /** A chosen line of Side by side: its place in the comparison and where it comes from. */
 export interface ChosenLine {

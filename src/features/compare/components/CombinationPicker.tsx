@@ -1,6 +1,6 @@
-import type { StudyDocument } from '../../../../shared/schemas/study';
-import { planColour } from '../../../components/plots/style';
-import { lineKeyOf } from '../../../components/study/lines';
+import type { StudyDocument } from '#shared/schemas/study';
+import { planColour } from '#src/components/plots/style';
+import { lineKeyOf } from '#src/components/study/lines';
 import { MAX_COMBINATIONS, MIN_COMBINATIONS } from '../selection';
 import { CombinationMark } from './CombinationMark';
 

@@ -1,20 +1,20 @@
 import { useMemo, useState } from 'react';
-import type { CompressorMap, SpoolbookMap, TurbineMap } from '../../../../shared/maps/types';
-import type { StudyDocument } from '../../../../shared/schemas/study';
-import { planVerdicts, VERDICT_RANK } from '../../../../shared/matching/verdict';
-import { compareLines } from '../../../../shared/study/compare';
-import { Alert } from '../../../components/Alert';
-import { Card } from '../../../components/Card';
-import { FlowAxisSwitch } from '../../../components/plots/FlowAxisSwitch';
-import { PlotFrame } from '../../../components/plots/PlotFrame';
-import { formatQuantity } from '../../../components/plots/quantities';
-import { planColour } from '../../../components/plots/style';
-import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
-import { mapLineViews, studyLines, turbineLineViews } from '../../../components/study/lines';
-import { RpmCurves } from '../../../components/study/RpmCurves';
-import { runStudyLive } from '../../../components/study/run';
-import { StudyCaution } from '../../../components/study/StudyCaution';
-import type { UnitSystem } from '../../../lib/units';
+import type { CompressorMap, SpoolbookMap, TurbineMap } from '#shared/maps/types';
+import type { StudyDocument } from '#shared/schemas/study';
+import { planVerdicts, VERDICT_RANK } from '#shared/matching/verdict';
+import { compareLines } from '#shared/study/compare';
+import { Alert } from '#src/components/Alert';
+import { Card } from '#src/components/Card';
+import { FlowAxisSwitch } from '#src/components/plots/FlowAxisSwitch';
+import { PlotFrame } from '#src/components/plots/PlotFrame';
+import { formatQuantity } from '#src/components/plots/quantities';
+import { planColour } from '#src/components/plots/style';
+import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
+import { mapLineViews, studyLines, turbineLineViews } from '#src/components/study/lines';
+import { RpmCurves } from '#src/components/study/RpmCurves';
+import { runStudyLive } from '#src/components/study/run';
+import { StudyCaution } from '#src/components/study/StudyCaution';
+import type { UnitSystem } from '#src/lib/units';
 import { compareFigure, type OverlaidMap } from '../compare-figure';
 import { allCombinations, MIN_COMBINATIONS, toggleCombination } from '../selection';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
@@ -102,10 +102,7 @@ export function CompareView({
   );
 
   // Each chosen line gets its own colour, marker and dash: its place in the comparison picks them.
-  const views = useMemo(
-    () => mapLineViews(chosenLines).map((v, index) => ({ ...v, planIndex: index, scenarioIndex: index })),
-    [chosenLines],
-  );
+  const views = useMemo(() => mapLineViews(chosenLines).map((v, index) => ({ ...v, planIndex: index, scenarioIndex: index })), [chosenLines]);
   // The same marks against rpm: the chosen lines re-indexed like the map's.
   const curveLines = useMemo(() => chosenLines.map((l, index) => ({ ...l, planIndex: index, scenarioIndex: index })), [chosenLines]);
   const figure = useMemo(
@@ -127,16 +124,17 @@ export function CompareView({
   const [turbineChoice, setTurbineChoice] = useState<string | null>(null);
   const drawnTurbine = usedTurbineMaps.find((m) => m.mapId === turbineChoice) ?? usedTurbineMaps[0] ?? null;
   const turbineViews = useMemo(
-    () =>
-      drawnTurbine
-        ? turbineLineViews(curveLines.filter((_l, i) => document.plans[chosenLines[i].planIndex]?.turbineMapId === drawnTurbine.mapId))
-        : [],
+    () => (drawnTurbine ? turbineLineViews(curveLines.filter((_l, i) => document.plans[chosenLines[i].planIndex]?.turbineMapId === drawnTurbine.mapId)) : []),
     [drawnTurbine, curveLines, chosenLines, document],
   );
 
-  const references = usedMaps.map((m) => `${m.name}: ${formatQuantity(m.map.reference.temperature, 'temperature', system)}, ${formatQuantity(m.map.reference.pressure, 'pressure', system)}`);
+  const references = usedMaps.map(
+    (m) => `${m.name}: ${formatQuantity(m.map.reference.temperature, 'temperature', system)}, ${formatQuantity(m.map.reference.pressure, 'pressure', system)}`,
+  );
   const referencesDiffer = new Set(usedMaps.map((m) => `${m.map.reference.temperature}|${m.map.reference.pressure}`)).size > 1;
-  const noMapPlans = [...new Set(chosenLines.filter((l) => !compressorMap(mapsById[document.plans[l.planIndex]?.compressorMapId ?? ''])).map((l) => l.line.planName))];
+  const noMapPlans = [
+    ...new Set(chosenLines.filter((l) => !compressorMap(mapsById[document.plans[l.planIndex]?.compressorMapId ?? ''])).map((l) => l.line.planName)),
+  ];
 
   return (
     <div className="space-y-6">
@@ -206,7 +204,8 @@ export function CompareView({
                     ? `The chosen lines use ${usedMaps.length} maps. ${drawn.name} is drawn in full${overlays.length ? '; the other maps’ surge lines are dotted and choke limits dash-dotted, in the colour of their first line' : ''}. Judge each line against its own map’s edges.`
                     : `All chosen lines are on ${drawn.name}.`
                   : 'No chosen line has a compressor map: the lines are drawn on plain axes.'}{' '}
-                {referencesDiffer && `Corrected flow is measured against each map’s own reference (${references.join('; ')}), so positions across maps compare only roughly.`}
+                {referencesDiffer &&
+                  `Corrected flow is measured against each map’s own reference (${references.join('; ')}), so positions across maps compare only roughly.`}
                 {noMapPlans.length > 0 && ` ${noMapPlans.join(', ')} ${noMapPlans.length === 1 ? 'has' : 'have'} no map: no margins or shaft speed.`}
               </p>
             </div>
@@ -250,9 +249,9 @@ export function CompareView({
           <Card title="Differences">
             <div className="space-y-3">
               <p className="text-sm text-ink-soft">
-                Columns read what fits first. Margins are the smallest over the line (past a limit included: a negative one is the news), peaks the
-                largest over the points the compressor can deliver, each with the engine speed it occurs at. The best value of each row is marked
-                only among plans that fit, never on a value past a limit; “Best is” says what best means there. Counts are of points.
+                Columns read what fits first. Margins are the smallest over the line (past a limit included: a negative one is the news), peaks the largest over
+                the points the compressor can deliver, each with the engine speed it occurs at. The best value of each row is marked only among plans that fit,
+                never on a value past a limit; “Best is” says what best means there. Counts are of points.
               </p>
               <DifferencesTable rows={rows} chosen={rankedChosen} system={system} />
             </div>

@@ -1,8 +1,8 @@
-import type { CompareCell, CompareRow, CompareRowKey } from '../../../../shared/study/compare';
-import { formatNumber } from '../../../components/plots/quantities';
-import { VerdictStamp } from '../../../components/study/PlanVerdicts';
-import { quantityUnit, type StudyQuantity } from '../../../components/study/units';
-import type { UnitSystem } from '../../../lib/units';
+import type { CompareCell, CompareRow, CompareRowKey } from '#shared/study/compare';
+import { formatNumber } from '#src/components/plots/quantities';
+import { VerdictStamp } from '#src/components/study/PlanVerdicts';
+import { quantityUnit, type StudyQuantity } from '#src/components/study/units';
+import type { UnitSystem } from '#src/lib/units';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
 
 const QUANTITY: Record<string, StudyQuantity> = {
@@ -77,13 +77,14 @@ export function pastLimitMark(row: CompareRow, cell: CompareCell, chosen: Chosen
   return row.kind === 'fraction' && /margin/i.test(row.key) && cell.value < 0;
 }
 
-
 /** One row per figure, one column per chosen line, the best of each row marked. */
 export function DifferencesTable({ rows, chosen, system }: { rows: readonly CompareRow[]; chosen: readonly ChosenLine[]; system: UnitSystem }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full min-w-[40rem] border-collapse text-left text-sm" data-testid="differences-table">
-        <caption className="sr-only">Differences between the chosen lines, what fits first: one row per figure, the best value of each row marked among plans that fit.</caption>
+        <caption className="sr-only">
+          Differences between the chosen lines, what fits first: one row per figure, the best value of each row marked among plans that fit.
+        </caption>
         <thead className="border-b-2 border-ink/20 align-bottom text-xs text-ink-soft">
           <tr>
             <th scope="col" className="px-2 py-2 font-semibold uppercase tracking-wider">
@@ -145,15 +146,14 @@ export function DifferencesTable({ rows, chosen, system }: { rows: readonly Comp
                   >
                     <span className={best ? 'font-semibold text-teal-dark' : 'text-ink'}>{rowValueText(row, cell.value, system)}</span>
                     {pastLimit && (
-                      <span className="ml-1.5 whitespace-nowrap text-[0.65rem] font-semibold uppercase tracking-wide text-limit" title="Found where a limit is crossed: never marked best">
+                      <span
+                        className="ml-1.5 whitespace-nowrap text-[0.65rem] font-semibold uppercase tracking-wide text-limit"
+                        title="Found where a limit is crossed: never marked best"
+                      >
                         past a limit
                       </span>
                     )}
-                    {best && (
-                      <span className="ml-1.5 rounded bg-teal px-1 py-px text-[0.65rem] font-bold uppercase tracking-wide text-white">
-                        best
-                      </span>
-                    )}
+                    {best && <span className="ml-1.5 rounded bg-teal px-1 py-px text-[0.65rem] font-bold uppercase tracking-wide text-white">best</span>}
                     {cell.value !== null && cell.rpm !== null && row.key !== 'peakBrakePowerRpm' && (
                       <span className="block text-xs text-ink-faint">at {formatNumber(cell.rpm, 21)} rpm</span>
                     )}

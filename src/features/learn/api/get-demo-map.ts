@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import type { CompressorMap } from '../../../../shared/maps/types';
-import { spoolbookMapSchema } from '../../../../shared/schemas/map';
-import { api, segment } from '../../../lib/api-client';
+import type { CompressorMap } from '#shared/maps/types';
+import { spoolbookMapSchema } from '#shared/schemas/map';
+import { api, segment } from '#src/lib/api-client';
 
 /** The built-in demo compressor the Learn page puts its example on (served to every team). */
 export const LEARN_MAP_ID = 'builtin-compressor-m58';

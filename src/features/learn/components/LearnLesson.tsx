@@ -1,12 +1,12 @@
 import { useMemo, useState, type ReactNode } from 'react';
-import type { CompressorMap } from '../../../../shared/maps/types';
-import type { OperatingPoint, PointValues } from '../../../../shared/matching/types';
-import { Alert } from '../../../components/Alert';
-import { Card } from '../../../components/Card';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
-import { formatNumber, formatQuantity, krpmLabel } from '../../../components/plots/quantities';
-import type { OperatingLineView } from '../../../components/plots/types';
-import type { UnitSystem } from '../../../lib/units';
+import type { CompressorMap } from '#shared/maps/types';
+import type { OperatingPoint, PointValues } from '#shared/matching/types';
+import { Alert } from '#src/components/Alert';
+import { Card } from '#src/components/Card';
+import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
+import { formatNumber, formatQuantity, krpmLabel } from '#src/components/plots/quantities';
+import type { OperatingLineView } from '#src/components/plots/types';
+import type { UnitSystem } from '#src/lib/units';
 import { DEFAULT_LESSON, runLesson, stepsById, type LessonInputs } from '../lesson';
 import { LessonControls } from './LessonControls';
 import { WorkingStepCard } from './WorkingStepCard';
@@ -25,9 +25,9 @@ const SECTIONS: Section[] = [
     title: '1. The air outside',
     words: (
       <>
-        Everything starts with the air around the car. The higher you go, the less air sits above you, so its pressure falls. The
-        International Standard Atmosphere (ISA) is an agreed average day that says how fast: pressure follows a power law of the
-        standard-day temperature. The temperature itself is the one you set, because a real day is rarely the standard one.
+        Everything starts with the air around the car. The higher you go, the less air sits above you, so its pressure falls. The International Standard
+        Atmosphere (ISA) is an agreed average day that says how fast: pressure follows a power law of the standard-day temperature. The temperature itself is
+        the one you set, because a real day is rarely the standard one.
       </>
     ),
     stepIds: ['isa-temperature', 'ambient-pressure', 'ambient-temperature'],
@@ -37,9 +37,9 @@ const SECTIONS: Section[] = [
     title: '2. Air arriving at the compressor',
     words: (
       <>
-        Before the wheel, the air filter and the intake pipe cost a little pressure. What is left is the compressor’s inlet pressure{' '}
-        <em>p₁</em>. Its density, the mass of air in each cubic metre, follows from the ideal-gas law: more pressure packs more air in, more
-        heat spreads it out. Temperatures in these sums are always absolute (kelvin).
+        Before the wheel, the air filter and the intake pipe cost a little pressure. What is left is the compressor’s inlet pressure <em>p₁</em>. Its density,
+        the mass of air in each cubic metre, follows from the ideal-gas law: more pressure packs more air in, more heat spreads it out. Temperatures in these
+        sums are always absolute (kelvin).
       </>
     ),
     stepIds: ['inlet-pressure', 'inlet-temperature', 'inlet-density'],
@@ -49,9 +49,9 @@ const SECTIONS: Section[] = [
     title: '3. How much air the engine swallows',
     words: (
       <>
-        Boost is gauge pressure: how far the manifold sits above the outside air. An engine is an air pump. Each cycle its cylinders fill
-        their swept volume with air at manifold density, to a share set by its volumetric efficiency, and a four-stroke engine completes a
-        cycle every second revolution. So the air mass flow grows with rpm, with boost (denser air) and with a cooler charge.
+        Boost is gauge pressure: how far the manifold sits above the outside air. An engine is an air pump. Each cycle its cylinders fill their swept volume
+        with air at manifold density, to a share set by its volumetric efficiency, and a four-stroke engine completes a cycle every second revolution. So the
+        air mass flow grows with rpm, with boost (denser air) and with a cooler charge.
       </>
     ),
     stepIds: ['manifold-pressure', 'manifold-temperature', 'manifold-density', 'engine-airflow'],
@@ -61,11 +61,10 @@ const SECTIONS: Section[] = [
     title: '4. Corrected flow: the across-the-page axis of the map',
     words: (
       <>
-        A compressor map is measured on a test stand with air at one set of inlet conditions, the map’s <em>reference</em>. Out on the road
-        the air is thinner or warmer, and the same wheel at the same place on its map then moves a different mass of air each second.
-        Corrected flow undoes that: it scales the real mass flow to what the compressor would pass at the reference conditions. Thin air
-        (low <em>p₁</em>) and warm air (high <em>T₁</em>) both make the corrected flow larger than the real one, so the point moves to the right
-        on the map.
+        A compressor map is measured on a test stand with air at one set of inlet conditions, the map’s <em>reference</em>. Out on the road the air is thinner
+        or warmer, and the same wheel at the same place on its map then moves a different mass of air each second. Corrected flow undoes that: it scales the
+        real mass flow to what the compressor would pass at the reference conditions. Thin air (low <em>p₁</em>) and warm air (high <em>T₁</em>) both make the
+        corrected flow larger than the real one, so the point moves to the right on the map.
       </>
     ),
     stepIds: ['corrected-flow'],
@@ -75,9 +74,9 @@ const SECTIONS: Section[] = [
     title: '5. Pressure ratio: the up-the-page axis',
     words: (
       <>
-        The compressor must deliver the manifold pressure plus what the intercooler and pipes lose on the way, starting from its own inlet
-        pressure. The map’s height is the ratio of the two absolute pressures. The same boost therefore asks for a higher ratio up a
-        mountain, where the compressor starts from less.
+        The compressor must deliver the manifold pressure plus what the intercooler and pipes lose on the way, starting from its own inlet pressure. The map’s
+        height is the ratio of the two absolute pressures. The same boost therefore asks for a higher ratio up a mountain, where the compressor starts from
+        less.
       </>
     ),
     stepIds: ['outlet-pressure', 'pressure-ratio'],
@@ -87,9 +86,8 @@ const SECTIONS: Section[] = [
     title: '6. How hot the air leaves',
     words: (
       <>
-        Squeezing air heats it. A perfect (isentropic) compressor would heat it by a fixed amount for each pressure ratio; a real one
-        heats it more, and the efficiency read from the map says how much more. That is why a point in the middle of the efficiency
-        islands gives cooler air than one near the edges.
+        Squeezing air heats it. A perfect (isentropic) compressor would heat it by a fixed amount for each pressure ratio; a real one heats it more, and the
+        efficiency read from the map says how much more. That is why a point in the middle of the efficiency islands gives cooler air than one near the edges.
       </>
     ),
     stepIds: ['compressor-efficiency', 'isentropic-outlet-temperature', 'outlet-temperature'],
@@ -99,10 +97,9 @@ const SECTIONS: Section[] = [
     title: '7. Where the point lands on the map',
     words: (
       <>
-        With corrected flow across and pressure ratio up, the point has its place. To the left of the surge line the compressor cannot
-        hold the pressure it has made and the flow stalls and reverses in pulses; to the right of the choke limit the wheel is passing all
-        the air it can and its efficiency collapses; the speed lines say how fast the shaft must spin. The margins say how far the point
-        sits from each of these edges.
+        With corrected flow across and pressure ratio up, the point has its place. To the left of the surge line the compressor cannot hold the pressure it has
+        made and the flow stalls and reverses in pulses; to the right of the choke limit the wheel is passing all the air it can and its efficiency collapses;
+        the speed lines say how fast the shaft must spin. The margins say how far the point sits from each of these edges.
       </>
     ),
     stepIds: ['shaft-speed', 'surge-margin', 'choke-margin', 'speed-margin'],
@@ -144,9 +141,26 @@ function lineView(key: string, label: string, planIndex: number, point: Operatin
   };
 }
 
-function Summary({ point, standard, system, hasMap, mapLoading }: { point: OperatingPoint; standard: OperatingPoint; system: UnitSystem; hasMap: boolean; mapLoading: boolean }) {
+function Summary({
+  point,
+  standard,
+  system,
+  hasMap,
+  mapLoading,
+}: {
+  point: OperatingPoint;
+  standard: OperatingPoint;
+  system: UnitSystem;
+  hasMap: boolean;
+  mapLoading: boolean;
+}) {
   const v = point.values;
-  if (!v) return <Alert tone="error" title="This point cannot be worked out">{point.findings.map((f) => f.message).join(' ')}</Alert>;
+  if (!v)
+    return (
+      <Alert tone="error" title="This point cannot be worked out">
+        {point.findings.map((f) => f.message).join(' ')}
+      </Alert>
+    );
   const s = standard.values;
   const rows: [string, string][] = [
     ['Air mass flow', formatQuantity(v.massFlow, 'massFlow', system)],
@@ -162,7 +176,8 @@ function Summary({ point, standard, system, hasMap, mapLoading }: { point: Opera
       <p className="text-ink" aria-live="polite">
         {hasMap ? (
           <>
-            The point lands <strong className={v.mapLocation === 'inside' ? 'text-teal-dark' : 'text-copper-ink'}>{LOCATION_WORDS[v.mapLocation ?? 'inside']}</strong>.
+            The point lands{' '}
+            <strong className={v.mapLocation === 'inside' ? 'text-teal-dark' : 'text-copper-ink'}>{LOCATION_WORDS[v.mapLocation ?? 'inside']}</strong>.
             {v.reachable === false && ' The compressor cannot deliver it there, so no efficiency, outlet temperature or power is given.'}
           </>
         ) : mapLoading ? (
@@ -172,8 +187,8 @@ function Summary({ point, standard, system, hasMap, mapLoading }: { point: Opera
         )}{' '}
         {s && (
           <>
-            On a standard day at sea level the same engine and boost would sit at {formatQuantity(s.correctedMassFlow, 'massFlow', system)} and
-            pressure ratio {formatNumber(s.pressureRatio, 3)}.
+            On a standard day at sea level the same engine and boost would sit at {formatQuantity(s.correctedMassFlow, 'massFlow', system)} and pressure ratio{' '}
+            {formatNumber(s.pressureRatio, 3)}.
           </>
         )}
       </p>
@@ -216,11 +231,10 @@ export function LearnLesson({
           Why a map has these two axes
         </h2>
         <p>
-          A compressor map shows, for one compressor, which combinations of air flow and pressure rise it can make, how fast its shaft
-          spins to make them and how efficiently. To find where your engine puts the compressor, you need two numbers for each engine
-          speed: the <strong>corrected mass flow</strong> (across the page) and the <strong>pressure ratio</strong> (up the page). Move the
-          sliders and follow each number from the outside air to the point on the map. The example runs through the same engine that
-          computes every Study.
+          A compressor map shows, for one compressor, which combinations of air flow and pressure rise it can make, how fast its shaft spins to make them and
+          how efficiently. To find where your engine puts the compressor, you need two numbers for each engine speed: the <strong>corrected mass flow</strong>{' '}
+          (across the page) and the <strong>pressure ratio</strong> (up the page). Move the sliders and follow each number from the outside air to the point on
+          the map. The example runs through the same engine that computes every Study.
         </p>
       </section>
 
@@ -230,16 +244,30 @@ export function LearnLesson({
         </Card>
         <Card title="Where it lands">
           <div className="space-y-4">
-            {mapError && <Alert tone="error" title="The demo map could not be loaded">{mapError}</Alert>}
+            {mapError && (
+              <Alert tone="error" title="The demo map could not be loaded">
+                {mapError}
+              </Alert>
+            )}
             <Summary point={lesson.point} standard={lesson.standardDay} system={system} hasMap={map !== null} mapLoading={mapLoading} />
-            <CompressorMapPlot map={map} lines={lines} unitSystem={system} highlight={{ lineKey: 'yours', rpm: inputs.rpm }} height={440} exportName="Learn example" />
+            <CompressorMapPlot
+              map={map}
+              lines={lines}
+              unitSystem={system}
+              highlight={{ lineKey: 'yours', rpm: inputs.rpm }}
+              height={440}
+              exportName="Learn example"
+            />
             {findings.length > 0 && (
               <div className="text-sm">
                 <p className="font-semibold text-ink">What the engine says about this point</p>
                 <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-soft">
                   {findings.map((f, i) => (
                     <li key={i}>
-                      <span className={f.severity === 'limit' ? 'font-semibold text-limit' : f.severity === 'warning' ? 'font-semibold text-copper-ink' : ''}>{f.severity}</span>: {f.message}
+                      <span className={f.severity === 'limit' ? 'font-semibold text-limit' : f.severity === 'warning' ? 'font-semibold text-copper-ink' : ''}>
+                        {f.severity}
+                      </span>
+                      : {f.message}
                     </li>
                   ))}
                 </ul>
@@ -277,12 +305,11 @@ export function LearnLesson({
           Where the formulas come from
         </h3>
         <p>
-          Each step names its source under it. The model behind them is written out in the project’s physics notes (docs/physics.md):
-          the standard atmosphere (ISO 2533 / ICAO Doc 7488) in section 1, engine air flow (Heywood, <em>Internal Combustion Engine
-          Fundamentals</em>, 1988, §2.10) in section 2, and corrected flow, pressure ratio and outlet temperature (NASA Glenn Research
-          Center’s pages on corrected airflow and compressor thermodynamics; Isermann, <em>Combustion Engine Diagnosis</em>, 2017, eqs.
-          5.4.14–15) in section 3. Static pressures stand in for total pressures, and each engine speed is worked on its own
-          (quasi-steady).
+          Each step names its source under it. The model behind them is written out in the project’s physics notes (docs/physics.md): the standard atmosphere
+          (ISO 2533 / ICAO Doc 7488) in section 1, engine air flow (Heywood, <em>Internal Combustion Engine Fundamentals</em>, 1988, §2.10) in section 2, and
+          corrected flow, pressure ratio and outlet temperature (NASA Glenn Research Center’s pages on corrected airflow and compressor thermodynamics;
+          Isermann, <em>Combustion Engine Diagnosis</em>, 2017, eqs. 5.4.14–15) in section 3. Static pressures stand in for total pressures, and each engine
+          speed is worked on its own (quasi-steady).
         </p>
       </section>
     </div>

@@ -1,8 +1,8 @@
 import { useId } from 'react';
-import { fromSI, toSI, type QuantityKind } from '../../../../shared/units';
-import { Button } from '../../../components/Button';
-import { formatNumber, unitLabel } from '../../../components/plots/quantities';
-import type { UnitSystem } from '../../../lib/units';
+import { fromSI, toSI, type QuantityKind } from '#shared/units';
+import { Button } from '#src/components/Button';
+import { formatNumber, unitLabel } from '#src/components/plots/quantities';
+import type { UnitSystem } from '#src/lib/units';
 import { DEFAULT_LESSON, LESSON_ENGINE, type LessonInputs } from '../lesson';
 
 interface SliderSpec {
@@ -95,11 +95,13 @@ export function LessonControls({ inputs, system, onChange }: { inputs: LessonInp
         <p className="font-semibold text-ink">Fixed in this example</p>
         <ul className="list-disc space-y-0.5 pl-5">
           <li>
-            A {system === 'us' ? `${formatNumber(fromSI(e.displacement, 'cuin', 'volume'), 3)} in³` : `${formatNumber(e.displacement * 1000, 2)} L`} four-cylinder,
-            four-stroke engine
+            A {system === 'us' ? `${formatNumber(fromSI(e.displacement, 'cuin', 'volume'), 3)} in³` : `${formatNumber(e.displacement * 1000, 2)} L`}{' '}
+            four-cylinder, four-stroke engine
           </li>
           <li>Volumetric efficiency {formatNumber(e.volumetricEfficiency * 100, 3)} %</li>
-          <li>Air filter and intake lose {kPaOrPsi(e.inletLoss)}; intercooler and pipes lose {kPaOrPsi(e.chargeCoolerLoss)}</li>
+          <li>
+            Air filter and intake lose {kPaOrPsi(e.inletLoss)}; intercooler and pipes lose {kPaOrPsi(e.chargeCoolerLoss)}
+          </li>
           <li>The intercooler leaves the charge {approach} warmer than the outside air</li>
           <li>One turbocharger with the built-in demo compressor M58</li>
         </ul>

@@ -1,8 +1,8 @@
-import type { WorkingStep, WorkingValue } from '../../../../shared/matching/working';
-import { fromSI, siUnitOf, type QuantityKind } from '../../../../shared/units';
-import { formatNumber, formatQuantity, unitLabel } from '../../../components/plots/quantities';
-import { displayUnitOf, type UnitSystem } from '../../../lib/units';
-import { Formula, MathSymbol } from '../../../components/study/Formula';
+import type { WorkingStep, WorkingValue } from '#shared/matching/working';
+import { fromSI, siUnitOf, type QuantityKind } from '#shared/units';
+import { formatNumber, formatQuantity, unitLabel } from '#src/components/plots/quantities';
+import { displayUnitOf, type UnitSystem } from '#src/lib/units';
+import { Formula, MathSymbol } from '#src/components/study/Formula';
 
 function isQuantityKind(kind: string): kind is QuantityKind {
   return Object.prototype.hasOwnProperty.call(siUnitOf, kind);
@@ -76,7 +76,10 @@ export function WorkingStepCard({ step, system }: { step: WorkingStep; system: U
         <span className="font-serif">
           <MathSymbol name={step.result.symbol} />
         </span>{' '}
-        = <strong className="font-semibold"><ValueText value={step.result} system={system} /></strong>
+        ={' '}
+        <strong className="font-semibold">
+          <ValueText value={step.result} system={system} />
+        </strong>
       </p>
       <p className="mt-2 text-xs text-ink-faint">Source: {step.source}</p>
     </article>

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { api, segment } from '../../../lib/api-client';
+import { api, segment } from '#src/lib/api-client';
 import { mapDetailSchema } from './schemas';
 
 const mapResponseSchema = z.object({ map: mapDetailSchema });

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { api, segment } from '../../../lib/api-client';
+import { api, segment } from '#src/lib/api-client';
 import { mapSummarySchema } from './schemas';
 
 const mapsResponseSchema = z.object({ maps: z.array(mapSummarySchema) });
@@ -10,8 +10,7 @@ export function getMaps(teamId: string) {
   return api.get(`/api/teams/${segment(teamId)}/maps`, mapsResponseSchema).then((body) => body.maps);
 }
 
-export const mapsQueryOptions = (teamId: string) =>
-  queryOptions({ queryKey: ['teams', teamId, 'maps'] as const, queryFn: () => getMaps(teamId) });
+export const mapsQueryOptions = (teamId: string) => queryOptions({ queryKey: ['teams', teamId, 'maps'] as const, queryFn: () => getMaps(teamId) });
 
 export function useMaps(teamId: string) {
   return useQuery(mapsQueryOptions(teamId));

@@ -1,4 +1,4 @@
-import { segment } from '../../../lib/api-client';
+import { segment } from '#src/lib/api-client';
 
 /**
  * Where a map's file is downloaded from (the server writes it in the map file format, with its

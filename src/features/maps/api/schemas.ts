@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { MAP_KINDS } from '../../../../shared/maps/format';
-import { spoolbookMapSchema } from '../../../../shared/schemas/map';
+import { MAP_KINDS } from '#shared/maps/format';
+import { spoolbookMapSchema } from '#shared/schemas/map';
 
 // Answers of the map library API (docs/api.md, "Map library"). The parsed map inside a detail is
 // checked with the shared map schema, so the plot never draws a map that drifted from the model.

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import type { uploadMapFieldsSchema } from '../../../../shared/schemas/map-library';
-import { api, segment } from '../../../lib/api-client';
+import type { uploadMapFieldsSchema } from '#shared/schemas/map-library';
+import { api, segment } from '#src/lib/api-client';
 import { mapQueryOptions } from './get-map';
 import { mapsQueryOptions } from './get-maps';
 import { mapDetailSchema, mapProblemSchema } from './schemas';

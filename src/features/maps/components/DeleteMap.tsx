@@ -1,10 +1,10 @@
 import { useRef, useState } from 'react';
 import { Link } from 'react-router';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Dialog } from '../../../components/Dialog';
-import { isApiError } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Dialog } from '#src/components/Dialog';
+import { isApiError } from '#src/lib/api-client';
+import { paths } from '#src/lib/paths';
 import { useDeleteMap } from '../api/delete-map';
 import { mapInUseDetailsSchema } from '../api/schemas';
 

@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import { updateMapSchema } from '../../../../shared/schemas/map-library';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
+import { updateMapSchema } from '#shared/schemas/map-library';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
 import { useUpdateMap } from '../api/update-map';
 import type { MapDetail } from '../api/schemas';
 import { NotesField } from './NotesField';

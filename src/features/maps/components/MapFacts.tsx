@@ -1,5 +1,5 @@
-import type { SpoolbookMap } from '../../../../shared/maps/types';
-import type { UnitSystem } from '../../../lib/units';
+import type { SpoolbookMap } from '#shared/maps/types';
+import type { UnitSystem } from '#src/lib/units';
 import { mapFacts } from '../utils/map-facts';
 
 /** A map's facts as a definition list; `extra` rows (file name, who uploaded it) go after them. */

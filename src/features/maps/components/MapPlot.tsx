@@ -1,14 +1,12 @@
 import { useState } from 'react';
-import type { SpoolbookMap } from '../../../../shared/maps/types';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
-import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
-import type { UnitSystem } from '../../../lib/units';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
+import type { UnitSystem } from '#src/lib/units';
 
 /** A map drawn alone (no study): compressor maps open on the flow axis their file uses. */
 export function MapPlot({ map, unitSystem, height }: { map: SpoolbookMap; unitSystem: UnitSystem; height?: number }) {
-  const [flowAxis, setFlowAxis] = useState<'corrected' | 'volume'>(
-    map.kind === 'compressor' && map.fileUnits.flowAxis === 'volume' ? 'volume' : 'corrected',
-  );
+  const [flowAxis, setFlowAxis] = useState<'corrected' | 'volume'>(map.kind === 'compressor' && map.fileUnits.flowAxis === 'volume' ? 'volume' : 'corrected');
   if (map.kind === 'turbine') return <TurbineMapPlot map={map} unitSystem={unitSystem} height={height} />;
   return <CompressorMapPlot map={map} unitSystem={unitSystem} flowAxis={flowAxis} onFlowAxisChange={setFlowAxis} height={height} />;
 }

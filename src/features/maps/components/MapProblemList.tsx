@@ -41,7 +41,10 @@ export function MapProblemList({
         </h3>
         {intro && <p className="text-sm text-ink-soft">{intro}</p>}
       </div>
-      <ol aria-label="Problems in the file" className="max-h-[28rem] divide-y divide-paper-line overflow-y-auto rounded-md border border-paper-line bg-white/80">
+      <ol
+        aria-label="Problems in the file"
+        className="max-h-[28rem] divide-y divide-paper-line overflow-y-auto rounded-md border border-paper-line bg-white/80"
+      >
         {problems.map((problem, index) => {
           const quoted = excerpt(lines, problem.line);
           return (

@@ -1,8 +1,8 @@
 import { Link } from 'react-router';
-import { Table, td, th } from '../../../components/Table';
-import { formatNumber, krpmLabel } from '../../../components/plots/quantities';
-import { formatDateTime } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
+import { Table, td, th } from '#src/components/Table';
+import { formatNumber, krpmLabel } from '#src/components/plots/quantities';
+import { formatDateTime } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
 import type { MapSummary } from '../api/schemas';
 import { mapKindNames } from '../utils/map-facts';
 

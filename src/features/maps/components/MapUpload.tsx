@@ -1,15 +1,15 @@
 import { useRef, useState, type DragEvent } from 'react';
 import { Link } from 'react-router';
-import type { SpoolbookMap } from '../../../../shared/maps/types';
-import { uploadMapFieldsSchema } from '../../../../shared/schemas/map-library';
-import { Alert } from '../../../components/Alert';
-import { Button, buttonClass } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
-import { isApiError } from '../../../lib/api-client';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
-import { paths } from '../../../lib/paths';
-import type { UnitSystem } from '../../../lib/units';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { uploadMapFieldsSchema } from '#shared/schemas/map-library';
+import { Alert } from '#src/components/Alert';
+import { Button, buttonClass } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
+import { isApiError } from '#src/lib/api-client';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
+import { paths } from '#src/lib/paths';
+import type { UnitSystem } from '#src/lib/units';
 import { invalidMapFileDetailsSchema, type MapFileProblem } from '../api/schemas';
 import { useUploadMap } from '../api/upload-map';
 import { mapKindNames } from '../utils/map-facts';
@@ -104,7 +104,9 @@ export function MapUpload({ teamId, unitSystem }: { teamId: string; unitSystem: 
           dragging ? 'border-teal bg-teal-light/40' : 'border-ink/20 bg-white/50'
         }`}
       >
-        <label className={`${buttonClass('primary')} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-teal`}>
+        <label
+          className={`${buttonClass('primary')} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-teal`}
+        >
           Choose a map file
           <input
             type="file"
@@ -119,8 +121,8 @@ export function MapUpload({ teamId, unitSystem }: { teamId: string; unitSystem: 
           />
         </label>
         <p className="max-w-prose text-sm text-ink-soft">
-          or drop one here. A map file is CSV text in the Spoolbook map format. It is checked on this page straight away; nothing is saved until
-          you press “Save to library”.
+          or drop one here. A map file is CSV text in the Spoolbook map format. It is checked on this page straight away; nothing is saved until you press “Save
+          to library”.
         </p>
       </div>
 

@@ -1,14 +1,14 @@
 import { Link } from 'react-router';
-import { Alert } from '../../../components/Alert';
-import { Badge } from '../../../components/Badge';
-import { buttonClass } from '../../../components/Button';
-import { Card } from '../../../components/Card';
-import { Loading, Page } from '../../../components/Page';
-import { SecondFactorNeededPage } from '../../../components/SecondFactorNotice';
-import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
-import { formatDateTime } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
-import { useUnitSystem } from '../../../lib/units';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { buttonClass } from '#src/components/Button';
+import { Card } from '#src/components/Card';
+import { Loading, Page } from '#src/components/Page';
+import { SecondFactorNeededPage } from '#src/components/SecondFactorNotice';
+import { isApiError, isTwoFactorRequired } from '#src/lib/api-client';
+import { formatDateTime } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
+import { useUnitSystem } from '#src/lib/units';
 import { useMap } from '../api/get-map';
 import { mapFileHref } from '../api/map-file';
 import type { MapDetail } from '../api/schemas';
@@ -74,8 +74,8 @@ function MapDetailView({ teamId, detail, onDeleted }: { teamId: string; detail: 
     >
       {detail.builtin && (
         <Alert tone="info">
-          Invented for Spoolbook from a simple physical model; it describes no real product. Demo maps cannot be changed: download one and add it to the
-          library as your own to rename or annotate it.
+          Invented for Spoolbook from a simple physical model; it describes no real product. Demo maps cannot be changed: download one and add it to the library
+          as your own to rename or annotate it.
         </Alert>
       )}
 

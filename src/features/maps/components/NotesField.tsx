@@ -1,5 +1,5 @@
 import { useId, type TextareaHTMLAttributes } from 'react';
-import { FieldError, inputClass } from '../../../components/TextField';
+import { FieldError, inputClass } from '#src/components/TextField';
 
 /** A labelled multi-line text field with the same error and hint treatment as TextField. */
 export function NotesField({

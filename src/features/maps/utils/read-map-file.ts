@@ -1,6 +1,6 @@
-import { MAX_MAP_DATA_ROWS, MAX_MAP_FILE_BYTES } from '../../../../shared/maps/format';
-import { parseMapFile } from '../../../../shared/maps/parse';
-import type { MapParseResult } from '../../../../shared/maps/types';
+import { MAX_MAP_DATA_ROWS, MAX_MAP_FILE_BYTES } from '#shared/maps/format';
+import { parseMapFile } from '#shared/maps/parse';
+import type { MapParseResult } from '#shared/maps/types';
 
 /** A file the user chose, read and checked in the browser with the same rules as the server. */
 export interface ReadMapFile {

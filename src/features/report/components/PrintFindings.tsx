@@ -1,10 +1,10 @@
 import { useMemo } from 'react';
-import type { Severity } from '../../../../shared/matching/types';
-import { formatNumber } from '../../../components/plots/quantities';
-import { planColour } from '../../../components/plots/style';
-import { groupFindings, localizeMessage } from '../../../components/study/FindingsList';
-import type { StudyLine } from '../../../components/study/lines';
-import type { UnitSystem } from '../../../lib/units';
+import type { Severity } from '#shared/matching/types';
+import { formatNumber } from '#src/components/plots/quantities';
+import { planColour } from '#src/components/plots/style';
+import { groupFindings, localizeMessage } from '#src/components/study/FindingsList';
+import type { StudyLine } from '#src/components/study/lines';
+import type { UnitSystem } from '#src/lib/units';
 
 const SECTIONS: { severity: Severity; title: string; mark: string }[] = [
   { severity: 'limit', title: 'Limits crossed', mark: 'bg-limit text-white' },
@@ -35,7 +35,11 @@ export function PrintFindings({ lines, system }: { lines: readonly StudyLine[]; 
             <ul className="space-y-1 text-sm">
               {list.map((g) => (
                 <li key={g.id} className="report-finding flex gap-2 border-b border-paper-line/70 pb-1">
-                  <span aria-hidden="true" className="mt-1.5 inline-block size-2.5 shrink-0 rounded-full" style={{ background: planColour(g.line.planIndex) }} />
+                  <span
+                    aria-hidden="true"
+                    className="mt-1.5 inline-block size-2.5 shrink-0 rounded-full"
+                    style={{ background: planColour(g.line.planIndex) }}
+                  />
                   <span>
                     <span className="text-ink">{localizeMessage(g.finding.message, system)}</span>
                     <span className="block text-xs text-ink-soft">

@@ -1,9 +1,9 @@
-import { RESULT_COLUMNS, type ResultColumn } from '../../../../shared/matching/results-table';
-import { formatNumber } from '../../../components/plots/quantities';
-import { planColour } from '../../../components/plots/style';
-import type { StudyLine } from '../../../components/study/lines';
-import { cellValue, columnUnit, emptyCellNote, NOT_REACHABLE, resultTableRows, type ResultTableRow } from '../../../components/study/result-rows';
-import type { UnitSystem } from '../../../lib/units';
+import { RESULT_COLUMNS, type ResultColumn } from '#shared/matching/results-table';
+import { formatNumber } from '#src/components/plots/quantities';
+import { planColour } from '#src/components/plots/style';
+import type { StudyLine } from '#src/components/study/lines';
+import { cellValue, columnUnit, emptyCellNote, NOT_REACHABLE, resultTableRows, type ResultTableRow } from '#src/components/study/result-rows';
+import type { UnitSystem } from '#src/lib/units';
 
 /** Result columns per printed table: the rest go into the next table under it, rpm repeated. */
 export const COLUMNS_PER_PRINTED_TABLE = 9;
@@ -23,7 +23,10 @@ function cellText(row: ResultTableRow, column: ResultColumn, system: UnitSystem)
 }
 
 /** The columns that have a value somewhere in the study; a column empty everywhere (e.g. the turbine's, without a turbine) is left off paper. */
-export function filledColumns(lines: readonly StudyLine[], columns: readonly ResultColumn[] = RESULT_COLUMNS): { shown: ResultColumn[]; empty: ResultColumn[] } {
+export function filledColumns(
+  lines: readonly StudyLine[],
+  columns: readonly ResultColumn[] = RESULT_COLUMNS,
+): { shown: ResultColumn[]; empty: ResultColumn[] } {
   const shown: ResultColumn[] = [];
   const empty: ResultColumn[] = [];
   for (const c of columns) {
@@ -43,7 +46,9 @@ export function PrintResults({ lines, system }: { lines: readonly StudyLine[]; s
   const rpmColumn = RESULT_COLUMNS.find((c) => c.key === 'rpm')!;
   return (
     <div className="space-y-6">
-      {empty.length > 0 && <p className="text-sm text-ink-soft">Not computed in this study, so left out: {empty.map((c) => c.label.toLowerCase()).join(', ')}.</p>}
+      {empty.length > 0 && (
+        <p className="text-sm text-ink-soft">Not computed in this study, so left out: {empty.map((c) => c.label.toLowerCase()).join(', ')}.</p>
+      )}
       {lines.map((line) => {
         const rows = resultTableRows([line]);
         return (
@@ -83,13 +88,20 @@ export function PrintResults({ lines, system }: { lines: readonly StudyLine[]; s
                       <tr key={r.id}>
                         <th scope="row" className="numeric px-1.5 py-0.5 text-left font-medium">
                           {formatNumber(r.rpm, 21)}
-                          {r.severity === 'limit' && <span className="ml-1 font-bold text-limit" title="A limit is crossed at this point">!</span>}
+                          {r.severity === 'limit' && (
+                            <span className="ml-1 font-bold text-limit" title="A limit is crossed at this point">
+                              !
+                            </span>
+                          )}
                           {r.reachable === 'no' && r.values && <span className="block text-[0.65rem] font-normal text-ink-soft">{r.region}</span>}
                         </th>
                         {block.map((c) => {
                           const text = cellText(r, c, system);
                           return (
-                            <td key={c.key} className={`numeric px-1.5 py-0.5 text-right ${text === NOT_REACHABLE ? 'text-[0.65rem] italic leading-tight text-ink-soft' : ''}`}>
+                            <td
+                              key={c.key}
+                              className={`numeric px-1.5 py-0.5 text-right ${text === NOT_REACHABLE ? 'text-[0.65rem] italic leading-tight text-ink-soft' : ''}`}
+                            >
                               {text}
                             </td>
                           );

@@ -1,17 +1,17 @@
 import { useMemo, useState } from 'react';
-import { Card } from '../../../components/Card';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
-import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
-import { planColour } from '../../../components/plots/style';
-import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
-import { PlanVerdicts, reasonPoint, verdictsOfLines } from '../../../components/study/PlanVerdicts';
-import { FindingsList, groupFindings } from '../../../components/study/FindingsList';
-import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '../../../components/study/lines';
-import { ResultsTable } from '../../../components/study/ResultsTable';
-import { RpmCurves } from '../../../components/study/RpmCurves';
-import { StudyCaution } from '../../../components/study/StudyCaution';
-import { WorkingPanel } from '../../../components/study/WorkingPanel';
-import type { UnitSystem } from '../../../lib/units';
+import { Card } from '#src/components/Card';
+import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
+import { planColour } from '#src/components/plots/style';
+import { ExhaustSummary } from '#src/components/study/ExhaustSummary';
+import { PlanVerdicts, reasonPoint, verdictsOfLines } from '#src/components/study/PlanVerdicts';
+import { FindingsList, groupFindings } from '#src/components/study/FindingsList';
+import { findPoint, mapLineViews, turbineLineViews, type PointRef, type StudyLine } from '#src/components/study/lines';
+import { ResultsTable } from '#src/components/study/ResultsTable';
+import { RpmCurves } from '#src/components/study/RpmCurves';
+import { StudyCaution } from '#src/components/study/StudyCaution';
+import { WorkingPanel } from '#src/components/study/WorkingPanel';
+import type { UnitSystem } from '#src/lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { ExhaustNotes } from './ExhaustNotes';
 
@@ -150,8 +150,8 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
               <div className="space-y-3">
                 <MapChooser groups={drawableTurbines} value={turbineGroup?.key ?? ''} onChange={setTurbineKey} label="Turbine map shown" />
                 <p className="text-xs text-ink-soft">
-                  Where each turbine runs: expansion ratio across the turbine against the flow it swallows. Points below the boost threshold run
-                  with the gates shut; above it the gates pass the rest.
+                  Where each turbine runs: expansion ratio across the turbine against the flow it swallows. Points below the boost threshold run with the gates
+                  shut; above it the gates pass the rest.
                 </p>
                 {turbineGroup?.map && (
                   <TurbineMapPlot
@@ -166,7 +166,8 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
                 )}
                 {unmappedTurbines.map((g) => (
                   <p key={g.key} className="text-sm text-copper-ink">
-                    {g.planNames.join(', ')}: no turbine map could be used, so the exhaust side of {g.planNames.length === 1 ? 'this plan' : 'these plans'} is not computed.
+                    {g.planNames.join(', ')}: no turbine map could be used, so the exhaust side of {g.planNames.length === 1 ? 'this plan' : 'these plans'} is
+                    not computed.
                   </p>
                 ))}
                 <ExhaustSummary lines={computed.lines} unitSystem={system} />
@@ -175,7 +176,14 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
             </Card>
           )}
           <Card title="Curves against engine speed">
-            <RpmCurves lines={computed.lines} unitSystem={system} highlight={selected} onPointClick={select} outletTemperatureLimit={limit} exportName={data.title} />
+            <RpmCurves
+              lines={computed.lines}
+              unitSystem={system}
+              highlight={selected}
+              onPointClick={select}
+              outletTemperatureLimit={limit}
+              exportName={data.title}
+            />
           </Card>
         </div>
         <div className="min-w-0 space-y-6">

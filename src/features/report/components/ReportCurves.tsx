@@ -1,9 +1,9 @@
 import { useMemo } from 'react';
-import { PlotFrame } from '../../../components/plots/PlotFrame';
-import { planColour, planMarker, scenarioDash } from '../../../components/plots/style';
-import { hasExhaust, type StudyLine } from '../../../components/study/lines';
-import { curveViewsFor, rpmCurvesFigure, type CurveView } from '../../../components/study/rpm-curves-figure';
-import type { UnitSystem } from '../../../lib/units';
+import { PlotFrame } from '#src/components/plots/PlotFrame';
+import { planColour, planMarker, scenarioDash } from '#src/components/plots/style';
+import { hasExhaust, type StudyLine } from '#src/components/study/lines';
+import { curveViewsFor, rpmCurvesFigure, type CurveView } from '#src/components/study/rpm-curves-figure';
+import type { UnitSystem } from '#src/lib/units';
 
 const DASH_ARRAYS: Record<string, string | undefined> = {
   solid: undefined,
@@ -48,7 +48,21 @@ export function LinesKey({ lines }: { lines: readonly StudyLine[] }) {
   );
 }
 
-function CurvePlot({ lines, view, system, height, limit, exportName }: { lines: readonly StudyLine[]; view: CurveView; system: UnitSystem; height: number; limit: number | null; exportName: string }) {
+function CurvePlot({
+  lines,
+  view,
+  system,
+  height,
+  limit,
+  exportName,
+}: {
+  lines: readonly StudyLine[];
+  view: CurveView;
+  system: UnitSystem;
+  height: number;
+  limit: number | null;
+  exportName: string;
+}) {
   const figure = useMemo(() => {
     const f = rpmCurvesFigure({ lines, view, unitSystem: system, highlight: null, height, outletTemperatureLimit: limit });
     // The key above serves every plot; a legend of every line in each would fill the pages.
@@ -67,13 +81,28 @@ export function reportCurveViews(lines: readonly StudyLine[]): CurveView[] {
  * for them). Only exhaust studies draw them.
  */
 const DOTTED_NOTES: Record<string, string> = {
-  boost: 'Solid: the boost the turbine holds; dotted: the boost target. Where the two part, the turbine cannot drive the compressor to the target at that speed.',
-  'exhaust-pressure': 'Drive pressure ratio: the exhaust manifold pressure over the intake manifold pressure. Above 1 the engine pumps against its own exhaust.',
-  wastegate: 'Right: the valve each gate needs to pass its share of the exhaust; dotted: the valve fitted. A needed valve above the fitted one means boost will creep above target.',
+  boost:
+    'Solid: the boost the turbine holds; dotted: the boost target. Where the two part, the turbine cannot drive the compressor to the target at that speed.',
+  'exhaust-pressure':
+    'Drive pressure ratio: the exhaust manifold pressure over the intake manifold pressure. Above 1 the engine pumps against its own exhaust.',
+  wastegate:
+    'Right: the valve each gate needs to pass its share of the exhaust; dotted: the valve fitted. A needed valve above the fitted one means boost will creep above target.',
 };
 
 /** Every curve view of the study, one plot each, sized for paper, with one shared key. */
-export function ReportCurves({ lines, system, height, limit, exportName }: { lines: readonly StudyLine[]; system: UnitSystem; height: number; limit: number | null; exportName: string }) {
+export function ReportCurves({
+  lines,
+  system,
+  height,
+  limit,
+  exportName,
+}: {
+  lines: readonly StudyLine[];
+  system: UnitSystem;
+  height: number;
+  limit: number | null;
+  exportName: string;
+}) {
   const withExhaust = hasExhaust(lines);
   const views = curveViewsFor(withExhaust);
   return (

@@ -1,12 +1,12 @@
 import type { ReactNode } from 'react';
-import { DEFAULT_TURBINE_EFFICIENCY } from '../../../../shared/matching/exhaust';
-import { REQUIREMENT_DEFAULTS, type Requirements } from '../../../../shared/matching/requirements';
-import type { RpmTable } from '../../../../shared/matching/types';
-import type { StudyDocument } from '../../../../shared/schemas/study';
-import { formatNumber } from '../../../components/plots/quantities';
-import { planColour } from '../../../components/plots/style';
-import { formatPressureLoss, formatStudyValue, quantityUnit, type StudyQuantity } from '../../../components/study/units';
-import type { UnitSystem } from '../../../lib/units';
+import { DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
+import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/requirements';
+import type { RpmTable } from '#shared/matching/types';
+import type { StudyDocument } from '#shared/schemas/study';
+import { formatNumber } from '#src/components/plots/quantities';
+import { planColour } from '#src/components/plots/style';
+import { formatPressureLoss, formatStudyValue, quantityUnit, type StudyQuantity } from '#src/components/study/units';
+import type { UnitSystem } from '#src/lib/units';
 import { mapName, type StudyViewData } from '../study-view';
 
 /** Columns of an rpm table per printed block, so a long table wraps instead of running off the page. */
@@ -77,7 +77,9 @@ function Facts({ items }: { items: [string, ReactNode][] }) {
         <div key={label} className="flex justify-between gap-3 border-b border-paper-line/70 py-1">
           <dt className="text-ink-soft">{label}</dt>
           {/* Short values (a number and its unit) stay on one line; sentences may wrap. */}
-          <dd className={`numeric text-right font-medium text-ink ${typeof value === 'string' && value.length <= 24 ? 'shrink-0 whitespace-nowrap' : ''}`}>{value}</dd>
+          <dd className={`numeric text-right font-medium text-ink ${typeof value === 'string' && value.length <= 24 ? 'shrink-0 whitespace-nowrap' : ''}`}>
+            {value}
+          </dd>
         </div>
       ))}
     </dl>
@@ -121,7 +123,10 @@ function ExhaustInputs({ data, system }: { data: Pick<StudyViewData, 'document' 
   const plans = data.document.plans;
   const v = (value: unknown, quantity: StudyQuantity) => formatStudyValue(value, quantity, system);
   const rows: { label: string; value: (plan: Plan, exhaust: Exhaust) => string }[] = [
-    { label: 'Turbine map', value: (plan) => (plan.turbineMapId ? mapName(plan.turbineMapId, data.mapsById, data.mapNames) : 'None (exhaust side not computed)') },
+    {
+      label: 'Turbine map',
+      value: (plan) => (plan.turbineMapId ? mapName(plan.turbineMapId, data.mapsById, data.mapNames) : 'None (exhaust side not computed)'),
+    },
     { label: 'Turbine housing', value: (_, x) => housingText(x.housing) },
     { label: 'Wastegates', value: (_, x) => `${x.wastegates.count} × ${v(x.wastegates.valveDiameter, 'diameter')} valve` },
     { label: 'Valve discharge coefficient', value: (_, x) => formatNumber(x.wastegates.dischargeCoefficient, 3) },
@@ -210,7 +215,10 @@ const REQUIREMENT_ROWS: { key: keyof Requirements; label: string; quantity: Stud
 function requirementFacts(set: StudyDocument['requirements'], system: UnitSystem): [string, ReactNode][] {
   return REQUIREMENT_ROWS.map(({ key, label, quantity }) => {
     const value = set?.[key];
-    return [label, value !== undefined ? formatStudyValue(value, quantity, system) : `${formatStudyValue(REQUIREMENT_DEFAULTS[key], quantity, system)} (default)`];
+    return [
+      label,
+      value !== undefined ? formatStudyValue(value, quantity, system) : `${formatStudyValue(REQUIREMENT_DEFAULTS[key], quantity, system)} (default)`,
+    ];
   });
 }
 
@@ -236,7 +244,8 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
   ];
   if (e.limits?.maxRpm !== undefined) engineFacts.push(['Engine speed limit', v(e.limits.maxRpm, 'speed')]);
   if (e.limits?.maxManifoldPressure !== undefined) engineFacts.push(['Manifold pressure limit (absolute)', v(e.limits.maxManifoldPressure, 'pressure')]);
-  if (e.limits?.maxCompressorOutletTemperature !== undefined) engineFacts.push(['Compressor outlet temperature limit', v(e.limits.maxCompressorOutletTemperature, 'temperature')]);
+  if (e.limits?.maxCompressorOutletTemperature !== undefined)
+    engineFacts.push(['Compressor outlet temperature limit', v(e.limits.maxCompressorOutletTemperature, 'temperature')]);
 
   const f = doc.fuelSystem;
   const inj = f.injectors;
@@ -323,7 +332,11 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
                 {s.boostSchedule.map((row, j) => (
                   <RpmTableView
                     key={j}
-                    caption={rowKindText(row.kind, row.gear) === row.label ? `Boost row: ${row.label}` : `Boost row: ${row.label} (${rowKindText(row.kind, row.gear).toLowerCase()})`}
+                    caption={
+                      rowKindText(row.kind, row.gear) === row.label
+                        ? `Boost row: ${row.label}`
+                        : `Boost row: ${row.label} (${rowKindText(row.kind, row.gear).toLowerCase()})`
+                    }
                     valueLabel="Boost"
                     table={row.boost}
                     quantity="pressureGauge"
@@ -339,12 +352,24 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
         <table className="w-full border-collapse text-left text-sm">
           <thead className="border-b-2 border-ink/20 text-xs uppercase tracking-wider text-ink-soft">
             <tr>
-              <th scope="col" className="px-2 py-1.5">Plan</th>
-              <th scope="col" className="px-2 py-1.5">Compressor map</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Turbochargers</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Default efficiency</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Off-map efficiency (assumption)</th>
-              <th scope="col" className="px-2 py-1.5 text-right">Shaft speed limit</th>
+              <th scope="col" className="px-2 py-1.5">
+                Plan
+              </th>
+              <th scope="col" className="px-2 py-1.5">
+                Compressor map
+              </th>
+              <th scope="col" className="px-2 py-1.5 text-right">
+                Turbochargers
+              </th>
+              <th scope="col" className="px-2 py-1.5 text-right">
+                Default efficiency
+              </th>
+              <th scope="col" className="px-2 py-1.5 text-right">
+                Off-map efficiency (assumption)
+              </th>
+              <th scope="col" className="px-2 py-1.5 text-right">
+                Shaft speed limit
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-paper-line">
@@ -359,7 +384,9 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
                 <td className="px-2 py-1.5">{plan.compressorMapId ? mapName(plan.compressorMapId, data.mapsById, data.mapNames) : 'None'}</td>
                 <td className="numeric px-2 py-1.5 text-right">{plan.turbochargers}</td>
                 <td className="numeric px-2 py-1.5 text-right">{v(plan.compressorEfficiency, 'fraction')}</td>
-                <td className="numeric px-2 py-1.5 text-right">{plan.offMapEfficiency !== undefined ? v(plan.offMapEfficiency, 'fraction') : 'None: off the map is not reachable'}</td>
+                <td className="numeric px-2 py-1.5 text-right">
+                  {plan.offMapEfficiency !== undefined ? v(plan.offMapEfficiency, 'fraction') : 'None: off the map is not reachable'}
+                </td>
                 <td className="numeric px-2 py-1.5 text-right">{plan.maxShaftSpeed !== undefined ? v(plan.maxShaftSpeed, 'speed') : 'From the map'}</td>
               </tr>
             ))}

@@ -1,17 +1,17 @@
 import { useEffect, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { Link } from 'react-router';
-import { BrandMark, BrandWord } from '../../../components/Brand';
-import { Button, buttonClass } from '../../../components/Button';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
-import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
-import { mapLineViews, turbineLineViews } from '../../../components/study/lines';
-import { ExhaustSummary } from '../../../components/study/ExhaustSummary';
-import { PlanVerdicts } from '../../../components/study/PlanVerdicts';
-import { StudyCaution } from '../../../components/study/StudyCaution';
-import { useDocumentTitle } from '../../../components/Page';
-import { formatDateTime } from '../../../lib/format';
-import type { UnitSystem } from '../../../lib/units';
-import { unitSystemNames } from '../../../lib/units';
+import { BrandMark, BrandWord } from '#src/components/Brand';
+import { Button, buttonClass } from '#src/components/Button';
+import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
+import { mapLineViews, turbineLineViews } from '#src/components/study/lines';
+import { ExhaustSummary } from '#src/components/study/ExhaustSummary';
+import { PlanVerdicts } from '#src/components/study/PlanVerdicts';
+import { StudyCaution } from '#src/components/study/StudyCaution';
+import { useDocumentTitle } from '#src/components/Page';
+import { formatDateTime } from '#src/lib/format';
+import type { UnitSystem } from '#src/lib/units';
+import { unitSystemNames } from '#src/lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { Assumptions } from './Assumptions';
 import { ExhaustNotes } from './ExhaustNotes';
@@ -105,7 +105,9 @@ export function StudyReport({
         </Link>
         <div className="flex items-center gap-3">
           <span className="text-sm text-ink-soft" role="status">
-            {ready ? 'Prints on A4 or Letter; choose “Save as PDF” in the print dialog for a file.' : `Drawing the plots for paper: ${drawnPlots} of ${expectedPlots}…`}
+            {ready
+              ? 'Prints on A4 or Letter; choose “Save as PDF” in the print dialog for a file.'
+              : `Drawing the plots for paper: ${drawnPlots} of ${expectedPlots}…`}
           </span>
           <Button variant="primary" onClick={() => window.print()} disabled={!ready} pending={!ready}>
             Print
@@ -166,9 +168,9 @@ export function StudyReport({
 
         <ReportSection id="maps" title="3. Compressor maps with every operating line">
           <p className="text-sm text-ink-soft">
-            Each plan is drawn on its own compressor map. Colour and marker tell the plans apart, the line dash the scenarios; a point
-            ringed in red crosses a limit, in copper raises a warning; a hollow point with a cross is one the compressor cannot deliver
-            (not reachable), placed where the engine asks to be.
+            Each plan is drawn on its own compressor map. Colour and marker tell the plans apart, the line dash the scenarios; a point ringed in red crosses a
+            limit, in copper raises a warning; a hollow point with a cross is one the compressor cannot deliver (not reachable), placed where the engine asks to
+            be.
           </p>
           {computed.groups.map((g) => (
             <figure key={g.key} className="report-figure space-y-1">
@@ -183,8 +185,8 @@ export function StudyReport({
         {withTurbine && (
           <ReportSection id="turbine-maps" title="4. Turbine maps with every operating line">
             <p className="text-sm text-ink-soft">
-              The plans with an exhaust side, each on its own turbine map: expansion ratio across the turbine against the flow it swallows. Points
-              below the boost threshold run with the gates shut; above it the gates pass the rest of the exhaust.
+              The plans with an exhaust side, each on its own turbine map: expansion ratio across the turbine against the flow it swallows. Points below the
+              boost threshold run with the gates shut; above it the gates pass the rest of the exhaust.
             </p>
             {turbineGroups.map((g) =>
               g.map ? (
@@ -192,11 +194,18 @@ export function StudyReport({
                   <figcaption className="text-sm font-semibold text-ink">
                     {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
                   </figcaption>
-                  <TurbineMapPlot map={g.map} lines={turbineLineViews(g.lines)} unitSystem={system} height={TURBINE_MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
+                  <TurbineMapPlot
+                    map={g.map}
+                    lines={turbineLineViews(g.lines)}
+                    unitSystem={system}
+                    height={TURBINE_MAP_HEIGHT}
+                    exportName={`${data.title} ${g.title}`}
+                  />
                 </figure>
               ) : (
                 <p key={g.key} className="text-sm text-copper-ink">
-                  {g.planNames.join(', ')}: no turbine map could be used, so the exhaust side of {g.planNames.length === 1 ? 'this plan' : 'these plans'} is not computed.
+                  {g.planNames.join(', ')}: no turbine map could be used, so the exhaust side of {g.planNames.length === 1 ? 'this plan' : 'these plans'} is not
+                  computed.
                 </p>
               ),
             )}
@@ -215,8 +224,8 @@ export function StudyReport({
 
         <ReportSection id="results" title={`${n(6)}. Results by operating point`}>
           <p className="text-sm text-ink-soft">
-            Every point of every operating line. Columns continue in the table under each one; boost is gauge, other pressures absolute. A
-            red “!” marks a point that crosses a limit; where the compressor cannot deliver a point, its results read “not reachable”.
+            Every point of every operating line. Columns continue in the table under each one; boost is gauge, other pressures absolute. A red “!” marks a point
+            that crosses a limit; where the compressor cannot deliver a point, its results read “not reachable”.
           </p>
           <PrintResults lines={computed.lines} system={system} />
         </ReportSection>

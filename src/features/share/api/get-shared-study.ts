@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { SpoolbookMap } from '../../../../shared/maps/types';
-import { spoolbookMapSchema } from '../../../../shared/schemas/map';
-import { migrateStudyDocument, sharedStudySchema, studyDocumentSchema, type StudyDocument } from '../../../../shared/schemas/study';
-import { api, ApiError, segment } from '../../../lib/api-client';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { spoolbookMapSchema } from '#shared/schemas/map';
+import { migrateStudyDocument, sharedStudySchema, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { api, ApiError, segment } from '#src/lib/api-client';
 
 /** A study opened through a share link: the document checked by the shared schema, and its maps. */
 export interface SharedStudy {

@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
-import { BrandMark, BrandWord } from '../../../components/Brand';
-import { SkipLink } from '../../../components/Nav';
-import { paths } from '../../../lib/paths';
-import type { UnitSystem } from '../../../lib/units';
+import { BrandMark, BrandWord } from '#src/components/Brand';
+import { SkipLink } from '#src/components/Nav';
+import { paths } from '#src/lib/paths';
+import type { UnitSystem } from '#src/lib/units';
 
 /** SI or US customary for whoever opened the link (not remembered: they may not have an account). */
 export function ViewerUnitSwitch({ value, onChange }: { value: UnitSystem; onChange: (system: UnitSystem) => void }) {
@@ -56,8 +56,7 @@ export function LinkGone() {
     <div className="mx-auto max-w-xl space-y-4 py-10 text-center" data-testid="share-link-gone">
       <h1 className="text-3xl font-semibold tracking-tight text-ink">This shared study is not available</h1>
       <p className="text-ink-soft">
-        The link was revoked by the team, it expired, or it was copied incompletely. Nothing is wrong on your side: ask whoever sent it
-        for a new link.
+        The link was revoked by the team, it expired, or it was copied incompletely. Nothing is wrong on your side: ask whoever sent it for a new link.
       </p>
       <p>
         <Link to={paths.signIn.href()}>Sign in to Spoolbook</Link> if you are a member of the team.

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { shareLinkSchema, type createShareLinkSchema } from '../../../../shared/schemas/study';
-import { api } from '../../../lib/api-client';
+import { shareLinkSchema, type createShareLinkSchema } from '#shared/schemas/study';
+import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 export type CreateShareLinkInput = z.input<typeof createShareLinkSchema>;

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { createStudySchema } from '../../../../shared/schemas/study';
-import { api } from '../../../lib/api-client';
+import type { createStudySchema } from '#shared/schemas/study';
+import { api } from '#src/lib/api-client';
 import { studyResponseSchema } from './get-study';
 import { studiesUrl, studyKeys } from './keys';
 

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 export function deleteStudy(teamId: string, studyId: string) {

@@ -1,9 +1,9 @@
 import { queryOptions, useQueries, type UseQueryResult } from '@tanstack/react-query';
 import { useCallback } from 'react';
 import { z } from 'zod';
-import { spoolbookMapSchema } from '../../../../shared/schemas/map';
-import type { SpoolbookMap } from '../../../../shared/maps/types';
-import { api } from '../../../lib/api-client';
+import { spoolbookMapSchema } from '#shared/schemas/map';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { api } from '#src/lib/api-client';
 import { studyKeys } from './keys';
 
 const mapResponseSchema = z.object({

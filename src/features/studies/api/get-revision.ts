@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { revisionDetailSchema } from '../../../../shared/schemas/study';
-import { api } from '../../../lib/api-client';
+import { revisionDetailSchema } from '#shared/schemas/study';
+import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 const revisionResponseSchema = z.object({ revision: revisionDetailSchema });

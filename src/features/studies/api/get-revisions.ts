@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { revisionSummarySchema } from '../../../../shared/schemas/study';
-import { api } from '../../../lib/api-client';
+import { revisionSummarySchema } from '#shared/schemas/study';
+import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 const revisionsResponseSchema = z.object({ revisions: z.array(revisionSummarySchema) });

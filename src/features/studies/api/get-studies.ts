@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { studyListSchema } from '../../../../shared/schemas/study';
-import { api } from '../../../lib/api-client';
+import { studyListSchema } from '#shared/schemas/study';
+import { api } from '#src/lib/api-client';
 import { studiesUrl, studyKeys } from './keys';
 
 /** What the study list asks for: search text, author id, archived filter and page (1-based). */

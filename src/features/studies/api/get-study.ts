@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { studyDetailSchema } from '../../../../shared/schemas/study';
-import { api } from '../../../lib/api-client';
+import { studyDetailSchema } from '#shared/schemas/study';
+import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 export const studyResponseSchema = z.object({ study: studyDetailSchema });

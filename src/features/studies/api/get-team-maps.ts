@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { api } from '../../../lib/api-client';
+import { api } from '#src/lib/api-client';
 import { studyKeys } from './keys';
 
 /** A row of the team's map library as a plan's map picker needs it. */

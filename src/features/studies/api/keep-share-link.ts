@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { keepShareLinkSchema } from '../../../../shared/schemas/study';
-import { api } from '../../../lib/api-client';
+import { keepShareLinkSchema } from '#shared/schemas/study';
+import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 const keepShareLinkResponseSchema = z.object({ kept: z.boolean() });

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api, type ApiError } from '../../../lib/api-client';
-import type { StudyDetail } from '../../../../shared/schemas/study';
+import { api, type ApiError } from '#src/lib/api-client';
+import type { StudyDetail } from '#shared/schemas/study';
 import { studyResponseSchema } from './get-study';
 import { studyKeys, studyUrl } from './keys';
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { studyDetailSchema, type saveStudySchema, type StudyDetail } from '../../../../shared/schemas/study';
-import { api, isApiError, type ApiError } from '../../../lib/api-client';
+import { studyDetailSchema, type saveStudySchema, type StudyDetail } from '#shared/schemas/study';
+import { api, isApiError, type ApiError } from '#src/lib/api-client';
 import { studyResponseSchema } from './get-study';
 import { studyKeys, studyUrl } from './keys';
 

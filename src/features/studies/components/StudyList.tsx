@@ -1,14 +1,14 @@
 import { useEffect, useId, useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router';
-import type { StudySummary } from '../../../../shared/schemas/study';
-import { Alert } from '../../../components/Alert';
-import { Badge } from '../../../components/Badge';
-import { Button } from '../../../components/Button';
-import { ConfirmButton } from '../../../components/ConfirmButton';
-import { Loading, Page } from '../../../components/Page';
-import { inputClass } from '../../../components/TextField';
-import { formatDateTime } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
+import type { StudySummary } from '#shared/schemas/study';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { Button } from '#src/components/Button';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { Loading, Page } from '#src/components/Page';
+import { inputClass } from '#src/components/TextField';
+import { formatDateTime } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
 import { useCreateStudy } from '../api/create-study';
 import { useDeleteStudy } from '../api/delete-study';
 import { useDuplicateStudy } from '../api/duplicate-study';
@@ -94,7 +94,12 @@ function StudyActions({ teamId, study }: { teamId: string; study: StudySummary }
       <Button variant="quiet" onClick={() => setDialog('duplicate')} aria-label={`Duplicate ${study.title}`}>
         Duplicate
       </Button>
-      <Button variant="quiet" onClick={toggleArchived} pending={rename.isPending && rename.variables?.archived !== undefined} aria-label={`${study.archived ? 'Bring back' : 'Archive'} ${study.title}`}>
+      <Button
+        variant="quiet"
+        onClick={toggleArchived}
+        pending={rename.isPending && rename.variables?.archived !== undefined}
+        aria-label={`${study.archived ? 'Bring back' : 'Archive'} ${study.title}`}
+      >
         {study.archived ? 'Bring back' : 'Archive'}
       </Button>
       <ConfirmButton
@@ -184,7 +189,12 @@ export function StudyList({ teamId }: { teamId: string }) {
           <label htmlFor={archivedId} className="block text-sm font-semibold text-ink">
             Show
           </label>
-          <select id={archivedId} value={params.archived} onChange={(e) => setParams({ archived: e.target.value as Archived })} className={`${inputClass} pr-8`}>
+          <select
+            id={archivedId}
+            value={params.archived}
+            onChange={(e) => setParams({ archived: e.target.value as Archived })}
+            className={`${inputClass} pr-8`}
+          >
             {ARCHIVED_OPTIONS.map((o) => (
               <option key={o.value} value={o.value}>
                 {o.label}
@@ -207,7 +217,9 @@ export function StudyList({ teamId }: { teamId: string }) {
           ) : (
             <>
               <p className="font-semibold text-ink">No studies in this team yet.</p>
-              <p className="mt-1">{access.canEdit ? 'Start one from the demo hill-climb study with “New study”.' : 'Owners and editors of the team can start one.'}</p>
+              <p className="mt-1">
+                {access.canEdit ? 'Start one from the demo hill-climb study with “New study”.' : 'Owners and editors of the team can start one.'}
+              </p>
             </>
           )}
         </div>

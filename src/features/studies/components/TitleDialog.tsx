@@ -1,11 +1,11 @@
 import { useEffect, useId, useState, type ReactNode } from 'react';
-import { studyTitleSchema } from '../../../../shared/schemas/study';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Dialog } from '../../../components/Dialog';
-import { TextField } from '../../../components/TextField';
-import { isApiError } from '../../../lib/api-client';
-import { asSentence } from '../../../lib/forms';
+import { studyTitleSchema } from '#shared/schemas/study';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Dialog } from '#src/components/Dialog';
+import { TextField } from '#src/components/TextField';
+import { isApiError } from '#src/lib/api-client';
+import { asSentence } from '#src/lib/forms';
 
 /**
  * Asks for a study title (new study, rename, duplicate, keep my version as a copy), checks it

@@ -1,5 +1,5 @@
-import type { Role } from '../../../../shared/schemas/account';
-import { useMe } from '../../../lib/session';
+import type { Role } from '#shared/schemas/account';
+import { useMe } from '#src/lib/session';
 
 /**
  * The signed-in user's place in a team, from `me`: its name and their role. Owners and editors

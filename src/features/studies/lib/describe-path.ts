@@ -1,6 +1,5 @@
-import { FIELD_WORDS } from '../../../../shared/study/diff';
+import { FIELD_WORDS } from '#shared/study/diff';
 import { getIn } from './draft';
-
 
 /**
  * A dotted document path in words for the list of problems: `scenarios.1.boostSchedule.0.boost.2.value`

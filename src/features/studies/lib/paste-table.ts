@@ -6,9 +6,7 @@
  * separator. Values stay in the units the user sees; the caller converts.
  */
 export type PastedTable =
-  | { ok: true; kind: 'values'; values: number[] }
-  | { ok: true; kind: 'rows'; rows: { rpm: number; value: number }[] }
-  | { ok: false; message: string };
+  { ok: true; kind: 'values'; values: number[] } | { ok: true; kind: 'rows'; rows: { rpm: number; value: number }[] } | { ok: false; message: string };
 
 function splitLine(line: string): { cells: string[]; commaIsDecimal: boolean } {
   if (line.includes('\t')) return { cells: line.split('\t'), commaIsDecimal: true };
@@ -56,7 +54,8 @@ export function parsePastedTable(text: string): PastedTable {
   if (width === 1) return { ok: true, kind: 'values', values: body.map((r) => r.numbers[0]!) };
   const rows = body.map((r) => ({ rpm: r.numbers[0]!, value: r.numbers[1]! }));
   for (let i = 1; i < rows.length; i++) {
-    if (!(rows[i].rpm > rows[i - 1].rpm)) return { ok: false, message: `The rpm column must increase from line to line (${rows[i - 1].rpm} then ${rows[i].rpm}).` };
+    if (!(rows[i].rpm > rows[i - 1].rpm))
+      return { ok: false, message: `The rpm column must increase from line to line (${rows[i - 1].rpm} then ${rows[i].rpm}).` };
   }
   return { ok: true, kind: 'rows', rows };
 }
@@ -68,11 +67,20 @@ export type RpmRows = { rpm: number; value: number }[];
  * Puts a pasted table into `rows`: two columns replace the table; one column fills the values
  * from row `start` down, keeping each row's rpm. `toSI` converts a value from the shown unit.
  */
-export function applyPaste(rows: RpmRows, pasted: PastedTable, start: number, toSI: (shown: number) => number): { ok: true; rows: RpmRows; summary: string } | { ok: false; message: string } {
+export function applyPaste(
+  rows: RpmRows,
+  pasted: PastedTable,
+  start: number,
+  toSI: (shown: number) => number,
+): { ok: true; rows: RpmRows; summary: string } | { ok: false; message: string } {
   if (!pasted.ok) return pasted;
   if (pasted.kind === 'rows') {
     const n = pasted.rows.length;
-    return { ok: true, rows: pasted.rows.map((r) => ({ rpm: r.rpm, value: toSI(r.value) })), summary: `The table now has the ${n} pasted row${n === 1 ? '' : 's'}.` };
+    return {
+      ok: true,
+      rows: pasted.rows.map((r) => ({ rpm: r.rpm, value: toSI(r.value) })),
+      summary: `The table now has the ${n} pasted row${n === 1 ? '' : 's'}.`,
+    };
   }
   const room = rows.length - start;
   if (pasted.values.length > room) {

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api, segment } from '../../../lib/api-client';
+import { api, segment } from '#src/lib/api-client';
 import { teamQueryOptions } from './get-team';
 
 export function cancelInvitation(teamId: string, invitationId: string) {

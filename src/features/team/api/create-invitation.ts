@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { createInvitationSchema, invitationSchema } from '../../../../shared/schemas/account';
-import { api, segment } from '../../../lib/api-client';
+import { type createInvitationSchema, invitationSchema } from '#shared/schemas/account';
+import { api, segment } from '#src/lib/api-client';
 import { teamQueryOptions } from './get-team';
 
 export type CreateInvitationInput = z.infer<typeof createInvitationSchema>;

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { createTeamSchema, teamSummarySchema } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
-import { meQueryOptions } from '../../../lib/session';
+import { type createTeamSchema, teamSummarySchema } from '#shared/schemas/account';
+import { api } from '#src/lib/api-client';
+import { meQueryOptions } from '#src/lib/session';
 import { teamsQueryOptions } from './get-teams';
 
 export type CreateTeamInput = z.infer<typeof createTeamSchema>;

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { importResultSchema } from '../../../../shared/schemas/account';
-import { api, segment } from '../../../lib/api-client';
+import { importResultSchema } from '#shared/schemas/account';
+import { api, segment } from '#src/lib/api-client';
 
 /** The address of a team's archive download (a plain link: the browser saves the file). */
 export function exportArchiveHref(teamId: string) {

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api, segment } from '../../../lib/api-client';
-import { meQueryOptions } from '../../../lib/session';
+import { api, segment } from '#src/lib/api-client';
+import { meQueryOptions } from '#src/lib/session';
 import { teamsQueryOptions } from './get-teams';
 
 export function leaveTeam(teamId: string) {

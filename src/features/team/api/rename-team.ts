@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { renameTeamSchema, teamSummarySchema } from '../../../../shared/schemas/account';
-import { api, segment } from '../../../lib/api-client';
-import { meQueryOptions } from '../../../lib/session';
+import { type renameTeamSchema, teamSummarySchema } from '#shared/schemas/account';
+import { api, segment } from '#src/lib/api-client';
+import { meQueryOptions } from '#src/lib/session';
 import { teamQueryOptions } from './get-team';
 import { teamsQueryOptions } from './get-teams';
 

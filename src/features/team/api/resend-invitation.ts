@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { invitationSchema } from '../../../../shared/schemas/account';
-import { api, segment } from '../../../lib/api-client';
+import { invitationSchema } from '#shared/schemas/account';
+import { api, segment } from '#src/lib/api-client';
 import { teamQueryOptions } from './get-team';
 
 const invitationResponseSchema = z.object({ invitation: invitationSchema });

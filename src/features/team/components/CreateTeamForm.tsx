@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { createTeamSchema, type TeamSummary } from '../../../../shared/schemas/account';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { TextField } from '../../../components/TextField';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
+import { createTeamSchema, type TeamSummary } from '#shared/schemas/account';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { TextField } from '#src/components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
 import { useCreateTeam } from '../api/create-team';
 
 const FIELDS = ['name'] as const;

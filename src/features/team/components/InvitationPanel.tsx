@@ -1,14 +1,14 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router';
-import type { InvitationPreview, TeamSummary } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Card } from '../../../components/Card';
-import { Loading, Page } from '../../../components/Page';
-import { isApiError } from '../../../lib/api-client';
-import { formatDateTime, roleAbilities, roleNames } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
-import { useMe } from '../../../lib/session';
+import type { InvitationPreview, TeamSummary } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Card } from '#src/components/Card';
+import { Loading, Page } from '#src/components/Page';
+import { isApiError } from '#src/lib/api-client';
+import { formatDateTime, roleAbilities, roleNames } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
+import { useMe } from '#src/lib/session';
 import { useAcceptInvitation } from '../api/accept-invitation';
 import { useInvitation } from '../api/get-invitation';
 
@@ -39,11 +39,7 @@ export function InvitationPanel({
     return (
       <Page title="Invitation" width="narrow">
         <Alert tone="error" title={gone ? 'This invitation link no longer works' : 'Could not load the invitation'}>
-          <p>
-            {gone
-              ? 'It was already used or cancelled, or it has expired. Ask the team owner to send a new one.'
-              : invitation.error.message}
-          </p>
+          <p>{gone ? 'It was already used or cancelled, or it has expired. Ask the team owner to send a new one.' : invitation.error.message}</p>
           {me.data && (
             <p>
               <Link to={paths.teams.href()}>Go to your teams</Link>
@@ -63,9 +59,7 @@ export function InvitationPanel({
       <InvitationSummary preview={preview} />
       {user === null && signedOutActions(preview.email)}
       {user !== null && sameAddress && <AcceptCard token={token} preview={preview} onAccepted={onAccepted} signOutButton={signOutButton} />}
-      {user !== null && !sameAddress && (
-        <WrongAccount invitedEmail={preview.email} signedInEmail={user.email} signOutButton={signOutButton} />
-      )}
+      {user !== null && !sameAddress && <WrongAccount invitedEmail={preview.email} signedInEmail={user.email} signOutButton={signOutButton} />}
     </Page>
   );
 }
@@ -124,15 +118,7 @@ function AcceptCard({
   );
 }
 
-function WrongAccount({
-  invitedEmail,
-  signedInEmail,
-  signOutButton,
-}: {
-  invitedEmail: string;
-  signedInEmail: string | null;
-  signOutButton: ReactNode;
-}) {
+function WrongAccount({ invitedEmail, signedInEmail, signOutButton }: { invitedEmail: string; signedInEmail: string | null; signOutButton: ReactNode }) {
   return (
     <Card title="Signed in with another address">
       <div className="space-y-4">

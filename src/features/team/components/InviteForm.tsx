@@ -1,12 +1,12 @@
 import { useState } from 'react';
-import { createInvitationSchema } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { Form, FormActions } from '../../../components/Form';
-import { SelectField } from '../../../components/SelectField';
-import { TextField } from '../../../components/TextField';
-import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '../../../lib/forms';
-import { roleAbilities } from '../../../lib/format';
+import { createInvitationSchema } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Form, FormActions } from '#src/components/Form';
+import { SelectField } from '#src/components/SelectField';
+import { TextField } from '#src/components/TextField';
+import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
+import { roleAbilities } from '#src/lib/format';
 import { useCreateInvitation } from '../api/create-invitation';
 import { roleOptions } from './MembersTable';
 

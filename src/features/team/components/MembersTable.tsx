@@ -1,13 +1,13 @@
 import { useState } from 'react';
-import { roleSchema, type Member, type Role } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Badge } from '../../../components/Badge';
-import { Button } from '../../../components/Button';
-import { ConfirmButton } from '../../../components/ConfirmButton';
-import { SelectField } from '../../../components/SelectField';
-import { Table, td, th } from '../../../components/Table';
-import { isApiError } from '../../../lib/api-client';
-import { formatDateTime, roleNames } from '../../../lib/format';
+import { roleSchema, type Member, type Role } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { Button } from '#src/components/Button';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { SelectField } from '#src/components/SelectField';
+import { Table, td, th } from '#src/components/Table';
+import { isApiError } from '#src/lib/api-client';
+import { formatDateTime, roleNames } from '#src/lib/format';
 import { useChangeRole } from '../api/change-role';
 import { useRemoveMember } from '../api/remove-member';
 

@@ -1,9 +1,9 @@
-import type { Invitation } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { ConfirmButton } from '../../../components/ConfirmButton';
-import { Table, td, th } from '../../../components/Table';
-import { formatDateTime, roleNames } from '../../../lib/format';
+import type { Invitation } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { Table, td, th } from '#src/components/Table';
+import { formatDateTime, roleNames } from '#src/lib/format';
 import { useCancelInvitation } from '../api/cancel-invitation';
 import { useResendInvitation } from '../api/resend-invitation';
 
@@ -57,11 +57,7 @@ function InvitationRow({ teamId, invitation }: { teamId: string; invitation: Inv
       </td>
       <td className={`${td} text-right`}>
         <div className="flex flex-wrap justify-end gap-2">
-          <Button
-            pending={resend.isPending}
-            onClick={() => resend.mutate(invitation.id)}
-            aria-label={`Resend link to ${invitation.email}`}
-          >
+          <Button pending={resend.isPending} onClick={() => resend.mutate(invitation.id)} aria-label={`Resend link to ${invitation.email}`}>
             Resend
           </Button>
           <ConfirmButton

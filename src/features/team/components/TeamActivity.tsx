@@ -1,7 +1,7 @@
-import type { AuditEventView } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Table, td, th } from '../../../components/Table';
-import { formatDateTime } from '../../../lib/format';
+import type { AuditEventView } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Table, td, th } from '#src/components/Table';
+import { formatDateTime } from '#src/lib/format';
 import { useAudit } from '../api/get-audit';
 
 const actionWords: Record<string, string> = {

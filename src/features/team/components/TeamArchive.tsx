@@ -1,9 +1,9 @@
 import { useState, type FormEvent } from 'react';
 import { z } from 'zod';
-import { importProblemSchema } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Button, buttonClass } from '../../../components/Button';
-import { isApiError } from '../../../lib/api-client';
+import { importProblemSchema } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Button, buttonClass } from '#src/components/Button';
+import { isApiError } from '#src/lib/api-client';
 import { exportArchiveHref, useImportArchive } from '../api/import-archive';
 
 const problemsSchema = z.object({ problems: z.array(importProblemSchema) });
@@ -12,7 +12,7 @@ const problemsSchema = z.object({ problems: z.array(importProblemSchema) });
 export function TeamArchive({ teamId }: { teamId: string }) {
   const importer = useImportArchive(teamId);
   const [file, setFile] = useState<File | null>(null);
-  const problems = isApiError(importer.error) ? problemsSchema.safeParse(importer.error.details).data?.problems ?? [] : [];
+  const problems = isApiError(importer.error) ? (problemsSchema.safeParse(importer.error.details).data?.problems ?? []) : [];
 
   function submit(event: FormEvent) {
     event.preventDefault();
@@ -22,9 +22,7 @@ export function TeamArchive({ teamId }: { teamId: string }) {
   return (
     <div className="space-y-5">
       <div className="space-y-2">
-        <p className="text-sm text-ink-soft">
-          One JSON file with every map of the team (with its original file) and every study with its whole history.
-        </p>
+        <p className="text-sm text-ink-soft">One JSON file with every map of the team (with its original file) and every study with its whole history.</p>
         <a className={buttonClass('secondary')} href={exportArchiveHref(teamId)} download>
           Download team archive
         </a>

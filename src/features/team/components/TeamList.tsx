@@ -1,8 +1,8 @@
 import { Link } from 'react-router';
-import type { TeamSummary } from '../../../../shared/schemas/account';
-import { Badge } from '../../../components/Badge';
-import { roleNames } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
+import type { TeamSummary } from '#shared/schemas/account';
+import { Badge } from '#src/components/Badge';
+import { roleNames } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
 
 /** The teams the user belongs to, each a link to its page. */
 export function TeamList({ teams }: { teams: readonly TeamSummary[] }) {

@@ -1,8 +1,8 @@
 import { Link } from 'react-router';
-import type { TeamSummary } from '../../../../shared/schemas/account';
-import { Alert } from '../../../components/Alert';
-import { Switch } from '../../../components/Switch';
-import { paths } from '../../../lib/paths';
+import type { TeamSummary } from '#shared/schemas/account';
+import { Alert } from '#src/components/Alert';
+import { Switch } from '#src/components/Switch';
+import { paths } from '#src/lib/paths';
 import { useSetTeamTwoFactor } from '../api/set-team-two-factor';
 
 const whatMembersSee =
@@ -44,7 +44,8 @@ function OwnerSwitch({ teamId, required, ownerHasSecondFactor }: { teamId: strin
       />
       {blocked && (
         <p className="text-sm text-ink-soft">
-          Turn on your own second factor first, so that the rule cannot lock you out: <Link to={paths.settings.href('second-factor')}>set up a second factor</Link>.
+          Turn on your own second factor first, so that the rule cannot lock you out:{' '}
+          <Link to={paths.settings.href('second-factor')}>set up a second factor</Link>.
         </p>
       )}
       {setRule.isError && <Alert tone="error">{setRule.error.message}</Alert>}

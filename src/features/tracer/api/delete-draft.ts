@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api } from '#src/lib/api-client';
 import { draftUrl, tracerKeys } from './keys';
 
 /** Deletes a trace in progress (its picture too, unless a saved map keeps it). */

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { draftResponseSchema } from '../../../../shared/tracer/api';
-import { api } from '../../../lib/api-client';
+import { draftResponseSchema } from '#shared/tracer/api';
+import { api } from '#src/lib/api-client';
 import { draftUrl, tracerKeys } from './keys';
 
 /** One trace in progress with its whole state. */

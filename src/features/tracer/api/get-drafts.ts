@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { draftsResponseSchema } from '../../../../shared/tracer/api';
-import { api } from '../../../lib/api-client';
+import { draftsResponseSchema } from '#shared/tracer/api';
+import { api } from '#src/lib/api-client';
 import { tracerKeys, tracerUrl } from './keys';
 
 /** The team's traces in progress, last changed first. */

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { imagesResponseSchema } from '../../../../shared/tracer/api';
-import { api } from '../../../lib/api-client';
+import { imagesResponseSchema } from '#shared/tracer/api';
+import { api } from '#src/lib/api-client';
 import { tracerKeys, tracerUrl } from './keys';
 
 /** The team's pictures, newest first (each says which map, if any, was traced from it). */

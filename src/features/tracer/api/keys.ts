@@ -1,4 +1,4 @@
-import { segment } from '../../../lib/api-client';
+import { segment } from '#src/lib/api-client';
 
 /** Query keys of the Tracer, one tree per team. */
 export const tracerKeys = {

@@ -1,6 +1,6 @@
-import { draftDetailSchema, draftResponseSchema, type DraftDetail } from '../../../../shared/tracer/api';
-import type { TraceState } from '../../../../shared/tracer/state';
-import { api, isApiError } from '../../../lib/api-client';
+import { draftDetailSchema, draftResponseSchema, type DraftDetail } from '#shared/tracer/api';
+import type { TraceState } from '#shared/tracer/state';
+import { api, isApiError } from '#src/lib/api-client';
 import { draftUrl } from './keys';
 
 /** Stores the state as the draft's next revision; a 409 `stale_revision` means someone saved first. */

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { savedToLibraryResponseSchema } from '../../../../shared/tracer/api';
-import type { TraceState } from '../../../../shared/tracer/state';
-import { api } from '../../../lib/api-client';
+import { savedToLibraryResponseSchema } from '#shared/tracer/api';
+import type { TraceState } from '#shared/tracer/state';
+import { api } from '#src/lib/api-client';
 import { draftUrl, tracerKeys } from './keys';
 
 /**

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { draftResponseSchema, imageResponseSchema } from '../../../../shared/tracer/api';
-import { api } from '../../../lib/api-client';
+import { draftResponseSchema, imageResponseSchema } from '#shared/tracer/api';
+import { api } from '#src/lib/api-client';
 import { tracerKeys, tracerUrl } from './keys';
 
 /** Sends one picture (multipart, the field `file` and nothing else); the server checks its bytes again. */

@@ -1,8 +1,8 @@
-import type { TraceBuild } from '../../../../shared/tracer/build';
-import type { ReferenceRole } from '../../../../shared/tracer/calibration';
-import { axisQuantities, type TraceReferenceClick, type TraceState } from '../../../../shared/tracer/state';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
+import type { TraceBuild } from '#shared/tracer/build';
+import type { ReferenceRole } from '#shared/tracer/calibration';
+import { axisQuantities, type TraceReferenceClick, type TraceState } from '#shared/tracer/state';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
 import { addClick, removeClick, setClickValue, setCrossing, setScale } from '../state/edits';
 import { ChoiceField, NumberField } from './fields';
 import type { ChangeTrace } from './MapPanel';
@@ -125,7 +125,10 @@ export function AxesPanel({
                 <span className="numeric text-xs text-ink-soft">
                   {click.pixel ? `at ${Math.round(click.pixel.x)}, ${Math.round(click.pixel.y)} px` : 'not placed'}
                   {residual !== null && residual !== undefined && (
-                    <span className={residual > CHECK_RESIDUAL_PX ? 'font-semibold text-limit' : residual > GOOD_RESIDUAL_PX ? 'text-copper-ink' : ''}> · off by {px(residual)}</span>
+                    <span className={residual > CHECK_RESIDUAL_PX ? 'font-semibold text-limit' : residual > GOOD_RESIDUAL_PX ? 'text-copper-ink' : ''}>
+                      {' '}
+                      · off by {px(residual)}
+                    </span>
                   )}
                 </span>
               </div>
@@ -151,7 +154,12 @@ export function AxesPanel({
                   />
                 )}
                 {click.role === 'crossing' && <p className="flex-1 text-xs text-ink-soft">Takes the crossing values above.</p>}
-                <Button variant={armed ? 'primary' : 'secondary'} aria-pressed={armed} aria-label={`Place ${name.toLowerCase()}`} onClick={() => onArm(click.id)}>
+                <Button
+                  variant={armed ? 'primary' : 'secondary'}
+                  aria-pressed={armed}
+                  aria-label={`Place ${name.toLowerCase()}`}
+                  onClick={() => onArm(click.id)}
+                >
                   {armed ? 'Click it in the picture' : click.pixel ? 'Place again' : 'Place'}
                 </Button>
                 <Button variant="quiet" aria-label={`Remove ${name.toLowerCase()}`} onClick={() => change((s) => removeClick(s, click.id))}>
@@ -176,7 +184,11 @@ export function AxesPanel({
         <Alert tone="info" title="Not calibrated yet">
           <ul className="list-disc space-y-1 pl-4">
             {axisProblems.map((p, i) => (
-              <li key={i}>{p.clickIndex !== null && clicks[p.clickIndex] ? `${clickName(clicks[p.clickIndex], clicks)}: ${p.message.charAt(0).toLowerCase()}${p.message.slice(1)}` : p.message}</li>
+              <li key={i}>
+                {p.clickIndex !== null && clicks[p.clickIndex]
+                  ? `${clickName(clicks[p.clickIndex], clicks)}: ${p.message.charAt(0).toLowerCase()}${p.message.slice(1)}`
+                  : p.message}
+              </li>
             ))}
           </ul>
         </Alert>
@@ -204,7 +216,10 @@ function CalibrationSummary({ build, clicks }: { build: TraceBuild; clicks: read
       title={`Calibrated from ${cal.residuals.length} points: residual ${px(cal.rmsResidual)} RMS, worst ${px(cal.maxResidual)}${worst ? ` (${clickName(worst, clicks).toLowerCase()})` : ''}.`}
     >
       {bad ? (
-        <p>The clicks do not agree: one is probably off its axis or has a wrong value. The red line at each click shows where the fit puts it; check the worst one first.</p>
+        <p>
+          The clicks do not agree: one is probably off its axis or has a wrong value. The red line at each click shows where the fit puts it; check the worst
+          one first.
+        </p>
       ) : (
         <p>The dashed grid over the picture is drawn from this fit: it should sit on the picture’s own grid lines.</p>
       )}

@@ -1,16 +1,19 @@
 import { Link } from 'react-router';
-import type { SavedToLibrary } from '../../../../shared/tracer/api';
-import type { TraceArea, TraceBuild, TraceProblem } from '../../../../shared/tracer/build';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { paths } from '../../../lib/paths';
+import type { SavedToLibrary } from '#shared/tracer/api';
+import type { TraceArea, TraceBuild, TraceProblem } from '#shared/tracer/build';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { paths } from '#src/lib/paths';
 
 const AREA_WORDS: Record<TraceArea, string> = { map: 'The map', axes: 'Axes', lines: 'Lines', file: 'The file' };
 
 /** The problems of the trace, each a button that goes to where it is fixed. */
 export function TraceProblemList({ problems, onGo }: { problems: readonly TraceProblem[]; onGo: (problem: TraceProblem) => void }) {
   return (
-    <ol aria-label="Problems of the map file" className="max-h-[26rem] divide-y divide-paper-line overflow-y-auto rounded-md border border-paper-line bg-white/80">
+    <ol
+      aria-label="Problems of the map file"
+      className="max-h-[26rem] divide-y divide-paper-line overflow-y-auto rounded-md border border-paper-line bg-white/80"
+    >
       {problems.map((problem, i) => (
         <li key={i}>
           <button type="button" onClick={() => onGo(problem)} className="block w-full px-3 py-2 text-left text-sm hover:bg-teal-light/40">

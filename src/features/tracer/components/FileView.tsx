@@ -1,8 +1,8 @@
-import type { TraceBuild } from '../../../../shared/tracer/build';
-import { Card } from '../../../components/Card';
-import { CompressorMapPlot } from '../../../components/plots/CompressorMapPlot';
-import { TurbineMapPlot } from '../../../components/plots/TurbineMapPlot';
-import type { UnitSystem } from '../../../lib/units';
+import type { TraceBuild } from '#shared/tracer/build';
+import { Card } from '#src/components/Card';
+import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
+import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
+import type { UnitSystem } from '#src/lib/units';
 
 /** The file being built, line by line, and (once it reads as a map) the map drawn as the library will draw it. */
 export function FileView({ build, unitSystem }: { build: TraceBuild; unitSystem: UnitSystem }) {

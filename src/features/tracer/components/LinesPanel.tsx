@@ -1,7 +1,7 @@
-import type { PlanePoint } from '../../../../shared/tracer/affine';
-import { curveTitle, type TraceBuild } from '../../../../shared/tracer/build';
-import { traceKindsOf, type TraceCurveKind, type TraceState } from '../../../../shared/tracer/state';
-import { Button } from '../../../components/Button';
+import type { PlanePoint } from '#shared/tracer/affine';
+import { curveTitle, type TraceBuild } from '#shared/tracer/build';
+import { traceKindsOf, type TraceCurveKind, type TraceState } from '#shared/tracer/state';
+import { Button } from '#src/components/Button';
 import { LINE_COLOURS } from '../lib/draw';
 import { addCurve, removeCurve, setCurveValue } from '../state/edits';
 import { NumberField } from './fields';

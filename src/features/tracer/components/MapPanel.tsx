@@ -1,8 +1,8 @@
 import { useId } from 'react';
-import type { MapKind } from '../../../../shared/maps/format';
-import { MAX_MAP_NAME_LENGTH } from '../../../../shared/maps/format';
-import { TRACE_UNIT_CHOICES, type TraceState } from '../../../../shared/tracer/state';
-import { inputClass } from '../../../components/TextField';
+import type { MapKind } from '#shared/maps/format';
+import { MAX_MAP_NAME_LENGTH } from '#shared/maps/format';
+import { TRACE_UNIT_CHOICES, type TraceState } from '#shared/tracer/state';
+import { inputClass } from '#src/components/TextField';
 import { setFlowParameterAxis, setKind } from '../state/edits';
 import { ChoiceField, NumberField, settingId, unitOption } from './fields';
 
@@ -30,7 +30,14 @@ export function MapPanel({ state, change, disabled }: { state: TraceState; chang
               key={kind}
               className={`flex cursor-pointer items-center gap-2 rounded-md border px-3 py-2 text-sm ${state.kind === kind ? 'border-teal bg-teal-light/60 font-semibold' : 'border-ink/20 bg-white/70'}`}
             >
-              <input type="radio" name={`${kindName}-kind`} value={kind} checked={state.kind === kind} onChange={() => change((s) => setKind(s, kind))} className="accent-teal" />
+              <input
+                type="radio"
+                name={`${kindName}-kind`}
+                value={kind}
+                checked={state.kind === kind}
+                onChange={() => change((s) => setKind(s, kind))}
+                className="accent-teal"
+              />
               {kind === 'compressor' ? 'Compressor map' : 'Turbine map'}
             </label>
           ))}
@@ -67,7 +74,11 @@ export function MapPanel({ state, change, disabled }: { state: TraceState; chang
               onChange={(flowAxis) =>
                 change((s) => ({
                   ...s,
-                  compressor: { ...s.compressor, flowAxis, flowUnit: (flowAxis === 'volume' ? TRACE_UNIT_CHOICES.volumeFlow : TRACE_UNIT_CHOICES.correctedMassFlow)[0] },
+                  compressor: {
+                    ...s.compressor,
+                    flowAxis,
+                    flowUnit: (flowAxis === 'volume' ? TRACE_UNIT_CHOICES.volumeFlow : TRACE_UNIT_CHOICES.correctedMassFlow)[0],
+                  },
                 }))
               }
             />
@@ -83,8 +94,24 @@ export function MapPanel({ state, change, disabled }: { state: TraceState; chang
           <fieldset className="space-y-3 rounded-md border border-paper-line p-3">
             <legend className="px-1 text-sm font-semibold text-ink">Reference conditions of the map</legend>
             <p className="text-xs text-ink-soft">Printed on the map, usually beside the flow axis title. The map’s corrected flows refer to them.</p>
-            <ReferenceCondition which="referenceTemperature" label="Reference temperature" unitLabel="Reference temperature unit" choices={TRACE_UNIT_CHOICES.temperature} focusKey="refT" state={state} change={change} />
-            <ReferenceCondition which="referencePressure" label="Reference pressure (absolute)" unitLabel="Reference pressure unit" choices={TRACE_UNIT_CHOICES.pressure} focusKey="refP" state={state} change={change} />
+            <ReferenceCondition
+              which="referenceTemperature"
+              label="Reference temperature"
+              unitLabel="Reference temperature unit"
+              choices={TRACE_UNIT_CHOICES.temperature}
+              focusKey="refT"
+              state={state}
+              change={change}
+            />
+            <ReferenceCondition
+              which="referencePressure"
+              label="Reference pressure (absolute)"
+              unitLabel="Reference pressure unit"
+              choices={TRACE_UNIT_CHOICES.pressure}
+              focusKey="refP"
+              state={state}
+              change={change}
+            />
           </fieldset>
         </>
       ) : (
@@ -223,7 +250,12 @@ function ReferenceCondition<K extends ReferenceKey>({
     change((s) => ({ ...s, compressor: { ...s.compressor, [which]: { ...s.compressor[which], ...patch } } }), key);
   return (
     <div className="grid grid-cols-[1fr_7rem] items-end gap-2">
-      <NumberField id={settingId(which)} label={label} value={quantity.value} onChange={(value) => set({ value } as Partial<TraceState['compressor'][K]>, focusKey)} />
+      <NumberField
+        id={settingId(which)}
+        label={label}
+        value={quantity.value}
+        onChange={(value) => set({ value } as Partial<TraceState['compressor'][K]>, focusKey)}
+      />
       <ChoiceField
         label={<span className="sr-only">{unitLabel}</span>}
         value={quantity.unit}

@@ -1,10 +1,10 @@
 import { useRef, useState, type DragEvent } from 'react';
 import { useNavigate } from 'react-router';
-import { MAX_IMAGE_BYTES, MAX_IMAGE_PIXELS } from '../../../../shared/tracer/image-header';
-import { Alert } from '../../../components/Alert';
-import { buttonClass } from '../../../components/Button';
-import { isApiError } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
+import { MAX_IMAGE_BYTES, MAX_IMAGE_PIXELS } from '#shared/tracer/image-header';
+import { Alert } from '#src/components/Alert';
+import { buttonClass } from '#src/components/Button';
+import { isApiError } from '#src/lib/api-client';
+import { paths } from '#src/lib/paths';
 import { useStartTrace } from '../api/start-trace';
 import { nameFromFile, readPicture } from '../lib/read-picture';
 
@@ -57,7 +57,9 @@ export function PictureDrop({ teamId }: { teamId: string }) {
         }}
         className={`flex flex-wrap items-center gap-x-4 gap-y-3 rounded-lg border-2 border-dashed px-5 py-4 transition-colors ${dragging ? 'border-teal bg-teal-light/40' : 'border-ink/20 bg-white/50'}`}
       >
-        <label className={`${buttonClass('primary')} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-teal`}>
+        <label
+          className={`${buttonClass('primary')} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-teal`}
+        >
           {start.isPending ? 'Uploading…' : 'Choose a picture'}
           <input
             type="file"
@@ -72,8 +74,8 @@ export function PictureDrop({ teamId }: { teamId: string }) {
           />
         </label>
         <p className="max-w-prose text-sm text-ink-soft">
-          or drop one here: a PNG or JPEG of a compressor or turbine map (a scan, a screenshot, a photo taken square on), up to {MAX_IMAGE_BYTES / 1024 / 1024} MB
-          and {MAX_IMAGE_PIXELS / 1e6} megapixels. The file is checked by its content, not its name.
+          or drop one here: a PNG or JPEG of a compressor or turbine map (a scan, a screenshot, a photo taken square on), up to {MAX_IMAGE_BYTES / 1024 / 1024}{' '}
+          MB and {MAX_IMAGE_PIXELS / 1e6} megapixels. The file is checked by its content, not its name.
         </p>
       </div>
       {reading && (

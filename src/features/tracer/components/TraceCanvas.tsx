@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useLayoutEffect, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent } from 'react';
-import type { PlanePoint } from '../../../../shared/tracer/affine';
-import { Button } from '../../../components/Button';
+import type { PlanePoint } from '#shared/tracer/affine';
+import { Button } from '#src/components/Button';
 import { drawScene, type Overlay } from '../lib/draw';
 import { actualSizeView, fitView, toImage, toScreen, zoomAt, type CanvasView } from '../lib/view';
 
@@ -90,7 +90,16 @@ export function TraceCanvas({
       const ctx = canvas.getContext('2d');
       if (!ctx) return;
       ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
-      drawScene(ctx, { width: s.width, height: s.height, view: v, image: img, imageSize, overlay: o, cursor: cursor.current, crosshair: t === 'calibrate' && !readOnly });
+      drawScene(ctx, {
+        width: s.width,
+        height: s.height,
+        view: v,
+        image: img,
+        imageSize,
+        overlay: o,
+        cursor: cursor.current,
+        crosshair: t === 'calibrate' && !readOnly,
+      });
     });
   }, [imageSize, readOnly]);
 
@@ -318,7 +327,9 @@ export function TraceCanvas({
         />
         {!image && (
           <p role={imageError ? 'alert' : 'status'} className="absolute inset-0 flex items-center justify-center p-6 text-center text-sm text-ink-soft">
-            {imageError ? 'The picture could not be shown. It may be damaged; reload the page, or start again from another copy of it.' : 'Loading the picture…'}
+            {imageError
+              ? 'The picture could not be shown. It may be damaged; reload the page, or start again from another copy of it.'
+              : 'Loading the picture…'}
           </p>
         )}
       </div>

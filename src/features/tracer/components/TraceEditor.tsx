@@ -1,16 +1,16 @@
 import { useCallback, useEffect, useMemo, useReducer, useState } from 'react';
 import { Link } from 'react-router';
-import type { PlanePoint } from '../../../../shared/tracer/affine';
-import type { DraftDetail, SavedToLibrary } from '../../../../shared/tracer/api';
-import { buildTrace, traceFileName, type TraceArea, type TraceProblem } from '../../../../shared/tracer/build';
-import { pixelToData } from '../../../../shared/tracer/calibration';
-import { axisQuantities, type TraceState } from '../../../../shared/tracer/state';
-import { Alert } from '../../../components/Alert';
-import { Button } from '../../../components/Button';
-import { useDocumentTitle } from '../../../components/Page';
-import { isApiError } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
-import { useUnitSystem } from '../../../lib/units';
+import type { PlanePoint } from '#shared/tracer/affine';
+import type { DraftDetail, SavedToLibrary } from '#shared/tracer/api';
+import { buildTrace, traceFileName, type TraceArea, type TraceProblem } from '#shared/tracer/build';
+import { pixelToData } from '#shared/tracer/calibration';
+import { axisQuantities, type TraceState } from '#shared/tracer/state';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { useDocumentTitle } from '#src/components/Page';
+import { isApiError } from '#src/lib/api-client';
+import { paths } from '#src/lib/paths';
+import { useUnitSystem } from '#src/lib/units';
 import { pictureUrl } from '../api/keys';
 import { staleDraftOf } from '../api/save-draft';
 import { useSaveTraceToLibrary } from '../api/save-to-library';
@@ -299,18 +299,17 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
     file: counts.file ? `${counts.file} to fix` : 'ready',
   };
 
-  const hint =
-    !canEdit
-      ? 'Drag to pan, scroll to zoom.'
-      : step === 'axes'
-        ? armedClickId
-          ? 'Click the reference point’s spot in the picture.'
-          : 'Choose “Place” on the right, then click in the picture.'
-        : step === 'lines'
-          ? activeCurve
-            ? 'Click to add a point; drag one to move it.'
-            : 'Add or choose a line on the right.'
-          : 'Drag to pan, scroll to zoom.';
+  const hint = !canEdit
+    ? 'Drag to pan, scroll to zoom.'
+    : step === 'axes'
+      ? armedClickId
+        ? 'Click the reference point’s spot in the picture.'
+        : 'Choose “Place” on the right, then click in the picture.'
+      : step === 'lines'
+        ? activeCurve
+          ? 'Click to add a point; drag one to move it.'
+          : 'Add or choose a line on the right.'
+        : 'Drag to pan, scroll to zoom.';
 
   const status = sync.status;
   return (
@@ -365,7 +364,10 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
       )}
 
       <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_27rem]">
-        <section aria-label="Picture" className="h-[clamp(26rem,calc(100vh-12rem),62rem)] overflow-hidden rounded-lg border border-paper-line bg-white/75 shadow-sm">
+        <section
+          aria-label="Picture"
+          className="h-[clamp(26rem,calc(100vh-12rem),62rem)] overflow-hidden rounded-lg border border-paper-line bg-white/75 shadow-sm"
+        >
           <TraceCanvas
             imageUrl={pictureUrl(teamId, draft.image.id)}
             imageSize={draft.image}
@@ -418,7 +420,9 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
             </p>
           )}
           <div className="max-h-[calc(100vh-16rem)] overflow-y-auto rounded-lg border border-paper-line bg-white/75 p-4 shadow-sm">
-            <h2 className="mb-3 text-lg font-semibold text-ink">{{ map: 'The map', axes: 'Calibrate the axes', lines: 'Trace the lines', file: 'The map file' }[step]}</h2>
+            <h2 className="mb-3 text-lg font-semibold text-ink">
+              {{ map: 'The map', axes: 'Calibrate the axes', lines: 'Trace the lines', file: 'The map file' }[step]}
+            </h2>
             {step === 'map' && <MapPanel state={state} change={change} disabled={!canEdit} />}
             {step === 'axes' && (
               <AxesPanel

@@ -1,15 +1,15 @@
 import { Link, useNavigate } from 'react-router';
-import { Alert } from '../../../components/Alert';
-import { Badge } from '../../../components/Badge';
-import { Button } from '../../../components/Button';
-import { Card } from '../../../components/Card';
-import { ConfirmButton } from '../../../components/ConfirmButton';
-import { Loading, Page } from '../../../components/Page';
-import { SecondFactorNeededPage } from '../../../components/SecondFactorNotice';
-import { Table, td, th } from '../../../components/Table';
-import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
-import { formatDateTime } from '../../../lib/format';
-import { paths } from '../../../lib/paths';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { Button } from '#src/components/Button';
+import { Card } from '#src/components/Card';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { Loading, Page } from '#src/components/Page';
+import { SecondFactorNeededPage } from '#src/components/SecondFactorNotice';
+import { Table, td, th } from '#src/components/Table';
+import { isApiError, isTwoFactorRequired } from '#src/lib/api-client';
+import { formatDateTime } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
 import { useDeleteDraft } from '../api/delete-draft';
 import { useDrafts } from '../api/get-drafts';
 import { usePictures } from '../api/get-pictures';
@@ -77,9 +77,11 @@ export function TracerHome({ teamId }: { teamId: string }) {
                 <th className={th}>Traced</th>
                 <th className={th}>Saved as</th>
                 <th className={th}>Last changed</th>
-                {canEdit && <th className={th}>
-                  <span className="sr-only">Actions</span>
-                </th>}
+                {canEdit && (
+                  <th className={th}>
+                    <span className="sr-only">Actions</span>
+                  </th>
+                )}
               </tr>
             }
           >
@@ -92,7 +94,13 @@ export function TracerHome({ teamId }: { teamId: string }) {
                 <td className={`${td} numeric`}>
                   {draft.curveCount} {draft.curveCount === 1 ? 'line' : 'lines'}, {draft.pointCount} {draft.pointCount === 1 ? 'point' : 'points'}
                 </td>
-                <td className={td}>{draft.image.mapId ? <Link to={paths.teamMap.href(teamId, draft.image.mapId)}>{draft.image.mapName}</Link> : <span className="text-ink-soft">not saved yet</span>}</td>
+                <td className={td}>
+                  {draft.image.mapId ? (
+                    <Link to={paths.teamMap.href(teamId, draft.image.mapId)}>{draft.image.mapName}</Link>
+                  ) : (
+                    <span className="text-ink-soft">not saved yet</span>
+                  )}
+                </td>
                 <td className={`${td} text-ink-soft`}>
                   {formatDateTime(draft.updatedAt)}
                   {draft.createdBy ? ` · started by ${draft.createdBy}` : ''}
@@ -122,7 +130,9 @@ export function TracerHome({ teamId }: { teamId: string }) {
 
       {kept.length > 0 && (
         <Card title="Pictures kept with saved maps">
-          <p className="mb-3 text-sm text-ink-soft">Each map saved from the Tracer keeps the picture it was traced from, to check it against or trace it again.</p>
+          <p className="mb-3 text-sm text-ink-soft">
+            Each map saved from the Tracer keeps the picture it was traced from, to check it against or trace it again.
+          </p>
           <ul className="divide-y divide-paper-line">
             {kept.map((picture) => (
               <li key={picture.id} className="flex flex-wrap items-center gap-3 py-2 text-sm">

@@ -1,9 +1,9 @@
 import { Link } from 'react-router';
-import { Alert } from '../../../components/Alert';
-import { Loading, Page } from '../../../components/Page';
-import { SecondFactorNeededPage } from '../../../components/SecondFactorNotice';
-import { isApiError, isTwoFactorRequired } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
+import { Alert } from '#src/components/Alert';
+import { Loading, Page } from '#src/components/Page';
+import { SecondFactorNeededPage } from '#src/components/SecondFactorNotice';
+import { isApiError, isTwoFactorRequired } from '#src/lib/api-client';
+import { paths } from '#src/lib/paths';
 import { useDraft } from '../api/get-draft';
 import { useTracerAccess } from '../lib/team-access';
 import { TraceEditor } from './TraceEditor';

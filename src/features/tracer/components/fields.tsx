@@ -1,5 +1,5 @@
 import { useEffect, useId, useState, type ReactNode } from 'react';
-import { FieldError, inputClass } from '../../../components/TextField';
+import { FieldError, inputClass } from '#src/components/TextField';
 
 /** The id of a setting's input, so a problem in the file can send the user straight to it. */
 export function settingId(field: string): string {

@@ -1,5 +1,5 @@
-import type { PlanePoint } from '../../../../shared/tracer/affine';
-import type { TraceCurveKind } from '../../../../shared/tracer/state';
+import type { PlanePoint } from '#shared/tracer/affine';
+import type { TraceCurveKind } from '#shared/tracer/state';
 import { toScreen, type CanvasView } from './view';
 
 // Drawing the trace over the picture. Everything here is in image pixels until drawn; the same
@@ -170,7 +170,13 @@ function drawClick(ctx: CanvasRenderingContext2D, view: CanvasView, click: Overl
   ctx.restore();
 }
 
-function drawContent(ctx: CanvasRenderingContext2D, view: CanvasView, image: HTMLImageElement | null, imageSize: { width: number; height: number }, overlay: Overlay) {
+function drawContent(
+  ctx: CanvasRenderingContext2D,
+  view: CanvasView,
+  image: HTMLImageElement | null,
+  imageSize: { width: number; height: number },
+  overlay: Overlay,
+) {
   if (image) {
     ctx.imageSmoothingEnabled = view.scale < 3;
     ctx.drawImage(image, view.x, view.y, imageSize.width * view.scale, imageSize.height * view.scale);

@@ -1,4 +1,4 @@
-import type { AxisScale } from '../../../../shared/tracer/axes';
+import type { AxisScale } from '#shared/tracer/axes';
 
 /**
  * Round values for a grid over a range: 1, 2 or 5 times a power of ten apart on a linear axis,

@@ -1,7 +1,7 @@
-import type { PlanePoint } from '../../../../shared/tracer/affine';
-import type { TraceBuild } from '../../../../shared/tracer/build';
-import { dataToPixel, pixelToData } from '../../../../shared/tracer/calibration';
-import type { TraceCurve, TraceState } from '../../../../shared/tracer/state';
+import type { PlanePoint } from '#shared/tracer/affine';
+import type { TraceBuild } from '#shared/tracer/build';
+import { dataToPixel, pixelToData } from '#shared/tracer/calibration';
+import type { TraceCurve, TraceState } from '#shared/tracer/state';
 import type { Overlay, OverlayClick, OverlayGridLine, OverlayLine } from './draw';
 import { gridLabel, gridValues } from './grid';
 
@@ -98,7 +98,16 @@ export function buildOverlay(state: TraceState, build: TraceBuild, selection: Ov
         const x = click.role === 'y-axis' || click.role === 'crossing' ? crossing.x : click.x;
         const y = click.role === 'x-axis' || click.role === 'crossing' ? crossing.y : click.y;
         const fitted = cal && x !== null && y !== null ? dataToPixel(cal, { x, y }) : null;
-        return [{ id: click.id, label: clickLabel(click, state), pixel: click.pixel, fitted, armed: click.id === selection.armedClickId, selected: click.id === selection.selectedClickId }];
+        return [
+          {
+            id: click.id,
+            label: clickLabel(click, state),
+            pixel: click.pixel,
+            fitted,
+            armed: click.id === selection.armedClickId,
+            selected: click.id === selection.selectedClickId,
+          },
+        ];
       })
     : [];
   return { grid: grid(build, state, size), lines, clicks, selectedPoint: selection.selectedPoint };

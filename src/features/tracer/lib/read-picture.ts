@@ -1,4 +1,4 @@
-import { checkImage, MAX_IMAGE_BYTES, type ImageCheck } from '../../../../shared/tracer/image-header';
+import { checkImage, MAX_IMAGE_BYTES, type ImageCheck } from '#shared/tracer/image-header';
 
 /**
  * Checks a chosen file in the browser by the same rules as the server (its bytes, not its name),

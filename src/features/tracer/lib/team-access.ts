@@ -1,4 +1,4 @@
-import { useMe } from '../../../lib/session';
+import { useMe } from '#src/lib/session';
 
 /**
  * The signed-in user's place in a team, from `me`: editors and owners trace, viewers look. The

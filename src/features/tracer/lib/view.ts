@@ -1,4 +1,4 @@
-import type { PlanePoint } from '../../../../shared/tracer/affine';
+import type { PlanePoint } from '#shared/tracer/affine';
 
 /** How the picture sits on the canvas: screen = image·scale + offset, in CSS pixels. */
 export interface CanvasView {

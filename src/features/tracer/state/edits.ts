@@ -1,8 +1,8 @@
-import type { MapKind } from '../../../../shared/maps/format';
-import type { PlanePoint } from '../../../../shared/tracer/affine';
-import type { AxisScale } from '../../../../shared/tracer/axes';
-import type { ReferenceRole } from '../../../../shared/tracer/calibration';
-import { usualCrossing, type TraceCurveKind, type TraceState } from '../../../../shared/tracer/state';
+import type { MapKind } from '#shared/maps/format';
+import type { PlanePoint } from '#shared/tracer/affine';
+import type { AxisScale } from '#shared/tracer/axes';
+import type { ReferenceRole } from '#shared/tracer/calibration';
+import { usualCrossing, type TraceCurveKind, type TraceState } from '#shared/tracer/state';
 
 // Every change the Tracer makes to a trace, as pure functions of the state: the editor records
 // each result in its history (undo, redo) and the draft autosaves it.
@@ -45,7 +45,11 @@ export function setCrossing(state: TraceState, axis: 'x' | 'y', value: number | 
   return { ...state, calibration: { ...state.calibration, crossing: { ...state.calibration.crossing, [axis]: value } } };
 }
 
-function mapClicks(state: TraceState, id: string, change: (click: TraceState['calibration']['clicks'][number]) => TraceState['calibration']['clicks'][number]): TraceState {
+function mapClicks(
+  state: TraceState,
+  id: string,
+  change: (click: TraceState['calibration']['clicks'][number]) => TraceState['calibration']['clicks'][number],
+): TraceState {
   return { ...state, calibration: { ...state.calibration, clicks: state.calibration.clicks.map((c) => (c.id === id ? change(c) : c)) } };
 }
 
@@ -58,7 +62,10 @@ export function placeClick(state: TraceState, id: string, pixel: PlanePoint | nu
 }
 
 export function addClick(state: TraceState, role: ReferenceRole): { state: TraceState; id: string } {
-  const id = freshId(role === 'x-axis' ? 'x' : role === 'y-axis' ? 'y' : role === 'crossing' ? 'corner' : 'p', state.calibration.clicks.map((c) => c.id));
+  const id = freshId(
+    role === 'x-axis' ? 'x' : role === 'y-axis' ? 'y' : role === 'crossing' ? 'corner' : 'p',
+    state.calibration.clicks.map((c) => c.id),
+  );
   const click = { id, role, pixel: null, x: null, y: null };
   return { state: { ...state, calibration: { ...state.calibration, clicks: [...state.calibration.clicks, click] } }, id };
 }
@@ -68,7 +75,10 @@ export function removeClick(state: TraceState, id: string): TraceState {
 }
 
 export function addCurve(state: TraceState, kind: TraceCurveKind): { state: TraceState; id: string } {
-  const id = freshId('line', state.curves.map((c) => c.id));
+  const id = freshId(
+    'line',
+    state.curves.map((c) => c.id),
+  );
   return { state: { ...state, curves: [...state.curves, { id, kind, speed: null, efficiency: null, points: [] }] }, id };
 }
 

@@ -1,4 +1,4 @@
-import type { TraceState } from '../../../../shared/tracer/state';
+import type { TraceState } from '#shared/tracer/state';
 
 /** Undo and redo over whole trace states (states are small and never mutated, so keeping them is cheap). */
 export interface TraceHistory {

@@ -1,16 +1,12 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { DraftDetail } from '../../../../shared/tracer/api';
-import type { TraceState } from '../../../../shared/tracer/state';
+import type { DraftDetail } from '#shared/tracer/api';
+import type { TraceState } from '#shared/tracer/state';
 import { tracerKeys } from '../api/keys';
 import { saveDraft, staleDraftOf } from '../api/save-draft';
 
 export type SyncStatus =
-  | { kind: 'saved' }
-  | { kind: 'pending' }
-  | { kind: 'saving' }
-  | { kind: 'error'; message: string }
-  | { kind: 'conflict'; current: DraftDetail };
+  { kind: 'saved' } | { kind: 'pending' } | { kind: 'saving' } | { kind: 'error'; message: string } | { kind: 'conflict'; current: DraftDetail };
 
 /** Quiet time after the last change before the draft is saved, ms. */
 export const AUTOSAVE_DELAY_MS = 800;
@@ -32,7 +28,7 @@ export function useDraftSync({ teamId, draft, state, enabled }: { teamId: string
   const [status, setStatus] = useState<SyncStatus>({ kind: 'saved' });
 
   /** Runs `job` after every write already queued. */
-  const exclusive = useCallback(<T,>(job: () => Promise<T>): Promise<T> => {
+  const exclusive = useCallback(<T>(job: () => Promise<T>): Promise<T> => {
     const run = chain.current.then(job, job);
     chain.current = run.catch(() => undefined);
     return run;

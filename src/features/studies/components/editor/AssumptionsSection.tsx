@@ -1,11 +1,12 @@
-import { fuelProperties, type FuelChoice } from '../../../../../shared/physics';
-import { getIn } from '../../lib/draft';
+import { fuelProperties, type FuelChoice } from '#shared/physics';
+import { getIn } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField } from './fields';
 import { LossFields } from './LossFields';
 import { FieldRow, Section, SubHeading } from './Section';
 
-type Power = { basis: 'brake-thermal-efficiency'; brakeThermalEfficiency: number; drivetrainLoss: number } | { basis: 'bsfc'; bsfc: number; drivetrainLoss: number };
+type Power =
+  { basis: 'brake-thermal-efficiency'; brakeThermalEfficiency: number; drivetrainLoss: number } | { basis: 'bsfc'; bsfc: number; drivetrainLoss: number };
 
 /** Power assumptions, losses and the intercooler: what turns air into power and heat into density. */
 export function AssumptionsSection() {

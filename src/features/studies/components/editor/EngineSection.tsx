@@ -1,6 +1,6 @@
 import { useEffect, useId, useState } from 'react';
-import { FieldError, inputClass } from '../../../../components/TextField';
-import { getIn, pathKey } from '../../lib/draft';
+import { FieldError, inputClass } from '#src/components/TextField';
+import { getIn, pathKey } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, CountField, NumberField, ReadValue, TextInputField } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
@@ -123,7 +123,9 @@ export function EngineSection() {
         defaultValue={0.9}
         testId="ve-table"
       />
-      <p className="text-xs text-ink-soft">Referred to manifold density, as usual for pressure-charged engines; read between rows by straight lines and held flat beyond the first and last.</p>
+      <p className="text-xs text-ink-soft">
+        Referred to manifold density, as usual for pressure-charged engines; read between rows by straight lines and held flat beyond the first and last.
+      </p>
       <SubHeading>Limits (optional)</SubHeading>
       <p className="text-xs text-ink-soft">Each limit crossed is a finding in red. Leave a box empty for no limit.</p>
       <FieldRow>

@@ -1,8 +1,8 @@
-import { turbineEfficiencyKindMeaning } from '../../../../../shared/maps/format';
-import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '../../../../../shared/matching/exhaust';
-import { formatNumber } from '../../../../components/plots/quantities';
-import type { MapListItem } from '../../api/get-team-maps';
-import { getIn } from '../../lib/draft';
+import { turbineEfficiencyKindMeaning } from '#shared/maps/format';
+import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
+import { formatNumber } from '#src/components/plots/quantities';
+import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import { getIn } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField, ToggleField } from './fields';
 import { LossFields } from './LossFields';
@@ -48,7 +48,15 @@ export function turbineMapFacts(m: MapListItem): string | null {
  * exhaust gas temperature by rpm and the loss after the turbine. Off by default: a plan without
  * it is judged on the compressor alone.
  */
-export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { planIndex: number; turbineMaps: MapListItem[] | undefined; turbineMapsError: string | null }) {
+export function ExhaustFields({
+  planIndex,
+  turbineMaps,
+  turbineMapsError,
+}: {
+  planIndex: number;
+  turbineMaps: MapListItem[] | undefined;
+  turbineMapsError: string | null;
+}) {
   const editor = useEditor();
   const base = ['plans', planIndex];
   const exhaust = getIn(editor.draft, [...base, 'exhaust']) as Exhaust | undefined;
@@ -90,7 +98,9 @@ export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { pl
   const mapOptions = [
     { value: '', label: 'No turbine map: the exhaust side is not computed' },
     ...(turbineMaps ?? []).map((m) => ({ value: m.id, label: m.builtin ? `${m.name} (built-in demo)` : m.name })),
-    ...(turbineMapId && !known.has(turbineMapId) ? [{ value: turbineMapId, label: turbineMaps ? `${turbineMapId} (not in the library)` : 'Loading the map library…' }] : []),
+    ...(turbineMapId && !known.has(turbineMapId)
+      ? [{ value: turbineMapId, label: turbineMaps ? `${turbineMapId} (not in the library)` : 'Loading the map library…' }]
+      : []),
   ];
   const mapHousing = chosen?.summary.housing;
 
@@ -123,7 +133,9 @@ export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { pl
             onChoose={chooseHousing}
           />
           {(mapHousing === 'single' || mapHousing === 'divided') && mapHousing !== exhaust.housing && (
-            <p className="text-sm text-copper-ink">The turbine map was measured on a {mapHousing === 'divided' ? 'divided' : 'single-scroll'} housing; its capacity is used as it is.</p>
+            <p className="text-sm text-copper-ink">
+              The turbine map was measured on a {mapHousing === 'divided' ? 'divided' : 'single-scroll'} housing; its capacity is used as it is.
+            </p>
           )}
           {exhaust.housing === 'divided' && (
             <div className="space-y-1">
@@ -135,9 +147,9 @@ export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { pl
                 placeholder={formatNumber(DEFAULT_PULSE_FACTOR)}
                 hint={
                   <>
-                    An assumption, empty means {formatNumber(DEFAULT_PULSE_FACTOR)}: no gain. This model works with mean pressures and steady flow. A divided manifold keeps
-                    each cylinder’s exhaust pulse apart from the others, and those pulses carry energy that mean pressures cannot show. The factor multiplies turbine energy to
-                    stand for that gain. Set it from your own back-to-back tests, not from hope.
+                    An assumption, empty means {formatNumber(DEFAULT_PULSE_FACTOR)}: no gain. This model works with mean pressures and steady flow. A divided
+                    manifold keeps each cylinder’s exhaust pulse apart from the others, and those pulses carry energy that mean pressures cannot show. The
+                    factor multiplies turbine energy to stand for that gain. Set it from your own back-to-back tests, not from hope.
                   </>
                 }
               />
@@ -198,8 +210,8 @@ export function ExhaustFields({ planIndex, turbineMaps, turbineMapsError }: { pl
             testId={`plan-${planIndex}-turbine-inlet-temperature`}
           />
           <p className="text-xs text-ink-soft">
-            Measure exhaust gas temperature before the turbine where you can. Keep it within the turbocharger and valve makers’ stated limits: too hot cracks housings and
-            burns valves and pistons.
+            Measure exhaust gas temperature before the turbine where you can. Keep it within the turbocharger and valve makers’ stated limits: too hot cracks
+            housings and burns valves and pistons.
           </p>
         </>
       )}

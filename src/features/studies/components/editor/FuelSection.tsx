@@ -1,6 +1,6 @@
-import { Button } from '../../../../components/Button';
-import { getIn, pathKey } from '../../lib/draft';
-import { localizeIssue } from '../../lib/localize-issue';
+import { Button } from '#src/components/Button';
+import { getIn, pathKey } from '#src/features/studies/lib/draft';
+import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { ChoiceField, CountField, NumberField, ToggleField, UnitNumberInput } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
@@ -34,10 +34,19 @@ export function FuelSection() {
       {fuel?.kind === 'ethanol-blend' && (
         <div className="flex items-end gap-2">
           <div className="flex-1">
-            <NumberField path={['fuelSystem', 'fuel', 'ethanolPercent']} label="Ethanol content" quantity="percent" hint="Percent by volume, the rest petrol." />
+            <NumberField
+              path={['fuelSystem', 'fuel', 'ethanolPercent']}
+              label="Ethanol content"
+              quantity="percent"
+              hint="Percent by volume, the rest petrol."
+            />
           </div>
           {!editor.readOnly && (
-            <Button className="mb-5" onClick={() => editor.update(['fuelSystem', 'fuel', 'ethanolPercent'], 85)} aria-label="Set the ethanol content to 85 percent (E85)">
+            <Button
+              className="mb-5"
+              onClick={() => editor.update(['fuelSystem', 'fuel', 'ethanolPercent'], 85)}
+              aria-label="Set the ethanol content to 85 percent (E85)"
+            >
               E85
             </Button>
           )}
@@ -67,7 +76,9 @@ export function FuelSection() {
         onChange={(on) =>
           editor.update(
             ['fuelSystem', 'injectors', 'secondary'],
-            on ? { count: primary?.count ?? 4, ratedFlow: primary?.ratedFlow ?? 1e-5, ratedPressure: primary?.ratedPressure ?? 300_000, switchOverRpm: 5000 } : undefined,
+            on
+              ? { count: primary?.count ?? 4, ratedFlow: primary?.ratedFlow ?? 1e-5, ratedPressure: primary?.ratedPressure ?? 300_000, switchOverRpm: 5000 }
+              : undefined,
           )
         }
       />
@@ -121,7 +132,9 @@ function InjectorRatingFields({ set }: { set: 'primary' | 'secondary' }) {
         <UnitNumberInput
           label="Dead time"
           value={deadTime?.time}
-          onChange={(si) => editor.update([...base, 'deadTime'], si === undefined ? undefined : { time: si, voltage: deadTime?.voltage ?? DEFAULT_DEAD_TIME_VOLTAGE })}
+          onChange={(si) =>
+            editor.update([...base, 'deadTime'], si === undefined ? undefined : { time: si, voltage: deadTime?.voltage ?? DEFAULT_DEAD_TIME_VOLTAGE })
+          }
           quantity="duration"
           optional
           error={deadTimeIssue ? localizeIssue(deadTimeIssue, 'duration', editor.unitSystem) : null}
@@ -131,7 +144,12 @@ function InjectorRatingFields({ set }: { set: 'primary' | 'secondary' }) {
         />
       </FieldRow>
       {deadTime !== undefined && (
-        <NumberField path={[...base, 'deadTime', 'voltage']} label="Dead time measured at" quantity="voltage" hint="Battery voltage: at a lower voltage the dead time is longer." />
+        <NumberField
+          path={[...base, 'deadTime', 'voltage']}
+          label="Dead time measured at"
+          quantity="voltage"
+          hint="Battery voltage: at a lower voltage the dead time is longer."
+        />
       )}
     </>
   );

@@ -1,7 +1,7 @@
-import { LOSS_REFERENCE_DENSITY, type PressureLossInput } from '../../../../../shared/physics/losses';
-import { inputText, quantityUnit } from '../../../../components/study/units';
-import { getIn, pathKey, type DocPath } from '../../lib/draft';
-import { localizeIssue } from '../../lib/localize-issue';
+import { LOSS_REFERENCE_DENSITY, type PressureLossInput } from '#shared/physics/losses';
+import { inputText, quantityUnit } from '#src/components/study/units';
+import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
+import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { NumberField, UnitNumberInput } from './fields';
 import { FieldRow } from './Section';
@@ -27,12 +27,21 @@ export function LossFields({ path, label, hint, flow, testId }: { path: DocPath;
           value={loss?.referenceMassFlow}
           onChange={(si) => {
             const { referenceMassFlow: _flow, referenceDensity: _density, ...rest } = loss ?? { pressureLoss: 0 };
-            editor.update(path, si === undefined ? rest : { ...rest, referenceMassFlow: si, ...(loss?.referenceDensity !== undefined ? { referenceDensity: loss.referenceDensity } : {}) });
+            editor.update(
+              path,
+              si === undefined
+                ? rest
+                : { ...rest, referenceMassFlow: si, ...(loss?.referenceDensity !== undefined ? { referenceDensity: loss.referenceDensity } : {}) },
+            );
           }}
           quantity="massFlow"
           optional
           error={issue ? localizeIssue(issue, 'massFlow', editor.unitSystem) : null}
-          hint={follows ? 'The engine flow the loss was measured at: it follows the flow, flow² over density.' : 'Empty: the same loss at every flow. Give the engine flow it was measured at to have it follow the flow.'}
+          hint={
+            follows
+              ? 'The engine flow the loss was measured at: it follows the flow, flow² over density.'
+              : 'Empty: the same loss at every flow. Give the engine flow it was measured at to have it follow the flow.'
+          }
           readOnly={editor.readOnly}
           unitSystem={editor.unitSystem}
         />

@@ -1,6 +1,6 @@
 import { useId } from 'react';
-import { FieldError } from '../../../../components/TextField';
-import { asSentence } from '../../../../lib/forms';
+import { FieldError } from '#src/components/TextField';
+import { asSentence } from '#src/lib/forms';
 import { useEditor } from './context';
 import { Section } from './Section';
 

@@ -1,13 +1,22 @@
-import { Button } from '../../../../components/Button';
-import { PlanSwatch } from '../../../../components/study/PlanSwatch';
-import type { MapListItem } from '../../api/get-team-maps';
-import { getIn, newPlanId } from '../../lib/draft';
+import { Button } from '#src/components/Button';
+import { PlanSwatch } from '#src/components/study/PlanSwatch';
+import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import { getIn, newPlanId } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ExhaustFields } from './ExhaustFields';
 import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from './fields';
 import { FieldRow, Section } from './Section';
 
-type Plan = { id: string; name: string; turbochargers: number; compressorEfficiency: number; offMapEfficiency?: number; maxShaftSpeed?: number; compressorMapId: string | null; turbineMapId?: string | null };
+type Plan = {
+  id: string;
+  name: string;
+  turbochargers: number;
+  compressorEfficiency: number;
+  offMapEfficiency?: number;
+  maxShaftSpeed?: number;
+  compressorMapId: string | null;
+  turbineMapId?: string | null;
+};
 
 export function PlansSection({
   maps,
@@ -51,7 +60,12 @@ export function PlansSection({
           />
           <FieldRow>
             <CountField path={['plans', pi, 'turbochargers']} label="Turbochargers" />
-            <NumberField path={['plans', pi, 'compressorEfficiency']} label="Default efficiency" quantity="fraction" hint="Used without a map, and below the map’s lowest speed line." />
+            <NumberField
+              path={['plans', pi, 'compressorEfficiency']}
+              label="Default efficiency"
+              quantity="fraction"
+              hint="Used without a map, and below the map’s lowest speed line."
+            />
           </FieldRow>
           <NumberField
             path={['plans', pi, 'offMapEfficiency']}
@@ -61,24 +75,44 @@ export function PlansSection({
             testId={`plan-${pi}-off-map-efficiency`}
             hint={
               <>
-                Empty: points past choke, above the map or outside its speed lines are not reachable and give no results. Set, they are computed on
-                this efficiency, and the findings name the assumption. It never covers surge or overspeed: those stay limits. Use it only with the
-                turbocharger maker’s word that the wheel runs there.
+                Empty: points past choke, above the map or outside its speed lines are not reachable and give no results. Set, they are computed on this
+                efficiency, and the findings name the assumption. It never covers surge or overspeed: those stay limits. Use it only with the turbocharger
+                maker’s word that the wheel runs there.
               </>
             }
           />
-          <NumberField path={['plans', pi, 'maxShaftSpeed']} label="Max wheel speed" quantity="speed" optional hint="Empty: the map's rated speed; the lower of the two applies." />
+          <NumberField
+            path={['plans', pi, 'maxShaftSpeed']}
+            label="Max wheel speed"
+            quantity="speed"
+            optional
+            hint="Empty: the map's rated speed; the lower of the two applies."
+          />
           <ExhaustFields planIndex={pi} turbineMaps={turbineMaps} turbineMapsError={turbineMapsError} />
           {!editor.readOnly && (
             <div className="flex flex-wrap gap-2">
               <Button
                 variant="quiet"
                 disabled={plans.length >= 10}
-                onClick={() => editor.update(['plans'], [...plans.slice(0, pi + 1), { ...structuredClone(plan), id: newPlanId(plans), name: `${plan.name} (copy)` }, ...plans.slice(pi + 1)])}
+                onClick={() =>
+                  editor.update(
+                    ['plans'],
+                    [...plans.slice(0, pi + 1), { ...structuredClone(plan), id: newPlanId(plans), name: `${plan.name} (copy)` }, ...plans.slice(pi + 1)],
+                  )
+                }
               >
                 Duplicate plan
               </Button>
-              <Button variant="quiet" disabled={plans.length <= 1} onClick={() => editor.update(['plans'], plans.filter((_p, k) => k !== pi))}>
+              <Button
+                variant="quiet"
+                disabled={plans.length <= 1}
+                onClick={() =>
+                  editor.update(
+                    ['plans'],
+                    plans.filter((_p, k) => k !== pi),
+                  )
+                }
+              >
                 Remove plan
               </Button>
             </div>
@@ -89,10 +123,19 @@ export function PlansSection({
         <Button
           disabled={plans.length >= 10}
           onClick={() =>
-            editor.update(['plans'], [
-              ...plans,
-              { id: newPlanId(plans), name: `Plan ${plans.length + 1}`, turbochargers: 1, compressorEfficiency: 0.7, compressorMapId: plans[plans.length - 1]?.compressorMapId ?? null },
-            ])
+            editor.update(
+              ['plans'],
+              [
+                ...plans,
+                {
+                  id: newPlanId(plans),
+                  name: `Plan ${plans.length + 1}`,
+                  turbochargers: 1,
+                  compressorEfficiency: 0.7,
+                  compressorMapId: plans[plans.length - 1]?.compressorMapId ?? null,
+                },
+              ],
+            )
           }
         >
           + Add plan

@@ -1,8 +1,8 @@
-import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '../../../../../shared/matching/requirements';
-import type { RequirementsInput } from '../../../../../shared/matching/types';
-import { formatStudyValue, inputText, quantityUnit, type StudyQuantity } from '../../../../components/study/units';
-import { getIn, pathKey } from '../../lib/draft';
-import { localizeIssue } from '../../lib/localize-issue';
+import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '#shared/matching/requirements';
+import type { RequirementsInput } from '#shared/matching/types';
+import { formatStudyValue, inputText, quantityUnit, type StudyQuantity } from '#src/components/study/units';
+import { getIn, pathKey } from '#src/features/studies/lib/draft';
+import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { ReadValue, UnitNumberInput } from './fields';
 import { FieldRow, Section, SubHeading } from './Section';
@@ -18,7 +18,12 @@ const MARGINS: RequirementSpec[] = [
   { key: 'minSurgeMargin', label: 'Smallest surge margin', quantity: 'fraction' },
   { key: 'minChokeMargin', label: 'Smallest choke margin', quantity: 'fraction' },
   { key: 'minSpeedMargin', label: 'Smallest speed margin', quantity: 'fraction' },
-  { key: 'maxCompressorOutletTemperature', label: 'Highest outlet temperature accepted', quantity: 'temperature', hint: 'Above it: a warning. A limit stated under Engine stays a hard limit.' },
+  {
+    key: 'maxCompressorOutletTemperature',
+    label: 'Highest outlet temperature accepted',
+    quantity: 'temperature',
+    hint: 'Above it: a warning. A limit stated under Engine stays a hard limit.',
+  },
 ];
 
 const LEAN: RequirementSpec[] = [
@@ -26,7 +31,12 @@ const LEAN: RequirementSpec[] = [
   { key: 'lambdaLimitUnderBoost', label: 'Lambda limit', quantity: 'ratio', hint: 'Leaner than this under boost: the plan does not fit.' },
 ];
 
-const UNDER_BOOST: RequirementSpec = { key: 'underBoostFrom', label: 'Under boost from', quantity: 'pressureGauge', hint: 'The lambda checks apply from this boost up.' };
+const UNDER_BOOST: RequirementSpec = {
+  key: 'underBoostFrom',
+  label: 'Under boost from',
+  quantity: 'pressureGauge',
+  hint: 'The lambda checks apply from this boost up.',
+};
 
 /** A default as people read it in the user's units: "5 %", "200 °C", "0.9". */
 function defaultText(spec: RequirementSpec, system: 'si' | 'us'): string {
@@ -105,8 +115,8 @@ export function RequirementsSection() {
   return (
     <Section title="Required margins" prefixes={['requirements']} testId="section-requirements">
       <p className="text-xs text-ink-soft">
-        What a plan must keep to fit, applied to every point of every plan. An empty field takes the common-practice default shown in grey: a
-        starting point, not a published rule. Set your team’s own, and keep to the turbocharger and engine makers’ limits.
+        What a plan must keep to fit, applied to every point of every plan. An empty field takes the common-practice default shown in grey: a starting point,
+        not a published rule. Set your team’s own, and keep to the turbocharger and engine makers’ limits.
       </p>
       <SubHeading>Compressor</SubHeading>
       <FieldRow>
@@ -124,13 +134,15 @@ export function RequirementsSection() {
       </FieldRow>
       {warningPastLimit && (
         <p role="alert" className="text-sm font-medium text-copper-ink" data-testid="lambda-order">
-          ! The lambda warning ({resolved.lambdaWarningUnderBoost}) is leaner than the limit ({resolved.lambdaLimitUnderBoost}): a point past the
-          limit does not fit before the warning could be raised. Set the warning at or below the limit.
+          ! The lambda warning ({resolved.lambdaWarningUnderBoost}) is leaner than the limit ({resolved.lambdaLimitUnderBoost}): a point past the limit does not
+          fit before the warning could be raised. Set the warning at or below the limit.
         </p>
       )}
       <RequirementField spec={UNDER_BOOST} />
       {!editor.readOnly && (
-        <p className="text-xs text-ink-soft">Lean mixtures under boost burn pistons and valves: keep to the fuel system maker’s and your calibrator’s targets.</p>
+        <p className="text-xs text-ink-soft">
+          Lean mixtures under boost burn pistons and valves: keep to the fuel system maker’s and your calibrator’s targets.
+        </p>
       )}
     </Section>
   );

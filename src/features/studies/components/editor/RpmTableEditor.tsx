@@ -1,9 +1,9 @@
 import { useId, useState } from 'react';
-import { Button } from '../../../../components/Button';
-import { quantityUnit, type StudyQuantity } from '../../../../components/study/units';
-import { getIn, pathKey, type DocPath } from '../../lib/draft';
-import { localizeIssue } from '../../lib/localize-issue';
-import { applyPaste, parsePastedTable, type RpmRows } from '../../lib/paste-table';
+import { Button } from '#src/components/Button';
+import { quantityUnit, type StudyQuantity } from '#src/components/study/units';
+import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
+import { localizeIssue } from '#src/features/studies/lib/localize-issue';
+import { applyPaste, parsePastedTable, type RpmRows } from '#src/features/studies/lib/paste-table';
 import { useEditor } from './context';
 import { GroupIssue, UnitNumberInput } from './fields';
 
@@ -159,7 +159,8 @@ export function RpmTableEditor({
         <div id={pasteId} className="space-y-2 rounded-md border border-paper-line bg-paper/60 p-3">
           <label htmlFor={`${pasteId}-text`} className="block text-sm text-ink-soft">
             Paste two columns (rpm and {valueLabel.toLowerCase()}
-            {unit.label ? ` in ${unit.label}` : ''}) to replace the table, or one column of values to fill the rows from the top. You can also paste straight into a box of the table.
+            {unit.label ? ` in ${unit.label}` : ''}) to replace the table, or one column of values to fill the rows from the top. You can also paste straight
+            into a box of the table.
           </label>
           <textarea
             id={`${pasteId}-text`}
@@ -186,7 +187,10 @@ export function RpmTableEditor({
         </div>
       )}
       {pasteMessage && (
-        <p role={pasteMessage.tone === 'error' ? 'alert' : 'status'} className={`text-sm ${pasteMessage.tone === 'error' ? 'text-copper-ink' : 'text-teal-dark'}`}>
+        <p
+          role={pasteMessage.tone === 'error' ? 'alert' : 'status'}
+          className={`text-sm ${pasteMessage.tone === 'error' ? 'text-copper-ink' : 'text-teal-dark'}`}
+        >
           {pasteMessage.text}
         </p>
       )}

@@ -1,6 +1,6 @@
-import { Button } from '../../../../components/Button';
-import { scenarioDashes } from '../../../../components/plots/style';
-import { getIn } from '../../lib/draft';
+import { Button } from '#src/components/Button';
+import { scenarioDashes } from '#src/components/plots/style';
+import { getIn } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
@@ -13,7 +13,14 @@ type Scenario = { name: string; ambient: Ambient; boostSchedule: BoostRow[] };
 /** A small picture of the line dash a scenario is drawn with on the plots. */
 function DashSample({ index }: { index: number }) {
   const dash = scenarioDashes[index % scenarioDashes.length];
-  const pattern: Record<string, string | undefined> = { solid: undefined, dash: '6 4', dot: '2 3', dashdot: '6 3 2 3', longdash: '10 4', longdashdot: '10 3 2 3' };
+  const pattern: Record<string, string | undefined> = {
+    solid: undefined,
+    dash: '6 4',
+    dot: '2 3',
+    dashdot: '6 3 2 3',
+    longdash: '10 4',
+    longdashdot: '10 3 2 3',
+  };
   return (
     <svg aria-hidden="true" width="34" height="8" className="shrink-0 text-ink">
       <line x1="1" y1="4" x2="33" y2="4" stroke="currentColor" strokeWidth="2" strokeDasharray={pattern[dash]} />
@@ -34,7 +41,17 @@ function BoostRowEditor({ si, ri, row, count }: { si: number; ri: number; row: B
       <div className="flex items-start justify-between gap-2">
         <SubHeading>Boost row {ri + 1}</SubHeading>
         {!editor.readOnly && (
-          <Button variant="quiet" disabled={count <= 1} onClick={() => editor.update(['scenarios', si, 'boostSchedule'], rows.filter((_r, k) => k !== ri))} aria-label={`Remove boost row ${row.label}`}>
+          <Button
+            variant="quiet"
+            disabled={count <= 1}
+            onClick={() =>
+              editor.update(
+                ['scenarios', si, 'boostSchedule'],
+                rows.filter((_r, k) => k !== ri),
+              )
+            }
+            aria-label={`Remove boost row ${row.label}`}
+          >
             Remove row
           </Button>
         )}
@@ -53,7 +70,13 @@ function BoostRowEditor({ si, ri, row, count }: { si: number; ri: number; row: B
         />
       </FieldRow>
       {row.kind === 'gear' && <CountField path={[...base, 'gear']} label="Gear" />}
-      <RpmTableEditor path={[...base, 'boost']} title={`Boost target, ${row.label || `row ${ri + 1}`}`} valueLabel="Boost" quantity="pressureGauge" defaultValue={100_000} />
+      <RpmTableEditor
+        path={[...base, 'boost']}
+        title={`Boost target, ${row.label || `row ${ri + 1}`}`}
+        valueLabel="Boost"
+        quantity="pressureGauge"
+        defaultValue={100_000}
+      />
     </div>
   );
 }
@@ -65,20 +88,32 @@ export function ScenariosSection() {
   function chooseAmbient(si: number, mode: 'altitude' | 'pressure') {
     const a = scenarios[si].ambient;
     const humidity = a.relativeHumidity !== undefined ? { relativeHumidity: a.relativeHumidity } : {};
-    if (mode === 'altitude') editor.update(['scenarios', si, 'ambient'], a.temperature === undefined ? { altitude: 0, ...humidity } : { altitude: 0, temperature: a.temperature, ...humidity });
+    if (mode === 'altitude')
+      editor.update(
+        ['scenarios', si, 'ambient'],
+        a.temperature === undefined ? { altitude: 0, ...humidity } : { altitude: 0, temperature: a.temperature, ...humidity },
+      );
     else editor.update(['scenarios', si, 'ambient'], { pressure: 101_325, temperature: a.temperature ?? 288.15, ...humidity });
   }
 
   function addScenario() {
     const last = scenarios[scenarios.length - 1];
-    const copy: Scenario = last ? structuredClone(last) : { name: '', ambient: { pressure: 101_325, temperature: 293.15 }, boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: [{ rpm: 3000, value: 100_000 }] }] };
+    const copy: Scenario = last
+      ? structuredClone(last)
+      : {
+          name: '',
+          ambient: { pressure: 101_325, temperature: 293.15 },
+          boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: [{ rpm: 3000, value: 100_000 }] }],
+        };
     copy.name = `Scenario ${scenarios.length + 1}`;
     editor.update(['scenarios'], [...scenarios, copy]);
   }
 
   return (
     <Section title="Scenarios" prefixes={['scenarios']} testId="section-scenarios">
-      <p className="text-xs text-ink-soft">Conditions of the day and a boost schedule. Every boost row is its own operating line for every plan; scenarios are told apart by line dash.</p>
+      <p className="text-xs text-ink-soft">
+        Conditions of the day and a boost schedule. Every boost row is its own operating line for every plan; scenarios are told apart by line dash.
+      </p>
       <GroupIssue path={['scenarios']} />
       {scenarios.map((s, si) => {
         const mode = s.ambient?.altitude !== undefined ? 'altitude' : 'pressure';
@@ -122,7 +157,9 @@ export function ScenariosSection() {
             />
             <GroupIssue path={['scenarios', si, 'ambient']} />
             <GroupIssue path={['scenarios', si, 'boostSchedule']} />
-            {s.boostSchedule?.map((row, ri) => <BoostRowEditor key={ri} si={si} ri={ri} row={row} count={s.boostSchedule.length} />)}
+            {s.boostSchedule?.map((row, ri) => (
+              <BoostRowEditor key={ri} si={si} ri={ri} row={row} count={s.boostSchedule.length} />
+            ))}
             {!editor.readOnly && (
               <div className="flex flex-wrap gap-2">
                 <Button
@@ -130,7 +167,9 @@ export function ScenariosSection() {
                   disabled={(s.boostSchedule?.length ?? 0) >= 20}
                   onClick={() => {
                     const last = s.boostSchedule[s.boostSchedule.length - 1];
-                    const row: BoostRow = last ? { ...structuredClone(last), label: `Row ${s.boostSchedule.length + 1}` } : { label: 'Full load', kind: 'full-load', boost: [{ rpm: 3000, value: 100_000 }] };
+                    const row: BoostRow = last
+                      ? { ...structuredClone(last), label: `Row ${s.boostSchedule.length + 1}` }
+                      : { label: 'Full load', kind: 'full-load', boost: [{ rpm: 3000, value: 100_000 }] };
                     editor.update(['scenarios', si, 'boostSchedule'], [...s.boostSchedule, row]);
                   }}
                 >
@@ -139,11 +178,25 @@ export function ScenariosSection() {
                 <Button
                   variant="quiet"
                   disabled={scenarios.length >= 20}
-                  onClick={() => editor.update(['scenarios'], [...scenarios.slice(0, si + 1), { ...structuredClone(s), name: `${s.name} (copy)` }, ...scenarios.slice(si + 1)])}
+                  onClick={() =>
+                    editor.update(
+                      ['scenarios'],
+                      [...scenarios.slice(0, si + 1), { ...structuredClone(s), name: `${s.name} (copy)` }, ...scenarios.slice(si + 1)],
+                    )
+                  }
                 >
                   Duplicate scenario
                 </Button>
-                <Button variant="quiet" disabled={scenarios.length <= 1} onClick={() => editor.update(['scenarios'], scenarios.filter((_x, k) => k !== si))}>
+                <Button
+                  variant="quiet"
+                  disabled={scenarios.length <= 1}
+                  onClick={() =>
+                    editor.update(
+                      ['scenarios'],
+                      scenarios.filter((_x, k) => k !== si),
+                    )
+                  }
+                >
                   Remove scenario
                 </Button>
               </div>

@@ -5,7 +5,19 @@ import { useEditor } from './context';
  * One group of inputs, folded open or shut by its heading. The heading counts the problems
  * inside (paths under `prefixes`), so a shut section with a problem still says so.
  */
-export function Section({ title, prefixes, children, defaultOpen = true, testId }: { title: string; prefixes: string[]; children: ReactNode; defaultOpen?: boolean; testId?: string }) {
+export function Section({
+  title,
+  prefixes,
+  children,
+  defaultOpen = true,
+  testId,
+}: {
+  title: string;
+  prefixes: string[];
+  children: ReactNode;
+  defaultOpen?: boolean;
+  testId?: string;
+}) {
   const { issues } = useEditor();
   const count = Object.keys(issues).filter((p) => prefixes.some((prefix) => p === prefix || p.startsWith(`${prefix}.`))).length;
   return (
@@ -17,7 +29,11 @@ export function Section({ title, prefixes, children, defaultOpen = true, testId 
           </span>
           <h3 className="font-semibold text-ink">{title}</h3>
         </span>
-        {count > 0 && <span className="rounded-full bg-copper-light px-2 py-0.5 text-xs font-semibold text-copper-ink">{count === 1 ? '1 problem' : `${count} problems`}</span>}
+        {count > 0 && (
+          <span className="rounded-full bg-copper-light px-2 py-0.5 text-xs font-semibold text-copper-ink">
+            {count === 1 ? '1 problem' : `${count} problems`}
+          </span>
+        )}
       </summary>
       <div className="space-y-4 border-t border-paper-line px-4 pb-4 pt-3">{children}</div>
     </details>

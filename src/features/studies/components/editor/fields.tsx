@@ -1,9 +1,9 @@
 import { useEffect, useId, useState, type ReactNode } from 'react';
-import { FieldError, inputClass } from '../../../../components/TextField';
-import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity } from '../../../../components/study/units';
-import { asSentence } from '../../../../lib/forms';
-import { getIn, pathKey, type DocPath } from '../../lib/draft';
-import { localizeIssue } from '../../lib/localize-issue';
+import { FieldError, inputClass } from '#src/components/TextField';
+import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity } from '#src/components/study/units';
+import { asSentence } from '#src/lib/forms';
+import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
+import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 
 /** A value shown, not edited: viewers and archived studies get text, not input boxes. */
@@ -137,7 +137,14 @@ export function UnitNumberInput({
           </span>
         )}
       </div>
-      {message && (compact ? <p id={errorId} className="mt-0.5 text-left text-xs font-medium text-copper-ink">{message}</p> : <FieldError id={errorId!}>{message}</FieldError>)}
+      {message &&
+        (compact ? (
+          <p id={errorId} className="mt-0.5 text-left text-xs font-medium text-copper-ink">
+            {message}
+          </p>
+        ) : (
+          <FieldError id={errorId!}>{message}</FieldError>
+        ))}
       {hint && (
         <p id={hintId} className="text-xs text-ink-soft">
           {hint}

@@ -1,13 +1,13 @@
 import { useMemo, useState } from 'react';
-import type { StudyDetail } from '../../../../../shared/schemas/study';
-import { diffDocuments } from '../../../../../shared/study/diff';
-import { Alert } from '../../../../components/Alert';
-import { Button } from '../../../../components/Button';
-import { Dialog } from '../../../../components/Dialog';
-import { TextField } from '../../../../components/TextField';
-import { isApiError } from '../../../../lib/api-client';
-import { formatDateTime } from '../../../../lib/format';
-import type { UnitSystem } from '../../../../lib/units';
+import type { StudyDetail } from '#shared/schemas/study';
+import { diffDocuments } from '#shared/study/diff';
+import { Alert } from '#src/components/Alert';
+import { Button } from '#src/components/Button';
+import { Dialog } from '#src/components/Dialog';
+import { TextField } from '#src/components/TextField';
+import { isApiError } from '#src/lib/api-client';
+import { formatDateTime } from '#src/lib/format';
+import type { UnitSystem } from '#src/lib/units';
 import { ChangeList } from './ChangeList';
 
 /**
@@ -64,14 +64,22 @@ export function ConflictDialog({
       onClose={() => !pending && onClose()}
       description={
         <p data-testid="conflict-description">
-          {who} saved revision {theirs.revision} at {formatDateTime(theirs.updatedAt)}, after revision {baseRevision} that your changes start from. Your changes are <strong>not saved</strong>.
+          {who} saved revision {theirs.revision} at {formatDateTime(theirs.updatedAt)}, after revision {baseRevision} that your changes start from. Your changes
+          are <strong>not saved</strong>.
         </p>
       }
     >
       <div className="space-y-4">
         <div className="space-y-1">
           <p className="text-sm font-semibold text-ink">Their revision {theirs.revision} against your changes</p>
-          <ChangeList changes={changes} unitSystem={unitSystem} beforeLabel="Theirs" afterLabel="Yours" limit={6} caption="Differences between their saved version and yours" />
+          <ChangeList
+            changes={changes}
+            unitSystem={unitSystem}
+            beforeLabel="Theirs"
+            afterLabel="Yours"
+            limit={6}
+            caption="Differences between their saved version and yours"
+          />
         </div>
         {error && <Alert tone="error">{error}</Alert>}
         {copying ? (

@@ -1,16 +1,16 @@
 import { useMemo, useState } from 'react';
-import type { StudyDetail } from '../../../../../shared/schemas/study';
-import { diffDocuments } from '../../../../../shared/study/diff';
-import { Alert } from '../../../../components/Alert';
-import { Badge } from '../../../../components/Badge';
-import { ConfirmButton } from '../../../../components/ConfirmButton';
-import { Loading } from '../../../../components/Page';
-import { formatDateTime } from '../../../../lib/format';
-import type { UnitSystem } from '../../../../lib/units';
-import { useRevision } from '../../api/get-revision';
-import { useRevisions } from '../../api/get-revisions';
-import { useRestoreRevision } from '../../api/restore-revision';
-import { staleRevisionOf } from '../../api/save-study';
+import type { StudyDetail } from '#shared/schemas/study';
+import { diffDocuments } from '#shared/study/diff';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { Loading } from '#src/components/Page';
+import { formatDateTime } from '#src/lib/format';
+import type { UnitSystem } from '#src/lib/units';
+import { useRevision } from '#src/features/studies/api/get-revision';
+import { useRevisions } from '#src/features/studies/api/get-revisions';
+import { useRestoreRevision } from '#src/features/studies/api/restore-revision';
+import { staleRevisionOf } from '#src/features/studies/api/save-study';
 import { ChangeList } from './ChangeList';
 
 /**
@@ -109,7 +109,13 @@ export function HistoryPanel({
             From revision {older} to {newer}
           </h4>
           {changes ? (
-            <ChangeList changes={changes} unitSystem={unitSystem} beforeLabel={`Revision ${older}`} afterLabel={`Revision ${newer}`} caption={`Changes from revision ${older} to ${newer}`} />
+            <ChangeList
+              changes={changes}
+              unitSystem={unitSystem}
+              beforeLabel={`Revision ${older}`}
+              afterLabel={`Revision ${newer}`}
+              caption={`Changes from revision ${older} to ${newer}`}
+            />
           ) : olderRev.isError || newerRev.isError ? (
             <Alert tone="error">{(olderRev.error ?? newerRev.error)?.message}</Alert>
           ) : (

@@ -1,7 +1,7 @@
 import { useEffect, useRef } from 'react';
 import { useBlocker } from 'react-router';
-import { Button } from '../../../../components/Button';
-import { Dialog } from '../../../../components/Dialog';
+import { Button } from '#src/components/Button';
+import { Dialog } from '#src/components/Dialog';
 
 /**
  * Asks before leaving a study with unsaved changes: inside the app with our own dialog, and for

@@ -1,5 +1,5 @@
 import { useId, useState } from 'react';
-import { Button } from '../../../../components/Button';
+import { Button } from '#src/components/Button';
 
 /**
  * Save with an optional message. Saving is offered only when there is something valid to save;

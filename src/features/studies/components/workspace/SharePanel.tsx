@@ -1,19 +1,19 @@
 import { useId, useState } from 'react';
-import { createShareLinkSchema } from '../../../../../shared/schemas/study';
-import { Alert } from '../../../../components/Alert';
-import { Badge } from '../../../../components/Badge';
-import { Button } from '../../../../components/Button';
-import { ConfirmButton } from '../../../../components/ConfirmButton';
-import { Loading } from '../../../../components/Page';
-import { Switch } from '../../../../components/Switch';
-import { inputClass } from '../../../../components/TextField';
-import { isApiError } from '../../../../lib/api-client';
-import { formatDateTime } from '../../../../lib/format';
-import { useCreateShareLink } from '../../api/create-share-link';
-import { useKeepShareLink } from '../../api/keep-share-link';
-import { useShareLinks, type ShareLink } from '../../api/get-share-links';
-import { useRevokeShareLink } from '../../api/revoke-share-link';
-import { useTeamAccess } from '../../hooks/use-team-access';
+import { createShareLinkSchema } from '#shared/schemas/study';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { Button } from '#src/components/Button';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { Loading } from '#src/components/Page';
+import { Switch } from '#src/components/Switch';
+import { inputClass } from '#src/components/TextField';
+import { isApiError } from '#src/lib/api-client';
+import { formatDateTime } from '#src/lib/format';
+import { useCreateShareLink } from '#src/features/studies/api/create-share-link';
+import { useKeepShareLink } from '#src/features/studies/api/keep-share-link';
+import { useShareLinks, type ShareLink } from '#src/features/studies/api/get-share-links';
+import { useRevokeShareLink } from '#src/features/studies/api/revoke-share-link';
+import { useTeamAccess } from '#src/features/studies/hooks/use-team-access';
 
 function linkState(link: ShareLink): { label: string; tone: 'teal' | 'neutral' | 'copper' } {
   if (link.revokedAt) return { label: 'revoked', tone: 'neutral' };
@@ -44,7 +44,8 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
     // Empty days: the server's default of 30; "never" only when ticked.
     const input = never ? { expiresInDays: null } : days.trim() === '' ? {} : { expiresInDays: Number(days) };
     const parsed = createShareLinkSchema.safeParse(input);
-    if (!parsed.success || (!never && days.trim() !== '' && !/^\d+$/.test(days.trim()))) return setError('Days must be a whole number from 1 to 365 (empty means 30), or tick "Never expires".');
+    if (!parsed.success || (!never && days.trim() !== '' && !/^\d+$/.test(days.trim())))
+      return setError('Days must be a whole number from 1 to 365 (empty means 30), or tick "Never expires".');
     try {
       const link = await create.mutateAsync(parsed.data);
       setFresh(link.url ?? null);
@@ -56,7 +57,9 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
 
   return (
     <div className="space-y-4" data-testid="share-panel">
-      <p className="text-sm text-ink-soft">Anyone with a share link can open this study read-only, without signing in: the inputs, plots, results and findings of its latest saved revision.</p>
+      <p className="text-sm text-ink-soft">
+        Anyone with a share link can open this study read-only, without signing in: the inputs, plots, results and findings of its latest saved revision.
+      </p>
       <form onSubmit={make} className="flex flex-wrap items-end gap-2" noValidate>
         <div className="space-y-1">
           <label htmlFor={daysId} className="block text-sm font-semibold text-ink">
@@ -89,7 +92,14 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
         <div className="space-y-2 rounded-md border border-teal/40 bg-teal-light/40 p-3" role="status">
           <p className="text-sm font-semibold text-ink">Copy the link now: it is shown only this once.</p>
           <div className="flex flex-wrap items-center gap-2">
-            <input readOnly value={fresh} aria-label="New share link" onFocus={(e) => e.target.select()} className={`${inputClass} min-w-0 flex-1 font-mono text-xs`} data-testid="share-url" />
+            <input
+              readOnly
+              value={fresh}
+              aria-label="New share link"
+              onFocus={(e) => e.target.select()}
+              className={`${inputClass} min-w-0 flex-1 font-mono text-xs`}
+              data-testid="share-url"
+            />
             <Button
               onClick={async () => {
                 try {
@@ -120,13 +130,18 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
               <li key={link.id} className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2 px-3 py-2 text-sm" data-testid="share-link">
                 <div className="min-w-0 space-y-2">
                   <p>
-                    <Badge tone={state.tone}>{state.label}</Badge>{' '}
-                    made {formatDateTime(link.createdAt)}
+                    <Badge tone={state.tone}>{state.label}</Badge> made {formatDateTime(link.createdAt)}
                     {link.createdBy ? ` by ${link.createdBy}` : ''}
                     <span className="block text-ink-soft">
-                      {link.revokedAt ? `Revoked ${formatDateTime(link.revokedAt)}` : link.expiresAt ? `Expires ${formatDateTime(link.expiresAt)}` : 'Does not expire'}
+                      {link.revokedAt
+                        ? `Revoked ${formatDateTime(link.revokedAt)}`
+                        : link.expiresAt
+                          ? `Expires ${formatDateTime(link.expiresAt)}`
+                          : 'Does not expire'}
                       {/* Owners read it off their switch below. */}
-                      {!link.revokedAt && !(isOwner && state.label === 'active') && (link.kept ? ' · an owner keeps it if its maker leaves the team' : ' · stops if its maker leaves the team')}
+                      {!link.revokedAt &&
+                        !(isOwner && state.label === 'active') &&
+                        (link.kept ? ' · an owner keeps it if its maker leaves the team' : ' · stops if its maker leaves the team')}
                     </span>
                   </p>
                   {isOwner && state.label === 'active' && <KeepSwitch link={link} keep={keep} />}

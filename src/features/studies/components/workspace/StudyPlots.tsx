@@ -1,18 +1,18 @@
 import { memo, useCallback, useDeferredValue, useId, useMemo, useRef, useState } from 'react';
-import type { SpoolbookMap } from '../../../../../shared/maps/types';
-import { Card } from '../../../../components/Card';
-import { CompressorMapPlot } from '../../../../components/plots/CompressorMapPlot';
-import { PlotPlaceholder } from '../../../../components/plots/Plot';
-import { TurbineMapPlot } from '../../../../components/plots/TurbineMapPlot';
-import { ExhaustSummary } from '../../../../components/study/ExhaustSummary';
-import { FindingsList } from '../../../../components/study/FindingsList';
-import { PlanSwatch } from '../../../../components/study/PlanSwatch';
-import { findPoint, mapLineViews, turbineLineViews, type PointRef } from '../../../../components/study/lines';
-import { PlanVerdicts } from '../../../../components/study/PlanVerdicts';
-import { ResultsTable } from '../../../../components/study/ResultsTable';
-import { RpmCurves } from '../../../../components/study/RpmCurves';
-import { WorkingPanel } from '../../../../components/study/WorkingPanel';
-import type { UnitSystem } from '../../../../lib/units';
+import type { SpoolbookMap } from '#shared/maps/types';
+import { Card } from '#src/components/Card';
+import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
+import { PlotPlaceholder } from '#src/components/plots/Plot';
+import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
+import { ExhaustSummary } from '#src/components/study/ExhaustSummary';
+import { FindingsList } from '#src/components/study/FindingsList';
+import { PlanSwatch } from '#src/components/study/PlanSwatch';
+import { findPoint, mapLineViews, turbineLineViews, type PointRef } from '#src/components/study/lines';
+import { PlanVerdicts } from '#src/components/study/PlanVerdicts';
+import { ResultsTable } from '#src/components/study/ResultsTable';
+import { RpmCurves } from '#src/components/study/RpmCurves';
+import { WorkingPanel } from '#src/components/study/WorkingPanel';
+import type { UnitSystem } from '#src/lib/units';
 import type { Computed } from './use-study-editor';
 
 const MemoMap = memo(CompressorMapPlot);
@@ -206,13 +206,24 @@ export function StudyPlots({
           }
         >
           <p className="mb-2 text-xs text-ink-soft">
-            Where each turbine runs: expansion ratio across the turbine against the flow it swallows. Points below the boost threshold run with the gates shut; above it the
-            gates pass the rest. A red or copper outline marks a point with a finding.
+            Where each turbine runs: expansion ratio across the turbine against the flow it swallows. Points below the boost threshold run with the gates shut;
+            above it the gates pass the rest. A red or copper outline marks a point with a finding.
           </p>
           {turbineMap && turbineMap.kind === 'turbine' ? (
-            <MemoTurbineMap map={turbineMap} lines={turbineLines} unitSystem={unitSystem} highlight={highlight} onPointClick={selectOnMap} height={480} exportName={`${title} turbine map`} />
+            <MemoTurbineMap
+              map={turbineMap}
+              lines={turbineLines}
+              unitSystem={unitSystem}
+              highlight={highlight}
+              onPointClick={selectOnMap}
+              height={480}
+              exportName={`${title} turbine map`}
+            />
           ) : (
-            <PlotPlaceholder height={320} label={mapErrors.some((e) => e.mapId === turbineMapId) ? 'The turbine map of this plan could not be loaded.' : 'Loading the turbine map…'} />
+            <PlotPlaceholder
+              height={320}
+              label={mapErrors.some((e) => e.mapId === turbineMapId) ? 'The turbine map of this plan could not be loaded.' : 'Loading the turbine map…'}
+            />
           )}
           <div className="mt-4">
             <ExhaustSummary lines={(later ?? computed).lines} unitSystem={unitSystem} />
@@ -224,11 +235,23 @@ export function StudyPlots({
         <Card title="Findings">
           <MemoFindings lines={(later ?? computed).lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
         </Card>
-        <WorkingPanel line={selectedPoint?.line ?? selectedLine ?? null} point={selectedPoint?.point ?? null} unitSystem={unitSystem} onClose={() => onSelect(null)} />
+        <WorkingPanel
+          line={selectedPoint?.line ?? selectedLine ?? null}
+          point={selectedPoint?.point ?? null}
+          unitSystem={unitSystem}
+          onClose={() => onSelect(null)}
+        />
       </div>
 
       <Card title="Against engine speed">
-        <MemoCurves lines={(later ?? computed).lines} unitSystem={unitSystem} highlight={highlight} onPointClick={select} outletTemperatureLimit={outletLimit} exportName={title} />
+        <MemoCurves
+          lines={(later ?? computed).lines}
+          unitSystem={unitSystem}
+          highlight={highlight}
+          onPointClick={select}
+          outletTemperatureLimit={outletLimit}
+          exportName={title}
+        />
       </Card>
 
       <Card title="Results">

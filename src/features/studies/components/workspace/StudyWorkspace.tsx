@@ -1,28 +1,28 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import { Link, useNavigate } from 'react-router';
-import type { StudyDetail } from '../../../../../shared/schemas/study';
-import { Alert } from '../../../../components/Alert';
-import { Badge } from '../../../../components/Badge';
-import { Button, ButtonLink, buttonClass } from '../../../../components/Button';
-import { Card } from '../../../../components/Card';
-import { ConfirmButton } from '../../../../components/ConfirmButton';
-import { Loading, useDocumentTitle } from '../../../../components/Page';
-import type { PointRef } from '../../../../components/study/lines';
-import { StudyCaution } from '../../../../components/study/StudyCaution';
-import { isApiError } from '../../../../lib/api-client';
-import { formatDateTime } from '../../../../lib/format';
-import { paths } from '../../../../lib/paths';
-import { useUnitSystem } from '../../../../lib/units';
-import { useCreateStudy } from '../../api/create-study';
-import { useDeleteStudy } from '../../api/delete-study';
-import { useStudyMaps } from '../../api/get-map';
-import { useStudy } from '../../api/get-study';
-import { useCompressorMaps, useTurbineMaps } from '../../api/get-team-maps';
-import { studyKeys } from '../../api/keys';
-import { resultsCsvHref } from '../../api/results-csv';
-import { staleRevisionOf, useSaveStudy } from '../../api/save-study';
-import { useUpdateStudyMeta } from '../../api/update-study-meta';
+import type { StudyDetail } from '#shared/schemas/study';
+import { Alert } from '#src/components/Alert';
+import { Badge } from '#src/components/Badge';
+import { Button, ButtonLink, buttonClass } from '#src/components/Button';
+import { Card } from '#src/components/Card';
+import { ConfirmButton } from '#src/components/ConfirmButton';
+import { Loading, useDocumentTitle } from '#src/components/Page';
+import type { PointRef } from '#src/components/study/lines';
+import { StudyCaution } from '#src/components/study/StudyCaution';
+import { isApiError } from '#src/lib/api-client';
+import { formatDateTime } from '#src/lib/format';
+import { paths } from '#src/lib/paths';
+import { useUnitSystem } from '#src/lib/units';
+import { useCreateStudy } from '#src/features/studies/api/create-study';
+import { useDeleteStudy } from '#src/features/studies/api/delete-study';
+import { useStudyMaps } from '#src/features/studies/api/get-map';
+import { useStudy } from '#src/features/studies/api/get-study';
+import { useCompressorMaps, useTurbineMaps } from '#src/features/studies/api/get-team-maps';
+import { studyKeys } from '#src/features/studies/api/keys';
+import { resultsCsvHref } from '#src/features/studies/api/results-csv';
+import { staleRevisionOf, useSaveStudy } from '#src/features/studies/api/save-study';
+import { useUpdateStudyMeta } from '#src/features/studies/api/update-study-meta';
 import { AssumptionsSection } from '../editor/AssumptionsSection';
 import { EditorContext, type Editor } from '../editor/context';
 import { EngineSection } from '../editor/EngineSection';
@@ -161,7 +161,12 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
             {study.canEdit && panelButton('share', 'Share')}
             <ButtonLink to={paths.teamStudyCompare.href(teamId, study.id)}>Side by side</ButtonLink>
             <ButtonLink to={paths.teamStudyReport.href(teamId, study.id)}>Printable report</ButtonLink>
-            <a href={resultsCsvHref(teamId, study.id)} download className={buttonClass('secondary')} title="Every point of the last saved revision, in SI units">
+            <a
+              href={resultsCsvHref(teamId, study.id)}
+              download
+              className={buttonClass('secondary')}
+              title="Every point of the last saved revision, in SI units"
+            >
               Results CSV
             </a>
             {study.canEdit && (
@@ -213,7 +218,15 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
         )}
 
         {panel === 'history' && (
-          <Card id="panel-history" title="History" actions={<Button variant="quiet" onClick={() => setPanel(null)}>Close</Button>}>
+          <Card
+            id="panel-history"
+            title="History"
+            actions={
+              <Button variant="quiet" onClick={() => setPanel(null)}>
+                Close
+              </Button>
+            }
+          >
             <HistoryPanel
               teamId={teamId}
               studyId={study.id}
@@ -228,7 +241,15 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
           </Card>
         )}
         {panel === 'share' && study.canEdit && (
-          <Card id="panel-share" title="Share links" actions={<Button variant="quiet" onClick={() => setPanel(null)}>Close</Button>}>
+          <Card
+            id="panel-share"
+            title="Share links"
+            actions={
+              <Button variant="quiet" onClick={() => setPanel(null)}>
+                Close
+              </Button>
+            }
+          >
             <SharePanel teamId={teamId} studyId={study.id} />
           </Card>
         )}
