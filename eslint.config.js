@@ -28,16 +28,21 @@ export default tseslint.config(
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
+    // Hooks live in the client only (elsewhere a `use…` name is no hook: psychrolib's useSi).
+    files: ['src/**/*.{ts,tsx}', 'tests/unit/client/**/*.tsx'],
+    plugins: { 'react-hooks': reactHooks },
+    rules: reactHooks.configs.recommended.rules,
+  },
+  {
     files: ['**/*.{js,mjs}'],
     languageOptions: { globals: globals.node },
   },
   {
     files: SOURCES,
     languageOptions: { globals: { ...globals.node, ...globals.browser } },
-    plugins: { 'import-x': importX, 'react-hooks': reactHooks },
+    plugins: { 'import-x': importX },
     settings: { 'import-x/resolver-next': [createTypeScriptImportResolver({ project: 'tsconfig.json' })] },
     rules: {
-      ...reactHooks.configs.recommended.rules,
       // Control characters are matched on purpose: untrusted text (map files, mail, names) is cleaned of them.
       'no-control-regex': 'off',
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none' }],

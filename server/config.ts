@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { issuePath } from '#shared/schemas/issue-path';
 
 const port = z.coerce.number().int().min(0).max(65535);
 const LOOPBACK = new Set(['127.0.0.1', 'localhost', '::1']);
@@ -82,7 +83,7 @@ export interface Config {
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.safeParse(env);
   if (!parsed.success) {
-    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    const lines = parsed.error.issues.map((i) => `  ${issuePath(i.path)}: ${i.message}`).join('\n');
     throw new Error(`Invalid configuration:\n${lines}`);
   }
   const e = parsed.data;

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ZodType, z } from 'zod';
+import { issuePath } from '#shared/schemas/issue-path';
 
 /** An error meant for the client: status, a stable code, a plain message and optional details. */
 export class HttpError extends Error {
@@ -28,7 +29,7 @@ export interface FieldIssue {
 /** Turns zod issues into `{ path, message }` pairs with dotted paths such as `engine.displacement`. */
 export function issuesOf(error: z.ZodError): FieldIssue[] {
   return error.issues.map((issue) => ({
-    path: issue.path.map(String).join('.') || '(body)',
+    path: issuePath(issue.path, '(body)'),
     message: issue.message,
   }));
 }

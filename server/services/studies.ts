@@ -6,10 +6,11 @@ import { writeCsv } from '#shared/csv';
 import type { SpoolbookMap } from '#shared/maps/types';
 import { runStudyDocument } from '#shared/study/run';
 import { resultRecords } from '#shared/matching/results-table';
-import { migrateStudyDocument, studyDocumentSchema, StudyVersionError, type StudyDocument } from '#shared/schemas/study';
+import { studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { readStudyDocument, studyMapIds } from '#shared/study/document';
 import type { Db } from '../db/client';
 import { maps, studies, users } from '../db/schema';
-import { HttpError, issuesOf } from '../http/errors';
+import { HttpError } from '../http/errors';
 import { builtinMap, BUILTIN_PREFIX } from './builtin-maps';
 
 const demoDir = fileURLToPath(new URL('../../data/demo/', import.meta.url));
@@ -27,20 +28,10 @@ export function demoStudyDocument(file: string = DEMO_STUDY_FILES.compressor): S
  * or throws a 400 whose issue paths start with `document.`.
  */
 export function validDocument(raw: unknown): StudyDocument {
-  let migrated: unknown;
-  try {
-    migrated = migrateStudyDocument(raw);
-  } catch (err) {
-    if (err instanceof StudyVersionError)
-      throw new HttpError(400, 'invalid_input', err.message, { issues: [{ path: 'document.schemaVersion', message: err.message }] });
-    throw err;
-  }
-  const parsed = studyDocumentSchema.safeParse(migrated);
-  if (!parsed.success) {
-    const issues = issuesOf(parsed.error).map((i) => ({ path: i.path === '(body)' ? 'document' : `document.${i.path}`, message: i.message }));
-    throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
-  }
-  return parsed.data;
+  const read = readStudyDocument(raw);
+  if (read.ok) return read.document;
+  const issues = read.issues.map((i) => ({ path: i.path ? `document.${i.path}` : 'document', message: i.message }));
+  throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
 }
 
 /**
@@ -48,7 +39,7 @@ export function validDocument(raw: unknown): StudyDocument {
  * compressor's, a turbine map as the exhaust side's.
  */
 export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocument) {
-  const ids = [...new Set(doc.plans.flatMap((p) => [p.compressorMapId, p.turbineMapId ?? null]).filter((id): id is string => !!id))];
+  const ids = studyMapIds(doc.plans);
   const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
   const found = teamIds.length
     ? await db
@@ -80,7 +71,7 @@ export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocumen
 
 /** The parsed maps a study's plans use (compressor and turbine), by id. */
 export async function mapsOfStudy(db: Db, teamId: string, doc: StudyDocument): Promise<Record<string, SpoolbookMap>> {
-  const ids = [...new Set(doc.plans.flatMap((p) => [p.compressorMapId, p.turbineMapId ?? null]).filter((id): id is string => !!id))];
+  const ids = studyMapIds(doc.plans);
   const out: Record<string, SpoolbookMap> = {};
   for (const id of ids) {
     if (id.startsWith(BUILTIN_PREFIX)) {

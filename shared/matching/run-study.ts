@@ -16,6 +16,7 @@ import { clearUnreachableResults } from './reach';
 import { resolveRequirements } from './requirements';
 import { lineProblems, solvePoint } from './run-point';
 import type { LineContext, OperatingLine, OperatingPoint, PlanInput, StudyInput, StudyResult, ValueAtRpm } from './types';
+import { issuePath } from '../schemas/issue-path';
 
 export interface RunStudyOptions {
   /** The compressor model of each Plan, by Plan index (supplied at call time, never stored in the study). */
@@ -40,7 +41,7 @@ export class StudyInputError extends Error {
 }
 
 function issuesOf(error: z.ZodError): { path: string; message: string }[] {
-  return error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(study)', message: i.message }));
+  return error.issues.map((i) => ({ path: issuePath(i.path, '(study)'), message: i.message }));
 }
 
 /** Parses a study input with the study schema, or throws StudyInputError naming each bad field. */

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import { isApiError } from './api-client';
+import { issuePath } from '#shared/schemas/issue-path';
 
 /** What a form shows: a general message above it and messages beside named fields. */
 export interface FormErrors {
@@ -57,7 +58,7 @@ export function parseForm<S extends z.ZodType>(
   const fields: Record<string, string> = {};
   const general: string[] = [];
   for (const issue of result.error.issues) {
-    const path = issue.path.map(String).join('.');
+    const path = issuePath(issue.path);
     const shownBesideField = path !== '' && (fieldNames === undefined || fieldNames.includes(path));
     if (!shownBesideField) general.push(asSentence(path === '' ? issue.message : `${path}: ${issue.message}`));
     else if (!(path in fields)) fields[path] = asSentence(issue.message);

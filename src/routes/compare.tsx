@@ -1,10 +1,10 @@
 import { useMemo } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
-import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import type { StudyDocument } from '#shared/schemas/study';
+import { readStudyDocument, studyMapIds } from '#shared/study/document';
 import { Alert } from '../components/Alert';
 import { buttonClass } from '../components/Button';
 import { Loading, Page } from '../components/Page';
-import { studyMapIds } from '../components/study/run';
 import { CompareView } from '../features/compare/components/CompareView';
 import { selectionFromParam, selectionParam } from '../features/compare/selection';
 import { useStudy, useStudyMaps } from '../features/studies/api';
@@ -12,14 +12,8 @@ import { paths } from '../lib/paths';
 import { useUnitSystem } from '../lib/units';
 
 function parseDocument(raw: unknown): StudyDocument | string {
-  try {
-    const parsed = studyDocumentSchema.safeParse(migrateStudyDocument(raw));
-    if (parsed.success) return parsed.data;
-    const issue = parsed.error.issues[0];
-    return `${issue.path.join('.') || 'document'}: ${issue.message}`;
-  } catch (error) {
-    return error instanceof Error ? error.message : 'unreadable document';
-  }
+  const read = readStudyDocument(raw);
+  return read.ok ? read.document : read.message;
 }
 
 /** `/teams/:teamId/studies/:studyId/compare?lines=…`: Side by side of the saved study. */

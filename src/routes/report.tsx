@@ -1,34 +1,20 @@
 import '../styles/print.css';
 import { useMemo } from 'react';
 import { useParams } from 'react-router';
-import type { StudyDocument } from '#shared/schemas/study';
-import { migrateStudyDocument, studyDocumentSchema } from '#shared/schemas/study';
+import { readStudyDocument, studyMapIds } from '#shared/study/document';
 import { Alert } from '../components/Alert';
 import { Loading, Page } from '../components/Page';
-import { studyMapIds } from '../components/study/run';
 import { StudyReport } from '../features/report/components/StudyReport';
 import { useStudy, useStudyMaps } from '../features/studies/api';
 import { paths } from '../lib/paths';
 import { useUnitSystem } from '../lib/units';
-
-/** The saved document, checked by the shared schema (the server checked it too; a drift shows here). */
-function parseDocument(raw: unknown): { ok: true; document: StudyDocument } | { ok: false; message: string } {
-  try {
-    const parsed = studyDocumentSchema.safeParse(migrateStudyDocument(raw));
-    if (parsed.success) return { ok: true, document: parsed.data };
-    const issue = parsed.error.issues[0];
-    return { ok: false, message: `${issue.path.join('.') || 'document'}: ${issue.message}` };
-  } catch (error) {
-    return { ok: false, message: error instanceof Error ? error.message : 'unreadable document' };
-  }
-}
 
 /** `/teams/:teamId/studies/:studyId/report`: the saved study as a report made for printing. */
 export function ReportRoute() {
   const { teamId = '', studyId = '' } = useParams();
   const study = useStudy(teamId, studyId);
   const system = useUnitSystem();
-  const parsed = useMemo(() => (study.data ? parseDocument(study.data.document) : null), [study.data]);
+  const parsed = useMemo(() => (study.data ? readStudyDocument(study.data.document) : null), [study.data]);
   const mapIds = parsed?.ok ? studyMapIds(parsed.document.plans) : [];
   const maps = useStudyMaps(teamId, mapIds);
 

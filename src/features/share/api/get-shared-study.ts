@@ -1,7 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { SpoolbookMap } from '#shared/maps/types';
 import { spoolbookMapSchema } from '#shared/schemas/map';
-import { migrateStudyDocument, sharedStudySchema, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { sharedStudySchema, type StudyDocument } from '#shared/schemas/study';
+import { readStudyDocument } from '#shared/study/document';
 import { api, ApiError, segment } from '#src/lib/api-client';
 
 /** A study opened through a share link: the document checked by the shared schema, and its maps. */
@@ -27,15 +28,15 @@ function unreadable(what: string, details: unknown): ApiError {
 /** Reads a shared study without signing in; 404 when the link is unknown, revoked or expired. */
 export async function getSharedStudy(token: string): Promise<SharedStudy> {
   const body = await api.get(`/api/share/${segment(token)}`, sharedStudySchema);
-  const document = studyDocumentSchema.safeParse(migrateStudyDocument(body.document));
-  if (!document.success) throw unreadable('its document', document.error.issues);
+  const document = readStudyDocument(body.document);
+  if (!document.ok) throw unreadable('its document', document.issues);
   const mapsById: Record<string, SpoolbookMap> = {};
   for (const [id, raw] of Object.entries(body.maps)) {
     const map = spoolbookMapSchema.safeParse(raw);
     if (!map.success) throw unreadable(`map ${id}`, map.error.issues);
     mapsById[id] = map.data;
   }
-  return { title: body.title, revision: body.revision, updatedAt: body.updatedAt, document: document.data, mapsById };
+  return { title: body.title, revision: body.revision, updatedAt: body.updatedAt, document: document.document, mapsById };
 }
 
 export const sharedStudyQueryOptions = (token: string) =>

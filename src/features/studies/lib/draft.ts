@@ -1,3 +1,5 @@
+import { issuePath } from '#shared/schemas/issue-path';
+
 /** A path into the study document: object keys and array indexes. */
 export type DocPath = readonly (string | number)[];
 
@@ -36,14 +38,14 @@ export function setIn<T>(root: T, path: DocPath, value: unknown): T {
 
 /** The dotted form of a path, as zod issues and the server name fields: `scenarios.0.ambient.altitude`. */
 export function pathKey(path: DocPath): string {
-  return path.map(String).join('.');
+  return issuePath(path);
 }
 
 /** Issues of a zod parse keyed by dotted path, first message per path. */
 export function issuesByPath(issues: readonly { path: readonly PropertyKey[]; message: string }[]): Record<string, string> {
   const out: Record<string, string> = {};
   for (const issue of issues) {
-    const key = issue.path.map(String).join('.');
+    const key = issuePath(issue.path);
     if (!(key in out)) out[key] = issue.message;
   }
   return out;

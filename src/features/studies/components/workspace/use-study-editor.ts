@@ -3,7 +3,8 @@ import type { SpoolbookMap } from '#shared/maps/types';
 import type { StudyResult } from '#shared/matching/types';
 import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
 import { studyLines, type StudyLine } from '#src/components/study/lines';
-import { runStudyLive, studyMapIds } from '#src/components/study/run';
+import { runStudyLive } from '#src/components/study/run';
+import { studyMapIds } from '#shared/study/document';
 import { issuesByPath, setIn, type DocPath } from '#src/features/studies/lib/draft';
 
 /** What the editor started from: the saved revision its edits will be based on. */
