@@ -1,53 +1,13 @@
 import { and, eq } from 'drizzle-orm';
 import type { User } from 'lucia';
+import { can, permittedWithoutSecondFactor, type Permission } from '#shared/permissions';
 import type { Role } from '#shared/schemas/account';
 import type { Db } from '../db/client';
 import { teamMembers, teams } from '../db/schema';
 import { forbidden, HttpError, notFound } from '../http/errors';
 
-/** Everything a member may do in a team, as `area:action` strings. */
-export type Permission =
-  | 'team:read'
-  | 'team:rename'
-  | 'team:delete'
-  | 'members:list'
-  | 'members:invite'
-  | 'members:change-role'
-  | 'members:remove'
-  | 'team:leave'
-  | 'content:read'
-  | 'content:write'
-  | 'audit:read'
-  | 'team:export'
-  | 'team:import';
-
-const viewer: Permission[] = ['team:read', 'members:list', 'team:leave', 'content:read'];
-const editor: Permission[] = [...viewer, 'content:write'];
-const owner: Permission[] = [
-  ...editor,
-  'team:rename',
-  'team:delete',
-  'members:invite',
-  'members:change-role',
-  'members:remove',
-  'audit:read',
-  'team:export',
-  'team:import',
-];
-
-export const rolePermissions: Record<Role, ReadonlySet<Permission>> = {
-  viewer: new Set(viewer),
-  editor: new Set(editor),
-  owner: new Set(owner),
-};
-
-/** What a site admin may do in a team they are not a member of: look, never change. */
-const adminPermissions: ReadonlySet<Permission> = new Set(['team:read', 'members:list', 'content:read']);
-
-export function can(role: Role | null, permission: Permission, isAdmin = false): boolean {
-  if (role && rolePermissions[role].has(permission)) return true;
-  return isAdmin && adminPermissions.has(permission);
-}
+// The rule itself (who may do what) is shared with the client: shared/permissions.ts.
+export { can, type Permission };
 
 export interface TeamAccess {
   teamId: string;
@@ -58,9 +18,6 @@ export interface TeamAccess {
   /** Members must have the second factor on to open the team's data. */
   requireTwoFactor: boolean;
 }
-
-/** What a member without a second factor may still do in a team that asks for one. */
-const WITHOUT_SECOND_FACTOR: ReadonlySet<Permission> = new Set(['team:leave']);
 
 /**
  * The one place that decides access to a team's data. A team the user cannot see answers 404
@@ -77,7 +34,7 @@ export async function requireTeamPermission(db: Db, user: User, teamId: string, 
   if (!row || (!row.role && !user.isAdmin)) throw notFound('No such team.');
   const access: TeamAccess = { teamId: row.teamId, teamName: row.teamName, personal: row.personal, role: row.role, requireTwoFactor: row.requireTwoFactor };
   if (!can(access.role, permission, user.isAdmin)) throw forbidden();
-  if (access.requireTwoFactor && access.role && !user.twoFactor && !WITHOUT_SECOND_FACTOR.has(permission)) {
+  if (access.requireTwoFactor && access.role && !user.twoFactor && !permittedWithoutSecondFactor.has(permission)) {
     throw new HttpError(
       403,
       'two_factor_required',

@@ -352,7 +352,7 @@ export function studiesRouter({ db, config }: AppDeps): Router {
   /** An owner keeps a link working after its maker leaves the team (or stops keeping it). */
   router.put('/:studyId/share-links/:linkId/kept', async (req, res) => {
     const user = requireUser(res);
-    const access = await requireTeamPermission(db, user, teamIdOf(req.params), 'members:remove');
+    const access = await requireTeamPermission(db, user, teamIdOf(req.params), 'share-links:keep');
     const input = parseOr400(keepShareLinkSchema, req.body);
     await loadStudy(access, studyIdOf(req.params));
     const rows = await db

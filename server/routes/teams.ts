@@ -85,7 +85,7 @@ export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
   /** An owner asks every member to use a second factor (or stops asking). */
   router.put('/:teamId/two-factor', async (req, res) => {
     const user = requireUser(res);
-    const access = await requireTeamPermission(db, user, req.params.teamId, 'team:rename');
+    const access = await requireTeamPermission(db, user, req.params.teamId, 'team:require-two-factor');
     const input = parseOr400(teamTwoFactorSchema, req.body);
     if (input.required && !user.twoFactor) {
       throw new HttpError(

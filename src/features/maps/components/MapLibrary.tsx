@@ -10,7 +10,7 @@ import { isApiError, isTwoFactorRequired } from '#src/lib/api-client';
 import { paths } from '#src/lib/paths';
 import { useUnitSystem } from '#src/lib/units';
 import { useMaps } from '../api/get-maps';
-import { useTeamAccess } from '../hooks/use-team-access';
+import { useTeamAccess } from '#src/lib/team-access';
 import { KindFilter, type KindChoice } from './KindFilter';
 import { MapTable } from './MapTable';
 import { MapUpload } from './MapUpload';
@@ -21,7 +21,9 @@ import { MapUpload } from './MapUpload';
  */
 export function MapLibrary({ teamId }: { teamId: string }) {
   const maps = useMaps(teamId);
-  const { teamName, canEdit } = useTeamAccess(teamId);
+  const access = useTeamAccess(teamId);
+  const { teamName } = access;
+  const canEdit = access.can('content:write');
   const unitSystem = useUnitSystem();
   const [kind, setKind] = useState<KindChoice>('all');
 

@@ -12,7 +12,7 @@ import { useUnitSystem } from '#src/lib/units';
 import { useMap } from '../api/get-map';
 import { mapFileHref } from '../api/map-file';
 import type { MapDetail } from '../api/schemas';
-import { useTeamAccess } from '../hooks/use-team-access';
+import { useTeamAccess } from '#src/lib/team-access';
 import { mapKindNames } from '../utils/map-facts';
 import { DeleteMap } from './DeleteMap';
 import { MapDetailsForm } from './MapDetailsForm';
@@ -42,9 +42,10 @@ export function MapView({ teamId, mapId, onDeleted }: { teamId: string; mapId: s
 }
 
 function MapDetailView({ teamId, detail, onDeleted }: { teamId: string; detail: MapDetail; onDeleted: () => void }) {
-  const { canEdit, teamName } = useTeamAccess(teamId);
+  const access = useTeamAccess(teamId);
+  const { teamName } = access;
   const unitSystem = useUnitSystem();
-  const editable = canEdit && !detail.builtin;
+  const editable = access.can('content:write') && !detail.builtin;
   const extra = [
     { term: 'File', value: detail.fileName },
     ...(detail.builtin ? [] : [{ term: 'Revision', value: String(detail.revision) }]),

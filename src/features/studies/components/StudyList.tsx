@@ -14,7 +14,7 @@ import { useDeleteStudy } from '../api/delete-study';
 import { useDuplicateStudy } from '../api/duplicate-study';
 import { useStudies, type StudyListParams } from '../api/get-studies';
 import { useUpdateStudyMeta } from '../api/update-study-meta';
-import { useTeamAccess } from '../hooks/use-team-access';
+import { useTeamAccess } from '#src/lib/team-access';
 import { TitleDialog } from './TitleDialog';
 
 const PAGE_SIZE = 20;
@@ -146,6 +146,7 @@ function StudyActions({ teamId, study }: { teamId: string; study: StudySummary }
 export function StudyList({ teamId }: { teamId: string }) {
   const navigate = useNavigate();
   const access = useTeamAccess(teamId);
+  const canEdit = access.can('content:write');
   const [params, setParams] = useListParams();
   const studies = useStudies(teamId, { ...params, pageSize: PAGE_SIZE });
   const create = useCreateStudy(teamId);
@@ -163,7 +164,7 @@ export function StudyList({ teamId }: { teamId: string }) {
       eyebrow={access.teamName ?? undefined}
       description="Each study holds an engine, its fuel system, the scenarios and the plans being judged, and shows whether each plan keeps every operating line inside its compressor map with margin."
       actions={
-        access.canEdit ? (
+        canEdit ? (
           <Button variant="primary" onClick={() => setCreating(true)}>
             New study
           </Button>
@@ -217,9 +218,7 @@ export function StudyList({ teamId }: { teamId: string }) {
           ) : (
             <>
               <p className="font-semibold text-ink">No studies in this team yet.</p>
-              <p className="mt-1">
-                {access.canEdit ? 'Start one from the demo hill-climb study with “New study”.' : 'Owners and editors of the team can start one.'}
-              </p>
+              <p className="mt-1">{canEdit ? 'Start one from the demo hill-climb study with “New study”.' : 'Owners and editors of the team can start one.'}</p>
             </>
           )}
         </div>
@@ -239,7 +238,7 @@ export function StudyList({ teamId }: { teamId: string }) {
                   <th scope="col" className="px-3 py-2 font-semibold">
                     Started by
                   </th>
-                  {access.canEdit && (
+                  {canEdit && (
                     <th scope="col" className="px-3 py-2 text-right font-semibold">
                       <span className="sr-only">Actions</span>
                     </th>
@@ -268,7 +267,7 @@ export function StudyList({ teamId }: { teamId: string }) {
                       </span>
                     </td>
                     <td className="px-3 py-2.5 align-top">{s.createdBy ?? '—'}</td>
-                    {access.canEdit && (
+                    {canEdit && (
                       <td className="px-3 py-2.5 align-top">
                         <StudyActions teamId={teamId} study={s} />
                       </td>

@@ -1,4 +1,5 @@
 import { Link } from 'react-router';
+import { can } from '#shared/permissions';
 import type { TeamSummary } from '#shared/schemas/account';
 import { Alert } from '#src/components/Alert';
 import { Switch } from '#src/components/Switch';
@@ -14,7 +15,7 @@ const whatMembersSee =
  */
 export function TeamTwoFactorRule({ team, ownerHasSecondFactor }: { team: TeamSummary; ownerHasSecondFactor: boolean }) {
   const required = team.requireTwoFactor ?? false;
-  if (team.role !== 'owner') {
+  if (!can(team.role, 'team:require-two-factor')) {
     return (
       <p className="text-sm text-ink-soft" data-testid="team-two-factor-state">
         {required

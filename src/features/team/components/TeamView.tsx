@@ -1,4 +1,5 @@
 import { Link } from 'react-router';
+import { can, type Permission } from '#shared/permissions';
 import type { TeamDetail, TeamSummary } from '#shared/schemas/account';
 import { Alert } from '#src/components/Alert';
 import { Badge } from '#src/components/Badge';
@@ -68,8 +69,10 @@ function SecondFactorNeededView({ teamId, summary, onGone }: { teamId: string; s
 function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => void }) {
   const { team, members, invitations } = detail;
   const me = useMe();
-  const isOwner = team.role === 'owner';
-  const canLeave = team.role !== null && !(team.personal && isOwner);
+  const may = (permission: Permission) => can(team.role, permission);
+  const canDelete = may('team:delete');
+  // The owner of a personal team keeps it: there is no leaving it.
+  const canLeave = may('team:leave') && !(team.personal && canDelete);
 
   return (
     <Page
@@ -87,14 +90,14 @@ function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => 
       actions={team.personal ? <Badge>Personal team</Badge> : undefined}
     >
       <Card title={`Members (${members.length})`}>
-        <MembersTable teamId={team.id} members={members} currentUserId={me.data?.user.id ?? null} canManage={isOwner} />
+        <MembersTable teamId={team.id} members={members} currentUserId={me.data?.user.id ?? null} canManage={may('members:change-role')} />
       </Card>
 
       <Card title="Second factor">
         <TeamTwoFactorRule team={team} ownerHasSecondFactor={me.data?.user.twoFactor ?? false} />
       </Card>
 
-      {isOwner && (
+      {may('members:invite') && (
         <Card title="Invitations">
           <div className="space-y-6">
             <InviteForm teamId={team.id} />
@@ -103,29 +106,29 @@ function TeamDetailView({ detail, onGone }: { detail: TeamDetail; onGone: () => 
         </Card>
       )}
 
-      {isOwner && (
+      {may('team:rename') && (
         <Card title="Team name">
           <RenameTeamForm key={team.name} team={team} />
         </Card>
       )}
 
-      {isOwner && (
+      {may('team:export') && (
         <Card title="Archive">
           <TeamArchive teamId={team.id} />
         </Card>
       )}
 
-      {isOwner && (
+      {may('audit:read') && (
         <Card title="Activity">
           <TeamActivity teamId={team.id} />
         </Card>
       )}
 
-      {(canLeave || isOwner) && (
-        <Card title={isOwner && !team.personal ? 'Leave or delete' : 'Leave the team'}>
+      {(canLeave || canDelete) && (
+        <Card title={canDelete && !team.personal ? 'Leave or delete' : 'Leave the team'}>
           <div className="flex flex-wrap items-start gap-6">
             {canLeave && <LeaveTeam teamId={team.id} teamName={team.name} onLeft={onGone} />}
-            {isOwner &&
+            {canDelete &&
               (team.personal ? (
                 <p className="text-sm text-ink-soft">Your personal team cannot be deleted.</p>
               ) : (

@@ -15,14 +15,16 @@ import { useDrafts } from '../api/get-drafts';
 import { usePictures } from '../api/get-pictures';
 import { pictureUrl } from '../api/keys';
 import { useTraceAgain } from '../api/start-trace';
-import { useTracerAccess } from '../lib/team-access';
+import { useTeamAccess } from '#src/lib/team-access';
 import { PictureDrop } from './PictureDrop';
 
 /** The Tracer's start: a new trace from a picture, the traces in progress, and the pictures kept with saved maps. */
 export function TracerHome({ teamId }: { teamId: string }) {
   const drafts = useDrafts(teamId);
   const pictures = usePictures(teamId);
-  const { teamName, canEdit } = useTracerAccess(teamId);
+  const access = useTeamAccess(teamId);
+  const { teamName } = access;
+  const canEdit = access.can('content:write');
   const remove = useDeleteDraft(teamId);
   const again = useTraceAgain(teamId);
   const navigate = useNavigate();

@@ -5,13 +5,15 @@ import { SecondFactorNeededPage } from '#src/components/SecondFactorNotice';
 import { isApiError, isTwoFactorRequired } from '#src/lib/api-client';
 import { paths } from '#src/lib/paths';
 import { useDraft } from '../api/get-draft';
-import { useTracerAccess } from '../lib/team-access';
+import { useTeamAccess } from '#src/lib/team-access';
 import { TraceEditor } from './TraceEditor';
 
 /** One trace in progress: loads the draft, then hands it to the editor. */
 export function TracerWorkspace({ teamId, draftId }: { teamId: string; draftId: string }) {
   const draft = useDraft(teamId, draftId);
-  const { teamName, canEdit } = useTracerAccess(teamId);
+  const access = useTeamAccess(teamId);
+  const { teamName } = access;
+  const canEdit = access.can('content:write');
   if (draft.isPending) return <Loading label="Loading the trace…" />;
   if (isTwoFactorRequired(draft.error)) return <SecondFactorNeededPage title="Tracer" teamName={teamName} />;
   if (draft.isError) {

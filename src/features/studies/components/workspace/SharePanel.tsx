@@ -13,7 +13,7 @@ import { useCreateShareLink } from '#src/features/studies/api/create-share-link'
 import { useKeepShareLink } from '#src/features/studies/api/keep-share-link';
 import { useShareLinks, type ShareLink } from '#src/features/studies/api/get-share-links';
 import { useRevokeShareLink } from '#src/features/studies/api/revoke-share-link';
-import { useTeamAccess } from '#src/features/studies/hooks/use-team-access';
+import { useTeamAccess } from '#src/lib/team-access';
 
 function linkState(link: ShareLink): { label: string; tone: 'teal' | 'neutral' | 'copper' } {
   if (link.revokedAt) return { label: 'revoked', tone: 'neutral' };
@@ -31,7 +31,7 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
   const create = useCreateShareLink(teamId, studyId);
   const revoke = useRevokeShareLink(teamId, studyId);
   const keep = useKeepShareLink(teamId, studyId);
-  const isOwner = useTeamAccess(teamId).role === 'owner';
+  const canKeep = useTeamAccess(teamId).can('share-links:keep');
   const [days, setDays] = useState('');
   const [never, setNever] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -140,11 +140,11 @@ export function SharePanel({ teamId, studyId }: { teamId: string; studyId: strin
                           : 'Does not expire'}
                       {/* Owners read it off their switch below. */}
                       {!link.revokedAt &&
-                        !(isOwner && state.label === 'active') &&
+                        !(canKeep && state.label === 'active') &&
                         (link.kept ? ' · an owner keeps it if its maker leaves the team' : ' · stops if its maker leaves the team')}
                     </span>
                   </p>
-                  {isOwner && state.label === 'active' && <KeepSwitch link={link} keep={keep} />}
+                  {canKeep && state.label === 'active' && <KeepSwitch link={link} keep={keep} />}
                 </div>
                 {state.label === 'active' && (
                   <ConfirmButton
