@@ -7,7 +7,8 @@ import { buttonClass } from '../components/Button';
 import { Loading, Page } from '../components/Page';
 import { CompareView } from '../features/compare/components/CompareView';
 import { selectionFromParam, selectionParam } from '../features/compare/selection';
-import { useStudy, useStudyMaps } from '../features/studies/api';
+import { useMapModels } from '../features/maps/api';
+import { useStudy } from '../features/studies/api';
 import { paths } from '../lib/paths';
 import { useUnitSystem } from '../lib/units';
 
@@ -25,7 +26,7 @@ export function CompareRoute() {
   const parsed = useMemo(() => (study.data ? parseDocument(study.data.document) : null), [study.data]);
   const document = parsed !== null && typeof parsed !== 'string' ? parsed : null;
   // Compressor maps, and the turbine maps of plans that have one (the engine needs both).
-  const maps = useStudyMaps(teamId, document ? studyMapIds(document.plans) : []);
+  const maps = useMapModels(teamId, document ? studyMapIds(document.plans) : []);
   const selection = useMemo(() => (document ? selectionFromParam(searchParams.get('lines'), document) : []), [document, searchParams]);
 
   const title = study.data ? `Side by side: ${study.data.title}` : 'Side by side';

@@ -5,7 +5,8 @@ import { readStudyDocument, studyMapIds } from '#shared/study/document';
 import { Alert } from '../components/Alert';
 import { Loading, Page } from '../components/Page';
 import { StudyReport } from '../features/report/components/StudyReport';
-import { useStudy, useStudyMaps } from '../features/studies/api';
+import { useMapModels } from '../features/maps/api';
+import { useStudy } from '../features/studies/api';
 import { paths } from '../lib/paths';
 import { useUnitSystem } from '../lib/units';
 
@@ -16,7 +17,7 @@ export function ReportRoute() {
   const system = useUnitSystem();
   const parsed = useMemo(() => (study.data ? readStudyDocument(study.data.document) : null), [study.data]);
   const mapIds = parsed?.ok ? studyMapIds(parsed.document.plans) : [];
-  const maps = useStudyMaps(teamId, mapIds);
+  const maps = useMapModels(teamId, mapIds);
 
   if (study.isPending || (parsed?.ok && maps.loading)) return <Loading label="Preparing the report…" />;
   if (study.error || !parsed || !parsed.ok) {

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { useMemo, useState } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import { studyDocumentSchema } from '#shared/schemas/study';
-import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import type { MapSummary } from '#src/features/maps/api';
 import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
 import { ExhaustFields } from '#src/features/studies/components/editor/ExhaustFields';
 import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
@@ -16,9 +16,19 @@ const compressorDemo = JSON.parse(readFileSync(path.resolve(import.meta.dirname,
   unknown
 >;
 
-const turbineMaps: MapListItem[] = [
-  { id: 'builtin-turbine-t64-ar064-single', kind: 'turbine', name: 'T64 0.64 single', builtin: true, summary: { housing: 'single', areaRatio: 0.64 } },
-  { id: 'builtin-turbine-t64-ar082-divided', kind: 'turbine', name: 'T64 0.82 divided', builtin: true, summary: { housing: 'divided', areaRatio: 0.82 } },
+const turbine = (id: string, name: string, housing: 'single' | 'divided', areaRatio: number): MapSummary => ({
+  id,
+  kind: 'turbine',
+  name,
+  notes: '',
+  builtin: true,
+  createdBy: null,
+  updatedAt: null,
+  summary: { curves: 3, topSpeed: null, maxSpeed: null, housing, areaRatio },
+});
+const turbineMaps: MapSummary[] = [
+  turbine('builtin-turbine-t64-ar064-single', 'T64 0.64 single', 'single', 0.64),
+  turbine('builtin-turbine-t64-ar082-divided', 'T64 0.82 divided', 'divided', 0.82),
 ];
 
 /** The exhaust fields of plan 1 of the compressor demo study, editing a live draft as the study page does. */

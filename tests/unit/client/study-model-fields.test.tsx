@@ -4,7 +4,7 @@ import path from 'node:path';
 import { useMemo, useState, type ReactNode } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import { studyDocumentSchema } from '#shared/schemas/study';
-import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import type { MapSummary } from '#src/features/maps/api';
 import { AssumptionsSection } from '#src/features/studies/components/editor/AssumptionsSection';
 import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
 import { EngineSection } from '#src/features/studies/components/editor/EngineSection';
@@ -119,15 +119,19 @@ describe('the study editor’s new inputs', () => {
   });
 
   it('shows what the turbine map’s efficiency counts in the plan’s exhaust block', () => {
-    const maps: MapListItem[] = [
-      {
-        id: 'builtin-turbine-t64-ar064-single',
-        kind: 'turbine',
-        name: 'T64 0.64 single',
-        builtin: true,
-        summary: { housing: 'single', areaRatio: 0.64, efficiencyKind: 'with-bearing-losses' },
-      },
-      { id: 'team-map', kind: 'turbine', name: 'Our own', builtin: false, summary: { housing: 'single', areaRatio: 0.7, efficiencyKind: null } },
+    const turbine = (id: string, name: string, builtin: boolean, summary: Pick<MapSummary['summary'], 'housing' | 'areaRatio' | 'efficiencyKind'>): MapSummary => ({
+      id,
+      kind: 'turbine',
+      name,
+      notes: '',
+      builtin,
+      createdBy: null,
+      updatedAt: null,
+      summary: { curves: 3, topSpeed: null, maxSpeed: null, ...summary },
+    });
+    const maps: MapSummary[] = [
+      turbine('builtin-turbine-t64-ar064-single', 'T64 0.64 single', true, { housing: 'single', areaRatio: 0.64, efficiencyKind: 'with-bearing-losses' }),
+      turbine('team-map', 'Our own', false, { housing: 'single', areaRatio: 0.7, efficiencyKind: null }),
     ];
     let draft: Record<string, unknown> = {};
     render(

@@ -1,17 +1,18 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
-import { api, segment } from '#src/lib/api-client';
-import { mapSummarySchema } from './schemas';
+import { api } from '#src/lib/api-client';
+import { mapKeys, mapsUrl } from './keys';
+import { mapListResponseSchema, type MapKind } from './schemas';
 
-const mapsResponseSchema = z.object({ maps: z.array(mapSummarySchema) });
-
-/** The team's maps, then the built-in demo maps (both kinds: the library filters on screen). */
-export function getMaps(teamId: string) {
-  return api.get(`/api/teams/${segment(teamId)}/maps`, mapsResponseSchema).then((body) => body.maps);
+/** The team's maps, then the built-in demo maps (ids `builtin-…`): of one kind, or both for 'all'. */
+export function getMaps(teamId: string, kind: MapKind | 'all' = 'all') {
+  const url = kind === 'all' ? mapsUrl(teamId) : `${mapsUrl(teamId)}?kind=${kind}`;
+  return api.get(url, mapListResponseSchema).then((body) => body.maps);
 }
 
-export const mapsQueryOptions = (teamId: string) => queryOptions({ queryKey: ['teams', teamId, 'maps'] as const, queryFn: () => getMaps(teamId) });
+export const mapsQueryOptions = (teamId: string, kind: MapKind | 'all' = 'all') =>
+  queryOptions({ queryKey: mapKeys.list(teamId, kind), queryFn: () => getMaps(teamId, kind) });
 
-export function useMaps(teamId: string) {
-  return useQuery(mapsQueryOptions(teamId));
+/** The library (both kinds: it filters on screen), or the maps a plan's picker offers. */
+export function useMaps(teamId: string, kind: MapKind | 'all' = 'all', options: { enabled?: boolean } = {}) {
+  return useQuery({ ...mapsQueryOptions(teamId, kind), enabled: options.enabled ?? true });
 }

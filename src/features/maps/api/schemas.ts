@@ -50,6 +50,15 @@ export const mapProblemSchema = z.object({
 });
 export type MapFileProblem = z.infer<typeof mapProblemSchema>;
 
+/** GET /api/teams/:teamId/maps (with or without `?kind=`). */
+export const mapListResponseSchema = z.object({ maps: z.array(mapSummarySchema) });
+
+/** GET and PATCH /api/teams/:teamId/maps/:mapId. */
+export const mapResponseSchema = z.object({ map: mapDetailSchema });
+
+/** POST /api/teams/:teamId/maps: the saved map and advisories about what was adjusted (an island closed automatically). */
+export const uploadMapResponseSchema = z.object({ map: mapDetailSchema, notes: z.array(mapProblemSchema) });
+
 /** `details` of a 400 `invalid_map_file` answer. */
 export const invalidMapFileDetailsSchema = z.object({ problems: z.array(mapProblemSchema) });
 

@@ -1,18 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
+import type { z } from 'zod';
 import type { uploadMapFieldsSchema } from '#shared/schemas/map-library';
-import { api, segment } from '#src/lib/api-client';
-import { mapQueryOptions } from './get-map';
-import { mapsQueryOptions } from './get-maps';
-import { mapDetailSchema, mapProblemSchema } from './schemas';
+import { api } from '#src/lib/api-client';
+import { mapKeys, mapsUrl } from './keys';
+import { uploadMapResponseSchema } from './schemas';
 
 export type UploadMapInput = z.infer<typeof uploadMapFieldsSchema> & { file: File };
-
-const uploadMapResponseSchema = z.object({
-  map: mapDetailSchema,
-  /** Advisories about what was adjusted (an island closed automatically). */
-  notes: z.array(mapProblemSchema),
-});
 export type UploadMapResult = z.infer<typeof uploadMapResponseSchema>;
 
 /** Sends one map file as multipart/form-data through the shared API client. */
@@ -21,7 +14,7 @@ export function uploadMap(teamId: string, { file, name, notes }: UploadMapInput)
   if (name !== undefined) body.append('name', name);
   if (notes !== undefined) body.append('notes', notes);
   body.append('file', file, file.name);
-  return api.upload(`/api/teams/${segment(teamId)}/maps`, body, uploadMapResponseSchema);
+  return api.upload(mapsUrl(teamId), body, uploadMapResponseSchema);
 }
 
 export function useUploadMap(teamId: string) {
@@ -29,8 +22,8 @@ export function useUploadMap(teamId: string) {
   return useMutation({
     mutationFn: (input: UploadMapInput) => uploadMap(teamId, input),
     onSuccess: (result) => {
-      queryClient.setQueryData(mapQueryOptions(teamId, result.map.id).queryKey, result.map);
-      return queryClient.invalidateQueries({ queryKey: mapsQueryOptions(teamId).queryKey, exact: true });
+      queryClient.setQueryData(mapKeys.detail(teamId, result.map.id), result.map);
+      return queryClient.invalidateQueries({ queryKey: mapKeys.lists(teamId) });
     },
   });
 }

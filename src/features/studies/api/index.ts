@@ -14,5 +14,3 @@ export * from './get-share-links';
 export * from './create-share-link';
 export * from './revoke-share-link';
 export * from './results-csv';
-export * from './get-team-maps';
-export * from './get-map';

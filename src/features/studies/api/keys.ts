@@ -8,7 +8,6 @@ export const studyKeys = {
   detail: (teamId: string, studyId: string) => ['studies', teamId, 'detail', studyId] as const,
   revisions: (teamId: string, studyId: string) => ['studies', teamId, 'detail', studyId, 'revisions'] as const,
   shareLinks: (teamId: string, studyId: string) => ['studies', teamId, 'detail', studyId, 'share-links'] as const,
-  maps: (teamId: string) => ['studies', teamId, 'maps'] as const,
 };
 
 /** The URL prefix of one team's studies. */

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { savedToLibraryResponseSchema } from '#shared/tracer/api';
 import type { TraceState } from '#shared/tracer/state';
+import { mapKeys } from '#src/features/maps/api';
 import { api } from '#src/lib/api-client';
 import { draftUrl, tracerKeys } from './keys';
 
@@ -18,11 +19,11 @@ export function useSaveTraceToLibrary(teamId: string) {
     mutationFn: ({ draftId, ...input }: { draftId: string; baseRevision: number; state: TraceState }) => saveTraceToLibrary(teamId, draftId, input),
     onSuccess: (saved) => {
       queryClient.setQueryData(tracerKeys.draft(teamId, saved.draft.id), saved.draft);
-      // The map library lists the new map (its query key is the maps feature's: ['teams', id, 'maps']).
+      // The map library and every study's plan pickers list the new map.
       return Promise.all([
         queryClient.invalidateQueries({ queryKey: tracerKeys.drafts(teamId) }),
         queryClient.invalidateQueries({ queryKey: tracerKeys.images(teamId) }),
-        queryClient.invalidateQueries({ queryKey: ['teams', teamId, 'maps'] }),
+        queryClient.invalidateQueries({ queryKey: mapKeys.all(teamId) }),
       ]);
     },
   });

@@ -1,7 +1,7 @@
 import { turbineEfficiencyKindMeaning } from '#shared/maps/format';
 import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
 import { formatNumber } from '#src/components/plots/quantities';
-import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import type { MapSummary } from '#src/features/maps/api';
 import { getIn } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField, ToggleField } from './fields';
@@ -36,7 +36,7 @@ function startingExhaust(housing: Housing) {
 }
 
 /** What the library says of a turbine map: its housing and A/R, in words. */
-export function turbineMapFacts(m: MapListItem): string | null {
+export function turbineMapFacts(m: MapSummary): string | null {
   const housing = m.summary.housing === 'divided' ? 'a divided housing' : m.summary.housing === 'single' ? 'a single-scroll housing' : null;
   const ar = typeof m.summary.areaRatio === 'number' ? `A/R ${formatNumber(m.summary.areaRatio, 3)}` : null;
   if (!housing && !ar) return null;
@@ -54,7 +54,7 @@ export function ExhaustFields({
   turbineMapsError,
 }: {
   planIndex: number;
-  turbineMaps: MapListItem[] | undefined;
+  turbineMaps: MapSummary[] | undefined;
   turbineMapsError: string | null;
 }) {
   const editor = useEditor();

@@ -1,6 +1,6 @@
 import { Button } from '#src/components/Button';
 import { PlanSwatch } from '#src/components/study/PlanSwatch';
-import type { MapListItem } from '#src/features/studies/api/get-team-maps';
+import type { MapSummary } from '#src/features/maps/api';
 import { getIn, newPlanId } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ExhaustFields } from './ExhaustFields';
@@ -24,9 +24,9 @@ export function PlansSection({
   turbineMaps,
   turbineMapsError,
 }: {
-  maps: MapListItem[] | undefined;
+  maps: MapSummary[] | undefined;
   mapsError: string | null;
-  turbineMaps: MapListItem[] | undefined;
+  turbineMaps: MapSummary[] | undefined;
   turbineMapsError: string | null;
 }) {
   const editor = useEditor();

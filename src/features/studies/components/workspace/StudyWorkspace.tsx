@@ -11,14 +11,13 @@ import { Loading, useDocumentTitle } from '#src/components/Page';
 import type { PointRef } from '#src/components/study/lines';
 import { StudyCaution } from '#src/components/study/StudyCaution';
 import { isApiError } from '#src/lib/api-client';
+import { useMapModels, useMaps } from '#src/features/maps/api';
 import { formatDateTime } from '#src/lib/format';
 import { paths } from '#src/lib/paths';
 import { useUnitSystem } from '#src/lib/units';
 import { useCreateStudy } from '#src/features/studies/api/create-study';
 import { useDeleteStudy } from '#src/features/studies/api/delete-study';
-import { useStudyMaps } from '#src/features/studies/api/get-map';
 import { useStudy } from '#src/features/studies/api/get-study';
-import { useCompressorMaps, useTurbineMaps } from '#src/features/studies/api/get-team-maps';
 import { studyKeys } from '#src/features/studies/api/keys';
 import { resultsCsvHref } from '#src/features/studies/api/results-csv';
 import { staleRevisionOf, useSaveStudy } from '#src/features/studies/api/save-study';
@@ -69,10 +68,10 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
 
   const [initial] = useState(() => ({ revision: study.revision, document: editableDocument(study.document) }));
   const { base, draft, update, dirty, reset, saved } = useDraft(initial);
-  const maps = useStudyMaps(teamId, mapIdsOf(draft));
+  const maps = useMapModels(teamId, mapIdsOf(draft));
   const { parsed, issues, valid, computed, stale } = useStudyCompute(draft, maps.mapsById, !maps.loading);
-  const library = useCompressorMaps(teamId);
-  const turbineLibrary = useTurbineMaps(teamId);
+  const library = useMaps(teamId, 'compressor');
+  const turbineLibrary = useMaps(teamId, 'turbine');
 
   const [selected, setSelected] = useState<PointRef | null>(null);
   const [panel, setPanel] = useState<Panel>(null);
