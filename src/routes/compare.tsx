@@ -10,7 +10,7 @@ import { selectionFromParam, selectionParam } from '../features/compare/selectio
 import { useMapModels } from '../features/maps/api';
 import { useStudy } from '../features/studies/api';
 import { paths } from '../lib/paths';
-import { useUnitSystem } from '../lib/units';
+import { useUnitSystem } from '#src/lib/quantities';
 
 function parseDocument(raw: unknown): StudyDocument | string {
   const read = readStudyDocument(raw);

@@ -2,7 +2,7 @@ import { Page } from '../components/Page';
 import { useDemoMap } from '../features/learn/api/get-demo-map';
 import { LearnLesson } from '../features/learn/components/LearnLesson';
 import { useCurrentTeamId } from '../lib/current-team';
-import { useUnitSystem } from '../lib/units';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /** Learn: corrected flow and pressure ratio, taught with a live example on a built-in demo map. */
 export function LearnRoute() {

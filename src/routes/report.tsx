@@ -8,7 +8,7 @@ import { StudyReport } from '../features/report/components/StudyReport';
 import { useMapModels } from '../features/maps/api';
 import { useStudy } from '../features/studies/api';
 import { paths } from '../lib/paths';
-import { useUnitSystem } from '../lib/units';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /** `/teams/:teamId/studies/:studyId/report`: the saved study as a report made for printing. */
 export function ReportRoute() {

@@ -6,7 +6,7 @@ import { StudyReport } from '../features/report/components/StudyReport';
 import { isLinkGone, useSharedStudy } from '../features/share/api/get-shared-study';
 import { LinkGone, SharedPage } from '../features/share/components/SharedPage';
 import { paths } from '../lib/paths';
-import { useUnitSystem } from '../lib/units';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /** `/share/:token/report`: the printable report of a shared study. */
 export function ShareReportRoute() {

@@ -9,7 +9,7 @@ import { isLinkGone, sharedResultsCsvHref, useSharedStudy } from '../features/sh
 import { LinkGone, SharedPage, ViewerUnitSwitch } from '../features/share/components/SharedPage';
 import { formatDateTime } from '../lib/format';
 import { paths } from '../lib/paths';
-import { useUnitSystem, type UnitSystem } from '../lib/units';
+import { type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 /** `/share/:token`: a study opened through a share link, signed in or not. Nothing here can change it. */
 export function ShareRoute() {

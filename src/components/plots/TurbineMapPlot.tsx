@@ -1,9 +1,9 @@
 import { useMemo } from 'react';
 import type { TurbineMap } from '#shared/maps/types';
-import type { UnitSystem } from '#src/lib/units';
 import { PlotFrame } from './PlotFrame';
 import { turbineMapFigure } from './turbine-map-figure';
 import type { TurbineOperatingLineView } from './types';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * A turbine map in the same style as the compressor map: flow parameter against expansion ratio

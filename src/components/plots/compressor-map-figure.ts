@@ -2,8 +2,6 @@ import type { Annotation, Data, Layout } from 'plotly.js-dist-min';
 import { referenceDensity } from '#shared/maps/scales';
 import type { CompressorCurve, CompressorMap } from '#shared/maps/types';
 import { fromSI } from '#shared/units';
-import { displayUnitOf, type UnitSystem } from '#src/lib/units';
-import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
 import { builtForMap } from './map-cache';
 import {
   legendUnderMap,
@@ -15,8 +13,10 @@ import {
   plotColours,
   plotFont,
   selectedPointMarker,
+  plotText,
 } from './style';
 import type { CompressorMapPlotProps, HoverItem, OperatingLineView, OperatingPointView } from './types';
+import { displayUnitOf, formatNumber, formatQuantity, krpmLabel, percentLabel, unitLabel, type UnitSystem } from '#src/lib/quantities';
 
 /** What plotly draws: traces and layout. Built by a pure function so it can be checked without a browser. */
 export interface PlotFigure {

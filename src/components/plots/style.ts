@@ -126,3 +126,8 @@ export const selectedPointMarker = { symbol: 'circle-open' as const, size: 24, c
 export function lineEndLabel(x: number, y: number, text: string, colour: string = plotColours.inkSoft) {
   return { x, y, text, showarrow: false, xanchor: 'left' as const, xshift: 4, font: { ...plotFont, size: 10, color: colour } };
 }
+
+/** Text safe to put into plotly's hover and annotation strings, which read a little HTML. */
+export function plotText(text: string): string {
+  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+}

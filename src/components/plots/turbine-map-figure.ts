@@ -1,12 +1,11 @@
 import type { Annotation, Data } from 'plotly.js-dist-min';
 import type { TurbineMap } from '#shared/maps/types';
 import { mapValueFromSI } from '#shared/maps/units';
-import type { UnitSystem } from '#src/lib/units';
 import type { PlotFigure } from './compressor-map-figure';
-import { formatNumber, formatQuantity, krpmLabel, percentLabel, plotText, unitLabel } from './quantities';
 import { builtForMap } from './map-cache';
-import { legendUnderMap, lineEndLabel, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker } from './style';
+import { legendUnderMap, lineEndLabel, mapPlotPaper, operatingLineStyle, plotAxis, plotColours, plotFont, selectedPointMarker, plotText } from './style';
 import type { TurbineOperatingLineView } from './types';
+import { formatNumber, formatQuantity, krpmLabel, percentLabel, unitLabel, type UnitSystem } from '#src/lib/quantities';
 
 /** The unit the flow parameter ṁ·√T3/p3 is shown in, by unit system (mathjs names). */
 export const flowParameterDisplayUnit: Record<UnitSystem, string> = {

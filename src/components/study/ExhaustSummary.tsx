@@ -1,8 +1,6 @@
-import type { UnitSystem } from '#src/lib/units';
-import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';
 import type { StudyLine } from './lines';
-import { formatStudyValue } from './units';
+import { formatNumber, formatStudyValue, type UnitSystem } from '#src/lib/quantities';
 
 /**
  * The exhaust side of each line in one table: where full boost arrives, the highest drive pressure

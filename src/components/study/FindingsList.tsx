@@ -1,10 +1,8 @@
 import { useMemo } from 'react';
 import type { Finding, FindingCode, Severity } from '#shared/matching/types';
-import type { UnitSystem } from '#src/lib/units';
-import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
-import { formatStudyValue } from './units';
+import { formatNumber, formatStudyValue, type UnitSystem } from '#src/lib/quantities';
 
 /** One finding of one line, at every rpm where it was raised. */
 export interface FindingGroup {

@@ -1,9 +1,9 @@
 import { useMemo } from 'react';
 import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/requirements';
 import { planVerdicts, reasonWhere, VERDICT_WORDS, type PlanVerdict, type VerdictReason, type VerdictStatus } from '#shared/matching/verdict';
-import { formatNumber } from '../plots/quantities';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { PlanSwatch } from './PlanSwatch';
+import { formatNumber } from '#src/lib/quantities';
 
 /** How each verdict looks: a stamp in the notebook's inks, red only where a limit is crossed. */
 const STAMP: Record<VerdictStatus, { mark: string; stamp: string; edge: string }> = {

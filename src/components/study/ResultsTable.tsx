@@ -12,12 +12,11 @@ import {
 } from '@tanstack/react-table';
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import { RESULT_COLUMNS, type ResultColumn } from '#shared/matching/results-table';
-import type { UnitSystem } from '#src/lib/units';
 import { Button } from '../Button';
-import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { cellValue, columnUnit, emptyCellNote, resultTableRows, resultsTsv, type ResultTableRow } from './result-rows';
+import { formatNumber, type UnitSystem } from '#src/lib/quantities';
 
 const features = tableFeatures({
   rowSortingFeature,

@@ -1,8 +1,8 @@
 import { useMemo, useState } from 'react';
-import type { UnitSystem } from '#src/lib/units';
 import { PlotFrame } from '../plots/PlotFrame';
 import { hasExhaust, type PointRef, type StudyLine } from './lines';
 import { curveViewsFor, rpmCurvesFigure } from './rpm-curves-figure';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * Curves against engine speed, one quantity at a time (boost, pressure ratio, mass flow, power

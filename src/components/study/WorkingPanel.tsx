@@ -4,11 +4,9 @@ import { mapRegionText } from '#shared/matching/results-table';
 import type { OperatingPoint } from '#shared/matching/types';
 import type { WorkingStep, WorkingValue } from '#shared/matching/working';
 import { math } from '#shared/units';
-import type { UnitSystem } from '#src/lib/units';
-import { formatNumber } from '../plots/quantities';
 import { Formula, MathSymbol } from './Formula';
 import type { StudyLine } from './lines';
-import { formatStudyValue, type StudyQuantity } from './units';
+import { formatNumber, formatStudyValue, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
 
 /** Symbols of fuel flows: shown in the fuel trade's units, not as air volume flow. */
 const INJECTOR_FLOW_SYMBOLS = new Set(['Q_rated', 'Q_inj_p', 'Q_inj_s']);

@@ -3,9 +3,8 @@ import { missingMarginWords, type MarginName } from '#shared/matching/margin-wor
 import { RESULT_KEYS } from '#shared/matching/reach';
 import { mapRegionText, reachableText, RESULT_COLUMNS, type ResultColumn } from '#shared/matching/results-table';
 import type { PointValues, Severity } from '#shared/matching/types';
-import type { UnitSystem } from '#src/lib/units';
 import type { StudyLine } from './lines';
-import { inputText, quantityUnit, type StudyQuantity } from './units';
+import { inputText, quantityUnit, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
 
 /** One row of the results table: one operating point. */
 export interface ResultTableRow {

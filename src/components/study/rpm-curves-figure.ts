@@ -4,12 +4,10 @@ import { INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '#shared/matching/fin
 import { REQUIREMENT_DEFAULTS } from '#shared/matching/requirements';
 import { mapRegionText } from '#shared/matching/results-table';
 import type { PointValues, SolvedPoint } from '#shared/matching/types';
-import type { UnitSystem } from '#src/lib/units';
 import type { PlotFigure } from '../plots/compressor-map-figure';
-import { formatNumber, plotText } from '../plots/quantities';
-import { planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash } from '../plots/style';
+import { planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash, plotText } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
-import { formatStudyValue, quantityUnit, type StudyQuantity } from './units';
+import { formatNumber, formatStudyValue, quantityUnit, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
 
 /** What one panel plots against rpm: an SI value of a point and how to show it. */
 interface Series {

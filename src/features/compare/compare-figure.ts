@@ -1,9 +1,9 @@
 import type { Data } from 'plotly.js-dist-min';
 import type { CompressorMap } from '#shared/maps/types';
 import { compressorMapFigure, flowScale, type PlotFigure } from '#src/components/plots/compressor-map-figure';
-import { plotText } from '#src/components/plots/quantities';
 import type { OperatingLineView } from '#src/components/plots/types';
-import type { UnitSystem } from '#src/lib/units';
+import type { UnitSystem } from '#src/lib/quantities';
+import { plotText } from '#src/components/plots/style';
 
 /** Another map whose edges are drawn over the one shown, in the colour of its first combination. */
 export interface OverlaidMap {

@@ -4,8 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { parseMapFile } from '#shared/maps/parse';
 import type { CompressorMap } from '#shared/maps/types';
 import { compressorMapFigure, islandLabelPoints } from '#src/components/plots/compressor-map-figure';
-import { formatQuantity } from '#src/components/plots/quantities';
 import type { OperatingLineView } from '#src/components/plots/types';
+import { formatQuantity } from '#src/lib/quantities';
 
 // The compressor-map figure is built by a pure function; plotly itself cannot run under jsdom, so
 // the traces and layout it is handed are checked here and the drawing in the browser test.

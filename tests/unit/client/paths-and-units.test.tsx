@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { isUnitOf, siUnitOf, type QuantityKind } from '#shared/units';
 import { paths, safeNext } from '#src/lib/paths';
-import { displayUnits } from '#src/lib/units';
+import { displayUnits } from '#src/lib/quantities';
 
 describe('safeNext', () => {
   it('keeps a path inside the app', () => {

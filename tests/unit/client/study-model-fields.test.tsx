@@ -119,7 +119,12 @@ describe('the study editor’s new inputs', () => {
   });
 
   it('shows what the turbine map’s efficiency counts in the plan’s exhaust block', () => {
-    const turbine = (id: string, name: string, builtin: boolean, summary: Pick<MapSummary['summary'], 'housing' | 'areaRatio' | 'efficiencyKind'>): MapSummary => ({
+    const turbine = (
+      id: string,
+      name: string,
+      builtin: boolean,
+      summary: Pick<MapSummary['summary'], 'housing' | 'areaRatio' | 'efficiencyKind'>,
+    ): MapSummary => ({
       id,
       kind: 'turbine',
       name,

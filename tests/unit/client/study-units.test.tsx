@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatStudyValue, inputText, parseTypedNumber, quantityUnit } from '#src/components/study/units';
+import { formatStudyValue, inputText, parseTypedNumber, quantityUnit } from '#src/lib/quantities';
 
 const close = (actual: number, expected: number, rel = 1e-9) => expect(Math.abs(actual - expected) / Math.abs(expected)).toBeLessThan(rel);
 

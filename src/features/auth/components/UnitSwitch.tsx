@@ -1,6 +1,6 @@
 import { unitSystemSchema } from '#shared/schemas/account';
-import { unitSystemNames, useUnitSystem } from '#src/lib/units';
 import { useUpdateProfile } from '../api/update-profile';
+import { unitSystemNames, useUnitSystem } from '#src/lib/quantities';
 
 const shortNames = { si: 'SI', us: 'US' } as const;
 

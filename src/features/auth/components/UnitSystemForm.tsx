@@ -1,7 +1,7 @@
 import { unitSystemSchema, type UnitSystem } from '#shared/schemas/account';
 import { Alert } from '#src/components/Alert';
-import { unitSystemNames } from '#src/lib/units';
 import { useUpdateProfile } from '../api/update-profile';
+import { unitSystemNames } from '#src/lib/quantities';
 
 const examples: Record<UnitSystem, string> = {
   si: 'kPa, °C, kg/s, kW, litres',

@@ -7,20 +7,19 @@ import { Alert } from '#src/components/Alert';
 import { Card } from '#src/components/Card';
 import { FlowAxisSwitch } from '#src/components/plots/FlowAxisSwitch';
 import { PlotFrame } from '#src/components/plots/PlotFrame';
-import { formatQuantity } from '#src/components/plots/quantities';
 import { planColour } from '#src/components/plots/style';
 import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
 import { mapLineViews, studyLines, turbineLineViews } from '#src/components/study/lines';
 import { RpmCurves } from '#src/components/study/RpmCurves';
 import { runStudyLive } from '#src/components/study/run';
 import { StudyCaution } from '#src/components/study/StudyCaution';
-import type { UnitSystem } from '#src/lib/units';
 import { compareFigure, type OverlaidMap } from '../compare-figure';
 import { allCombinations, MIN_COMBINATIONS, toggleCombination } from '../selection';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
 import { CombinationPicker } from './CombinationPicker';
 import { ChosenVerdicts } from './ChosenVerdicts';
 import { DifferencesTable } from './DifferencesTable';
+import { formatQuantity, type UnitSystem } from '#src/lib/quantities';
 
 const MAP_HEIGHT = 620;
 

@@ -1,9 +1,7 @@
 import type { CompareCell, CompareRow, CompareRowKey } from '#shared/study/compare';
-import { formatNumber } from '#src/components/plots/quantities';
 import { VerdictStamp } from '#src/components/study/PlanVerdicts';
-import { quantityUnit, type StudyQuantity } from '#src/components/study/units';
-import type { UnitSystem } from '#src/lib/units';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
+import { formatNumber, quantityUnit, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
 
 const QUANTITY: Record<string, StudyQuantity> = {
   fraction: 'fraction',

@@ -4,12 +4,11 @@ import type { OperatingPoint, PointValues } from '#shared/matching/types';
 import { Alert } from '#src/components/Alert';
 import { Card } from '#src/components/Card';
 import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
-import { formatNumber, formatQuantity, krpmLabel } from '#src/components/plots/quantities';
 import type { OperatingLineView } from '#src/components/plots/types';
-import type { UnitSystem } from '#src/lib/units';
 import { DEFAULT_LESSON, runLesson, stepsById, type LessonInputs } from '../lesson';
 import { LessonControls } from './LessonControls';
 import { WorkingStepCard } from './WorkingStepCard';
+import { formatNumber, formatQuantity, krpmLabel, type UnitSystem } from '#src/lib/quantities';
 
 interface Section {
   id: string;

@@ -1,9 +1,8 @@
 import { useId } from 'react';
 import { fromSI, toSI, type QuantityKind } from '#shared/units';
 import { Button } from '#src/components/Button';
-import { formatNumber, unitLabel } from '#src/components/plots/quantities';
-import type { UnitSystem } from '#src/lib/units';
 import { DEFAULT_LESSON, LESSON_ENGINE, type LessonInputs } from '../lesson';
+import { formatNumber, unitLabel, type UnitSystem } from '#src/lib/quantities';
 
 interface SliderSpec {
   key: keyof LessonInputs;

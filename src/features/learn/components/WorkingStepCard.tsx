@@ -1,8 +1,7 @@
 import type { WorkingStep, WorkingValue } from '#shared/matching/working';
 import { fromSI, siUnitOf, type QuantityKind } from '#shared/units';
-import { formatNumber, formatQuantity, unitLabel } from '#src/components/plots/quantities';
-import { displayUnitOf, type UnitSystem } from '#src/lib/units';
 import { Formula, MathSymbol } from '#src/components/study/Formula';
+import { displayUnitOf, formatNumber, formatQuantity, unitLabel, type UnitSystem } from '#src/lib/quantities';
 
 function isQuantityKind(kind: string): kind is QuantityKind {
   return Object.prototype.hasOwnProperty.call(siUnitOf, kind);

@@ -1,6 +1,6 @@
 import type { SpoolbookMap } from '#shared/maps/types';
-import type { UnitSystem } from '#src/lib/units';
 import { mapFacts } from '../utils/map-facts';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /** A map's facts as a definition list; `extra` rows (file name, who uploaded it) go after them. */
 export function MapFacts({ map, unitSystem, extra = [] }: { map: SpoolbookMap; unitSystem: UnitSystem; extra?: { term: string; value: string }[] }) {

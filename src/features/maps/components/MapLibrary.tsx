@@ -8,12 +8,12 @@ import { Loading, Page } from '#src/components/Page';
 import { SecondFactorNeededPage } from '#src/components/SecondFactorNotice';
 import { isApiError, isTwoFactorRequired } from '#src/lib/api-client';
 import { paths } from '#src/lib/paths';
-import { useUnitSystem } from '#src/lib/units';
 import { useMaps } from '../api/get-maps';
 import { useTeamAccess } from '#src/lib/team-access';
 import { KindFilter, type KindChoice } from './KindFilter';
 import { MapTable } from './MapTable';
 import { MapUpload } from './MapUpload';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /**
  * A team's map library: its own maps, the built-in demo maps, and (for editors and owners) the

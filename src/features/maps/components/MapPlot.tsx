@@ -2,7 +2,7 @@ import { useState } from 'react';
 import type { SpoolbookMap } from '#shared/maps/types';
 import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
-import type { UnitSystem } from '#src/lib/units';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /** A map drawn alone (no study): compressor maps open on the flow axis their file uses. */
 export function MapPlot({ map, unitSystem, height }: { map: SpoolbookMap; unitSystem: UnitSystem; height?: number }) {

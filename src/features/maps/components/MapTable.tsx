@@ -1,10 +1,10 @@
 import { Link } from 'react-router';
 import { Table, td, th } from '#src/components/Table';
-import { formatNumber, krpmLabel } from '#src/components/plots/quantities';
 import { formatDateTime } from '#src/lib/format';
 import { paths } from '#src/lib/paths';
 import type { MapSummary } from '../api/schemas';
 import { mapKindNames } from '../utils/map-facts';
+import { formatNumber, krpmLabel } from '#src/lib/quantities';
 
 function capitalise(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);

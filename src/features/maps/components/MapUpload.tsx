@@ -9,7 +9,6 @@ import { TextField } from '#src/components/TextField';
 import { isApiError } from '#src/lib/api-client';
 import { formErrorsFrom, formValues, noFormErrors, parseForm, type FormErrors } from '#src/lib/forms';
 import { paths } from '#src/lib/paths';
-import type { UnitSystem } from '#src/lib/units';
 import { invalidMapFileDetailsSchema, type MapFileProblem } from '../api/schemas';
 import { useUploadMap } from '../api/upload-map';
 import { mapKindNames } from '../utils/map-facts';
@@ -18,6 +17,7 @@ import { MapFacts } from './MapFacts';
 import { MapPlot } from './MapPlot';
 import { MapProblemList, problemPlace } from './MapProblemList';
 import { NotesField } from './NotesField';
+import type { UnitSystem } from '#src/lib/quantities';
 
 const FIELDS = ['name', 'notes'] as const;
 

@@ -8,7 +8,6 @@ import { SecondFactorNeededPage } from '#src/components/SecondFactorNotice';
 import { isApiError, isTwoFactorRequired } from '#src/lib/api-client';
 import { formatDateTime } from '#src/lib/format';
 import { paths } from '#src/lib/paths';
-import { useUnitSystem } from '#src/lib/units';
 import { useMap } from '../api/get-map';
 import { mapFileHref } from '../api/map-file';
 import type { MapDetail } from '../api/schemas';
@@ -18,6 +17,7 @@ import { DeleteMap } from './DeleteMap';
 import { MapDetailsForm } from './MapDetailsForm';
 import { MapFacts } from './MapFacts';
 import { MapPlot } from './MapPlot';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /** One map of the library: drawn, described, downloadable; named, annotated and deleted by editors. */
 export function MapView({ teamId, mapId, onDeleted }: { teamId: string; mapId: string; onDeleted: () => void }) {

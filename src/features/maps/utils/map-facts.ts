@@ -1,9 +1,8 @@
 import { mapValueFromSI } from '#shared/maps/units';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '#shared/maps/types';
 import { turbineEfficiencyKindMeaning } from '#shared/maps/format';
-import { formatNumber, formatQuantity, krpmLabel, percentLabel, unitLabel } from '#src/components/plots/quantities';
 import { fromSI } from '#shared/units';
-import { displayUnitOf, type UnitSystem } from '#src/lib/units';
+import { displayUnitOf, formatNumber, formatQuantity, krpmLabel, percentLabel, unitLabel, type UnitSystem } from '#src/lib/quantities';
 
 /** One line of what a map holds: a term and its value in words, numbers in the user's units. */
 export interface MapFact {

@@ -1,9 +1,7 @@
 import type { StudyDocument } from '#shared/schemas/study';
 import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT, TURBINE_GAS } from '#shared/physics';
-import { formatNumber } from '#src/components/plots/quantities';
-import { formatStudyValue } from '#src/components/study/units';
-import type { UnitSystem } from '#src/lib/units';
 import type { MapGroup } from '../study-view';
+import { formatNumber, formatStudyValue, type UnitSystem } from '#src/lib/quantities';
 
 /**
  * What the numbers rest on, in plain words: the model, the atmosphere, where each plan's

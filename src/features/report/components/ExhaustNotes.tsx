@@ -1,6 +1,6 @@
 import { DEFAULT_PULSE_FACTOR } from '#shared/matching/exhaust';
 import type { StudyDocument } from '#shared/schemas/study';
-import { formatNumber } from '#src/components/plots/quantities';
+import { formatNumber } from '#src/lib/quantities';
 
 /** The divided-housing plans with the pulse-energy factor each uses (absent: the steady model as it is). */
 export function pulseFactors(doc: StudyDocument): { name: string; factor: number; stated: boolean }[] {

@@ -1,10 +1,9 @@
 import { useMemo } from 'react';
 import type { Severity } from '#shared/matching/types';
-import { formatNumber } from '#src/components/plots/quantities';
 import { planColour } from '#src/components/plots/style';
 import { groupFindings, localizeMessage } from '#src/components/study/FindingsList';
 import type { StudyLine } from '#src/components/study/lines';
-import type { UnitSystem } from '#src/lib/units';
+import { formatNumber, type UnitSystem } from '#src/lib/quantities';
 
 const SECTIONS: { severity: Severity; title: string; mark: string }[] = [
   { severity: 'limit', title: 'Limits crossed', mark: 'bg-limit text-white' },

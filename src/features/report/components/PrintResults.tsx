@@ -1,9 +1,8 @@
 import { RESULT_COLUMNS, type ResultColumn } from '#shared/matching/results-table';
-import { formatNumber } from '#src/components/plots/quantities';
 import { planColour } from '#src/components/plots/style';
 import type { StudyLine } from '#src/components/study/lines';
 import { cellValue, columnUnit, emptyCellNote, NOT_REACHABLE, resultTableRows, type ResultTableRow } from '#src/components/study/result-rows';
-import type { UnitSystem } from '#src/lib/units';
+import { formatNumber, type UnitSystem } from '#src/lib/quantities';
 
 /** Result columns per printed table: the rest go into the next table under it, rpm repeated. */
 export const COLUMNS_PER_PRINTED_TABLE = 9;

@@ -11,9 +11,9 @@ import { ResultsTable } from '#src/components/study/ResultsTable';
 import { RpmCurves } from '#src/components/study/RpmCurves';
 import { StudyCaution } from '#src/components/study/StudyCaution';
 import { WorkingPanel } from '#src/components/study/WorkingPanel';
-import type { UnitSystem } from '#src/lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { ExhaustNotes } from './ExhaustNotes';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * The point first shown in the Working: where the first plan that does not fit (else the first

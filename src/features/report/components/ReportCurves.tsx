@@ -3,7 +3,7 @@ import { PlotFrame } from '#src/components/plots/PlotFrame';
 import { planColour, planMarker, scenarioDash } from '#src/components/plots/style';
 import { hasExhaust, type StudyLine } from '#src/components/study/lines';
 import { curveViewsFor, rpmCurvesFigure, type CurveView } from '#src/components/study/rpm-curves-figure';
-import type { UnitSystem } from '#src/lib/units';
+import type { UnitSystem } from '#src/lib/quantities';
 
 const DASH_ARRAYS: Record<string, string | undefined> = {
   solid: undefined,

@@ -3,11 +3,9 @@ import { DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
 import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/requirements';
 import type { RpmTable } from '#shared/matching/types';
 import type { StudyDocument } from '#shared/schemas/study';
-import { formatNumber } from '#src/components/plots/quantities';
 import { planColour } from '#src/components/plots/style';
-import { formatPressureLoss, formatStudyValue, quantityUnit, type StudyQuantity } from '#src/components/study/units';
-import type { UnitSystem } from '#src/lib/units';
 import { mapName, type StudyViewData } from '../study-view';
+import { formatNumber, formatPressureLoss, formatStudyValue, quantityUnit, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
 
 /** Columns of an rpm table per printed block, so a long table wraps instead of running off the page. */
 const RPM_COLUMNS_PER_BLOCK = 10;

@@ -10,8 +10,6 @@ import { PlanVerdicts } from '#src/components/study/PlanVerdicts';
 import { StudyCaution } from '#src/components/study/StudyCaution';
 import { useDocumentTitle } from '#src/components/Page';
 import { formatDateTime } from '#src/lib/format';
-import type { UnitSystem } from '#src/lib/units';
-import { unitSystemNames } from '#src/lib/units';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { Assumptions } from './Assumptions';
 import { ExhaustNotes } from './ExhaustNotes';
@@ -19,6 +17,7 @@ import { PrintFindings } from './PrintFindings';
 import { PrintResults } from './PrintResults';
 import { reportCurveViews, ReportCurves } from './ReportCurves';
 import { StudyInputs } from './StudyInputs';
+import { type UnitSystem, unitSystemNames } from '#src/lib/quantities';
 
 /** Plot sizes for paper: the report column is as wide as an A4 or Letter page inside its margins. */
 const MAP_HEIGHT = 560;

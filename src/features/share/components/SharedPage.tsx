@@ -3,7 +3,7 @@ import { Link } from 'react-router';
 import { BrandMark, BrandWord } from '#src/components/Brand';
 import { SkipLink } from '#src/components/Nav';
 import { paths } from '#src/lib/paths';
-import type { UnitSystem } from '#src/lib/units';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /** SI or US customary for whoever opened the link (not remembered: they may not have an account). */
 export function ViewerUnitSwitch({ value, onChange }: { value: UnitSystem; onChange: (system: UnitSystem) => void }) {

@@ -1,7 +1,5 @@
 import { FIELD_WORDS } from '#shared/study/diff';
-import { formatStudyValue, type StudyQuantity } from '#src/components/study/units';
-import type { UnitSystem } from '#src/lib/units';
-import { formatNumber } from '#src/components/plots/quantities';
+import { formatNumber, formatStudyValue, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
 
 /** The SI unit each quantity's messages are written in (shared/schemas/compute.ts). */
 const SI_UNIT: Partial<Record<StudyQuantity, string>> = {

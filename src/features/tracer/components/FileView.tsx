@@ -2,7 +2,7 @@ import type { TraceBuild } from '#shared/tracer/build';
 import { Card } from '#src/components/Card';
 import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
-import type { UnitSystem } from '#src/lib/units';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /** The file being built, line by line, and (once it reads as a map) the map drawn as the library will draw it. */
 export function FileView({ build, unitSystem }: { build: TraceBuild; unitSystem: UnitSystem }) {

@@ -10,7 +10,6 @@ import { Button } from '#src/components/Button';
 import { useDocumentTitle } from '#src/components/Page';
 import { isApiError } from '#src/lib/api-client';
 import { paths } from '#src/lib/paths';
-import { useUnitSystem } from '#src/lib/units';
 import { pictureUrl } from '../api/keys';
 import { staleDraftOf } from '../api/save-draft';
 import { useSaveTraceToLibrary } from '../api/save-to-library';
@@ -25,6 +24,7 @@ import { FileView } from './FileView';
 import { LinesPanel } from './LinesPanel';
 import { MapPanel, type ChangeTrace } from './MapPanel';
 import { TraceCanvas, type CanvasTargets, type CanvasTool } from './TraceCanvas';
+import { useUnitSystem } from '#src/lib/quantities';
 
 type Step = 'map' | 'axes' | 'lines' | 'file';
 const STEPS: { step: Step; title: string }[] = [

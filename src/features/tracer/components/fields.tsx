@@ -1,22 +1,20 @@
-import { useEffect, useId, useState, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { FieldError, inputClass } from '#src/components/TextField';
+import { parseTypedNumber, unitLabel } from '#src/lib/quantities';
 
 /** The id of a setting's input, so a problem in the file can send the user straight to it. */
 export function settingId(field: string): string {
   return `trace-setting-${field}`;
 }
 
-type Parsed = number | null | undefined;
-
-const NUMBER_TEXT = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+/** The trace stores numbers within ±1e15 (shared/tracer/state.ts). */
+const TRACE_NUMBER_LIMIT = 1e15;
 
 /** A typed number: null for an empty field, undefined for text that is not a number. */
-export function parseTypedNumber(text: string): Parsed {
-  const trimmed = text.trim();
-  if (trimmed === '') return null;
-  if (!NUMBER_TEXT.test(trimmed)) return undefined;
-  const value = Number(trimmed);
-  return Number.isFinite(value) && Math.abs(value) <= 1e15 ? value : undefined;
+function traceNumber(text: string): number | null | undefined {
+  if (text.trim() === '') return null;
+  const read = parseTypedNumber(text, { limit: TRACE_NUMBER_LIMIT });
+  return read.ok ? read.value : undefined;
 }
 
 /**
@@ -49,22 +47,17 @@ export function NumberField({
   const generated = useId();
   const inputId = id ?? generated;
   const [text, setText] = useState(value === null ? '' : String(value));
-  const parsed = parseTypedNumber(text);
+  // Undo, redo or a loaded draft change the value from outside: show it, unless the text already
+  // says it (adjusted while rendering, as React advises for state that follows a prop).
+  const [shownValue, setShownValue] = useState(value);
+  if (value !== shownValue) {
+    setShownValue(value);
+    const current = traceNumber(text);
+    if (!(current === value || (current === undefined && value === null))) setText(value === null ? '' : String(value));
+  }
 
-  // Undo, redo or a loaded draft change the value from outside: show it, unless the text already says it.
-  useEffect(() => {
-    const current = parseTypedNumber(text);
-    if (current === value || (current === undefined && value === null)) return;
-    setText(value === null ? '' : String(value));
-    // Only an outside change of the value resets the text.
-  }, [value]);
-
-  const error =
-    parsed === undefined
-      ? /^\s*[+-]?\d+,\d+\s*$/.test(text)
-        ? 'Write the number with a decimal point (1.5, not 1,5).'
-        : 'Type a number, such as 1.5 or 2e5.'
-      : null;
+  const read = text.trim() === '' ? null : parseTypedNumber(text, { limit: TRACE_NUMBER_LIMIT });
+  const error = read && !read.ok ? read.message : null;
   const hintId = hint ? `${inputId}-hint` : undefined;
   const errorId = error ? `${inputId}-error` : undefined;
   return (
@@ -87,8 +80,7 @@ export function NumberField({
           aria-describedby={[errorId, hintId].filter(Boolean).join(' ') || undefined}
           onChange={(event) => {
             setText(event.target.value);
-            const next = parseTypedNumber(event.target.value);
-            onChange(next === undefined ? null : next);
+            onChange(traceNumber(event.target.value) ?? null);
           }}
         />
         {unit && <span className="shrink-0 text-sm text-ink-soft">{unit}</span>}
@@ -139,18 +131,7 @@ export function ChoiceField<T extends string>({
   );
 }
 
-/** Mathjs unit names as people read them in a list. */
+/** A unit choice as people read it in a list. */
 export function unitOption(unit: string): { value: string; label: string } {
-  const words: Record<string, string> = {
-    degC: '°C',
-    degF: '°F',
-    degR: '°R',
-    m3: 'm³',
-    'm3/s': 'm³/s',
-    'm3/min': 'm³/min',
-    'kg/s K^0.5 / kPa': 'kg/s·K^0.5/kPa',
-    'kg/s K^0.5 / Pa': 'kg/s·K^0.5/Pa',
-    'lb/min degR^0.5 / psi': 'lb/min·°R^0.5/psi',
-  };
-  return { value: unit, label: words[unit] ?? unit };
+  return { value: unit, label: unitLabel(unit) };
 }

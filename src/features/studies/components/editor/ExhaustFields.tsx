@@ -1,6 +1,5 @@
 import { turbineEfficiencyKindMeaning } from '#shared/maps/format';
 import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
-import { formatNumber } from '#src/components/plots/quantities';
 import type { MapSummary } from '#src/features/maps/api';
 import { getIn } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
@@ -8,6 +7,7 @@ import { ChoiceField, NumberField, ToggleField } from './fields';
 import { LossFields } from './LossFields';
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, SubHeading } from './Section';
+import { formatNumber } from '#src/lib/quantities';
 
 type Housing = 'single' | 'divided';
 type Exhaust = {

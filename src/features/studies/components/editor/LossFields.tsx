@@ -1,10 +1,10 @@
 import { LOSS_REFERENCE_DENSITY, type PressureLossInput } from '#shared/physics/losses';
-import { inputText, quantityUnit } from '#src/components/study/units';
 import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { NumberField, UnitNumberInput } from './fields';
 import { FieldRow } from './Section';
+import { inputText, quantityUnit } from '#src/lib/quantities';
 
 /**
  * A pressure loss as the study states it: the loss, and the engine flow (and gas density) it was

@@ -1,11 +1,11 @@
 import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '#shared/matching/requirements';
 import type { RequirementsInput } from '#shared/matching/types';
-import { formatStudyValue, inputText, quantityUnit, type StudyQuantity } from '#src/components/study/units';
 import { getIn, pathKey } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { ReadValue, UnitNumberInput } from './fields';
 import { FieldRow, Section, SubHeading } from './Section';
+import { formatStudyValue, inputText, quantityUnit, type StudyQuantity } from '#src/lib/quantities';
 
 interface RequirementSpec {
   key: keyof Requirements;

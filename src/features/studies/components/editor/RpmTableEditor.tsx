@@ -1,11 +1,11 @@
 import { useId, useState } from 'react';
 import { Button } from '#src/components/Button';
-import { quantityUnit, type StudyQuantity } from '#src/components/study/units';
 import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { applyPaste, parsePastedTable, type RpmRows } from '#src/features/studies/lib/paste-table';
 import { useEditor } from './context';
 import { GroupIssue, UnitNumberInput } from './fields';
+import { quantityUnit, type StudyQuantity } from '#src/lib/quantities';
 
 /**
  * A table by engine speed (volumetric efficiency, lambda, boost): rows of rpm and value, added

@@ -1,6 +1,6 @@
 import { createContext, useContext } from 'react';
-import type { UnitSystem } from '#src/lib/units';
 import type { DocPath } from '#src/features/studies/lib/draft';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /** What every input of the study editor reads and writes through. */
 export interface Editor {

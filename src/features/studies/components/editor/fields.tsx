@@ -1,10 +1,10 @@
-import { useEffect, useId, useState, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { FieldError, inputClass } from '#src/components/TextField';
-import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity } from '#src/components/study/units';
 import { asSentence } from '#src/lib/forms';
 import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
+import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity } from '#src/lib/quantities';
 
 /** A value shown, not edited: viewers and archived studies get text, not input boxes. */
 export function ReadValue({ label, children, compact = false }: { label: ReactNode; children: ReactNode; compact?: boolean }) {
@@ -61,17 +61,15 @@ export function UnitNumberInput({
   const id = useId();
   const unit = quantityUnit(quantity, unitSystem);
   const shown = value === undefined || !Number.isFinite(value) ? '' : inputText(unit.fromSI(value));
-  const [text, setText] = useState(shown);
+  const [typed, setTyped] = useState(shown);
   const [focused, setFocused] = useState(false);
   const [typingError, setTypingError] = useState<string | null>(null);
-
-  // Outside changes (unit switch, another version loaded, an undo) show unless the user is typing.
-  useEffect(() => {
-    if (!focused && typingError === null) setText(shown);
-  }, [shown, focused, typingError]);
+  // While the user types (or leaves a wrong number behind) the box keeps their text; otherwise it
+  // shows the stored value, so outside changes (unit switch, another version loaded, an undo) show.
+  const text = focused || typingError !== null ? typed : shown;
 
   function change(next: string) {
-    setText(next);
+    setTyped(next);
     if (next.trim() === '') {
       if (optional) {
         setTypingError(null);
@@ -120,12 +118,12 @@ export function UnitNumberInput({
           aria-describedby={describedBy}
           data-testid={testId}
           onChange={(e) => change(e.target.value)}
-          onFocus={() => setFocused(true)}
-          onBlur={() => {
-            setFocused(false);
-            // A number typed as "1." or "+2" reads back in its plain form once the user moves on.
-            if (typingError === null) setText(shown);
+          onFocus={() => {
+            if (typingError === null) setTyped(shown);
+            setFocused(true);
           }}
+          // A number typed as "1." or "+2" reads back in its plain form once the user moves on.
+          onBlur={() => setFocused(false)}
           onPaste={onPaste}
           // Room on the right for the unit written inside the box.
           style={!compact && unitText ? { paddingRight: `${1 + unitText.length * 0.5}rem` } : undefined}

@@ -1,6 +1,5 @@
 import type { DocumentChange } from '#shared/study/diff';
-import { formatStudyValue } from '#src/components/study/units';
-import type { UnitSystem } from '#src/lib/units';
+import { formatStudyValue, type UnitSystem } from '#src/lib/quantities';
 
 /** A changed value in the user's units; whole plans, scenarios and rows by their name. */
 export function changeValueText(change: DocumentChange, value: unknown, system: UnitSystem): string {

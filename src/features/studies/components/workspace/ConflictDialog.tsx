@@ -7,8 +7,8 @@ import { Dialog } from '#src/components/Dialog';
 import { TextField } from '#src/components/TextField';
 import { isApiError } from '#src/lib/api-client';
 import { formatDateTime } from '#src/lib/format';
-import type { UnitSystem } from '#src/lib/units';
 import { ChangeList } from './ChangeList';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * Someone saved the study after the revision this editor started from. Nothing is lost

@@ -6,12 +6,12 @@ import { Badge } from '#src/components/Badge';
 import { ConfirmButton } from '#src/components/ConfirmButton';
 import { Loading } from '#src/components/Page';
 import { formatDateTime } from '#src/lib/format';
-import type { UnitSystem } from '#src/lib/units';
 import { useRevision } from '#src/features/studies/api/get-revision';
 import { useRevisions } from '#src/features/studies/api/get-revisions';
 import { useRestoreRevision } from '#src/features/studies/api/restore-revision';
 import { staleRevisionOf } from '#src/features/studies/api/save-study';
 import { ChangeList } from './ChangeList';
+import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * Every saved revision (author, time, message). Pick two to see what changed between them;

@@ -12,8 +12,8 @@ import { PlanVerdicts } from '#src/components/study/PlanVerdicts';
 import { ResultsTable } from '#src/components/study/ResultsTable';
 import { RpmCurves } from '#src/components/study/RpmCurves';
 import { WorkingPanel } from '#src/components/study/WorkingPanel';
-import type { UnitSystem } from '#src/lib/units';
 import type { Computed } from './use-study-editor';
+import type { UnitSystem } from '#src/lib/quantities';
 
 const MemoMap = memo(CompressorMapPlot);
 const MemoTurbineMap = memo(TurbineMapPlot);

@@ -14,7 +14,6 @@ import { isApiError } from '#src/lib/api-client';
 import { useMapModels, useMaps } from '#src/features/maps/api';
 import { formatDateTime } from '#src/lib/format';
 import { paths } from '#src/lib/paths';
-import { useUnitSystem } from '#src/lib/units';
 import { useCreateStudy } from '#src/features/studies/api/create-study';
 import { useDeleteStudy } from '#src/features/studies/api/delete-study';
 import { useStudy } from '#src/features/studies/api/get-study';
@@ -39,6 +38,7 @@ import { SaveControls } from './SaveControls';
 import { SharePanel } from './SharePanel';
 import { StudyPlots } from './StudyPlots';
 import { editableDocument, mapIdsOf, useDraft, useStudyCompute } from './use-study-editor';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /** The study page: loads the study, then hands it to the editor (fresh for each study). */
 export function StudyWorkspace({ teamId, studyId }: { teamId: string; studyId: string }) {

@@ -1,31 +1,7 @@
 import { siUnitOf, unitConverter, type QuantityKind } from '#shared/units';
-import { displayUnitOf, type UnitSystem } from '#src/lib/units';
-
-// Numbers as the plots and map screens show them: in the user's units, with the unit written the
-// way people read it (°C, m³/s) rather than the way mathjs spells it (degC, m^3/s).
-
-const UNIT_LABELS: Record<string, string> = {
-  degC: '°C',
-  degF: '°F',
-  degR: '°R',
-  'm^3/s': 'm³/s',
-  'm^3/min': 'm³/min',
-  'kg/m^3': 'kg/m³',
-  'lb/ft^3': 'lb/ft³',
-  'cm^2': 'cm²',
-  'in^2': 'in²',
-  'm^2': 'm²',
-  'N m': 'N·m',
-  'lbf ft': 'lbf·ft',
-  cuin: 'in³',
-  'kg/s K^0.5 / kPa': 'kg·K^0.5/(s·kPa)',
-  'lb/min degR^0.5 / psi': 'lb·°R^0.5/(min·psi)',
-};
-
-/** A mathjs unit name as people write it. */
-export function unitLabel(unit: string): string {
-  return UNIT_LABELS[unit] ?? unit;
-}
+import { displayUnitOf } from './display-units';
+import { unitLabel } from './unit-label';
+import type { UnitSystem } from './unit-system';
 
 const formatters = new Map<number, Intl.NumberFormat>();
 
@@ -38,6 +14,17 @@ export function formatNumber(value: number, significantDigits = 4): string {
     formatters.set(significantDigits, formatter);
   }
   return formatter.format(value);
+}
+
+/**
+ * A number for an input box: 5 significant figures (a converted 300 kPa reads 43.511 psi, not
+ * 43.5113), none of the float noise a conversion leaves, no grouping commas (they would not
+ * parse). Showing fewer digits changes nothing stored: the SI value changes only when typed over.
+ */
+export function inputText(value: number, significant = 5): string {
+  if (!Number.isFinite(value)) return '';
+  if (value === 0) return '0';
+  return String(Number(value.toPrecision(significant)));
 }
 
 function isQuantityKind(kind: string): kind is QuantityKind {
@@ -55,8 +42,10 @@ export function displayUnitLabel(kind: QuantityKind, system: UnitSystem): string
 }
 
 /**
- * One SI value as text in the user's units. `kind` is a quantity kind of shared/units or one of
- * the pure-number kinds of the Working: `fraction` (shown in percent), `ratio`, `count`, `none`.
+ * One SI value as text in the display unit of its kind, as the plots, the map screens and the
+ * lesson show it. `kind` is a quantity kind of shared/units or one of the pure-number kinds of the
+ * Working: `fraction` (shown in percent), `ratio`, `count`, `none`. A study's own inputs and
+ * results have units of their own (gauge pressure, litres, cc/min): `formatStudyValue`.
  */
 export function formatQuantity(value: number | null, kind: string, system: UnitSystem): string {
   if (value === null || !Number.isFinite(value)) return '—';
@@ -78,9 +67,4 @@ export function krpmLabel(rpm: number): string {
 /** An efficiency (fraction) in percent: `77 %`. */
 export function percentLabel(fraction: number): string {
   return `${formatNumber(fraction * 100, 3)} %`;
-}
-
-/** Text safe to put into plotly's hover and annotation strings, which read a little HTML. */
-export function plotText(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
 }

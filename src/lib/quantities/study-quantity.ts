@@ -1,7 +1,9 @@
 import type { DiffValueKind } from '#shared/study/diff';
 import { unitConverter, type QuantityKind } from '#shared/units';
-import { displayUnits, type UnitSystem } from '#src/lib/units';
-import { formatNumber } from '../plots/quantities';
+import { displayUnits } from './display-units';
+import { formatNumber } from './format';
+import { unitLabel } from './unit-label';
+import type { UnitSystem } from './unit-system';
 
 /**
  * The quantities a study shows and edits, beyond the plain kinds of shared/units: gauge
@@ -31,20 +33,6 @@ function scaled(factor: number, label: string, short = label): QuantityUnit {
   return { label, short, toSI: (v) => v / factor, fromSI: (v) => v * factor };
 }
 
-const UNIT_TEXT: Record<string, string> = {
-  degC: '°C',
-  degF: '°F',
-  'm^3/s': 'm³/s',
-  'kg/m^3': 'kg/m³',
-  'lb/ft^3': 'lb/ft³',
-  'cm^2': 'cm²',
-  'in^2': 'in²',
-  'N m': 'N·m',
-  'lbf ft': 'lbf·ft',
-  cuin: 'in³',
-};
-const text = (unit: string) => UNIT_TEXT[unit] ?? unit;
-
 const cache = new Map<string, QuantityUnit>();
 
 /** How a quantity is shown and typed in a unit system. */
@@ -60,13 +48,13 @@ export function quantityUnit(quantity: StudyQuantity, system: UnitSystem): Quant
 
 function makeUnit(quantity: StudyQuantity, system: UnitSystem): QuantityUnit {
   const us = system === 'us';
-  const plain = (kind: QuantityKind) => mathUnit(displayUnits[system][kind], kind, text(displayUnits[system][kind]));
+  const plain = (kind: QuantityKind) => mathUnit(displayUnits[system][kind], kind, unitLabel(displayUnits[system][kind]));
   switch (quantity) {
     case 'pressure':
       return plain('pressure');
     case 'pressureGauge': {
       const unit = displayUnits[system].pressure;
-      return mathUnit(unit, 'pressure', `${text(unit)} gauge`, text(unit));
+      return mathUnit(unit, 'pressure', `${unitLabel(unit)} gauge`, unitLabel(unit));
     }
     case 'temperature':
       return plain('temperature');
@@ -123,30 +111,6 @@ export function formatStudyValue(value: unknown, quantity: StudyQuantity | null,
   const unit = quantityUnit(quantity, system);
   const shown = formatNumber(unit.fromSI(value), quantity === 'speed' ? 21 : digits);
   return unit.label ? `${shown} ${unit.label}` : shown;
-}
-
-/**
- * A number for an input box: 5 significant figures (a converted 300 kPa reads 43.511 psi, not
- * 43.5113), none of the float noise a conversion leaves, no grouping commas (they would not
- * parse). Showing fewer digits changes nothing stored: the SI value changes only when typed over.
- */
-export function inputText(value: number, significant = 5): string {
-  if (!Number.isFinite(value)) return '';
-  if (value === 0) return '0';
-  return String(Number(value.toPrecision(significant)));
-}
-
-/**
- * Reads what a person typed as a number: digits with an optional point and exponent. Refuses
- * anything else (a comma could be a decimal comma or a thousands separator: asking is safer).
- */
-export function parseTypedNumber(raw: string): { ok: true; value: number } | { ok: false; message: string } {
-  const t = raw.trim().replace(/^−/, '-');
-  if (t === '') return { ok: false, message: 'Type a number.' };
-  if (/^[-+]?\d+,\d+$/.test(t)) return { ok: false, message: 'Use a point for decimals (1.5, not 1,5).' };
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(t)) return { ok: false, message: 'Type a number (digits and a decimal point).' };
-  const value = Number(t);
-  return Number.isFinite(value) ? { ok: true, value } : { ok: false, message: 'That number is too large.' };
 }
 
 /**

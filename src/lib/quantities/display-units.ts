@@ -1,19 +1,5 @@
-import type { UnitSystem } from '#shared/schemas/account';
 import type { QuantityKind } from '#shared/units';
-import { useMe } from './session';
-
-export type { UnitSystem };
-
-/** The signed-in user's unit system; SI while nobody is signed in. */
-export function useUnitSystem(): UnitSystem {
-  const { data } = useMe();
-  return data?.user.unitSystem ?? 'si';
-}
-
-export const unitSystemNames: Record<UnitSystem, string> = {
-  si: 'SI',
-  us: 'US customary',
-};
+import type { UnitSystem } from './unit-system';
 
 /**
  * The unit each kind of quantity is shown in, by unit system: mathjs unit names, converted
