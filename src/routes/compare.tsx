@@ -10,7 +10,6 @@ import { selectionFromParam, selectionParam } from '../features/compare/selectio
 import { useMapModels } from '../features/maps/api';
 import { useStudy } from '../features/studies/api';
 import { paths } from '../lib/paths';
-import { useUnitSystem } from '#src/lib/quantities';
 
 function parseDocument(raw: unknown): StudyDocument | string {
   const read = readStudyDocument(raw);
@@ -22,7 +21,6 @@ export function CompareRoute() {
   const { teamId = '', studyId = '' } = useParams();
   const [searchParams, setSearchParams] = useSearchParams();
   const study = useStudy(teamId, studyId);
-  const system = useUnitSystem();
   const parsed = useMemo(() => (study.data ? parseDocument(study.data.document) : null), [study.data]);
   const document = parsed !== null && typeof parsed !== 'string' ? parsed : null;
   // Compressor maps, and the turbine maps of plans that have one (the engine needs both).
@@ -79,7 +77,6 @@ export function CompareRoute() {
                 { replace: true },
               )
             }
-            system={system}
           />
         </>
       )}

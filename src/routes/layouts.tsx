@@ -6,6 +6,7 @@ import { TeamSwitcher } from '../components/TeamSwitcher';
 import { SignOutButton } from '../features/auth/components/SignOutButton';
 import { UnitSwitch } from '../features/auth/components/UnitSwitch';
 import { useCurrentTeamId } from '../lib/current-team';
+import { UserUnitSystem } from '../lib/quantities';
 import { homeAfterSignIn, paths } from '../lib/paths';
 import { useMe } from '../lib/session';
 
@@ -18,13 +19,13 @@ const areas: readonly NavItem[] = [
   { to: paths.teams.href(), label: 'Team', isActive: (p) => /^\/teams(\/[^/]+)?\/?$/.test(p) },
 ];
 
-/** The top of the tree: scroll restoration and nothing else. */
+/** The top of the tree: scroll restoration, and the user's unit system for every page. */
 export function RootLayout() {
   return (
-    <>
+    <UserUnitSystem>
       <ScrollRestoration />
       <Outlet />
-    </>
+    </UserUnitSystem>
   );
 }
 

@@ -2,11 +2,9 @@ import { Page } from '../components/Page';
 import { useDemoMap } from '../features/learn/api/get-demo-map';
 import { LearnLesson } from '../features/learn/components/LearnLesson';
 import { useCurrentTeamId } from '../lib/current-team';
-import { useUnitSystem } from '#src/lib/quantities';
 
 /** Learn: corrected flow and pressure ratio, taught with a live example on a built-in demo map. */
 export function LearnRoute() {
-  const system = useUnitSystem();
   const teamId = useCurrentTeamId();
   const map = useDemoMap(teamId);
   const mapError = teamId === null ? 'You are in no team, so the map library cannot be reached.' : map.error ? map.error.message : null;
@@ -16,7 +14,7 @@ export function LearnRoute() {
       eyebrow="Learn"
       description="Follow each number from the outside air to the point on the compressor map: air density, mass flow, corrected flow, pressure ratio and outlet temperature, with the formulas and where they come from."
     >
-      <LearnLesson map={map.data ?? null} mapLoading={teamId !== null && map.isPending} mapError={mapError} system={system} />
+      <LearnLesson map={map.data ?? null} mapLoading={teamId !== null && map.isPending} mapError={mapError} />
     </Page>
   );
 }

@@ -8,13 +8,11 @@ import { StudyReport } from '../features/report/components/StudyReport';
 import { useMapModels } from '../features/maps/api';
 import { useStudy } from '../features/studies/api';
 import { paths } from '../lib/paths';
-import { useUnitSystem } from '#src/lib/quantities';
 
 /** `/teams/:teamId/studies/:studyId/report`: the saved study as a report made for printing. */
 export function ReportRoute() {
   const { teamId = '', studyId = '' } = useParams();
   const study = useStudy(teamId, studyId);
-  const system = useUnitSystem();
   const parsed = useMemo(() => (study.data ? readStudyDocument(study.data.document) : null), [study.data]);
   const mapIds = parsed?.ok ? studyMapIds(parsed.document.plans) : [];
   const maps = useMapModels(teamId, mapIds);
@@ -49,7 +47,7 @@ export function ReportRoute() {
           mapsById: maps.mapsById,
           mapNames: maps.namesById,
         }}
-        system={system}
+
         backHref={paths.teamStudy.href(teamId, studyId)}
         backLabel="Back to the study"
       />

@@ -6,7 +6,7 @@ import { StudyReport } from '../features/report/components/StudyReport';
 import { isLinkGone, useSharedStudy } from '../features/share/api/get-shared-study';
 import { LinkGone, SharedPage } from '../features/share/components/SharedPage';
 import { paths } from '../lib/paths';
-import { useUnitSystem } from '#src/lib/quantities';
+import { UnitSystemProvider, useUnitSystem } from '../lib/quantities';
 
 /** `/share/:token/report`: the printable report of a shared study. */
 export function ShareReportRoute() {
@@ -32,6 +32,8 @@ export function ShareReportRoute() {
     );
   }
   return (
-    <StudyReport data={shared.data} system={system} backHref={paths.share.href(token)} backLabel="Back to the shared study" source="A read-only share link" />
+    <UnitSystemProvider system={system}>
+      <StudyReport data={shared.data} backHref={paths.share.href(token)} backLabel="Back to the shared study" source="A read-only share link" />
+    </UnitSystemProvider>
   );
 }

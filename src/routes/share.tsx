@@ -9,7 +9,7 @@ import { isLinkGone, sharedResultsCsvHref, useSharedStudy } from '../features/sh
 import { LinkGone, SharedPage, ViewerUnitSwitch } from '../features/share/components/SharedPage';
 import { formatDateTime } from '../lib/format';
 import { paths } from '../lib/paths';
-import { type UnitSystem, useUnitSystem } from '#src/lib/quantities';
+import { UnitSystemProvider, useUnitSystem, type UnitSystem } from '../lib/quantities';
 
 /** `/share/:token`: a study opened through a share link, signed in or not. Nothing here can change it. */
 export function ShareRoute() {
@@ -66,7 +66,9 @@ export function ShareRoute() {
             </a>
           </div>
         </header>
-        <ReadOnlyStudyView data={data} system={system} />
+        <UnitSystemProvider system={system}>
+          <ReadOnlyStudyView data={data} />
+        </UnitSystemProvider>
       </div>
     </SharedPage>
   );

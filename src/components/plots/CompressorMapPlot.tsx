@@ -1,4 +1,5 @@
 import { useMemo } from 'react';
+import { useUnitSystem } from '#src/lib/quantities';
 import { compressorMapFigure } from './compressor-map-figure';
 import { FlowAxisSwitch } from './FlowAxisSwitch';
 import { PlotFrame } from './PlotFrame';
@@ -15,12 +16,12 @@ export function CompressorMapPlot({
   lines,
   flowAxis = 'corrected',
   onFlowAxisChange,
-  unitSystem,
   highlight = null,
   onPointClick,
   height = DEFAULT_HEIGHT,
   exportName,
 }: CompressorMapPlotProps) {
+  const unitSystem = useUnitSystem();
   const figure = useMemo(
     () => compressorMapFigure({ map, lines, flowAxis, unitSystem, highlight, height }),
     [map, lines, flowAxis, unitSystem, highlight, height],

@@ -3,7 +3,7 @@ import type { TurbineMap } from '#shared/maps/types';
 import { PlotFrame } from './PlotFrame';
 import { turbineMapFigure } from './turbine-map-figure';
 import type { TurbineOperatingLineView } from './types';
-import type { UnitSystem } from '#src/lib/quantities';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /**
  * A turbine map in the same style as the compressor map: flow parameter against expansion ratio
@@ -11,7 +11,6 @@ import type { UnitSystem } from '#src/lib/quantities';
  */
 export function TurbineMapPlot({
   map,
-  unitSystem,
   height = 440,
   exportName,
   lines,
@@ -19,13 +18,13 @@ export function TurbineMapPlot({
   onPointClick,
 }: {
   map: TurbineMap;
-  unitSystem: UnitSystem;
   height?: number;
   exportName?: string;
   lines?: readonly TurbineOperatingLineView[];
   highlight?: { lineKey: string; rpm: number } | null;
   onPointClick?: (lineKey: string, rpm: number) => void;
 }) {
+  const unitSystem = useUnitSystem();
   const figure = useMemo(() => turbineMapFigure({ map, unitSystem, height, lines, highlight }), [map, unitSystem, height, lines, highlight]);
   return <PlotFrame figure={figure} height={height} label={`Turbine map: ${map.name}`} exportName={exportName ?? map.name} onPointClick={onPointClick} />;
 }

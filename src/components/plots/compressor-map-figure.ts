@@ -24,7 +24,7 @@ export interface PlotFigure {
   layout: Partial<Layout>;
 }
 
-type FigureInput = Pick<CompressorMapPlotProps, 'map' | 'lines' | 'flowAxis' | 'unitSystem' | 'highlight'> & { height: number };
+type FigureInput = Pick<CompressorMapPlotProps, 'map' | 'lines' | 'flowAxis' | 'highlight'> & { unitSystem: UnitSystem; height: number };
 
 /** How flows are put on the x axis: the unit shown and the factors from the SI values. */
 export interface FlowScale {

@@ -1,5 +1,4 @@
 import type { CompressorMap } from '#shared/maps/types';
-import type { UnitSystem } from '#shared/schemas/account';
 
 /**
  * The contract between the compressor-map plot and the screens that use it (map library preview,
@@ -52,7 +51,6 @@ export interface CompressorMapPlotProps {
   flowAxis?: 'corrected' | 'volume';
   /** When given, the plot shows a switch between the two flow axes and reports the choice here. */
   onFlowAxisChange?: (flowAxis: 'corrected' | 'volume') => void;
-  unitSystem: UnitSystem;
   /** A point to ring, e.g. the one a clicked finding refers to. */
   highlight?: { lineKey: string; rpm: number } | null;
   /** Called when the user clicks an operating point. */

@@ -1,13 +1,14 @@
 import { planColour } from '../plots/style';
 import type { StudyLine } from './lines';
-import { formatNumber, formatStudyValue, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, formatStudyValue, useUnitSystem } from '#src/lib/quantities';
 
 /**
  * The exhaust side of each line in one table: where full boost arrives, the highest drive pressure
  * ratio, the valve each gate needs against the one fitted, and the turbine inlet pressure at peak
  * power. Only lines whose plan has the exhaust side computed are listed.
  */
-export function ExhaustSummary({ lines, unitSystem }: { lines: readonly StudyLine[]; unitSystem: UnitSystem }) {
+export function ExhaustSummary({ lines }: { lines: readonly StudyLine[] }) {
+  const unitSystem = useUnitSystem();
   const rows = lines.filter((l) => l.line.exhaust);
   if (rows.length === 0) return null;
   const at = (rpm: number | null | undefined) => (rpm === null || rpm === undefined ? '' : ` at ${formatNumber(rpm, 21)} rpm`);

@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import type { Finding, FindingCode, Severity } from '#shared/matching/types';
 import { planColour } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
-import { formatNumber, formatStudyValue, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, formatStudyValue, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 /** One finding of one line, at every rpm where it was raised. */
 export interface FindingGroup {
@@ -117,17 +117,8 @@ export function findingTitle(code: FindingCode): string {
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
 
-function LineFinding({
-  group,
-  unitSystem,
-  selected,
-  onSelect,
-}: {
-  group: FindingGroup;
-  unitSystem: UnitSystem;
-  selected: PointRef | null;
-  onSelect: (point: PointRef) => void;
-}) {
+function LineFinding({ group, selected, onSelect }: { group: FindingGroup; selected: PointRef | null; onSelect: (point: PointRef) => void }) {
+  const unitSystem = useUnitSystem();
   const rpms = [...group.rpms].sort((a, b) => a - b);
   const isSelected = selected !== null && selected.lineKey === group.line.key && rpms.some((r) => sameRpm(r, selected.rpm));
   const message = localizeMessage(group.finding.message, unitSystem);
@@ -176,17 +167,7 @@ function LineFinding({
  * with the speeds where it was raised. Clicking a line or a speed selects that point: the map,
  * the curves and the table highlight it and the Working shows it.
  */
-export function FindingsList({
-  lines,
-  unitSystem,
-  selected,
-  onSelect,
-}: {
-  lines: readonly StudyLine[];
-  unitSystem: UnitSystem;
-  selected: PointRef | null;
-  onSelect: (point: PointRef) => void;
-}) {
+export function FindingsList({ lines, selected, onSelect }: { lines: readonly StudyLine[]; selected: PointRef | null; onSelect: (point: PointRef) => void }) {
   const groups = useMemo(() => groupFindings(lines), [lines]);
   if (groups.length === 0) {
     return <p className="text-sm text-ink-soft">No findings: every point is inside the map with no limit crossed.</p>;
@@ -222,7 +203,7 @@ export function FindingsList({
                   </summary>
                   <ul className="space-y-1.5 px-2 pb-2">
                     {ofCode.map((g) => (
-                      <LineFinding key={g.id} group={g} unitSystem={unitSystem} selected={selected} onSelect={onSelect} />
+                      <LineFinding key={g.id} group={g} selected={selected} onSelect={onSelect} />
                     ))}
                   </ul>
                 </details>

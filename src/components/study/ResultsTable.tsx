@@ -16,7 +16,7 @@ import { Button } from '../Button';
 import { planColour } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { cellValue, columnUnit, emptyCellNote, resultTableRows, resultsTsv, type ResultTableRow } from './result-rows';
-import { formatNumber, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 const features = tableFeatures({
   rowSortingFeature,
@@ -37,7 +37,8 @@ function cellText(row: ResultTableRow, column: ResultColumn, system: UnitSystem)
 }
 
 /** A value cell: the number, or in its place "not reachable" or a dash that says why the map gives none. */
-function ValueCell({ row, column, system }: { row: ResultTableRow; column: ResultColumn; system: UnitSystem }) {
+function ValueCell({ row, column }: { row: ResultTableRow; column: ResultColumn }) {
+  const system = useUnitSystem();
   const note = emptyCellNote(row, column);
   if (!note) return <>{cellText(row, column, system)}</>;
   if (note.text === '—') {
@@ -87,7 +88,7 @@ function buildColumns(system: UnitSystem) {
         id: column.key,
         header: () => <HeaderText label={column.label} unit={columnUnit(column, system)} />,
         sortUndefined: 'last',
-        cell: (info) => <ValueCell row={info.row.original} column={column} system={system} />,
+        cell: (info) => <ValueCell row={info.row.original} column={column} />,
       });
       // Where the point sits and whether it can be reached, right after its engine speed: the rest of the row depends on it.
       return column === RPM_COLUMN ? [value, regionColumn, reachableColumn] : [value];
@@ -164,17 +165,16 @@ async function copyText(text: string): Promise<void> {
  */
 export function ResultsTable({
   lines,
-  unitSystem,
   selected = null,
   onSelect,
   caption = 'Results by operating point',
 }: {
   lines: readonly StudyLine[];
-  unitSystem: UnitSystem;
   selected?: PointRef | null;
   onSelect?: (point: PointRef) => void;
   caption?: string;
 }) {
+  const unitSystem = useUnitSystem();
   const filterId = useId();
   const [lineFilter, setLineFilter] = useState<string>('all');
   const [sorting, setSorting] = useState<SortingState>([]);

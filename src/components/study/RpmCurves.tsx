@@ -2,7 +2,7 @@ import { useMemo, useState } from 'react';
 import { PlotFrame } from '../plots/PlotFrame';
 import { hasExhaust, type PointRef, type StudyLine } from './lines';
 import { curveViewsFor, rpmCurvesFigure } from './rpm-curves-figure';
-import type { UnitSystem } from '#src/lib/quantities';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /**
  * Curves against engine speed, one quantity at a time (boost, pressure ratio, mass flow, power
@@ -13,7 +13,6 @@ import type { UnitSystem } from '#src/lib/quantities';
  */
 export function RpmCurves({
   lines,
-  unitSystem,
   highlight = null,
   onPointClick,
   height = 380,
@@ -22,7 +21,6 @@ export function RpmCurves({
   initialView = 'boost',
 }: {
   lines: readonly StudyLine[];
-  unitSystem: UnitSystem;
   highlight?: PointRef | null;
   onPointClick?: (point: PointRef) => void;
   height?: number;
@@ -31,6 +29,7 @@ export function RpmCurves({
   exportName?: string;
   initialView?: string;
 }) {
+  const unitSystem = useUnitSystem();
   const [viewId, setViewId] = useState(initialView);
   const withExhaust = useMemo(() => hasExhaust(lines), [lines]);
   const views = curveViewsFor(withExhaust);

@@ -6,7 +6,7 @@ import type { WorkingStep, WorkingValue } from '#shared/matching/working';
 import { math } from '#shared/units';
 import { Formula, MathSymbol } from './Formula';
 import type { StudyLine } from './lines';
-import { formatNumber, formatStudyValue, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, formatStudyValue, type StudyQuantity, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 /** Symbols of fuel flows: shown in the fuel trade's units, not as air volume flow. */
 const INJECTOR_FLOW_SYMBOLS = new Set(['Q_rated', 'Q_inj_p', 'Q_inj_s']);
@@ -58,7 +58,8 @@ export function checkStep(step: WorkingStep): { value: number; agrees: boolean }
   }
 }
 
-function StepView({ step, index, system }: { step: WorkingStep; index: number; system: UnitSystem }) {
+function StepView({ step, index }: { step: WorkingStep; index: number }) {
+  const system = useUnitSystem();
   const check = checkStep(step);
   // A step whose formula is one symbol just states a value: no formula line and no list.
   const isFormula = !/^[A-Za-z_][A-Za-z0-9_]*$/.test(step.formula.trim());
@@ -113,17 +114,7 @@ function StepView({ step, index, system }: { step: WorkingStep; index: number; s
  * formula, the values it uses in the user's units, the result and its source. The steps come
  * from the engine (`pointWorking`), so they always agree with the plots and the table.
  */
-export function WorkingPanel({
-  line,
-  point,
-  unitSystem,
-  onClose,
-}: {
-  line: StudyLine | null;
-  point: OperatingPoint | null;
-  unitSystem: UnitSystem;
-  onClose?: () => void;
-}) {
+export function WorkingPanel({ line, point, onClose }: { line: StudyLine | null; point: OperatingPoint | null; onClose?: () => void }) {
   const steps = useMemo(() => (line && point ? pointWorking(line.line.context, point) : []), [line, point]);
   if (!line || !point) {
     return (
@@ -164,7 +155,7 @@ export function WorkingPanel({
       )}
       <ol className="max-h-[42rem] overflow-y-auto pl-4 pr-2 pt-1">
         {steps.map((s, i) => (
-          <StepView key={`${s.id}-${i}`} step={s} index={i} system={unitSystem} />
+          <StepView key={`${s.id}-${i}`} step={s} index={i} />
         ))}
       </ol>
     </section>

@@ -37,7 +37,7 @@ function rowOf(key: string): HTMLElement {
 
 describe('DifferencesTable with an exhaust side', () => {
   it('shows the drive pressure ratio with its own symbols and words, the lowest marked best', () => {
-    render(<DifferencesTable rows={compareLines([early, never, noExhaust])} chosen={chosen} system="si" />);
+    render(<DifferencesTable rows={compareLines([early, never, noExhaust])} chosen={chosen} />);
     const tr = rowOf('peakDrivePressureRatio');
     expect(within(tr).getByText('Peak drive pressure ratio')).toBeTruthy();
     // Symbols of the physics note §5: drive pressure ratio p3/p_man.
@@ -52,7 +52,7 @@ describe('DifferencesTable with an exhaust side', () => {
   });
 
   it('says "not reached" for a line that never holds its target and "no exhaust side" for a compressor-only line', () => {
-    render(<DifferencesTable rows={compareLines([early, never, noExhaust])} chosen={chosen} system="si" />);
+    render(<DifferencesTable rows={compareLines([early, never, noExhaust])} chosen={chosen} />);
     const cells = rowOf('boostThresholdRpm').querySelectorAll('td.numeric');
     expect(cells[0].textContent).toContain('3,500'); // hand-read threshold
     expect(cells[0].textContent).not.toContain('at '); // the value is itself an engine speed
@@ -76,7 +76,7 @@ describe('DifferencesTable with an exhaust side', () => {
   });
 
   it('shows no exhaust row for compressor-only lines', () => {
-    render(<DifferencesTable rows={compareLines([noExhaust, noExhaust])} chosen={chosen.slice(0, 2)} system="si" />);
+    render(<DifferencesTable rows={compareLines([noExhaust, noExhaust])} chosen={chosen.slice(0, 2)} />);
     expect(screen.getByTestId('differences-table').querySelector('tr[data-row="boostThresholdRpm"]')).toBeNull();
     expect(screen.queryByText('no exhaust side')).toBeNull();
   });

@@ -8,6 +8,7 @@ import { studyDocumentSchema } from '#shared/schemas/study';
 import { runStudyDocument } from '#shared/study/run';
 import { ExhaustSummary } from '#src/components/study/ExhaustSummary';
 import { studyLines, type StudyLine } from '#src/components/study/lines';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 afterEach(cleanup);
 
@@ -28,7 +29,7 @@ function withSummary(line: StudyLine, change: Partial<NonNullable<StudyLine['lin
 
 describe('the exhaust summary of a study', () => {
   it('lists each line with the exhaust side, with the figures the engine gave, in the user’s units', () => {
-    render(<ExhaustSummary lines={lines} unitSystem="si" />);
+    render(<ExhaustSummary lines={lines} />);
     const table = screen.getByTestId('exhaust-summary');
     expect(within(table).getAllByRole('row')).toHaveLength(1 + lines.length); // header + one row per line (2 plans × 2 scenarios)
     const first = lines[0].line.exhaust!;
@@ -41,7 +42,11 @@ describe('the exhaust summary of a study', () => {
   it('says when the target is never reached and when a gate is too small, and shows inches for US units', () => {
     const never = withSummary(lines[0], { boostThresholdRpm: null });
     const small = withSummary(lines[1], { wastegateDiameterNeeded: { value: 0.05, rpm: 8000 }, wastegateDiameterFitted: 0.0254 });
-    render(<ExhaustSummary lines={[never, small]} unitSystem="us" />);
+    render(
+      <UnitSystemProvider system="us">
+        <ExhaustSummary lines={[never, small]} />
+      </UnitSystemProvider>,
+    );
     const rows = within(screen.getByTestId('exhaust-summary')).getAllByRole('row');
     expect(rows[1].textContent).toContain('not reached');
     expect(rows[2].textContent).toContain('1.97 in / 1 in'); // 50 mm and 25.4 mm at 1 in = 25.4 mm (NIST SP 811), 3 significant figures
@@ -49,7 +54,7 @@ describe('the exhaust summary of a study', () => {
   });
 
   it('shows nothing for a study without the exhaust side', () => {
-    const { container } = render(<ExhaustSummary lines={lines.map((l) => ({ ...l, line: { ...l.line, exhaust: null } }))} unitSystem="si" />);
+    const { container } = render(<ExhaustSummary lines={lines.map((l) => ({ ...l, line: { ...l.line, exhaust: null } }))} />);
     expect(container.textContent).toBe('');
   });
 });

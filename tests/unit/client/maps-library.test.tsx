@@ -125,7 +125,7 @@ describe('problem list of a refused map file', () => {
 
 describe('adding a map', () => {
   it('lists every problem of a broken file by line and column, and offers no save', async () => {
-    renderWith(<MapUpload teamId="t1" unitSystem="si" />);
+    renderWith(<MapUpload teamId="t1" />);
     choose(fileFrom('tests/fixtures/maps/bad/decimal-comma-quoted.csv'));
     const list = await screen.findByRole('list', { name: 'Problems in the file' });
     // tests/fixtures/maps/bad/expected.json: the one problem of this file.
@@ -137,7 +137,7 @@ describe('adding a map', () => {
   });
 
   it('refuses a file over the size limit without reading it', async () => {
-    renderWith(<MapUpload teamId="t1" unitSystem="si" />);
+    renderWith(<MapUpload teamId="t1" />);
     // 3 MiB of text: over the 2 MiB limit of docs/map-format.md.
     choose(new File([new Uint8Array(3 * 1024 * 1024).fill(0x41)], 'huge.csv', { type: 'text/csv' }));
     const list = await screen.findByRole('list', { name: 'Problems in the file' });
@@ -145,7 +145,7 @@ describe('adding a map', () => {
   });
 
   it('previews a good file with its name and notes ready to save', async () => {
-    renderWith(<MapUpload teamId="t1" unitSystem="si" />);
+    renderWith(<MapUpload teamId="t1" />);
     choose(fileFrom('data/maps/compressor-m58.csv'));
     expect(await screen.findByText('“compressor-m58.csv” reads as a compressor map with no problems.')).toBeTruthy();
     expect(screen.getByTestId('plot')).toBeTruthy();

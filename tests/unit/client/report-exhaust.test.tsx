@@ -15,6 +15,7 @@ import { ReadOnlyStudyView } from '#src/features/report/components/ReadOnlyStudy
 import { StudyInputs } from '#src/features/report/components/StudyInputs';
 import { StudyReport } from '#src/features/report/components/StudyReport';
 import { mapGroups, turbineMapGroups } from '#src/features/report/study-view';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 // plotly cannot draw under jsdom: every plot frame becomes a labelled stand-in (the browser test draws them).
 vi.mock('#src/components/plots/PlotFrame', () => ({
@@ -55,7 +56,7 @@ function exhaustRow(label: string): string[] {
 
 describe('report inputs: the exhaust side', () => {
   it('gives every plan’s exhaust inputs in SI, one column per plan', () => {
-    render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} system="si" />);
+    render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} />);
     expect(screen.getByRole('heading', { name: 'Exhaust side', level: 3 })).toBeTruthy();
     const columns = within(exhaustTable())
       .getAllByRole('columnheader')
@@ -80,7 +81,7 @@ describe('report inputs: the exhaust side', () => {
   });
 
   it('prints each plan’s turbine inlet temperatures by rpm in the user’s unit', () => {
-    render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} system="si" />);
+    render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} />);
     const table = screen.getByRole('table', { name: 'Turbine inlet temperature: 0.64 A/R single scroll, one gate' });
     const cells = [...table.querySelectorAll('td')].map((td) => td.textContent);
     // Fixture: 2500, 5000, 8000 rpm at 1003.15, 1133.15, 1183.15 K; °C = K − 273.15 (ITS-90), 4 significant figures.
@@ -90,7 +91,11 @@ describe('report inputs: the exhaust side', () => {
   });
 
   it('gives valve sizes in inches and the loss in psi in US units', () => {
-    render(<StudyInputs data={{ document: housingStudy, mapsById: maps }} system="us" />);
+    render(
+      <UnitSystemProvider system="us">
+        <StudyInputs data={{ document: housingStudy, mapsById: maps }} />
+      </UnitSystemProvider>,
+    );
     // 0.044 m / 0.0254 m/in = 1.732 in; 0.038 / 0.0254 = 1.496 in (1 in = 25.4 mm exactly, NIST SP 811 B.8).
     expect(exhaustRow('Wastegates')).toEqual(['1 × 1.732 in valve', '2 × 1.496 in valve']);
     // 15000 Pa / 6894.757 Pa/psi = 2.176 psi; 0.38 kg/s × 60/0.45359237 = 50.27 lb/min; 0.29 kg/m³ × 0.0624280 = 0.0181 lb/ft³ (NIST SP 811 B.8).
@@ -105,7 +110,7 @@ describe('report inputs: the exhaust side', () => {
     const second = doc.plans[1];
     const { pulseFactor: _pulse, ...exhaust } = second.exhaust!;
     doc.plans[1] = { ...second, exhaust };
-    render(<StudyInputs data={{ document: doc, mapsById: maps }} system="si" />);
+    render(<StudyInputs data={{ document: doc, mapsById: maps }} />);
     const compressorOnly = within(exhaustTable()).getByText('Compressor only');
     // One cell spans the whole column of the plan without an exhaust side.
     expect(compressorOnly.closest('td')!.getAttribute('rowspan')).toBe('8');
@@ -119,7 +124,7 @@ describe('report inputs: the exhaust side', () => {
 
   it('continues in a second table past four plans, so the columns fit across a page', () => {
     const plans = Array.from({ length: 5 }, (_, i) => ({ ...housingStudy.plans[i % 2], id: `plan-${i}`, name: `Plan ${i + 1}` }));
-    render(<StudyInputs data={{ document: { ...housingStudy, plans }, mapsById: maps }} system="si" />);
+    render(<StudyInputs data={{ document: { ...housingStudy, plans }, mapsById: maps }} />);
     const first = screen.getByRole('table', { name: 'Exhaust side of each plan' });
     const second = screen.getByRole('table', { name: 'Exhaust side of each plan (continued)' });
     // Four plan columns per table (PLAN_COLUMNS_PER_TABLE, our page layout, no source), the fifth under them.
@@ -136,7 +141,7 @@ describe('report inputs: the exhaust side', () => {
   });
 
   it('shows no exhaust block for a study judged on the compressor alone', () => {
-    render(<StudyInputs data={{ document: hillclimb, mapsById: maps }} system="si" />);
+    render(<StudyInputs data={{ document: hillclimb, mapsById: maps }} />);
     // The compressor plans are still listed (first plan of data/demo/hillclimb-study.json).
     expect(screen.getByText(hillclimb.plans[0].name)).toBeTruthy();
     expect(screen.queryByRole('heading', { name: 'Exhaust side' })).toBeNull();
@@ -197,12 +202,12 @@ describe('report: turbine maps, curves and notes', () => {
   });
 
   it('adds the exhaust side to the assumptions only for a study that has one', () => {
-    render(<Assumptions document={housingStudy} groups={mapGroups(housingStudy, lines, maps)} system="si" />);
+    render(<Assumptions document={housingStudy} groups={mapGroups(housingStudy, lines, maps)} />);
     expect(screen.getByText('Exhaust side.')).toBeTruthy();
     expect(screen.getByText('Pulse energy.')).toBeTruthy();
     cleanup();
     const plain = studyLines(runStudyLive(hillclimb, maps), hillclimb.plans);
-    render(<Assumptions document={hillclimb} groups={mapGroups(hillclimb, plain, maps)} system="si" />);
+    render(<Assumptions document={hillclimb} groups={mapGroups(hillclimb, plain, maps)} />);
     expect(screen.queryByText('Exhaust side.')).toBeNull();
     expect(screen.queryByText('Pulse energy.')).toBeNull();
   });
@@ -214,7 +219,7 @@ describe('the whole report and the shared view with the exhaust side', () => {
   function renderReport(document: StudyDocument) {
     render(
       <MemoryRouter>
-        <StudyReport data={viewData(document)} system="si" backHref="/" backLabel="Back" />
+        <StudyReport data={viewData(document)} backHref="/" backLabel="Back" />
       </MemoryRouter>,
     );
   }
@@ -271,7 +276,7 @@ describe('the whole report and the shared view with the exhaust side', () => {
     onTestFinished(() => {
       if (!had) delete proto.scrollIntoView;
     });
-    render(<ReadOnlyStudyView data={viewData(housingStudy)} system="si" />);
+    render(<ReadOnlyStudyView data={viewData(housingStudy)} />);
     const card = screen.getByTestId('read-only-turbine-map');
     const choices = within(card).getAllByRole('radio');
     // The two plans' turbine maps (fixture); choosing one draws it.
@@ -286,7 +291,7 @@ describe('the whole report and the shared view with the exhaust side', () => {
     }
     expect(within(card).getByTestId('exhaust-caution')).toBeTruthy();
     cleanup();
-    render(<ReadOnlyStudyView data={viewData(hillclimb)} system="si" />);
+    render(<ReadOnlyStudyView data={viewData(hillclimb)} />);
     expect(screen.queryByTestId('read-only-turbine-map')).toBeNull();
   });
 });

@@ -8,6 +8,7 @@ import type { MapSummary } from '#src/features/maps/api';
 import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
 import { ExhaustFields } from '#src/features/studies/components/editor/ExhaustFields';
 import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 afterEach(cleanup);
 
@@ -41,12 +42,13 @@ function Host({ unitSystem = 'si', onDraft }: { unitSystem?: 'si' | 'us'; onDraf
     update: (path, value) => setDraft((d) => setIn(d, path, value)),
     issues: parsed.success ? {} : issuesByPath(parsed.error.issues),
     readOnly: false,
-    unitSystem,
   };
   return (
-    <EditorContext.Provider value={editor}>
-      <ExhaustFields planIndex={0} turbineMaps={turbineMaps} turbineMapsError={null} />
-    </EditorContext.Provider>
+    <UnitSystemProvider system={unitSystem}>
+      <EditorContext.Provider value={editor}>
+        <ExhaustFields planIndex={0} turbineMaps={turbineMaps} turbineMapsError={null} />
+      </EditorContext.Provider>
+    </UnitSystemProvider>
   );
 }
 

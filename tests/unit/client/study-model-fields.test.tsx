@@ -12,6 +12,7 @@ import { ExhaustFields } from '#src/features/studies/components/editor/ExhaustFi
 import { FuelSection } from '#src/features/studies/components/editor/FuelSection';
 import { ScenariosSection } from '#src/features/studies/components/editor/ScenariosSection';
 import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 afterEach(cleanup);
 
@@ -38,9 +39,12 @@ function Host({
     update: (p, value) => setDraft((d) => setIn(d, p, value)),
     issues: parsed.success ? {} : issuesByPath(parsed.error.issues),
     readOnly: false,
-    unitSystem,
   };
-  return <EditorContext.Provider value={editor}>{children}</EditorContext.Provider>;
+  return (
+    <UnitSystemProvider system={unitSystem}>
+      <EditorContext.Provider value={editor}>{children}</EditorContext.Provider>
+    </UnitSystemProvider>
+  );
 }
 
 const type = (input: HTMLElement, text: string) => fireEvent.change(input, { target: { value: text } });

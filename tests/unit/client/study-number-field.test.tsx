@@ -2,13 +2,18 @@ import { cleanup, fireEvent, render, screen } from '@testing-library/react';
 import { useState } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { UnitNumberInput } from '#src/features/studies/components/editor/fields';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 afterEach(cleanup);
 
 describe('UnitNumberInput', () => {
   it('shows an SI value in the user’s unit and stores what is typed back in SI', () => {
     const onChange = vi.fn();
-    render(<UnitNumberInput label="Base fuel pressure" value={400_000} quantity="pressureGauge" unitSystem="us" onChange={onChange} />);
+    render(
+      <UnitSystemProvider system="us">
+        <UnitNumberInput label="Base fuel pressure" value={400_000} quantity="pressureGauge" onChange={onChange} />
+      </UnitSystemProvider>,
+    );
     const input = screen.getByLabelText('Base fuel pressure') as HTMLInputElement;
     expect(input.value).toBe('58.015'); // 400 kPa in psi, 5 significant figures (1 psi = 6894.757 Pa, NIST SP 811)
     expect(screen.getByText('psi gauge')).toBeTruthy();
@@ -18,7 +23,7 @@ describe('UnitNumberInput', () => {
 
   it('keeps a half-typed or wrong number as typed, says what is wrong, and stores nothing', () => {
     const onChange = vi.fn();
-    render(<UnitNumberInput label="Displacement" value={0.002} quantity="volume" unitSystem="si" onChange={onChange} />);
+    render(<UnitNumberInput label="Displacement" value={0.002} quantity="volume" onChange={onChange} />);
     const input = screen.getByLabelText('Displacement') as HTMLInputElement;
     fireEvent.focus(input);
     fireEvent.change(input, { target: { value: '2,1' } });
@@ -34,10 +39,10 @@ describe('UnitNumberInput', () => {
 
   it('clears an optional value with an empty box, and refuses an empty required one', () => {
     const onChange = vi.fn();
-    const { rerender } = render(<UnitNumberInput label="Rpm limit" value={8200} quantity="speed" unitSystem="si" optional onChange={onChange} />);
+    const { rerender } = render(<UnitNumberInput label="Rpm limit" value={8200} quantity="speed" optional onChange={onChange} />);
     fireEvent.change(screen.getByLabelText('Rpm limit'), { target: { value: '' } });
     expect(onChange).toHaveBeenLastCalledWith(undefined);
-    rerender(<UnitNumberInput label="Cylinders" value={4} quantity="count" unitSystem="si" onChange={onChange} />);
+    rerender(<UnitNumberInput label="Cylinders" value={4} quantity="count" onChange={onChange} />);
     onChange.mockClear();
     fireEvent.change(screen.getByLabelText('Cylinders'), { target: { value: '' } });
     expect(onChange).not.toHaveBeenCalled();
@@ -46,7 +51,11 @@ describe('UnitNumberInput', () => {
 
   it('converts a temperature rise by factor only', () => {
     const onChange = vi.fn();
-    render(<UnitNumberInput label="Intake heating" value={5} quantity="temperatureDifference" unitSystem="us" onChange={onChange} />);
+    render(
+      <UnitSystemProvider system="us">
+        <UnitNumberInput label="Intake heating" value={5} quantity="temperatureDifference" onChange={onChange} />
+      </UnitSystemProvider>,
+    );
     const input = screen.getByLabelText('Intake heating') as HTMLInputElement;
     expect(input.value).toBe('9'); // 5 K = 9 °F of difference (1 K = 1.8 °F, NIST SP 811), not 41 °F
     fireEvent.change(input, { target: { value: '18' } });
@@ -57,12 +66,12 @@ describe('UnitNumberInput', () => {
     function Host() {
       const [system, setSystem] = useState<'si' | 'us'>('si');
       return (
-        <>
+        <UnitSystemProvider system={system}>
           <button type="button" onClick={() => setSystem('us')}>
             US
           </button>
-          <UnitNumberInput label="Air temperature" value={293.15} quantity="temperature" unitSystem={system} onChange={() => undefined} />
-        </>
+          <UnitNumberInput label="Air temperature" value={293.15} quantity="temperature" onChange={() => undefined} />
+        </UnitSystemProvider>
       );
     }
     render(<Host />);

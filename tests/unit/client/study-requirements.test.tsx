@@ -9,6 +9,7 @@ import { PlansSection } from '#src/features/studies/components/editor/PlansSecti
 import { RequirementsSection } from '#src/features/studies/components/editor/RequirementsSection';
 import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
 import { demoDocument, demoMaps } from './demo-study';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 afterEach(cleanup);
 
@@ -34,13 +35,14 @@ function Host({
     update: (p, value) => setDraft((d) => setIn(d, p, value)),
     issues: parsed.success ? {} : issuesByPath(parsed.error.issues),
     readOnly,
-    unitSystem,
   };
   return (
-    <EditorContext.Provider value={editor}>
-      <RequirementsSection />
-      <PlansSection maps={[]} mapsError={null} turbineMaps={[]} turbineMapsError={null} />
-    </EditorContext.Provider>
+    <UnitSystemProvider system={unitSystem}>
+      <EditorContext.Provider value={editor}>
+        <RequirementsSection />
+        <PlansSection maps={[]} mapsError={null} turbineMaps={[]} turbineMapsError={null} />
+      </EditorContext.Provider>
+    </UnitSystemProvider>
   );
 }
 

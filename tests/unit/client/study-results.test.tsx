@@ -8,6 +8,7 @@ import { resultTableRows, resultsTsv } from '#src/components/study/result-rows';
 import { ResultsTable } from '#src/components/study/ResultsTable';
 import { runStudyLive } from '#src/components/study/run';
 import { demoDocument, demoMaps } from './demo-study';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 afterEach(cleanup);
 
@@ -29,7 +30,11 @@ const lines = studyLines(runStudyLive(demo, maps), demo.plans);
 describe('results table', () => {
   it('has one row per point, units under every column, and selects a row by click', () => {
     const onSelect = vi.fn();
-    render(<ResultsTable lines={lines} unitSystem="us" onSelect={onSelect} />);
+    render(
+      <UnitSystemProvider system="us">
+        <ResultsTable lines={lines} onSelect={onSelect} />
+      </UnitSystemProvider>,
+    );
     const table = screen.getByTestId('results-table');
     expect(within(table).getByRole('button', { name: /Corrected mass flow\s*\(lb\/min\)/ })).toBeTruthy();
     expect(within(table).getByRole('button', { name: /^Boost target\s*\(psi gauge\)/ })).toBeTruthy();
@@ -40,7 +45,7 @@ describe('results table', () => {
   });
 
   it('sorts by a column when its header is clicked', () => {
-    render(<ResultsTable lines={lines} unitSystem="si" />);
+    render(<ResultsTable lines={lines} />);
     const table = screen.getByTestId('results-table');
     const header = within(table).getByRole('button', { name: /^Engine speed/ });
     fireEvent.click(header);
@@ -69,7 +74,7 @@ describe('findings', () => {
     const order = groups.map((g) => ['limit', 'warning', 'info'].indexOf(g.severity));
     expect(order).toEqual([...order].sort((a, b) => a - b));
     const onSelect = vi.fn();
-    render(<FindingsList lines={lines} unitSystem="si" selected={null} onSelect={onSelect} />);
+    render(<FindingsList lines={lines} selected={null} onSelect={onSelect} />);
     const firstEntry = screen.getByTestId('findings').querySelector('li button')!;
     fireEvent.click(firstEntry);
     expect(onSelect).toHaveBeenCalledWith({ lineKey: groups[0].line.key, rpm: Math.min(...groups[0].rpms) });

@@ -126,7 +126,7 @@ describe('points the compressor cannot deliver', () => {
   const unreachable = s44.line.points.find((p) => p.values?.reachable === false && p.values.mapRegion === 'past-choke')!;
 
   it('read "not reachable" in the result cells, with the region and "no" beside the engine speed', () => {
-    render(<ResultsTable lines={[s44]} unitSystem="si" />);
+    render(<ResultsTable lines={[s44]} />);
     const row = screen.getByTestId('results-table').querySelector<HTMLElement>(`tr[data-row="${s44.key}@${unreachable.rpm}"]`)!;
     const cell = (column: string) => row.querySelector(`td[data-column="${column}"]`)!.textContent;
     expect(cell('mapRegion')).toBe('past choke');
@@ -151,7 +151,7 @@ describe('points the compressor cannot deliver', () => {
         marginBasis: { surge: 'below-surge-line', choke: 'choke-line', speed: 'below-map' },
       }),
     ]);
-    render(<ResultsTable lines={[below]} unitSystem="si" />);
+    render(<ResultsTable lines={[below]} />);
     const row = screen.getByTestId('results-table').querySelector(`tr[data-row="${below.key}@2500"]`)!;
     const why = (column: string) => row.querySelector(`td[data-column="${column}"] [title]`)?.getAttribute('title');
     expect(why('surgeMargin')).toBe("No surge margin: the point is below the surge line's lowest pressure ratio, where the map draws no surge line.");
@@ -232,7 +232,7 @@ describe('Side by side with verdicts', () => {
     const unfit: ComparableLine = { points: [point(4000, [], { brakePower: 300_000, surgeMargin: 0.3 })], planVerdict: 'does-not-fit' };
     const alsoFits: ComparableLine = { points: [point(4000, [], { brakePower: 250_000, surgeMargin: -0.1, reachable: false })], planVerdict: 'fits' };
     const rows = compareLines([fits, alsoFits, unfit]);
-    render(<DifferencesTable rows={rows} chosen={[chosen(0, 'Fits', 'fits'), chosen(1, 'Also', 'fits'), chosen(2, 'Unfit', 'does-not-fit')]} system="si" />);
+    render(<DifferencesTable rows={rows} chosen={[chosen(0, 'Fits', 'fits'), chosen(1, 'Also', 'fits'), chosen(2, 'Unfit', 'does-not-fit')]} />);
     const table = screen.getByTestId('differences-table');
     const first = table.querySelector('tbody tr')!;
     expect(first.getAttribute('data-row')).toBe('planVerdict');
@@ -261,7 +261,7 @@ describe('Side by side with verdicts', () => {
       { points: [point(3000)], exhaust: summary },
       { points: [point(3000)], exhaust: null },
     ]);
-    render(<DifferencesTable rows={rows} chosen={[chosen(0, 'Part throttle', 'fits'), chosen(1, 'Other', 'fits')]} system="si" />);
+    render(<DifferencesTable rows={rows} chosen={[chosen(0, 'Part throttle', 'fits'), chosen(1, 'Other', 'fits')]} />);
     const cells = screen.getByTestId('differences-table').querySelectorAll('tr[data-row="boostThresholdRpm"] td.numeric');
     expect(cells[0].textContent).toContain('no boost asked');
   });

@@ -8,6 +8,7 @@ import { studyDocumentSchema, toStudyInput } from '#shared/schemas/study';
 import { symbolParts } from '#src/components/study/Formula';
 import { studyLines } from '#src/components/study/lines';
 import { checkStep, WorkingPanel, workingQuantity } from '#src/components/study/WorkingPanel';
+import { UnitSystemProvider } from '#src/lib/quantities';
 
 afterEach(cleanup);
 
@@ -38,7 +39,7 @@ describe('WorkingPanel', () => {
   const point = line.line.points.find((p) => p.rpm === 4500)!;
 
   it('shows every step of the point with its title, formula check and source', () => {
-    render(<WorkingPanel line={line} point={point} unitSystem="si" />);
+    render(<WorkingPanel line={line} point={point} />);
     const steps = pointWorking(line.line.context, point);
     expect(steps.length).toBeGreaterThan(15);
     for (const s of steps) expect(screen.getAllByText(s.title).length).toBeGreaterThan(0);
@@ -57,14 +58,18 @@ describe('WorkingPanel', () => {
   });
 
   it('shows the values in US customary units when asked', () => {
-    render(<WorkingPanel line={line} point={point} unitSystem="us" />);
+    render(
+      <UnitSystemProvider system="us">
+        <WorkingPanel line={line} point={point} />
+      </UnitSystemProvider>,
+    );
     const corrected = document.querySelector('[data-step="corrected-flow"]')!;
     expect(corrected.textContent).toMatch(/lb\/min/);
     expect(corrected.textContent).not.toMatch(/kg\/s/);
   });
 
   it('asks for a point when none is picked', () => {
-    render(<WorkingPanel line={null} point={null} unitSystem="si" />);
+    render(<WorkingPanel line={null} point={null} />);
     expect(screen.getByText(/Pick a point/)).toBeTruthy();
   });
 });

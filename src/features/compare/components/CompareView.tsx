@@ -19,7 +19,7 @@ import { CombinationMark, type ChosenLine } from './CombinationMark';
 import { CombinationPicker } from './CombinationPicker';
 import { ChosenVerdicts } from './ChosenVerdicts';
 import { DifferencesTable } from './DifferencesTable';
-import { formatQuantity, type UnitSystem } from '#src/lib/quantities';
+import { formatQuantity, useUnitSystem } from '#src/lib/quantities';
 
 const MAP_HEIGHT = 620;
 
@@ -43,15 +43,14 @@ export function CompareView({
   mapNames,
   selection,
   onSelectionChange,
-  system,
 }: {
   document: StudyDocument;
   mapsById: Record<string, SpoolbookMap | undefined>;
   mapNames: Record<string, string>;
   selection: readonly string[];
   onSelectionChange: (keys: string[]) => void;
-  system: UnitSystem;
 }) {
+  const system = useUnitSystem();
   const result = useMemo(() => runStudyLive(document, mapsById), [document, mapsById]);
   const lines = useMemo(() => studyLines(result, document.plans), [result, document]);
   // Each plan judged over all its scenarios and boost rows: a line is only as good as its plan.
@@ -229,7 +228,7 @@ export function CompareView({
                     </select>
                   </label>
                 )}
-                <TurbineMapPlot map={drawnTurbine.map} lines={turbineViews} unitSystem={system} height={480} exportName={`side-by-side-${drawnTurbine.name}`} />
+                <TurbineMapPlot map={drawnTurbine.map} lines={turbineViews} height={480} exportName={`side-by-side-${drawnTurbine.name}`} />
                 <p className="text-xs text-ink-soft">
                   {usedTurbineMaps.length > 1
                     ? `The chosen lines run on ${usedTurbineMaps.length} turbine maps; each line is drawn on its own. Choose the map above.`
@@ -241,7 +240,7 @@ export function CompareView({
 
           <Card title="Against engine speed">
             <div data-testid="compare-curves">
-              <RpmCurves lines={curveLines} unitSystem={system} exportName="side-by-side" height={340} />
+              <RpmCurves lines={curveLines} exportName="side-by-side" height={340} />
             </div>
           </Card>
 
@@ -252,7 +251,7 @@ export function CompareView({
                 the points the compressor can deliver, each with the engine speed it occurs at. The best value of each row is marked only among plans that fit,
                 never on a value past a limit; “Best is” says what best means there. Counts are of points.
               </p>
-              <DifferencesTable rows={rows} chosen={rankedChosen} system={system} />
+              <DifferencesTable rows={rows} chosen={rankedChosen} />
             </div>
           </Card>
         </>

@@ -1,7 +1,7 @@
 import type { CompareCell, CompareRow, CompareRowKey } from '#shared/study/compare';
 import { VerdictStamp } from '#src/components/study/PlanVerdicts';
 import { CombinationMark, type ChosenLine } from './CombinationMark';
-import { formatNumber, quantityUnit, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, quantityUnit, type StudyQuantity, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 const QUANTITY: Record<string, StudyQuantity> = {
   fraction: 'fraction',
@@ -76,7 +76,8 @@ export function pastLimitMark(row: CompareRow, cell: CompareCell, chosen: Chosen
 }
 
 /** One row per figure, one column per chosen line, the best of each row marked. */
-export function DifferencesTable({ rows, chosen, system }: { rows: readonly CompareRow[]; chosen: readonly ChosenLine[]; system: UnitSystem }) {
+export function DifferencesTable({ rows, chosen }: { rows: readonly CompareRow[]; chosen: readonly ChosenLine[] }) {
+  const system = useUnitSystem();
   return (
     <div className="overflow-x-auto">
       <table className="w-full min-w-[40rem] border-collapse text-left text-sm" data-testid="differences-table">

@@ -8,7 +8,7 @@ import type { OperatingLineView } from '#src/components/plots/types';
 import { DEFAULT_LESSON, runLesson, stepsById, type LessonInputs } from '../lesson';
 import { LessonControls } from './LessonControls';
 import { WorkingStepCard } from './WorkingStepCard';
-import { formatNumber, formatQuantity, krpmLabel, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, formatQuantity, krpmLabel, useUnitSystem } from '#src/lib/quantities';
 
 interface Section {
   id: string;
@@ -140,19 +140,8 @@ function lineView(key: string, label: string, planIndex: number, point: Operatin
   };
 }
 
-function Summary({
-  point,
-  standard,
-  system,
-  hasMap,
-  mapLoading,
-}: {
-  point: OperatingPoint;
-  standard: OperatingPoint;
-  system: UnitSystem;
-  hasMap: boolean;
-  mapLoading: boolean;
-}) {
+function Summary({ point, standard, hasMap, mapLoading }: { point: OperatingPoint; standard: OperatingPoint; hasMap: boolean; mapLoading: boolean }) {
+  const system = useUnitSystem();
   const v = point.values;
   if (!v)
     return (
@@ -204,17 +193,7 @@ function Summary({
 }
 
 /** The live example: four inputs, the point on the demo map, and every step from the outside air to the map. */
-export function LearnLesson({
-  map,
-  mapLoading,
-  mapError,
-  system,
-}: {
-  map: CompressorMap | null;
-  mapLoading: boolean;
-  mapError: string | null;
-  system: UnitSystem;
-}) {
+export function LearnLesson({ map, mapLoading, mapError }: { map: CompressorMap | null; mapLoading: boolean; mapError: string | null }) {
   const [inputs, setInputs] = useState<LessonInputs>(DEFAULT_LESSON);
   const lesson = useMemo(() => runLesson(inputs, map), [inputs, map]);
   const lines = useMemo(
@@ -239,7 +218,7 @@ export function LearnLesson({
 
       <div className="grid gap-6 lg:grid-cols-[18rem_1fr]">
         <Card title="The example" className="self-start lg:sticky lg:top-4">
-          <LessonControls inputs={inputs} system={system} onChange={setInputs} />
+          <LessonControls inputs={inputs} onChange={setInputs} />
         </Card>
         <Card title="Where it lands">
           <div className="space-y-4">
@@ -248,11 +227,11 @@ export function LearnLesson({
                 {mapError}
               </Alert>
             )}
-            <Summary point={lesson.point} standard={lesson.standardDay} system={system} hasMap={map !== null} mapLoading={mapLoading} />
+            <Summary point={lesson.point} standard={lesson.standardDay} hasMap={map !== null} mapLoading={mapLoading} />
             <CompressorMapPlot
               map={map}
               lines={lines}
-              unitSystem={system}
+
               highlight={{ lineKey: 'yours', rpm: inputs.rpm }}
               height={440}
               exportName="Learn example"
@@ -288,7 +267,7 @@ export function LearnLesson({
               {steps.length > 0 ? (
                 <div className="grid gap-3 xl:grid-cols-2">
                   {steps.map((step) => (
-                    <WorkingStepCard key={step.id} step={step} system={system} />
+                    <WorkingStepCard key={step.id} step={step} />
                   ))}
                 </div>
               ) : (

@@ -2,7 +2,7 @@ import { useId } from 'react';
 import { fromSI, toSI, type QuantityKind } from '#shared/units';
 import { Button } from '#src/components/Button';
 import { DEFAULT_LESSON, LESSON_ENGINE, type LessonInputs } from '../lesson';
-import { formatNumber, unitLabel, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, unitLabel, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 interface SliderSpec {
   key: keyof LessonInputs;
@@ -42,7 +42,8 @@ const SLIDERS: SliderSpec[] = [
   },
 ];
 
-function Slider({ spec, value, system, onChange }: { spec: SliderSpec; value: number; system: UnitSystem; onChange: (si: number) => void }) {
+function Slider({ spec, value, onChange }: { spec: SliderSpec; value: number; onChange: (si: number) => void }) {
+  const system = useUnitSystem();
   const id = useId();
   const u = spec.units[system];
   const shown = fromSI(value, u.unit, spec.kind);
@@ -75,7 +76,8 @@ function Slider({ spec, value, system, onChange }: { spec: SliderSpec; value: nu
 }
 
 /** The four things the reader moves, and what stays fixed in the example. */
-export function LessonControls({ inputs, system, onChange }: { inputs: LessonInputs; system: UnitSystem; onChange: (next: LessonInputs) => void }) {
+export function LessonControls({ inputs, onChange }: { inputs: LessonInputs; onChange: (next: LessonInputs) => void }) {
+  const system = useUnitSystem();
   const e = LESSON_ENGINE;
   const kPaOrPsi = (pa: number) => (system === 'us' ? `${formatNumber(fromSI(pa, 'psi', 'pressure'), 3)} psi` : `${formatNumber(pa / 1000, 3)} kPa`);
   const approach = system === 'us' ? `${formatNumber(e.intercoolerApproach * 1.8, 3)} °F` : `${formatNumber(e.intercoolerApproach, 3)} °C`;
@@ -84,7 +86,7 @@ export function LessonControls({ inputs, system, onChange }: { inputs: LessonInp
       <fieldset className="space-y-4">
         <legend className="mb-2 text-base font-semibold text-ink">Move these</legend>
         {SLIDERS.map((spec) => (
-          <Slider key={spec.key} spec={spec} value={inputs[spec.key]} system={system} onChange={(si) => onChange({ ...inputs, [spec.key]: si })} />
+          <Slider key={spec.key} spec={spec} value={inputs[spec.key]} onChange={(si) => onChange({ ...inputs, [spec.key]: si })} />
         ))}
       </fieldset>
       <Button variant="quiet" onClick={() => onChange(DEFAULT_LESSON)}>

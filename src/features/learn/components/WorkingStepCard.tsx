@@ -1,7 +1,7 @@
 import type { WorkingStep, WorkingValue } from '#shared/matching/working';
 import { fromSI, siUnitOf, type QuantityKind } from '#shared/units';
 import { Formula, MathSymbol } from '#src/components/study/Formula';
-import { displayUnitOf, formatNumber, formatQuantity, unitLabel, type UnitSystem } from '#src/lib/quantities';
+import { displayUnitOf, formatNumber, formatQuantity, unitLabel, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 function isQuantityKind(kind: string): kind is QuantityKind {
   return Object.prototype.hasOwnProperty.call(siUnitOf, kind);
@@ -32,7 +32,8 @@ function unitText(unit: string): string {
   return unitLabel(unit).replace(/\^2/g, '²').replace(/\^3/g, '³');
 }
 
-function ValueText({ value, system }: { value: WorkingValue; system: UnitSystem }) {
+function ValueText({ value }: { value: WorkingValue }) {
+  const system = useUnitSystem();
   const text = workingValueText(value, system);
   return (
     <span className="numeric">
@@ -43,7 +44,7 @@ function ValueText({ value, system }: { value: WorkingValue; system: UnitSystem 
 }
 
 /** One step of the Working, laid out for reading: what it is, the formula, the numbers, the answer, the source. */
-export function WorkingStepCard({ step, system }: { step: WorkingStep; system: UnitSystem }) {
+export function WorkingStepCard({ step }: { step: WorkingStep }) {
   // A step whose formula is just its own input (a value read from a table or the map) needs no sum.
   const isLookup = step.values.length === 1 && step.formula === step.values[0].symbol;
   return (
@@ -64,7 +65,7 @@ export function WorkingStepCard({ step, system }: { step: WorkingStep; system: U
                   <MathSymbol name={v.symbol} />
                 </dt>
                 <dd>
-                  = <ValueText value={v} system={system} />
+                  = <ValueText value={v} />
                 </dd>
               </div>
             ))}
@@ -77,7 +78,7 @@ export function WorkingStepCard({ step, system }: { step: WorkingStep; system: U
         </span>{' '}
         ={' '}
         <strong className="font-semibold">
-          <ValueText value={step.result} system={system} />
+          <ValueText value={step.result} />
         </strong>
       </p>
       <p className="mt-2 text-xs text-ink-faint">Source: {step.source}</p>

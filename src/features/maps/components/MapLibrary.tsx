@@ -13,7 +13,6 @@ import { useTeamAccess } from '#src/lib/team-access';
 import { KindFilter, type KindChoice } from './KindFilter';
 import { MapTable } from './MapTable';
 import { MapUpload } from './MapUpload';
-import { useUnitSystem } from '#src/lib/quantities';
 
 /**
  * A team's map library: its own maps, the built-in demo maps, and (for editors and owners) the
@@ -24,7 +23,6 @@ export function MapLibrary({ teamId }: { teamId: string }) {
   const access = useTeamAccess(teamId);
   const { teamName } = access;
   const canEdit = access.can('content:write');
-  const unitSystem = useUnitSystem();
   const [kind, setKind] = useState<KindChoice>('all');
 
   if (isTwoFactorRequired(maps.error)) return <SecondFactorNeededPage title="Map library" teamName={teamName} />;
@@ -56,7 +54,7 @@ export function MapLibrary({ teamId }: { teamId: string }) {
     >
       {canEdit && (
         <Card title="Add a map">
-          <MapUpload teamId={teamId} unitSystem={unitSystem} />
+          <MapUpload teamId={teamId} />
         </Card>
       )}
 

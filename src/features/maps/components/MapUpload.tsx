@@ -17,7 +17,6 @@ import { MapFacts } from './MapFacts';
 import { MapPlot } from './MapPlot';
 import { MapProblemList, problemPlace } from './MapProblemList';
 import { NotesField } from './NotesField';
-import type { UnitSystem } from '#src/lib/quantities';
 
 const FIELDS = ['name', 'notes'] as const;
 
@@ -32,7 +31,7 @@ function problemCount(problems: readonly MapFileProblem[]): string {
  * Adding a map to the library: choose or drop a file, read it here at once with the same rules
  * as the server, see the map drawn (or every problem, by line and column), then save it.
  */
-export function MapUpload({ teamId, unitSystem }: { teamId: string; unitSystem: UnitSystem }) {
+export function MapUpload({ teamId }: { teamId: string }) {
   const upload = useUploadMap(teamId);
   const [stage, setStage] = useState<Stage>({ step: 'choose' });
   const [dragging, setDragging] = useState(false);
@@ -162,7 +161,7 @@ export function MapUpload({ teamId, unitSystem }: { teamId: string; unitSystem: 
           read={stage.read}
           map={stage.read.result.map}
           notes={stage.read.result.notes}
-          unitSystem={unitSystem}
+
           errors={errors}
           serverProblems={serverProblems}
           pending={upload.isPending}
@@ -182,7 +181,6 @@ function CheckedMap({
   read,
   map,
   notes,
-  unitSystem,
   errors,
   serverProblems,
   pending,
@@ -192,7 +190,6 @@ function CheckedMap({
   read: ReadMapFile;
   map: SpoolbookMap;
   notes: MapFileProblem[];
-  unitSystem: UnitSystem;
   errors: FormErrors;
   serverProblems: MapFileProblem[] | null;
   pending: boolean;
@@ -216,11 +213,11 @@ function CheckedMap({
           lines={read.lines}
         />
       )}
-      <MapPlot map={map} unitSystem={unitSystem} height={440} />
+      <MapPlot map={map} height={440} />
       <div className="grid gap-6 lg:grid-cols-2">
         <div className="space-y-2">
           <h3 className="font-semibold text-ink">What the file holds</h3>
-          <MapFacts map={map} unitSystem={unitSystem} />
+          <MapFacts map={map} />
         </div>
         <Form errors={errors} onSubmit={onSave} aria-label="Save the map to the library">
           <TextField label="Name" name="name" defaultValue={map.name} error={errors.fields.name} maxLength={120} required />

@@ -17,7 +17,6 @@ import { DeleteMap } from './DeleteMap';
 import { MapDetailsForm } from './MapDetailsForm';
 import { MapFacts } from './MapFacts';
 import { MapPlot } from './MapPlot';
-import { useUnitSystem } from '#src/lib/quantities';
 
 /** One map of the library: drawn, described, downloadable; named, annotated and deleted by editors. */
 export function MapView({ teamId, mapId, onDeleted }: { teamId: string; mapId: string; onDeleted: () => void }) {
@@ -44,7 +43,6 @@ export function MapView({ teamId, mapId, onDeleted }: { teamId: string; mapId: s
 function MapDetailView({ teamId, detail, onDeleted }: { teamId: string; detail: MapDetail; onDeleted: () => void }) {
   const access = useTeamAccess(teamId);
   const { teamName } = access;
-  const unitSystem = useUnitSystem();
   const editable = access.can('content:write') && !detail.builtin;
   const extra = [
     { term: 'File', value: detail.fileName },
@@ -81,12 +79,12 @@ function MapDetailView({ teamId, detail, onDeleted }: { teamId: string; detail: 
       )}
 
       <Card>
-        <MapPlot map={detail.map} unitSystem={unitSystem} />
+        <MapPlot map={detail.map} />
       </Card>
 
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="What the map holds">
-          <MapFacts map={detail.map} unitSystem={unitSystem} extra={extra} />
+          <MapFacts map={detail.map} extra={extra} />
         </Card>
         {editable ? (
           <Card title="Name and notes">

@@ -1,14 +1,15 @@
 import type { StudyDocument } from '#shared/schemas/study';
 import { AIR_CP, AIR_GAMMA, AIR_GAS_CONSTANT, TURBINE_GAS } from '#shared/physics';
 import type { MapGroup } from '../study-view';
-import { formatNumber, formatStudyValue, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, formatStudyValue, useUnitSystem } from '#src/lib/quantities';
 
 /**
  * What the numbers rest on, in plain words: the model, the atmosphere, where each plan's
  * compressor efficiency comes from and the reference its corrected flow is measured against, and
  * for plans with an exhaust side the turbine's power balance and what it takes as given.
  */
-export function Assumptions({ document, groups, system }: { document: StudyDocument; groups: readonly MapGroup[]; system: UnitSystem }) {
+export function Assumptions({ document, groups }: { document: StudyDocument; groups: readonly MapGroup[] }) {
+  const system = useUnitSystem();
   const ic = document.intercooler;
   const power = document.power;
   const withExhaust = document.plans.some((p) => p.exhaust);

@@ -3,7 +3,7 @@ import type { Severity } from '#shared/matching/types';
 import { planColour } from '#src/components/plots/style';
 import { groupFindings, localizeMessage } from '#src/components/study/FindingsList';
 import type { StudyLine } from '#src/components/study/lines';
-import { formatNumber, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, useUnitSystem } from '#src/lib/quantities';
 
 const SECTIONS: { severity: Severity; title: string; mark: string }[] = [
   { severity: 'limit', title: 'Limits crossed', mark: 'bg-limit text-white' },
@@ -17,7 +17,8 @@ function speeds(rpms: readonly number[]): string {
 }
 
 /** Every finding for paper: grouped by severity, each with its line and every engine speed it was raised at. */
-export function PrintFindings({ lines, system }: { lines: readonly StudyLine[]; system: UnitSystem }) {
+export function PrintFindings({ lines }: { lines: readonly StudyLine[] }) {
+  const system = useUnitSystem();
   const groups = useMemo(() => groupFindings(lines), [lines]);
   if (groups.length === 0) return <p className="text-sm text-ink-soft">No findings: every point is inside its map with no limit crossed.</p>;
   return (

@@ -2,7 +2,7 @@ import { RESULT_COLUMNS, type ResultColumn } from '#shared/matching/results-tabl
 import { planColour } from '#src/components/plots/style';
 import type { StudyLine } from '#src/components/study/lines';
 import { cellValue, columnUnit, emptyCellNote, NOT_REACHABLE, resultTableRows, type ResultTableRow } from '#src/components/study/result-rows';
-import { formatNumber, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 /** Result columns per printed table: the rest go into the next table under it, rpm repeated. */
 export const COLUMNS_PER_PRINTED_TABLE = 9;
@@ -39,7 +39,8 @@ export function filledColumns(
  * Every point of every operating line as static tables for paper: one heading per line, its
  * columns split across as many tables as it takes, engine speed first in each.
  */
-export function PrintResults({ lines, system }: { lines: readonly StudyLine[]; system: UnitSystem }) {
+export function PrintResults({ lines }: { lines: readonly StudyLine[] }) {
+  const system = useUnitSystem();
   const { shown, empty } = filledColumns(lines);
   const blocks = columnBlocks(shown);
   const rpmColumn = RESULT_COLUMNS.find((c) => c.key === 'rpm')!;

@@ -13,7 +13,6 @@ import { StudyCaution } from '#src/components/study/StudyCaution';
 import { WorkingPanel } from '#src/components/study/WorkingPanel';
 import { useComputedStudy, type StudyViewData } from '../study-view';
 import { ExhaustNotes } from './ExhaustNotes';
-import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * The point first shown in the Working: where the first plan that does not fit (else the first
@@ -87,7 +86,7 @@ function MapChooser({
  * the findings, the Working of a chosen point and the results table. Used by the shared view;
  * a team's viewers can be shown the same.
  */
-export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; system: UnitSystem }) {
+export function ReadOnlyStudyView({ data }: { data: StudyViewData }) {
   const computed = useComputedStudy(data);
   const [groupKey, setGroupKey] = useState<string | null>(null);
   const [picked, setPicked] = useState<PointRef | null>(null);
@@ -132,7 +131,7 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
                 <CompressorMapPlot
                   map={group.map}
                   lines={mapLines}
-                  unitSystem={system}
+
                   height={620}
                   highlight={selected}
                   onPointClick={(lineKey, rpm) => select({ lineKey, rpm })}
@@ -157,7 +156,6 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
                   <TurbineMapPlot
                     map={turbineGroup.map}
                     lines={turbineLines}
-                    unitSystem={system}
                     height={520}
                     highlight={selected}
                     onPointClick={(lineKey, rpm) => select({ lineKey, rpm })}
@@ -170,31 +168,24 @@ export function ReadOnlyStudyView({ data, system }: { data: StudyViewData; syste
                     not computed.
                   </p>
                 ))}
-                <ExhaustSummary lines={computed.lines} unitSystem={system} />
+                <ExhaustSummary lines={computed.lines} />
                 <ExhaustNotes document={data.document} />
               </div>
             </Card>
           )}
           <Card title="Curves against engine speed">
-            <RpmCurves
-              lines={computed.lines}
-              unitSystem={system}
-              highlight={selected}
-              onPointClick={select}
-              outletTemperatureLimit={limit}
-              exportName={data.title}
-            />
+            <RpmCurves lines={computed.lines} highlight={selected} onPointClick={select} outletTemperatureLimit={limit} exportName={data.title} />
           </Card>
         </div>
         <div className="min-w-0 space-y-6">
           <Card title="Findings">
-            <FindingsList lines={computed.lines} unitSystem={system} selected={selected} onSelect={select} />
+            <FindingsList lines={computed.lines} selected={selected} onSelect={select} />
           </Card>
-          <WorkingPanel line={found?.line ?? null} point={found?.point ?? null} unitSystem={system} />
+          <WorkingPanel line={found?.line ?? null} point={found?.point ?? null} />
         </div>
       </div>
       <Card title="Results">
-        <ResultsTable lines={computed.lines} unitSystem={system} selected={selected} onSelect={select} />
+        <ResultsTable lines={computed.lines} selected={selected} onSelect={select} />
       </Card>
     </div>
   );

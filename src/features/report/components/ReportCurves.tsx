@@ -3,7 +3,7 @@ import { PlotFrame } from '#src/components/plots/PlotFrame';
 import { planColour, planMarker, scenarioDash } from '#src/components/plots/style';
 import { hasExhaust, type StudyLine } from '#src/components/study/lines';
 import { curveViewsFor, rpmCurvesFigure, type CurveView } from '#src/components/study/rpm-curves-figure';
-import type { UnitSystem } from '#src/lib/quantities';
+import { useUnitSystem } from '#src/lib/quantities';
 
 const DASH_ARRAYS: Record<string, string | undefined> = {
   solid: undefined,
@@ -51,18 +51,17 @@ export function LinesKey({ lines }: { lines: readonly StudyLine[] }) {
 function CurvePlot({
   lines,
   view,
-  system,
   height,
   limit,
   exportName,
 }: {
   lines: readonly StudyLine[];
   view: CurveView;
-  system: UnitSystem;
   height: number;
   limit: number | null;
   exportName: string;
 }) {
+  const system = useUnitSystem();
   const figure = useMemo(() => {
     const f = rpmCurvesFigure({ lines, view, unitSystem: system, highlight: null, height, outletTemperatureLimit: limit });
     // The key above serves every plot; a legend of every line in each would fill the pages.
@@ -90,19 +89,7 @@ const DOTTED_NOTES: Record<string, string> = {
 };
 
 /** Every curve view of the study, one plot each, sized for paper, with one shared key. */
-export function ReportCurves({
-  lines,
-  system,
-  height,
-  limit,
-  exportName,
-}: {
-  lines: readonly StudyLine[];
-  system: UnitSystem;
-  height: number;
-  limit: number | null;
-  exportName: string;
-}) {
+export function ReportCurves({ lines, height, limit, exportName }: { lines: readonly StudyLine[]; height: number; limit: number | null; exportName: string }) {
   const withExhaust = hasExhaust(lines);
   const views = curveViewsFor(withExhaust);
   return (
@@ -114,7 +101,7 @@ export function ReportCurves({
             {view.label}
             {withExhaust && DOTTED_NOTES[view.id] && <span className="block text-xs font-normal text-ink-soft">{DOTTED_NOTES[view.id]}</span>}
           </figcaption>
-          <CurvePlot lines={lines} view={view} system={system} height={height} limit={limit} exportName={exportName} />
+          <CurvePlot lines={lines} view={view} height={height} limit={limit} exportName={exportName} />
         </figure>
       ))}
     </div>

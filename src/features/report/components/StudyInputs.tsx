@@ -5,7 +5,7 @@ import type { RpmTable } from '#shared/matching/types';
 import type { StudyDocument } from '#shared/schemas/study';
 import { planColour } from '#src/components/plots/style';
 import { mapName, type StudyViewData } from '../study-view';
-import { formatNumber, formatPressureLoss, formatStudyValue, quantityUnit, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
+import { formatNumber, formatPressureLoss, formatStudyValue, quantityUnit, type StudyQuantity, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 /** Columns of an rpm table per printed block, so a long table wraps instead of running off the page. */
 const RPM_COLUMNS_PER_BLOCK = 10;
@@ -24,15 +24,14 @@ export function RpmTableView({
   valueLabel = caption,
   table,
   quantity,
-  system,
 }: {
   caption: string;
   /** What the value row holds, e.g. "Boost"; the unit is added to it. */
   valueLabel?: string;
   table: RpmTable;
   quantity: StudyQuantity;
-  system: UnitSystem;
 }) {
+  const system = useUnitSystem();
   const unit = quantityUnit(quantity, system);
   return (
     <div className="space-y-1">
@@ -117,7 +116,8 @@ function housingText(housing: Exhaust['housing']): string {
  * not fit across a page), then each plan's turbine inlet temperatures by rpm. Shown only when some
  * plan has an exhaust side; a plan judged on the compressor alone says so in its column.
  */
-function ExhaustInputs({ data, system }: { data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'>; system: UnitSystem }) {
+function ExhaustInputs({ data }: { data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'> }) {
+  const system = useUnitSystem();
   const plans = data.document.plans;
   const v = (value: unknown, quantity: StudyQuantity) => formatStudyValue(value, quantity, system);
   const rows: { label: string; value: (plan: Plan, exhaust: Exhaust) => string }[] = [
@@ -191,7 +191,6 @@ function ExhaustInputs({ data, system }: { data: Pick<StudyViewData, 'document' 
             valueLabel="Turbine inlet temperature"
             table={plan.exhaust.turbineInletTemperature}
             quantity="temperature"
-            system={system}
           />
         ) : null,
       )}
@@ -225,7 +224,8 @@ function requirementFacts(set: StudyDocument['requirements'], system: UnitSystem
  * intercooler, scenarios with their boost schedules, plans with their maps, and the exhaust side
  * of the plans that have one. Read-only.
  */
-export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'>; system: UnitSystem }) {
+export function StudyInputs({ data }: { data: Pick<StudyViewData, 'document' | 'mapsById' | 'mapNames'> }) {
+  const system = useUnitSystem();
   const doc = data.document;
   const v = (value: unknown, quantity: StudyQuantity) => formatStudyValue(value, quantity, system);
   const e = doc.engine;
@@ -296,11 +296,11 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
     <div className="space-y-6">
       <InputBlock title="Engine">
         <Facts items={engineFacts} />
-        <RpmTableView caption="Volumetric efficiency" table={e.volumetricEfficiency} quantity="fraction" system={system} />
+        <RpmTableView caption="Volumetric efficiency" table={e.volumetricEfficiency} quantity="fraction" />
       </InputBlock>
       <InputBlock title="Fuel system">
         <Facts items={fuelFacts} />
-        <RpmTableView caption="Lambda target" table={f.lambda} quantity="ratio" system={system} />
+        <RpmTableView caption="Lambda target" table={f.lambda} quantity="ratio" />
       </InputBlock>
       <InputBlock title="Power">
         <Facts items={powerFacts} />
@@ -338,7 +338,6 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
                     valueLabel="Boost"
                     table={row.boost}
                     quantity="pressureGauge"
-                    system={system}
                   />
                 ))}
               </div>
@@ -396,7 +395,7 @@ export function StudyInputs({ data, system }: { data: Pick<StudyViewData, 'docum
       </InputBlock>
       {doc.plans.some((plan) => plan.exhaust) && (
         <InputBlock title="Exhaust side">
-          <ExhaustInputs data={data} system={system} />
+          <ExhaustInputs data={data} />
         </InputBlock>
       )}
       {doc.notes.trim() && (

@@ -17,7 +17,7 @@ import { PrintFindings } from './PrintFindings';
 import { PrintResults } from './PrintResults';
 import { reportCurveViews, ReportCurves } from './ReportCurves';
 import { StudyInputs } from './StudyInputs';
-import { type UnitSystem, unitSystemNames } from '#src/lib/quantities';
+import { unitSystemNames, useUnitSystem } from '#src/lib/quantities';
 
 /** Plot sizes for paper: the report column is as wide as an A4 or Letter page inside its margins. */
 const MAP_HEIGHT = 560;
@@ -68,19 +68,18 @@ function ReportSection({ id, title, children, className = '' }: { id: string; ti
  */
 export function StudyReport({
   data,
-  system,
   backHref,
   backLabel,
   source,
 }: {
   data: StudyViewData;
-  system: UnitSystem;
   /** Where "back" leads on screen (the study, or the shared view). */
   backHref: string;
   backLabel: string;
   /** A line under the title saying where the report came from (e.g. "From a share link"). */
   source?: string;
 }) {
+  const system = useUnitSystem();
   useDocumentTitle(`${data.title} · report`);
   const computed = useComputedStudy(data);
   const printedAt = formatDateTime(new Date().toISOString());
@@ -158,11 +157,11 @@ export function StudyReport({
         </header>
 
         <ReportSection id="inputs" title="1. Inputs" className="report-first">
-          <StudyInputs data={data} system={system} />
+          <StudyInputs data={data} />
         </ReportSection>
 
         <ReportSection id="assumptions" title="2. Assumptions">
-          <Assumptions document={doc} groups={computed.groups} system={system} />
+          <Assumptions document={doc} groups={computed.groups} />
         </ReportSection>
 
         <ReportSection id="maps" title="3. Compressor maps with every operating line">
@@ -176,7 +175,7 @@ export function StudyReport({
               <figcaption className="text-sm font-semibold text-ink">
                 {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
               </figcaption>
-              <CompressorMapPlot map={g.map} lines={mapLineViews(g.lines)} unitSystem={system} height={MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
+              <CompressorMapPlot map={g.map} lines={mapLineViews(g.lines)} height={MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
             </figure>
           ))}
         </ReportSection>
@@ -193,13 +192,7 @@ export function StudyReport({
                   <figcaption className="text-sm font-semibold text-ink">
                     {g.title} <span className="font-normal text-ink-soft">· {g.planNames.join(', ')}</span>
                   </figcaption>
-                  <TurbineMapPlot
-                    map={g.map}
-                    lines={turbineLineViews(g.lines)}
-                    unitSystem={system}
-                    height={TURBINE_MAP_HEIGHT}
-                    exportName={`${data.title} ${g.title}`}
-                  />
+                  <TurbineMapPlot map={g.map} lines={turbineLineViews(g.lines)} height={TURBINE_MAP_HEIGHT} exportName={`${data.title} ${g.title}`} />
                 </figure>
               ) : (
                 <p key={g.key} className="text-sm text-copper-ink">
@@ -208,17 +201,17 @@ export function StudyReport({
                 </p>
               ),
             )}
-            <ExhaustSummary lines={computed.lines} unitSystem={system} />
+            <ExhaustSummary lines={computed.lines} />
             <ExhaustNotes document={doc} />
           </ReportSection>
         )}
 
         <ReportSection id="curves" title={`${n(4)}. Curves against engine speed`}>
-          <ReportCurves lines={computed.lines} system={system} height={CURVE_HEIGHT} limit={limit} exportName={data.title} />
+          <ReportCurves lines={computed.lines} height={CURVE_HEIGHT} limit={limit} exportName={data.title} />
         </ReportSection>
 
         <ReportSection id="findings" title={`${n(5)}. Findings`}>
-          <PrintFindings lines={computed.lines} system={system} />
+          <PrintFindings lines={computed.lines} />
         </ReportSection>
 
         <ReportSection id="results" title={`${n(6)}. Results by operating point`}>
@@ -226,7 +219,7 @@ export function StudyReport({
             Every point of every operating line. Columns continue in the table under each one; boost is gauge, other pressures absolute. A red “!” marks a point
             that crosses a limit; where the compressor cannot deliver a point, its results read “not reachable”.
           </p>
-          <PrintResults lines={computed.lines} system={system} />
+          <PrintResults lines={computed.lines} />
         </ReportSection>
 
         <footer className="border-t border-paper-line pt-3 text-xs text-ink-faint">

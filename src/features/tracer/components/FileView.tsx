@@ -2,10 +2,9 @@ import type { TraceBuild } from '#shared/tracer/build';
 import { Card } from '#src/components/Card';
 import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
 import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
-import type { UnitSystem } from '#src/lib/quantities';
 
 /** The file being built, line by line, and (once it reads as a map) the map drawn as the library will draw it. */
-export function FileView({ build, unitSystem }: { build: TraceBuild; unitSystem: UnitSystem }) {
+export function FileView({ build }: { build: TraceBuild }) {
   const map = build.result.ok ? build.result.map : null;
   const lines = build.text.replace(/\n$/, '').split('\n');
   return (
@@ -26,9 +25,9 @@ export function FileView({ build, unitSystem }: { build: TraceBuild; unitSystem:
         {map === null ? (
           <p className="text-sm text-ink-soft">The map is drawn here as soon as the file reads without problems.</p>
         ) : map.kind === 'compressor' ? (
-          <CompressorMapPlot map={map} unitSystem={unitSystem} height={420} />
+          <CompressorMapPlot map={map} height={420} />
         ) : (
-          <TurbineMapPlot map={map} unitSystem={unitSystem} height={420} />
+          <TurbineMapPlot map={map} height={420} />
         )}
       </Card>
     </div>

@@ -24,7 +24,6 @@ import { FileView } from './FileView';
 import { LinesPanel } from './LinesPanel';
 import { MapPanel, type ChangeTrace } from './MapPanel';
 import { TraceCanvas, type CanvasTargets, type CanvasTool } from './TraceCanvas';
-import { useUnitSystem } from '#src/lib/quantities';
 
 type Step = 'map' | 'axes' | 'lines' | 'file';
 const STEPS: { step: Step; title: string }[] = [
@@ -90,7 +89,6 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
   const state = history.present;
   const build = useMemo(() => buildTrace(state), [state]);
   const sync = useDraftSync({ teamId, draft, state, enabled: canEdit });
-  const unitSystem = useUnitSystem();
   const saveMutation = useSaveTraceToLibrary(teamId);
 
   // A new trace opens on the map's settings; one under way where it was left off.
@@ -472,7 +470,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
         </aside>
       </div>
 
-      <FileView build={build} unitSystem={unitSystem} />
+      <FileView build={build} />
     </div>
   );
 }

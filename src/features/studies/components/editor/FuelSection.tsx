@@ -5,6 +5,7 @@ import { useEditor } from './context';
 import { ChoiceField, CountField, NumberField, ToggleField, UnitNumberInput } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, Section, SubHeading } from './Section';
+import { useUnitSystem } from '#src/lib/quantities';
 
 type FuelKind = 'petrol' | 'ethanol-blend' | 'methanol';
 
@@ -116,6 +117,7 @@ const DEFAULT_DEAD_TIME_VOLTAGE = 14;
  */
 function InjectorRatingFields({ set }: { set: 'primary' | 'secondary' }) {
   const editor = useEditor();
+  const unitSystem = useUnitSystem();
   const base = ['fuelSystem', 'injectors', set];
   const deadTime = getIn(editor.draft, [...base, 'deadTime']) as { time: number; voltage: number } | undefined;
   const deadTimeIssue = editor.issues[pathKey([...base, 'deadTime', 'time'])];
@@ -137,10 +139,9 @@ function InjectorRatingFields({ set }: { set: 'primary' | 'secondary' }) {
           }
           quantity="duration"
           optional
-          error={deadTimeIssue ? localizeIssue(deadTimeIssue, 'duration', editor.unitSystem) : null}
+          error={deadTimeIssue ? localizeIssue(deadTimeIssue, 'duration', unitSystem) : null}
           hint="Opening delay lost on every injection, from the maker's data. Empty: none."
           readOnly={editor.readOnly}
-          unitSystem={editor.unitSystem}
         />
       </FieldRow>
       {deadTime !== undefined && (

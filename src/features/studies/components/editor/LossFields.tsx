@@ -4,7 +4,7 @@ import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { NumberField, UnitNumberInput } from './fields';
 import { FieldRow } from './Section';
-import { inputText, quantityUnit } from '#src/lib/quantities';
+import { inputText, quantityUnit, useUnitSystem } from '#src/lib/quantities';
 
 /**
  * A pressure loss as the study states it: the loss, and the engine flow (and gas density) it was
@@ -13,10 +13,11 @@ import { inputText, quantityUnit } from '#src/lib/quantities';
  */
 export function LossFields({ path, label, hint, flow, testId }: { path: DocPath; label: string; hint: string; flow: 'air' | 'exhaust'; testId?: string }) {
   const editor = useEditor();
+  const unitSystem = useUnitSystem();
   const loss = getIn(editor.draft, path) as PressureLossInput | undefined;
   const flowPath = [...path, 'referenceMassFlow'];
   const issue = editor.issues[pathKey(flowPath)];
-  const density = quantityUnit('density', editor.unitSystem);
+  const density = quantityUnit('density', unitSystem);
   const follows = loss?.referenceMassFlow !== undefined;
   return (
     <div className="space-y-2" data-testid={testId}>
@@ -36,14 +37,13 @@ export function LossFields({ path, label, hint, flow, testId }: { path: DocPath;
           }}
           quantity="massFlow"
           optional
-          error={issue ? localizeIssue(issue, 'massFlow', editor.unitSystem) : null}
+          error={issue ? localizeIssue(issue, 'massFlow', unitSystem) : null}
           hint={
             follows
               ? 'The engine flow the loss was measured at: it follows the flow, flow² over density.'
               : 'Empty: the same loss at every flow. Give the engine flow it was measured at to have it follow the flow.'
           }
           readOnly={editor.readOnly}
-          unitSystem={editor.unitSystem}
         />
       </FieldRow>
       {follows && (

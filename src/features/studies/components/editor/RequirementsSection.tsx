@@ -5,7 +5,7 @@ import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { ReadValue, UnitNumberInput } from './fields';
 import { FieldRow, Section, SubHeading } from './Section';
-import { formatStudyValue, inputText, quantityUnit, type StudyQuantity } from '#src/lib/quantities';
+import { formatStudyValue, inputText, quantityUnit, type StudyQuantity, useUnitSystem } from '#src/lib/quantities';
 
 interface RequirementSpec {
   key: keyof Requirements;
@@ -52,15 +52,16 @@ function defaultText(spec: RequirementSpec, system: 'si' | 'us'): string {
  */
 function RequirementField({ spec }: { spec: RequirementSpec }) {
   const editor = useEditor();
+  const unitSystem = useUnitSystem();
   const path = ['requirements', spec.key] as const;
   const raw = getIn(editor.draft, path);
   const value = typeof raw === 'number' ? raw : undefined;
-  const fallback = defaultText(spec, editor.unitSystem);
+  const fallback = defaultText(spec, unitSystem);
   if (editor.readOnly) {
     return (
       <ReadValue label={spec.label}>
         {value !== undefined ? (
-          formatStudyValue(value, spec.quantity, editor.unitSystem)
+          formatStudyValue(value, spec.quantity, unitSystem)
         ) : (
           <>
             {fallback} <span className="text-sm text-ink-faint">(default, common practice)</span>
@@ -70,7 +71,7 @@ function RequirementField({ spec }: { spec: RequirementSpec }) {
     );
   }
   const issue = editor.issues[pathKey(path)];
-  const unit = quantityUnit(spec.quantity, editor.unitSystem);
+  const unit = quantityUnit(spec.quantity, unitSystem);
   function change(si: number | undefined) {
     if (si !== undefined) {
       editor.update(path, si);
@@ -89,14 +90,13 @@ function RequirementField({ spec }: { spec: RequirementSpec }) {
       quantity={spec.quantity}
       optional
       placeholder={inputText(unit.fromSI(REQUIREMENT_DEFAULTS[spec.key]), 4)}
-      error={issue ? localizeIssue(issue, spec.quantity, editor.unitSystem) : null}
+      error={issue ? localizeIssue(issue, spec.quantity, unitSystem) : null}
       hint={
         <>
           {value === undefined ? <>Default {fallback}, common practice.</> : <>Common practice: {fallback}.</>}
           {spec.hint ? ` ${spec.hint}` : ''}
         </>
       }
-      unitSystem={editor.unitSystem}
       testId={`requirement-${spec.key}`}
     />
   );

@@ -5,7 +5,7 @@ import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { applyPaste, parsePastedTable, type RpmRows } from '#src/features/studies/lib/paste-table';
 import { useEditor } from './context';
 import { GroupIssue, UnitNumberInput } from './fields';
-import { quantityUnit, type StudyQuantity } from '#src/lib/quantities';
+import { quantityUnit, type StudyQuantity, useUnitSystem } from '#src/lib/quantities';
 
 /**
  * A table by engine speed (volumetric efficiency, lambda, boost): rows of rpm and value, added
@@ -29,17 +29,18 @@ export function RpmTableEditor({
   testId?: string;
 }) {
   const editor = useEditor();
+  const unitSystem = useUnitSystem();
   const captionId = useId();
   const pasteId = useId();
   const rows = (getIn(editor.draft, path) as RpmRows | undefined) ?? [];
-  const unit = quantityUnit(quantity, editor.unitSystem);
+  const unit = quantityUnit(quantity, unitSystem);
   const [pasteMessage, setPasteMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [pasteOpen, setPasteOpen] = useState(false);
   const [pasteText, setPasteText] = useState('');
 
   function issueAt(at: DocPath, q: StudyQuantity): string | null {
     const issue = editor.issues[pathKey(at)];
-    return issue ? localizeIssue(issue, q, editor.unitSystem) : null;
+    return issue ? localizeIssue(issue, q, unitSystem) : null;
   }
 
   function setRows(next: RpmRows) {
@@ -105,7 +106,6 @@ export function RpmTableEditor({
                   label={`${title}, row ${i + 1}, engine speed`}
                   value={row.rpm}
                   quantity="speed"
-                  unitSystem={editor.unitSystem}
                   readOnly={editor.readOnly}
                   error={issueAt([...path, i, 'rpm'], 'speed')}
                   onChange={(rpm) => rpm !== undefined && setRows(rows.map((r, k) => (k === i ? { ...r, rpm } : r)))}
@@ -118,7 +118,6 @@ export function RpmTableEditor({
                   label={`${title} at row ${i + 1}, ${valueLabel}`}
                   value={row.value}
                   quantity={quantity}
-                  unitSystem={editor.unitSystem}
                   readOnly={editor.readOnly}
                   error={issueAt([...path, i, 'value'], quantity)}
                   onChange={(value) => value !== undefined && setRows(rows.map((r, k) => (k === i ? { ...r, value } : r)))}

@@ -1,6 +1,5 @@
 import { createContext, useContext } from 'react';
 import type { DocPath } from '#src/features/studies/lib/draft';
-import type { UnitSystem } from '#src/lib/quantities';
 
 /** What every input of the study editor reads and writes through. */
 export interface Editor {
@@ -12,7 +11,6 @@ export interface Editor {
   issues: Record<string, string>;
   /** Viewers and archived studies: every input is shown but none can be changed. */
   readOnly: boolean;
-  unitSystem: UnitSystem;
 }
 
 export const EditorContext = createContext<Editor | null>(null);

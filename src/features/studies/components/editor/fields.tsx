@@ -4,7 +4,7 @@ import { asSentence } from '#src/lib/forms';
 import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
-import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity } from '#src/lib/quantities';
+import { inputText, parseTypedNumber, quantityUnit, type StudyQuantity, useUnitSystem } from '#src/lib/quantities';
 
 /** A value shown, not edited: viewers and archived studies get text, not input boxes. */
 export function ReadValue({ label, children, compact = false }: { label: ReactNode; children: ReactNode; compact?: boolean }) {
@@ -37,7 +37,6 @@ export function UnitNumberInput({
   hint,
   compact = false,
   readOnly = false,
-  unitSystem,
   placeholder,
   onPaste,
   testId,
@@ -53,11 +52,11 @@ export function UnitNumberInput({
   /** Table cell: label for assistive technology only, small box. */
   compact?: boolean;
   readOnly?: boolean;
-  unitSystem: 'si' | 'us';
   placeholder?: string;
   onPaste?: (event: React.ClipboardEvent<HTMLInputElement>) => void;
   testId?: string;
 }) {
+  const unitSystem = useUnitSystem();
   const id = useId();
   const unit = quantityUnit(quantity, unitSystem);
   const shown = value === undefined || !Number.isFinite(value) ? '' : inputText(unit.fromSI(value));
@@ -171,6 +170,7 @@ export function NumberField({
   testId?: string;
 }) {
   const editor = useEditor();
+  const unitSystem = useUnitSystem();
   const raw = getIn(editor.draft, path);
   const issue = editor.issues[pathKey(path)];
   return (
@@ -180,11 +180,10 @@ export function NumberField({
       onChange={(si) => editor.update(path, si)}
       quantity={quantity}
       optional={optional}
-      error={issue ? localizeIssue(issue, quantity, editor.unitSystem) : null}
+      error={issue ? localizeIssue(issue, quantity, unitSystem) : null}
       hint={hint}
       placeholder={placeholder}
       readOnly={editor.readOnly}
-      unitSystem={editor.unitSystem}
       testId={testId}
     />
   );

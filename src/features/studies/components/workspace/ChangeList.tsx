@@ -1,5 +1,5 @@
 import type { DocumentChange } from '#shared/study/diff';
-import { formatStudyValue, type UnitSystem } from '#src/lib/quantities';
+import { formatStudyValue, type UnitSystem, useUnitSystem } from '#src/lib/quantities';
 
 /** A changed value in the user's units; whole plans, scenarios and rows by their name. */
 export function changeValueText(change: DocumentChange, value: unknown, system: UnitSystem): string {
@@ -19,20 +19,19 @@ export function changeValueText(change: DocumentChange, value: unknown, system: 
 /** What changed between two documents: one line per change, before and after in the user's units. */
 export function ChangeList({
   changes,
-  unitSystem,
   beforeLabel,
   afterLabel,
   limit,
   caption,
 }: {
   changes: readonly DocumentChange[];
-  unitSystem: UnitSystem;
   beforeLabel: string;
   afterLabel: string;
   /** Show at most this many, with a count of the rest. */
   limit?: number;
   caption: string;
 }) {
+  const unitSystem = useUnitSystem();
   if (changes.length === 0) return <p className="text-sm text-ink-soft">No differences in the inputs.</p>;
   const shown = limit ? changes.slice(0, limit) : changes;
   return (

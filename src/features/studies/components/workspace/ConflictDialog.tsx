@@ -8,7 +8,6 @@ import { TextField } from '#src/components/TextField';
 import { isApiError } from '#src/lib/api-client';
 import { formatDateTime } from '#src/lib/format';
 import { ChangeList } from './ChangeList';
-import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * Someone saved the study after the revision this editor started from. Nothing is lost
@@ -20,7 +19,6 @@ export function ConflictDialog({
   mine,
   baseRevision,
   title,
-  unitSystem,
   onLoadTheirs,
   onKeepMineAsCopy,
   onClose,
@@ -29,7 +27,6 @@ export function ConflictDialog({
   mine: unknown;
   baseRevision: number;
   title: string;
-  unitSystem: UnitSystem;
   onLoadTheirs: (theirs: StudyDetail) => void;
   onKeepMineAsCopy: (title: string) => Promise<unknown>;
   onClose: () => void;
@@ -74,7 +71,7 @@ export function ConflictDialog({
           <p className="text-sm font-semibold text-ink">Their revision {theirs.revision} against your changes</p>
           <ChangeList
             changes={changes}
-            unitSystem={unitSystem}
+
             beforeLabel="Theirs"
             afterLabel="Yours"
             limit={6}

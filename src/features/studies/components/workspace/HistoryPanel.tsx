@@ -11,7 +11,6 @@ import { useRevisions } from '#src/features/studies/api/get-revisions';
 import { useRestoreRevision } from '#src/features/studies/api/restore-revision';
 import { staleRevisionOf } from '#src/features/studies/api/save-study';
 import { ChangeList } from './ChangeList';
-import type { UnitSystem } from '#src/lib/quantities';
 
 /**
  * Every saved revision (author, time, message). Pick two to see what changed between them;
@@ -24,7 +23,6 @@ export function HistoryPanel({
   baseRevision,
   canRestore,
   dirty,
-  unitSystem,
   onRestored,
   onConflict,
 }: {
@@ -34,7 +32,6 @@ export function HistoryPanel({
   baseRevision: number;
   canRestore: boolean;
   dirty: boolean;
-  unitSystem: UnitSystem;
   onRestored: (study: StudyDetail) => void;
   onConflict: (theirs: StudyDetail) => void;
 }) {
@@ -111,7 +108,7 @@ export function HistoryPanel({
           {changes ? (
             <ChangeList
               changes={changes}
-              unitSystem={unitSystem}
+
               beforeLabel={`Revision ${older}`}
               afterLabel={`Revision ${newer}`}
               caption={`Changes from revision ${older} to ${newer}`}

@@ -2,10 +2,11 @@ import { kindOfPath } from '#shared/study/diff';
 import { asSentence } from '#src/lib/forms';
 import { describePath } from '#src/features/studies/lib/describe-path';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
-import type { UnitSystem } from '#src/lib/quantities';
+import { useUnitSystem } from '#src/lib/quantities';
 
 /** The draft's problems in one list: the plots keep showing the last valid inputs meanwhile. */
-export function ProblemsSummary({ issues, draft, unitSystem }: { issues: Record<string, string>; draft: unknown; unitSystem: UnitSystem }) {
+export function ProblemsSummary({ issues, draft }: { issues: Record<string, string>; draft: unknown }) {
+  const unitSystem = useUnitSystem();
   const entries = Object.entries(issues);
   if (entries.length === 0) return null;
   return (

@@ -13,7 +13,6 @@ import { ResultsTable } from '#src/components/study/ResultsTable';
 import { RpmCurves } from '#src/components/study/RpmCurves';
 import { WorkingPanel } from '#src/components/study/WorkingPanel';
 import type { Computed } from './use-study-editor';
-import type { UnitSystem } from '#src/lib/quantities';
 
 const MemoMap = memo(CompressorMapPlot);
 const MemoTurbineMap = memo(TurbineMapPlot);
@@ -33,7 +32,6 @@ export function StudyPlots({
   mapsById,
   namesById,
   mapErrors,
-  unitSystem,
   selected,
   onSelect,
   title,
@@ -44,7 +42,6 @@ export function StudyPlots({
   mapsById: Record<string, SpoolbookMap | undefined>;
   namesById: Record<string, string>;
   mapErrors: { mapId: string; message: string }[];
-  unitSystem: UnitSystem;
   selected: PointRef | null;
   onSelect: (point: PointRef | null) => void;
   title: string;
@@ -171,7 +168,7 @@ export function StudyPlots({
           lines={mapLines}
           flowAxis={flowAxis}
           onFlowAxisChange={setFlowAxis}
-          unitSystem={unitSystem}
+
           highlight={highlight}
           onPointClick={selectOnMap}
           height={540}
@@ -213,7 +210,6 @@ export function StudyPlots({
             <MemoTurbineMap
               map={turbineMap}
               lines={turbineLines}
-              unitSystem={unitSystem}
               highlight={highlight}
               onPointClick={selectOnMap}
               height={480}
@@ -226,36 +222,24 @@ export function StudyPlots({
             />
           )}
           <div className="mt-4">
-            <ExhaustSummary lines={(later ?? computed).lines} unitSystem={unitSystem} />
+            <ExhaustSummary lines={(later ?? computed).lines} />
           </div>
         </Card>
       )}
 
       <div className="grid gap-5 2xl:grid-cols-2">
         <Card title="Findings">
-          <MemoFindings lines={(later ?? computed).lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
+          <MemoFindings lines={(later ?? computed).lines} selected={selected} onSelect={select} />
         </Card>
-        <WorkingPanel
-          line={selectedPoint?.line ?? selectedLine ?? null}
-          point={selectedPoint?.point ?? null}
-          unitSystem={unitSystem}
-          onClose={() => onSelect(null)}
-        />
+        <WorkingPanel line={selectedPoint?.line ?? selectedLine ?? null} point={selectedPoint?.point ?? null} onClose={() => onSelect(null)} />
       </div>
 
       <Card title="Against engine speed">
-        <MemoCurves
-          lines={(later ?? computed).lines}
-          unitSystem={unitSystem}
-          highlight={highlight}
-          onPointClick={select}
-          outletTemperatureLimit={outletLimit}
-          exportName={title}
-        />
+        <MemoCurves lines={(later ?? computed).lines} highlight={highlight} onPointClick={select} outletTemperatureLimit={outletLimit} exportName={title} />
       </Card>
 
       <Card title="Results">
-        <MemoTable lines={(later ?? computed).lines} unitSystem={unitSystem} selected={selected} onSelect={select} />
+        <MemoTable lines={(later ?? computed).lines} selected={selected} onSelect={select} />
       </Card>
     </div>
   );

@@ -233,7 +233,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
               baseRevision={base.revision}
               canRestore={!readOnly}
               dirty={dirty}
-              unitSystem={unitSystem}
+
               onRestored={restored}
               onConflict={setConflict}
             />
@@ -257,14 +257,13 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
 
         <div className="grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_24rem] 2xl:grid-cols-[minmax(0,1fr)_28rem]">
           <div className="min-w-0 space-y-4">
-            <ProblemsSummary issues={issues} draft={draft} unitSystem={unitSystem} />
+            <ProblemsSummary issues={issues} draft={draft} />
             <StudyPlots
               computed={computed}
               stale={stale}
               mapsById={maps.mapsById}
               namesById={maps.namesById}
               mapErrors={maps.errors}
-              unitSystem={unitSystem}
               selected={selected}
               onSelect={setSelected}
               title={study.title}
@@ -300,7 +299,6 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
           mine={parsed.success ? parsed.data : draft}
           baseRevision={base.revision}
           title={study.title}
-          unitSystem={unitSystem}
           onLoadTheirs={loadTheirs}
           onKeepMineAsCopy={keepMineAsCopy}
           onClose={() => setConflict(null)}
