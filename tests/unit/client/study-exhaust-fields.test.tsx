@@ -1,14 +1,12 @@
 import { cleanup, fireEvent, render, screen } from '@testing-library/react';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { useMemo, useState } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import { studyDocumentSchema } from '#shared/schemas/study';
 import type { MapSummary } from '#src/features/maps/api';
-import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
 import { ExhaustFields } from '#src/features/studies/components/editor/ExhaustFields';
-import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
-import { UnitSystemProvider } from '#src/lib/quantities';
+import type { UnitSystem } from '#src/lib/quantities';
+import { EditorHost } from './study-editor-host';
 
 afterEach(cleanup);
 
@@ -33,22 +31,11 @@ const turbineMaps: MapSummary[] = [
 ];
 
 /** The exhaust fields of plan 1 of the compressor demo study, editing a live draft as the study page does. */
-function Host({ unitSystem = 'si', onDraft }: { unitSystem?: 'si' | 'us'; onDraft: (draft: Record<string, unknown>) => void }) {
-  const [draft, setDraft] = useState<Record<string, unknown>>(() => structuredClone(compressorDemo));
-  const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
-  onDraft(draft);
-  const editor: Editor = {
-    draft,
-    update: (path, value) => setDraft((d) => setIn(d, path, value)),
-    issues: parsed.success ? {} : issuesByPath(parsed.error.issues),
-    readOnly: false,
-  };
+function Host({ unitSystem = 'si', onDraft }: { unitSystem?: UnitSystem; onDraft: (draft: Record<string, unknown>) => void }) {
   return (
-    <UnitSystemProvider system={unitSystem}>
-      <EditorContext.Provider value={editor}>
-        <ExhaustFields planIndex={0} turbineMaps={turbineMaps} turbineMapsError={null} />
-      </EditorContext.Provider>
-    </UnitSystemProvider>
+    <EditorHost start={compressorDemo} unitSystem={unitSystem} onDraft={onDraft}>
+      <ExhaustFields planIndex={0} turbineMaps={turbineMaps} turbineMapsError={null} />
+    </EditorHost>
   );
 }
 

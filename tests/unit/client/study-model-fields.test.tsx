@@ -1,18 +1,17 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { useMemo, useState, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import { studyDocumentSchema } from '#shared/schemas/study';
 import type { MapSummary } from '#src/features/maps/api';
 import { AssumptionsSection } from '#src/features/studies/components/editor/AssumptionsSection';
-import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
 import { EngineSection } from '#src/features/studies/components/editor/EngineSection';
 import { ExhaustFields } from '#src/features/studies/components/editor/ExhaustFields';
 import { FuelSection } from '#src/features/studies/components/editor/FuelSection';
 import { ScenariosSection } from '#src/features/studies/components/editor/ScenariosSection';
-import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
-import { UnitSystemProvider } from '#src/lib/quantities';
+import type { UnitSystem } from '#src/lib/quantities';
+import { EditorHost } from './study-editor-host';
 
 afterEach(cleanup);
 
@@ -27,23 +26,14 @@ function Host({
   children,
 }: {
   start: Record<string, unknown>;
-  unitSystem?: 'si' | 'us';
+  unitSystem?: UnitSystem;
   onDraft: (d: Record<string, unknown>) => void;
   children: ReactNode;
 }) {
-  const [draft, setDraft] = useState<Record<string, unknown>>(() => structuredClone(start));
-  const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
-  onDraft(draft);
-  const editor: Editor = {
-    draft,
-    update: (p, value) => setDraft((d) => setIn(d, p, value)),
-    issues: parsed.success ? {} : issuesByPath(parsed.error.issues),
-    readOnly: false,
-  };
   return (
-    <UnitSystemProvider system={unitSystem}>
-      <EditorContext.Provider value={editor}>{children}</EditorContext.Provider>
-    </UnitSystemProvider>
+    <EditorHost start={start} unitSystem={unitSystem} onDraft={onDraft}>
+      {children}
+    </EditorHost>
   );
 }
 

@@ -1,15 +1,13 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
-import { useMemo, useState } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import { planVerdicts } from '#shared/matching/verdict';
 import { studyDocumentSchema } from '#shared/schemas/study';
 import { runStudyDocument } from '#shared/study/run';
-import { EditorContext, type Editor } from '#src/features/studies/components/editor/context';
 import { PlansSection } from '#src/features/studies/components/editor/PlansSection';
 import { RequirementsSection } from '#src/features/studies/components/editor/RequirementsSection';
-import { issuesByPath, setIn } from '#src/features/studies/lib/draft';
 import { demoDocument, demoMaps } from './demo-study';
-import { UnitSystemProvider } from '#src/lib/quantities';
+import type { UnitSystem } from '#src/lib/quantities';
+import { EditorHost } from './study-editor-host';
 
 afterEach(cleanup);
 
@@ -22,27 +20,16 @@ function Host({
   start = demo,
   onDraft,
 }: {
-  unitSystem?: 'si' | 'us';
+  unitSystem?: UnitSystem;
   readOnly?: boolean;
   start?: Record<string, unknown>;
   onDraft: (draft: Record<string, unknown>) => void;
 }) {
-  const [draft, setDraft] = useState<Record<string, unknown>>(() => structuredClone(start));
-  const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
-  onDraft(draft);
-  const editor: Editor = {
-    draft,
-    update: (p, value) => setDraft((d) => setIn(d, p, value)),
-    issues: parsed.success ? {} : issuesByPath(parsed.error.issues),
-    readOnly,
-  };
   return (
-    <UnitSystemProvider system={unitSystem}>
-      <EditorContext.Provider value={editor}>
-        <RequirementsSection />
-        <PlansSection maps={[]} mapsError={null} turbineMaps={[]} turbineMapsError={null} />
-      </EditorContext.Provider>
-    </UnitSystemProvider>
+    <EditorHost start={start} unitSystem={unitSystem} readOnly={readOnly} onDraft={onDraft}>
+      <RequirementsSection />
+      <PlansSection maps={[]} mapsError={null} turbineMaps={[]} turbineMapsError={null} />
+    </EditorHost>
   );
 }
 

@@ -1,4 +1,21 @@
 import { issuePath } from '#shared/schemas/issue-path';
+import type { StudyDocument } from '#shared/schemas/study';
+
+/**
+ * A value as the editor holds it while it is being typed: the saved shape, with any field possibly
+ * missing (a cleared box removes its key). The study schema checks the whole draft on every edit.
+ */
+export type Draft<T> = T extends readonly (infer U)[] ? Draft<U>[] : T extends object ? { [K in keyof T]?: Draft<T[K]> } : T;
+
+/** The study document being edited. */
+export type StudyDraft = Draft<StudyDocument>;
+export type PlanDraft = NonNullable<StudyDraft['plans']>[number];
+export type ExhaustDraft = NonNullable<PlanDraft['exhaust']>;
+export type ScenarioDraft = NonNullable<StudyDraft['scenarios']>[number];
+export type BoostRowDraft = NonNullable<ScenarioDraft['boostSchedule']>[number];
+/** A table by rpm (volumetric efficiency, lambda, boost, exhaust gas temperature) as stored: SI values. */
+export type RpmTable = StudyDocument['engine']['volumetricEfficiency'];
+export type RpmTableDraft = Draft<RpmTable>;
 
 /** A path into the study document: object keys and array indexes. */
 export type DocPath = readonly (string | number)[];
@@ -52,7 +69,7 @@ export function issuesByPath(issues: readonly { path: readonly PropertyKey[]; me
 }
 
 /** A fresh id for a new plan, unique within the study. */
-export function newPlanId(existing: readonly { id: string }[]): string {
+export function newPlanId(existing: readonly { id?: string }[]): string {
   const taken = new Set(existing.map((p) => p.id));
   for (let n = existing.length + 1; ; n++) {
     const id = `plan-${n}-${Math.random().toString(36).slice(2, 7)}`;

@@ -1,3 +1,5 @@
+import type { RpmTableDraft } from './draft';
+
 /**
  * Reads a column, or two columns (rpm and value), copied from a spreadsheet. Cells are split on
  * tabs (what spreadsheets put on the clipboard), else on semicolons, else on commas or runs of
@@ -60,19 +62,16 @@ export function parsePastedTable(text: string): PastedTable {
   return { ok: true, kind: 'rows', rows };
 }
 
-/** A table by rpm as stored: SI values. */
-export type RpmRows = { rpm: number; value: number }[];
-
 /**
  * Puts a pasted table into `rows`: two columns replace the table; one column fills the values
  * from row `start` down, keeping each row's rpm. `toSI` converts a value from the shown unit.
  */
 export function applyPaste(
-  rows: RpmRows,
+  rows: RpmTableDraft,
   pasted: PastedTable,
   start: number,
   toSI: (shown: number) => number,
-): { ok: true; rows: RpmRows; summary: string } | { ok: false; message: string } {
+): { ok: true; rows: RpmTableDraft; summary: string } | { ok: false; message: string } {
   if (!pasted.ok) return pasted;
   if (pasted.kind === 'rows') {
     const n = pasted.rows.length;

@@ -1,42 +1,42 @@
-import { fuelProperties, type FuelChoice } from '#shared/physics';
-import { getIn } from '#src/features/studies/lib/draft';
+import { fuelProperties } from '#shared/physics';
+import { fuelChoiceSchema } from '#shared/schemas/compute';
+import type { StudyDraft } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField } from './fields';
 import { LossFields } from './LossFields';
 import { FieldRow, Section, SubHeading } from './Section';
 
-type Power =
-  { basis: 'brake-thermal-efficiency'; brakeThermalEfficiency: number; drivetrainLoss: number } | { basis: 'bsfc'; bsfc: number; drivetrainLoss: number };
+type PowerBasis = NonNullable<NonNullable<StudyDraft['power']>['basis']>;
+type IntercoolerKind = NonNullable<NonNullable<StudyDraft['intercooler']>['kind']>;
+
+/** Lower heating value of petrol, J/kg (common practice, no source): the fallback while the fuel is not set. */
+const PETROL_LHV = 44e6;
 
 /** Power assumptions, losses and the intercooler: what turns air into power and heat into density. */
 export function AssumptionsSection() {
   const editor = useEditor();
-  const power = getIn(editor.draft, ['power']) as Power | undefined;
-  const intercooler = getIn(editor.draft, ['intercooler']) as { kind: 'fixed' | 'effectiveness' } | undefined;
+  const { power, intercooler } = editor.draft;
 
   function lhv(): number {
-    try {
-      return fuelProperties(getIn(editor.draft, ['fuelSystem', 'fuel']) as FuelChoice).lowerHeatingValue;
-    } catch {
-      return 44e6;
-    }
+    const fuel = fuelChoiceSchema.safeParse(editor.draft.fuelSystem?.fuel);
+    return fuel.success ? fuelProperties(fuel.data).lowerHeatingValue : PETROL_LHV;
   }
 
   // Switching basis keeps the same assumption in the other form: bsfc = 1/(η·LHV).
-  function chooseBasis(basis: Power['basis']) {
+  function chooseBasis(basis: PowerBasis) {
     if (!power || power.basis === basis) return;
     const loss = power.drivetrainLoss;
     if (basis === 'bsfc') {
-      const eta = power.basis === 'brake-thermal-efficiency' ? power.brakeThermalEfficiency : 0.3;
+      const eta = (power.basis === 'brake-thermal-efficiency' ? power.brakeThermalEfficiency : undefined) ?? 0.3;
       editor.update(['power'], { basis, bsfc: 1 / (eta * lhv()), drivetrainLoss: loss });
     } else {
-      const bsfc = power.basis === 'bsfc' ? power.bsfc : 0;
+      const bsfc = (power.basis === 'bsfc' ? power.bsfc : undefined) ?? 0;
       const eta = bsfc > 0 ? 1 / (bsfc * lhv()) : 0.3;
       editor.update(['power'], { basis, brakeThermalEfficiency: Number.isFinite(eta) && eta > 0 && eta <= 1 ? eta : 0.3, drivetrainLoss: loss });
     }
   }
 
-  function chooseIntercooler(kind: 'fixed' | 'effectiveness') {
+  function chooseIntercooler(kind: IntercoolerKind) {
     if (intercooler?.kind === kind) return;
     editor.update(['intercooler'], kind === 'fixed' ? { kind, manifoldTemperature: 318.15 } : { kind, effectiveness: 0.75 });
   }
@@ -62,8 +62,22 @@ export function AssumptionsSection() {
         <NumberField path={['power', 'drivetrainLoss']} label="Drivetrain loss" quantity="fraction" hint="Share of crank power lost before the wheels." />
       </FieldRow>
       <SubHeading>Losses</SubHeading>
-      <LossFields path={['losses', 'inlet']} label="Inlet loss" hint="Filter and intake, before the compressor." flow="air" testId="loss-inlet" />
-      <LossFields path={['losses', 'chargeCooler']} label="Charge-cooler loss" hint="Compressor outlet to manifold." flow="air" testId="loss-charge-cooler" />
+      <LossFields
+        path={['losses', 'inlet']}
+        loss={editor.draft.losses?.inlet}
+        label="Inlet loss"
+        hint="Filter and intake, before the compressor."
+        flow="air"
+        testId="loss-inlet"
+      />
+      <LossFields
+        path={['losses', 'chargeCooler']}
+        loss={editor.draft.losses?.chargeCooler}
+        label="Charge-cooler loss"
+        hint="Compressor outlet to manifold."
+        flow="air"
+        testId="loss-charge-cooler"
+      />
       <NumberField
         path={['losses', 'inletTemperatureRise']}
         label="Intake heating"

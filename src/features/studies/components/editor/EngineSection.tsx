@@ -1,26 +1,23 @@
-import { useEffect, useId, useState } from 'react';
+import { useId, useState } from 'react';
 import { FieldError, inputClass } from '#src/components/TextField';
-import { getIn, pathKey } from '#src/features/studies/lib/draft';
+import { pathKey } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, CountField, NumberField, ReadValue, TextInputField } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, Section, SubHeading } from './Section';
 
-type RpmPoints = { kind: 'range'; min: number; max: number; step: number } | { kind: 'list'; values: number[] };
-
 /** An explicit rpm list typed as "2500, 3000, 4000". */
 function RpmListField() {
   const editor = useEditor();
   const id = useId();
-  const values = (getIn(editor.draft, ['engine', 'rpm', 'values']) as number[] | undefined) ?? [];
-  const [text, setText] = useState(values.join(', '));
+  const rpm = editor.draft.engine?.rpm;
+  const values = (rpm?.kind === 'list' ? rpm.values : undefined) ?? [];
+  const joined = values.join(', ');
+  const [typed, setTyped] = useState(joined);
   const [error, setError] = useState<string | null>(null);
   const [focused, setFocused] = useState(false);
   // Follow the list when it changes elsewhere (a loaded revision), but never under the typing hand.
-  const joined = values.join(', ');
-  useEffect(() => {
-    if (!focused && error === null) setText(joined);
-  }, [joined, focused, error]);
+  const text = focused || error !== null ? typed : joined;
   const issue = error ?? editor.issues[pathKey(['engine', 'rpm', 'values'])] ?? null;
   if (editor.readOnly) return <ReadValue label="Engine speeds (rpm)">{values.join(', ')}</ReadValue>;
   return (
@@ -32,10 +29,13 @@ function RpmListField() {
         id={id}
         value={text}
         aria-invalid={issue ? true : undefined}
-        onFocus={() => setFocused(true)}
+        onFocus={() => {
+          if (error === null) setTyped(joined);
+          setFocused(true);
+        }}
         onBlur={() => setFocused(false)}
         onChange={(e) => {
-          setText(e.target.value);
+          setTyped(e.target.value);
           const parts = e.target.value.split(/[,;\s]+/).filter(Boolean);
           const numbers = parts.map(Number);
           if (parts.length === 0 || numbers.some((n) => !Number.isFinite(n))) return setError('Type engine speeds as numbers separated by commas.');
@@ -51,16 +51,17 @@ function RpmListField() {
 
 export function EngineSection() {
   const editor = useEditor();
-  const rpm = getIn(editor.draft, ['engine', 'rpm']) as RpmPoints | undefined;
+  const rpm = editor.draft.engine?.rpm;
 
   function chooseRpmKind(kind: 'range' | 'list') {
     if (!rpm || rpm.kind === kind) return;
     if (kind === 'list') {
       const values: number[] = [];
-      if (rpm.kind === 'range' && rpm.step > 0) for (let n = rpm.min; n <= rpm.max + 1e-9 && values.length < 400; n += rpm.step) values.push(n);
+      if (rpm.kind === 'range' && rpm.step !== undefined && rpm.step > 0 && rpm.min !== undefined && rpm.max !== undefined)
+        for (let n = rpm.min; n <= rpm.max + 1e-9 && values.length < 400; n += rpm.step) values.push(n);
       editor.update(['engine', 'rpm'], { kind: 'list', values: values.length ? values : [3000] });
     } else {
-      const values = rpm.kind === 'list' ? rpm.values : [];
+      const values = (rpm.kind === 'list' ? rpm.values : undefined) ?? [];
       const min = values[0] ?? 2500;
       const max = values[values.length - 1] ?? 8000;
       editor.update(['engine', 'rpm'], { kind: 'range', min, max: max > min ? max : min + 500, step: 250 });
@@ -87,7 +88,7 @@ export function EngineSection() {
           if (strokes === 4) editor.update(['engine', 'trappingEfficiency'], undefined);
         }}
       />
-      {getIn(editor.draft, ['engine', 'strokes']) === 2 && (
+      {editor.draft.engine?.strokes === 2 && (
         <NumberField
           path={['engine', 'trappingEfficiency']}
           label="Trapping efficiency"
@@ -117,6 +118,7 @@ export function EngineSection() {
       )}
       <RpmTableEditor
         path={['engine', 'volumetricEfficiency']}
+        rows={editor.draft.engine?.volumetricEfficiency}
         title="Volumetric efficiency by rpm"
         valueLabel="Volumetric efficiency"
         quantity="fraction"

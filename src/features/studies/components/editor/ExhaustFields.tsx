@@ -1,7 +1,7 @@
 import { turbineEfficiencyKindMeaning } from '#shared/maps/format';
 import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
 import type { MapSummary } from '#src/features/maps/api';
-import { getIn } from '#src/features/studies/lib/draft';
+import type { ExhaustDraft } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField, ToggleField } from './fields';
 import { LossFields } from './LossFields';
@@ -9,12 +9,7 @@ import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, SubHeading } from './Section';
 import { formatNumber } from '#src/lib/quantities';
 
-type Housing = 'single' | 'divided';
-type Exhaust = {
-  housing: Housing;
-  wastegates: { count: 1 | 2; valveDiameter: number; dischargeCoefficient: number };
-  pulseFactor?: number;
-};
+type Housing = NonNullable<ExhaustDraft['housing']>;
 
 /**
  * A new exhaust side's starting values (a user sets every one before trusting a result): one
@@ -22,7 +17,7 @@ type Exhaust = {
  * rising to 900 °C, 15 kPa after the turbine (the same at every flow until the user gives the flow
  * it was measured at). Typical of a small petrol engine (from memory).
  */
-function startingExhaust(housing: Housing) {
+function startingExhaust(housing: Housing): ExhaustDraft {
   return {
     housing,
     wastegates: { count: housing === 'divided' ? 2 : 1, valveDiameter: housing === 'divided' ? 0.038 : 0.044, dischargeCoefficient: 0.8 },
@@ -59,8 +54,9 @@ export function ExhaustFields({
 }) {
   const editor = useEditor();
   const base = ['plans', planIndex];
-  const exhaust = getIn(editor.draft, [...base, 'exhaust']) as Exhaust | undefined;
-  const turbineMapId = (getIn(editor.draft, [...base, 'turbineMapId']) as string | null | undefined) ?? null;
+  const plan = editor.draft.plans?.[planIndex];
+  const exhaust = plan?.exhaust;
+  const turbineMapId = plan?.turbineMapId ?? null;
   const known = new Set((turbineMaps ?? []).map((m) => m.id));
   const chosen = turbineMaps?.find((m) => m.id === turbineMapId);
 
@@ -196,6 +192,7 @@ export function ExhaustFields({
           </FieldRow>
           <LossFields
             path={[...base, 'exhaust', 'downstreamLoss']}
+            loss={exhaust.downstreamLoss}
             label="Pressure loss after the turbine"
             hint="Downpipe, catalyst and silencers: the turbine outlet sits this far above ambient."
             flow="exhaust"
@@ -203,6 +200,7 @@ export function ExhaustFields({
           />
           <RpmTableEditor
             path={[...base, 'exhaust', 'turbineInletTemperature']}
+            rows={exhaust.turbineInletTemperature}
             title="Exhaust gas temperature at the turbine by rpm"
             valueLabel="Temperature"
             quantity="temperature"

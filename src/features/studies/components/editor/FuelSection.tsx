@@ -1,5 +1,5 @@
 import { Button } from '#src/components/Button';
-import { getIn, pathKey } from '#src/features/studies/lib/draft';
+import { pathKey, type StudyDraft } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { ChoiceField, CountField, NumberField, ToggleField, UnitNumberInput } from './fields';
@@ -7,16 +7,17 @@ import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, Section, SubHeading } from './Section';
 import { useUnitSystem } from '#src/lib/quantities';
 
-type FuelKind = 'petrol' | 'ethanol-blend' | 'methanol';
+type FuelKind = NonNullable<NonNullable<NonNullable<StudyDraft['fuelSystem']>['fuel']>['kind']>;
 
 export function FuelSection() {
   const editor = useEditor();
-  const fuel = getIn(editor.draft, ['fuelSystem', 'fuel']) as { kind: FuelKind; ethanolPercent?: number } | undefined;
-  const primary = getIn(editor.draft, ['fuelSystem', 'injectors', 'primary']) as Record<string, number> | undefined;
-  const secondary = getIn(editor.draft, ['fuelSystem', 'injectors', 'secondary']);
+  const fuel = editor.draft.fuelSystem?.fuel;
+  const primary = editor.draft.fuelSystem?.injectors?.primary;
+  const secondary = editor.draft.fuelSystem?.injectors?.secondary;
 
   function chooseFuel(kind: FuelKind) {
-    if (kind === 'ethanol-blend') editor.update(['fuelSystem', 'fuel'], { kind, ethanolPercent: fuel?.ethanolPercent ?? 85 });
+    if (kind === 'ethanol-blend')
+      editor.update(['fuelSystem', 'fuel'], { kind, ethanolPercent: (fuel?.kind === 'ethanol-blend' ? fuel.ethanolPercent : undefined) ?? 85 });
     else editor.update(['fuelSystem', 'fuel'], { kind });
   }
 
@@ -53,7 +54,14 @@ export function FuelSection() {
           )}
         </div>
       )}
-      <RpmTableEditor path={['fuelSystem', 'lambda']} title="Lambda target by rpm" valueLabel="Lambda" quantity="ratio" defaultValue={0.85} />
+      <RpmTableEditor
+        path={['fuelSystem', 'lambda']}
+        rows={editor.draft.fuelSystem?.lambda}
+        title="Lambda target by rpm"
+        valueLabel="Lambda"
+        quantity="ratio"
+        defaultValue={0.85}
+      />
       <SubHeading>Injectors</SubHeading>
       <FieldRow>
         <CountField path={['fuelSystem', 'injectors', 'primary', 'count']} label="Primary injectors" />
@@ -119,7 +127,7 @@ function InjectorRatingFields({ set }: { set: 'primary' | 'secondary' }) {
   const editor = useEditor();
   const unitSystem = useUnitSystem();
   const base = ['fuelSystem', 'injectors', set];
-  const deadTime = getIn(editor.draft, [...base, 'deadTime']) as { time: number; voltage: number } | undefined;
+  const deadTime = editor.draft.fuelSystem?.injectors?.[set]?.deadTime;
   const deadTimeIssue = editor.issues[pathKey([...base, 'deadTime', 'time'])];
   return (
     <>

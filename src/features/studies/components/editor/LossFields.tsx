@@ -1,5 +1,5 @@
-import { LOSS_REFERENCE_DENSITY, type PressureLossInput } from '#shared/physics/losses';
-import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
+import { LOSS_REFERENCE_DENSITY } from '#shared/physics/losses';
+import { pathKey, type DocPath, type StudyDraft } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { NumberField, UnitNumberInput } from './fields';
@@ -11,10 +11,25 @@ import { inputText, quantityUnit, useUnitSystem } from '#src/lib/quantities';
  * measured at, so that it follows the flow as flow²/density. Without the flow the loss is the same
  * at every flow (the older form); clearing the flow clears its density too.
  */
-export function LossFields({ path, label, hint, flow, testId }: { path: DocPath; label: string; hint: string; flow: 'air' | 'exhaust'; testId?: string }) {
+export function LossFields({
+  path,
+  loss,
+  label,
+  hint,
+  flow,
+  testId,
+}: {
+  /** Where the loss is in the document. */
+  path: DocPath;
+  /** The loss at `path`. */
+  loss: NonNullable<StudyDraft['losses']>['inlet'];
+  label: string;
+  hint: string;
+  flow: 'air' | 'exhaust';
+  testId?: string;
+}) {
   const editor = useEditor();
   const unitSystem = useUnitSystem();
-  const loss = getIn(editor.draft, path) as PressureLossInput | undefined;
   const flowPath = [...path, 'referenceMassFlow'];
   const issue = editor.issues[pathKey(flowPath)];
   const density = quantityUnit('density', unitSystem);

@@ -1,22 +1,22 @@
 import { Button } from '#src/components/Button';
 import { PlanSwatch } from '#src/components/study/PlanSwatch';
 import type { MapSummary } from '#src/features/maps/api';
-import { getIn, newPlanId } from '#src/features/studies/lib/draft';
+import { newPlanId, type PlanDraft } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ExhaustFields } from './ExhaustFields';
 import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from './fields';
 import { FieldRow, Section } from './Section';
 
-type Plan = {
-  id: string;
-  name: string;
-  turbochargers: number;
-  compressorEfficiency: number;
-  offMapEfficiency?: number;
-  maxShaftSpeed?: number;
-  compressorMapId: string | null;
-  turbineMapId?: string | null;
-};
+/** A new plan: one turbocharger on the last plan's map, judged at 70 % where the map gives no efficiency. */
+function newPlan(plans: readonly PlanDraft[]): PlanDraft {
+  return {
+    id: newPlanId(plans),
+    name: `Plan ${plans.length + 1}`,
+    turbochargers: 1,
+    compressorEfficiency: 0.7,
+    compressorMapId: plans[plans.length - 1]?.compressorMapId ?? null,
+  };
+}
 
 export function PlansSection({
   maps,
@@ -30,9 +30,9 @@ export function PlansSection({
   turbineMapsError: string | null;
 }) {
   const editor = useEditor();
-  const plans = (getIn(editor.draft, ['plans']) as Plan[] | undefined) ?? [];
+  const plans = editor.draft.plans ?? [];
   const known = new Set((maps ?? []).map((m) => m.id));
-  const mapOptions = (current: string | null) => [
+  const mapOptions = (current: string | null | undefined) => [
     { value: '', label: 'No map: judge with the default efficiency' },
     ...(maps ?? []).map((m) => ({ value: m.id, label: m.builtin ? `${m.name} (built-in demo)` : m.name })),
     // A map the list does not show (still loading, or gone) stays selectable under its id.
@@ -97,7 +97,7 @@ export function PlansSection({
                 onClick={() =>
                   editor.update(
                     ['plans'],
-                    [...plans.slice(0, pi + 1), { ...structuredClone(plan), id: newPlanId(plans), name: `${plan.name} (copy)` }, ...plans.slice(pi + 1)],
+                    [...plans.slice(0, pi + 1), { ...structuredClone(plan), id: newPlanId(plans), name: `${plan.name ?? ''} (copy)` }, ...plans.slice(pi + 1)],
                   )
                 }
               >
@@ -120,24 +120,7 @@ export function PlansSection({
         </fieldset>
       ))}
       {!editor.readOnly && (
-        <Button
-          disabled={plans.length >= 10}
-          onClick={() =>
-            editor.update(
-              ['plans'],
-              [
-                ...plans,
-                {
-                  id: newPlanId(plans),
-                  name: `Plan ${plans.length + 1}`,
-                  turbochargers: 1,
-                  compressorEfficiency: 0.7,
-                  compressorMapId: plans[plans.length - 1]?.compressorMapId ?? null,
-                },
-              ],
-            )
-          }
-        >
+        <Button disabled={plans.length >= 10} onClick={() => editor.update(['plans'], [...plans, newPlan(plans)])}>
           + Add plan
         </Button>
       )}

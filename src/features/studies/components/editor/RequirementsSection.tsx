@@ -1,6 +1,5 @@
 import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '#shared/matching/requirements';
-import type { RequirementsInput } from '#shared/matching/types';
-import { getIn, pathKey } from '#src/features/studies/lib/draft';
+import { pathKey } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';
 import { ReadValue, UnitNumberInput } from './fields';
@@ -54,8 +53,7 @@ function RequirementField({ spec }: { spec: RequirementSpec }) {
   const editor = useEditor();
   const unitSystem = useUnitSystem();
   const path = ['requirements', spec.key] as const;
-  const raw = getIn(editor.draft, path);
-  const value = typeof raw === 'number' ? raw : undefined;
+  const value = editor.draft.requirements?.[spec.key];
   const fallback = defaultText(spec, unitSystem);
   if (editor.readOnly) {
     return (
@@ -77,9 +75,7 @@ function RequirementField({ spec }: { spec: RequirementSpec }) {
       editor.update(path, si);
       return;
     }
-    const current = getIn(editor.draft, ['requirements']);
-    const rest = { ...(current && typeof current === 'object' ? (current as Record<string, unknown>) : {}) };
-    delete rest[spec.key];
+    const { [spec.key]: _cleared, ...rest } = editor.draft.requirements ?? {};
     editor.update(['requirements'], Object.keys(rest).length > 0 ? rest : undefined);
   }
   return (
@@ -108,8 +104,7 @@ function RequirementField({ spec }: { spec: RequirementSpec }) {
  */
 export function RequirementsSection() {
   const editor = useEditor();
-  const set = getIn(editor.draft, ['requirements']);
-  const resolved = resolveRequirements(set && typeof set === 'object' ? (set as RequirementsInput) : undefined);
+  const resolved = resolveRequirements(editor.draft.requirements);
   // A warning leaner than the limit would never be raised: the limit is met first.
   const warningPastLimit = resolved.lambdaWarningUnderBoost > resolved.lambdaLimitUnderBoost;
   return (

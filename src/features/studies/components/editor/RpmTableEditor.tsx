@@ -1,8 +1,8 @@
 import { useId, useState } from 'react';
 import { Button } from '#src/components/Button';
-import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
+import { pathKey, type DocPath, type RpmTableDraft } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
-import { applyPaste, parsePastedTable, type RpmRows } from '#src/features/studies/lib/paste-table';
+import { applyPaste, parsePastedTable } from '#src/features/studies/lib/paste-table';
 import { useEditor } from './context';
 import { GroupIssue, UnitNumberInput } from './fields';
 import { quantityUnit, type StudyQuantity, useUnitSystem } from '#src/lib/quantities';
@@ -14,13 +14,17 @@ import { quantityUnit, type StudyQuantity, useUnitSystem } from '#src/lib/quanti
  */
 export function RpmTableEditor({
   path,
+  rows = [],
   title,
   valueLabel,
   quantity,
   defaultValue,
   testId,
 }: {
+  /** Where the table is in the document. */
   path: DocPath;
+  /** The table at `path`. */
+  rows: RpmTableDraft | undefined;
   title: string;
   valueLabel: string;
   quantity: StudyQuantity;
@@ -32,7 +36,6 @@ export function RpmTableEditor({
   const unitSystem = useUnitSystem();
   const captionId = useId();
   const pasteId = useId();
-  const rows = (getIn(editor.draft, path) as RpmRows | undefined) ?? [];
   const unit = quantityUnit(quantity, unitSystem);
   const [pasteMessage, setPasteMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [pasteOpen, setPasteOpen] = useState(false);
@@ -43,7 +46,7 @@ export function RpmTableEditor({
     return issue ? localizeIssue(issue, q, unitSystem) : null;
   }
 
-  function setRows(next: RpmRows) {
+  function setRows(next: RpmTableDraft) {
     editor.update(path, next);
   }
 
@@ -71,8 +74,8 @@ export function RpmTableEditor({
   function addRow() {
     const last = rows[rows.length - 1];
     const prev = rows[rows.length - 2];
-    const gap = last && prev ? last.rpm - prev.rpm : 500;
-    setRows([...rows, last ? { rpm: last.rpm + (gap > 0 ? gap : 500), value: last.value } : { rpm: 3000, value: defaultValue }]);
+    const gap = last?.rpm !== undefined && prev?.rpm !== undefined ? last.rpm - prev.rpm : 500;
+    setRows([...rows, last ? { rpm: (last.rpm ?? 0) + (gap > 0 ? gap : 500), value: last.value } : { rpm: 3000, value: defaultValue }]);
   }
 
   return (

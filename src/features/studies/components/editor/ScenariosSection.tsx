@@ -1,14 +1,13 @@
 import { Button } from '#src/components/Button';
 import { scenarioDashes } from '#src/components/plots/style';
-import { getIn } from '#src/features/studies/lib/draft';
+import type { BoostRowDraft, ScenarioDraft } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, CountField, GroupIssue, NumberField, TextInputField } from './fields';
 import { RpmTableEditor } from './RpmTableEditor';
 import { FieldRow, Section, SubHeading } from './Section';
 
-type Ambient = { pressure?: number; altitude?: number; temperature?: number; relativeHumidity?: number };
-type BoostRow = { label: string; kind: 'full-load' | 'gear' | 'part-throttle'; gear?: number; boost: { rpm: number; value: number }[] };
-type Scenario = { name: string; ambient: Ambient; boostSchedule: BoostRow[] };
+/** A first boost row: full load, 100 kPa from 3000 rpm (invented starting values the user replaces). */
+const FIRST_BOOST_ROW: BoostRowDraft = { label: 'Full load', kind: 'full-load', boost: [{ rpm: 3000, value: 100_000 }] };
 
 /** A small picture of the line dash a scenario is drawn with on the plots. */
 function DashSample({ index }: { index: number }) {
@@ -28,11 +27,10 @@ function DashSample({ index }: { index: number }) {
   );
 }
 
-function BoostRowEditor({ si, ri, row, count }: { si: number; ri: number; row: BoostRow; count: number }) {
+function BoostRowEditor({ si, ri, row, rows }: { si: number; ri: number; row: BoostRowDraft; rows: readonly BoostRowDraft[] }) {
   const editor = useEditor();
   const base = ['scenarios', si, 'boostSchedule', ri] as const;
-  const rows = getIn(editor.draft, ['scenarios', si, 'boostSchedule']) as BoostRow[];
-  function chooseKind(kind: BoostRow['kind']) {
+  function chooseKind(kind: NonNullable<BoostRowDraft['kind']>) {
     const { gear: _gear, ...rest } = row;
     editor.update(base, kind === 'gear' ? { ...rest, kind, gear: row.gear ?? ri + 1 } : { ...rest, kind });
   }
@@ -43,7 +41,7 @@ function BoostRowEditor({ si, ri, row, count }: { si: number; ri: number; row: B
         {!editor.readOnly && (
           <Button
             variant="quiet"
-            disabled={count <= 1}
+            disabled={rows.length <= 1}
             onClick={() =>
               editor.update(
                 ['scenarios', si, 'boostSchedule'],
@@ -72,6 +70,7 @@ function BoostRowEditor({ si, ri, row, count }: { si: number; ri: number; row: B
       {row.kind === 'gear' && <CountField path={[...base, 'gear']} label="Gear" />}
       <RpmTableEditor
         path={[...base, 'boost']}
+        rows={row.boost}
         title={`Boost target, ${row.label || `row ${ri + 1}`}`}
         valueLabel="Boost"
         quantity="pressureGauge"
@@ -83,10 +82,10 @@ function BoostRowEditor({ si, ri, row, count }: { si: number; ri: number; row: B
 
 export function ScenariosSection() {
   const editor = useEditor();
-  const scenarios = (getIn(editor.draft, ['scenarios']) as Scenario[] | undefined) ?? [];
+  const scenarios = editor.draft.scenarios ?? [];
 
   function chooseAmbient(si: number, mode: 'altitude' | 'pressure') {
-    const a = scenarios[si].ambient;
+    const a = scenarios[si].ambient ?? {};
     const humidity = a.relativeHumidity !== undefined ? { relativeHumidity: a.relativeHumidity } : {};
     if (mode === 'altitude')
       editor.update(
@@ -98,12 +97,12 @@ export function ScenariosSection() {
 
   function addScenario() {
     const last = scenarios[scenarios.length - 1];
-    const copy: Scenario = last
+    const copy: ScenarioDraft = last
       ? structuredClone(last)
       : {
           name: '',
           ambient: { pressure: 101_325, temperature: 293.15 },
-          boostSchedule: [{ label: 'Full load', kind: 'full-load', boost: [{ rpm: 3000, value: 100_000 }] }],
+          boostSchedule: [FIRST_BOOST_ROW],
         };
     copy.name = `Scenario ${scenarios.length + 1}`;
     editor.update(['scenarios'], [...scenarios, copy]);
@@ -117,6 +116,7 @@ export function ScenariosSection() {
       <GroupIssue path={['scenarios']} />
       {scenarios.map((s, si) => {
         const mode = s.ambient?.altitude !== undefined ? 'altitude' : 'pressure';
+        const boostRows = s.boostSchedule ?? [];
         return (
           <fieldset key={si} className="space-y-3 rounded-md border border-ink/15 p-3" data-testid={`scenario-${si}`}>
             <legend className="flex items-center gap-2 px-1 text-sm font-semibold text-ink">
@@ -157,20 +157,18 @@ export function ScenariosSection() {
             />
             <GroupIssue path={['scenarios', si, 'ambient']} />
             <GroupIssue path={['scenarios', si, 'boostSchedule']} />
-            {s.boostSchedule?.map((row, ri) => (
-              <BoostRowEditor key={ri} si={si} ri={ri} row={row} count={s.boostSchedule.length} />
+            {boostRows.map((row, ri) => (
+              <BoostRowEditor key={ri} si={si} ri={ri} row={row} rows={boostRows} />
             ))}
             {!editor.readOnly && (
               <div className="flex flex-wrap gap-2">
                 <Button
                   variant="quiet"
-                  disabled={(s.boostSchedule?.length ?? 0) >= 20}
+                  disabled={boostRows.length >= 20}
                   onClick={() => {
-                    const last = s.boostSchedule[s.boostSchedule.length - 1];
-                    const row: BoostRow = last
-                      ? { ...structuredClone(last), label: `Row ${s.boostSchedule.length + 1}` }
-                      : { label: 'Full load', kind: 'full-load', boost: [{ rpm: 3000, value: 100_000 }] };
-                    editor.update(['scenarios', si, 'boostSchedule'], [...s.boostSchedule, row]);
+                    const last = boostRows[boostRows.length - 1];
+                    const row: BoostRowDraft = last ? { ...structuredClone(last), label: `Row ${boostRows.length + 1}` } : FIRST_BOOST_ROW;
+                    editor.update(['scenarios', si, 'boostSchedule'], [...boostRows, row]);
                   }}
                 >
                   + Add boost row
@@ -181,7 +179,7 @@ export function ScenariosSection() {
                   onClick={() =>
                     editor.update(
                       ['scenarios'],
-                      [...scenarios.slice(0, si + 1), { ...structuredClone(s), name: `${s.name} (copy)` }, ...scenarios.slice(si + 1)],
+                      [...scenarios.slice(0, si + 1), { ...structuredClone(s), name: `${s.name ?? ''} (copy)` }, ...scenarios.slice(si + 1)],
                     )
                   }
                 >

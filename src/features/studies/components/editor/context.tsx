@@ -1,10 +1,10 @@
 import { createContext, useContext } from 'react';
-import type { DocPath } from '#src/features/studies/lib/draft';
+import type { DocPath, StudyDraft } from '#src/features/studies/lib/draft';
 
 /** What every input of the study editor reads and writes through. */
 export interface Editor {
-  /** The document being edited: the study document's shape, values possibly invalid. */
-  draft: Record<string, unknown>;
+  /** The document being edited: the study document's shape, values possibly missing or invalid. */
+  draft: StudyDraft;
   /** Puts an SI value (or text) at `path`; undefined removes an optional field. */
   update: (path: DocPath, value: unknown) => void;
   /** Schema issues of the draft, by dotted path. */

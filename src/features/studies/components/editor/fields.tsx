@@ -239,7 +239,7 @@ export function ChoiceField<T extends string | number>({
 }) {
   const editor = useEditor();
   const id = useId();
-  const current = value ?? (getIn(editor.draft, path) as T);
+  const current: unknown = value ?? getIn(editor.draft, path);
   const error = editor.issues[pathKey(path)];
   const errorId = error ? `${id}-error` : undefined;
   if (editor.readOnly) return <ReadValue label={label}>{options.find((o) => String(o.value) === String(current))?.label ?? String(current ?? '—')}</ReadValue>;

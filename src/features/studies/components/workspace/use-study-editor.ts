@@ -5,12 +5,12 @@ import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '#
 import { studyLines, type StudyLine } from '#src/components/study/lines';
 import { runStudyLive } from '#src/components/study/run';
 import { studyMapIds } from '#shared/study/document';
-import { issuesByPath, setIn, type DocPath } from '#src/features/studies/lib/draft';
+import { issuesByPath, setIn, type DocPath, type StudyDraft } from '#src/features/studies/lib/draft';
 
 /** What the editor started from: the saved revision its edits will be based on. */
 export interface EditorBase {
   revision: number;
-  document: Record<string, unknown>;
+  document: StudyDraft;
 }
 
 export interface Computed {
@@ -19,11 +19,14 @@ export interface Computed {
   lines: StudyLine[];
 }
 
-/** A stored document as the editor holds it: migrated to the current version, plain JSON. */
-export function editableDocument(raw: unknown): Record<string, unknown> {
+/**
+ * A stored document as the editor holds it: migrated to the current version, plain JSON. Taken
+ * as a draft without checking: the schema checks the draft on every edit and names what is wrong.
+ */
+export function editableDocument(raw: unknown): StudyDraft {
   try {
     const migrated = migrateStudyDocument(raw);
-    return migrated && typeof migrated === 'object' ? (structuredClone(migrated) as Record<string, unknown>) : {};
+    return migrated && typeof migrated === 'object' ? (structuredClone(migrated) as StudyDraft) : {};
   } catch {
     return {};
   }
@@ -32,7 +35,7 @@ export function editableDocument(raw: unknown): Record<string, unknown> {
 /** The draft document and the saved revision it is based on. */
 export function useDraft(initial: EditorBase) {
   const [base, setBase] = useState<EditorBase>(initial);
-  const [draft, setDraft] = useState<Record<string, unknown>>(initial.document);
+  const [draft, setDraft] = useState<StudyDraft>(initial.document);
   const update = useCallback((path: DocPath, value: unknown) => setDraft((d) => setIn(d, path, value)), []);
   const baseText = useMemo(() => JSON.stringify(base.document), [base]);
   const dirty = useMemo(() => JSON.stringify(draft) !== baseText, [draft, baseText]);
@@ -44,13 +47,13 @@ export function useDraft(initial: EditorBase) {
   }, []);
 
   /** After a save: the sent document is the new base; anything typed since stays unsaved. */
-  const saved = useCallback((revision: number, document: Record<string, unknown>) => setBase({ revision, document }), []);
+  const saved = useCallback((revision: number, document: StudyDraft) => setBase({ revision, document }), []);
 
   return { base, draft, update, dirty, reset, saved };
 }
 
 /** The map ids the plans of a draft name (valid or not). */
-export function mapIdsOf(draft: Record<string, unknown>): string[] {
+export function mapIdsOf(draft: StudyDraft): string[] {
   return studyMapIds(Array.isArray(draft.plans) ? draft.plans : []);
 }
 
@@ -58,7 +61,7 @@ export function mapIdsOf(draft: Record<string, unknown>): string[] {
  * The draft checked by the study schema (issues by path) and computed in the browser. Only a
  * valid draft with its maps loaded is computed; otherwise the last good result stays on screen.
  */
-export function useStudyCompute(draft: Record<string, unknown>, mapsById: Record<string, SpoolbookMap | undefined>, mapsReady: boolean) {
+export function useStudyCompute(draft: StudyDraft, mapsById: Record<string, SpoolbookMap | undefined>, mapsReady: boolean) {
   const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
   const issues = useMemo(() => (parsed.success ? {} : issuesByPath(parsed.error.issues)), [parsed]);
   const computedNow = useMemo<Computed | null>(() => {
