@@ -5,7 +5,7 @@ import { outbox, sessions, users } from '../db/schema';
 import { notFound } from '../http/errors';
 import { audit } from '../services/audit';
 import { endAllSessions } from '../services/sessions';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 
 /** Long random strings in links (our tokens are 43 characters of base64url). */
 const TOKEN = /([?&=/])[A-Za-z0-9_-]{32,}/g;

@@ -6,7 +6,7 @@ import { requireUser } from '../auth/session';
 import { HttpError } from '../http/errors';
 import { audit } from '../services/audit';
 import { exportTeam, importTeam } from '../services/archive';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { countUpload } from '../services/limits';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_ARCHIVE_BYTES, files: 1, fields: 0, parts: 1 } });

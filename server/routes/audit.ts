@@ -6,7 +6,7 @@ import { requireAdmin, requireUser } from '../auth/session';
 import type { Db } from '../db/client';
 import { auditEvents } from '../db/schema';
 import { parseOr400 } from '../http/errors';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 
 const auditQuerySchema = z.strictObject({
   before: z.iso.datetime({ message: 'before must be an ISO date-time (UTC)' }).optional(),

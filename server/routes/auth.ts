@@ -47,7 +47,7 @@ import {
   recoveryCodesLeft,
   turnOffTwoFactor,
 } from '../services/two-factor';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { audit } from '../services/audit';
 
 /** 400 naming the password field when the password is weak (OWASP ASVS 5.0 6.2.4, 6.2.11). */

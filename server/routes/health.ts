@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 
 export function healthRouter({ pool }: AppDeps): Router {
   const router = Router();

@@ -4,7 +4,7 @@ import { requireUser } from '../auth/session';
 import { hashToken } from '../auth/tokens';
 import { invitations, teamMembers, teams, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { markEmailConfirmed } from '../services/accounts';
 import { audit } from '../services/audit';
 

@@ -12,7 +12,7 @@ import { maps, users } from '../db/schema';
 import { HttpError, notFound, parseOr400 } from '../http/errors';
 import { builtinMap, builtinMaps, BUILTIN_PREFIX } from '../services/builtin-maps';
 import { studiesUsingMap } from '../services/map-usage';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { audit } from '../services/audit';
 import { countUpload } from '../services/limits';
 

@@ -4,7 +4,7 @@ import { hashToken } from '../auth/tokens';
 import { shareLinks, studies } from '../db/schema';
 import { notFound } from '../http/errors';
 import { mapsOfStudy, resultsCsv, validDocument } from '../services/studies';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 
 /** Read-only access to one study through a share link, without signing in. Nothing here writes. */
 export function shareRouter({ db }: AppDeps): Router {

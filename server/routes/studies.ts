@@ -18,7 +18,7 @@ import { newId, newToken } from '../auth/tokens';
 import { shareLinks, studies, studyRevisions, users } from '../db/schema';
 import { HttpError, notFound, parseOr400 } from '../http/errors';
 import { assertMapsUsable, demoStudyDocument, mapsOfStudy, resultsCsv, studyAuthors, validDocument } from '../services/studies';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { audit } from '../services/audit';
 
 const creator = alias(users, 'creator');

@@ -10,7 +10,7 @@ import { enqueueMail } from '../mail/queue';
 import { invitationMail } from '../mail/templates';
 import { teamsOf } from '../services/accounts';
 import { assertOwnerRemains, INVITATION_VALID_DAYS, membersOf, pendingInvitationsOf, revokeShareLinksOfLeaver } from '../services/teams';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { audit } from '../services/audit';
 
 export function teamsRouter({ db, config, limits, mail }: AppDeps): Router {
