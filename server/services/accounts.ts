@@ -3,13 +3,11 @@ import type { User } from 'lucia';
 import type { Me, TeamSummary } from '#shared/schemas/account';
 import { hashPassword } from '../auth/passwords';
 import { newId, newToken } from '../auth/tokens';
-import type { Db } from '../db/client';
+import type { Db, Tx } from '../db/client';
 import { emailConfirmations, passwordResets, teamMembers, teams, users } from '../db/schema';
 
 export const RESET_VALID_MINUTES = 60;
 export const CONFIRMATION_VALID_HOURS = 48;
-
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 export function publicUser(user: User | typeof users.$inferSelect): Me['user'] {
   const row = user as Partial<typeof users.$inferSelect> & Partial<User>;

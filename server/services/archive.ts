@@ -7,7 +7,7 @@ import type { Db } from '../db/client';
 import { maps, studies, studyRevisions, teamMembers, users } from '../db/schema';
 import { HttpError, issuesOf } from '../http/errors';
 import { BUILTIN_PREFIX, builtinMap } from './builtin-maps';
-import { validDocument } from './studies';
+import { validDocument } from './study-documents';
 
 /** Everything of a team that can leave: maps with their files, studies with every revision. */
 export async function exportTeam(db: Db, teamId: string, teamName: string): Promise<TeamArchive> {

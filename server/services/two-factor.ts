@@ -3,7 +3,7 @@ import { generateSecret, generateURI, verify } from 'otplib';
 import QRCode from 'qrcode';
 import { randomInt } from 'node:crypto';
 import { hashToken, newId, newToken } from '../auth/tokens';
-import type { Db } from '../db/client';
+import type { Db, Tx } from '../db/client';
 import { recoveryCodes, signInChallenges, users } from '../db/schema';
 
 /**
@@ -17,8 +17,6 @@ const RECOVERY_CODE_COUNT = 10;
 /** How long the step between password and code may take, and how many codes may be tried in it. */
 export const CHALLENGE_MINUTES = 5;
 export const CHALLENGE_ATTEMPTS = 5;
-
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /** Starts setting up (or again): a new secret, kept aside until a code from it is shown. */
 export async function beginTwoFactor(db: Db, user: { id: string; email: string }) {

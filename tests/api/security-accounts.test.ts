@@ -5,7 +5,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '#server/config';
 import { outbox, passwordResets, sessions, users } from '#server/db/schema';
-import { ADMIN_USER } from '#server/db/seed';
+import { ADMIN_USER } from '#server/services/demo';
 import type { MailMessage, Mailer } from '#server/mail/mailer';
 import {
   client,

@@ -4,7 +4,7 @@ import { eq } from 'drizzle-orm';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { outbox, teamMembers } from '#server/db/schema';
-import { ADMIN_USER } from '#server/db/seed';
+import { ADMIN_USER } from '#server/services/demo';
 import { FORMULA_START } from '#shared/csv';
 import { pngPicture } from '../unit/tracer/images';
 import { latestLinkTo, ORIGIN, signedUp, startTestApp, uniqueEmail, type Client, type TestApp } from './helpers';

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { teamMembers } from '#server/db/schema';
-import { ADMIN_USER } from '#server/db/seed';
+import { ADMIN_USER } from '#server/services/demo';
 import { client, latestMailTo, linkIn, PASSWORD, signedUp, startTestApp, uniqueEmail, type Client, type TestApp } from './helpers';
 
 let t: TestApp;
