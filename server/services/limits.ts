@@ -205,3 +205,18 @@ export function countUpload(limits: Limits): RequestHandler {
     limits.uploadByUser.take(user.id).then(() => next(), next);
   };
 }
+
+/** Sign-in failures slow down, per account and per address, with growing delays (never a lockout): 429 while either waits. */
+export async function assertSignInAllowed(limits: Limits, email: string, address: string) {
+  const [account, from] = await Promise.all([limits.signInByAccount.waitMs(email), limits.signInByAddress.waitMs(address)]);
+  if (account > 0) throw tooMany('Several wrong sign-ins for this account in a row.', account);
+  if (from > 0) throw tooMany('Several wrong sign-ins from your address in a row.', from);
+}
+
+export async function signInFailed(limits: Limits, email: string, address: string) {
+  await Promise.all([limits.signInByAccount.failed(email), limits.signInByAddress.failed(address)]);
+}
+
+export async function signInSucceeded(limits: Limits, email: string, address: string) {
+  await Promise.all([limits.signInByAccount.succeeded(email), limits.signInByAddress.succeeded(address)]);
+}

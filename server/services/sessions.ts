@@ -64,6 +64,14 @@ export async function endOtherSessions(db: Db, userId: string, currentSessionId:
   return rows.length;
 }
 
+/** Notes when and from which address a session was last used (shown on the Sessions page). */
+export async function noteSessionUse(db: Db, sessionId: string, ip: string) {
+  await db
+    .update(sessions)
+    .set({ lastSeenAt: new Date(), ip })
+    .where(eq(sessions.id, hashToken(sessionId)));
+}
+
 export async function endAllSessions(db: Db, userId: string): Promise<number> {
   const rows = await db.delete(sessions).where(eq(sessions.userId, userId)).returning({ id: sessions.id });
   return rows.length;

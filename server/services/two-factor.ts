@@ -113,3 +113,17 @@ export async function turnOffTwoFactor(db: Db | Tx, userId: string) {
   await db.update(users).set({ totpSecret: null, totpEnabledAt: null, totpLastStep: null }).where(eq(users.id, userId));
   await db.delete(recoveryCodes).where(eq(recoveryCodes.userId, userId));
 }
+
+/** Whether the set-up was started: a secret waits for its first code. */
+export async function setupStarted(db: Db, userId: string): Promise<boolean> {
+  const [row] = await db.select({ secret: users.totpSecret }).from(users).where(eq(users.id, userId));
+  return Boolean(row?.secret);
+}
+
+/** Turns the second factor on and makes the first recovery codes, in one transaction. */
+export async function enableTwoFactor(db: Db, userId: string): Promise<string[]> {
+  return db.transaction(async (tx) => {
+    await tx.update(users).set({ totpEnabledAt: new Date() }).where(eq(users.id, userId));
+    return newRecoveryCodes(tx, userId);
+  });
+}
