@@ -12,7 +12,7 @@ import { emailConfirmationMail } from '../mail/templates';
 
 const CONFIRMATION_VALID_HOURS = 48;
 
-export function publicUser(user: User | typeof users.$inferSelect): Me['user'] {
+function publicUser(user: User | typeof users.$inferSelect): Me['user'] {
   const row = user as Partial<typeof users.$inferSelect> & Partial<User>;
   return {
     id: user.id,

@@ -84,7 +84,7 @@ async function teamArchive(db: Db, teamId: string, teamName: string): Promise<Te
   };
 }
 
-export interface ImportProblem {
+interface ImportProblem {
   /** Which item: `maps[2] "Street wheel"`, `studies[0] "Hill-climb" revision 3`, or `archive`. */
   item: string;
   message: string;

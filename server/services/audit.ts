@@ -7,7 +7,7 @@ import type { Db } from '../db/client';
 import { auditEvents } from '../db/schema';
 import { newId } from '../auth/tokens';
 
-export type AuditAction =
+type AuditAction =
   | 'auth.sign-up'
   | 'auth.sign-in'
   | 'auth.sign-in-failed'

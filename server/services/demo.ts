@@ -15,7 +15,7 @@ export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-de
 export const ADMIN_USER = { email: 'admin@spoolbook.test', password: 'spoolbook-admin', name: 'Site Admin' };
 export const DEMO_TEAM_NAME = 'Harrow Hill Motorsport';
 export const DEMO_STUDY_TITLE = 'Hill-climb 2.0: which compressor?';
-export const DEMO_EXHAUST_STUDY_TITLE = 'Hill-climb 2.0: single or divided turbine housing?';
+const DEMO_EXHAUST_STUDY_TITLE = 'Hill-climb 2.0: single or divided turbine housing?';
 const DEMO_STUDIES = [
   { title: DEMO_STUDY_TITLE, file: DEMO_STUDY_FILES.compressor },
   { title: DEMO_EXHAUST_STUDY_TITLE, file: DEMO_STUDY_FILES.turbineHousing },

@@ -19,7 +19,7 @@ import { audit } from './audit';
  * invitation works.
  */
 
-export const INVITATION_VALID_DAYS = 7;
+const INVITATION_VALID_DAYS = 7;
 const DAY_MS = 86_400_000;
 
 /** What sending an invitation needs: the database, the limits, the mail worker, the public address for links. */

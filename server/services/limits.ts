@@ -58,7 +58,7 @@ const HOUR = 3600;
  * failure makes the next attempt wait twice as long as the last (1 s, 2 s, 4 s …, at most
  * `maxDelaySeconds`). The real user is slowed for a while, never shut out; a success clears it.
  */
-export class GrowingDelay {
+class GrowingDelay {
   private readonly failures: RateLimiterPostgres;
   private readonly wait: RateLimiterPostgres;
 
@@ -92,7 +92,7 @@ export class GrowingDelay {
 }
 
 /** A plain count per key and window; past it, 429 with Retry-After. */
-export class Quota {
+class Quota {
   private readonly limiter: RateLimiterPostgres;
 
   constructor(

@@ -37,7 +37,7 @@ function summary(map: SpoolbookMap) {
 }
 
 /** A download name of our own making from a map's name: letters, digits, dots, dashes. */
-export function safeFileName(name: string) {
+function safeFileName(name: string) {
   const base =
     name
       .replace(/[^A-Za-z0-9._ -]+/g, '')

@@ -18,7 +18,7 @@ export interface SessionView {
 }
 
 /** "Firefox 128 on Linux" from a User-Agent header; "Unknown browser" when there is none. */
-export function describeBrowser(userAgent: string | null): string {
+function describeBrowser(userAgent: string | null): string {
   if (!userAgent) return 'Unknown browser';
   const parsed = Bowser.parse(userAgent);
   const name = parsed.browser.name ? `${parsed.browser.name}${parsed.browser.version ? ` ${parsed.browser.version.split('.')[0]}` : ''}` : null;

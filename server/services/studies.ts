@@ -18,7 +18,7 @@ import { assertMapsUsable, demoStudyDocument, mapsOfStudy, resultsCsv, storedDoc
 const creator = alias(users, 'creator');
 const updater = alias(users, 'updater');
 
-export async function studyAuthors(db: Db, teamId: string) {
+async function studyAuthors(db: Db, teamId: string) {
   const rows = await db
     .selectDistinct({ id: users.id, name: users.name })
     .from(studies)

@@ -15,8 +15,8 @@ import { recoveryCodes, signInChallenges, users } from '../db/schema';
 const ISSUER = 'Spoolbook';
 const RECOVERY_CODE_COUNT = 10;
 /** How long the step between password and code may take, and how many codes may be tried in it. */
-export const CHALLENGE_MINUTES = 5;
-export const CHALLENGE_ATTEMPTS = 5;
+const CHALLENGE_MINUTES = 5;
+const CHALLENGE_ATTEMPTS = 5;
 
 /** Starts setting up (or again): a new secret, kept aside until a code from it is shown. */
 export async function beginTwoFactor(db: Db, user: { id: string; email: string }) {
@@ -60,7 +60,7 @@ export async function newRecoveryCodes(db: Db | Tx, userId: string): Promise<str
 }
 
 /** Uses one recovery code, once. */
-export async function useRecoveryCode(db: Db | Tx, userId: string, code: string): Promise<boolean> {
+async function useRecoveryCode(db: Db | Tx, userId: string, code: string): Promise<boolean> {
   const normal = code.trim().toLowerCase();
   if (!/^[a-z0-9]{5}-[a-z0-9]{5}$/.test(normal)) return false;
   const rows = await db
