@@ -3,10 +3,10 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { maps, studies, teamMembers } from '#server/db/schema';
-import { ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
+import { ADMIN_USER } from '#server/services/demo';
+import { demoDocument as demo, join, ORIGIN, signedUp, startTestApp, teamOf, uniqueEmail, type Client, type TestApp } from './helpers';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
-const demo = JSON.parse(readFileSync(path.join(root, 'data', 'demo', 'hillclimb-study.json'), 'utf8'));
 
 let t: TestApp;
 beforeAll(async () => {
@@ -160,5 +160,49 @@ describe('team export and import', () => {
     const stranger = await signedUp(t, 'archivestranger');
     expect((await stranger.c.get(`/api/teams/${teamId}/archive/export`)).status).toBe(404);
     expect(owner.email).toBeTruthy();
+  });
+});
+
+describe("archive import matches authors only among the team's members", () => {
+  it('an archive naming the site admin as author does not make history say "by Site Admin"; a member is matched', async () => {
+    const { owner, teamId } = await teamOf(t, 'archive');
+    const editor = await join(t, owner.c, teamId, 'editor', 'archive-editor');
+    const revision = (n: number, author: string) => ({
+      revision: n,
+      title: 'Imported',
+      message: `r${n}`,
+      author,
+      createdAt: new Date().toISOString(),
+      document: demo,
+    });
+    const archive = {
+      format: 'spoolbook-team-archive',
+      version: 1,
+      exportedAt: new Date().toISOString(),
+      team: { name: 'x' },
+      maps: [],
+      studies: [
+        {
+          id: 's1',
+          title: 'Imported',
+          archived: false,
+          createdAt: new Date().toISOString(),
+          revisions: [revision(1, ADMIN_USER.email), revision(2, editor.email), revision(3, uniqueEmail('stranger'))],
+        },
+      ],
+    };
+    const res = await owner.c.agent
+      .post(`/api/teams/${teamId}/archive/import`)
+      .set('Origin', ORIGIN)
+      .attach('archive', Buffer.from(JSON.stringify(archive)), { filename: 'team.json', contentType: 'application/json' });
+    expect(res.status).toBe(201);
+    const list = await owner.c.get(`/api/teams/${teamId}/studies?q=Imported`);
+    const studyId = list.body.studies[0].id;
+    const revisions = (await owner.c.get(`/api/teams/${teamId}/studies/${studyId}/revisions`)).body.revisions as { revision: number; author: string }[];
+    const byNumber = Object.fromEntries(revisions.map((r) => [r.revision, r.author]));
+    expect(byNumber[1]).toBe(ADMIN_USER.email); // plain text, not the admin's name
+    expect(byNumber[1]).not.toBe(ADMIN_USER.name);
+    expect(byNumber[2]).toBe((await editor.c.get('/api/auth/me')).body.user.name); // a member: matched
+    expect(byNumber[3]).toMatch(/^stranger-/);
   });
 });

@@ -1,5 +1,8 @@
 import { desc, eq } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { expect } from 'vitest';
 import pino from 'pino';
 import request from 'supertest';
 import { createApp } from '#server/app';
@@ -92,7 +95,7 @@ export const PASSWORD = 'correct horse battery';
 /**
  * Signs a new account up and returns the signed-in client with its user and personal team. The
  * address is confirmed (as if the mailed link was opened) unless `confirmed: false`; the
- * confirmation itself is tested in auth-confirmation.test.ts.
+ * confirmation itself is tested in auth.test.ts.
  */
 export async function signedUp(t: TestApp, prefix = 'user', { confirmed = true }: { confirmed?: boolean } = {}) {
   const c = client(t);
@@ -132,3 +135,40 @@ export function expectErrorShape(body: unknown) {
     throw new Error(`not the error shape: ${JSON.stringify(body)}`);
   }
 }
+
+/** The demo study document (data/demo/hillclimb-study.json), as a client would send it. */
+export const demoDocument = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'demo', 'hillclimb-study.json'), 'utf8'));
+
+/** A new account with a new (not personal) team it owns. */
+export async function teamOf(t: TestApp, prefix: string) {
+  const owner = await signedUp(t, prefix);
+  const teamId = (await owner.c.post('/api/teams', { name: `${prefix} team` })).body.team.id as string;
+  return { owner, teamId };
+}
+
+/** A new account that joins the team with `role` as an invitee does: through the mailed link. */
+export async function join(t: TestApp, owner: Client, teamId: string, role: 'owner' | 'editor' | 'viewer', prefix: string) {
+  const member = await signedUp(t, prefix);
+  await owner.post(`/api/teams/${teamId}/invitations`, { email: member.email, role });
+  const token = (await latestLinkTo(t, member.email, '/invitations/')).split('/invitations/')[1];
+  expect((await member.c.post(`/api/invitations/${token}/accept`, {})).status).toBe(200);
+  return member;
+}
+
+/** An owner, their new team and one study in it made from the demo document. */
+export async function teamWithStudy(t: TestApp) {
+  const owner = await signedUp(t, 'study-owner');
+  const teamId = (await owner.c.post('/api/teams', { name: 'Study team' })).body.team.id as string;
+  const created = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Hill-climb plan', document: demoDocument });
+  if (created.status !== 201) throw new Error(JSON.stringify(created.body));
+  return { owner, teamId, study: created.body.study as { id: string; revision: number; document: typeof demoDocument } };
+}
+
+/** The `token` query parameter of a mailed link. */
+export const tokenOf = (link: string) => new URL(link).searchParams.get('token')!;
+
+/** The session cookie an answer sets (`name=value`), if it sets one that is not a blank. */
+export const sessionCookie = (res: request.Response) =>
+  (res.headers['set-cookie'] as unknown as string[] | undefined)
+    ?.find((c) => c.startsWith('spoolbook_session=') && !c.startsWith('spoolbook_session=;'))
+    ?.split(';')[0];
