@@ -106,21 +106,23 @@ export async function signedUp(t: TestApp, prefix = 'user', { confirmed = true }
   return { c, email, user: res.body.user as { id: string }, personalTeamId: res.body.teams[0].id as string };
 }
 
-/** The newest message the fake SMTP server stored for `to`, once queued mail has gone out. */
-export async function latestMailTo(t: TestApp, to: string) {
+/**
+ * The newest message the fake SMTP server stored for `to` (the newest whose text holds
+ * `containing`, when given), once queued mail has gone out. Another test app's mail worker may
+ * deliver an earlier message to the same address after a later one, so tests that want one kind
+ * of message say which.
+ */
+export async function latestMailTo(t: TestApp, to: string, containing?: string) {
   await t.drainMail();
-  const [row] = await t.database.db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt)).limit(1);
-  if (!row) throw new Error(`no mail to ${to} in the outbox`);
+  const rows = await t.database.db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt));
+  const row = containing === undefined ? rows[0] : rows.find((r) => r.text.includes(containing));
+  if (!row) throw new Error(`no mail to ${to}${containing === undefined ? '' : ` with ${containing}`} in the outbox`);
   return row;
 }
 
 /** The link with `pathPrefix` in the newest message to `to` that has one (other mail may have come after it). */
 export async function latestLinkTo(t: TestApp, to: string, pathPrefix: string): Promise<string> {
-  await t.drainMail();
-  const rows = await t.database.db.select().from(outbox).where(eq(outbox.to, to)).orderBy(desc(outbox.receivedAt));
-  const row = rows.find((r) => r.text.includes(pathPrefix));
-  if (!row) throw new Error(`no mail to ${to} with a ${pathPrefix} link`);
-  return linkIn(row.text, pathPrefix);
+  return linkIn((await latestMailTo(t, to, pathPrefix)).text, pathPrefix);
 }
 
 export function linkIn(text: string, pathPrefix: string): string {

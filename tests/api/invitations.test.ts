@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { outbox } from '#server/db/schema';
-import { client, latestLinkTo, latestMailTo, linkIn, PASSWORD, signedUp, startTestApp, uniqueEmail, type TestApp } from './helpers';
+import { client, latestLinkTo, PASSWORD, signedUp, startTestApp, uniqueEmail, type TestApp } from './helpers';
 
 // Invitations: sent, resent, cancelled by owners, read and accepted by the invitee
 // (server/services/invitations.ts).
@@ -21,7 +21,7 @@ describe('invitations', () => {
     const email = uniqueEmail('invitee');
     const inv = await owner.c.post(`/api/teams/${teamId}/invitations`, { email, role: 'editor' });
     expect(inv.status).toBe(201);
-    const link = linkIn((await latestMailTo(t, email)).text, '/invitations/');
+    const link = await latestLinkTo(t, email, '/invitations/');
     const token = link.split('/invitations/')[1];
 
     const preview = await client(t).get(`/api/invitations/${token}`);
@@ -41,7 +41,7 @@ describe('invitations', () => {
     const teamId = (await owner.c.post('/api/teams', { name: 'Invite team 2' })).body.team.id;
     const email = uniqueEmail('invited');
     await owner.c.post(`/api/teams/${teamId}/invitations`, { email, role: 'viewer' });
-    const token = linkIn((await latestMailTo(t, email)).text, '/invitations/').split('/invitations/')[1];
+    const token = (await latestLinkTo(t, email, '/invitations/')).split('/invitations/')[1];
     const stranger = await signedUp(t, 'stranger');
     const res = await stranger.c.post(`/api/invitations/${token}/accept`);
     expect(res.status).toBe(403);
@@ -53,11 +53,11 @@ describe('invitations', () => {
     const teamId = (await owner.c.post('/api/teams', { name: 'Resend team' })).body.team.id;
     const email = uniqueEmail('resent');
     const inv = await owner.c.post(`/api/teams/${teamId}/invitations`, { email, role: 'viewer' });
-    const firstToken = linkIn((await latestMailTo(t, email)).text, '/invitations/').split('/invitations/')[1];
+    const firstToken = (await latestLinkTo(t, email, '/invitations/')).split('/invitations/')[1];
     await new Promise((r) => setTimeout(r, 5));
     const resent = await owner.c.post(`/api/teams/${teamId}/invitations/${inv.body.invitation.id}/resend`);
     expect(resent.status).toBe(200);
-    const secondToken = linkIn((await latestMailTo(t, email)).text, '/invitations/').split('/invitations/')[1];
+    const secondToken = (await latestLinkTo(t, email, '/invitations/')).split('/invitations/')[1];
     expect(secondToken).not.toBe(firstToken);
     expect((await client(t).get(`/api/invitations/${firstToken}`)).status).toBe(404);
     expect((await client(t).get(`/api/invitations/${secondToken}`)).status).toBe(200);

@@ -3,7 +3,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { outbox, passwordResets, users } from '#server/db/schema';
 import type { MailMessage, Mailer } from '#server/mail/mailer';
-import { client, latestMailTo, linkIn, ORIGIN, PASSWORD, signedUp, startTestApp, tokenOf, uniqueEmail, type TestApp } from './helpers';
+import { client, latestLinkTo, latestMailTo, linkIn, ORIGIN, PASSWORD, signedUp, startTestApp, tokenOf, uniqueEmail, type TestApp } from './helpers';
 
 // Passwords: reset links, changing one, the strength rule (server/services/passwords.ts and the
 // password routes of server/routes/auth.ts). OWASP ASVS 5.0 ids are named beside the checks.
@@ -21,7 +21,7 @@ describe('password reset through the e-mailed link', () => {
     const { c, email } = await signedUp(t, 'reset');
     const ask = await client(t).post('/api/auth/password-reset', { email });
     expect(ask.status).toBe(202);
-    const mail = await latestMailTo(t, email);
+    const mail = await latestMailTo(t, email, '/reset-password?token=');
     expect(mail.subject).toMatch(/reset/i);
     const link = linkIn(mail.text, '/reset-password?token=');
     const token = new URL(link).searchParams.get('token')!;
@@ -48,7 +48,7 @@ describe('password reset through the e-mailed link', () => {
   it('refuses an expired token', async () => {
     const { email, user } = await signedUp(t, 'expired');
     await client(t).post('/api/auth/password-reset', { email });
-    const token = new URL(linkIn((await latestMailTo(t, email)).text, '/reset-password?token=')).searchParams.get('token')!;
+    const token = tokenOf(await latestLinkTo(t, email, '/reset-password?token='));
     await t.database.db
       .update(passwordResets)
       .set({ expiresAt: new Date(Date.now() - 1000) })
@@ -61,7 +61,7 @@ describe('password reset through the e-mailed link', () => {
   it('stores only a hash of the token', async () => {
     const { email, user } = await signedUp(t, 'hashed');
     await client(t).post('/api/auth/password-reset', { email });
-    const token = new URL(linkIn((await latestMailTo(t, email)).text, '/reset-password?token=')).searchParams.get('token')!;
+    const token = tokenOf(await latestLinkTo(t, email, '/reset-password?token='));
     const rows = await t.database.db.select().from(passwordResets).where(eq(passwordResets.userId, user.id));
     expect(rows).toHaveLength(1);
     expect(rows[0].tokenHash).not.toBe(token);
@@ -88,9 +88,9 @@ describe('reset links (ASVS 6.3.x, 6.4.x)', () => {
   it('only the newest link works; using it ends every link', async () => {
     const { email } = await signedUp(t, 'reset-one');
     await client(t).post('/api/auth/password-reset', { email });
-    const first = tokenOf(linkIn((await latestMailTo(t, email)).text, '/reset-password?token='));
+    const first = tokenOf(await latestLinkTo(t, email, '/reset-password?token='));
     await client(t).post('/api/auth/password-reset', { email });
-    const second = tokenOf(linkIn((await latestMailTo(t, email)).text, '/reset-password?token='));
+    const second = tokenOf(await latestLinkTo(t, email, '/reset-password?token='));
     expect(second).not.toBe(first);
     // The attack: 25 requests left 25 live links. Now the older one is dead at once.
     const old = await client(t).post('/api/auth/password-reset/confirm', { token: first, password: 'a brand new password' });
@@ -105,7 +105,7 @@ describe('reset links (ASVS 6.3.x, 6.4.x)', () => {
   it('changing the password ends a live reset link', async () => {
     const { c, email } = await signedUp(t, 'reset-change');
     await client(t).post('/api/auth/password-reset', { email });
-    const token = tokenOf(linkIn((await latestMailTo(t, email)).text, '/reset-password?token='));
+    const token = tokenOf(await latestLinkTo(t, email, '/reset-password?token='));
     expect((await c.post('/api/auth/password', { currentPassword: PASSWORD, newPassword: 'a brand new password' })).status).toBe(200);
     expect((await client(t).post('/api/auth/password-reset/confirm', { token, password: 'yet another password' })).status).toBe(400);
   });
@@ -184,7 +184,7 @@ describe('passwords (ASVS 6.2.4, 6.2.11)', () => {
     expect(change.status).toBe(400);
     expect(change.body.error.details.issues[0].path).toBe('newPassword');
     await client(t).post('/api/auth/password-reset', { email });
-    const token = tokenOf(linkIn((await latestMailTo(t, email)).text, '/reset-password?token='));
+    const token = tokenOf(await latestLinkTo(t, email, '/reset-password?token='));
     const reset = await client(t).post('/api/auth/password-reset/confirm', { token, password: '123456789' });
     expect(reset.status).toBe(400);
     // A refused password does not use the link up.
