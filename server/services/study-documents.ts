@@ -44,6 +44,12 @@ export function storedDocument(raw: unknown): unknown {
   }
 }
 
+/** Where a plan names a map, and the kind of map that belongs there. */
+const MAP_SLOTS = [
+  { field: 'compressorMapId', kind: 'compressor', wrongKind: "is a turbine map; a plan's compressor needs a compressor map" },
+  { field: 'turbineMapId', kind: 'turbine', wrongKind: "is a compressor map; a plan's exhaust side needs a turbine map" },
+] as const;
+
 /**
  * Plans may only name maps of the same team (or built-in ones): a compressor map as the
  * compressor's, a turbine map as the exhaust side's.
@@ -60,20 +66,13 @@ export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocumen
   const kinds = new Map(found.map((m) => [m.id, m.kind]));
   const kindOf = (id: string) => (id.startsWith(BUILTIN_PREFIX) ? builtinMap(id)?.map.kind : kinds.get(id));
   const issues: { path: string; message: string }[] = [];
-  doc.plans.forEach((p, i) => {
-    const id = p.compressorMapId;
-    if (id) {
+  doc.plans.forEach((plan, i) => {
+    for (const slot of MAP_SLOTS) {
+      const id = plan[slot.field];
+      if (!id) continue;
       const kind = kindOf(id);
-      if (!kind) issues.push({ path: `document.plans.${i}.compressorMapId`, message: "no such map in this team's library" });
-      else if (kind !== 'compressor')
-        issues.push({ path: `document.plans.${i}.compressorMapId`, message: "is a turbine map; a plan's compressor needs a compressor map" });
-    }
-    const turbineId = p.turbineMapId;
-    if (turbineId) {
-      const kind = kindOf(turbineId);
-      if (!kind) issues.push({ path: `document.plans.${i}.turbineMapId`, message: "no such map in this team's library" });
-      else if (kind !== 'turbine')
-        issues.push({ path: `document.plans.${i}.turbineMapId`, message: "is a compressor map; a plan's exhaust side needs a turbine map" });
+      if (!kind) issues.push({ path: `document.plans.${i}.${slot.field}`, message: "no such map in this team's library" });
+      else if (kind !== slot.kind) issues.push({ path: `document.plans.${i}.${slot.field}`, message: slot.wrongKind });
     }
   });
   if (issues.length) throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });

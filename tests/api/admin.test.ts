@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '#server/config';
 import { sessions } from '#server/db/schema';
 import { ADMIN_USER } from '#server/services/demo';
-import { client, latestMailTo, linkIn, PASSWORD, signedUp, startTestApp, tokenOf, type Client, type TestApp } from './helpers';
+import { adminClient, client, latestMailTo, linkIn, PASSWORD, signedUp, startTestApp, tokenOf, type Client, type TestApp } from './helpers';
 
 // The site admin's pages (server/routes/admin.ts: server/services/admins.ts, outbox.ts).
 
@@ -11,9 +11,7 @@ let t: TestApp;
 let admin: Client;
 beforeAll(async () => {
   t = await startTestApp();
-  admin = client(t);
-  const res = await admin.post('/api/auth/sign-in', { email: ADMIN_USER.email, password: ADMIN_USER.password });
-  if (res.status !== 200) throw new Error('the seeded admin could not sign in');
+  admin = await adminClient(t);
 });
 afterAll(async () => {
   await t.close();

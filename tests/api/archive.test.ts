@@ -23,6 +23,19 @@ function importArchive(c: Client, teamId: string, content: string | Buffer) {
     .attach('archive', Buffer.isBuffer(content) ? content : Buffer.from(content), { filename: 'team.json', contentType: 'application/json' });
 }
 
+/** An archive of one study and no maps, shaped as an export writes it. */
+function oneStudyArchive(study: { id: string; title: string; revisions: object[] }) {
+  const now = new Date().toISOString();
+  return {
+    format: 'spoolbook-team-archive',
+    version: 1,
+    exportedAt: now,
+    team: { name: 'x' },
+    maps: [],
+    studies: [{ id: study.id, title: study.title, archived: false, createdAt: now, revisions: study.revisions }],
+  };
+}
+
 /** A team with two maps of its own and two studies, one with three revisions using one of them. */
 async function populatedTeam() {
   const owner = await signedUp(t, 'exporter');
@@ -121,31 +134,20 @@ describe('team export and import', () => {
     const wrong = await importArchive(owner.c, owner.personalTeamId, JSON.stringify({ format: 'something else' }));
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.details.problems[0].item).toBe('archive');
-    const missingMap = {
-      format: 'spoolbook-team-archive',
-      version: 1,
-      exportedAt: new Date().toISOString(),
-      team: { name: 'x' },
-      maps: [],
-      studies: [
+    const missingMap = oneStudyArchive({
+      id: 's',
+      title: 'Orphan',
+      revisions: [
         {
-          id: 's',
+          revision: 1,
           title: 'Orphan',
-          archived: false,
+          message: '',
+          author: null,
           createdAt: new Date().toISOString(),
-          revisions: [
-            {
-              revision: 1,
-              title: 'Orphan',
-              message: '',
-              author: null,
-              createdAt: new Date().toISOString(),
-              document: { ...demo, plans: [{ ...demo.plans[0], compressorMapId: 'gone' }] },
-            },
-          ],
+          document: { ...demo, plans: [{ ...demo.plans[0], compressorMapId: 'gone' }] },
         },
       ],
-    };
+    });
     const orphan = await importArchive(owner.c, owner.personalTeamId, JSON.stringify(missingMap));
     expect(orphan.status).toBe(400);
     expect(orphan.body.error.details.problems[0].message).toMatch(/compressorMapId: names map gone/);
@@ -175,22 +177,11 @@ describe("archive import matches authors only among the team's members", () => {
       createdAt: new Date().toISOString(),
       document: demo,
     });
-    const archive = {
-      format: 'spoolbook-team-archive',
-      version: 1,
-      exportedAt: new Date().toISOString(),
-      team: { name: 'x' },
-      maps: [],
-      studies: [
-        {
-          id: 's1',
-          title: 'Imported',
-          archived: false,
-          createdAt: new Date().toISOString(),
-          revisions: [revision(1, ADMIN_USER.email), revision(2, editor.email), revision(3, uniqueEmail('stranger'))],
-        },
-      ],
-    };
+    const archive = oneStudyArchive({
+      id: 's1',
+      title: 'Imported',
+      revisions: [revision(1, ADMIN_USER.email), revision(2, editor.email), revision(3, uniqueEmail('stranger'))],
+    });
     const res = await owner.c.agent
       .post(`/api/teams/${teamId}/archive/import`)
       .set('Origin', ORIGIN)

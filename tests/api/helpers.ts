@@ -9,6 +9,7 @@ import { createApp } from '#server/app';
 import { loadConfig, type Config } from '#server/config';
 import { connectDatabase, type Database } from '#server/db/client';
 import { outbox, users } from '#server/db/schema';
+import { ADMIN_USER } from '#server/services/demo';
 import type { LimitSettings } from '#server/services/limits';
 import { startFakeSmtp } from '#server/mail/fake-smtp';
 import { createMailer } from '#server/mail/mailer';
@@ -174,3 +175,11 @@ export const sessionCookie = (res: request.Response) =>
   (res.headers['set-cookie'] as unknown as string[] | undefined)
     ?.find((c) => c.startsWith('spoolbook_session=') && !c.startsWith('spoolbook_session=;'))
     ?.split(';')[0];
+
+/** A client signed in as the seeded site admin. */
+export async function adminClient(t: TestApp) {
+  const admin = client(t);
+  const res = await admin.post('/api/auth/sign-in', { email: ADMIN_USER.email, password: ADMIN_USER.password });
+  if (res.status !== 200) throw new Error('the seeded admin could not sign in');
+  return admin;
+}

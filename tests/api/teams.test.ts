@@ -1,16 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { teamMembers } from '#server/db/schema';
-import { ADMIN_USER } from '#server/services/demo';
 import { eq } from 'drizzle-orm';
-import { client, join, signedUp, startTestApp, teamOf, uniqueEmail, type Client, type TestApp } from './helpers';
+import { adminClient, client, join, signedUp, startTestApp, teamOf, uniqueEmail, type Client, type TestApp } from './helpers';
 
 let t: TestApp;
 let admin: Client;
 beforeAll(async () => {
   t = await startTestApp();
-  admin = client(t);
-  const res = await admin.post('/api/auth/sign-in', { email: ADMIN_USER.email, password: ADMIN_USER.password });
-  if (res.status !== 200) throw new Error('the seeded admin could not sign in');
+  admin = await adminClient(t);
 });
 afterAll(async () => {
   await t.close();
