@@ -3,7 +3,7 @@ import multer from 'multer';
 import { createDraftSchema, imageListQuerySchema, saveDraftSchema, saveTraceToLibrarySchema } from '#shared/tracer/api';
 import { checkImage, MAX_IMAGE_BYTES, type ImageProblemCode } from '#shared/tracer/image-header';
 import { idSchema } from '#shared/schemas/common';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { countUpload } from '../services/limits';
 import { requireTeamPermission, type TeamAccess } from '../auth/access';
 import { requireUser } from '../auth/session';

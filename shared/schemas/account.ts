@@ -187,6 +187,18 @@ export const auditEventSchema = z.object({
 });
 export type AuditEventView = z.infer<typeof auditEventSchema>;
 export const auditListSchema = z.object({ events: z.array(auditEventSchema) });
+/** `?before=&limit=` of an audit record read: the newest `limit` entries before `before`. */
+export const auditQuerySchema = z.strictObject({
+  before: z.iso.datetime({ message: 'before must be an ISO date-time (UTC)' }).optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
+/** `?q=` of the site admin's user list: part of a name or e-mail (anything else in the query is ignored). */
+export const userSearchQuerySchema = z.object({
+  q: z
+    .string()
+    .catch('')
+    .transform((q) => q.trim().slice(0, 100)),
+});
 
 /** What an import brought in. */
 export const importResultSchema = z.object({ imported: z.object({ maps: z.number(), studies: z.number(), revisions: z.number() }) });

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import express from 'express';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
-import type { AppDeps } from '#server/app';
+import type { AppDeps } from '#server/app-deps';
 import { connectDatabase } from '#server/db/client';
 import { errorHandler } from '#server/http/errors';
 import { computeRouter } from '#server/routes/compute';

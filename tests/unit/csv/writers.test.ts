@@ -9,7 +9,7 @@ import type { SpoolbookMap } from '#shared/maps/types';
 import { buildTrace } from '#shared/tracer/build';
 import { newTraceState } from '#shared/tracer/state';
 import { builtinMaps } from '#server/services/builtin-maps';
-import { demoStudyDocument, resultsCsv } from '#server/services/studies';
+import { demoStudyDocument, resultsCsv } from '#server/services/study-documents';
 
 // OWASP ASVS 5.0 1.2.10 (OWASP "CSV Injection"): no cell of any CSV Spoolbook serves may begin
 // with = + - @ tab or CR unless it is a number. Every writer is checked the way a spreadsheet

@@ -1,9 +1,10 @@
 import { and, eq } from 'drizzle-orm';
-import type { Db } from './client';
-import { studies, studyRevisions, teamMembers, teams, users } from './schema';
-import { DEMO_STUDY_FILES, demoStudyDocument } from '../services/studies';
-import { createAccount } from '../services/accounts';
 import { newId } from '../auth/tokens';
+import type { Db } from '../db/client';
+import { studies, teamMembers, teams } from '../db/schema';
+import { createAccount, findUserByEmail } from './accounts';
+import { insertStudy } from './studies';
+import { DEMO_STUDY_FILES, demoStudyDocument } from './study-documents';
 
 /**
  * The demo sign-ins, printed by `npm start` in development and given in the README. Invented
@@ -14,7 +15,7 @@ export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-de
 export const ADMIN_USER = { email: 'admin@spoolbook.test', password: 'spoolbook-admin', name: 'Site Admin' };
 export const DEMO_TEAM_NAME = 'Harrow Hill Motorsport';
 export const DEMO_STUDY_TITLE = 'Hill-climb 2.0: which compressor?';
-export const DEMO_EXHAUST_STUDY_TITLE = 'Hill-climb 2.0: single or divided turbine housing?';
+const DEMO_EXHAUST_STUDY_TITLE = 'Hill-climb 2.0: single or divided turbine housing?';
 const DEMO_STUDIES = [
   { title: DEMO_STUDY_TITLE, file: DEMO_STUDY_FILES.compressor },
   { title: DEMO_EXHAUST_STUDY_TITLE, file: DEMO_STUDY_FILES.turbineHousing },
@@ -25,7 +26,7 @@ const DEMO_MEMBERS = [
 ];
 
 async function ensureUser(db: Db, u: { email: string; password: string; name: string }, isAdmin = false): Promise<string> {
-  const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, u.email));
+  const existing = await findUserByEmail(db, u.email);
   if (existing) return existing.id;
   // Demo passwords are known on purpose: they skip the strength check that sign-up applies.
   return (await createAccount(db, { ...u, isAdmin, confirmed: true })).userId;
@@ -55,13 +56,7 @@ export async function seedDemo(db: Db) {
       .where(and(eq(studies.teamId, team.id), eq(studies.title, demo.title)));
     if (study) continue;
     const document = demoStudyDocument(demo.file);
-    const id = newId();
-    await db.transaction(async (tx) => {
-      await tx
-        .insert(studies)
-        .values({ id, teamId: team.id, title: demo.title, engineLabel: document.engineLabel, document, createdBy: demoId, updatedBy: demoId });
-      await tx.insert(studyRevisions).values({ studyId: id, revision: 1, document, title: demo.title, message: 'Demo study', authorId: demoId });
-    });
+    await insertStudy(db, { teamId: team.id, userId: demoId, title: demo.title, document, message: 'Demo study' });
   }
   return { demoTeamId: team.id };
 }

@@ -1,3 +1,4 @@
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { client, expectErrorShape, ORIGIN, signedUp, startTestApp, type TestApp } from './helpers';
 
@@ -74,5 +75,35 @@ describe('bad input never gets a 500', () => {
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(res.headers['content-security-policy']).toContain("default-src 'self'");
     expect(res.headers['x-powered-by']).toBeUndefined();
+  });
+});
+
+describe('origin check (ASVS 5.0 3.5.1–3.5.3)', () => {
+  it('refuses a state-changing request from another origin', async () => {
+    const { c } = await signedUp(t, 'origin');
+    const res = await c.agent.post('/api/teams').set('Origin', 'https://evil.example').send({ name: 'Nope' });
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('bad_origin');
+  });
+
+  it('refuses a signed-in state change that carries neither Origin nor Sec-Fetch-Site', async () => {
+    const { c } = await signedUp(t, 'noorigin');
+    const res = await c.agent.post('/api/teams').send({ name: 'Nope' });
+    expect(res.status).toBe(403);
+  });
+
+  it('accepts Sec-Fetch-Site: same-origin', async () => {
+    const { c } = await signedUp(t, 'fetchsite');
+    const res = await c.agent.post('/api/teams').set('Sec-Fetch-Site', 'same-origin').send({ name: 'Same origin team' });
+    expect(res.status).toBe(201);
+  });
+});
+
+describe('headers (ASVS 3.4.x)', () => {
+  it('CSP forbids <base> and framing', async () => {
+    const res = await request(t.app).get('/api/health');
+    const csp = res.headers['content-security-policy'];
+    expect(csp).toContain("base-uri 'none'");
+    expect(csp).toContain("frame-ancestors 'none'");
   });
 });
