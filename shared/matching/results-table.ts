@@ -1,7 +1,7 @@
 import { siUnitOf } from '../units';
-import { MAP_REGION_WORDS } from './reach';
+import { MAP_REGION_WORDS } from './compressor/reach';
 import { planVerdicts, VERDICT_WORDS } from './verdict';
-import type { OperatingLine, PointValues, StudyResult } from './types';
+import type { OperatingLine, PointValues, StudyResult } from './result';
 import type { WorkingKind } from './working';
 
 /**
