@@ -19,7 +19,7 @@ const SEVERITY_ORDER = { limit: 0, warning: 1, info: 2 } as const;
 export class ComputeError extends Error {}
 
 /** The line context of a compute request (fixed manifold temperature per point). */
-export function computeContext(req: ComputeRequest): LineContext {
+function computeContext(req: ComputeRequest): LineContext {
   const f = req.fuel;
   const choice: FuelChoice | null = f
     ? f.kind === 'ethanol-blend'

@@ -16,19 +16,19 @@ export const INJECTOR_DUTY_WARNING = 0.8;
 /** Injector duty above which the point is at its limit, fraction (common practice, no source). */
 export const INJECTOR_DUTY_LIMIT = 0.85;
 /** Injector duty at which the injectors are open all the time (saturated), fraction (definition). */
-export const INJECTOR_DUTY_SATURATED = 1;
+const INJECTOR_DUTY_SATURATED = 1;
 /** Share of the pump's flow above which a warning is raised, fraction (common practice, no source). */
-export const FUEL_PUMP_WARNING = 0.9;
+const FUEL_PUMP_WARNING = 0.9;
 /** Usual range of volumetric efficiency referred to manifold density, fraction (common practice, no source). */
-export const VOLUMETRIC_EFFICIENCY_RANGE = [0.3, 1.3] as const;
+const VOLUMETRIC_EFFICIENCY_RANGE = [0.3, 1.3] as const;
 /** Usual range of lambda targets under load (common practice, no source). */
-export const LAMBDA_RANGE = [0.6, 1.3] as const;
+const LAMBDA_RANGE = [0.6, 1.3] as const;
 /** Ambient temperatures engines are usually run in, K: −50 °C to +60 °C (from memory). */
-export const AMBIENT_TEMPERATURE_RANGE = [223.15, 333.15] as const;
+const AMBIENT_TEMPERATURE_RANGE = [223.15, 333.15] as const;
 /** Compressor isentropic efficiency above which a figure is doubtful for an automotive wheel, fraction (from memory). */
-export const COMPRESSOR_EFFICIENCY_PLAUSIBLE_MAX = 0.85;
+const COMPRESSOR_EFFICIENCY_PLAUSIBLE_MAX = 0.85;
 /** Brake thermal efficiency above which a figure is doubtful for a piston engine, fraction (from memory). */
-export const BRAKE_THERMAL_EFFICIENCY_PLAUSIBLE_MAX = 0.5;
+const BRAKE_THERMAL_EFFICIENCY_PLAUSIBLE_MAX = 0.5;
 
 /** A lean target under boost: the mixture that burns pistons and valves. */
 function leanFindings(v: PointValues, ctx: LineContext): Finding[] {

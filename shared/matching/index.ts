@@ -1,4 +1,3 @@
-/** The matching engine's entry points: a whole study, and the Working of one of its points. */
-export { runStudy, type RunStudyOptions } from './run-study';
-export { pointWorking } from './explain-point';
+/** The matching engine's entry point: a whole study. */
+export { runStudy } from './run-study';
 export type { StudyResult } from './result';

@@ -16,7 +16,7 @@ export const ISA_LAPSE_RATE = 0.0065;
 /** Standard acceleration of gravity, m/s² (ISO 2533; CGPM 1901). */
 export const STANDARD_GRAVITY = 9.80665;
 /** Nominal Earth radius used to convert geometric to geopotential height, m (ISO 2533). */
-export const ISA_EARTH_RADIUS = 6_356_766;
+const ISA_EARTH_RADIUS = 6_356_766;
 /** Lowest geopotential height the ISO 2533 tables cover, m. */
 export const ISA_MIN_HEIGHT = -2000;
 /** Top of the troposphere (the tropopause), geopotential m (ISO 2533). */

@@ -5,7 +5,7 @@
 import type { PointValues } from '../result';
 
 /** Why a margin is missing, by the basis the engine gives for it (MarginBasis, SpeedBasis, 'no-limit'). */
-export const MISSING_MARGIN_WORDS: Record<string, string> = {
+const MISSING_MARGIN_WORDS: Record<string, string> = {
   'above-surge-line': "the point is above the surge line's top, where the map does not say where surge lies",
   'below-surge-line': "the point is below the surge line's lowest pressure ratio, where the map draws no surge line",
   'below-choke-line': "the point is below the choke line's lowest pressure ratio, where the map draws no choke line",

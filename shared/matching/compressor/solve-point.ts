@@ -26,11 +26,11 @@ export const DEFAULT_COMPRESSOR_EFFICIENCY = 0.7;
 /** Most passes of the manifold-temperature fixed point. */
 export const MAX_ITERATIONS = 40;
 /** The fixed point has settled when the efficiency changes by less than this between passes (fraction). */
-export const EFFICIENCY_TOLERANCE = 1e-7;
+const EFFICIENCY_TOLERANCE = 1e-7;
 /** From this pass on, each new efficiency is averaged with the last to damp any back-and-forth at a map edge. */
 const DAMPING_FROM_PASS = 10;
 /** Losses that follow the flow have settled when the pressure ratio changes by less than this share between passes. */
-export const PRESSURE_RATIO_TOLERANCE = 1e-10;
+const PRESSURE_RATIO_TOLERANCE = 1e-10;
 
 /** The inputs of one point that vary with rpm. */
 export interface PointOperation {

@@ -39,7 +39,7 @@ export function lineExhaustContext(plan: PlanInput, turbine: TurbineModel | null
 
 const positive = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x) && x > 0;
 
-/** Reasons the exhaust inputs give no physical state (only reachable when validation is skipped). */
+/** Reasons the exhaust inputs give no physical state (only with input the study schema never checked). */
 export function exhaustProblems(ex: LineExhaustContext): string[] {
   const i = ex.input;
   const out: string[] = [];

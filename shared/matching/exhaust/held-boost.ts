@@ -18,11 +18,11 @@ import type { LineExhaustContext, ValueAtRpm } from './result';
 import { solvedPower } from './values';
 
 /** The boost a turbine holds is found to within this, Pa (a hundredth of a kPa). */
-export const HELD_BOOST_TOLERANCE = 10;
+const HELD_BOOST_TOLERANCE = 10;
 /** …and at a held boost (each trial re-solves the whole point, so it stops a little sooner). */
-export const HELD_BALANCE_TOLERANCE = 1e-5;
+const HELD_BALANCE_TOLERANCE = 1e-5;
 /** A held boost whose balance is off by more than this share of P_c carries a finding (design: ten times what a 10 Pa bracket allows). */
-export const HELD_BALANCE_WARNING = 1e-3;
+const HELD_BALANCE_WARNING = 1e-3;
 /**
  * Passes of the compressor's manifold-temperature fixed point in a trial of the held-boost search.
  * A trial at a map edge may not settle; the point is re-solved in full at the answer.

@@ -20,7 +20,7 @@ function extreme(points: readonly OperatingPoint[], value: (v: PointValues) => n
 }
 
 /** The exhaust figures of a line; null when its Plan has no exhaust side or no turbine map. */
-export function exhaustLineSummary(ctx: LineContext, points: readonly OperatingPoint[]): ExhaustLineSummary | null {
+function exhaustLineSummary(ctx: LineContext, points: readonly OperatingPoint[]): ExhaustLineSummary | null {
   const ex = ctx.exhaust;
   if (!ex || !ex.turbine) return null;
   const boostAsked = points.some((p) => p.values !== null && asksForBoost(p.values));

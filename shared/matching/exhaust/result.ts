@@ -3,10 +3,10 @@ import type { ExhaustInput } from '../input/exhaust';
 import type { TurbineEfficiencyKind, TurbineHousing, TurbineLocation, TurbineSpeedBasis } from './model';
 
 /** The case of the quasi-steady power balance a point falls in (physics note §5). */
-export type ExhaustCase = 'gate-open' | 'target-not-held' | 'no-power-needed';
+type ExhaustCase = 'gate-open' | 'target-not-held' | 'no-power-needed';
 
 /** How a point's turbine reading used the shaft speed (see TurbineSpeedBasis). */
-export interface TurbineSpeedReading {
+interface TurbineSpeedReading {
   basis: TurbineSpeedBasis;
   /** The turbocharger's shaft speed read at, rpm; null where none is known (the mean of the lines). */
   shaftSpeed: number | null;

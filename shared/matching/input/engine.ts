@@ -50,4 +50,3 @@ export const studyEngineSchema = z
     if (e.trappingEfficiency !== undefined && e.strokes !== 2)
       ctx.addIssue({ code: 'custom', path: ['trappingEfficiency'], message: 'trapping efficiency applies only to a two-stroke engine' });
   });
-export type EngineInput = z.output<typeof studyEngineSchema>;

@@ -8,7 +8,7 @@ export const lambdaSchema = num('lambda').min(0.5, 'lambda must be at least 0.5'
 /** Ethanol in petrol, percent by volume. */
 export const ethanolPercentSchema = num('ethanol percent').min(0, 'ethanol percent must be 0 to 100').max(100, 'ethanol percent must be 0 to 100');
 
-export const fuelChoiceSchema = z.discriminatedUnion(
+const fuelChoiceSchema = z.discriminatedUnion(
   'kind',
   [
     z.strictObject({ kind: z.literal('petrol') }),
@@ -46,7 +46,7 @@ const injectorSetShape = {
     .max(20_000_000, 'rated pressure must be at most 20 MPa'),
 };
 
-export const injectorsSchema = z.strictObject({
+const injectorsSchema = z.strictObject({
   primary: z.strictObject(injectorSetShape),
   /** The staged secondary set: opens together with the primaries from `switchOverRpm` (rpm) up. */
   secondary: z.strictObject({ ...injectorSetShape, switchOverRpm: rpm('switchOverRpm') }).optional(),
@@ -67,4 +67,3 @@ export const fuelSystemSchema = z.strictObject({
     .max(0.01, 'pump flow is in m³/s (255 L/h = 7.08e-5 m³/s); at most 0.01')
     .optional(),
 });
-export type FuelSystemInput = z.output<typeof fuelSystemSchema>;
