@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { ComputeError, runComputeRequest } from '#shared/matching/run-compute';
+import { ComputeError, runComputeRequest } from '#shared/compute/run';
 import { computeRequestSchema } from '#shared/schemas/compute';
 import { clientAddress } from '../auth/session';
 import { HttpError, parseOr400 } from '../http/errors';

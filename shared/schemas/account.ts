@@ -76,7 +76,6 @@ export const sessionViewSchema = z.object({
   ip: z.string().nullable(),
   browser: z.string(),
 });
-export type SessionView = z.infer<typeof sessionViewSchema>;
 export const sessionListSchema = z.object({ sessions: z.array(sessionViewSchema) });
 
 export const twoFactorSetupSchema = z.object({ secret: z.string(), uri: z.string(), qrCode: z.string() });
@@ -164,13 +163,6 @@ export const outboxSummarySchema = z.object({
 });
 export const outboxMessageSchema = outboxSummarySchema.extend({ text: z.string(), html: z.string().nullable() });
 export type OutboxMessage = z.infer<typeof outboxMessageSchema>;
-
-export const healthSchema = z.object({
-  status: z.enum(['ok', 'degraded']),
-  server: z.literal('up'),
-  database: z.enum(['up', 'down']),
-  time: z.string(),
-});
 
 /** One entry of a team's audit record (who did what, when in UTC). */
 export const auditEventSchema = z.object({

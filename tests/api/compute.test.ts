@@ -8,7 +8,7 @@ import { errorHandler } from '#server/http/errors';
 import { computeRouter } from '#server/routes/compute';
 import { createLimits, defaultLimitSettings } from '#server/services/limits';
 import { computeResponseSchema, MAX_COMPUTE_POINTS } from '#shared/schemas/compute';
-import { expectClose } from '../unit/physics/expect-close';
+import { expectClose } from '../unit/expect-close';
 
 // The limit is counted in PostgreSQL (the test database); each app counts under its own namespace.
 const database = connectDatabase(process.env.DATABASE_URL ?? 'postgres://missing', { max: 2 });

@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import type { Finding, FindingCode, Severity } from '#shared/matching/types';
+import type { Finding, FindingCode, Severity } from '#shared/matching/finding';
 import type { UnitSystem } from '#src/lib/units';
 import { formatNumber } from '../plots/quantities';
 import { planColour } from '../plots/style';

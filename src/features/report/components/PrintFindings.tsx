@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import type { Severity } from '#shared/matching/types';
+import type { Severity } from '#shared/matching/finding';
 import { formatNumber } from '#src/components/plots/quantities';
 import { planColour } from '#src/components/plots/style';
 import { groupFindings, localizeMessage } from '#src/components/study/FindingsList';

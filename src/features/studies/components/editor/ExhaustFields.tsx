@@ -1,5 +1,5 @@
 import { turbineEfficiencyKindMeaning } from '#shared/maps/format';
-import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
+import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust/context';
 import { formatNumber } from '#src/components/plots/quantities';
 import type { MapListItem } from '#src/features/studies/api/get-team-maps';
 import { getIn } from '#src/features/studies/lib/draft';

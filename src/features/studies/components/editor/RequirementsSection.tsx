@@ -1,5 +1,4 @@
-import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '#shared/matching/requirements';
-import type { RequirementsInput } from '#shared/matching/types';
+import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements, type RequirementsInput } from '#shared/matching/input/requirements';
 import { formatStudyValue, inputText, quantityUnit, type StudyQuantity } from '#src/components/study/units';
 import { getIn, pathKey } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
