@@ -5,7 +5,7 @@
 import { existsSync, mkdirSync, readFileSync, readdirSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { ADMIN_USER, DEMO_USER } from '#server/db/seed';
+import { ADMIN_USER, DEMO_USER } from '#server/services/demo';
 import { prepareDatabase } from './lib/database';
 import { SetupError } from './lib/postgres';
 

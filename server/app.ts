@@ -6,16 +6,17 @@ import { fileURLToPath } from 'node:url';
 import pino, { type Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import { randomUUID } from 'node:crypto';
-import { createLucia, type Auth } from './auth/lucia';
+import { createLucia } from './auth/lucia';
 import { sessionMiddleware } from './auth/session';
+import type { AppDeps } from './app-deps';
 import type { Config } from './config';
-import type { Database, Db } from './db/client';
+import type { Database } from './db/client';
 import { jsonBody } from './http/body';
 import { errorHandler, HttpError, notFoundHandler } from './http/errors';
 import { requireSameOrigin } from './http/origin';
 import type { Mailer } from './mail/mailer';
-import { startMailWorker, type MailWorker } from './mail/queue';
-import { createLimits, defaultLimitSettings, type LimitSettings, type Limits } from './services/limits';
+import { startMailWorker } from './mail/queue';
+import { createLimits, defaultLimitSettings, type LimitSettings } from './services/limits';
 import { adminRouter } from './routes/admin';
 import { archiveRouter } from './routes/archive';
 import { adminAuditRouter, teamAuditRouter } from './routes/audit';
@@ -28,19 +29,6 @@ import { shareRouter } from './routes/share';
 import { studiesRouter } from './routes/studies';
 import { teamsRouter } from './routes/teams';
 import { tracerRouter } from './routes/tracer';
-
-export interface AppDeps {
-  db: Db;
-  pool: Database['pool'];
-  config: Config;
-  mailer: Mailer;
-  logger: Logger;
-  auth: Auth;
-  /** Every rate limit, counted in PostgreSQL (shared by all instances). */
-  limits: Limits;
-  /** This process's sender of queued mail, and work done after answering. */
-  mail: MailWorker;
-}
 
 export interface CreateAppOptions {
   database: Database;

@@ -1,6 +1,6 @@
 import { connectDatabase } from '#server/db/client';
 import { runMigrations } from '#server/db/migrate';
-import { seedDemo } from '#server/db/seed';
+import { seedDemo } from '#server/services/demo';
 import { ensureDatabase, ensureLocalCluster } from './postgres';
 
 /**

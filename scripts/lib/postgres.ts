@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
 
-export const LOCAL_PG_PORT = Number(process.env.SPOOLBOOK_PG_PORT ?? 54329);
+const LOCAL_PG_PORT = Number(process.env.SPOOLBOOK_PG_PORT ?? 54329);
 const isRoot = process.getuid?.() === 0;
 
 function log(message: string) {
@@ -180,15 +180,6 @@ export async function ensureDatabase(serverUrl: string, database: string, { fres
   }
 }
 
-export function commandExists(name: string): boolean {
-  try {
-    execFileSync('sh', ['-c', `command -v ${name}`], { stdio: 'ignore' });
-    return true;
-  } catch {
-    return false;
-  }
-}
-
 export interface ClusterAt extends LocalCluster {
   /** The folder holding the data folder, the log and nothing else: delete it to delete the cluster. */
   parentDir: string;
@@ -253,7 +244,7 @@ export function createClusterAt(parentDir: string, port: number): ClusterAt {
 }
 
 /** Starts a cluster made by createClusterAt (waiting until it accepts connections). */
-export function startClusterAt(cluster: ClusterAt) {
+function startClusterAt(cluster: ClusterAt) {
   const bin = ensurePostgresInstalled();
   const started = run(path.join(bin, 'pg_ctl'), ['-D', cluster.dataDir, '-l', cluster.logFile, '-w', '-t', '60', 'start'], {
     asPostgres: true,

@@ -11,7 +11,7 @@ import { hashToken } from './tokens';
  * the clear). lucia itself only ever sees the id from the cookie, so nothing else changes. The
  * hash is also the handle by which the Sessions page names a session (server/services/sessions.ts).
  */
-export class HashedSessionAdapter implements Adapter {
+class HashedSessionAdapter implements Adapter {
   constructor(private readonly inner: Adapter) {}
 
   async getSessionAndUser(sessionId: string) {

@@ -1,11 +1,9 @@
-import { eq } from 'drizzle-orm';
 import type { Request, RequestHandler, Response } from 'express';
 import type { Session, User } from 'lucia';
 import type { Db } from '../db/client';
-import { sessions } from '../db/schema';
 import { HttpError, unauthorized } from '../http/errors';
+import { noteSessionUse } from '../services/sessions';
 import type { Auth } from './lucia';
-import { hashToken } from './tokens';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -47,10 +45,7 @@ export function sessionMiddleware(auth: Auth, absoluteLifetimeMs: number, db: Db
     if (session) {
       const ip = clientAddress(req);
       if (Date.now() - new Date(session.lastSeenAt).getTime() > LAST_SEEN_EVERY_MS || session.ip !== ip) {
-        await db
-          .update(sessions)
-          .set({ lastSeenAt: new Date(), ip })
-          .where(eq(sessions.id, hashToken(session.id)));
+        await noteSessionUse(db, session.id, ip);
       }
     }
     res.locals.user = user;

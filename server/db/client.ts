@@ -3,6 +3,8 @@ import pg from 'pg';
 import * as schema from './schema';
 
 export type Db = NodePgDatabase<typeof schema>;
+/** The handle a `db.transaction` callback gets: the same queries, inside that transaction. */
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 export interface Database {
   db: Db;
   pool: pg.Pool;

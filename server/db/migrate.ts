@@ -3,7 +3,7 @@ import { fileURLToPath } from 'node:url';
 import type { Database } from './client';
 
 /** The committed SQL migrations, found from this module's own location, not the working directory. */
-export const migrationsFolder = fileURLToPath(new URL('../../drizzle', import.meta.url));
+const migrationsFolder = fileURLToPath(new URL('../../drizzle', import.meta.url));
 
 // An arbitrary constant: every Spoolbook process takes this advisory lock around migrations,
 // so two processes starting at once never apply the same migration twice.

@@ -2,9 +2,9 @@ import type { Request, RequestHandler } from 'express';
 import { HttpError, type FieldIssue } from './errors';
 
 /** Largest JSON request body, bytes (1 MiB, as the API has always accepted). */
-export const JSON_BODY_LIMIT_BYTES = 1024 * 1024;
+const JSON_BODY_LIMIT_BYTES = 1024 * 1024;
 /** Deepest nesting of arrays and objects a JSON body may have; no API input comes near it. */
-export const JSON_MAX_DEPTH = 64;
+const JSON_MAX_DEPTH = 64;
 
 export interface JsonBodyOptions {
   limitBytes?: number;
@@ -111,7 +111,7 @@ function formatBytes(n: number) {
  * `{}`, nesting no deeper than `maxDepth`, strings and keys free of NUL and lone surrogates.
  * Throws HttpError 400 with the error shape the API uses.
  */
-export function parseJsonText(text: string, maxDepth = JSON_MAX_DEPTH): unknown {
+function parseJsonText(text: string, maxDepth = JSON_MAX_DEPTH): unknown {
   const start = text.search(/\S/);
   if (start === -1) return {};
   const first = text[start];
@@ -137,7 +137,7 @@ export function parseJsonText(text: string, maxDepth = JSON_MAX_DEPTH): unknown 
  * The deepest nesting of `[` and `{` outside strings, counting stops once past `limit` so a
  * hostile body costs one linear scan and no recursion.
  */
-export function nestingDepth(text: string, limit = Infinity): number {
+function nestingDepth(text: string, limit = Infinity): number {
   let depth = 0;
   let deepest = 0;
   let inString = false;

@@ -15,11 +15,9 @@ export class HttpError extends Error {
   }
 }
 
-export const badRequest = (message: string, details?: unknown) => new HttpError(400, 'invalid_input', message, details);
 export const notFound = (what = 'Not found') => new HttpError(404, 'not_found', what);
 export const forbidden = (message = 'You do not have permission to do that.') => new HttpError(403, 'forbidden', message);
 export const unauthorized = (message = 'Sign in to continue.') => new HttpError(401, 'unauthorized', message);
-export const conflict = (message: string, details?: unknown) => new HttpError(409, 'conflict', message, details);
 
 export interface FieldIssue {
   path: string;
@@ -43,14 +41,6 @@ export function parseOr400<T>(schema: ZodType<T>, value: unknown, what = 'reques
     throw new HttpError(400, 'invalid_input', `Invalid ${what}: ${first.path}: ${first.message}`, { issues });
   }
   return result.data;
-}
-
-/** Express middleware: validate `req.body` and put the parsed value in `res.locals.body`. */
-export function validateBody<T>(schema: ZodType<T>): RequestHandler {
-  return (req, res, next) => {
-    res.locals.body = parseOr400(schema, req.body ?? {});
-    next();
-  };
 }
 
 export const notFoundHandler: RequestHandler = (_req, _res, next) => {

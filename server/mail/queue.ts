@@ -1,11 +1,9 @@
 import { eq, sql } from 'drizzle-orm';
 import type { Logger } from 'pino';
 import { newId } from '../auth/tokens';
-import type { Db } from '../db/client';
+import type { Db, Tx } from '../db/client';
 import { mailQueue } from '../db/schema';
 import type { MailMessage, Mailer } from './mailer';
-
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /** Puts a message in the queue (inside the caller's transaction when given one). */
 export async function enqueueMail(db: Db | Tx, message: MailMessage): Promise<void> {

@@ -1,12 +1,11 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { MAX_ARCHIVE_BYTES } from '#shared/schemas/archive';
+import type { AppDeps } from '../app-deps';
 import { requireTeamPermission } from '../auth/access';
 import { requireUser } from '../auth/session';
 import { HttpError } from '../http/errors';
-import { audit } from '../services/audit';
-import { exportTeam, importTeam } from '../services/archive';
-import type { AppDeps } from '../app';
+import { archiveFileName, exportTeam, importTeam } from '../services/archive';
 import { countUpload } from '../services/limits';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_ARCHIVE_BYTES, files: 1, fields: 0, parts: 1 } });
@@ -21,15 +20,6 @@ const archiveFile: RequestHandler = (req, res, next) => {
   });
 };
 
-function safeName(name: string) {
-  return (
-    name
-      .replace(/[^A-Za-z0-9._-]+/g, '-')
-      .replace(/^-+|-+$/g, '')
-      .slice(0, 60) || 'team'
-  );
-}
-
 /** A team's data leaving as one archive, and coming back into any team (owners only). */
 export function archiveRouter({ db, limits }: AppDeps): Router {
   const router = Router({ mergeParams: true });
@@ -37,15 +27,8 @@ export function archiveRouter({ db, limits }: AppDeps): Router {
   router.get('/export', async (req, res) => {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, (req.params as { teamId: string }).teamId, 'team:export');
-    const archive = await exportTeam(db, access.teamId, access.teamName);
-    await audit(db, {
-      action: 'team.exported',
-      teamId: access.teamId,
-      actor: user,
-      details: { maps: archive.maps.length, studies: archive.studies.length },
-      req,
-    });
-    res.set('Content-Disposition', `attachment; filename="spoolbook-${safeName(access.teamName)}-${archive.exportedAt.slice(0, 10)}.json"`);
+    const archive = await exportTeam(db, { teamId: access.teamId, teamName: access.teamName, actor: user, req });
+    res.set('Content-Disposition', `attachment; filename="${archiveFileName(access.teamName, archive.exportedAt)}"`);
     res.json(archive);
   });
 
@@ -64,9 +47,7 @@ export function archiveRouter({ db, limits }: AppDeps): Router {
         problems: [{ item: 'archive', message: 'not valid JSON' }],
       });
     }
-    const counts = await importTeam(db, access.teamId, user.id, raw);
-    await audit(db, { action: 'team.imported', teamId: access.teamId, actor: user, details: counts, req });
-    res.status(201).json({ imported: counts });
+    res.status(201).json({ imported: await importTeam(db, { teamId: access.teamId, importer: user, raw, req }) });
   });
 
   return router;

@@ -1,30 +1,10 @@
-import { and, desc, eq, lt, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
-import { z } from 'zod';
+import { auditQuerySchema } from '#shared/schemas/account';
+import type { AppDeps } from '../app-deps';
 import { requireTeamPermission } from '../auth/access';
 import { requireAdmin, requireUser } from '../auth/session';
-import type { Db } from '../db/client';
-import { auditEvents } from '../db/schema';
 import { parseOr400 } from '../http/errors';
-import type { AppDeps } from '../app';
-
-const auditQuerySchema = z.strictObject({
-  before: z.iso.datetime({ message: 'before must be an ISO date-time (UTC)' }).optional(),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
-});
-
-async function readAudit(db: Db, teamId: string | null, query: z.output<typeof auditQuerySchema>) {
-  const filters: SQL[] = [];
-  if (teamId) filters.push(eq(auditEvents.teamId, teamId));
-  if (query.before) filters.push(lt(auditEvents.at, new Date(query.before)));
-  const rows = await db
-    .select()
-    .from(auditEvents)
-    .where(filters.length ? and(...filters) : undefined)
-    .orderBy(desc(auditEvents.at))
-    .limit(query.limit);
-  return rows.map((r) => ({ ...r, at: r.at.toISOString() }));
-}
+import { readAudit } from '../services/audit';
 
 /** The audit record: a team's owners read their team's; the site admin reads everything. */
 export function teamAuditRouter({ db }: AppDeps): Router {

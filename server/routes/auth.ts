@@ -1,7 +1,4 @@
-import { eq } from 'drizzle-orm';
 import { Router, type Request, type Response } from 'express';
-import type { User } from 'lucia';
-import { judgePassword } from '#shared/passwords/strength';
 import {
   changePasswordSchema,
   confirmEmailSchema,
@@ -14,27 +11,14 @@ import {
   signUpSchema,
   updateProfileSchema,
 } from '#shared/schemas/account';
-import { burnVerifyTime, hashPassword, verifyPassword } from '../auth/passwords';
+import type { AppDeps } from '../app-deps';
 import { clientAddress, requireUser, startSession } from '../auth/session';
 import { hashToken } from '../auth/tokens';
-import { users } from '../db/schema';
 import { HttpError, parseOr400 } from '../http/errors';
-import { enqueueMail } from '../mail/queue';
-import { emailConfirmationMail, passwordResetMail } from '../mail/templates';
-import {
-  CONFIRMATION_VALID_HOURS,
-  confirmEmail,
-  consumeResetToken,
-  createAccount,
-  createConfirmationToken,
-  createResetToken,
-  endResetLinks,
-  findUserByEmail,
-  liveResetUser,
-  meOf,
-  RESET_VALID_MINUTES,
-} from '../services/accounts';
-import { tooMany } from '../services/limits';
+import { confirmEmail, createAccount, emailOf, findUserByEmail, meOf, sendConfirmationLink, updateProfile } from '../services/accounts';
+import { audit } from '../services/audit';
+import { assertSignInAllowed, signInFailed, signInSucceeded, tooMany } from '../services/limits';
+import { assertCurrentPassword, assertStrongPassword, changePassword, checkPassword, liveResetUser, mailResetLink, resetPassword } from '../services/passwords';
 import { endOtherSessions, endSession, sessionsOf } from '../services/sessions';
 import {
   acceptCode,
@@ -42,44 +26,17 @@ import {
   beginTwoFactor,
   challengeUser,
   createChallenge,
+  enableTwoFactor,
   endChallenge,
   newRecoveryCodes,
   recoveryCodesLeft,
+  setupStarted,
   turnOffTwoFactor,
 } from '../services/two-factor';
-import type { AppDeps } from '../app';
-import { audit } from '../services/audit';
-
-/** 400 naming the password field when the password is weak (OWASP ASVS 5.0 6.2.4, 6.2.11). */
-function assertStrongPassword(password: string, field: string, context: { email: string; name: string }) {
-  const { problem } = judgePassword(password, context);
-  if (problem) throw new HttpError(400, 'weak_password', `The password ${problem}.`, { issues: [{ path: field, message: problem }] });
-}
 
 export function authRouter(deps: AppDeps): Router {
-  const { db, auth, config, limits, mail } = deps;
+  const { db, auth, limits, mail } = deps;
   const router = Router();
-
-  /** Sign-in failures slow down, per account and per address, with growing delays (never a lockout). */
-  async function assertNotThrottled(email: string, address: string) {
-    const [account, from] = await Promise.all([limits.signInByAccount.waitMs(email), limits.signInByAddress.waitMs(address)]);
-    if (account > 0) throw tooMany('Several wrong sign-ins for this account in a row.', account);
-    if (from > 0) throw tooMany('Several wrong sign-ins from your address in a row.', from);
-  }
-  async function failed(email: string, address: string) {
-    await Promise.all([limits.signInByAccount.failed(email), limits.signInByAddress.failed(address)]);
-  }
-  async function succeeded(email: string, address: string) {
-    await Promise.all([limits.signInByAccount.succeeded(email), limits.signInByAddress.succeeded(address)]);
-  }
-
-  async function sendConfirmation(userId: string, email: string) {
-    if ((await limits.confirmationByAccount.tryTake(userId)) !== true) return false;
-    const token = await createConfirmationToken(db, userId);
-    await enqueueMail(db, emailConfirmationMail(email, `${config.publicUrl}/confirm-email?token=${token}`, CONFIRMATION_VALID_HOURS));
-    mail.kick();
-    return true;
-  }
 
   async function signedIn(req: Request, res: Response, userId: string, email: string) {
     if (res.locals.session) await auth.invalidateSession(res.locals.session.id);
@@ -99,7 +56,7 @@ export function authRouter(deps: AppDeps): Router {
     }
     const { userId } = await createAccount(db, input);
     await audit(db, { action: 'auth.sign-up', actor: { id: userId, email: input.email }, req });
-    await sendConfirmation(userId, input.email);
+    await sendConfirmationLink(deps, userId, input.email);
     await startSession(auth, req, res, userId);
     res.status(201).json(await meOf(db, userId));
   });
@@ -113,15 +70,15 @@ export function authRouter(deps: AppDeps): Router {
         'invalid_token',
         'This confirmation link is not valid any more: it was used, it expired, or a newer one was sent. Sign in and have a new one sent from Settings.',
       );
-    const [row] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
-    await audit(db, { action: 'auth.email-confirmed', actor: { id: userId, email: row.email }, req });
-    res.json({ confirmed: true, email: row.email });
+    const email = await emailOf(db, userId);
+    await audit(db, { action: 'auth.email-confirmed', actor: { id: userId, email }, req });
+    res.json({ confirmed: true, email });
   });
 
   router.post('/confirm-email/resend', async (_req, res) => {
     const user = requireUser(res);
     if (user.emailConfirmed) return void res.json({ sent: false, confirmed: true });
-    const sent = await sendConfirmation(user.id, user.email);
+    const sent = await sendConfirmationLink(deps, user.id, user.email);
     if (!sent) throw tooMany('The confirmation link was sent several times in the last hour.', 3600_000);
     res.status(202).json({ sent: true });
   });
@@ -129,11 +86,10 @@ export function authRouter(deps: AppDeps): Router {
   router.post('/sign-in', async (req, res) => {
     const input = parseOr400(signInSchema, req.body);
     const address = clientAddress(req);
-    await assertNotThrottled(input.email, address);
-    const user = await findUserByEmail(db, input.email);
-    const ok = user ? await verifyPassword(user.passwordHash, input.password) : (await burnVerifyTime(input.password), false);
+    await assertSignInAllowed(limits, input.email, address);
+    const { user, ok } = await checkPassword(db, input.email, input.password);
     if (!user || !ok) {
-      await failed(input.email, address);
+      await signInFailed(limits, input.email, address);
       await audit(db, { action: 'auth.sign-in-failed', actorEmail: input.email, details: { reason: user ? 'wrong password' : 'unknown e-mail' }, req });
       // One answer for an unknown e-mail and a wrong password (OWASP ASVS 5.0 6.3.8).
       throw new HttpError(401, 'invalid_credentials', 'The e-mail or the password is not right.');
@@ -142,7 +98,7 @@ export function authRouter(deps: AppDeps): Router {
       // The password was right; the session waits for the second factor (OWASP ASVS 5.0 6.3.3).
       return void res.json({ secondFactor: true, challenge: await createChallenge(db, user.id) });
     }
-    await succeeded(input.email, address);
+    await signInSucceeded(limits, input.email, address);
     await signedIn(req, res, user.id, user.email);
   });
 
@@ -150,27 +106,27 @@ export function authRouter(deps: AppDeps): Router {
     const input = parseOr400(secondFactorSignInSchema, req.body);
     const userId = await challengeUser(db, input.challenge);
     if (!userId) throw new HttpError(401, 'challenge_expired', 'This sign-in took too long or had too many wrong codes. Sign in again with your password.');
-    const [user] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
+    const email = await emailOf(db, userId);
     const address = clientAddress(req);
-    await assertNotThrottled(user.email, address);
+    await assertSignInAllowed(limits, email, address);
     const used = await acceptSecondFactor(db, userId, input.code);
     if (!used) {
-      await failed(user.email, address);
-      await audit(db, { action: 'auth.second-factor-failed', actor: { id: userId, email: user.email }, req });
+      await signInFailed(limits, email, address);
+      await audit(db, { action: 'auth.second-factor-failed', actor: { id: userId, email }, req });
       throw new HttpError(401, 'invalid_code', 'That code is not right, or it was used already. Try the newest code your app shows, or a recovery code.', {
         issues: [{ path: 'code', message: 'is not right' }],
       });
     }
     await endChallenge(db, input.challenge);
-    await succeeded(user.email, address);
+    await signInSucceeded(limits, email, address);
     if (used === 'recovery')
       await audit(db, {
         action: 'auth.recovery-code-used',
-        actor: { id: userId, email: user.email },
+        actor: { id: userId, email },
         details: { left: await recoveryCodesLeft(db, userId) },
         req,
       });
-    await signedIn(req, res, userId, user.email);
+    await signedIn(req, res, userId, email);
   });
 
   router.post('/sign-out', async (req, res) => {
@@ -190,33 +146,16 @@ export function authRouter(deps: AppDeps): Router {
   router.patch('/me', async (req, res) => {
     const user = requireUser(res);
     const input = parseOr400(updateProfileSchema, req.body);
-    if (Object.keys(input).length > 0) await db.update(users).set(input).where(eq(users.id, user.id));
+    await updateProfile(db, user.id, input);
     res.json(await meOf(db, user.id));
   });
-
-  /** The current password, again, before a change that matters (OWASP ASVS 5.0 6.4.x re-authentication). */
-  async function assertCurrentPassword(user: User, password: string, field: string, req: Request) {
-    const address = clientAddress(req);
-    await assertNotThrottled(user.email, address);
-    const [row] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, user.id));
-    if (!(await verifyPassword(row.passwordHash, password))) {
-      await failed(user.email, address);
-      throw new HttpError(400, 'invalid_input', 'The current password is not right.', { issues: [{ path: field, message: 'is not right' }] });
-    }
-  }
 
   router.post('/password', async (req, res) => {
     const user = requireUser(res);
     const input = parseOr400(changePasswordSchema, req.body);
-    await assertCurrentPassword(user, input.currentPassword, 'currentPassword', req);
+    await assertCurrentPassword(deps, user, input.currentPassword, 'currentPassword', clientAddress(req));
     assertStrongPassword(input.newPassword, 'newPassword', user);
-    await db.transaction(async (tx) => {
-      await tx
-        .update(users)
-        .set({ passwordHash: await hashPassword(input.newPassword), passwordChangedAt: new Date() })
-        .where(eq(users.id, user.id));
-      await endResetLinks(tx, user.id);
-    });
+    await changePassword(db, user.id, input.newPassword);
     // A changed password ends every session of the user (OWASP ASVS 5.0 7.4.3) and every reset link; this one gets a new session.
     await auth.invalidateUserSessions(user.id);
     await startSession(auth, req, res, user.id);
@@ -231,15 +170,7 @@ export function authRouter(deps: AppDeps): Router {
     // Answer first, then look the address up and queue the mail: the answer and its timing are
     // the same whether or not the address has an account (OWASP ASVS 5.0 6.3.8).
     res.status(202).json({ ok: true });
-    mail.later('password reset request', async () => {
-      const user = await findUserByEmail(db, input.email);
-      const withinQuota = user ? (await limits.resetByAccount.tryTake(user.id)) === true : false;
-      await audit(db, { action: 'auth.password-reset-requested', actorEmail: input.email, details: { knownAddress: Boolean(user), sent: withinQuota }, req });
-      if (!user || !withinQuota) return;
-      const token = await createResetToken(db, user.id);
-      await enqueueMail(db, passwordResetMail(user.email, `${config.publicUrl}/reset-password?token=${token}`, RESET_VALID_MINUTES));
-      mail.kick();
-    });
+    mail.later('password reset request', () => mailResetLink(deps, input.email, req));
   });
 
   router.post('/password-reset/confirm', async (req, res) => {
@@ -255,14 +186,8 @@ export function authRouter(deps: AppDeps): Router {
     const owner = await liveResetUser(db, tokenHash);
     if (!owner) throw invalid();
     assertStrongPassword(input.password, 'password', owner);
-    const passwordHash = await hashPassword(input.password);
-    const userId = await db.transaction(async (tx) => {
-      const used = await consumeResetToken(tx, tokenHash);
-      if (!used) throw invalid();
-      await tx.update(users).set({ passwordHash, passwordChangedAt: new Date() }).where(eq(users.id, used));
-      await endResetLinks(tx, used);
-      return used;
-    });
+    const userId = await resetPassword(db, tokenHash, input.password);
+    if (!userId) throw invalid();
     await auth.invalidateUserSessions(userId);
     await limits.signInByAccount.succeeded(owner.email);
     await audit(db, { action: 'auth.password-reset', actor: { id: userId, email: owner.email }, details: { allSessionsEnded: true }, req });
@@ -304,7 +229,7 @@ export function authRouter(deps: AppDeps): Router {
     const user = requireUser(res);
     if (user.twoFactor) throw new HttpError(409, 'already_on', 'The second factor is on already. Turn it off first to move it to another app.');
     const input = parseOr400(confirmPasswordSchema, req.body);
-    await assertCurrentPassword(user, input.password, 'password', req);
+    await assertCurrentPassword(deps, user, input.password, 'password', clientAddress(req));
     res.json(await beginTwoFactor(db, user));
   });
 
@@ -312,17 +237,13 @@ export function authRouter(deps: AppDeps): Router {
     const user = requireUser(res);
     if (user.twoFactor) throw new HttpError(409, 'already_on', 'The second factor is on already.');
     const input = parseOr400(enableTwoFactorSchema, req.body);
-    const [row] = await db.select({ secret: users.totpSecret }).from(users).where(eq(users.id, user.id));
-    if (!row?.secret) throw new HttpError(409, 'not_started', 'Start the set-up first: it shows the code to scan.');
+    if (!(await setupStarted(db, user.id))) throw new HttpError(409, 'not_started', 'Start the set-up first: it shows the code to scan.');
     if (!(await acceptCode(db, user.id, input.code))) {
       throw new HttpError(400, 'invalid_code', 'That code is not right. Check the time on your phone and enter the newest code.', {
         issues: [{ path: 'code', message: 'is not right' }],
       });
     }
-    const recoveryCodes = await db.transaction(async (tx) => {
-      await tx.update(users).set({ totpEnabledAt: new Date() }).where(eq(users.id, user.id));
-      return newRecoveryCodes(tx, user.id);
-    });
+    const recoveryCodes = await enableTwoFactor(db, user.id);
     // Sessions opened without the second factor end; this one carries on.
     await endOtherSessions(db, user.id, res.locals.session!.id);
     await audit(db, { action: 'auth.two-factor-on', actor: user, req });
@@ -333,7 +254,7 @@ export function authRouter(deps: AppDeps): Router {
     const user = requireUser(res);
     if (!user.twoFactor) throw new HttpError(409, 'not_on', 'The second factor is off.');
     const input = parseOr400(confirmPasswordSchema, req.body);
-    await assertCurrentPassword(user, input.password, 'password', req);
+    await assertCurrentPassword(deps, user, input.password, 'password', clientAddress(req));
     const recoveryCodes = await newRecoveryCodes(db, user.id);
     await audit(db, { action: 'auth.recovery-codes-renewed', actor: user, req });
     res.json({ recoveryCodes });
@@ -342,7 +263,7 @@ export function authRouter(deps: AppDeps): Router {
   router.post('/two-factor/disable', async (req, res) => {
     const user = requireUser(res);
     const input = parseOr400(confirmPasswordSchema, req.body);
-    await assertCurrentPassword(user, input.password, 'password', req);
+    await assertCurrentPassword(deps, user, input.password, 'password', clientAddress(req));
     await turnOffTwoFactor(db, user.id);
     await audit(db, { action: 'auth.two-factor-off', actor: user, req });
     res.json(await meOf(db, user.id));

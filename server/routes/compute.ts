@@ -1,9 +1,9 @@
 import { Router } from 'express';
-import { ComputeError, runComputeRequest } from '#shared/matching/run-compute';
+import { ComputeError, runComputeRequest } from '#shared/compute/run';
 import { computeRequestSchema } from '#shared/schemas/compute';
 import { clientAddress } from '../auth/session';
 import { HttpError, parseOr400 } from '../http/errors';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 
 /**
  * POST /api/compute: the compute contract, open without sign-in. Rate-limited per client address

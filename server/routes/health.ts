@@ -1,15 +1,11 @@
 import { Router } from 'express';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
+import { databaseStatus } from '../services/health';
 
 export function healthRouter({ pool }: AppDeps): Router {
   const router = Router();
   router.get('/', async (_req, res) => {
-    let database: 'up' | 'down' = 'up';
-    try {
-      await pool.query('SELECT 1');
-    } catch {
-      database = 'down';
-    }
+    const database = await databaseStatus(pool);
     res.status(database === 'up' ? 200 : 503).json({
       status: database === 'up' ? 'ok' : 'degraded',
       server: 'up',

@@ -1,9 +1,9 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
-import { createDraftSchema, imageListQuerySchema, saveDraftSchema, saveTraceToLibrarySchema } from '#shared/tracer/api';
+import { createDraftSchema, imageListQuerySchema, saveDraftSchema } from '#shared/tracer/api';
 import { checkImage, MAX_IMAGE_BYTES, type ImageProblemCode } from '#shared/tracer/image-header';
 import { idSchema } from '#shared/schemas/common';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../app-deps';
 import { countUpload } from '../services/limits';
 import { requireTeamPermission, type TeamAccess } from '../auth/access';
 import { requireUser } from '../auth/session';
@@ -183,7 +183,7 @@ export function tracerRouter({ db, limits }: AppDeps): Router {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, params(req).teamId, 'content:write');
     const draftId = pathId(params(req).draftId, 'trace');
-    const input = parseOr400(saveTraceToLibrarySchema, req.body);
+    const input = parseOr400(saveDraftSchema, req.body);
     const saved = await saveTraceToLibrary(db, { teamId: access.teamId, draftId, baseRevision: input.baseRevision, state: input.state, user, req });
     res.status(201).json(saved);
   });

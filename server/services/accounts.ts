@@ -1,17 +1,18 @@
 import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { User } from 'lucia';
-import type { Me, TeamSummary } from '#shared/schemas/account';
+import type { Me, TeamSummary, updateProfileSchema } from '#shared/schemas/account';
+import type { z } from 'zod';
+import type { AppDeps } from '../app-deps';
 import { hashPassword } from '../auth/passwords';
 import { newId, newToken } from '../auth/tokens';
-import type { Db } from '../db/client';
-import { emailConfirmations, passwordResets, teamMembers, teams, users } from '../db/schema';
+import type { Db, Tx } from '../db/client';
+import { emailConfirmations, teamMembers, teams, users } from '../db/schema';
+import { enqueueMail } from '../mail/queue';
+import { emailConfirmationMail } from '../mail/templates';
 
-export const RESET_VALID_MINUTES = 60;
-export const CONFIRMATION_VALID_HOURS = 48;
+const CONFIRMATION_VALID_HOURS = 48;
 
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
-
-export function publicUser(user: User | typeof users.$inferSelect): Me['user'] {
+function publicUser(user: User | typeof users.$inferSelect): Me['user'] {
   const row = user as Partial<typeof users.$inferSelect> & Partial<User>;
   return {
     id: user.id,
@@ -63,51 +64,23 @@ export async function createAccount(db: Db, input: { email: string; password: st
   });
 }
 
+export async function emailOf(db: Db, userId: string): Promise<string> {
+  const [row] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
+  return row.email;
+}
+
+/** Changes the user's own name or unit system (nothing when `changes` is empty). */
+export async function updateProfile(db: Db, userId: string, changes: z.output<typeof updateProfileSchema>) {
+  if (Object.keys(changes).length > 0) await db.update(users).set(changes).where(eq(users.id, userId));
+}
+
 export async function findUserByEmail(db: Db, email: string) {
   const [user] = await db.select().from(users).where(eq(users.email, email));
   return user ?? null;
 }
 
-/** The user of a reset link that is live (unused, unexpired), without using it. */
-export async function liveResetUser(db: Db, tokenHash: string) {
-  const [row] = await db
-    .select({ userId: users.id, email: users.email, name: users.name })
-    .from(passwordResets)
-    .innerJoin(users, eq(users.id, passwordResets.userId))
-    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())));
-  return row ?? null;
-}
-
-/** Marks a reset token used and returns its user, only if it is unused and unexpired (atomic). */
-export async function consumeResetToken(db: Db | Tx, tokenHash: string): Promise<string | null> {
-  const rows = await db
-    .update(passwordResets)
-    .set({ usedAt: new Date() })
-    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())))
-    .returning({ userId: passwordResets.userId });
-  return rows[0]?.userId ?? null;
-}
-
-/** Ends every reset link of a user that was not used yet (a new one, a reset, a password change). */
-export async function endResetLinks(db: Db | Tx, userId: string) {
-  await db
-    .update(passwordResets)
-    .set({ usedAt: new Date() })
-    .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
-}
-
-/** A new reset link for the user; the earlier one stops working (one live link per user). */
-export async function createResetToken(db: Db, userId: string, validMinutes = RESET_VALID_MINUTES): Promise<string> {
-  const { token, tokenHash } = newToken();
-  await db.transaction(async (tx) => {
-    await endResetLinks(tx, userId);
-    await tx.insert(passwordResets).values({ id: newId(), userId, tokenHash, expiresAt: new Date(Date.now() + validMinutes * 60_000) });
-  });
-  return token;
-}
-
 /** A new confirmation link; earlier ones stop working. */
-export async function createConfirmationToken(db: Db, userId: string): Promise<string> {
+async function createConfirmationToken(db: Db, userId: string): Promise<string> {
   const { token, tokenHash } = newToken();
   await db.transaction(async (tx) => {
     await tx
@@ -117,6 +90,18 @@ export async function createConfirmationToken(db: Db, userId: string): Promise<s
     await tx.insert(emailConfirmations).values({ id: newId(), userId, tokenHash, expiresAt: new Date(Date.now() + CONFIRMATION_VALID_HOURS * 3600_000) });
   });
   return token;
+}
+
+/**
+ * Mails a new confirmation link, at most a few an hour per account (`confirmationsPerAccount`);
+ * false when that many went out already.
+ */
+export async function sendConfirmationLink({ db, config, limits, mail }: Pick<AppDeps, 'db' | 'config' | 'limits' | 'mail'>, userId: string, email: string) {
+  if ((await limits.confirmationByAccount.tryTake(userId)) !== true) return false;
+  const token = await createConfirmationToken(db, userId);
+  await enqueueMail(db, emailConfirmationMail(email, `${config.publicUrl}/confirm-email?token=${token}`, CONFIRMATION_VALID_HOURS));
+  mail.kick();
+  return true;
 }
 
 /** Uses a confirmation link: the user's address is confirmed. Returns the user id, or null for a dead link. */

@@ -1,4 +1,6 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
+import type { Request } from 'express';
+import type { User } from 'lucia';
 import { parseMapFile } from '#shared/maps';
 import { PLAN_MAP_FIELDS, teamArchiveSchema, type TeamArchive } from '#shared/schemas/archive';
 import type { StudyDocument } from '#shared/schemas/study';
@@ -6,11 +8,34 @@ import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
 import { maps, studies, studyRevisions, teamMembers, users } from '../db/schema';
 import { HttpError, issuesOf } from '../http/errors';
+import { audit } from './audit';
 import { BUILTIN_PREFIX, builtinMap } from './builtin-maps';
-import { validDocument } from './studies';
+import { validDocument } from './study-documents';
 
-/** Everything of a team that can leave: maps with their files, studies with every revision. */
-export async function exportTeam(db: Db, teamId: string, teamName: string): Promise<TeamArchive> {
+/** A team's archive as a download: its name says which team and when. */
+export function archiveFileName(teamName: string, exportedAt: string) {
+  const safeName =
+    teamName
+      .replace(/[^A-Za-z0-9._-]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 60) || 'team';
+  return `spoolbook-${safeName}-${exportedAt.slice(0, 10)}.json`;
+}
+
+/** Everything of a team that can leave, recorded as exported: maps with their files, studies with every revision. */
+export async function exportTeam(db: Db, input: { teamId: string; teamName: string; actor: User; req: Request }): Promise<TeamArchive> {
+  const archive = await teamArchive(db, input.teamId, input.teamName);
+  await audit(db, {
+    action: 'team.exported',
+    teamId: input.teamId,
+    actor: input.actor,
+    details: { maps: archive.maps.length, studies: archive.studies.length },
+    req: input.req,
+  });
+  return archive;
+}
+
+async function teamArchive(db: Db, teamId: string, teamName: string): Promise<TeamArchive> {
   const mapRows = await db.select().from(maps).where(eq(maps.teamId, teamId)).orderBy(asc(maps.createdAt), asc(maps.id));
   const studyRows = await db.select().from(studies).where(eq(studies.teamId, teamId)).orderBy(asc(studies.createdAt), asc(studies.id));
   const revisionRows = studyRows.length
@@ -59,7 +84,7 @@ export async function exportTeam(db: Db, teamId: string, teamName: string): Prom
   };
 }
 
-export interface ImportProblem {
+interface ImportProblem {
   /** Which item: `maps[2] "Street wheel"`, `studies[0] "Hill-climb" revision 3`, or `archive`. */
   item: string;
   message: string;
@@ -79,11 +104,18 @@ function remapDocument(doc: StudyDocument, mapIds: Map<string, string>): StudyDo
   };
 }
 
+/** Imports an archive into a team (see `writeArchive`) and records it; answers what came in. */
+export async function importTeam(db: Db, input: { teamId: string; importer: User; raw: unknown; req: Request }) {
+  const counts = await writeArchive(db, input.teamId, input.importer.id, input.raw);
+  await audit(db, { action: 'team.imported', teamId: input.teamId, actor: input.importer, details: counts, req: input.req });
+  return counts;
+}
+
 /**
  * Checks a whole archive first and reports every problem by item; only a clean archive is
  * written, in one transaction, with new ids (map references inside documents follow them).
  */
-export async function importTeam(db: Db, teamId: string, importerId: string, raw: unknown) {
+async function writeArchive(db: Db, teamId: string, importerId: string, raw: unknown) {
   const shape = teamArchiveSchema.safeParse(raw);
   if (!shape.success) {
     const items = issuesOf(shape.error).map((i) => ({ item: 'archive', message: `${i.path}: ${i.message}` }));

@@ -1,10 +1,13 @@
+import { and, desc, eq, lt, type SQL } from 'drizzle-orm';
 import type { Request } from 'express';
 import type { User } from 'lucia';
+import type { z } from 'zod';
+import type { auditQuerySchema } from '#shared/schemas/account';
 import type { Db } from '../db/client';
 import { auditEvents } from '../db/schema';
 import { newId } from '../auth/tokens';
 
-export type AuditAction =
+type AuditAction =
   | 'auth.sign-up'
   | 'auth.sign-in'
   | 'auth.sign-in-failed'
@@ -69,4 +72,18 @@ export async function audit(db: Writer, event: AuditEvent) {
     details: event.details ?? {},
     ip: event.req?.ip ?? null,
   });
+}
+
+/** The newest entries of a team's record, or of the whole site's when `teamId` is null. */
+export async function readAudit(db: Db, teamId: string | null, query: z.output<typeof auditQuerySchema>) {
+  const filters: SQL[] = [];
+  if (teamId) filters.push(eq(auditEvents.teamId, teamId));
+  if (query.before) filters.push(lt(auditEvents.at, new Date(query.before)));
+  const rows = await db
+    .select()
+    .from(auditEvents)
+    .where(filters.length ? and(...filters) : undefined)
+    .orderBy(desc(auditEvents.at))
+    .limit(query.limit);
+  return rows.map((r) => ({ ...r, at: r.at.toISOString() }));
 }

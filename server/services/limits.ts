@@ -58,7 +58,7 @@ const HOUR = 3600;
  * failure makes the next attempt wait twice as long as the last (1 s, 2 s, 4 s …, at most
  * `maxDelaySeconds`). The real user is slowed for a while, never shut out; a success clears it.
  */
-export class GrowingDelay {
+class GrowingDelay {
   private readonly failures: RateLimiterPostgres;
   private readonly wait: RateLimiterPostgres;
 
@@ -92,7 +92,7 @@ export class GrowingDelay {
 }
 
 /** A plain count per key and window; past it, 429 with Retry-After. */
-export class Quota {
+class Quota {
   private readonly limiter: RateLimiterPostgres;
 
   constructor(
@@ -204,4 +204,19 @@ export function countUpload(limits: Limits): RequestHandler {
     if (!user) return next(new HttpError(401, 'unauthorized', 'Sign in to continue.'));
     limits.uploadByUser.take(user.id).then(() => next(), next);
   };
+}
+
+/** Sign-in failures slow down, per account and per address, with growing delays (never a lockout): 429 while either waits. */
+export async function assertSignInAllowed(limits: Limits, email: string, address: string) {
+  const [account, from] = await Promise.all([limits.signInByAccount.waitMs(email), limits.signInByAddress.waitMs(address)]);
+  if (account > 0) throw tooMany('Several wrong sign-ins for this account in a row.', account);
+  if (from > 0) throw tooMany('Several wrong sign-ins from your address in a row.', from);
+}
+
+export async function signInFailed(limits: Limits, email: string, address: string) {
+  await Promise.all([limits.signInByAccount.failed(email), limits.signInByAddress.failed(address)]);
+}
+
+export async function signInSucceeded(limits: Limits, email: string, address: string) {
+  await Promise.all([limits.signInByAccount.succeeded(email), limits.signInByAddress.succeeded(address)]);
 }

@@ -18,7 +18,7 @@ export interface SessionView {
 }
 
 /** "Firefox 128 on Linux" from a User-Agent header; "Unknown browser" when there is none. */
-export function describeBrowser(userAgent: string | null): string {
+function describeBrowser(userAgent: string | null): string {
   if (!userAgent) return 'Unknown browser';
   const parsed = Bowser.parse(userAgent);
   const name = parsed.browser.name ? `${parsed.browser.name}${parsed.browser.version ? ` ${parsed.browser.version.split('.')[0]}` : ''}` : null;
@@ -62,6 +62,14 @@ export async function endOtherSessions(db: Db, userId: string, currentSessionId:
     .where(and(eq(sessions.userId, userId), ne(sessions.id, hashToken(currentSessionId))))
     .returning({ id: sessions.id });
   return rows.length;
+}
+
+/** Notes when and from which address a session was last used (shown on the Sessions page). */
+export async function noteSessionUse(db: Db, sessionId: string, ip: string) {
+  await db
+    .update(sessions)
+    .set({ lastSeenAt: new Date(), ip })
+    .where(eq(sessions.id, hashToken(sessionId)));
 }
 
 export async function endAllSessions(db: Db, userId: string): Promise<number> {

@@ -1,107 +1,197 @@
-import { and, eq, inArray } from 'drizzle-orm';
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { writeCsv } from '#shared/csv';
-import type { SpoolbookMap } from '#shared/maps/types';
-import { runStudyDocument } from '#shared/study/run';
-import { resultRecords } from '#shared/matching/results-table';
-import { studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
-import { readStudyDocument, studyMapIds } from '#shared/study/document';
+import { and, count, desc, eq, ilike, or, sql } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
+import type { Request } from 'express';
+import type { User } from 'lucia';
+import type { z } from 'zod';
+import type { StudyDocument, studyListQuerySchema, updateStudyMetaSchema } from '#shared/schemas/study';
+import { can, type TeamAccess } from '../auth/access';
+import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
-import { maps, studies, users } from '../db/schema';
-import { HttpError } from '../http/errors';
-import { builtinMap, BUILTIN_PREFIX } from './builtin-maps';
+import { studies, studyRevisions, users } from '../db/schema';
+import { HttpError, notFound } from '../http/errors';
+import { audit } from './audit';
+import { likePattern } from './text-search';
+import { assertMapsUsable, demoStudyDocument, mapsOfStudy, resultsCsv, storedDocument, validDocument } from './study-documents';
 
-const demoDir = fileURLToPath(new URL('../../data/demo/', import.meta.url));
+/** A team's studies: list, read, create, save a revision (refusing a stale one), rename, duplicate, delete. */
 
-/** The invented demo study documents shipped in data/demo/, by file name. */
-export const DEMO_STUDY_FILES = { compressor: 'hillclimb-study.json', turbineHousing: 'turbine-housing-study.json' } as const;
+const creator = alias(users, 'creator');
+const updater = alias(users, 'updater');
 
-/** An invented demo study document (by default the compressor study new studies start from). */
-export function demoStudyDocument(file: string = DEMO_STUDY_FILES.compressor): StudyDocument {
-  return studyDocumentSchema.parse(JSON.parse(readFileSync(path.join(demoDir, file), 'utf8')));
-}
-
-/**
- * Checks a document from a client (or an older stored one) and returns it at the current version,
- * or throws a 400 whose issue paths start with `document.`.
- */
-export function validDocument(raw: unknown): StudyDocument {
-  const read = readStudyDocument(raw);
-  if (read.ok) return read.document;
-  const issues = read.issues.map((i) => ({ path: i.path ? `document.${i.path}` : 'document', message: i.message }));
-  throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
-}
-
-/**
- * Plans may only name maps of the same team (or built-in ones): a compressor map as the
- * compressor's, a turbine map as the exhaust side's.
- */
-export async function assertMapsUsable(db: Db, teamId: string, doc: StudyDocument) {
-  const ids = studyMapIds(doc.plans);
-  const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
-  const found = teamIds.length
-    ? await db
-        .select({ id: maps.id, kind: maps.kind })
-        .from(maps)
-        .where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)))
-    : [];
-  const kinds = new Map(found.map((m) => [m.id, m.kind]));
-  const kindOf = (id: string) => (id.startsWith(BUILTIN_PREFIX) ? builtinMap(id)?.map.kind : kinds.get(id));
-  const issues: { path: string; message: string }[] = [];
-  doc.plans.forEach((p, i) => {
-    const id = p.compressorMapId;
-    if (id) {
-      const kind = kindOf(id);
-      if (!kind) issues.push({ path: `document.plans.${i}.compressorMapId`, message: "no such map in this team's library" });
-      else if (kind !== 'compressor')
-        issues.push({ path: `document.plans.${i}.compressorMapId`, message: "is a turbine map; a plan's compressor needs a compressor map" });
-    }
-    const turbineId = p.turbineMapId;
-    if (turbineId) {
-      const kind = kindOf(turbineId);
-      if (!kind) issues.push({ path: `document.plans.${i}.turbineMapId`, message: "no such map in this team's library" });
-      else if (kind !== 'turbine')
-        issues.push({ path: `document.plans.${i}.turbineMapId`, message: "is a compressor map; a plan's exhaust side needs a turbine map" });
-    }
-  });
-  if (issues.length) throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
-}
-
-/** The parsed maps a study's plans use (compressor and turbine), by id. */
-export async function mapsOfStudy(db: Db, teamId: string, doc: StudyDocument): Promise<Record<string, SpoolbookMap>> {
-  const ids = studyMapIds(doc.plans);
-  const out: Record<string, SpoolbookMap> = {};
-  for (const id of ids) {
-    if (id.startsWith(BUILTIN_PREFIX)) {
-      const b = builtinMap(id);
-      if (b) out[id] = b.map;
-    }
-  }
-  const teamIds = ids.filter((id) => !id.startsWith(BUILTIN_PREFIX));
-  if (teamIds.length) {
-    const rows = await db
-      .select({ id: maps.id, parsed: maps.parsed })
-      .from(maps)
-      .where(and(eq(maps.teamId, teamId), inArray(maps.id, teamIds)));
-    for (const r of rows) out[r.id] = r.parsed as SpoolbookMap;
-  }
-  return out;
-}
-
-/** The results of a study as CSV (SI, units in the headers), spreadsheet formulas neutralised. */
-export function resultsCsv(doc: StudyDocument, mapsById: Record<string, SpoolbookMap>): string {
-  const result = runStudyDocument(doc, mapsById);
-  const { fields, data } = resultRecords(result);
-  return writeCsv(fields, data);
-}
-
-export async function studyAuthors(db: Db, teamId: string) {
+async function studyAuthors(db: Db, teamId: string) {
   const rows = await db
     .selectDistinct({ id: users.id, name: users.name })
     .from(studies)
     .innerJoin(users, eq(users.id, studies.createdBy))
     .where(eq(studies.teamId, teamId));
   return rows.sort((a, b) => a.name.localeCompare(b.name));
+}
+
+/** One page of a team's studies, newest change first, with the authors to filter by. */
+export async function listStudies(db: Db, teamId: string, q: z.output<typeof studyListQuerySchema>) {
+  const filters = [eq(studies.teamId, teamId)];
+  if (q.archived !== 'all') filters.push(eq(studies.archived, q.archived === 'true'));
+  if (q.author) filters.push(eq(studies.createdBy, q.author));
+  if (q.q) filters.push(or(ilike(studies.title, likePattern(q.q)), ilike(studies.engineLabel, likePattern(q.q)))!);
+  const where = and(...filters);
+  const [{ n }] = await db.select({ n: count() }).from(studies).where(where);
+  const rows = await db
+    .select({
+      id: studies.id,
+      title: studies.title,
+      engineLabel: studies.engineLabel,
+      revision: studies.revision,
+      archived: studies.archived,
+      createdBy: creator.name,
+      updatedBy: updater.name,
+      updatedAt: studies.updatedAt,
+    })
+    .from(studies)
+    .leftJoin(creator, eq(creator.id, studies.createdBy))
+    .leftJoin(updater, eq(updater.id, studies.updatedBy))
+    .where(where)
+    .orderBy(desc(studies.updatedAt), desc(studies.id))
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize);
+  return {
+    studies: rows.map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString() })),
+    total: n,
+    page: q.page,
+    pageSize: q.pageSize,
+    authors: await studyAuthors(db, teamId),
+  };
+}
+
+/** A study of the team with the names of who made it and who last changed it; 404 for any other. */
+export async function loadStudy(db: Db, teamId: string, studyId: string) {
+  const [row] = await db
+    .select({ study: studies, createdBy: creator.name, updatedBy: updater.name })
+    .from(studies)
+    .leftJoin(creator, eq(creator.id, studies.createdBy))
+    .leftJoin(updater, eq(updater.id, studies.updatedBy))
+    .where(and(eq(studies.id, studyId), eq(studies.teamId, teamId)));
+  if (!row) throw notFound('No such study in this team.');
+  return row;
+}
+
+/** A study as the API answers it, with whether `user` may change it. */
+export async function studyDetail(db: Db, access: TeamAccess, user: User, studyId: string) {
+  const row = await loadStudy(db, access.teamId, studyId);
+  const s = row.study;
+  return {
+    id: s.id,
+    teamId: s.teamId,
+    title: s.title,
+    engineLabel: s.engineLabel,
+    revision: s.revision,
+    archived: s.archived,
+    createdBy: row.createdBy,
+    updatedBy: row.updatedBy,
+    createdAt: s.createdAt.toISOString(),
+    updatedAt: s.updatedAt.toISOString(),
+    document: storedDocument(s.document),
+    canEdit: can(access.role, 'content:write', user.isAdmin),
+  };
+}
+
+/** A new study at revision 1 with its first revision row, in one transaction. */
+export async function insertStudy(db: Db, input: { teamId: string; userId: string; title: string; document: StudyDocument; message: string }) {
+  const { teamId, userId, title, document, message } = input;
+  const id = newId();
+  await db.transaction(async (tx) => {
+    await tx.insert(studies).values({ id, teamId, title, engineLabel: document.engineLabel, document, createdBy: userId, updatedBy: userId });
+    await tx.insert(studyRevisions).values({ studyId: id, revision: 1, document, title, message, authorId: userId });
+  });
+  return id;
+}
+
+/** A new study from the given document, or from the demo study when none is given. */
+export async function createStudy(db: Db, input: { access: TeamAccess; user: User; title: string; document?: unknown }) {
+  const { access, user } = input;
+  const document = input.document === undefined ? demoStudyDocument() : validDocument(input.document);
+  await assertMapsUsable(db, access.teamId, document);
+  const message = input.document === undefined ? 'Started from the demo study' : 'Created';
+  const id = await insertStudy(db, { teamId: access.teamId, userId: user.id, title: input.title, document, message });
+  return studyDetail(db, access, user, id);
+}
+
+export async function duplicateStudy(db: Db, input: { access: TeamAccess; user: User; studyId: string; title?: string }) {
+  const { access, user } = input;
+  const source = await loadStudy(db, access.teamId, input.studyId);
+  const document = validDocument(source.study.document);
+  const title = input.title ?? `${source.study.title} (copy)`.slice(0, 120);
+  const message = `Copied from "${source.study.title}" revision ${source.study.revision}`;
+  const id = await insertStudy(db, { teamId: access.teamId, userId: user.id, title, document, message });
+  return studyDetail(db, access, user, id);
+}
+
+/**
+ * Saves `document` as the next revision if nobody saved since `baseRevision`; otherwise 409 with
+ * the newer study, so that two people saving the same revision never lose work silently.
+ */
+export async function saveRevision(
+  db: Db,
+  input: { access: TeamAccess; user: User; studyId: string; baseRevision: number; document: StudyDocument; message: string },
+) {
+  const { access, user, studyId, baseRevision, document, message } = input;
+  const saved = await db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(studies)
+      .set({ document, engineLabel: document.engineLabel, revision: sql`${studies.revision} + 1`, updatedBy: user.id, updatedAt: new Date() })
+      .where(and(eq(studies.id, studyId), eq(studies.teamId, access.teamId), eq(studies.revision, baseRevision)))
+      .returning({ revision: studies.revision, title: studies.title });
+    if (!row) return false;
+    await tx.insert(studyRevisions).values({ studyId, revision: row.revision, document, title: row.title, message, authorId: user.id });
+    return true;
+  });
+  if (!saved) {
+    const current = await studyDetail(db, access, user, studyId); // 404 when it does not exist
+    throw new HttpError(
+      409,
+      'stale_revision',
+      `Someone saved this study since you opened it (revision ${current.revision} by ${current.updatedBy ?? 'someone'}; you started from ${baseRevision}). Reload to see their work, or keep yours as a copy.`,
+      { current },
+    );
+  }
+  return studyDetail(db, access, user, studyId);
+}
+
+/** A document from the client, checked, saved as the next revision of the study. */
+export async function saveStudy(db: Db, input: { access: TeamAccess; user: User; studyId: string; baseRevision: number; document: unknown; message: string }) {
+  const document = validDocument(input.document);
+  await assertMapsUsable(db, input.access.teamId, document);
+  return saveRevision(db, { ...input, document });
+}
+
+/** Renames or archives a study (no new revision: the document is unchanged). */
+export async function updateStudyMeta(db: Db, input: { access: TeamAccess; user: User; studyId: string; changes: z.output<typeof updateStudyMetaSchema> }) {
+  const { access, user, studyId } = input;
+  const rows = await db
+    .update(studies)
+    .set({ ...input.changes, updatedAt: new Date(), updatedBy: user.id })
+    .where(and(eq(studies.id, studyId), eq(studies.teamId, access.teamId)))
+    .returning({ id: studies.id });
+  if (rows.length === 0) throw notFound('No such study in this team.');
+  return studyDetail(db, access, user, studyId);
+}
+
+export async function deleteStudy(db: Db, input: { teamId: string; studyId: string; actor: User; req: Request }) {
+  const { teamId, studyId, actor, req } = input;
+  const rows = await db.transaction(async (tx) => {
+    const deleted = await tx
+      .delete(studies)
+      .where(and(eq(studies.id, studyId), eq(studies.teamId, teamId)))
+      .returning({ id: studies.id, title: studies.title });
+    if (deleted.length)
+      await audit(tx, { action: 'study.deleted', teamId, actor, targetType: 'study', targetId: deleted[0].id, details: { title: deleted[0].title }, req });
+    return deleted;
+  });
+  if (rows.length === 0) throw notFound('No such study in this team.');
+}
+
+/** The results of a team's study as CSV, with the revision they were computed from. */
+export async function studyResultsCsv(db: Db, teamId: string, studyId: string) {
+  const { study } = await loadStudy(db, teamId, studyId);
+  const document = validDocument(study.document);
+  return { csv: resultsCsv(document, await mapsOfStudy(db, teamId, document)), revision: study.revision };
 }

@@ -1,88 +1,101 @@
-import { and, asc, count, eq, gt, inArray, isNull } from 'drizzle-orm';
-import type { Invitation, Member, Role } from '#shared/schemas/account';
+import { eq } from 'drizzle-orm';
+import type { Request } from 'express';
+import type { User } from 'lucia';
+import type { TeamSummary } from '#shared/schemas/account';
+import type { TeamAccess } from '../auth/access';
+import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
-import { invitations, shareLinks, studies, teamMembers, teams, users } from '../db/schema';
+import { teamMembers, teams } from '../db/schema';
 import { HttpError } from '../http/errors';
+import { teamsOf } from './accounts';
+import { audit } from './audit';
+import { pendingInvitationsOf } from './invitations';
+import { membersOf } from './members';
 
-export const INVITATION_VALID_DAYS = 7;
+/** Teams: the ones a user sees, creating, renaming, the second-factor rule, deleting. */
 
-export async function membersOf(db: Db, teamId: string): Promise<Member[]> {
-  const rows = await db
-    .select({ userId: users.id, email: users.email, name: users.name, role: teamMembers.role, joinedAt: teamMembers.createdAt })
-    .from(teamMembers)
-    .innerJoin(users, eq(users.id, teamMembers.userId))
-    .where(eq(teamMembers.teamId, teamId))
-    .orderBy(asc(users.name));
-  return rows.map((r) => ({ ...r, joinedAt: r.joinedAt.toISOString() }));
+/** A team as the API answers it, from the access just checked. */
+function teamView(access: TeamAccess, changes: Partial<Pick<TeamSummary, 'name' | 'requireTwoFactor'>> = {}) {
+  return { id: access.teamId, name: access.teamName, personal: access.personal, role: access.role, requireTwoFactor: access.requireTwoFactor, ...changes };
 }
 
-export async function pendingInvitationsOf(db: Db, teamId: string): Promise<Invitation[]> {
-  const rows = await db
-    .select({
-      id: invitations.id,
-      email: invitations.email,
-      role: invitations.role,
-      invitedBy: users.name,
-      createdAt: invitations.createdAt,
-      expiresAt: invitations.expiresAt,
-    })
-    .from(invitations)
-    .innerJoin(users, eq(users.id, invitations.invitedBy))
-    .where(and(eq(invitations.teamId, teamId), isNull(invitations.acceptedAt), isNull(invitations.cancelledAt), gt(invitations.expiresAt, new Date())))
-    .orderBy(asc(invitations.createdAt));
-  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), expiresAt: r.expiresAt.toISOString() }));
+/** The user's teams; a site admin sees every team, with their role where they are a member. */
+export async function visibleTeams(db: Db, user: User) {
+  const mine = await teamsOf(db, user.id);
+  if (!user.isAdmin) return mine;
+  const all = await db
+    .select({ id: teams.id, name: teams.name, personal: teams.personal, requireTwoFactor: teams.requireTwoFactor })
+    .from(teams)
+    .orderBy(teams.name);
+  const roles = new Map(mine.map((t) => [t.id, t.role]));
+  return all.map((t) => ({ ...t, role: roles.get(t.id) ?? null }));
 }
 
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+/** A new team with its maker as the owner. */
+export async function createTeam(db: Db, input: { name: string; owner: User; req: Request }): Promise<TeamSummary> {
+  const { name, owner, req } = input;
+  const id = newId();
+  await db.transaction(async (tx) => {
+    await tx.insert(teams).values({ id, name, personal: false });
+    await tx.insert(teamMembers).values({ teamId: id, userId: owner.id, role: 'owner' });
+    await audit(tx, { action: 'team.created', teamId: id, actor: owner, targetType: 'team', targetId: id, details: { name }, req });
+  });
+  return { id, name, personal: false, role: 'owner', requireTwoFactor: false };
+}
 
-/**
- * Refuses a change that would leave a team without an owner. Runs inside the transaction that
- * makes the change. It first locks the team's row: every change of membership in a team takes
- * that one lock first, so such changes run one after the other. (Locking member rows alone let
- * two owners demoting each other lock them in opposite orders: a deadlock, answered 500.)
- */
-export async function assertOwnerRemains(tx: Tx, teamId: string, userId: string, newRole: Role | null, actingOwnerId: string | null = null) {
-  await tx.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for('update');
-  if (actingOwnerId) {
-    // The actor's role was checked before the lock; a change that ran first may have taken it away.
-    const [actor] = await tx
-      .select({ role: teamMembers.role })
-      .from(teamMembers)
-      .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, actingOwnerId)));
-    if (actor?.role !== 'owner') throw new HttpError(403, 'forbidden', 'You are no longer an owner of this team.');
+/** The team page: the team, its members, and (for owners) its pending invitations. */
+export async function teamDetail(db: Db, access: TeamAccess) {
+  return {
+    team: teamView(access),
+    members: await membersOf(db, access.teamId),
+    invitations: access.role === 'owner' ? await pendingInvitationsOf(db, access.teamId) : [],
+  };
+}
+
+export async function renameTeam(db: Db, input: { access: TeamAccess; name: string; actor: User; req: Request }) {
+  const { access, name, actor, req } = input;
+  await db.update(teams).set({ name }).where(eq(teams.id, access.teamId));
+  await audit(db, {
+    action: 'team.renamed',
+    teamId: access.teamId,
+    actor,
+    targetType: 'team',
+    targetId: access.teamId,
+    details: { from: access.teamName, to: name },
+    req,
+  });
+  return teamView(access, { name });
+}
+
+/** An owner asks every member to use a second factor (or stops asking); only with one of their own. */
+export async function setTwoFactorRule(db: Db, input: { access: TeamAccess; required: boolean; actor: User; req: Request }) {
+  const { access, required, actor, req } = input;
+  if (required && !actor.twoFactor) {
+    throw new HttpError(
+      400,
+      'two_factor_needed',
+      'Turn on your own second factor first (Account → Second factor), or you would lock yourself out of this team.',
+    );
   }
-  const [member] = await tx
-    .select({ role: teamMembers.role })
-    .from(teamMembers)
-    .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)))
-    .for('update');
-  if (!member) throw new HttpError(404, 'not_found', 'No such member in this team.');
-  if (member.role !== 'owner' || newRole === 'owner') return;
-  const owners = await tx
-    .select({ userId: teamMembers.userId })
-    .from(teamMembers)
-    .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, 'owner')))
-    .for('update');
-  if (owners.length <= 1) {
-    throw new HttpError(409, 'last_owner', 'A team needs at least one owner. Make someone else an owner first.');
-  }
+  await db.update(teams).set({ requireTwoFactor: required }).where(eq(teams.id, access.teamId));
+  await audit(db, { action: 'team.two-factor-rule', teamId: access.teamId, actor, targetType: 'team', targetId: access.teamId, details: { required }, req });
+  return teamView(access, { requireTwoFactor: required });
 }
 
-export async function memberCount(db: Db, teamId: string) {
-  const [row] = await db.select({ n: count() }).from(teamMembers).where(eq(teamMembers.teamId, teamId));
-  return row.n;
-}
-
-/**
- * When someone leaves a team (or is removed), the share links they made for its studies stop,
- * except those an owner chose to keep. Runs in the transaction of the leaving.
- */
-export async function revokeShareLinksOfLeaver(tx: Tx, teamId: string, userId: string): Promise<number> {
-  const teamStudies = tx.select({ id: studies.id }).from(studies).where(eq(studies.teamId, teamId));
-  const rows = await tx
-    .update(shareLinks)
-    .set({ revokedAt: new Date() })
-    .where(and(eq(shareLinks.createdBy, userId), isNull(shareLinks.revokedAt), isNull(shareLinks.keptBy), inArray(shareLinks.studyId, teamStudies)))
-    .returning({ id: shareLinks.id });
-  return rows.length;
+/** Deletes a team with everything in it (never a personal team). */
+export async function deleteTeam(db: Db, input: { access: TeamAccess; actor: User; req: Request }) {
+  const { access, actor, req } = input;
+  if (access.personal) throw new HttpError(400, 'personal_team', 'A personal team cannot be deleted.');
+  await db.transaction(async (tx) => {
+    await tx.delete(teams).where(eq(teams.id, access.teamId));
+    await audit(tx, {
+      action: 'team.deleted',
+      teamId: access.teamId,
+      actor,
+      targetType: 'team',
+      targetId: access.teamId,
+      details: { name: access.teamName },
+      req,
+    });
+  });
 }

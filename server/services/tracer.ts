@@ -208,7 +208,7 @@ export async function deleteDraft(db: Db, teamId: string, draftId: string): Prom
   });
 }
 
-export class InvalidTracedFile extends HttpError {
+class InvalidTracedFile extends HttpError {
   constructor(problems: MapProblem[]) {
     const n = problems.length;
     super(400, 'invalid_map_file', `The traced map file has ${n} problem${n === 1 ? '' : 's'}; nothing was saved.`, { problems });

@@ -3,7 +3,7 @@ import { generateSecret, generateURI, verify } from 'otplib';
 import QRCode from 'qrcode';
 import { randomInt } from 'node:crypto';
 import { hashToken, newId, newToken } from '../auth/tokens';
-import type { Db } from '../db/client';
+import type { Db, Tx } from '../db/client';
 import { recoveryCodes, signInChallenges, users } from '../db/schema';
 
 /**
@@ -15,10 +15,8 @@ import { recoveryCodes, signInChallenges, users } from '../db/schema';
 const ISSUER = 'Spoolbook';
 const RECOVERY_CODE_COUNT = 10;
 /** How long the step between password and code may take, and how many codes may be tried in it. */
-export const CHALLENGE_MINUTES = 5;
-export const CHALLENGE_ATTEMPTS = 5;
-
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+const CHALLENGE_MINUTES = 5;
+const CHALLENGE_ATTEMPTS = 5;
 
 /** Starts setting up (or again): a new secret, kept aside until a code from it is shown. */
 export async function beginTwoFactor(db: Db, user: { id: string; email: string }) {
@@ -62,7 +60,7 @@ export async function newRecoveryCodes(db: Db | Tx, userId: string): Promise<str
 }
 
 /** Uses one recovery code, once. */
-export async function useRecoveryCode(db: Db | Tx, userId: string, code: string): Promise<boolean> {
+async function useRecoveryCode(db: Db | Tx, userId: string, code: string): Promise<boolean> {
   const normal = code.trim().toLowerCase();
   if (!/^[a-z0-9]{5}-[a-z0-9]{5}$/.test(normal)) return false;
   const rows = await db
@@ -114,4 +112,18 @@ export async function endChallenge(db: Db, token: string) {
 export async function turnOffTwoFactor(db: Db | Tx, userId: string) {
   await db.update(users).set({ totpSecret: null, totpEnabledAt: null, totpLastStep: null }).where(eq(users.id, userId));
   await db.delete(recoveryCodes).where(eq(recoveryCodes.userId, userId));
+}
+
+/** Whether the set-up was started: a secret waits for its first code. */
+export async function setupStarted(db: Db, userId: string): Promise<boolean> {
+  const [row] = await db.select({ secret: users.totpSecret }).from(users).where(eq(users.id, userId));
+  return Boolean(row?.secret);
+}
+
+/** Turns the second factor on and makes the first recovery codes, in one transaction. */
+export async function enableTwoFactor(db: Db, userId: string): Promise<string[]> {
+  return db.transaction(async (tx) => {
+    await tx.update(users).set({ totpEnabledAt: new Date() }).where(eq(users.id, userId));
+    return newRecoveryCodes(tx, userId);
+  });
 }

@@ -1,5 +1,5 @@
 import { AIR_GAMMA, isentropicExponent } from '../physics/gas';
-import type { MarginBasis, SpeedBasis } from '../matching/compressor-model';
+import type { MarginBasis, SpeedBasis } from '../matching/compressor/model';
 import { flowByPressureRatio, pressureRatioByFlow, type PiecewiseLinear } from './margins';
 import type { CompressorCurve, CompressorMap } from './types';
 

@@ -1,4 +1,4 @@
-import type { CompressorFileUnits, CompressorMap, MapReferenceConditions, SpoolbookMap, TurbineFileUnits, TurbineMap } from './types';
+import type { CompressorFileUnits, CompressorMap, MapReferenceConditions, SpoolbookMap } from './types';
 import { readUnit, type MapQuantity } from './units';
 
 /**
@@ -36,14 +36,6 @@ export function withCompressorFileUnits(map: CompressorMap, units: Partial<Compr
   checkedUnit(next.referencePressureUnit, 'pressure', 'fileUnits.referencePressureUnit');
   checkedUnit(next.speedUnit, 'speed', 'fileUnits.speedUnit');
   checkedUnit(next.maxSpeedUnit, 'speed', 'fileUnits.maxSpeedUnit');
-  return { ...map, fileUnits: next };
-}
-
-/** The same turbine map, to be written in other units (the SI content is unchanged). */
-export function withTurbineFileUnits(map: TurbineMap, units: Partial<TurbineFileUnits>): TurbineMap {
-  const next = { ...map.fileUnits, ...units };
-  checkedUnit(next.flowParameterUnit, 'flowParameter', 'fileUnits.flowParameterUnit');
-  checkedUnit(next.speedUnit, 'speed', 'fileUnits.speedUnit');
   return { ...map, fileUnits: next };
 }
 

@@ -102,10 +102,6 @@ export const ALL_HEADER_KEYS: readonly string[] = Object.values(HEADER_KEYS);
 export const EFFICIENCY_SCALES = ['percent', 'fraction'] as const;
 export type EfficiencyScale = (typeof EFFICIENCY_SCALES)[number];
 
-/** Flow axes of a compressor file: corrected mass flow, or volume flow at the reference inlet density. */
-export const FLOW_AXES = ['corrected mass', 'volume'] as const;
-export type FlowAxisWord = (typeof FLOW_AXES)[number];
-
 export const HOUSINGS = ['single', 'divided'] as const;
 export type Housing = (typeof HOUSINGS)[number];
 
@@ -143,6 +139,3 @@ export const UNIT_EXAMPLES = {
   speed: ['rpm', 'krpm'],
   flowParameter: ['kg/s K^0.5 / kPa', 'kg/s K^0.5 / Pa', 'lb/min degR^0.5 / psi'],
 } as const;
-
-/** Default unit of the speed column when the `speed` header key is absent. */
-export const DEFAULT_SPEED_UNIT = 'rpm';

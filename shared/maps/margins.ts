@@ -54,21 +54,6 @@ export function piecewiseLinear(xs: readonly number[], ys: readonly number[]): P
   };
 }
 
-/** (ṁc − ṁc,surge) / ṁc; both corrected mass flows in kg/s at the map's reference. */
-export function surgeMargin(correctedMassFlow: number, surgeFlow: number): number {
-  return (correctedMassFlow - surgeFlow) / correctedMassFlow;
-}
-
-/** (ṁc,choke − ṁc) / ṁc; both corrected mass flows in kg/s at the map's reference. */
-export function chokeMargin(correctedMassFlow: number, chokeFlow: number): number {
-  return (chokeFlow - correctedMassFlow) / correctedMassFlow;
-}
-
-/** (Nmax − N) / Nmax; both shaft speeds in rpm. */
-export function speedMargin(shaftSpeed: number, maxSpeed: number): number {
-  return (maxSpeed - shaftSpeed) / maxSpeed;
-}
-
 /** Corrected mass flow (kg/s) of a surge or choke line as a function of pressure ratio. */
 export function flowByPressureRatio(curve: CompressorCurve): PiecewiseLinear {
   return piecewiseLinear(

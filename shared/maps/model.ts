@@ -1,4 +1,4 @@
-import type { CompressorModel, CompressorReading } from '../matching/compressor-model';
+import type { CompressorModel, CompressorReading } from '../matching/compressor/model';
 import { mergeCoincidentPoints } from './coincident';
 import { triangulate, type TriangulatedSurface } from './interpolate';
 import { chokeMarginAt, locateAgainstBoundary, mapBoundary, speedOutside, surgeMarginAt } from './boundary';

@@ -1,4 +1,4 @@
-import type { TurbineAtSpeed, TurbineModel, TurbineReading } from '../matching/exhaust-model';
+import type { TurbineAtSpeed, TurbineModel, TurbineReading } from '../matching/exhaust/model';
 import { criticalPressureRatio } from '../physics/gas';
 import { TURBINE_GAS } from '../physics/turbine';
 import { orificeFlowFunction } from '../physics/wastegate';

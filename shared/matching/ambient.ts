@@ -1,21 +1,18 @@
-import { humidAirGas, humidityRatioFromRelativeHumidity, isaPressure, isaTemperature, type ChargeGas } from '../physics';
-import type { AmbientInput, LineContext } from './types';
+/** A Scenario's ambient as a line is computed with it: the ISA filled in, and the gas its air makes. */
+import { ambientConditions, humidAirGas, humidityRatioFromRelativeHumidity, type AmbientConditions, type ChargeGas } from '../physics';
+import type { AmbientInput } from './input/ambient';
+
+/** A Scenario's ambient resolved: pressure (Pa absolute) and temperature (K) with where each came from. */
+export interface ResolvedAmbient extends AmbientConditions {
+  input: AmbientInput;
+  /** Relative humidity, fraction (0 when not given). */
+  relativeHumidity: number;
+}
 
 /** Ambient pressure (Pa) and temperature (K) of a Scenario, filling from the ISA what is not given. */
-export function resolveAmbient(input: AmbientInput): LineContext['ambient'] {
-  const relativeHumidity = input.relativeHumidity ?? 0;
-  if (input.altitude !== undefined) {
-    const temperature = input.temperature ?? isaTemperature(input.altitude);
-    return {
-      input,
-      pressure: isaPressure(input.altitude),
-      temperature,
-      pressureFrom: 'isa',
-      temperatureFrom: input.temperature === undefined ? 'isa' : 'given',
-      relativeHumidity,
-    };
-  }
-  return { input, pressure: input.pressure, temperature: input.temperature, pressureFrom: 'given', temperatureFrom: 'given', relativeHumidity };
+export function resolveAmbient(input: AmbientInput): ResolvedAmbient {
+  const { pressure, temperature, pressureFrom, temperatureFrom } = ambientConditions(input);
+  return { input, pressure, temperature, pressureFrom, temperatureFrom, relativeHumidity: input.relativeHumidity ?? 0 };
 }
 
 /**
@@ -23,6 +20,6 @@ export function resolveAmbient(input: AmbientInput): LineContext['ambient'] {
  * air of the humidity ratio the ambient state gives (ASHRAE 2017 ch. 1, psychrolib). Its gas
  * constant is NaN where the air cannot hold that humidity (the line is then not solved).
  */
-export function chargeGasOf(ambient: LineContext['ambient']): ChargeGas {
+export function chargeGasOf(ambient: ResolvedAmbient): ChargeGas {
   return humidAirGas(humidityRatioFromRelativeHumidity(ambient.temperature, ambient.pressure, ambient.relativeHumidity));
 }

@@ -1,10 +1,14 @@
 /**
  * Findings: what a point's numbers mean for the build, each with a severity. Thresholds are named
  * constants with where they come from; "limit" is reserved for hard limits (surge, overspeed,
- * injector saturation, the builder's own limits).
+ * injector saturation, the builder's own limits). The compressor's own findings are in
+ * compressor/findings.ts, the exhaust side's in exhaust/findings.ts.
  */
-import { REQUIREMENT_DEFAULTS } from './requirements';
-import type { Finding, FindingCode, LineContext, MapRegion, PointValues, Severity } from './types';
+import { compressorFindings, outletTemperatureFindings } from './compressor/findings';
+import { finding, type Finding } from './finding';
+import { REQUIREMENT_DEFAULTS } from './input/requirements';
+import type { LineContext } from './line-context';
+import type { PointValues } from './result';
 import { fmt, kelvin, pct, type WorkingKind } from './working';
 
 /** Injector duty above which a warning is raised, fraction (common practice, no source). */
@@ -12,120 +16,19 @@ export const INJECTOR_DUTY_WARNING = 0.8;
 /** Injector duty above which the point is at its limit, fraction (common practice, no source). */
 export const INJECTOR_DUTY_LIMIT = 0.85;
 /** Injector duty at which the injectors are open all the time (saturated), fraction (definition). */
-export const INJECTOR_DUTY_SATURATED = 1;
+const INJECTOR_DUTY_SATURATED = 1;
 /** Share of the pump's flow above which a warning is raised, fraction (common practice, no source). */
-export const FUEL_PUMP_WARNING = 0.9;
+const FUEL_PUMP_WARNING = 0.9;
 /** Usual range of volumetric efficiency referred to manifold density, fraction (common practice, no source). */
-export const VOLUMETRIC_EFFICIENCY_RANGE = [0.3, 1.3] as const;
+const VOLUMETRIC_EFFICIENCY_RANGE = [0.3, 1.3] as const;
 /** Usual range of lambda targets under load (common practice, no source). */
-export const LAMBDA_RANGE = [0.6, 1.3] as const;
+const LAMBDA_RANGE = [0.6, 1.3] as const;
 /** Ambient temperatures engines are usually run in, K: −50 °C to +60 °C (from memory). */
-export const AMBIENT_TEMPERATURE_RANGE = [223.15, 333.15] as const;
+const AMBIENT_TEMPERATURE_RANGE = [223.15, 333.15] as const;
 /** Compressor isentropic efficiency above which a figure is doubtful for an automotive wheel, fraction (from memory). */
-export const COMPRESSOR_EFFICIENCY_PLAUSIBLE_MAX = 0.85;
+const COMPRESSOR_EFFICIENCY_PLAUSIBLE_MAX = 0.85;
 /** Brake thermal efficiency above which a figure is doubtful for a piston engine, fraction (from memory). */
-export const BRAKE_THERMAL_EFFICIENCY_PLAUSIBLE_MAX = 0.5;
-
-const severityRank: Record<Severity, number> = { info: 0, warning: 1, limit: 2 };
-
-/** The most severe of some findings, or null when there are none. */
-export function worstSeverity(findings: readonly Finding[]): Severity | null {
-  let worst: Severity | null = null;
-  for (const f of findings) if (worst === null || severityRank[f.severity] > severityRank[worst]) worst = f.severity;
-  return worst;
-}
-
-function finding(
-  code: FindingCode,
-  severity: Severity,
-  message: string,
-  rpm: number,
-  quantity?: { value: number; threshold?: number; kind: WorkingKind },
-): Finding {
-  return quantity ? { code, severity, message, rpm, ...quantity } : { code, severity, message, rpm };
-}
-
-const NOT_REACHABLE = 'Not reachable with this compressor: its power, torque and temperatures are not given.';
-
-/** Words on how a margin beyond the choke line's top was measured. */
-function chokeEdgeWords(v: PointValues): string {
-  return v.marginBasis?.choke === 'top-speed-line' ? ", measured to the top speed line above the choke line's top" : '';
-}
-
-/** The finding that says where a point off the map sits and what that means; null on or below the map. */
-function regionFinding(region: MapRegion, v: PointValues): Finding | null {
-  const rpm = v.rpm;
-  const tail = v.reachable ? '' : ` ${NOT_REACHABLE}`;
-  switch (region) {
-    case 'on-map':
-      return null;
-    case 'below-map':
-      return finding(
-        'map-below-map',
-        'info',
-        'The point is below the map (a low pressure ratio, usual at light load): the wheel turns slower than the lowest speed line.',
-        rpm,
-      );
-    case 'left-of-surge':
-      return finding(
-        'map-left-of-surge',
-        'limit',
-        `The point is left of the surge line (surge margin ${pct(v.surgeMargin ?? 0)}): the compressor surges here.${tail}`,
-        rpm,
-        v.surgeMargin !== null ? { value: v.surgeMargin, threshold: 0, kind: 'fraction' } : undefined,
-      );
-    case 'past-choke':
-      return finding(
-        'map-beyond-choke',
-        'limit',
-        `The point is past choke (choke margin ${pct(v.chokeMargin ?? 0)}${chokeEdgeWords(v)}): the compressor cannot pass this flow at this pressure ratio.${tail}`,
-        rpm,
-        v.chokeMargin !== null ? { value: v.chokeMargin, threshold: 0, kind: 'fraction' } : undefined,
-      );
-    case 'over-speed':
-      // The overspeed finding says it, with the figures.
-      return null;
-    case 'above-map':
-      return finding(
-        'map-above-top-speed',
-        'limit',
-        `The point is above the top speed line${v.shaftSpeed !== null ? ` (about ${fmt(v.shaftSpeed)} rpm, extrapolated)` : ''}: the map does not show the compressor running there.${tail}`,
-        rpm,
-      );
-    case 'outside-speed-lines':
-      return finding(
-        'map-off-map',
-        'limit',
-        `The point is inside the map's outline but outside its speed lines: the map cannot say what the compressor does here.${tail}`,
-        rpm,
-      );
-  }
-}
-
-const SPEED_WORDS: Record<string, string> = {
-  'above-top-speed-line': ' (extrapolated above the top speed line)',
-  'surge-edge': ' (taken along the surge line)',
-};
-
-/** Warnings for margins that hold but are thinner than the study requires. */
-function thinMarginFindings(v: PointValues, ctx: LineContext): Finding[] {
-  const req = ctx.requirements ?? REQUIREMENT_DEFAULTS;
-  const out: Finding[] = [];
-  const thin = (code: FindingCode, what: string, margin: number | null, required: number) => {
-    if (margin === null || !(margin >= 0) || !(margin < required)) return;
-    out.push(
-      finding(code, 'warning', `${what} ${pct(margin)} is under the ${pct(required)} the study requires.`, v.rpm, {
-        value: margin,
-        threshold: required,
-        kind: 'fraction',
-      }),
-    );
-  };
-  thin('surge-margin-thin', 'Surge margin', v.surgeMargin, req.minSurgeMargin);
-  thin('choke-margin-thin', 'Choke margin', v.chokeMargin, req.minChokeMargin);
-  thin('speed-margin-thin', 'Speed margin', v.speedMargin, req.minSpeedMargin);
-  return out;
-}
+const BRAKE_THERMAL_EFFICIENCY_PLAUSIBLE_MAX = 0.5;
 
 /** A lean target under boost: the mixture that burns pistons and valves. */
 function leanFindings(v: PointValues, ctx: LineContext): Finding[] {
@@ -268,72 +171,10 @@ export function pointFindings(v: PointValues, ctx: LineContext): Finding[] {
   if (!v.converged) {
     out.push(finding('not-converged', 'warning', `The manifold temperature did not settle in ${v.iterations} passes; the last pass is shown.`, rpm));
   }
-  const reachable = v.reachable !== false;
-  if (ctx.hasMap && reachable && v.efficiencySource === 'plan' && v.compressorEfficiency !== null) {
-    const below = v.mapRegion === 'below-map';
-    out.push(
-      finding(
-        'efficiency-off-map',
-        below ? 'info' : 'warning',
-        below
-          ? `Below the map the efficiency is not given; the Plan's ${pct(v.compressorEfficiency)} is used (at a low pressure ratio it changes little).`
-          : `The map gives no efficiency here; the Plan's ${pct(v.compressorEfficiency)} is used instead.`,
-        rpm,
-        { value: v.compressorEfficiency, kind: 'fraction' },
-      ),
-    );
-  }
-  if (v.offMapAssumed && v.compressorEfficiency !== null) {
-    out.push(
-      finding(
-        'off-map-assumption',
-        'warning',
-        `Computed on the Plan's off-map efficiency assumption of ${pct(v.compressorEfficiency)}: the map does not reach this point.`,
-        rpm,
-        { value: v.compressorEfficiency, kind: 'fraction' },
-      ),
-    );
-  }
-  const region = v.mapRegion ?? null;
-  const regionNote = region !== null ? regionFinding(region, v) : null;
-  if (regionNote) out.push(regionNote);
-  if (v.speedMargin !== null && v.speedMargin < 0 && v.shaftSpeed !== null && v.maxShaftSpeed !== null) {
-    out.push(
-      finding(
-        'overspeed',
-        'limit',
-        `Shaft speed ${fmt(v.shaftSpeed)} rpm${SPEED_WORDS[v.marginBasis?.speed ?? ''] ?? ''} is over the limit ${fmt(v.maxShaftSpeed)} rpm (speed margin ${pct(v.speedMargin)}).${v.reachable === false && region === 'over-speed' ? ` ${NOT_REACHABLE}` : ''}`,
-        rpm,
-        { value: v.shaftSpeed, threshold: v.maxShaftSpeed, kind: 'speed' },
-      ),
-    );
-  }
-  out.push(...thinMarginFindings(v, ctx), ...leanFindings(v, ctx));
-  if (!reachable) return out;
-  const t2 = v.compressorOutletTemperature;
-  const t2Limit = limits.maxCompressorOutletTemperature;
-  const t2Accepted = (ctx.requirements ?? REQUIREMENT_DEFAULTS).maxCompressorOutletTemperature;
-  if (t2 !== null && t2Limit !== undefined && t2 > t2Limit) {
-    out.push(
-      finding(
-        'compressor-outlet-temperature-limit',
-        'limit',
-        `Compressor outlet temperature ${kelvin(t2)} is above the stated limit ${kelvin(t2Limit)}.`,
-        rpm,
-        { value: t2, threshold: t2Limit, kind: 'temperature' },
-      ),
-    );
-  } else if (t2 !== null && t2 > t2Accepted) {
-    out.push(
-      finding(
-        'compressor-outlet-temperature-high',
-        'warning',
-        `Compressor outlet temperature ${kelvin(t2)} is above the ${kelvin(t2Accepted)} the study accepts.`,
-        rpm,
-        { value: t2, threshold: t2Accepted, kind: 'temperature' },
-      ),
-    );
-  }
+  compressorFindings(v, ctx, out);
+  out.push(...leanFindings(v, ctx));
+  if (v.reachable === false) return out;
+  outletTemperatureFindings(v, ctx, out);
   if (ctx.injectors && v.injectorPressureDifference !== null && v.injectorDuty === null) {
     out.push(
       finding(
@@ -400,9 +241,4 @@ export function pointFindings(v: PointValues, ctx: LineContext): Finding[] {
     }
   }
   return out;
-}
-
-/** The finding of a point that cannot be solved. */
-export function unsolvableFinding(rpm: number, reason: string): Finding {
-  return finding('unsolvable', 'limit', reason, rpm);
 }

@@ -1,17 +1,3 @@
-export * from './compressor-model';
-export * from './types';
-export * from './working';
-export * from './findings';
-export * from './rpm-table';
-export * from './ambient';
-export * from './run-point';
-export * from './reach';
-export * from './verdict';
-export * from './requirements';
-export * from './explain-point';
-export * from './run-study';
-export * from './run-compute';
-export * from './exhaust-model';
-export * from './exhaust';
-export * from './exhaust-findings';
-export * from './exhaust-working';
+/** The matching engine's entry point: a whole study. */
+export { runStudy } from './run-study';
+export type { StudyResult } from './result';

@@ -1,7 +1,7 @@
 import { siUnitOf } from '../units';
-import { MAP_REGION_WORDS } from './reach';
+import { MAP_REGION_WORDS } from './compressor/reach';
 import { planVerdicts, VERDICT_WORDS } from './verdict';
-import type { OperatingLine, PointValues, StudyResult } from './types';
+import type { OperatingLine, PointValues, StudyResult } from './result';
 import type { WorkingKind } from './working';
 
 /**
@@ -64,14 +64,14 @@ export const RESULT_COLUMNS: ResultColumn[] = [
  * Columns the CSV export appends after the plan's verdict, with their headers exactly as written:
  * they came later than the rest, so the earlier columns keep their places.
  */
-export const APPENDED_RESULT_COLUMNS: { key: keyof PointValues; header: string }[] = [
+const APPENDED_RESULT_COLUMNS: { key: keyof PointValues; header: string }[] = [
   { key: 'exhaustGasCp', header: 'Exhaust gas cp (J/(kg K))' },
   { key: 'exhaustGasGamma', header: 'Exhaust gas gamma' },
   { key: 'humidityRatio', header: 'Humidity ratio (kg/kg)' },
 ];
 
 /** The SI unit text written beside a column in exports. */
-export function siUnitText(column: ResultColumn): string {
+function siUnitText(column: ResultColumn): string {
   switch (column.kind) {
     case 'ratio':
     case 'count':
@@ -86,7 +86,7 @@ export function siUnitText(column: ResultColumn): string {
   }
 }
 
-export interface ResultRow {
+interface ResultRow {
   plan: string;
   scenario: string;
   row: string;
@@ -97,7 +97,7 @@ export interface ResultRow {
 }
 
 /** One row per operating point of every line, in plan, scenario, boost-row, rpm order. */
-export function resultRows(result: StudyResult): ResultRow[] {
+function resultRows(result: StudyResult): ResultRow[] {
   const order = { limit: 0, warning: 1, info: 2 } as const;
   return result.lines.flatMap((line) =>
     line.points.map((p) => ({

@@ -1,4 +1,4 @@
-import type { RpmPoints, RpmTable } from './types';
+import { MAX_RPM_POINTS, rpmPointCount, type RpmPoints, type RpmTable } from './input/rpm';
 
 /** Where a table lookup landed: between two rows, or held at the first or last row. */
 export interface RpmLookup {
@@ -29,22 +29,13 @@ export function valueAtRpm(table: RpmTable, rpm: number): number {
   return lookupByRpm(table, rpm).value;
 }
 
-/** Most points a study computes per operating line. */
-export const MAX_RPM_POINTS = 400;
-
 /** The engine speeds, rpm, of an rpm list or range; a range includes max when the steps land on it. */
 export function rpmPointsOf(points: RpmPoints): number[] {
   if (points.kind === 'list') return points.values.slice();
   const out: number[] = [];
-  const { min, max, step } = points;
+  const { min, step } = points;
   // Count first so rounding in min + k·step never adds or drops the end point.
-  const count = Math.floor((max - min) / step + 1e-9) + 1;
+  const count = rpmPointCount(points);
   for (let k = 0; k < count && k < MAX_RPM_POINTS; k++) out.push(min + k * step);
   return out;
-}
-
-/** How many points an rpm range or list gives (for validation before generating them). */
-export function rpmPointCount(points: RpmPoints): number {
-  if (points.kind === 'list') return points.values.length;
-  return Math.floor((points.max - points.min) / points.step + 1e-9) + 1;
 }

@@ -5,7 +5,8 @@
  * when a margin is thinner than required or another warning stands; it fits otherwise. A plan
  * without a compressor map is not judged on the compressor: its margins are unknown.
  */
-import type { FindingCode, OperatingLine, Severity, StudyResult } from './types';
+import type { FindingCode, Severity } from './finding';
+import type { OperatingLine, StudyResult } from './result';
 
 export type VerdictStatus = 'fits' | 'fits-with-warnings' | 'does-not-fit' | 'not-judged';
 

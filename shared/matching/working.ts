@@ -30,6 +30,9 @@ export interface WorkingStep {
   source: string;
 }
 
+/** SI unit text of a specific heat or a gas constant. */
+export const SPECIFIC_HEAT_UNIT = 'J/(kg K)';
+
 /** Sources named in the Working, in one place so the wording stays the same everywhere. */
 export const SOURCES = {
   isa: 'ISO 2533:1975 / ICAO Doc 7488, ISA troposphere',

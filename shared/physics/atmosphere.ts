@@ -16,7 +16,7 @@ export const ISA_LAPSE_RATE = 0.0065;
 /** Standard acceleration of gravity, m/s² (ISO 2533; CGPM 1901). */
 export const STANDARD_GRAVITY = 9.80665;
 /** Nominal Earth radius used to convert geometric to geopotential height, m (ISO 2533). */
-export const ISA_EARTH_RADIUS = 6_356_766;
+const ISA_EARTH_RADIUS = 6_356_766;
 /** Lowest geopotential height the ISO 2533 tables cover, m. */
 export const ISA_MIN_HEIGHT = -2000;
 /** Top of the troposphere (the tropopause), geopotential m (ISO 2533). */
@@ -60,4 +60,34 @@ export function isInTroposphere(height: number): boolean {
 /** Geopotential height H = r·z/(r + z), m, from geometric height z, m (ISO 2533). */
 export function geopotentialHeight(geometricHeight: number): number {
   return (ISA_EARTH_RADIUS * geometricHeight) / (ISA_EARTH_RADIUS + geometricHeight);
+}
+
+/**
+ * The air of a place as a Scenario gives it: barometric pressure (Pa absolute) and temperature
+ * (K), or an altitude (m, geopotential height in the troposphere) with or without the day's
+ * temperature (K).
+ */
+export type AmbientGiven = { pressure: number; temperature: number; altitude?: undefined } | { altitude: number; temperature?: number; pressure?: undefined };
+
+/** Barometric pressure (Pa) and air temperature (K) of a place, and where each came from. */
+export interface AmbientConditions {
+  /** Ambient pressure, Pa absolute. */
+  pressure: number;
+  /** Ambient temperature, K. */
+  temperature: number;
+  pressureFrom: 'given' | 'isa';
+  temperatureFrom: 'given' | 'isa';
+}
+
+/** The pressure and temperature of the air as given, the ISA at the altitude filling what is not. */
+export function ambientConditions(given: AmbientGiven): AmbientConditions {
+  if (given.altitude !== undefined) {
+    return {
+      pressure: isaPressure(given.altitude),
+      temperature: given.temperature ?? isaTemperature(given.altitude),
+      pressureFrom: 'isa',
+      temperatureFrom: given.temperature === undefined ? 'isa' : 'given',
+    };
+  }
+  return { pressure: given.pressure, temperature: given.temperature, pressureFrom: 'given', temperatureFrom: 'given' };
 }

@@ -6,16 +6,6 @@ export interface FlowReference {
   pressure: number;
 }
 
-/** Compressor inlet pressure p1, Pa absolute: ambient less the filter and intake loss (Pa). */
-export function compressorInletPressure(ambientPressure: number, inletLoss: number): number {
-  return ambientPressure - inletLoss;
-}
-
-/** Compressor outlet pressure p2, Pa absolute: manifold pressure plus the charge-cooler and pipe loss (Pa). */
-export function compressorOutletPressure(manifoldPressure: number, chargeCoolerLoss: number): number {
-  return manifoldPressure + chargeCoolerLoss;
-}
-
 /** Pressure ratio p2/p1, dimensionless (static pressures taken as total: the velocities are low). */
 export function pressureRatio(outletPressure: number, inletPressure: number): number {
   return outletPressure / inletPressure;

@@ -76,7 +76,6 @@ export const sessionViewSchema = z.object({
   ip: z.string().nullable(),
   browser: z.string(),
 });
-export type SessionView = z.infer<typeof sessionViewSchema>;
 export const sessionListSchema = z.object({ sessions: z.array(sessionViewSchema) });
 
 export const twoFactorSetupSchema = z.object({ secret: z.string(), uri: z.string(), qrCode: z.string() });
@@ -165,13 +164,6 @@ export const outboxSummarySchema = z.object({
 export const outboxMessageSchema = outboxSummarySchema.extend({ text: z.string(), html: z.string().nullable() });
 export type OutboxMessage = z.infer<typeof outboxMessageSchema>;
 
-export const healthSchema = z.object({
-  status: z.enum(['ok', 'degraded']),
-  server: z.literal('up'),
-  database: z.enum(['up', 'down']),
-  time: z.string(),
-});
-
 /** One entry of a team's audit record (who did what, when in UTC). */
 export const auditEventSchema = z.object({
   id: z.string(),
@@ -187,6 +179,18 @@ export const auditEventSchema = z.object({
 });
 export type AuditEventView = z.infer<typeof auditEventSchema>;
 export const auditListSchema = z.object({ events: z.array(auditEventSchema) });
+/** `?before=&limit=` of an audit record read: the newest `limit` entries before `before`. */
+export const auditQuerySchema = z.strictObject({
+  before: z.iso.datetime({ message: 'before must be an ISO date-time (UTC)' }).optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
+/** `?q=` of the site admin's user list: part of a name or e-mail (anything else in the query is ignored). */
+export const userSearchQuerySchema = z.object({
+  q: z
+    .string()
+    .catch('')
+    .transform((q) => q.trim().slice(0, 100)),
+});
 
 /** What an import brought in. */
 export const importResultSchema = z.object({ imported: z.object({ maps: z.number(), studies: z.number(), revisions: z.number() }) });

@@ -8,7 +8,6 @@ export const apiErrorSchema = z.object({
     details: z.unknown().optional(),
   }),
 });
-export type ApiError = z.infer<typeof apiErrorSchema>;
 
 /** Field issues as the server reports them in `error.details.issues`. */
 export const fieldIssuesSchema = z.object({

@@ -40,9 +40,6 @@ export const mapMetadataUpdateSchema = z
   .strictObject({ name: mapNameSchema.optional(), notes: mapNotesSchema.optional() })
   .refine((v) => v.name !== undefined || v.notes !== undefined, 'give a name or notes to change');
 
-export type MapMetadata = z.infer<typeof mapMetadataSchema>;
-export type MapMetadataUpdate = z.infer<typeof mapMetadataUpdateSchema>;
-
 // ---------------------------------------------------------------------------------------------
 // The parsed map as JSON (shared/maps/types.ts), so that the server can store it as jsonb and the
 // client can trust what it reads back. SI units throughout; see the model's doc comments.
@@ -180,4 +177,5 @@ export const spoolbookMapSchema = z.discriminatedUnion('kind', [compressorMapSch
 // The schema and the hand-written model must describe the same thing; this fails to compile if they drift.
 type Same<A, B> = (<T>() => T extends A ? 1 : 2) extends <T>() => T extends B ? 1 : 2 ? true : false;
 type Assert<T extends true> = T;
+/** @public A check for the compiler, used by nothing else. */
 export type SpoolbookMapSchemaMatchesModel = Assert<Same<z.infer<typeof spoolbookMapSchema>, SpoolbookMap>>;

@@ -4,8 +4,8 @@
  * a label for the engine (searched in the study list), notes, and each plan's map references.
  */
 import { z } from 'zod';
-import type { StudyInput } from '../matching/types';
-import { planSchema, studyInputSchema } from './compute';
+import { planSchema } from '../matching/input/plan';
+import { studyInputSchema, type StudyInput } from '../matching/input/study';
 
 /**
  * The document version. 2: losses are objects that may name the flow they were measured at
@@ -93,7 +93,7 @@ export const studyDocumentSchema = documentShape
       for (const issue of parsed.error.issues) ctx.addIssue(issue as never);
       return z.NEVER;
     }
-    const input = parsed.data as StudyInput;
+    const input = parsed.data;
     const plans = doc.plans.map((p, i) => ({
       ...input.plans[i],
       id: p.id,

@@ -9,7 +9,9 @@
  * and counts are of points, not of findings.
  */
 import type { VerdictStatus } from '../matching/verdict';
-import type { ExhaustLineSummary, OperatingLine, OperatingPoint, PointValues, Severity, ValueAtRpm } from '../matching/types';
+import type { ExhaustLineSummary, ValueAtRpm } from '../matching/exhaust/result';
+import type { Severity } from '../matching/finding';
+import type { OperatingLine, OperatingPoint, PointValues } from '../matching/result';
 import type { WorkingKind } from '../matching/working';
 
 /** Which end of a row is better; "none" rows are there to read beside another row. */

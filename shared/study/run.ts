@@ -1,6 +1,9 @@
 import { compressorModelFromMap, turbineModelFromMap } from '../maps';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '../maps/types';
-import { runStudy, type CompressorModel, type RunStudyOptions, type StudyResult, type TurbineModel } from '../matching';
+import type { CompressorModel } from '../matching/compressor/model';
+import type { TurbineModel } from '../matching/exhaust/model';
+import type { StudyResult } from '../matching/result';
+import { runStudy, type RunStudyOptions } from '../matching/run-study';
 import { toStudyInput, type StudyDocument } from '../schemas/study';
 
 /**
@@ -58,7 +61,6 @@ export function runStudyDocument(
   cache?: MapModelCache,
 ): StudyResult {
   return runStudy(toStudyInput(doc), {
-    validate: false,
     ...options,
     compressorModels: planCompressorModels(doc, mapsById, cache),
     turbineModels: planTurbineModels(doc, mapsById, cache),

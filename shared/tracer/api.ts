@@ -16,14 +16,12 @@ export const createDraftSchema = z.strictObject({
   state: traceStateSchema.optional(),
 });
 
+/** Saving a draft, and saving it to the library (which also stores the state), take the same body. */
 export const saveDraftSchema = z.strictObject({
   /** The revision the client started from: a newer one on the server means someone else saved (409). */
   baseRevision: z.number().int().min(1),
   state: traceStateSchema,
 });
-
-/** Saving to the library also stores the state, so it takes the same body. */
-export const saveTraceToLibrarySchema = saveDraftSchema;
 
 export const imageListQuerySchema = z.strictObject({ mapId: id.optional() });
 

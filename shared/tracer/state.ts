@@ -34,7 +34,6 @@ export function traceKindsOf(kind: MapKind): readonly TraceCurveKind[] {
 
 export const SPEED_UNITS = ['rpm', 'krpm'] as const;
 export const COMPRESSOR_FLOW_AXES = ['corrected-mass', 'volume'] as const;
-export type CompressorFlowAxisChoice = (typeof COMPRESSOR_FLOW_AXES)[number];
 
 /** The unit choices the Tracer offers, from the map format's own list (shared/maps/format.ts). */
 export const TRACE_UNIT_CHOICES = {

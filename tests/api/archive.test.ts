@@ -3,10 +3,10 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { maps, studies, teamMembers } from '#server/db/schema';
-import { ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
+import { ADMIN_USER } from '#server/services/demo';
+import { demoDocument as demo, join, ORIGIN, signedUp, startTestApp, teamOf, uniqueEmail, type Client, type TestApp } from './helpers';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
-const demo = JSON.parse(readFileSync(path.join(root, 'data', 'demo', 'hillclimb-study.json'), 'utf8'));
 
 let t: TestApp;
 beforeAll(async () => {
@@ -21,6 +21,19 @@ function importArchive(c: Client, teamId: string, content: string | Buffer) {
     .post(`/api/teams/${teamId}/archive/import`)
     .set('Origin', ORIGIN)
     .attach('archive', Buffer.isBuffer(content) ? content : Buffer.from(content), { filename: 'team.json', contentType: 'application/json' });
+}
+
+/** An archive of one study and no maps, shaped as an export writes it. */
+function oneStudyArchive(study: { id: string; title: string; revisions: object[] }) {
+  const now = new Date().toISOString();
+  return {
+    format: 'spoolbook-team-archive',
+    version: 1,
+    exportedAt: now,
+    team: { name: 'x' },
+    maps: [],
+    studies: [{ id: study.id, title: study.title, archived: false, createdAt: now, revisions: study.revisions }],
+  };
 }
 
 /** A team with two maps of its own and two studies, one with three revisions using one of them. */
@@ -121,31 +134,20 @@ describe('team export and import', () => {
     const wrong = await importArchive(owner.c, owner.personalTeamId, JSON.stringify({ format: 'something else' }));
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.details.problems[0].item).toBe('archive');
-    const missingMap = {
-      format: 'spoolbook-team-archive',
-      version: 1,
-      exportedAt: new Date().toISOString(),
-      team: { name: 'x' },
-      maps: [],
-      studies: [
+    const missingMap = oneStudyArchive({
+      id: 's',
+      title: 'Orphan',
+      revisions: [
         {
-          id: 's',
+          revision: 1,
           title: 'Orphan',
-          archived: false,
+          message: '',
+          author: null,
           createdAt: new Date().toISOString(),
-          revisions: [
-            {
-              revision: 1,
-              title: 'Orphan',
-              message: '',
-              author: null,
-              createdAt: new Date().toISOString(),
-              document: { ...demo, plans: [{ ...demo.plans[0], compressorMapId: 'gone' }] },
-            },
-          ],
+          document: { ...demo, plans: [{ ...demo.plans[0], compressorMapId: 'gone' }] },
         },
       ],
-    };
+    });
     const orphan = await importArchive(owner.c, owner.personalTeamId, JSON.stringify(missingMap));
     expect(orphan.status).toBe(400);
     expect(orphan.body.error.details.problems[0].message).toMatch(/compressorMapId: names map gone/);
@@ -160,5 +162,38 @@ describe('team export and import', () => {
     const stranger = await signedUp(t, 'archivestranger');
     expect((await stranger.c.get(`/api/teams/${teamId}/archive/export`)).status).toBe(404);
     expect(owner.email).toBeTruthy();
+  });
+});
+
+describe("archive import matches authors only among the team's members", () => {
+  it('an archive naming the site admin as author does not make history say "by Site Admin"; a member is matched', async () => {
+    const { owner, teamId } = await teamOf(t, 'archive');
+    const editor = await join(t, owner.c, teamId, 'editor', 'archive-editor');
+    const revision = (n: number, author: string) => ({
+      revision: n,
+      title: 'Imported',
+      message: `r${n}`,
+      author,
+      createdAt: new Date().toISOString(),
+      document: demo,
+    });
+    const archive = oneStudyArchive({
+      id: 's1',
+      title: 'Imported',
+      revisions: [revision(1, ADMIN_USER.email), revision(2, editor.email), revision(3, uniqueEmail('stranger'))],
+    });
+    const res = await owner.c.agent
+      .post(`/api/teams/${teamId}/archive/import`)
+      .set('Origin', ORIGIN)
+      .attach('archive', Buffer.from(JSON.stringify(archive)), { filename: 'team.json', contentType: 'application/json' });
+    expect(res.status).toBe(201);
+    const list = await owner.c.get(`/api/teams/${teamId}/studies?q=Imported`);
+    const studyId = list.body.studies[0].id;
+    const revisions = (await owner.c.get(`/api/teams/${teamId}/studies/${studyId}/revisions`)).body.revisions as { revision: number; author: string }[];
+    const byNumber = Object.fromEntries(revisions.map((r) => [r.revision, r.author]));
+    expect(byNumber[1]).toBe(ADMIN_USER.email); // plain text, not the admin's name
+    expect(byNumber[1]).not.toBe(ADMIN_USER.name);
+    expect(byNumber[2]).toBe((await editor.c.get('/api/auth/me')).body.user.name); // a member: matched
+    expect(byNumber[3]).toMatch(/^stranger-/);
   });
 });

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEvents, teamMembers } from '#server/db/schema';
-import { ADMIN_USER } from '#server/db/seed';
+import { ADMIN_USER } from '#server/services/demo';
 import { client, latestMailTo, linkIn, PASSWORD, signedUp, startTestApp, uniqueEmail, type TestApp } from './helpers';
 
 const demo = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'demo', 'hillclimb-study.json'), 'utf8'));

@@ -1,7 +1,21 @@
 import { eq } from 'drizzle-orm';
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { passwordResets, sessions, users } from '#server/db/schema';
-import { client, expectErrorShape, latestMailTo, linkIn, PASSWORD, signedUp, startTestApp, uniqueEmail, type TestApp } from './helpers';
+import { sessions, users } from '#server/db/schema';
+import {
+  client,
+  expectErrorShape,
+  latestLinkTo,
+  latestMailTo,
+  linkIn,
+  ORIGIN,
+  PASSWORD,
+  signedUp,
+  startTestApp,
+  tokenOf,
+  uniqueEmail,
+  type TestApp,
+} from './helpers';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -114,73 +128,7 @@ describe('sign-in and sign-out', () => {
   });
 });
 
-describe('password reset through the e-mailed link', () => {
-  it('resets the password, ends every session, and the link works once', async () => {
-    const { c, email } = await signedUp(t, 'reset');
-    const ask = await client(t).post('/api/auth/password-reset', { email });
-    expect(ask.status).toBe(202);
-    const mail = await latestMailTo(t, email);
-    expect(mail.subject).toMatch(/reset/i);
-    const link = linkIn(mail.text, '/reset-password?token=');
-    const token = new URL(link).searchParams.get('token')!;
-
-    const done = await client(t).post('/api/auth/password-reset/confirm', { token, password: 'a brand new password' });
-    expect(done.status).toBe(204);
-    expect((await c.get('/api/auth/me')).status).toBe(401); // the old session ended
-    expect((await client(t).post('/api/auth/sign-in', { email, password: PASSWORD })).status).toBe(401);
-    expect((await client(t).post('/api/auth/sign-in', { email, password: 'a brand new password' })).status).toBe(200);
-
-    const again = await client(t).post('/api/auth/password-reset/confirm', { token, password: 'yet another password' });
-    expect(again.status).toBe(400);
-    expect(again.body.error.code).toBe('invalid_token');
-  });
-
-  it('answers an unknown e-mail exactly like a known one and sends nothing', async () => {
-    const nobody = uniqueEmail('nobody');
-    const res = await client(t).post('/api/auth/password-reset', { email: nobody });
-    expect(res.status).toBe(202);
-    expect(res.body).toEqual({ ok: true });
-    await expect(latestMailTo(t, nobody)).rejects.toThrow(/no mail/);
-  });
-
-  it('refuses an expired token', async () => {
-    const { email, user } = await signedUp(t, 'expired');
-    await client(t).post('/api/auth/password-reset', { email });
-    const token = new URL(linkIn((await latestMailTo(t, email)).text, '/reset-password?token=')).searchParams.get('token')!;
-    await t.database.db
-      .update(passwordResets)
-      .set({ expiresAt: new Date(Date.now() - 1000) })
-      .where(eq(passwordResets.userId, user.id));
-    const res = await client(t).post('/api/auth/password-reset/confirm', { token, password: 'a brand new password' });
-    expect(res.status).toBe(400);
-    expect(res.body.error.code).toBe('invalid_token');
-  });
-
-  it('stores only a hash of the token', async () => {
-    const { email, user } = await signedUp(t, 'hashed');
-    await client(t).post('/api/auth/password-reset', { email });
-    const token = new URL(linkIn((await latestMailTo(t, email)).text, '/reset-password?token=')).searchParams.get('token')!;
-    const rows = await t.database.db.select().from(passwordResets).where(eq(passwordResets.userId, user.id));
-    expect(rows).toHaveLength(1);
-    expect(rows[0].tokenHash).not.toBe(token);
-    expect(rows[0].tokenHash).toMatch(/^[0-9a-f]{64}$/); // SHA-256 hex
-  });
-});
-
-describe('password change', () => {
-  it('needs the current password and ends the other sessions', async () => {
-    const { c, email } = await signedUp(t, 'change');
-    const other = client(t);
-    await other.post('/api/auth/sign-in', { email, password: PASSWORD });
-    const bad = await c.post('/api/auth/password', { currentPassword: 'wrong', newPassword: 'another long password' });
-    expect(bad.status).toBe(400);
-    expect(bad.body.error.details.issues[0].path).toBe('currentPassword');
-    const ok = await c.post('/api/auth/password', { currentPassword: PASSWORD, newPassword: 'another long password' });
-    expect(ok.status).toBe(200);
-    expect((await c.get('/api/auth/me')).status).toBe(200);
-    expect((await other.get('/api/auth/me')).status).toBe(401);
-  });
-
+describe('profile', () => {
   it('remembers the unit system per user', async () => {
     const { c } = await signedUp(t, 'units');
     const res = await c.patch('/api/auth/me', { unitSystem: 'us' });
@@ -189,23 +137,67 @@ describe('password change', () => {
   });
 });
 
-describe('origin check (ASVS 5.0 3.5.1–3.5.3)', () => {
-  it('refuses a state-changing request from another origin', async () => {
-    const { c } = await signedUp(t, 'origin');
-    const res = await c.agent.post('/api/teams').set('Origin', 'https://evil.example').send({ name: 'Nope' });
-    expect(res.status).toBe(403);
-    expect(res.body.error.code).toBe('bad_origin');
+describe('sign-in throttling per account and per address (ASVS 6.3.1)', () => {
+  let limited: TestApp;
+  beforeAll(async () => {
+    // Client addresses from X-Forwarded-For, as behind a load balancer.
+    limited = await startTestApp({ trustProxy: 'loopback' }, { signInFreeFailures: 3, signInFreeFailuresPerAddress: 5 });
+  });
+  afterAll(() => limited.close());
+  const from = (address: string, email: string, password: string) =>
+    request(limited.app).post('/api/auth/sign-in').set('Origin', ORIGIN).set('X-Forwarded-For', address).send({ email, password });
+
+  it('guesses from many addresses slow the account down (growing delays), and the right password works once the wait is over', async () => {
+    const { email } = await signedUp(limited, 'victim');
+    const statuses: number[] = [];
+    for (let i = 0; i < 5; i++) statuses.push((await from(`198.51.100.${i + 1}`, email, 'wrong password')).status);
+    expect(statuses).toEqual([401, 401, 401, 401, 429]); // 3 free failures, then a 1 s wait (1, 2, 4 … s)
+    const waiting = await from('198.51.100.99', email, PASSWORD);
+    expect(waiting.status).toBe(429); // even the right password waits: the guess is not tested
+    const wait = Number(waiting.headers['retry-after']);
+    expect(wait).toBeGreaterThanOrEqual(1);
+    expect(wait).toBeLessThanOrEqual(2); // the first delay is 1 s (server/services/limits.ts)
+    await new Promise((r) => setTimeout(r, wait * 1000 + 100));
+    expect((await from('198.51.100.99', email, PASSWORD)).status).toBe(200); // slowed, never locked out
   });
 
-  it('refuses a signed-in state change that carries neither Origin nor Sec-Fetch-Site', async () => {
-    const { c } = await signedUp(t, 'noorigin');
-    const res = await c.agent.post('/api/teams').send({ name: 'Nope' });
-    expect(res.status).toBe(403);
+  it('a throttled address does not lock the real user out from another address', async () => {
+    const { email: real } = await signedUp(limited, 'real');
+    const attacker = '203.0.113.7';
+    // The attacker sprays many accounts from one address: one guess each.
+    for (let i = 0; i < 6; i++) await from(attacker, uniqueEmail('spray'), 'wrong password');
+    const blocked = await from(attacker, uniqueEmail('spray'), 'wrong password');
+    expect(blocked.status).toBe(429);
+    expect(blocked.body.error.message).toMatch(/address/);
+    expect((await from('192.0.2.44', real, PASSWORD)).status).toBe(200);
+  });
+});
+
+describe('sign-up confirms the address (ASVS 6.4.x)', () => {
+  it('an unconfirmed account works in its personal team but cannot create teams or invite; the mailed link confirms it once', async () => {
+    const { c, email, personalTeamId } = await signedUp(t, 'unconfirmed', { confirmed: false });
+    expect((await c.get('/api/auth/me')).body.user.emailConfirmed).toBe(false);
+    expect((await c.get(`/api/teams/${personalTeamId}/studies`)).status).toBe(200);
+    const create = await c.post('/api/teams', { name: 'Too soon' });
+    expect(create.status).toBe(403);
+    expect(create.body.error.code).toBe('email_unconfirmed');
+    expect((await c.post(`/api/teams/${personalTeamId}/invitations`, { email: uniqueEmail('x'), role: 'viewer' })).status).toBe(403);
+
+    const link = linkIn((await latestMailTo(t, email)).text, '/confirm-email?token=');
+    const confirm = await client(t).post('/api/auth/confirm-email', { token: tokenOf(link) });
+    expect(confirm.status).toBe(200);
+    expect((await client(t).post('/api/auth/confirm-email', { token: tokenOf(link) })).status).toBe(400);
+    expect((await c.get('/api/auth/me')).body.user.emailConfirmed).toBe(true);
+    expect((await c.post('/api/teams', { name: 'Now it works' })).status).toBe(201);
   });
 
-  it('accepts Sec-Fetch-Site: same-origin', async () => {
-    const { c } = await signedUp(t, 'fetchsite');
-    const res = await c.agent.post('/api/teams').set('Sec-Fetch-Site', 'same-origin').send({ name: 'Same origin team' });
-    expect(res.status).toBe(201);
+  it('joining by an invitation mailed to that address confirms it too', async () => {
+    const owner = await signedUp(t, 'inviter');
+    const team = await owner.c.post('/api/teams', { name: 'Join to confirm' });
+    const invitee = await signedUp(t, 'invitee', { confirmed: false });
+    await owner.c.post(`/api/teams/${team.body.team.id}/invitations`, { email: invitee.email, role: 'viewer' });
+    const token = (await latestLinkTo(t, invitee.email, '/invitations/')).split('/invitations/')[1];
+    expect((await invitee.c.post(`/api/invitations/${token}/accept`, {})).status).toBe(200);
+    expect((await invitee.c.get('/api/auth/me')).body.user.emailConfirmed).toBe(true);
   });
 });

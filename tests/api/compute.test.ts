@@ -2,13 +2,13 @@ import { randomUUID } from 'node:crypto';
 import express from 'express';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
-import type { AppDeps } from '#server/app';
+import type { AppDeps } from '#server/app-deps';
 import { connectDatabase } from '#server/db/client';
 import { errorHandler } from '#server/http/errors';
 import { computeRouter } from '#server/routes/compute';
 import { createLimits, defaultLimitSettings } from '#server/services/limits';
 import { computeResponseSchema, MAX_COMPUTE_POINTS } from '#shared/schemas/compute';
-import { expectClose } from '../unit/physics/expect-close';
+import { expectClose } from '../unit/expect-close';
 
 // The limit is counted in PostgreSQL (the test database); each app counts under its own namespace.
 const database = connectDatabase(process.env.DATABASE_URL ?? 'postgres://missing', { max: 2 });

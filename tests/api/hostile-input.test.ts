@@ -18,7 +18,7 @@ import { loadConfig } from '#server/config';
 import { startServer, type RunningServer } from '#server/index';
 import { builtinMaps } from '#server/services/builtin-maps';
 import { parseMapFile } from '#shared/maps';
-import { runComputeRequest } from '#shared/matching/run-compute';
+import { runComputeRequest } from '#shared/compute/run';
 import { computeRequestSchema } from '#shared/schemas/compute';
 import { studyDocumentSchema } from '#shared/schemas/study';
 import { runStudyDocument } from '#shared/study/run';

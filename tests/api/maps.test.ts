@@ -1,10 +1,12 @@
 import { count, eq } from 'drizzle-orm';
 import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
+import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { FORMULA_START } from '#shared/csv';
 import { parseMapFile } from '#shared/maps';
 import { maps, teamMembers } from '#server/db/schema';
-import { expectErrorShape, ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
+import { expectErrorShape, ORIGIN, signedUp, startTestApp, teamOf, type Client, type TestApp } from './helpers';
 
 const fixtures = path.resolve(import.meta.dirname, '..', 'fixtures', 'maps');
 const demoMaps = path.resolve(import.meta.dirname, '..', '..', 'data', 'maps');
@@ -183,5 +185,45 @@ describe('bad files: every problem listed, 400, nothing saved', () => {
     const res = await upload(owner.c, teamId, 'm.csv', readFileSync(path.join(demoMaps, 'compressor-m58.csv')), { owner: 'someone else' });
     expect(res.status).toBe(400);
     expect(JSON.stringify(res.body.error.details)).toContain('owner');
+  });
+});
+
+describe('CSV downloads never carry a live formula (OWASP CSV injection, ASVS 1.2.10)', () => {
+  it('a map renamed `Map,=HYPERLINK(...)` downloads with the name in one quoted cell', async () => {
+    const { owner, teamId } = await teamOf(t, 'csv');
+    const up = await owner.c.agent
+      .post(`/api/teams/${teamId}/maps`)
+      .set('Origin', ORIGIN)
+      .attach('file', readFileSync(path.join(demoMaps, 'compressor-m58.csv')), 'compressor-m58.csv');
+    const mapId = up.body.map.id;
+    const name = 'Map,=HYPERLINK("http://example.invalid","x")';
+    expect((await owner.c.patch(`/api/teams/${teamId}/maps/${mapId}`, { name, notes: 'first, -second\n@third' })).status).toBe(200);
+    const file = await owner.c.get(`/api/teams/${teamId}/maps/${mapId}/file`);
+    const cells = Papa.parse<string[]>(file.text, { delimiter: ',' }).data.flat();
+    expect(cells.filter((c) => FORMULA_START.test(c) && Number.isNaN(Number(c)))).toEqual([]);
+    expect(cells).toContain(`# name: ${name}`);
+  });
+});
+
+describe('uploads are limited per user per hour', () => {
+  it('the 3rd map upload is refused with 429 before the file is read', async () => {
+    const limited = await startTestApp({}, { uploadsPerUser: 2 });
+    try {
+      const owner = await signedUp(limited, 'uploader');
+      const statuses: number[] = [];
+      for (let i = 0; i < 3; i++) {
+        statuses.push(
+          (
+            await owner.c.agent
+              .post(`/api/teams/${owner.personalTeamId}/maps`)
+              .set('Origin', ORIGIN)
+              .attach('file', readFileSync(path.join(demoMaps, 'compressor-m58.csv')), 'm58.csv')
+          ).status,
+        );
+      }
+      expect(statuses).toEqual([201, 201, 429]); // 2 per user per hour in this test's settings
+    } finally {
+      await limited.close();
+    }
   });
 });

@@ -3,11 +3,9 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { shareLinks, studies, studyRevisions, teamMembers } from '#server/db/schema';
+import { studies, studyRevisions, teamMembers } from '#server/db/schema';
 import { STUDY_SCHEMA_VERSION } from '#shared/schemas/study';
-import { client, expectErrorShape, ORIGIN, signedUp, startTestApp, type Client, type TestApp } from './helpers';
-
-const demo = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '..', '..', 'data', 'demo', 'hillclimb-study.json'), 'utf8'));
+import { client, demoDocument as demo, ORIGIN, signedUp, startTestApp, teamWithStudy, type Client, type TestApp } from './helpers';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -17,14 +15,6 @@ afterAll(async () => {
   await t.close();
 });
 
-async function teamWithStudy() {
-  const owner = await signedUp(t, 'study-owner');
-  const teamId = (await owner.c.post('/api/teams', { name: 'Study team' })).body.team.id as string;
-  const created = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Hill-climb plan', document: demo });
-  if (created.status !== 201) throw new Error(JSON.stringify(created.body));
-  return { owner, teamId, study: created.body.study as { id: string; revision: number; document: typeof demo } };
-}
-
 async function member(teamId: string, role: 'viewer' | 'editor' | 'owner') {
   const m = await signedUp(t, role);
   await t.database.db.insert(teamMembers).values({ teamId, userId: m.user.id, role });
@@ -33,7 +23,7 @@ async function member(teamId: string, role: 'viewer' | 'editor' | 'owner') {
 
 describe('create, read, save, revisions', () => {
   it('creates at revision 1 with a first revision row, and reads it back migrated and valid', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     expect(study.revision).toBe(1);
     const got = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}`);
     expect(got.body.study.document.plans).toHaveLength(3);
@@ -50,7 +40,7 @@ describe('create, read, save, revisions', () => {
   });
 
   it('saves a new revision, lists history newest first, reads an old revision, restores it as a new one', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const changed = structuredClone(demo);
     changed.engine.displacement = 0.0022;
     const saved = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: changed, message: 'Stroker crank' });
@@ -68,7 +58,7 @@ describe('create, read, save, revisions', () => {
   });
 
   it('refuses a bad document with the field path, and saves nothing', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const bad = structuredClone(demo);
     bad.engine.displacement = -1;
     bad.plans[1].turbochargers = 0;
@@ -82,7 +72,7 @@ describe('create, read, save, revisions', () => {
   });
 
   it('refuses an unknown field in the document by name', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const bad = { ...structuredClone(demo), turboSize: 'big' };
     const res = await owner.c.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: bad });
     expect(res.status).toBe(400);
@@ -90,7 +80,7 @@ describe('create, read, save, revisions', () => {
   });
 
   it('refuses an unknown key deep inside the document with 400, not 500', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const bad = structuredClone(demo);
     bad.intercooler = { ...bad.intercooler, '': null };
     bad.plans[2].turboSize = 'big';
@@ -102,7 +92,7 @@ describe('create, read, save, revisions', () => {
   });
 
   it('refuses a plan that names a map of another team, or a turbine map', async () => {
-    const { owner, teamId } = await teamWithStudy();
+    const { owner, teamId } = await teamWithStudy(t);
     const other = await signedUp(t, 'other-team');
     const upload = await other.c.agent
       .post(`/api/teams/${other.personalTeamId}/maps`)
@@ -119,7 +109,7 @@ describe('create, read, save, revisions', () => {
   });
 
   it('brings a version-0 document up to date, and refuses one from a newer version', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const old = structuredClone(demo);
     delete old.schemaVersion;
     delete old.engineLabel;
@@ -141,7 +131,7 @@ describe('create, read, save, revisions', () => {
 
 describe('two people saving the same base revision', () => {
   it('exactly one wins; the other gets 409 with the newer revision; nothing is lost silently', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const editor = await member(teamId, 'editor');
     const mine = structuredClone(demo);
     mine.engine.displacement = 0.0021;
@@ -210,7 +200,7 @@ describe('list, search, filter, paginate', () => {
 
 describe('duplicate, rename, archive, delete', () => {
   it('duplicates with its own history, renames, deletes', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const dup = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/duplicate`, {});
     expect(dup.status).toBe(201);
     expect(dup.body.study.title).toBe('Hill-climb plan (copy)');
@@ -241,41 +231,9 @@ describe('maps in use', () => {
   });
 });
 
-describe('share links', () => {
-  it('opens signed out and read-only; revoked and expired links answer 404', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
-    const made = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/share-links`, { expiresInDays: 7 });
-    expect(made.status).toBe(201);
-    const token = made.body.shareLink.url.split('/share/')[1];
-    const anon = client(t);
-    const shared = await anon.get(`/api/share/${token}`);
-    expect(shared.status).toBe(200);
-    expect(shared.body.title).toBe('Hill-climb plan');
-    expect(Object.keys(shared.body.maps).sort()).toEqual(demo.plans.map((p: { compressorMapId: string }) => p.compressorMapId).sort());
-    // Nothing about the share link lets its holder change the study.
-    expect((await anon.put(`/api/teams/${teamId}/studies/${study.id}`, { baseRevision: 1, document: demo })).status).toBe(401);
-    expect((await anon.agent.put(`/api/share/${token}`).set('Origin', ORIGIN).send({ document: demo })).status).toBe(404);
-    const [stored] = await t.database.db.select().from(shareLinks).where(eq(shareLinks.id, made.body.shareLink.id));
-    expect(stored.tokenHash).not.toBe(token);
-
-    expect((await owner.c.delete(`/api/teams/${teamId}/studies/${study.id}/share-links/${made.body.shareLink.id}`)).status).toBe(204);
-    expect((await anon.get(`/api/share/${token}`)).status).toBe(404);
-
-    const second = await owner.c.post(`/api/teams/${teamId}/studies/${study.id}/share-links`, { expiresInDays: 1 });
-    const token2 = second.body.shareLink.url.split('/share/')[1];
-    await t.database.db
-      .update(shareLinks)
-      .set({ expiresAt: new Date(Date.now() - 1000) })
-      .where(eq(shareLinks.id, second.body.shareLink.id));
-    const expired = await anon.get(`/api/share/${token2}`);
-    expect(expired.status).toBe(404);
-    expectErrorShape(expired.body);
-  });
-});
-
 describe('CSV export', () => {
   it('writes every point with SI units in the headers and neutralises formula-looking cells (ASVS 5.0 1.2.10)', async () => {
-    const { owner, teamId } = await teamWithStudy();
+    const { owner, teamId } = await teamWithStudy(t);
     const doc = structuredClone(demo);
     doc.plans[0].name = '=HYPERLINK("http://x")';
     doc.plans[1].name = '+cmd';
@@ -299,7 +257,7 @@ describe('CSV export', () => {
   });
 
   it('says where each point sits, whether it is reachable and the plan verdict; a limit crossed has its margin at or below 0', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const res = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}/results.csv`);
     expect(res.status).toBe(200);
     const [head, ...rows] = Papa.parse<string[]>(res.text.trim(), { skipEmptyLines: true }).data;
@@ -375,7 +333,7 @@ describe('role matrix for study actions', () => {
   for (const [action, byRole] of Object.entries(expectStatus)) {
     for (const [role, status] of Object.entries(byRole) as [Role, number][]) {
       it(`${role} → ${action} → ${status}`, async () => {
-        const { owner, teamId, study } = await teamWithStudy();
+        const { owner, teamId, study } = await teamWithStudy(t);
         const actor = role === 'owner' ? owner.c : role === 'none' ? (await signedUp(t, 'stranger')).c : (await member(teamId, role)).c;
         expect((await act[action](actor, teamId, study.id)).status).toBe(status);
       });
@@ -397,7 +355,7 @@ describe('the exhaust side in saved studies', () => {
   };
 
   it('saves a plan with a built-in turbine map, shares it with the turbine map and exports the exhaust columns', async () => {
-    const { owner, teamId, study } = await teamWithStudy();
+    const { owner, teamId, study } = await teamWithStudy(t);
     const doc = structuredClone(demo);
     doc.plans[1].turbineMapId = 'builtin-turbine-t64-ar082-single';
     doc.plans[1].exhaust = exhaust;
@@ -431,7 +389,7 @@ describe('the exhaust side in saved studies', () => {
   });
 
   it('refuses a compressor map as a turbine map, and a map of another team', async () => {
-    const { owner, teamId } = await teamWithStudy();
+    const { owner, teamId } = await teamWithStudy(t);
     const doc = structuredClone(demo);
     doc.plans[0].turbineMapId = 'builtin-compressor-m58';
     doc.plans[0].exhaust = exhaust;

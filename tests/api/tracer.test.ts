@@ -365,3 +365,14 @@ describe('access: viewers read, editors and owners write, other teams get 404 (A
     expect((await request(t.app).get(`${base}/images/${imageId}`)).status).toBe(401);
   });
 });
+
+describe('pictures cannot be framed', () => {
+  it("a Tracer picture is served with frame-ancestors 'none'", async () => {
+    const owner = await signedUp(t, 'picture');
+    const png = pngPicture(40, 30);
+    const up = await owner.c.agent.post(`/api/teams/${owner.personalTeamId}/tracer/images`).set('Origin', ORIGIN).attach('file', png, 'tiny.png');
+    expect(up.status).toBe(201);
+    const res = await owner.c.get(`/api/teams/${owner.personalTeamId}/tracer/images/${up.body.image.id}`);
+    expect(res.headers['content-security-policy']).toContain("frame-ancestors 'none'");
+  });
+});

@@ -6,7 +6,7 @@
  *
  *   npm run bench api
  */
-import { DEMO_USER, DEMO_TEAM_NAME, DEMO_STUDY_TITLE } from '#server/db/seed';
+import { DEMO_USER, DEMO_TEAM_NAME, DEMO_STUDY_TITLE } from '#server/services/demo';
 import { bareEndpoint, CONNECTIONS, cookieOf, line, postJson, runAutocannon, startBenchServer } from './lib';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);

@@ -16,7 +16,7 @@ import { chromium } from 'playwright-core';
 import { createApp } from '#server/app';
 import { loadConfig } from '#server/config';
 import { connectDatabase } from '#server/db/client';
-import { DEMO_STUDY_TITLE, DEMO_TEAM_NAME, DEMO_USER } from '#server/db/seed';
+import { DEMO_STUDY_TITLE, DEMO_TEAM_NAME, DEMO_USER } from '#server/services/demo';
 import { createMailer } from '#server/mail/mailer';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');

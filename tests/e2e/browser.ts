@@ -71,7 +71,7 @@ export function watchForPageErrors(page: Page): string[] {
   return errors;
 }
 
-/** The seeded demo owner and team (server/db/seed.ts). */
+/** The seeded demo owner and team (server/services/demo.ts). */
 export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', team: 'Harrow Hill Motorsport' };
 
 /** Signs in through the form and waits to leave the sign-in page. */

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { generate } from 'otplib';
 import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ADMIN_USER, DEMO_USER as DEMO_ACCOUNT } from '#server/db/seed';
+import { ADMIN_USER, DEMO_USER as DEMO_ACCOUNT } from '#server/services/demo';
 import { baseUrl, closeTestDatabase, DEMO_USER, launchBrowser, linkFromOutbox, screenshot, screenshotDir, signIn, watchForPageErrors } from './browser';
 
 let browser: Browser;

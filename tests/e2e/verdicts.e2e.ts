@@ -3,7 +3,7 @@ import { planVerdicts, reasonText, VERDICT_RANK } from '#shared/matching/verdict
 import { migrateStudyDocument, studyDocumentSchema } from '#shared/schemas/study';
 import { compareLines } from '#shared/study/compare';
 import { runStudyDocument } from '#shared/study/run';
-import { DEMO_STUDY_TITLE } from '#server/db/seed';
+import { DEMO_STUDY_TITLE } from '#server/services/demo';
 import { baseUrl, builtinMap, screenshot, shownNumber, suiteBrowser } from './browser';
 
 // The verdict of each plan in the production build: the seeded demo study (only read here), its

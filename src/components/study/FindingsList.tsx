@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import type { Finding, FindingCode, Severity } from '#shared/matching/types';
+import type { Finding, FindingCode, Severity } from '#shared/matching/finding';
 import { planColour } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { formatNumber, formatStudyValue, type UnitSystem, useUnitSystem } from '#src/lib/quantities';

@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/requirements';
+import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/input/requirements';
 import { planVerdicts, reasonWhere, VERDICT_WORDS, type PlanVerdict, type VerdictReason, type VerdictStatus } from '#shared/matching/verdict';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { PlanSwatch } from './PlanSwatch';

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { pointWorking } from '#shared/matching/explain-point';
 import { mapRegionText } from '#shared/matching/results-table';
-import type { OperatingPoint } from '#shared/matching/types';
+import type { OperatingPoint } from '#shared/matching/result';
 import type { WorkingStep, WorkingValue } from '#shared/matching/working';
 import { math } from '#shared/units';
 import { Formula, MathSymbol } from './Formula';

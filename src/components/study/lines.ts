@@ -1,7 +1,7 @@
-import { worstSeverity } from '#shared/matching/findings';
-import { missingMarginWords, type MarginName } from '#shared/matching/margin-words';
+import { worstSeverity } from '#shared/matching/finding';
+import { missingMarginWords, type MarginName } from '#shared/matching/compressor/margin-words';
 import { mapRegionText } from '#shared/matching/results-table';
-import type { OperatingLine, OperatingPoint, SolvedPoint, StudyResult } from '#shared/matching/types';
+import type { OperatingLine, OperatingPoint, SolvedPoint, StudyResult } from '#shared/matching/result';
 import type { HoverItem, OperatingLineView, OperatingPointView, TurbineOperatingLineView, TurbineOperatingPointView } from '../plots/types';
 
 /** One operating line of a study with the key every view of the study uses for it. */

@@ -1,8 +1,9 @@
-import { worstSeverity } from '#shared/matching/findings';
-import { missingMarginWords, type MarginName } from '#shared/matching/margin-words';
-import { RESULT_KEYS } from '#shared/matching/reach';
+import { worstSeverity } from '#shared/matching/finding';
+import { missingMarginWords, type MarginName } from '#shared/matching/compressor/margin-words';
+import { RESULT_KEYS } from '#shared/matching/compressor/reach';
 import { mapRegionText, reachableText, RESULT_COLUMNS, type ResultColumn } from '#shared/matching/results-table';
-import type { PointValues, Severity } from '#shared/matching/types';
+import type { PointValues } from '#shared/matching/result';
+import type { Severity } from '#shared/matching/finding';
 import type { StudyLine } from './lines';
 import { inputText, quantityUnit, type StudyQuantity, type UnitSystem } from '#src/lib/quantities';
 

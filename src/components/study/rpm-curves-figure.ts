@@ -1,9 +1,9 @@
 import type { Annotation, Data, Layout, Shape } from 'plotly.js-dist-min';
-import { DRIVE_PRESSURE_RATIO_WARNING } from '#shared/matching/exhaust-findings';
+import { DRIVE_PRESSURE_RATIO_WARNING } from '#shared/matching/exhaust/findings';
 import { INJECTOR_DUTY_LIMIT, INJECTOR_DUTY_WARNING } from '#shared/matching/findings';
-import { REQUIREMENT_DEFAULTS } from '#shared/matching/requirements';
+import { REQUIREMENT_DEFAULTS } from '#shared/matching/input/requirements';
 import { mapRegionText } from '#shared/matching/results-table';
-import type { PointValues, SolvedPoint } from '#shared/matching/types';
+import type { PointValues, SolvedPoint } from '#shared/matching/result';
 import type { PlotFigure } from '../plots/compressor-map-figure';
 import { planColour, planMarker, plotAxis, plotColours, plotFont, scenarioDash, plotText } from '../plots/style';
 import { sameRpm, type PointRef, type StudyLine } from './lines';

@@ -1,6 +1,7 @@
 import type { CompressorMap } from '#shared/maps/types';
 import { pointWorking } from '#shared/matching/explain-point';
-import type { LineContext, OperatingPoint, SolvedPoint } from '#shared/matching/types';
+import type { LineContext } from '#shared/matching/line-context';
+import type { OperatingPoint, SolvedPoint } from '#shared/matching/result';
 import type { WorkingStep } from '#shared/matching/working';
 import type { StudyDocument } from '#shared/schemas/study';
 import { runStudyDocument } from '#shared/study/run';

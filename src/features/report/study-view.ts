@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '#shared/maps/types';
-import type { StudyResult } from '#shared/matching/types';
+import type { StudyResult } from '#shared/matching/result';
 import type { StudyDocument } from '#shared/schemas/study';
 import { studyLines, type StudyLine } from '#src/components/study/lines';
 import { runStudyLive } from '#src/components/study/run';

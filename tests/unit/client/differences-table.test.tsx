@@ -1,6 +1,7 @@
 import { cleanup, render, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it } from 'vitest';
-import type { ExhaustLineSummary, OperatingPoint, PointValues } from '#shared/matching/types';
+import type { ExhaustLineSummary } from '#shared/matching/exhaust/result';
+import type { OperatingPoint, PointValues } from '#shared/matching/result';
 import { compareLines, type ComparableLine } from '#shared/study/compare';
 import { DifferencesTable, rowUnit, rowValueText } from '#src/features/compare/components/DifferencesTable';
 

@@ -1,6 +1,7 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import type { Finding, OperatingLine, OperatingPoint, PointValues } from '#shared/matching/types';
+import type { Finding } from '#shared/matching/finding';
+import type { OperatingLine, OperatingPoint, PointValues } from '#shared/matching/result';
 import { planVerdicts, reasonText, VERDICT_WORDS } from '#shared/matching/verdict';
 import { studyDocumentSchema } from '#shared/schemas/study';
 import { compareLines, type ComparableLine } from '#shared/study/compare';

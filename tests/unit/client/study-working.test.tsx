@@ -14,7 +14,7 @@ afterEach(cleanup);
 
 const demo = studyDocumentSchema.parse(JSON.parse(readFileSync(path.resolve(import.meta.dirname, '../../../data/demo/hillclimb-study.json'), 'utf8')));
 // Without maps: each plan is judged with its default efficiency, which is enough for the Working's form.
-const lines = studyLines(runStudy(toStudyInput(demo), { validate: false }), demo.plans);
+const lines = studyLines(runStudy(toStudyInput(demo)), demo.plans);
 
 describe('symbols of the Working', () => {
   it('reads the ASCII symbols the way they are written by hand', () => {

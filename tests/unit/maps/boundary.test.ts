@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { compressorModelFromMap, isentropicHead } from '#shared/maps';
-import { isReachable, mapRegionOf } from '#shared/matching/reach';
-import { compressorOf, expectClose, parseOk } from './helpers';
+import { isReachable, mapRegionOf } from '#shared/matching/compressor/reach';
+import { compressorOf, parseOk } from './helpers';
+import { expectClose } from '../expect-close';
 
 // A small hand-made map; every expected value below is worked out by hand from these rows.
 //   surge (0.05, 1.2) (0.08, 1.8) (0.10, 2.4)

@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { COINCIDENCE_TOLERANCE, compressorModelFromMap, mergeCoincidentPoints, parseMapFile, type SurfacePoint } from '#shared/maps';
-import { compressorOf, expectClose, parseOk } from './helpers';
+import { compressorOf, parseOk } from './helpers';
+import { expectClose } from '../expect-close';
 
 const island = (correctedMassFlow: number, pressureRatio: number, value: number): SurfacePoint => ({
   correctedMassFlow,

@@ -1,7 +1,6 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
-import { expect } from 'vitest';
 import { parseMapFile } from '#shared/maps';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '#shared/maps/types';
 
@@ -9,17 +8,6 @@ export const repoRoot = fileURLToPath(new URL('../../../', import.meta.url));
 export const badFixtures = path.join(repoRoot, 'tests/fixtures/maps/bad');
 export const goodFixtures = path.join(repoRoot, 'tests/fixtures/maps/good');
 export const demoMapsFolder = path.join(repoRoot, 'data/maps');
-
-/** |actual − expected| ≤ relTol·|expected| (or ≤ relTol when expected is 0). */
-export function expectClose(actual: number | null | undefined, expected: number, relTol: number): void {
-  expect(actual).not.toBeNull();
-  expect(actual).not.toBeUndefined();
-  const scale = expected === 0 ? 1 : Math.abs(expected);
-  const error = Math.abs((actual as number) - expected) / scale;
-  if (!(error <= relTol)) {
-    throw new Error(`expected ${actual} to be within ${relTol} (relative) of ${expected}; relative error ${error}`);
-  }
-}
 
 export function readBytes(file: string): Uint8Array {
   return new Uint8Array(readFileSync(file));
@@ -45,4 +33,33 @@ export function demoMapFiles(): string[] {
   return readdirSync(demoMapsFolder)
     .filter((f) => f.endsWith('.csv'))
     .sort();
+}
+
+function demoMap(file: string) {
+  const parsed = parseMapFile(readFileSync(path.join(demoMapsFolder, `${file}.csv`), 'utf8'));
+  if (!parsed.ok) throw new Error(`demo map ${file} did not read`);
+  return parsed.map;
+}
+
+/** One of the invented demo turbine maps of data/maps. */
+export function demoTurbine(name: 'ar064-single' | 'ar064-divided' | 'ar082-single' | 'ar082-divided'): TurbineMap {
+  const map = demoMap(`turbine-t64-${name}`);
+  if (map.kind !== 'turbine') throw new Error('not a turbine map');
+  return map;
+}
+
+/** One of the invented demo compressor maps of data/maps. */
+export function demoCompressor(name: 's44' | 'm58' | 'l76'): CompressorMap {
+  const map = demoMap(`compressor-${name}`);
+  if (map.kind !== 'compressor') throw new Error('not a compressor map');
+  return map;
+}
+
+/** A turbine map with every flow parameter scaled (a bigger or smaller housing of the same invented wheel). */
+export function scaledTurbine(map: TurbineMap, factor: number, change: Partial<Pick<TurbineMap, 'housing' | 'scrollFeed' | 'name'>> = {}): TurbineMap {
+  return {
+    ...map,
+    ...change,
+    curves: map.curves.map((c) => ({ ...c, points: c.points.map((p) => ({ ...p, flowParameter: p.flowParameter * factor })) })),
+  };
 }

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { triangulate } from '#shared/maps';
-import { expectClose } from './helpers';
+import { expectClose } from '../expect-close';
 
 /** A fixed, well-spread point set: a jittered grid (deterministic, no randomness). */
 function jitteredGrid(n: number, x0: number, x1: number, y0: number, y1: number): { xs: number[]; ys: number[] } {

@@ -2,9 +2,10 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { compressorModelFromMap, withCompressorFileUnits, withReference, writeMapFile } from '#shared/maps';
-import type { CompressorModel } from '#shared/matching/compressor-model';
+import type { CompressorModel } from '#shared/matching/compressor/model';
 import { toSI } from '#shared/units';
-import { compressorOf, demoMapsFolder, expectClose, parseOk } from './helpers';
+import { compressorOf, demoMapsFolder, parseOk } from './helpers';
+import { expectClose } from '../expect-close';
 
 // A tiny map whose lines are easy to follow by hand.
 const TINY = `# spoolbook-map: 1

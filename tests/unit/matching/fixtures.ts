@@ -1,5 +1,8 @@
-import type { CompressorModel, CompressorReading, MapLocation, MapReference } from '#shared/matching/compressor-model';
-import type { StudyInput } from '#shared/matching/types';
+import { runComputeRequest } from '#shared/compute/run';
+import type { CompressorModel, CompressorReading, MapLocation, MapReference } from '#shared/matching/compressor/model';
+import type { StudyInput } from '#shared/matching/input/study';
+import type { OperatingPoint, PointValues } from '#shared/matching/result';
+import { computeRequestSchema } from '#shared/schemas/compute';
 
 /** 1650 cc/min in m³/s. */
 export const CC_PER_MIN = 1e-6 / 60;
@@ -120,4 +123,21 @@ export function numbersIn(value: unknown, path = '', out: { path: string; value:
   else if (Array.isArray(value)) value.forEach((v, i) => numbersIn(v, `${path}[${i}]`, out));
   else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) numbersIn(v, `${path}.${k}`, out);
   return out;
+}
+
+/** The values of a point the test expects solved (throws with its findings otherwise). */
+export const solved = (p: OperatingPoint): PointValues => {
+  if (!p.solved) throw new Error(`point at ${p.rpm} rpm not solved: ${p.findings.map((f) => f.message).join('; ')}`);
+  return p.values;
+};
+
+/** One point through the compute contract: 2.0 L four-stroke, 6000 rpm, VE 0.90, 200 kPa abs, 320 K, petrol. */
+export function computeAt(lambda: number, boost = 98_675) {
+  const req = computeRequestSchema.parse({
+    engine: { displacement: 0.002, cylinders: 4, strokes: 4 },
+    ambient: { pressure: 101_325, temperature: 293.15 },
+    fuel: { kind: 'petrol', lambda, brakeThermalEfficiency: 0.3 },
+    points: [{ rpm: 6000, volumetricEfficiency: 0.9, boost, manifoldTemperature: 320 }],
+  });
+  return runComputeRequest(req).points[0];
 }

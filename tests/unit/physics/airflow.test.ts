@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { engineAirMassFlow, manifoldDensity, revolutionsPerCycle, sharePerTurbocharger, volumeFlow } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('engine airflow', () => {
   it('gives ρ 2.1773 kg/m³ and ṁ 0.19596 kg/s for 2.0 L, 6000 rpm, VE 0.90, 200 kPa, 320 K', () => {

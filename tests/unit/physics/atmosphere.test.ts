@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import psychrolib from 'psychrolib';
 import { describe, expect, it } from 'vitest';
 import { geopotentialHeight, isaPressure, isaTemperature, ISA_PRESSURE_EXPONENT, isInTroposphere, standardAtmosphere } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('ISA troposphere by geopotential height', () => {
   // Check table of the physics note; rows from ISO 2533:1975 / ICAO Doc 7488 and its constants.

@@ -12,7 +12,7 @@ import {
 } from '#shared/physics/combustion-products';
 import { exhaustGasAt } from '#shared/physics/exhaust-gas';
 import { molarHeatCapacity, type ExhaustSpecies } from '#shared/physics/thermo-polynomials';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('specific heats from the NASA polynomials', () => {
   // NIST-JANAF Thermochemical Tables, 4th ed. (Chase, 1998), cp in J/(mol·K) (from memory). The

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, it } from 'vitest';
 import { actualMassFlow, compressorOutletTemperature, compressorPower, correctedMassFlow, intercoolerOutletTemperature, pressureRatio } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('compressor relations', () => {
   it('gives T2 = 372.30 K and 16.91 kW at PR 2, η 0.75, 0.2 kg/s, cp 1005, T1 288.15 K', () => {

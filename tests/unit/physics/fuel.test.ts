@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ETHANOL, ethanolBlend, ethanolMassFraction, FUEL_PRESETS, fuelMassFlow, fuelProperties, fuelVolumeFlow, METHANOL, PETROL } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('fuels', () => {
   it('has the stoichiometric air-fuel ratios of the check table', () => {

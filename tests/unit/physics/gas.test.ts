@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { AIR_CP, criticalPressureRatio, idealGasDensity, isentropicOutletTemperature, orificeMassFlow } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('gas relations', () => {
   it('gives the critical pressure ratio for γ = 1.4 and 1.33', () => {

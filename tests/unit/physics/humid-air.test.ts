@@ -11,7 +11,7 @@ import {
   humidityRatioFromRelativeHumidity,
   saturationVapourPressure,
 } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('humid air', () => {
   it('holds the saturation pressure and humidity ratio ASHRAE gives at 40 °C', () => {

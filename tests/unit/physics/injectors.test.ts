@@ -9,7 +9,7 @@ import {
   scaleInjectorFlow,
   setCapacity,
 } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('injectors', () => {
   it('scales 550 cc/min at 3 bar to 635.1 cc/min at 4 bar', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { LOSS_REFERENCE_DENSITY, scaledPressureLoss } from '#shared/physics';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('losses that follow the flow', () => {
   it('scale as the square of the flow over the density, worked by hand', () => {

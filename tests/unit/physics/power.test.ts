@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { bsfcFromEfficiency, brakePowerFromAir, DEFAULT_BRAKE_THERMAL_EFFICIENCY, efficiencyFromBsfc, PETROL, torque, wheelPower } from '#shared/physics';
 import { toSI } from '#shared/units';
-import { expectClose } from './expect-close';
+import { expectClose } from '../expect-close';
 
 describe('power from air', () => {
   it('makes about 10 hp of crank power per lb/min of air on petrol (common practice, no source)', () => {

@@ -1,6 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { ExhaustLineSummary, Finding, OperatingPoint, PointValues, Severity } from '#shared/matching/types';
+import type { ExhaustLineSummary } from '#shared/matching/exhaust/result';
+import type { Finding, Severity } from '#shared/matching/finding';
+import type { OperatingPoint, PointValues } from '#shared/matching/result';
 import {
   bestIndicesOf,
   COMPARE_ROW_KEYS,

@@ -5,7 +5,8 @@ import { mapValueFromSI, parseMapFile } from '#shared/maps';
 import type { CompressorMap, TurbineMap } from '#shared/maps/types';
 import { buildTrace, traceFileName, tracedNumber } from '#shared/tracer/build';
 import { newTraceState, traceStateSchema, type TraceCurve, type TraceState } from '#shared/tracer/state';
-import { drawnAt, expectNear, pictureTransform } from './helpers';
+import { expectClose } from '../expect-close';
+import { drawnAt, pictureTransform } from './helpers';
 
 // The fixture maps are read, drawn into a hand-made picture (helpers.ts), traced by "clicking" at
 // the drawn pixels, and built back into a file: the file must read back to the same map, up to
@@ -64,10 +65,10 @@ describe('a traced compressor map becomes a map file', () => {
       const want = fixture.curves[i];
       expect(curve.points).toHaveLength(want.points.length);
       curve.points.forEach((p, j) => {
-        expectNear(p.correctedMassFlow, want.points[j].correctedMassFlow, 1e-5); // 5 significant digits
-        expectNear(p.pressureRatio, want.points[j].pressureRatio, 1e-5);
+        expectClose(p.correctedMassFlow, want.points[j].correctedMassFlow, 1e-5, { absoluteBelow: 1 }); // 5 significant digits
+        expectClose(p.pressureRatio, want.points[j].pressureRatio, 1e-5, { absoluteBelow: 1 });
         if (curve.kind === 'speed') expect(p.speed).toBe(want.points[j].speed);
-        if (curve.kind === 'island') expectNear(p.efficiency!, want.points[j].efficiency!, 1e-12);
+        if (curve.kind === 'island') expectClose(p.efficiency!, want.points[j].efficiency!, 1e-12, { absoluteBelow: 1 });
       });
     });
     expect(build.text).toContain('# note: Traced in the Spoolbook Tracer from a picture, calibrated from 5 reference points');
@@ -206,8 +207,8 @@ describe('a traced turbine map', () => {
     expect(traced.efficiencyKind).toBe('with-bearing-losses');
     traced.curves.forEach((curve, i) =>
       curve.points.forEach((p, j) => {
-        expectNear(p.expansionRatio, map.curves[i].points[j].expansionRatio, 1e-5);
-        expectNear(p.flowParameter / map.curves[i].points[j].flowParameter, 1, 1e-5);
+        expectClose(p.expansionRatio, map.curves[i].points[j].expansionRatio, 1e-5, { absoluteBelow: 1 });
+        expectClose(p.flowParameter / map.curves[i].points[j].flowParameter, 1, 1e-5, { absoluteBelow: 1 });
       }),
     );
   });

@@ -3,7 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { applyAffine, fitAffine, invertAffine } from '#shared/tracer/affine';
 import { axisCoordinate, axisValue } from '#shared/tracer/axes';
 import { calibrate, calibrateClicks, dataToPixel, pixelToData, type ReferenceClick, type ReferencePoint } from '#shared/tracer/calibration';
-import { drawnAt, expectNear, pictureTransform } from './helpers';
+import { expectClose } from '../expect-close';
+import { drawnAt, pictureTransform } from './helpers';
 
 // Every picture below is made by hand from a chosen transform (helpers.ts), so the values a
 // calibration must find are known exactly; tolerances are floating-point round-off (common
@@ -13,7 +14,7 @@ describe('axis scales', () => {
   it('a linear axis keeps the value; a log axis uses log10, and both invert exactly', () => {
     expect(axisCoordinate(2.5, 'linear')).toBe(2.5); // identity, by definition
     expect(axisCoordinate(1000, 'log')).toBe(3); // log10(1000) = 3, by definition
-    expectNear(axisValue(axisCoordinate(0.0731, 'log')!, 'log'), 0.0731, 1e-15);
+    expectClose(axisValue(axisCoordinate(0.0731, 'log')!, 'log'), 0.0731, 1e-15, { absoluteBelow: 1 });
   });
 
   it('refuses values that cannot be on the axis', () => {
@@ -41,14 +42,14 @@ describe('pixel → data → pixel round trips', () => {
       fc.property(fc.double({ min: -200, max: 2000, noNaN: true }), fc.double({ min: -200, max: 2000, noNaN: true }), (px, py) => {
         const data = pixelToData(result.calibration, { x: px, y: py });
         const back = dataToPixel(result.calibration, data)!;
-        expectNear(back.x, px, 1e-9);
-        expectNear(back.y, py, 1e-9);
+        expectClose(back.x, px, 1e-9, { absoluteBelow: 1 });
+        expectClose(back.y, py, 1e-9, { absoluteBelow: 1 });
       }),
     );
     // The hand-made picture puts 0.25 kg/s at PR 2.2 at x = 80 + 1800·0.25, y = 680 − 200·2.2.
     const at = pixelToData(result.calibration, { x: 80 + 1800 * 0.25, y: 680 - 200 * 2.2 });
-    expectNear(at.x, 0.25, 1e-12);
-    expectNear(at.y, 2.2, 1e-12);
+    expectClose(at.x, 0.25, 1e-12, { absoluteBelow: 1 });
+    expectClose(at.y, 2.2, 1e-12, { absoluteBelow: 1 });
   });
 
   it('log axes: round trips are exact too, and decades are evenly spaced', () => {
@@ -67,17 +68,17 @@ describe('pixel → data → pixel round trips', () => {
       fc.property(fc.double({ min: 1e-3, max: 10, noNaN: true }), fc.double({ min: 1, max: 6, noNaN: true }), (flow, ratio) => {
         const pixel = dataToPixel(result.calibration, { x: flow, y: ratio })!;
         const data = pixelToData(result.calibration, pixel);
-        expectNear(data.x, flow, 1e-9);
-        expectNear(data.y, ratio, 1e-9);
+        expectClose(data.x, flow, 1e-9, { absoluteBelow: 1 });
+        expectClose(data.y, ratio, 1e-9, { absoluteBelow: 1 });
         const again = dataToPixel(result.calibration, data)!;
-        expectNear(again.x, pixel.x, 1e-9);
-        expectNear(again.y, pixel.y, 1e-9);
+        expectClose(again.x, pixel.x, 1e-9, { absoluteBelow: 1 });
+        expectClose(again.y, pixel.y, 1e-9, { absoluteBelow: 1 });
       }),
     );
     // One decade of flow is 400 px wherever it starts (the picture was made so).
     const a = dataToPixel(result.calibration, { x: 0.03, y: 2 })!;
     const b = dataToPixel(result.calibration, { x: 0.3, y: 2 })!;
-    expectNear(b.x - a.x, 400, 1e-9);
+    expectClose(b.x - a.x, 400, 1e-9, { absoluteBelow: 1 });
     expect(dataToPixel(result.calibration, { x: 0, y: 2 })).toBeNull();
   });
 });
@@ -96,11 +97,11 @@ describe('the least-squares affine fit', () => {
     const result = fitAffine(values.map((v) => ({ from: v, to: drawnAt(picture, v) })));
     if (!result.ok) throw new Error(result.reason);
     const t = result.fit.transform;
-    for (const key of ['a', 'b', 'c', 'd', 'e', 'f'] as const) expectNear(t[key], picture[key], 1e-9);
+    for (const key of ['a', 'b', 'c', 'd', 'e', 'f'] as const) expectClose(t[key], picture[key], 1e-9, { absoluteBelow: 1 });
     // The angle and scales themselves, read back from the fitted matrix.
-    expectNear((Math.atan2(t.c, t.a) * 180) / Math.PI, 2.5, 1e-9);
-    expectNear(Math.hypot(t.a, t.c), 1650, 1e-9);
-    expectNear(Math.hypot(t.b, t.d), 210, 1e-9);
+    expectClose((Math.atan2(t.c, t.a) * 180) / Math.PI, 2.5, 1e-9, { absoluteBelow: 1 });
+    expectClose(Math.hypot(t.a, t.c), 1650, 1e-9, { absoluteBelow: 1 });
+    expectClose(Math.hypot(t.b, t.d), 210, 1e-9, { absoluteBelow: 1 });
     expect(result.fit.rmsResidual).toBeLessThan(1e-9); // pixels; exact data, so round-off only
     expect(result.fit.degreesOfFreedom).toBe(4); // 2·5 equations − 6 unknowns
   });
@@ -153,8 +154,8 @@ describe('the least-squares affine fit', () => {
     const t = { a: 2, b: 0.5, c: -0.25, d: 3, e: 7, f: -4 };
     const inverse = invertAffine(t)!;
     const p = applyAffine(inverse, applyAffine(t, { x: 1.25, y: -3.5 }));
-    expectNear(p.x, 1.25, 1e-14);
-    expectNear(p.y, -3.5, 1e-14);
+    expectClose(p.x, 1.25, 1e-14, { absoluteBelow: 1 });
+    expectClose(p.y, -3.5, 1e-14, { absoluteBelow: 1 });
     expect(invertAffine({ a: 1, b: 2, c: 2, d: 4, e: 0, f: 0 })).toBeNull();
   });
 });
@@ -180,8 +181,8 @@ describe('calibrating from the clicks the Tracer asks for', () => {
     if (!result.ok) throw new Error(result.problems[0].message);
     for (const r of residualsByClick) expect(r!).toBeLessThan(1e-9);
     const data = pixelToData(result.calibration, drawnAt(picture, { x: 0.2, y: 2.7 }));
-    expectNear(data.x, 0.2, 1e-12);
-    expectNear(data.y, 2.7, 1e-12);
+    expectClose(data.x, 0.2, 1e-12, { absoluteBelow: 1 });
+    expectClose(data.y, 2.7, 1e-12, { absoluteBelow: 1 });
   });
 
   it('a click off its axis shows in the residual', () => {

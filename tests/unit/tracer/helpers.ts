@@ -1,13 +1,5 @@
-import { expect } from 'vitest';
 import { applyAffine, type Affine, type PlanePoint } from '#shared/tracer/affine';
 import { axisCoordinate, type AxisScale } from '#shared/tracer/axes';
-
-/** |actual − expected| ≤ tol·max(|expected|, 1): relative for large values, absolute near zero. */
-export function expectNear(actual: number, expected: number, tol: number): void {
-  const scale = Math.max(Math.abs(expected), 1);
-  const error = Math.abs(actual - expected) / scale;
-  expect(error, `${actual} should be within ${tol} of ${expected}`).toBeLessThanOrEqual(tol);
-}
 
 /**
  * A picture made by hand: axis coordinates scaled, rotated by `degrees` (clockwise on screen, as a

@@ -1,6 +1,6 @@
 import { useMemo, useState, type ReactNode } from 'react';
 import type { CompressorMap } from '#shared/maps/types';
-import type { OperatingPoint, PointValues } from '#shared/matching/types';
+import type { OperatingPoint, PointValues } from '#shared/matching/result';
 import { Alert } from '#src/components/Alert';
 import { Card } from '#src/components/Card';
 import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';

@@ -1,4 +1,4 @@
-import { DEFAULT_PULSE_FACTOR } from '#shared/matching/exhaust';
+import { DEFAULT_PULSE_FACTOR } from '#shared/matching/exhaust/context';
 import type { StudyDocument } from '#shared/schemas/study';
 import { formatNumber } from '#src/lib/quantities';
 

@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import type { Severity } from '#shared/matching/types';
+import type { Severity } from '#shared/matching/finding';
 import { planColour } from '#src/components/plots/style';
 import { groupFindings, localizeMessage } from '#src/components/study/FindingsList';
 import type { StudyLine } from '#src/components/study/lines';

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
-import { DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
-import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/requirements';
-import type { RpmTable } from '#shared/matching/types';
+import { DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust/context';
+import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/input/requirements';
+import type { RpmTable } from '#shared/matching/input/rpm';
 import type { StudyDocument } from '#shared/schemas/study';
 import { planColour } from '#src/components/plots/style';
 import { mapName, type StudyViewData } from '../study-view';

@@ -1,5 +1,5 @@
 import { fuelProperties } from '#shared/physics';
-import { fuelChoiceSchema } from '#shared/schemas/compute';
+import { fuelChoiceSchema } from '#shared/matching/input/fuel-system';
 import type { StudyDraft } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';
 import { ChoiceField, NumberField } from './fields';

@@ -1,5 +1,5 @@
 import { turbineEfficiencyKindMeaning } from '#shared/maps/format';
-import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust';
+import { DEFAULT_PULSE_FACTOR, DEFAULT_TURBINE_EFFICIENCY } from '#shared/matching/exhaust/context';
 import type { MapSummary } from '#src/features/maps/api';
 import type { ExhaustDraft } from '#src/features/studies/lib/draft';
 import { useEditor } from './context';

@@ -1,4 +1,4 @@
-import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '#shared/matching/requirements';
+import { REQUIREMENT_DEFAULTS, resolveRequirements, type Requirements } from '#shared/matching/input/requirements';
 import { pathKey } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
 import { useEditor } from './context';

@@ -1,6 +1,6 @@
 import { useCallback, useMemo, useRef, useState } from 'react';
 import type { SpoolbookMap } from '#shared/maps/types';
-import type { StudyResult } from '#shared/matching/types';
+import type { StudyResult } from '#shared/matching/result';
 import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
 import { studyLines, type StudyLine } from '#src/components/study/lines';
 import { runStudyLive } from '#src/components/study/run';
