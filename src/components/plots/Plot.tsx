@@ -1,8 +1,9 @@
 import { lazy, Suspense, type ComponentType } from 'react';
+import type * as PlotlyModule from 'plotly.js-dist-min';
 import type { PlotParams } from 'react-plotly.js/factory';
 
 /** The plotly.js API (the minified distribution): loaded once, on the first plot or export. */
-export type PlotlyApi = typeof import('plotly.js-dist-min');
+export type PlotlyApi = typeof PlotlyModule;
 
 let plotlyPromise: Promise<PlotlyApi> | null = null;
 

@@ -202,27 +202,26 @@ export function ResultsTable({
   const pageCount = Math.max(1, Math.ceil(sortedRows.length / PAGE_SIZE));
   const selectedId = selected ? (allRows.find((r) => r.lineKey === selected.lineKey && sameRpm(r.rpm, selected.rpm))?.id ?? null) : null;
 
-  // Show the page that holds the selected point, so a click on a finding lands on its row.
-  useEffect(() => {
-    if (!selectedId) return;
-    const index = sortedRows.findIndex((r) => r.id === selectedId);
+  // Show the page that holds the selected point, so a click on a finding lands on its row. Only
+  // when the selection changes: sorting later must not jump pages under the reader.
+  const [shownSelection, setShownSelection] = useState<string | null>(null);
+  if (selectedId !== shownSelection) {
+    setShownSelection(selectedId);
+    const index = selectedId ? sortedRows.findIndex((r) => r.id === selectedId) : -1;
     if (index >= 0) {
       const page = Math.floor(index / PAGE_SIZE);
-      setPagination((p) => (p.pageIndex === page ? p : { ...p, pageIndex: page }));
-    } else if (filter !== 'all') {
+      if (pagination.pageIndex !== page) setPagination({ ...pagination, pageIndex: page });
+    } else if (selectedId && filter !== 'all') {
       setLineFilter('all');
     }
-    // Only when the selection changes: sorting later must not jump pages under the reader.
-  }, [selectedId]);
+  }
 
   useEffect(() => {
     selectedRowRef.current?.scrollIntoView({ block: 'nearest', inline: 'nearest' });
   }, [selectedId, pagination.pageIndex]);
 
   // A page past the end (fewer rows after an edit or a filter) falls back to the last page.
-  useEffect(() => {
-    if (pagination.pageIndex > pageCount - 1) setPagination((p) => ({ ...p, pageIndex: pageCount - 1 }));
-  }, [pageCount, pagination.pageIndex]);
+  if (pagination.pageIndex > pageCount - 1) setPagination({ ...pagination, pageIndex: pageCount - 1 });
 
   async function copy() {
     try {

@@ -4,6 +4,9 @@ import { hasExhaust, type PointRef, type StudyLine } from './lines';
 import { curveViewsFor, rpmCurvesFigure } from './rpm-curves-figure';
 import { useUnitSystem } from '#src/lib/quantities';
 
+const VIEWS_WITH_EXHAUST = curveViewsFor(true);
+const VIEWS_COMPRESSOR_ONLY = curveViewsFor(false);
+
 /**
  * Curves against engine speed, one quantity at a time (boost, pressure ratio, mass flow, power
  * and torque at crank and wheels, injector duty, compressor outlet temperature, and with the
@@ -32,7 +35,7 @@ export function RpmCurves({
   const unitSystem = useUnitSystem();
   const [viewId, setViewId] = useState(initialView);
   const withExhaust = useMemo(() => hasExhaust(lines), [lines]);
-  const views = curveViewsFor(withExhaust);
+  const views = withExhaust ? VIEWS_WITH_EXHAUST : VIEWS_COMPRESSOR_ONLY;
   const view = views.find((v) => v.id === viewId) ?? views[0];
   const legendRows = Math.ceil(lines.length / 2);
   const plotHeight = height + legendRows * 18;

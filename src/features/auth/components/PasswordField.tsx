@@ -1,7 +1,8 @@
 import { useEffect, useState } from 'react';
+import type { judgePassword } from '#shared/passwords/strength';
 import { TextField, type TextFieldProps } from '#src/components/TextField';
 
-type Judge = typeof import('#shared/passwords/strength').judgePassword;
+type Judge = typeof judgePassword;
 
 // The strength estimator carries a dictionary of common passwords: load it only on forms that
 // ask for a new password, and only once.

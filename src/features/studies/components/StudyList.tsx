@@ -53,7 +53,12 @@ function useListParams() {
 function SearchBox({ value, onChange }: { value: string; onChange: (q: string) => void }) {
   const id = useId();
   const [text, setText] = useState(value);
-  useEffect(() => setText(value), [value]);
+  // The search in the address changed (a search ran, or back and forward): show it.
+  const [shownValue, setShownValue] = useState(value);
+  if (value !== shownValue) {
+    setShownValue(value);
+    setText(value);
+  }
   // A request per pause in typing, not per key.
   useEffect(() => {
     if (text === value) return;

@@ -1,4 +1,4 @@
-import { useEffect, useId, useState, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { studyTitleSchema } from '#shared/schemas/study';
 import { Alert } from '#src/components/Alert';
 import { Button } from '#src/components/Button';
@@ -37,13 +37,17 @@ export function TitleDialog({
   const [formError, setFormError] = useState<string | null>(null);
   const [pending, setPending] = useState(false);
 
-  useEffect(() => {
-    if (open) {
-      setValue(initialTitle);
+  // Each opening (or a new starting title while open) starts from the starting title, no errors.
+  const opening = open ? initialTitle : null;
+  const [openedWith, setOpenedWith] = useState(opening);
+  if (opening !== openedWith) {
+    setOpenedWith(opening);
+    if (opening !== null) {
+      setValue(opening);
       setFieldError(null);
       setFormError(null);
     }
-  }, [open, initialTitle]);
+  }
 
   async function submit(event: React.FormEvent) {
     event.preventDefault();

@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useLayoutEffect, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent as ReactPointerEvent } from 'react';
 import type { PlanePoint } from '#shared/tracer/affine';
 import { Button } from '#src/components/Button';
 import { drawScene, type Overlay } from '../lib/draw';
@@ -66,19 +66,23 @@ export function TraceCanvas({
   const boxRef = useRef<HTMLDivElement>(null);
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const [size, setSize] = useState({ width: 0, height: 0 });
-  const [view, setView] = useState<CanvasView | null>(null);
+  // The view the user zoomed or panned to; null while the picture is fitted to the canvas, so the
+  // fitted view follows the canvas size and the picture.
+  const [userView, setUserView] = useState<CanvasView | null>(null);
+  const fitted = useMemo(() => (size.width > 0 ? fitView(imageSize, size) : null), [imageSize, size]);
+  const view = userView ?? fitted;
   const [image, setImage] = useState<HTMLImageElement | null>(null);
-  const [imageError, setImageError] = useState(false);
+  // The picture address that failed to load: the error shows while that address is the one asked for.
+  const [failedUrl, setFailedUrl] = useState<string | null>(null);
+  const imageError = failedUrl === imageUrl;
   const [cursorText, setCursorText] = useState<string | null>(null);
   const [spaceHeld, setSpaceHeld] = useState(false);
   const cursor = useRef<PlanePoint | null>(null);
   const gesture = useRef<Gesture | null>(null);
-  const userZoomed = useRef(false);
   const frame = useRef(0);
 
   // Everything the drawing needs, read when the frame is drawn.
   const scene = useRef({ overlay, view, image, size, tool });
-  scene.current = { overlay, view, image, size, tool };
 
   const draw = useCallback(() => {
     cancelAnimationFrame(frame.current);
@@ -103,15 +107,29 @@ export function TraceCanvas({
     });
   }, [imageSize, readOnly]);
 
-  useEffect(() => draw(), [draw, overlay, view, image, size, tool]);
+  // The canvas's backing store follows its box (a new size clears it; the drawing below repaints).
+  useEffect(() => {
+    const canvas = canvasRef.current;
+    if (!canvas || size.width === 0) return;
+    const dpr = window.devicePixelRatio || 1;
+    canvas.width = Math.round(size.width * dpr);
+    canvas.height = Math.round(size.height * dpr);
+  }, [size]);
+
+  useEffect(() => {
+    scene.current = { overlay, view, image, size, tool };
+    draw();
+  }, [draw, overlay, view, image, size, tool]);
   useEffect(() => () => cancelAnimationFrame(frame.current), []);
 
   useEffect(() => {
-    setImageError(false);
     const img = new Image();
     img.decoding = 'async';
-    img.onload = () => setImage(img);
-    img.onerror = () => setImageError(true);
+    img.onload = () => {
+      setImage(img);
+      setFailedUrl(null);
+    };
+    img.onerror = () => setFailedUrl(imageUrl);
     img.src = imageUrl;
     return () => {
       img.onload = null;
@@ -132,23 +150,14 @@ export function TraceCanvas({
     return () => observer.disconnect();
   }, []);
 
-  useEffect(() => {
-    const canvas = canvasRef.current;
-    if (!canvas || size.width === 0) return;
-    const dpr = window.devicePixelRatio || 1;
-    canvas.width = Math.round(size.width * dpr);
-    canvas.height = Math.round(size.height * dpr);
-    if (!userZoomed.current || view === null) setView(fitView(imageSize, size));
-    else draw();
-    // Only a new size refits (the view itself is the user's), so the view is left out on purpose.
-  }, [size, imageSize]);
-
   const zoomBy = useCallback(
     (factor: number, anchor?: PlanePoint) => {
-      userZoomed.current = true;
-      setView((v) => (v ? zoomAt(v, factor, anchor ?? { x: size.width / 2, y: size.height / 2 }) : v));
+      setUserView((v) => {
+        const from = v ?? fitted;
+        return from ? zoomAt(from, factor, anchor ?? { x: size.width / 2, y: size.height / 2 }) : v;
+      });
     },
-    [size],
+    [size, fitted],
   );
 
   // Wheel zoom needs a non-passive listener to keep the page from scrolling.
@@ -219,8 +228,7 @@ export function TraceCanvas({
     const g = gesture.current;
     if (view) setCursorText(readout(toImage(view, screen)));
     if (g?.kind === 'pan') {
-      userZoomed.current = true;
-      setView({ ...g.view, x: g.view.x + screen.x - g.start.x, y: g.view.y + screen.y - g.start.y });
+      setUserView({ ...g.view, x: g.view.x + screen.x - g.start.x, y: g.view.y + screen.y - g.start.y });
       return;
     }
     if (g && view) {
@@ -261,8 +269,7 @@ export function TraceCanvas({
     } else if (event.key === '-') {
       zoomBy(0.8);
     } else if (event.key === '0') {
-      userZoomed.current = false;
-      setView(fitView(imageSize, size));
+      setUserView(null);
     } else if (moves[event.key]) {
       event.preventDefault();
       if (!readOnly) onNudge(...moves[event.key]);
@@ -284,16 +291,17 @@ export function TraceCanvas({
         </Button>
         <Button
           onClick={() => {
-            userZoomed.current = false;
-            setView(fitView(imageSize, size));
+            setUserView(null);
           }}
         >
           Fit
         </Button>
         <Button
           onClick={() => {
-            userZoomed.current = true;
-            setView((v) => (v ? actualSizeView(v, { x: size.width / 2, y: size.height / 2 }) : v));
+            setUserView((v) => {
+              const from = v ?? fitted;
+              return from ? actualSizeView(from, { x: size.width / 2, y: size.height / 2 }) : v;
+            });
           }}
           aria-label="Actual size"
         >

@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useRef, useState } from 'react';
 import type { DraftDetail } from '#shared/tracer/api';
 import type { TraceState } from '#shared/tracer/state';
 import { tracerKeys } from '../api/keys';
@@ -21,8 +21,11 @@ export function useDraftSync({ teamId, draft, state, enabled }: { teamId: string
   const queryClient = useQueryClient();
   const revision = useRef(draft.revision);
   const saved = useRef<TraceState>(draft.state);
+  // The trace on screen, for the saves started from handlers and timers; written once it is rendered.
   const latest = useRef(state);
-  latest.current = state;
+  useLayoutEffect(() => {
+    latest.current = state;
+  }, [state]);
   const chain = useRef<Promise<unknown>>(Promise.resolve());
   const conflicted = useRef(false);
   const [status, setStatus] = useState<SyncStatus>({ kind: 'saved' });

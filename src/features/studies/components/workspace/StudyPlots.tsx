@@ -1,4 +1,4 @@
-import { memo, useCallback, useDeferredValue, useId, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useDeferredValue, useId, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import type { SpoolbookMap } from '#shared/maps/types';
 import { Card } from '#src/components/Card';
 import { CompressorMapPlot } from '#src/components/plots/CompressorMapPlot';
@@ -72,7 +72,7 @@ export function StudyPlots({
   }, [computed, sharedMap, showOthers, drawnMapId]);
 
   // The turbine map: plans with an exhaust side and a turbine map; one map drawn at a time.
-  const turbinePlans = plans.filter((p) => p.exhaust && p.turbineMapId);
+  const turbinePlans = useMemo(() => (computed?.doc.plans ?? []).filter((p) => p.exhaust && p.turbineMapId), [computed]);
   const turbinePlan = turbinePlans.find((p) => p.id === turbinePlanId) ?? turbinePlans[0];
   const turbineMapId = turbinePlan?.turbineMapId ?? null;
   const turbineMap = turbineMapId ? mapsById[turbineMapId] : undefined;
@@ -87,7 +87,9 @@ export function StudyPlots({
 
   // One stable handler for the memoised plots and table; it reads the latest state through a ref.
   const latest = useRef({ computed, drawnMapId, sharedMap, onSelect });
-  latest.current = { computed, drawnMapId, sharedMap, onSelect };
+  useLayoutEffect(() => {
+    latest.current = { computed, drawnMapId, sharedMap, onSelect };
+  });
   const select = useCallback((point: PointRef) => {
     const { computed: c, drawnMapId: drawn, sharedMap: shared, onSelect: notify } = latest.current;
     notify(point);

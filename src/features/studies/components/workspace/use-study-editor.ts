@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useRef, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import type { SpoolbookMap } from '#shared/maps/types';
 import type { StudyResult } from '#shared/matching/result';
 import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
@@ -69,7 +69,7 @@ export function useStudyCompute(draft: StudyDraft, mapsById: Record<string, Spoo
     const result = runStudyLive(parsed.data, mapsById);
     return { doc: parsed.data, result, lines: studyLines(result, parsed.data.plans) };
   }, [parsed, mapsById, mapsReady]);
-  const lastGood = useRef<Computed | null>(null);
-  if (computedNow) lastGood.current = computedNow;
-  return { parsed, issues, valid: parsed.success, computed: computedNow ?? lastGood.current, stale: computedNow === null };
+  const [lastGood, setLastGood] = useState<Computed | null>(null);
+  if (computedNow && computedNow !== lastGood) setLastGood(computedNow);
+  return { parsed, issues, valid: parsed.success, computed: computedNow ?? lastGood, stale: computedNow === null };
 }
