@@ -1,9 +1,10 @@
-import { useRef, useState, type DragEvent } from 'react';
+import { useRef, useState } from 'react';
 import { Link } from 'react-router';
 import type { SpoolbookMap } from '#shared/maps/types';
 import { uploadMapFieldsSchema } from '#shared/schemas/map-library';
 import { Alert } from '#src/components/Alert';
-import { Button, buttonClass } from '#src/components/Button';
+import { Button } from '#src/components/Button';
+import { FileDrop } from '#src/components/FileDrop';
 import { Form, FormActions } from '#src/components/Form';
 import { TextField } from '#src/components/TextField';
 import { isApiError } from '#src/lib/api-client';
@@ -34,7 +35,6 @@ function problemCount(problems: readonly MapFileProblem[]): string {
 export function MapUpload({ teamId }: { teamId: string }) {
   const upload = useUploadMap(teamId);
   const [stage, setStage] = useState<Stage>({ step: 'choose' });
-  const [dragging, setDragging] = useState(false);
   const [errors, setErrors] = useState<FormErrors>(noFormErrors);
   const [serverProblems, setServerProblems] = useState<MapFileProblem[] | null>(null);
   const [saved, setSaved] = useState<{ id: string; name: string; notes: MapFileProblem[] } | null>(null);
@@ -57,13 +57,6 @@ export function MapUpload({ teamId }: { teamId: string }) {
         setErrors({ form: `“${file.name}” could not be read from your computer. Choose it again.`, fields: {} });
       }
     }
-  }
-
-  function onDrop(event: DragEvent<HTMLDivElement>) {
-    event.preventDefault();
-    setDragging(false);
-    const file = event.dataTransfer.files[0];
-    if (file) void take(file);
   }
 
   function save(form: HTMLFormElement, read: ReadMapFile) {
@@ -92,38 +85,10 @@ export function MapUpload({ teamId }: { teamId: string }) {
 
   return (
     <div className="space-y-5">
-      <div
-        onDragOver={(event) => {
-          event.preventDefault();
-          setDragging(true);
-        }}
-        onDragLeave={() => setDragging(false)}
-        onDrop={onDrop}
-        className={`flex flex-wrap items-center gap-x-4 gap-y-3 rounded-lg border-2 border-dashed px-5 py-4 transition-colors ${
-          dragging ? 'border-teal bg-teal-light/40' : 'border-ink/20 bg-white/50'
-        }`}
-      >
-        <label
-          className={`${buttonClass('primary')} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-teal`}
-        >
-          Choose a map file
-          <input
-            type="file"
-            accept=".csv,text/csv,text/plain"
-            className="sr-only"
-            onChange={(event) => {
-              const file = event.target.files?.[0];
-              // Cleared so that choosing the same file again, after fixing it, reads it again.
-              event.target.value = '';
-              if (file) void take(file);
-            }}
-          />
-        </label>
-        <p className="max-w-prose text-sm text-ink-soft">
-          or drop one here. A map file is CSV text in the Spoolbook map format. It is checked on this page straight away; nothing is saved until you press “Save
-          to library”.
-        </p>
-      </div>
+      <FileDrop label="Choose a map file" accept=".csv,text/csv,text/plain" onFile={(file) => void take(file)}>
+        or drop one here. A map file is CSV text in the Spoolbook map format. It is checked on this page straight away; nothing is saved until you press “Save
+        to library”.
+      </FileDrop>
 
       {saved && (
         <Alert tone="success" title={`Saved “${saved.name}” to the library.`}>

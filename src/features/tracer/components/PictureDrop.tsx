@@ -1,8 +1,8 @@
-import { useRef, useState, type DragEvent } from 'react';
+import { useRef, useState } from 'react';
 import { useNavigate } from 'react-router';
 import { MAX_IMAGE_BYTES, MAX_IMAGE_PIXELS } from '#shared/tracer/image-header';
 import { Alert } from '#src/components/Alert';
-import { buttonClass } from '#src/components/Button';
+import { FileDrop } from '#src/components/FileDrop';
 import { isApiError } from '#src/lib/api-client';
 import { paths } from '#src/lib/paths';
 import { useStartTrace } from '../api/start-trace';
@@ -12,7 +12,6 @@ import { nameFromFile, readPicture } from '../lib/read-picture';
 export function PictureDrop({ teamId }: { teamId: string }) {
   const start = useStartTrace(teamId);
   const navigate = useNavigate();
-  const [dragging, setDragging] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
   const [reading, setReading] = useState<string | null>(null);
   const attempt = useRef(0);
@@ -43,41 +42,15 @@ export function PictureDrop({ teamId }: { teamId: string }) {
 
   return (
     <div className="space-y-3">
-      <div
-        onDragOver={(event) => {
-          event.preventDefault();
-          setDragging(true);
-        }}
-        onDragLeave={() => setDragging(false)}
-        onDrop={(event: DragEvent<HTMLDivElement>) => {
-          event.preventDefault();
-          setDragging(false);
-          const file = event.dataTransfer.files[0];
-          if (file) void take(file);
-        }}
-        className={`flex flex-wrap items-center gap-x-4 gap-y-3 rounded-lg border-2 border-dashed px-5 py-4 transition-colors ${dragging ? 'border-teal bg-teal-light/40' : 'border-ink/20 bg-white/50'}`}
+      <FileDrop
+        label={start.isPending ? 'Uploading…' : 'Choose a picture'}
+        accept="image/png,image/jpeg,.png,.jpg,.jpeg"
+        disabled={start.isPending}
+        onFile={(file) => void take(file)}
       >
-        <label
-          className={`${buttonClass('primary')} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-teal`}
-        >
-          {start.isPending ? 'Uploading…' : 'Choose a picture'}
-          <input
-            type="file"
-            accept="image/png,image/jpeg,.png,.jpg,.jpeg"
-            className="sr-only"
-            disabled={start.isPending}
-            onChange={(event) => {
-              const file = event.target.files?.[0];
-              event.target.value = '';
-              if (file) void take(file);
-            }}
-          />
-        </label>
-        <p className="max-w-prose text-sm text-ink-soft">
-          or drop one here: a PNG or JPEG of a compressor or turbine map (a scan, a screenshot, a photo taken square on), up to {MAX_IMAGE_BYTES / 1024 / 1024}{' '}
-          MB and {MAX_IMAGE_PIXELS / 1e6} megapixels. The file is checked by its content, not its name.
-        </p>
-      </div>
+        or drop one here: a PNG or JPEG of a compressor or turbine map (a scan, a screenshot, a photo taken square on), up to {MAX_IMAGE_BYTES / 1024 / 1024} MB
+        and {MAX_IMAGE_PIXELS / 1e6} megapixels. The file is checked by its content, not its name.
+      </FileDrop>
       {reading && (
         <p role="status" className="text-sm text-ink-soft">
           Checking “{reading}”…

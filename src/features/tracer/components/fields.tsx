@@ -1,5 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
-import { FieldError, inputClass } from '#src/components/TextField';
+import { inputClass, TextField } from '#src/components/TextField';
 import { parseTypedNumber, unitLabel } from '#src/lib/quantities';
 
 /** The id of a setting's input, so a problem in the file can send the user straight to it. */
@@ -18,7 +18,7 @@ function traceNumber(text: string): number | null | undefined {
 }
 
 /**
- * A number input that keeps what the user types (so "1." or "-" can be on the way to a number)
+ * A number box that keeps what the user types (so "1." or "-" can be on the way to a number)
  * and hands the trace a number, or null while the field is empty or not a number yet.
  */
 export function NumberField({
@@ -44,8 +44,6 @@ export function NumberField({
   hideLabel?: boolean;
   placeholder?: string;
 }) {
-  const generated = useId();
-  const inputId = id ?? generated;
   const [text, setText] = useState(value === null ? '' : String(value));
   // Undo, redo or a loaded draft change the value from outside: show it, unless the text already
   // says it (adjusted while rendering, as React advises for state that follows a prop).
@@ -57,41 +55,26 @@ export function NumberField({
   }
 
   const read = text.trim() === '' ? null : parseTypedNumber(text, { limit: TRACE_NUMBER_LIMIT });
-  const error = read && !read.ok ? read.message : null;
-  const hintId = hint ? `${inputId}-hint` : undefined;
-  const errorId = error ? `${inputId}-error` : undefined;
   return (
-    <div className={`space-y-1 ${className}`}>
-      <label htmlFor={inputId} className={hideLabel ? 'sr-only' : 'block text-sm font-semibold text-ink'}>
-        {label}
-      </label>
-      <div className="flex items-center gap-2">
-        <input
-          id={inputId}
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          spellCheck={false}
-          className={`${inputClass} numeric`}
-          value={text}
-          disabled={disabled}
-          placeholder={placeholder}
-          aria-invalid={error ? true : undefined}
-          aria-describedby={[errorId, hintId].filter(Boolean).join(' ') || undefined}
-          onChange={(event) => {
-            setText(event.target.value);
-            onChange(traceNumber(event.target.value) ?? null);
-          }}
-        />
-        {unit && <span className="shrink-0 text-sm text-ink-soft">{unit}</span>}
-      </div>
-      {error && <FieldError id={errorId!}>{error}</FieldError>}
-      {hint && (
-        <p id={hintId} className="text-xs text-ink-soft">
-          {hint}
-        </p>
-      )}
-    </div>
+    <TextField
+      label={label}
+      id={id}
+      hideLabel={hideLabel}
+      unit={unit ?? null}
+      hint={hint}
+      error={read && !read.ok ? read.message : null}
+      className={className}
+      inputMode="decimal"
+      autoComplete="off"
+      spellCheck={false}
+      value={text}
+      disabled={disabled}
+      placeholder={placeholder}
+      onChange={(event) => {
+        setText(event.target.value);
+        onChange(traceNumber(event.target.value) ?? null);
+      }}
+    />
   );
 }
 

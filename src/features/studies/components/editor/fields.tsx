@@ -1,5 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
-import { FieldError, inputClass } from '#src/components/TextField';
+import { FieldError, inputClass, TextField } from '#src/components/TextField';
 import { asSentence } from '#src/lib/forms';
 import { getIn, pathKey, type DocPath } from '#src/features/studies/lib/draft';
 import { localizeIssue } from '#src/features/studies/lib/localize-issue';
@@ -95,53 +95,45 @@ export function UnitNumberInput({
   }
 
   const message = typingError ?? (error ? asSentence(error) : null);
+  const boxProps = {
+    inputMode: 'decimal',
+    autoComplete: 'off',
+    value: text,
+    placeholder,
+    'data-testid': testId,
+    onChange: (e: React.ChangeEvent<HTMLInputElement>) => change(e.target.value),
+    onFocus: () => {
+      if (typingError === null) setTyped(shown);
+      setFocused(true);
+    },
+    // A number typed as "1." or "+2" reads back in its plain form once the user moves on.
+    onBlur: () => setFocused(false),
+    onPaste,
+  } as const;
+
+  if (!compact) return <TextField label={label} unit={unit.label} error={message} hint={hint} {...boxProps} />;
+
+  // A table cell: a small box, the label and unit for assistive technology only.
   const errorId = message ? `${id}-error` : undefined;
   const hintId = hint ? `${id}-hint` : undefined;
-  const describedBy = [errorId, hintId].filter(Boolean).join(' ') || undefined;
-  const unitText = unit.label;
-
   return (
-    <div className={compact ? '' : 'space-y-1'}>
-      <label htmlFor={id} className={compact ? 'sr-only' : 'block text-sm font-semibold text-ink'}>
+    <div>
+      <label htmlFor={id} className="sr-only">
         {label}
-        {compact && unitText ? ` (${unitText})` : ''}
+        {unit.label ? ` (${unit.label})` : ''}
       </label>
-      <div className="relative">
-        <input
-          id={id}
-          inputMode="decimal"
-          autoComplete="off"
-          value={text}
-          placeholder={placeholder}
-          aria-invalid={message ? true : undefined}
-          aria-describedby={describedBy}
-          data-testid={testId}
-          onChange={(e) => change(e.target.value)}
-          onFocus={() => {
-            if (typingError === null) setTyped(shown);
-            setFocused(true);
-          }}
-          // A number typed as "1." or "+2" reads back in its plain form once the user moves on.
-          onBlur={() => setFocused(false)}
-          onPaste={onPaste}
-          // Room on the right for the unit written inside the box.
-          style={!compact && unitText ? { paddingRight: `${1 + unitText.length * 0.5}rem` } : undefined}
-          className={compact ? compactInput : `${inputClass} numeric`}
-        />
-        {!compact && unitText && (
-          <span aria-hidden="true" className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm text-ink-faint">
-            {unitText}
-          </span>
-        )}
-      </div>
-      {message &&
-        (compact ? (
-          <p id={errorId} className="mt-0.5 text-left text-xs font-medium text-copper-ink">
-            {message}
-          </p>
-        ) : (
-          <FieldError id={errorId!}>{message}</FieldError>
-        ))}
+      <input
+        id={id}
+        aria-invalid={message ? true : undefined}
+        aria-describedby={[errorId, hintId].filter(Boolean).join(' ') || undefined}
+        className={compactInput}
+        {...boxProps}
+      />
+      {message && (
+        <p id={errorId} className="mt-0.5 text-left text-xs font-medium text-copper-ink">
+          {message}
+        </p>
+      )}
       {hint && (
         <p id={hintId} className="text-xs text-ink-soft">
           {hint}
@@ -197,28 +189,18 @@ export function CountField({ path, label, hint }: { path: DocPath; label: ReactN
 /** A line of text of the document at `path`. */
 export function TextInputField({ path, label, hint, maxLength = 120 }: { path: DocPath; label: ReactNode; hint?: ReactNode; maxLength?: number }) {
   const editor = useEditor();
-  const id = useId();
   const raw = getIn(editor.draft, path);
   const error = editor.issues[pathKey(path)];
-  const errorId = error ? `${id}-error` : undefined;
   if (editor.readOnly) return <ReadValue label={label}>{typeof raw === 'string' && raw !== '' ? raw : <span className="text-ink-faint">none</span>}</ReadValue>;
   return (
-    <div className="space-y-1">
-      <label htmlFor={id} className="block text-sm font-semibold text-ink">
-        {label}
-      </label>
-      <input
-        id={id}
-        value={typeof raw === 'string' ? raw : ''}
-        maxLength={maxLength}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={errorId}
-        onChange={(e) => editor.update(path, e.target.value)}
-        className={inputClass}
-      />
-      {error && <FieldError id={errorId!}>{asSentence(error)}</FieldError>}
-      {hint && <p className="text-xs text-ink-soft">{hint}</p>}
-    </div>
+    <TextField
+      label={label}
+      value={typeof raw === 'string' ? raw : ''}
+      maxLength={maxLength}
+      error={error ? asSentence(error) : null}
+      hint={hint}
+      onChange={(e) => editor.update(path, e.target.value)}
+    />
   );
 }
 
