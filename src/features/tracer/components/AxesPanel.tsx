@@ -5,7 +5,7 @@ import { Alert } from '#src/components/Alert';
 import { Button } from '#src/components/Button';
 import { addClick, removeClick, setClickValue, setCrossing, setScale } from '../state/edits';
 import { ChoiceField, NumberField } from './fields';
-import type { ChangeTrace } from './MapPanel';
+import type { ChangeTrace } from '../state/use-trace-history';
 
 const ROLE_WORDS: Record<ReferenceRole, string> = {
   'x-axis': 'Horizontal axis',

@@ -5,7 +5,7 @@ import { Button } from '#src/components/Button';
 import { LINE_COLOURS } from '../lib/draw';
 import { addCurve, removeCurve, setCurveValue } from '../state/edits';
 import { NumberField } from './fields';
-import type { ChangeTrace } from './MapPanel';
+import type { ChangeTrace } from '../state/use-trace-history';
 
 const ADD_WORDS: Record<TraceCurveKind, string> = {
   surge: 'Add surge line',

@@ -4,9 +4,8 @@ import { MAX_MAP_NAME_LENGTH } from '#shared/maps/format';
 import { TRACE_UNIT_CHOICES, type TraceState } from '#shared/tracer/state';
 import { inputClass } from '#src/components/TextField';
 import { setFlowParameterAxis, setKind } from '../state/edits';
+import type { ChangeTrace } from '../state/use-trace-history';
 import { ChoiceField, NumberField, settingId, unitOption } from './fields';
-
-export type ChangeTrace = (change: (state: TraceState) => TraceState, key?: string | null) => void;
 
 /**
  * Step 1: what the picture is a map of, and the header values its file needs: name, flow axis

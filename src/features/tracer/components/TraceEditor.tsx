@@ -1,83 +1,30 @@
-import { useCallback, useEffect, useMemo, useReducer, useState } from 'react';
-import { Link } from 'react-router';
+import { useCallback, useMemo, useState } from 'react';
 import type { PlanePoint } from '#shared/tracer/affine';
 import type { DraftDetail, SavedToLibrary } from '#shared/tracer/api';
-import { buildTrace, traceFileName, type TraceArea, type TraceProblem } from '#shared/tracer/build';
-import { pixelToData } from '#shared/tracer/calibration';
-import { axisQuantities, type TraceState } from '#shared/tracer/state';
+import { buildTrace, traceFileName, type TraceProblem } from '#shared/tracer/build';
+import { axisQuantities } from '#shared/tracer/state';
 import { Alert } from '#src/components/Alert';
-import { Button } from '#src/components/Button';
 import { useDocumentTitle } from '#src/components/Page';
 import { isApiError } from '#src/lib/api-client';
-import { paths } from '#src/lib/paths';
 import { pictureUrl } from '../api/keys';
 import { staleDraftOf } from '../api/save-draft';
 import { useSaveTraceToLibrary } from '../api/save-to-library';
+import { downloadText } from '../lib/download';
 import { buildOverlay } from '../lib/overlay';
+import { valuesAt } from '../lib/readout';
 import { addPoint, deletePoint, movePoint, placeClick, roundPixel } from '../state/edits';
-import { record, redo, startHistory, undo, type TraceHistory } from '../state/history';
-import { useDraftSync, type SyncStatus } from '../state/use-draft-sync';
+import { firstUnplaced, nextUnplaced, validSelection, type Selection } from '../state/selection';
+import { useDraftSync } from '../state/use-draft-sync';
+import { useTraceHistory } from '../state/use-trace-history';
 import { AxesPanel } from './AxesPanel';
 import { settingId } from './fields';
 import { FilePanel } from './FilePanel';
 import { FileView } from './FileView';
 import { LinesPanel } from './LinesPanel';
-import { MapPanel, type ChangeTrace } from './MapPanel';
-import { TraceCanvas, type CanvasTargets, type CanvasTool } from './TraceCanvas';
-
-type Step = 'map' | 'axes' | 'lines' | 'file';
-const STEPS: { step: Step; title: string }[] = [
-  { step: 'map', title: 'Map' },
-  { step: 'axes', title: 'Axes' },
-  { step: 'lines', title: 'Lines' },
-  { step: 'file', title: 'File' },
-];
-const TOOLS: Record<Step, CanvasTool> = { map: 'look', axes: 'calibrate', lines: 'trace', file: 'look' };
-const AREA_STEP: Record<TraceArea, Step> = { map: 'map', axes: 'axes', lines: 'lines', file: 'file' };
-
-type Selection = { kind: 'point'; curveId: string; index: number } | { kind: 'click'; id: string } | null;
-
-type HistoryAction =
-  | { type: 'apply'; change: (state: TraceState) => TraceState; key: string | null; now: number }
-  | { type: 'undo' }
-  | { type: 'redo' }
-  | { type: 'reset'; state: TraceState };
-
-function historyReducer(history: TraceHistory, action: HistoryAction): TraceHistory {
-  switch (action.type) {
-    case 'apply':
-      return record(history, action.change(history.present), action.key, action.now);
-    case 'undo':
-      return undo(history);
-    case 'redo':
-      return redo(history);
-    case 'reset':
-      return startHistory(action.state);
-  }
-}
-
-function firstUnplaced(state: TraceState): string | null {
-  return state.calibration.clicks.find((c) => c.pixel === null)?.id ?? null;
-}
-
-function format(value: number): string {
-  return Number.isFinite(value) ? String(Number(value.toPrecision(5))) : '—';
-}
-
-function statusWords(status: SyncStatus): string {
-  switch (status.kind) {
-    case 'saved':
-      return 'Draft saved';
-    case 'pending':
-      return 'Changes not saved yet…';
-    case 'saving':
-      return 'Saving the draft…';
-    case 'error':
-      return `Draft not saved: ${status.message}`;
-    case 'conflict':
-      return 'Draft changed elsewhere';
-  }
-}
+import { MapPanel } from './MapPanel';
+import { TraceCanvas, type CanvasTargets } from './TraceCanvas';
+import { ConflictAlert, TraceHeader } from './TraceHeader';
+import { AREA_STEP, openingStep, STEP_HEADINGS, STEP_TOOLS, StepNav, type Step } from './TraceSteps';
 
 /**
  * The Tracer's workspace: the picture on the left with the trace over it, the four steps on the
@@ -85,16 +32,13 @@ function statusWords(status: SyncStatus): string {
  * (typing in a field and one drag count as one) and is saved to the draft shortly after.
  */
 export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: string; teamName: string | null; draft: DraftDetail; canEdit: boolean }) {
-  const [history, dispatch] = useReducer(historyReducer, draft.state, startHistory);
-  const state = history.present;
+  const history = useTraceHistory(draft.state, canEdit);
+  const { state, change } = history;
   const build = useMemo(() => buildTrace(state), [state]);
   const sync = useDraftSync({ teamId, draft, state, enabled: canEdit });
   const saveMutation = useSaveTraceToLibrary(teamId);
 
-  // A new trace opens on the map's settings; one under way where it was left off.
-  const [step, setStep] = useState<Step>(() =>
-    draft.state.calibration.clicks.every((c) => c.pixel === null) ? 'map' : buildTrace(draft.state).calibration.ok ? 'lines' : 'axes',
-  );
+  const [step, setStep] = useState<Step>(() => openingStep(draft.state, buildTrace(draft.state)));
   const [armedClickId, setArmedClickId] = useState<string | null>(() => firstUnplaced(draft.state));
   const [activeCurveId, setActiveCurveId] = useState<string | null>(() => draft.state.curves[draft.state.curves.length - 1]?.id ?? null);
   const [selection, setSelection] = useState<Selection>(null);
@@ -104,43 +48,10 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
 
   useDocumentTitle(`Tracer: ${state.name || draft.name}`);
 
-  const change: ChangeTrace = useCallback(
-    (fn, key = null) => {
-      if (canEdit) dispatch({ type: 'apply', change: fn, key, now: Date.now() });
-    },
-    [canEdit],
-  );
-
-  // Undo and redo from the keyboard, except in text fields (they have their own).
-  useEffect(() => {
-    const onKey = (event: KeyboardEvent) => {
-      if (!(event.ctrlKey || event.metaKey) || !canEdit) return;
-      const target = event.target as HTMLElement | null;
-      if (target && (target.tagName === 'INPUT' || target.tagName === 'TEXTAREA' || target.tagName === 'SELECT')) return;
-      const key = event.key.toLowerCase();
-      if (key === 'z' && !event.shiftKey) dispatch({ type: 'undo' });
-      else if ((key === 'z' && event.shiftKey) || key === 'y') dispatch({ type: 'redo' });
-      else return;
-      event.preventDefault();
-    };
-    window.addEventListener('keydown', onKey);
-    return () => window.removeEventListener('keydown', onKey);
-  }, [canEdit]);
-
   // A selection or active line that undo took away is dropped.
-  const validSelection: Selection =
-    selection?.kind === 'point'
-      ? state.curves.find((c) => c.id === selection.curveId)?.points[selection.index]
-        ? selection
-        : null
-      : selection?.kind === 'click'
-        ? state.calibration.clicks.some((c) => c.id === selection.id && c.pixel)
-          ? selection
-          : null
-        : null;
+  const selected = validSelection(selection, state);
   const activeCurve = state.curves.find((c) => c.id === activeCurveId) ?? null;
-  const tool = TOOLS[step];
-  const q = axisQuantities(state);
+  const q = useMemo(() => axisQuantities(state), [state]);
 
   const overlay = useMemo(
     () =>
@@ -150,13 +61,13 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
         {
           activeCurveId: step === 'lines' ? (activeCurve?.id ?? null) : null,
           armedClickId: step === 'axes' ? armedClickId : null,
-          selectedClickId: validSelection?.kind === 'click' ? validSelection.id : null,
-          selectedPoint: step === 'lines' && validSelection?.kind === 'point' ? validSelection : null,
+          selectedClickId: selected?.kind === 'click' ? selected.id : null,
+          selectedPoint: step === 'lines' && selected?.kind === 'point' ? selected : null,
           showClicks: step === 'axes' || step === 'map' || !build.calibration.ok,
         },
         draft.image,
       ),
-    [state, build, step, activeCurve, armedClickId, validSelection, draft.image],
+    [state, build, step, activeCurve, armedClickId, selected, draft.image],
   );
 
   const targets: CanvasTargets = useMemo(
@@ -167,15 +78,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
     [step, activeCurve, state.calibration.clicks],
   );
 
-  const readValues = useCallback(
-    (pixel: PlanePoint): string | null => {
-      if (!build.calibration.ok) return null;
-      const data = pixelToData(build.calibration.calibration, pixel);
-      const unit = (u: string | null) => (u ? ` ${u}` : '');
-      return `${q.x.name} ${format(data.x)}${unit(q.x.unit)}, ${q.y.short} ${format(data.y)}${unit(q.y.unit)}`;
-    },
-    [build.calibration, q.x.name, q.x.unit, q.y.short, q.y.unit],
-  );
+  const readValues = useCallback((pixel: PlanePoint) => valuesAt(build, q, pixel), [build, q]);
 
   const readout = useCallback(
     (pixel: PlanePoint) => {
@@ -185,13 +88,6 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
     },
     [readValues],
   );
-
-  function armNext(after: string) {
-    const clicks = state.calibration.clicks;
-    const i = clicks.findIndex((c) => c.id === after);
-    const next = [...clicks.slice(i + 1), ...clicks.slice(0, i)].find((c) => c.pixel === null && c.id !== after);
-    setArmedClickId(next?.id ?? null);
-  }
 
   function onPlace(raw: PlanePoint) {
     if (!canEdit) return;
@@ -205,7 +101,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
       const id = armedClickId;
       change((s) => placeClick(s, id, pixel));
       setSelection({ kind: 'click', id });
-      armNext(id);
+      setArmedClickId(nextUnplaced(state, id));
     } else if (step === 'lines') {
       if (!activeCurve) return setNotice('Add a line, or choose one to trace, then click along it in the picture.');
       const curveId = activeCurve.id;
@@ -215,28 +111,29 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
   }
 
   function deleteSelected() {
-    if (validSelection?.kind === 'point') {
-      const { curveId, index } = validSelection;
+    if (selected?.kind === 'point') {
+      const { curveId, index } = selected;
       change((s) => deletePoint(s, curveId, index));
-    } else if (validSelection?.kind === 'click') {
-      const { id } = validSelection;
+    } else if (selected?.kind === 'click') {
+      const { id } = selected;
       change((s) => placeClick(s, id, null));
     }
     setSelection(null);
   }
 
   function nudge(dx: number, dy: number) {
-    if (validSelection?.kind === 'point') {
-      const { curveId, index } = validSelection;
+    if (selected?.kind === 'point') {
+      const { curveId, index } = selected;
       const p = state.curves.find((c) => c.id === curveId)!.points[index];
       change((s) => movePoint(s, curveId, index, roundPixel({ x: p.x + dx, y: p.y + dy })), `nudge-${curveId}-${index}`);
-    } else if (validSelection?.kind === 'click') {
-      const { id } = validSelection;
+    } else if (selected?.kind === 'click') {
+      const { id } = selected;
       const p = state.calibration.clicks.find((c) => c.id === id)!.pixel!;
       change((s) => placeClick(s, id, roundPixel({ x: p.x + dx, y: p.y + dy })), `nudge-${id}`);
     }
   }
 
+  /** Opens the step, line, point or setting a problem of the file is about. */
   function go(problem: TraceProblem) {
     setStep(AREA_STEP[problem.area]);
     if (problem.curveId) {
@@ -272,31 +169,6 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
     }
   }
 
-  function download() {
-    const url = URL.createObjectURL(new Blob([build.text], { type: 'text/csv;charset=utf-8' }));
-    const a = document.createElement('a');
-    a.href = url;
-    a.download = traceFileName(state.name);
-    document.body.append(a);
-    a.click();
-    a.remove();
-    window.setTimeout(() => URL.revokeObjectURL(url), 1000);
-  }
-
-  const counts: Record<Step, number> = {
-    map: build.problems.filter((p) => p.area === 'map').length,
-    axes: build.problems.filter((p) => p.area === 'axes').length,
-    lines: build.problems.filter((p) => p.area === 'lines').length,
-    file: build.problems.length,
-  };
-  // "ready" only where there is something to be ready: no lines yet is not a finished step.
-  const badge: Record<Step, string> = {
-    map: counts.map ? `${counts.map} to fix` : 'ready',
-    axes: counts.axes ? `${counts.axes} to fix` : build.calibration.ok ? 'ready' : 'not yet',
-    lines: counts.lines ? `${counts.lines} to fix` : state.curves.length ? 'ready' : 'none yet',
-    file: counts.file ? `${counts.file} to fix` : 'ready',
-  };
-
   const hint = !canEdit
     ? 'Drag to pan, scroll to zoom.'
     : step === 'axes'
@@ -309,56 +181,30 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
           : 'Add or choose a line on the right.'
         : 'Drag to pan, scroll to zoom.';
 
-  const status = sync.status;
   return (
     <div className="mx-auto w-full max-w-[1680px] space-y-4">
-      <header className="flex flex-wrap items-end justify-between gap-4 border-b border-ink/15 pb-3">
-        <div className="space-y-1">
-          <p className="text-xs font-semibold uppercase tracking-[0.14em] text-copper-ink">
-            <Link to={paths.teamTracer.href(teamId)} className="text-copper-ink">
-              {teamName ? `${teamName} · Tracer` : 'Tracer'}
-            </Link>
-          </p>
-          <h1 className="text-2xl font-semibold tracking-tight text-ink">{state.name || draft.name}</h1>
-        </div>
-        <div className="flex flex-wrap items-center gap-2">
-          {canEdit && (
-            <p role="status" className={`text-sm ${status.kind === 'error' ? 'text-copper-ink' : 'text-ink-soft'}`}>
-              {statusWords(status)}
-              {status.kind === 'error' && (
-                <Button variant="quiet" onClick={sync.retry}>
-                  Try again
-                </Button>
-              )}
-            </p>
-          )}
-          <Button onClick={() => dispatch({ type: 'undo' })} disabled={!canEdit || history.past.length === 0} aria-keyshortcuts="Control+Z">
-            Undo
-          </Button>
-          <Button onClick={() => dispatch({ type: 'redo' })} disabled={!canEdit || history.future.length === 0} aria-keyshortcuts="Control+Shift+Z">
-            Redo
-          </Button>
-        </div>
-      </header>
+      <TraceHeader
+        teamId={teamId}
+        teamName={teamName}
+        name={state.name || draft.name}
+        canEdit={canEdit}
+        status={sync.status}
+        onRetry={sync.retry}
+        canUndo={history.canUndo}
+        canRedo={history.canRedo}
+        onUndo={history.undo}
+        onRedo={history.redo}
+      />
 
       {!canEdit && <Alert tone="info">You can look at this trace; editors and owners of the team change it.</Alert>}
-      {status.kind === 'conflict' && (
-        <Alert tone="error" title="This trace was saved elsewhere (another tab or another person) since you opened it.">
-          <p>Saving has stopped so that neither version is lost without you choosing.</p>
-          <div className="mt-2 flex flex-wrap gap-2">
-            <Button
-              onClick={() => {
-                const current = sync.takeTheirs();
-                if (current) dispatch({ type: 'reset', state: current.state });
-              }}
-            >
-              Load the newer trace
-            </Button>
-            <Button variant="primary" onClick={sync.keepMine}>
-              Keep mine over it
-            </Button>
-          </div>
-        </Alert>
+      {sync.status.kind === 'conflict' && (
+        <ConflictAlert
+          onTakeTheirs={() => {
+            const current = sync.takeTheirs();
+            if (current) history.reset(current.state);
+          }}
+          onKeepMine={sync.keepMine}
+        />
       )}
 
       <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_27rem]">
@@ -370,7 +216,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
             imageUrl={pictureUrl(teamId, draft.image.id)}
             imageSize={draft.image}
             overlay={overlay}
-            tool={tool}
+            tool={STEP_TOOLS[step]}
             readOnly={!canEdit}
             targets={targets}
             readout={readout}
@@ -390,37 +236,22 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
         </section>
 
         <aside aria-label="Trace steps" className="space-y-3">
-          <nav aria-label="Steps">
-            <ol className="grid grid-cols-4 gap-1 rounded-lg border border-paper-line bg-white/75 p-1">
-              {STEPS.map(({ step: s, title }, i) => (
-                <li key={s}>
-                  <button
-                    type="button"
-                    aria-current={step === s ? 'step' : undefined}
-                    onClick={() => {
-                      setStep(s);
-                      setNotice(null);
-                    }}
-                    className={`flex w-full flex-col items-center rounded-md px-2 py-1.5 text-sm ${step === s ? 'bg-teal text-white' : 'text-ink hover:bg-teal-light/50'}`}
-                  >
-                    <span className="font-semibold">
-                      {i + 1}. {title}
-                    </span>
-                    <span className={`numeric text-xs ${step === s ? 'text-white/90' : counts[s] ? 'text-copper-ink' : 'text-ink-soft'}`}>{badge[s]}</span>
-                  </button>
-                </li>
-              ))}
-            </ol>
-          </nav>
+          <StepNav
+            step={step}
+            state={state}
+            build={build}
+            onChoose={(s) => {
+              setStep(s);
+              setNotice(null);
+            }}
+          />
           {notice && (
             <p role="status" className="rounded-md border border-copper/50 bg-copper-light/50 px-3 py-2 text-sm text-ink">
               {notice}
             </p>
           )}
           <div className="max-h-[calc(100vh-16rem)] overflow-y-auto rounded-lg border border-paper-line bg-white/75 p-4 shadow-sm">
-            <h2 className="mb-3 text-lg font-semibold text-ink">
-              {{ map: 'The map', axes: 'Calibrate the axes', lines: 'Trace the lines', file: 'The map file' }[step]}
-            </h2>
+            <h2 className="mb-3 text-lg font-semibold text-ink">{STEP_HEADINGS[step]}</h2>
             {step === 'map' && <MapPanel state={state} change={change} disabled={!canEdit} />}
             {step === 'axes' && (
               <AxesPanel
@@ -429,7 +260,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
                 change={change}
                 disabled={!canEdit}
                 armedClickId={armedClickId}
-                selectedClickId={validSelection?.kind === 'click' ? validSelection.id : null}
+                selectedClickId={selected?.kind === 'click' ? selected.id : null}
                 onArm={(id) => {
                   setArmedClickId(id);
                   setNotice(null);
@@ -448,7 +279,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
                   setSelection(null);
                   setNotice(null);
                 }}
-                selectedPoint={validSelection?.kind === 'point' ? validSelection : null}
+                selectedPoint={selected?.kind === 'point' ? selected : null}
                 readValues={readValues}
                 onDeleteSelected={deleteSelected}
               />
@@ -462,7 +293,7 @@ export function TraceEditor({ teamId, teamName, draft, canEdit }: { teamId: stri
                 saveError={saveError}
                 saved={saved}
                 onSave={() => void saveToLibrary()}
-                onDownload={download}
+                onDownload={() => downloadText(build.text, traceFileName(state.name), 'text/csv;charset=utf-8')}
                 onGo={go}
               />
             )}
