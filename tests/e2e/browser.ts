@@ -5,6 +5,7 @@ import { chromium, type Browser, type BrowserContext, type Page } from 'playwrig
 import { afterAll, beforeAll, inject } from 'vitest';
 import { connectDatabase, type Database } from '#server/db/client';
 import { outbox } from '#server/db/schema';
+import { ADMIN_USER, DEMO_USER as DEMO_ACCOUNT, DEMO_TEAM_NAME } from '#server/services/demo';
 import { parseMapFile } from '#shared/maps';
 import type { SpoolbookMap } from '#shared/maps/types';
 
@@ -71,17 +72,36 @@ export function watchForPageErrors(page: Page): string[] {
   return errors;
 }
 
-/** The seeded demo owner and team (server/services/demo.ts). */
-export const DEMO_USER = { email: 'demo@spoolbook.test', password: 'spoolbook-demo', team: 'Harrow Hill Motorsport' };
+/** The seeded demo owner and team. */
+export const DEMO_USER = { ...DEMO_ACCOUNT, team: DEMO_TEAM_NAME };
+/** The seeded site admin. */
+export { ADMIN_USER };
+/** A seeded editor of the demo team (server/services/demo.ts). */
+export const DEMO_EDITOR = { email: 'rafael@spoolbook.test', password: 'spoolbook-demo' };
 
-/** Signs in through the form and waits to leave the sign-in page. */
-export async function signIn(page: Page, who: { email: string; password: string } = DEMO_USER) {
+/**
+ * Opens the sign-in page, fills the form and sends it, without waiting for where it leads (a
+ * second factor may be asked next). Most tests want `signIn`.
+ */
+export async function submitSignIn(page: Page, who: { email: string; password: string }) {
   await page.goto(`${baseUrl()}/sign-in`);
   const form = page.getByRole('form', { name: 'Sign in' });
   await form.getByLabel('E-mail').fill(who.email);
   await form.getByLabel('Password', { exact: true }).fill(who.password);
   await form.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Signs in through the form and waits to leave the sign-in page. */
+export async function signIn(page: Page, who: { email: string; password: string } = DEMO_USER) {
+  await submitSignIn(page, who);
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+/** A new account made through the API (the sign-up form has tests of its own); its first team's id. */
+export async function signUpByApi(page: Page, who: { email: string; password: string; name: string }): Promise<string> {
+  const res = await page.request.post(`${baseUrl()}/api/auth/sign-up`, { data: who, headers: { Origin: baseUrl() } });
+  if (res.status() !== 201) throw new Error(`sign-up answered ${res.status()}`);
+  return ((await res.json()) as { teams: { id: string }[] }).teams[0].id;
 }
 
 /** A number as the screens print it (shared formatNumber: en-US, grouped, 4 significant digits). */

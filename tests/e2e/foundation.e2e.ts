@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, closeTestDatabase, launchBrowser, linkFromOutbox, screenshot, watchForPageErrors } from './browser';
+import { ADMIN_USER, baseUrl, closeTestDatabase, launchBrowser, linkFromOutbox, screenshot, signIn, watchForPageErrors } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -94,10 +94,7 @@ describe('foundation: sign-up, teams, invitations', () => {
     const { page, errors } = await newPage();
     await page.goto(`${baseUrl()}/sign-in`);
     await screenshot(page, 'sign-in');
-    const form = page.getByRole('form', { name: 'Sign in' });
-    await form.getByLabel('E-mail').fill('admin@spoolbook.test');
-    await form.getByLabel('Password').fill('spoolbook-admin');
-    await form.getByRole('button', { name: 'Sign in' }).click();
+    await signIn(page, ADMIN_USER);
     await page.getByRole('link', { name: 'Team' }).first().waitFor();
     for (const [path, name] of [
       ['/teams', 'teams'],

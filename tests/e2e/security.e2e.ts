@@ -4,8 +4,19 @@ import path from 'node:path';
 import { generate } from 'otplib';
 import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ADMIN_USER, DEMO_USER as DEMO_ACCOUNT } from '#server/services/demo';
-import { baseUrl, closeTestDatabase, DEMO_USER, launchBrowser, linkFromOutbox, screenshot, screenshotDir, signIn, watchForPageErrors } from './browser';
+import {
+  ADMIN_USER,
+  baseUrl,
+  closeTestDatabase,
+  DEMO_USER,
+  launchBrowser,
+  linkFromOutbox,
+  screenshot,
+  screenshotDir,
+  signIn,
+  submitSignIn,
+  watchForPageErrors,
+} from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -40,14 +51,6 @@ async function signUpThroughForm(page: Page, email: string) {
     .waitFor();
   await form.getByRole('button', { name: 'Create account' }).click();
   await page.getByRole('link', { name: 'Team' }).first().waitFor();
-}
-
-async function signInThroughForm(page: Page, email: string) {
-  await page.goto(`${baseUrl()}/sign-in`);
-  const form = page.getByRole('form', { name: 'Sign in' });
-  await form.getByLabel('E-mail').fill(email);
-  await form.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await form.getByRole('button', { name: 'Sign in' }).click();
 }
 
 /** The page (or one part of it) at 1280 wide, then as on a phone (390 × 844), then back. */
@@ -96,7 +99,7 @@ describe('security screens: sessions, second factor', () => {
     const { page, errors } = await newPage();
     await signUpThroughForm(page, email);
     const { page: other } = await newPage();
-    await signInThroughForm(other, email);
+    await submitSignIn(other, { email, password: PASSWORD });
     await other.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 
     await page.goto(`${baseUrl()}/settings/sessions`);
@@ -120,7 +123,7 @@ describe('security screens: sessions, second factor', () => {
     const key = await turnOnSecondFactor(page, true);
 
     const { page: later, errors: laterErrors } = await newPage();
-    await signInThroughForm(later, email);
+    await submitSignIn(later, { email, password: PASSWORD });
     const second = later.getByRole('form', { name: 'Second factor' });
     await second.waitFor();
     await screenshot(later, 'sign-in-second-factor');
@@ -252,7 +255,7 @@ describe("security screens: a team's second-factor rule, share links, the admin'
     const keep = rows.nth(1).getByRole('switch', { name: 'Keep when its maker leaves' });
     expect(await keep.getAttribute('aria-checked')).toBe('false');
     await keep.click();
-    await rows.nth(1).getByText(`Goes on working if ${DEMO_ACCOUNT.name} leaves the team.`).waitFor();
+    await rows.nth(1).getByText(`Goes on working if ${DEMO_USER.name} leaves the team.`).waitFor();
     await screenshots(page, 'share-links', page.locator('#panel-share'));
     expect((await listed()).map((l) => l.kept)).toEqual([false, true, false]);
     await page.reload();

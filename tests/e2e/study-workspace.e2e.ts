@@ -1,15 +1,12 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, launchBrowser, screenshot, watchForPageErrors } from './browser';
+import { baseUrl, DEMO_EDITOR, DEMO_USER, launchBrowser, screenshot, signIn, watchForPageErrors } from './browser';
 
 // The study workspace in Chromium against the production build: a fresh study made through the
 // UI (so this test owns it), a change of volumetric efficiency that moves the operating line, the
 // same point in other units, a save, the history, and a second person saving from the same base
 // revision who meets the conflict dialog.
 
-const DEMO = { email: 'demo@spoolbook.test', password: 'spoolbook-demo' };
-const EDITOR = { email: 'rafael@spoolbook.test', password: 'spoolbook-demo' };
-const DEMO_TEAM = 'Harrow Hill Motorsport';
 /** The line and speed the test follows: the first plan of the demo study, first scenario, full load. */
 const LINE_LABEL = 'S44 street wheel · Sea level, 20 °C · Full load';
 const LINE_KEY = 'plan-s44|0|0';
@@ -19,22 +16,19 @@ const LB_PER_MIN_PER_KG_PER_S = 60 / 0.45359237;
 
 let browser: Browser;
 
-async function signIn(context: BrowserContext, who: { email: string; password: string }): Promise<Page> {
+/** A page in `context`, signed in as `who`, on the studies page. */
+async function signedInPage(context: BrowserContext, who: { email: string; password: string }): Promise<Page> {
   const page = await context.newPage();
   page.setDefaultTimeout(60_000);
-  await page.goto(`${baseUrl()}/sign-in`);
-  const form = page.getByRole('form', { name: 'Sign in' });
-  await form.getByLabel('E-mail').fill(who.email);
-  await form.getByLabel('Password').fill(who.password);
-  await form.getByRole('button', { name: 'Sign in' }).click();
+  await signIn(page, who);
   await page.waitForURL(/\/studies/);
   return page;
 }
 
 async function demoTeamId(page: Page): Promise<string> {
   const me = (await (await page.request.get(`${baseUrl()}/api/auth/me`)).json()) as { teams: { id: string; name: string }[] };
-  const team = me.teams.find((t) => t.name === DEMO_TEAM);
-  if (!team) throw new Error(`the demo user is not in "${DEMO_TEAM}"`);
+  const team = me.teams.find((t) => t.name === DEMO_USER.team);
+  if (!team) throw new Error(`the demo user is not in "${DEMO_USER.team}"`);
   return team.id;
 }
 
@@ -96,7 +90,7 @@ describe('study workspace', () => {
   it('moves the operating line with the volumetric efficiency, shows the point in both unit systems, saves, keeps the history, and stops a second save from the same revision', async () => {
     const contextA = await browser.newContext({ viewport: { width: 1600, height: 1000 } });
     const contextB = await browser.newContext({ viewport: { width: 1600, height: 1000 } });
-    const a = await signIn(contextA, DEMO);
+    const a = await signedInPage(contextA, DEMO_USER);
     const errorsA = watchForPageErrors(a);
     const teamId = await demoTeamId(a);
     /** Studies this test made, deleted at the end through the owner's session. */
@@ -119,7 +113,7 @@ describe('study workspace', () => {
       await waitForPlottedLine(a);
 
       // The editor of the team opens the same study now, at the same revision 1.
-      const b = await signIn(contextB, EDITOR);
+      const b = await signedInPage(contextB, DEMO_EDITOR);
       const errorsB = watchForPageErrors(b);
       await b.goto(`${baseUrl()}/teams/${teamId}/studies/${studyId}`);
       await b.getByRole('heading', { name: title, level: 1 }).waitFor();

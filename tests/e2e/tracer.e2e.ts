@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, closeTestDatabase, launchBrowser, screenshot, watchForPageErrors } from './browser';
+import { baseUrl, closeTestDatabase, launchBrowser, screenshot, signUpByApi, watchForPageErrors } from './browser';
 
 // The Tracer end to end: a built-in demo map is drawn by the app's own map plot, photographed as a
 // PNG, opened in the Tracer, calibrated with the plot's known axis values, traced by clicking at
@@ -40,16 +40,6 @@ afterAll(async () => {
   await browser?.close();
   await closeTestDatabase();
 });
-
-async function signUp(page: Page) {
-  const email = `tracer-${randomUUID().slice(0, 8)}@example.test`;
-  const res = await page.request.post(`${baseUrl()}/api/auth/sign-up`, {
-    data: { email, password: 'a long enough password', name: 'Tess Tracer' },
-    headers: { Origin: baseUrl() },
-  });
-  expect(res.status()).toBe(201);
-  return ((await res.json()) as { teams: { id: string }[] }).teams[0].id;
-}
 
 /**
  * Photographs the map plot of the demo map's page and works out where given data points are in
@@ -121,7 +111,7 @@ describe('Tracer', () => {
 
 /** The whole walk: photograph, open, calibrate, come back, trace, save, compare. */
 async function traceTheDemoMap(page: Page, errors: string[]) {
-  const teamId = await signUp(page);
+  const teamId = await signUpByApi(page, { email: `tracer-${randomUUID().slice(0, 8)}@example.test`, password: 'a long enough password', name: 'Tess Tracer' });
 
   // The demo map as the library serves it (SI model).
   const demo = (await (await page.request.get(`${baseUrl()}/api/teams/${teamId}/maps/${DEMO_MAP}`)).json()) as {
