@@ -10,10 +10,6 @@ export interface FormErrors {
 
 export const noFormErrors: FormErrors = { form: null, fields: {} };
 
-export function hasFormErrors(errors: FormErrors): boolean {
-  return errors.form !== null || Object.keys(errors.fields).length > 0;
-}
-
 /**
  * The shared schemas word their messages to follow the field's name ("must be at least 8
  * characters"); beside a labelled field they read better as a sentence.

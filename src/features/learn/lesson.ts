@@ -1,7 +1,7 @@
 import type { CompressorMap } from '#shared/maps/types';
 import { pointWorking } from '#shared/matching/explain-point';
 import type { LineContext } from '#shared/matching/line-context';
-import type { OperatingPoint, SolvedPoint } from '#shared/matching/result';
+import type { OperatingPoint } from '#shared/matching/result';
 import type { WorkingStep } from '#shared/matching/working';
 import type { StudyDocument } from '#shared/schemas/study';
 import { runStudyDocument } from '#shared/study/run';
@@ -93,10 +93,6 @@ export function runLesson(inputs: LessonInputs, map: CompressorMap | null): Less
   const [yours, standard] = result.lines;
   const point = yours.points[0];
   return { context: yours.context, point, standardDay: standard.points[0], steps: pointWorking(yours.context, point) };
-}
-
-export function isSolved(point: OperatingPoint): point is SolvedPoint {
-  return point.solved;
 }
 
 /** The steps of the Working a section of the lesson shows, in the order given (missing ones skipped). */

@@ -5,7 +5,6 @@ import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 const revisionResponseSchema = z.object({ revision: revisionDetailSchema });
-export type RevisionDetail = z.infer<typeof revisionDetailSchema>;
 
 /** One saved revision with its whole document. */
 export function getRevision(teamId: string, studyId: string, revision: number) {

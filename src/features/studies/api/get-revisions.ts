@@ -5,7 +5,6 @@ import { api } from '#src/lib/api-client';
 import { studyKeys, studyUrl } from './keys';
 
 const revisionsResponseSchema = z.object({ revisions: z.array(revisionSummarySchema) });
-export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
 
 /** Every saved revision of a study, newest first. */
 export function getRevisions(teamId: string, studyId: string) {
