@@ -1,6 +1,6 @@
 /**
  * `npm test` after dependencies: a fresh test database on the local cluster (or on DATABASE_URL's
- * server), type check, unit and API tests, the production client build, then browser tests.
+ * server), type check, lint, unit and API tests, the production client build, then browser tests.
  * Ends with the totals over every suite on a line of their own: "N passed, N failed".
  */
 import { spawnSync } from 'node:child_process';
@@ -79,6 +79,14 @@ async function main() {
     totals.failed += 1;
   } else {
     console.log('no type errors');
+  }
+
+  step('lint (ESLint with the architecture rules, Prettier, import cycles, knip)');
+  if (run('npm', ['run', '--silent', 'lint']) !== 0) {
+    problems.push('lint failed: run `npm run lint` and fix what it names');
+    totals.failed += 1;
+  } else {
+    console.log('lint clean');
   }
 
   step('unit and API tests (vitest)');

@@ -37,7 +37,21 @@ async function until(boundMs: number, check: () => boolean, what: string, output
   }
 }
 
-async function startServerProcess(env: Record<string, string> = {}): Promise<ServerProcess> {
+/**
+ * The server in a child process on a free port. The port is free when picked but only taken when
+ * the server listens; if something else took it meanwhile (the server's own mail catcher, on an
+ * ephemeral port, can), start again on another.
+ */
+async function startServerProcess(env: Record<string, string> = {}, attempts = 3): Promise<ServerProcess> {
+  try {
+    return await startServerProcessOnce(env);
+  } catch (err) {
+    if (attempts > 1 && /EADDRINUSE/.test(String(err))) return startServerProcess(env, attempts - 1);
+    throw err;
+  }
+}
+
+async function startServerProcessOnce(env: Record<string, string>): Promise<ServerProcess> {
   if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the API tests through `npm test`.');
   const port = await freePort();
   const { SMTP_URL: _smtp, ...inherited } = process.env;
