@@ -69,7 +69,9 @@ export async function startServerProcess({
   computeRateLimitPerMinute,
 }: { poolMax?: number; computeRateLimitPerMinute?: number } = {}): Promise<ServerProcess> {
   const here = path.dirname(fileURLToPath(import.meta.url));
-  const child = spawn(path.join(here, '..', '..', 'node_modules', '.bin', 'tsx'), [path.join(here, 'serve.ts')], {
+  // Node itself with tsx's loader (not the tsx command, which would sit between us and the signals).
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(here, 'serve.ts')], {
+    cwd: path.join(here, '..', '..'),
     env: {
       ...process.env,
       BENCH_POOL_MAX: String(poolMax),
@@ -77,6 +79,8 @@ export async function startServerProcess({
     },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
+  // Never leave a server behind when the bench itself stops, however it stops.
+  process.once('exit', () => child.kill('SIGKILL'));
   const lines = createInterface({ input: child.stdout! });
   const first = await new Promise<string>((resolve, reject) => {
     lines.once('line', resolve);

@@ -76,7 +76,7 @@ async function createUsers(base: string, origin: string): Promise<User[]> {
       Array.from({ length: Math.min(10, CONNECTIONS - batch) }, async (_, j) => {
         const n = batch + j;
         const email = `load-${Date.now().toString(36)}-${n}@example.test`;
-        const signUp = await postJson(base, origin, '/api/auth/sign-up', { email, password: 'load bench password', name: `Load user ${n}` });
+        const signUp = await postJson(base, origin, '/api/auth/sign-up', { email, password: 'quiet harbour turbine passphrase', name: `Load user ${n}` });
         if (signUp.status !== 201) throw new Error(`sign-up ${n}: ${signUp.status} ${JSON.stringify(signUp.body)}`);
         const cookie = cookieOf(signUp.headers);
         const teamId = (signUp.body as { teams: { id: string }[] }).teams[0].id;
@@ -99,7 +99,9 @@ async function main() {
   const database = connectDatabase(process.env.DATABASE_URL!, { max: 1 });
 
   console.log(`setting up ${CONNECTIONS} users, each with a team and a study…`);
+  const setupStarted = performance.now();
   const users = await createUsers(base, origin);
+  console.log(`users ready in ${((performance.now() - setupStarted) / 1000).toFixed(0)} s`);
 
   const baselineSeconds = Math.min(10, SECONDS);
   const bare = await bareEndpoint(base, baselineSeconds);
