@@ -1,3 +1,4 @@
+import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
@@ -93,6 +94,8 @@ export function createApp({
       strictTransportSecurity: config.secureCookies,
     }),
   );
+  // Study documents, map lists and CSVs are large and compress well; small answers are left alone.
+  app.use(compression({ threshold: 2048 }));
   app.use(
     pinoHttp({
       logger,

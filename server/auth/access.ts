@@ -30,7 +30,14 @@ export async function requireTeamPermission(db: Db, user: User, teamId: string, 
     .leftJoin(teamMembers, and(eq(teamMembers.teamId, teams.id), eq(teamMembers.userId, user.id)))
     .where(eq(teams.id, teamId))
     .limit(1);
-  const row = rows[0];
+  return decideTeamAccess(rows[0], user, permission);
+}
+
+/**
+ * The rule of requireTeamPermission on a row already read (a query that reads the team, the
+ * user's membership and what they asked for in one round trip): 404, 403 or the access.
+ */
+export function decideTeamAccess(row: TeamAccess | undefined, user: User, permission: Permission): TeamAccess {
   if (!row || (!row.role && !user.isAdmin)) throw notFound('No such team.');
   const access: TeamAccess = { teamId: row.teamId, teamName: row.teamName, personal: row.personal, role: row.role, requireTwoFactor: row.requireTwoFactor };
   if (!can(access.role, permission, user.isAdmin)) throw forbidden();

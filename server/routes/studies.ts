@@ -16,7 +16,7 @@ import { resultsFileName, sendCsv } from '../http/csv';
 import { parseOr400 } from '../http/errors';
 import { createShareLink, keepShareLink, listShareLinks, revokeShareLink } from '../services/share-links';
 import { listRevisions, restoreRevision, revisionDetail } from '../services/study-revisions';
-import { createStudy, deleteStudy, duplicateStudy, listStudies, saveStudy, studyDetail, studyResultsCsv, updateStudyMeta } from '../services/studies';
+import { createStudy, deleteStudy, duplicateStudy, listStudies, saveStudy, studyAnswerJson, studyResultsCsv, updateStudyMeta } from '../services/studies';
 
 function params(req: { params: unknown }) {
   return req.params as { teamId: string; studyId: string; revision: string; linkId: string };
@@ -42,8 +42,10 @@ export function studiesRouter({ db, config }: AppDeps): Router {
 
   router.get('/:studyId', async (req, res) => {
     const user = requireUser(res);
-    const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
-    res.json({ study: await studyDetail(db, access, user, params(req).studyId) });
+    const { teamId, studyId } = params(req);
+    // Browsers ask again with the ETag (Express's, over the answer) and get 304 while nothing changed.
+    res.set('Cache-Control', 'private, no-cache');
+    res.type('json').send(await studyAnswerJson(db, user, teamId, studyId));
   });
 
   router.put('/:studyId', async (req, res) => {

@@ -3,11 +3,11 @@ import { alias } from 'drizzle-orm/pg-core';
 import type { Request } from 'express';
 import type { User } from 'lucia';
 import type { z } from 'zod';
-import type { StudyDocument, studyListQuerySchema, updateStudyMetaSchema } from '#shared/schemas/study';
-import { can, type TeamAccess } from '../auth/access';
+import { STUDY_SCHEMA_VERSION, type StudyDocument, type studyListQuerySchema, type updateStudyMetaSchema } from '#shared/schemas/study';
+import { can, decideTeamAccess, type TeamAccess } from '../auth/access';
 import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
-import { studies, studyRevisions, users } from '../db/schema';
+import { studies, studyRevisions, teamMembers, teams, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { audit } from './audit';
 import { likePattern } from './text-search';
@@ -92,6 +92,66 @@ export async function studyDetail(db: Db, access: TeamAccess, user: User, studyI
     document: storedDocument(s.document),
     canEdit: can(access.role, 'content:write', user.isAdmin),
   };
+}
+
+/**
+ * The study read in one round trip: the team, the user's membership, the study and the names of
+ * its authors in one prepared statement; the document leaves PostgreSQL as text and goes into the
+ * answer as it is (no parse and re-serialise) when it is already of the current version.
+ */
+function studyReadStatement(db: Db) {
+  return db
+    .select({
+      teamId: teams.id,
+      teamName: teams.name,
+      personal: teams.personal,
+      requireTwoFactor: teams.requireTwoFactor,
+      role: teamMembers.role,
+      id: studies.id,
+      title: studies.title,
+      engineLabel: studies.engineLabel,
+      revision: studies.revision,
+      archived: studies.archived,
+      createdBy: creator.name,
+      updatedBy: updater.name,
+      createdAt: studies.createdAt,
+      updatedAt: studies.updatedAt,
+      documentVersion: sql<string | null>`(${studies.document} ->> 'schemaVersion')`,
+      documentText: sql<string | null>`${studies.document}::text`,
+    })
+    .from(teams)
+    .leftJoin(teamMembers, and(eq(teamMembers.teamId, teams.id), eq(teamMembers.userId, sql.placeholder('userId'))))
+    .leftJoin(studies, and(eq(studies.id, sql.placeholder('studyId')), eq(studies.teamId, teams.id)))
+    .leftJoin(creator, eq(creator.id, studies.createdBy))
+    .leftJoin(updater, eq(updater.id, studies.updatedBy))
+    .where(eq(teams.id, sql.placeholder('teamId')))
+    .limit(1)
+    .prepare('study_read');
+}
+const studyReads = new WeakMap<Db, ReturnType<typeof studyReadStatement>>();
+
+/** `{ "study": … }` as studyDetail answers it, as JSON text, for a user allowed to read the team's content. */
+export async function studyAnswerJson(db: Db, user: User, teamId: string, studyId: string): Promise<string> {
+  let statement = studyReads.get(db);
+  if (!statement) studyReads.set(db, (statement = studyReadStatement(db)));
+  const [row] = await statement.execute({ userId: user.id, studyId, teamId });
+  const access = decideTeamAccess(row, user, 'content:read');
+  if (!row.id || row.documentText === null || !row.createdAt || !row.updatedAt) throw notFound('No such study in this team.');
+  const head = {
+    id: row.id,
+    teamId: row.teamId,
+    title: row.title,
+    engineLabel: row.engineLabel,
+    revision: row.revision,
+    archived: row.archived,
+    createdBy: row.createdBy,
+    updatedBy: row.updatedBy,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+  const document = row.documentVersion === String(STUDY_SCHEMA_VERSION) ? row.documentText : JSON.stringify(storedDocument(JSON.parse(row.documentText)));
+  const canEdit = can(access.role, 'content:write', user.isAdmin);
+  return `{"study":${JSON.stringify(head).slice(0, -1)},"document":${document},"canEdit":${canEdit}}}`;
 }
 
 /** A new study at revision 1 with its first revision row, in one transaction. */

@@ -129,6 +129,67 @@ describe('create, read, save, revisions', () => {
   });
 });
 
+describe('reading a study fast: stored JSON, ETag, compression', () => {
+  it('answers 304 to the ETag it gave while nothing changed, and 200 with a new ETag after a save', async () => {
+    const { owner, teamId, study } = await teamWithStudy(t);
+    const url = `/api/teams/${teamId}/studies/${study.id}`;
+    const first = await owner.c.get(url);
+    expect(first.status).toBe(200);
+    expect(first.headers['cache-control']).toBe('private, no-cache');
+    const etag = first.headers.etag;
+    expect(etag).toBeTruthy();
+    expect((await owner.c.agent.get(url).set('If-None-Match', etag)).status).toBe(304);
+    const changed = structuredClone(demo);
+    changed.engine.displacement = 0.0021;
+    expect((await owner.c.put(url, { baseRevision: 1, document: changed })).status).toBe(200);
+    const after = await owner.c.agent.get(url).set('If-None-Match', etag);
+    expect(after.status).toBe(200);
+    expect(after.headers.etag).not.toBe(etag);
+    expect(after.body.study.document.engine.displacement).toBe(0.0021);
+  });
+
+  it('does not answer 304 to another user whose rights differ (the answer says whether they may edit)', async () => {
+    const { owner, teamId, study } = await teamWithStudy(t);
+    const url = `/api/teams/${teamId}/studies/${study.id}`;
+    const etag = (await owner.c.get(url)).headers.etag;
+    const viewer = await member(teamId, 'viewer');
+    const read = await viewer.c.agent.get(url).set('If-None-Match', etag);
+    expect(read.status).toBe(200);
+    expect(read.body.study.canEdit).toBe(false);
+  });
+
+  it('sends the study gzip-compressed to a client that accepts it', async () => {
+    const { owner, teamId, study } = await teamWithStudy(t);
+    const res = await owner.c.agent.get(`/api/teams/${teamId}/studies/${study.id}`).set('Accept-Encoding', 'gzip');
+    expect(res.headers['content-encoding']).toBe('gzip');
+    expect(res.body.study.document.plans).toHaveLength(3);
+  });
+
+  it('brings a document stored at an older version up to date on read', async () => {
+    const { owner, teamId, study } = await teamWithStudy(t);
+    const old = structuredClone(demo);
+    delete old.schemaVersion;
+    old.losses = { inlet: 2500, chargeCooler: 12_000, inletTemperatureRise: 5 };
+    old.plans = old.plans.map(({ id: _id, compressorMapId, ...p }: Record<string, unknown>) => ({ ...p, mapId: compressorMapId }));
+    await t.database.db.update(studies).set({ document: old }).where(eq(studies.id, study.id));
+    const res = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}`);
+    expect(res.status).toBe(200);
+    expect(res.body.study.document.schemaVersion).toBe(STUDY_SCHEMA_VERSION);
+    expect(res.body.study.document.losses.inlet).toEqual({ pressureLoss: 2500 });
+  });
+
+  it('answers 404 for a study of another team read through this team, and for a team the user is not in', async () => {
+    const a = await teamWithStudy(t);
+    const b = await teamWithStudy(t);
+    const wrongTeam = await a.owner.c.get(`/api/teams/${a.teamId}/studies/${b.study.id}`);
+    expect(wrongTeam.status).toBe(404);
+    expect(wrongTeam.body.error.message).toBe('No such study in this team.');
+    const notMember = await a.owner.c.get(`/api/teams/${b.teamId}/studies/${b.study.id}`);
+    expect(notMember.status).toBe(404);
+    expect(notMember.body.error.message).toBe('No such team.');
+  });
+});
+
 describe('two people saving the same base revision', () => {
   it('exactly one wins; the other gets 409 with the newer revision; nothing is lost silently', async () => {
     const { owner, teamId, study } = await teamWithStudy(t);

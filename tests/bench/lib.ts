@@ -4,6 +4,10 @@
  * figures per run.
  */
 import autocannon from 'autocannon';
+import { spawn } from 'node:child_process';
+import { createInterface } from 'node:readline';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import type { AddressInfo } from 'node:net';
 import pino from 'pino';
 import { createApp } from '#server/app';
@@ -48,6 +52,54 @@ export async function startBenchServer({
       await new Promise((r) => server.close(r));
       await database.pool.end();
     },
+  };
+}
+
+export interface ServerProcess {
+  base: string;
+  publicUrl: string;
+  /** The server process's memory (it answers SIGUSR2 with a line). */
+  memory: () => Promise<{ rss: number; heapUsed: number }>;
+  close: () => Promise<void>;
+}
+
+/** The app in a child process (tests/bench/serve.ts), so the load generator does not slow it down. */
+export async function startServerProcess({
+  poolMax = 10,
+  computeRateLimitPerMinute,
+}: { poolMax?: number; computeRateLimitPerMinute?: number } = {}): Promise<ServerProcess> {
+  const here = path.dirname(fileURLToPath(import.meta.url));
+  // Node itself with tsx's loader (not the tsx command, which would sit between us and the signals).
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(here, 'serve.ts')], {
+    cwd: path.join(here, '..', '..'),
+    env: {
+      ...process.env,
+      BENCH_POOL_MAX: String(poolMax),
+      ...(computeRateLimitPerMinute ? { BENCH_COMPUTE_PER_MINUTE: String(computeRateLimitPerMinute) } : {}),
+    },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  // Never leave a server behind when the bench itself stops, however it stops.
+  process.once('exit', () => child.kill('SIGKILL'));
+  const lines = createInterface({ input: child.stdout! });
+  const first = await new Promise<string>((resolve, reject) => {
+    lines.once('line', resolve);
+    child.once('exit', (code) => reject(new Error(`the bench server stopped (exit ${code}) before listening`)));
+  });
+  const { base, publicUrl } = JSON.parse(first) as { base: string; publicUrl: string };
+  return {
+    base,
+    publicUrl,
+    memory: () =>
+      new Promise((resolve) => {
+        lines.once('line', (l) => resolve((JSON.parse(l) as { memory: { rss: number; heapUsed: number } }).memory));
+        child.kill('SIGUSR2');
+      }),
+    close: () =>
+      new Promise<void>((resolve) => {
+        child.once('exit', () => resolve());
+        child.kill('SIGTERM');
+      }),
   };
 }
 

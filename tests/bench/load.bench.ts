@@ -5,7 +5,7 @@
  * save answered) and computes (POST /api/compute, 20 points). Prints throughput and p50/p99
  * overall and per kind beside the bare endpoint of api.bench.ts, the errors (there should be
  * none), whether every answered save is in the revision history with no gaps or doubles (SQL),
- * and memory sampled before, during and after. Prints only; asserts nothing.
+ * and memory of the server's process sampled before, during and after. Prints only; asserts nothing.
  *
  *   npm run bench load          BENCH_SECONDS=10 npm run bench load
  */
@@ -13,7 +13,8 @@ import type autocannon from 'autocannon';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { bareEndpoint, CONNECTIONS, cookieOf, line, postJson, runAutocannon, startBenchServer, type RunSummary } from './lib';
+import { bareEndpoint, CONNECTIONS, cookieOf, line, postJson, runAutocannon, startServerProcess, type RunSummary } from './lib';
+import { connectDatabase } from '#server/db/client';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -66,10 +67,6 @@ function percentile(sorted: number[], p: number) {
 }
 
 const mb = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(0)} MB`;
-function memory() {
-  const m = process.memoryUsage();
-  return { rss: m.rss, heapUsed: m.heapUsed };
-}
 
 async function createUsers(base: string, origin: string): Promise<User[]> {
   const users: User[] = [];
@@ -79,7 +76,7 @@ async function createUsers(base: string, origin: string): Promise<User[]> {
       Array.from({ length: Math.min(10, CONNECTIONS - batch) }, async (_, j) => {
         const n = batch + j;
         const email = `load-${Date.now().toString(36)}-${n}@example.test`;
-        const signUp = await postJson(base, origin, '/api/auth/sign-up', { email, password: 'load bench password', name: `Load user ${n}` });
+        const signUp = await postJson(base, origin, '/api/auth/sign-up', { email, password: 'quiet harbour turbine passphrase', name: `Load user ${n}` });
         if (signUp.status !== 201) throw new Error(`sign-up ${n}: ${signUp.status} ${JSON.stringify(signUp.body)}`);
         const cookie = cookieOf(signUp.headers);
         const teamId = (signUp.body as { teams: { id: string }[] }).teams[0].id;
@@ -95,12 +92,16 @@ async function createUsers(base: string, origin: string): Promise<User[]> {
 }
 
 async function main() {
-  const server = await startBenchServer({ computeRateLimitPerMinute: 10_000_000, poolMax: 20 });
-  const { base, config, database } = server;
-  const origin = config.publicUrl;
+  const server = await startServerProcess({ computeRateLimitPerMinute: 10_000_000, poolMax: 20 });
+  const { base } = server;
+  const origin = server.publicUrl;
+  // The bench's own connection, for checking the history afterwards.
+  const database = connectDatabase(process.env.DATABASE_URL!, { max: 1 });
 
   console.log(`setting up ${CONNECTIONS} users, each with a team and a study…`);
+  const setupStarted = performance.now();
   const users = await createUsers(base, origin);
+  console.log(`users ready in ${((performance.now() - setupStarted) / 1000).toFixed(0)} s`);
 
   const baselineSeconds = Math.min(10, SECONDS);
   const bare = await bareEndpoint(base, baselineSeconds);
@@ -155,9 +156,9 @@ async function main() {
   }
 
   let nextUser = 0;
-  const memoryBefore = memory();
+  const memoryBefore = await server.memory();
   const samples: { rss: number; heapUsed: number }[] = [];
-  const sampler = setInterval(() => samples.push(memory()), 1000);
+  const sampler = setInterval(() => void server.memory().then((m) => samples.push(m)), 1000);
   const load = await runAutocannon({
     url: base,
     duration: SECONDS,
@@ -174,7 +175,7 @@ async function main() {
   });
   clearInterval(sampler);
   await new Promise((r) => setTimeout(r, 2000));
-  const memoryAfter = memory();
+  const memoryAfter = await server.memory();
 
   // Every save answered 200 must be in the history: revisions 1..n, none missing, none twice.
   const { rows } = await database.pool.query<{ id: string; revision: number; n: number; distinct_n: number; lowest: number; highest: number }>(
@@ -244,7 +245,7 @@ async function main() {
   const third = Math.max(1, Math.floor(samples.length / 3));
   const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / Math.max(1, xs.length);
   console.log(
-    `memory of this process (server and load generator): before rss ${mb(memoryBefore.rss)} heap ${mb(memoryBefore.heapUsed)}; ` +
+    `memory of the server process: before rss ${mb(memoryBefore.rss)} heap ${mb(memoryBefore.heapUsed)}; ` +
       `during rss ${mb(Math.min(...rss))}–${mb(Math.max(...rss))} heap ${mb(Math.min(...heap))}–${mb(Math.max(...heap))}; ` +
       `after rss ${mb(memoryAfter.rss)} heap ${mb(memoryAfter.heapUsed)}`,
   );
@@ -252,6 +253,7 @@ async function main() {
     `heap, mean of the first and last third of the run: ${mb(mean(heap.slice(0, third)))} → ${mb(mean(heap.slice(-third)))} (steady when these are close)`,
   );
   await server.close();
+  await database.pool.end();
 }
 
 main().catch((err) => {
