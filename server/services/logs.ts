@@ -96,16 +96,17 @@ export function parseMappingField(text: string): LogMapping {
 /** Reads and maps a log's bytes; refuses (400) with every problem found, by line and column. */
 export function readLog(bytes: Buffer, mapping: LogMapping): MappedLog {
   if (bytes.length === 0) refuse([{ line: 1, message: 'The file is empty.' }], 'is empty');
-  const read = readLogTable(textOf(bytes));
+  const mapped = new Set(mapping.columns.map((c) => c.column));
+  const read = readLogTable(textOf(bytes), { keep: (name) => mapped.has(name) });
   if (!read.ok) refuse(read.problems, 'could not be read');
   if (read.table.rowCount > MAX_LOG_ROWS)
     refuse(
       [{ line: read.table.rowLines[MAX_LOG_ROWS], message: `The log has ${read.table.rowCount} rows; at most ${MAX_LOG_ROWS} are accepted.` }],
       'is too long',
     );
-  const mapped = applyMapping(read.table, mapping);
-  if (!mapped.ok) refuse(mapped.problems, 'does not fit its mapping');
-  return mapped.log;
+  const result = applyMapping(read.table, mapping);
+  if (!result.ok) refuse(result.problems, 'does not fit its mapping');
+  return result.log;
 }
 
 async function studyOfTeam(db: Pick<Db, 'select'>, teamId: string, studyId: string) {

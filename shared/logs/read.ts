@@ -49,8 +49,14 @@ const DECIMAL_POINT = /^\s*[-+]?\d*\.\d+(?:[eE][-+]?\d+)?\s*$/;
 const NUMBER_LIKE = /^\s*[-+]?(?:\d+[.,]?\d*|[.,]\d+)(?:[eE][-+]?\d+)?\s*$/;
 
 function numberOf(cell: string, decimalComma: boolean): number {
-  if (cell === '' || !NUMBER_LIKE.test(cell)) return Number.NaN;
-  return Number(decimalComma ? cell.replace(',', '.') : cell);
+  if (cell === '') return Number.NaN;
+  // Unary plus reads decimals and exponents fast. What it also takes is refused after: a blank
+  // (read as 0), Infinity, and hex, binary or octal literals (0x…, 0b…, 0o…), which no logger writes.
+  const v = decimalComma ? +cell.replace(',', '.') : +cell;
+  if (v !== v || v === Infinity || v === -Infinity) return Number.NaN;
+  if (v === 0 && !/\d/.test(cell)) return Number.NaN;
+  if (cell.length > 2 && /^\s*[-+]?0[xXbBoO]/.test(cell)) return Number.NaN;
+  return v;
 }
 
 function isNumeric(cell: string): boolean {
@@ -147,24 +153,12 @@ function layoutOf(
   return { delimiter, decimalComma, width, namesRow, unitsRow, dataRow };
 }
 
-class Growing {
-  data: Float64Array;
-  constructor(size: number) {
-    this.data = new Float64Array(size);
-  }
-  ensure(n: number) {
-    if (n <= this.data.length) return;
-    const next = new Float64Array(Math.max(n, this.data.length * 2));
-    next.set(this.data);
-    this.data = next;
-  }
-}
-
 /**
  * Reads the whole text. `onProgress` hears the share read (0 to 1) after each chunk, so a
- * worker can show a progress bar. A file with no recognisable table answers its problem.
+ * worker can show a progress bar. `keep` limits the numbers read to the columns it names (the
+ * others come back empty): the server reads only what the mapping uses. A file with no recognisable table answers its problem.
  */
-export function readLogTable(text: string, options: { onProgress?: (share: number) => void } = {}): ReadResult {
+export function readLogTable(text: string, options: { onProgress?: (share: number) => void; keep?: (name: string) => boolean } = {}): ReadResult {
   if (text.includes('\u0000'))
     return { ok: false, problems: [{ line: 1, message: 'The file holds binary data (NUL bytes): export the log as CSV or tab-separated text.' }] };
   const layout = layoutOf(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
@@ -182,8 +176,11 @@ export function readLogTable(text: string, options: { onProgress?: (share: numbe
   // Row estimate from the line count, so the arrays rarely grow.
   let estimate = 1;
   for (let i = body.indexOf('\n'); i !== -1; i = body.indexOf('\n', i + 1)) estimate++;
-  const columns = Array.from({ length: width }, () => new Growing(estimate));
-  let lines = new Int32Array(estimate);
+  // Rows never outnumber lines: the arrays are allocated once.
+  const keep = options.keep;
+  const kept = names.map((n) => !keep || keep(n));
+  const columns = kept.map((k) => new Float64Array(k ? estimate : 0));
+  const lines = new Int32Array(estimate);
   const unreadable = new Array<number>(width).fill(0);
   const problems: ReadProblem[] = [];
   let raggedRows = 0;
@@ -205,24 +202,19 @@ export function readLogTable(text: string, options: { onProgress?: (share: numbe
         if (line <= dataRow) continue;
         if (row.length === 1 && row[0].trim() === '') continue;
         const r = rowCount++;
-        for (const c of columns) c.ensure(rowCount);
-        if (rowCount > lines.length) {
-          const next = new Int32Array(rowCount * 2);
-          next.set(lines);
-          lines = next;
-        }
         lines[r] = line;
         if (row.length !== width) {
           raggedRows++;
           note({ line, message: `has ${row.length} field${row.length === 1 ? '' : 's'} where the names have ${width}` });
-          for (const c of columns) c.data[r] = Number.NaN;
+          for (let j = 0; j < width; j++) if (kept[j]) columns[j][r] = Number.NaN;
           continue;
         }
         for (let j = 0; j < width; j++) {
+          if (!kept[j]) continue;
           const cell = row[j];
           const value = numberOf(cell, decimalComma);
-          columns[j].data[r] = Number.isFinite(value) ? value : Number.NaN;
-          if (!Number.isFinite(value) && cell.trim() !== '') {
+          columns[j][r] = value;
+          if (value !== value && cell.trim() !== '') {
             unreadable[j]++;
             note({ line, column: j + 1, message: `"${cell.slice(0, 40)}" in column "${names[j]}" is not a number` });
           }
@@ -237,7 +229,7 @@ export function readLogTable(text: string, options: { onProgress?: (share: numbe
     table: {
       names,
       headerUnits,
-      columns: columns.map((c) => c.data.subarray(0, rowCount)),
+      columns: columns.map((c) => c.subarray(0, Math.min(rowCount, c.length))),
       rowLines: lines.subarray(0, rowCount),
       rowCount,
       delimiter,
