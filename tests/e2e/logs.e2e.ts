@@ -22,12 +22,12 @@ async function demoTeamId(page: Page): Promise<string> {
   return me.teams.find((t) => t.name === DEMO_USER.team)!.id;
 }
 
-/** The logged samples drawn on the map: how many points the trace holds and whether they are on screen (WebGL where the browser has it; headless Chromium without a GPU draws SVG). */
+/** The logged samples drawn on the map: how many points the trace holds and how many markers are on screen. */
 async function loggedPointsDrawn(page: Page): Promise<{ points: number; markers: number }> {
   return page.evaluate(() => {
     const gd = document.querySelector('[data-testid="logged-map"] .js-plotly-plot') as (HTMLElement & { data?: { name?: string; type?: string; x?: number[] }[] }) | null;
     const trace = gd?.data?.find((t) => t.name?.startsWith('Logged samples'));
-    const markers = trace?.type === 'scatter' ? (gd?.querySelectorAll('.scatterlayer .trace:last-child .point').length ?? 0) : (trace?.x?.length ?? 0);
+    const markers = gd?.querySelectorAll('.scatterlayer .trace:last-child .point').length ?? 0;
     return { points: trace?.x?.length ?? 0, markers };
   });
 }

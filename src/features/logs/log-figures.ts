@@ -8,22 +8,13 @@ import { mapLineViews } from '#src/components/study/lines';
 import type { UnitSystem } from '#src/lib/units';
 import type { LogComparisonResult } from './comparison';
 
-let webgl: boolean | null = null;
-/** Whether the browser can draw WebGL (plotly's fast scatter needs it; without it, the plain SVG scatter draws the same thinned points). */
-export function webglAvailable(): boolean {
-  if (webgl === null) {
-    try {
-      webgl = !!document.createElement('canvas').getContext('webgl');
-    } catch {
-      webgl = false;
-    }
-  }
-  return webgl;
-}
-
-function scatterType(): 'scattergl' | 'scatter' {
-  return webglAvailable() ? 'scattergl' : 'scatter';
-}
+/**
+ * Logged samples are drawn as plotly's SVG scatter, thinned to MAX_DRAWN_POINTS. Its WebGL scatter
+ * (scattergl) compiles its drawing code at run time with \`new Function\` (regl), which the app's
+ * Content-Security-Policy forbids (script-src 'self', no 'unsafe-eval'): under our headers it only
+ * shows "WebGL is not supported". The thinning keeps the SVG scatter light instead.
+ */
+const LOGGED_TRACE = 'scatter' as const;
 
 /** Most logged points drawn per trace: beyond this the picture does not change, only the frame rate drops. */
 export const MAX_DRAWN_POINTS = 4000;
@@ -49,7 +40,7 @@ function widen(base: PlotFigure, xs: number[], ys: number[]): PlotFigure {
   return { data: base.data, layout };
 }
 
-/** The compressor map with the predicted operating line and the logged points (WebGL scatter where the browser has WebGL). */
+/** The compressor map with the predicted operating line and the logged points (thinned, see LOGGED_TRACE). */
 export function loggedMapFigure(c: LogComparisonResult, time: Float64Array, system: UnitSystem, height: number): PlotFigure {
   const base = compressorMapFigure({ map: c.map, lines: c.line ? mapLineViews([c.line]) : [], flowAxis: 'corrected', unitSystem: system, height });
   const scale = flowScale(c.map, 'corrected', system);
@@ -57,7 +48,7 @@ export function loggedMapFigure(c: LogComparisonResult, time: Float64Array, syst
   const xs = idx.map((i) => c.placed.correctedMassFlow[i] * scale.perCorrectedMassFlow);
   const ys = idx.map((i) => c.placed.pressureRatio[i]);
   const logged: Data = {
-    type: scatterType(),
+    type: LOGGED_TRACE,
     mode: 'markers',
     name: `Logged samples (${idx.length.toLocaleString('en')} drawn)`,
     x: xs,
@@ -93,7 +84,7 @@ function rpmFigure(args: {
     });
   const data: Data[] = [
     {
-      type: scatterType(),
+      type: LOGGED_TRACE,
       mode: 'markers',
       name: `Measured ${args.what}`,
       x: idx.map((i) => rpm[i]),
