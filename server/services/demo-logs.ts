@@ -10,7 +10,7 @@ import { studies, studyLogs } from '../db/schema';
 import { insertLog, readLog, storedSamples } from './logs';
 
 /** The invented demo log (scripts/generate-demo-log.ts made it from the demo study's model). */
-export const DEMO_LOG_FILE = fileURLToPath(new URL('../../data/demo/logs/hillclimb-pulls.csv', import.meta.url));
+const DEMO_LOG_FILE = fileURLToPath(new URL('../../data/demo/logs/hillclimb-pulls.csv', import.meta.url));
 const DEMO_LOG_NAME = 'Run 3: three pulls in third and fourth (demo)';
 
 /** The demo log's mapping: the guess, which reads this file right. */

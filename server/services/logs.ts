@@ -76,7 +76,7 @@ function refuse(problems: ReadProblem[], what: string): never {
 }
 
 /** The mapping field of an upload: JSON text, checked by the shared schema, 400 with field paths. */
-export function parseMappingField(text: string): LogMapping {
+function parseMappingField(text: string): LogMapping {
   let raw: unknown;
   try {
     raw = JSON.parse(text);

@@ -23,7 +23,7 @@ export interface MappedLog {
 export type MapResult = { ok: true; log: MappedLog } | { ok: false; problems: ReadProblem[] };
 
 /** Share of rows that may be skipped before the log is refused as unreadable. */
-export const MAX_SKIPPED_SHARE = 0.1;
+const MAX_SKIPPED_SHARE = 0.1;
 
 function median(values: Float64Array): number {
   const finite = Array.from(values).filter(Number.isFinite);

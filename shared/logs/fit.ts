@@ -33,7 +33,7 @@ export function airFlowFromFuel(fuelMassFlow: number, lambda: number, stoichiome
   return fuelMassFlow * lambda * stoichiometricAfr;
 }
 
-export interface VolumetricEfficiencyBand {
+interface VolumetricEfficiencyBand {
   /** Centre of the band, rpm. */
   rpm: number;
   /** Mean of the samples, fraction. */
@@ -61,7 +61,7 @@ export interface FitSettings {
 export const DEFAULT_FIT_SETTINGS: FitSettings = { bandWidth: 500, minSamples: 5 };
 
 /** Band centre of an engine speed: bands of `width` centred on its multiples. */
-export function bandOf(rpm: number, width: number): number {
+function bandOf(rpm: number, width: number): number {
   return Math.round(rpm / width) * width;
 }
 
@@ -132,7 +132,7 @@ export function bandMeans(rpm: Float64Array, values: Float64Array, used: Uint8Ar
 }
 
 /** Share of the target at which boost counts as arrived (common practice, no source). */
-export const BOOST_ARRIVED_SHARE = 0.9;
+const BOOST_ARRIVED_SHARE = 0.9;
 
 /**
  * The measured boost threshold, rpm: the first band whose mean boost reaches 90 % of the target

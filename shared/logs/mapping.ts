@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { unitConverter } from '../units';
 import { DEFAULT_GAUGE_REFERENCE, LOG_QUANTITIES, LOG_QUANTITY_INFO, REQUIRED_QUANTITIES, type LogQuantity } from './quantities';
 
-export const logColumnMappingSchema = z
+const logColumnMappingSchema = z
   .strictObject({
     /** The column's name as the header gives it (units in brackets included). */
     column: z.string().min(1, 'is required').max(200),

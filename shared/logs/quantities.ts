@@ -24,7 +24,7 @@ export const LOG_QUANTITIES = [
 export type LogQuantity = (typeof LOG_QUANTITIES)[number];
 
 /** A unit offered for a quantity: mathjs name and the label shown. */
-export interface LogUnit {
+interface LogUnit {
   unit: string;
   label: string;
 }

@@ -40,7 +40,7 @@ export interface LogTable {
 
 export type ReadResult = { ok: true; table: LogTable } | { ok: false; problems: ReadProblem[] };
 
-export const MAX_PROBLEMS = 50;
+const MAX_PROBLEMS = 50;
 const PREVIEW_LINES = 200;
 const DELIMITERS = ['\t', ';', ',', '|'] as const;
 

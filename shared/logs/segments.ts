@@ -31,7 +31,7 @@ export interface SegmentSettings {
   minHold: number;
 }
 
-export const DEFAULT_SEGMENT_SETTINGS: SegmentSettings = { throttleMin: 0.9, minRise: 1000, dipAllowed: 150, holdBand: 0.03, minHold: 2 };
+const DEFAULT_SEGMENT_SETTINGS: SegmentSettings = { throttleMin: 0.9, minRise: 1000, dipAllowed: 150, holdBand: 0.03, minHold: 2 };
 
 /** Pulls and holds in time order. Without a throttle channel a pull is any run of rising engine speed. */
 export function detectSegments(channels: LogChannels, settings: SegmentSettings = DEFAULT_SEGMENT_SETTINGS): LogSegment[] {

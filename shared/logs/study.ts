@@ -12,13 +12,6 @@ import type { PlacementContext } from './place';
 /** The standard day a map without a plan falls back to: ISO 2533 sea level (288.15 K, 101 325 Pa). */
 const STANDARD_REFERENCE = { temperature: 288.15, pressure: 101_325 };
 
-export interface LogComparison {
-  planIndex: number;
-  scenarioIndex: number;
-  /** The boost row compared with: the scenario's full-load row, else its first. */
-  rowIndex: number;
-}
-
 /** The full-load row of a scenario, else its first. */
 export function comparedRowIndex(doc: StudyDocument, scenarioIndex: number): number {
   const rows = doc.scenarios[scenarioIndex]?.boostSchedule ?? [];

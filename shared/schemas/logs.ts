@@ -21,7 +21,7 @@ export const uploadLogFieldsSchema = z.strictObject({
 });
 
 /** The chosen segments: row ranges of the stored log, inclusive. */
-export const logSelectionSchema = z
+const logSelectionSchema = z
   .array(z.strictObject({ start: z.number().int().min(0), end: z.number().int().min(0) }).refine((r) => r.end >= r.start, 'end must not be before start'))
   .max(500);
 
@@ -63,7 +63,7 @@ export type LogSummary = z.infer<typeof logSummarySchema>;
 
 export const logListSchema = z.object({ logs: z.array(logSummarySchema) });
 
-export const presetNameSchema = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
+const presetNameSchema = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
 export const savePresetSchema = z.strictObject({ name: presetNameSchema, mapping: logMappingSchema });
 export const mappingPresetSchema = z.object({ id: z.string(), name: z.string(), mapping: logMappingSchema, updatedAt: z.string() });
 export type MappingPreset = z.infer<typeof mappingPresetSchema>;

@@ -15,7 +15,7 @@ import type { StudyDocument } from '#shared/schemas/study';
 import { studyLines, type StudyLine } from '#src/components/study/lines';
 import { runStudyLive } from '#src/components/study/run';
 
-export interface BandRow {
+interface BandRow {
   rpm: number;
   samples: number;
   measured: { boost: number | null; correctedMassFlow: number | null; pressureRatio: number | null; shaftSpeed: number | null; exhaustPressure: number | null };
@@ -42,7 +42,7 @@ export interface LogComparisonResult {
 }
 
 /** A value of the predicted line at an engine speed, linear between its solved points; null outside them. */
-export function lineValueAt(points: readonly SolvedPoint[], rpm: number, pick: (p: SolvedPoint) => number | null | undefined): number | null {
+function lineValueAt(points: readonly SolvedPoint[], rpm: number, pick: (p: SolvedPoint) => number | null | undefined): number | null {
   const withValue = points.filter((p) => typeof pick(p) === 'number' && Number.isFinite(pick(p)));
   for (let i = 0; i < withValue.length; i++) {
     const a = withValue[i];

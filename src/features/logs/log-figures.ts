@@ -17,11 +17,11 @@ import type { LogComparisonResult } from './comparison';
 const LOGGED_TRACE = 'scatter' as const;
 
 /** Most logged points drawn per trace: beyond this the picture does not change, only the frame rate drops. */
-export const MAX_DRAWN_POINTS = 4000;
+const MAX_DRAWN_POINTS = 4000;
 const LOGGED = { color: 'rgba(213, 94, 0, 0.45)', size: 5 };
 
 /** Indices of the used, finite samples to draw, thinned by largest-triangle-three-buckets over time. */
-export function drawnIndices(time: Float64Array, x: Float64Array, y: Float64Array, used: Uint8Array): number[] {
+function drawnIndices(time: Float64Array, x: Float64Array, y: Float64Array, used: Uint8Array): number[] {
   const all = finiteIndices(x, y, used);
   if (all.length <= MAX_DRAWN_POINTS) return all;
   const t = all.map((i) => time[i]);
