@@ -17,7 +17,7 @@ import { logMappingSchema, type LogMapping } from '#shared/logs/mapping';
 import { packChannels, unpackChannels } from '#shared/logs/pack';
 import { placeSamples } from '#shared/logs/place';
 import { readLogTable, type ReadProblem } from '#shared/logs/read';
-import { detectSegments, usedRows } from '#shared/logs/segments';
+import { chosenSegments, detectSegments, usedRows } from '#shared/logs/segments';
 import { placementContext, studyStoichiometricAfr } from '#shared/logs/study';
 import type { CompressorMap } from '#shared/maps/types';
 import { MAX_LOG_ROWS, type LogSummary, type logPointsQuerySchema, type updateLogSchema } from '#shared/schemas/logs';
@@ -301,7 +301,7 @@ async function loadedLog(db: Db, teamId: string, studyId: string, logId: string)
   const study = await studyOfTeam(db, teamId, studyId);
   const row = await logRow(db, teamId, studyId, logId);
   const { channels, rowCount } = unpackChannels(new Uint8Array(await inflateAsync(row.samples)));
-  const chosen = (row.selection as { start: number; end: number }[] | null) ?? detectSegments(channels).filter((s) => s.kind === 'pull');
+  const chosen = chosenSegments(row.selection as { start: number; end: number }[] | null, detectSegments(channels));
   return { study, row, channels, rowCount, used: usedRows(rowCount, chosen), document: validDocument(study.document) };
 }
 

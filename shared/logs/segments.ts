@@ -92,10 +92,17 @@ export function detectSegments(channels: LogChannels, settings: SegmentSettings 
   return [...pulls, ...holds].sort((a, b) => a.start - b.start);
 }
 
-/** Rows used: those inside the chosen segments (all rows when none is chosen). */
-export function usedRows(rowCount: number, segments: readonly Pick<LogSegment, 'start' | 'end'>[]): Uint8Array {
+/** Rows used: those inside the chosen segments; all rows when `segments` is null (nothing chosen and no pull found). */
+export function usedRows(rowCount: number, segments: readonly Pick<LogSegment, 'start' | 'end'>[] | null): Uint8Array {
   const used = new Uint8Array(rowCount);
-  if (segments.length === 0) return used.fill(1);
+  if (segments === null) return used.fill(1);
   for (const s of segments) used.fill(1, Math.max(0, s.start), Math.min(rowCount, s.end + 1));
   return used;
+}
+
+/** The segments a log is compared on: the user's choice, else the detected pulls, else (null) every row. */
+export function chosenSegments(selection: readonly { start: number; end: number }[] | null, detected: readonly LogSegment[]) {
+  if (selection) return selection;
+  const pulls = detected.filter((s) => s.kind === 'pull');
+  return pulls.length ? pulls : null;
 }

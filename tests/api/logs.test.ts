@@ -84,6 +84,9 @@ describe('logged runs', () => {
     const points = await owner.c.get(`${url}/points.csv`);
     // Ten rows chosen, ten rows out (plus the names).
     expect(points.text.trim().split(/\r?\n/)).toHaveLength(11);
+    // Nothing chosen: nothing compared (the names alone), not everything.
+    await owner.c.patch(url, { selection: [] });
+    expect((await owner.c.get(`${url}/points.csv`)).text.trim().split(/\r?\n/)).toHaveLength(1);
   });
 
   it('refuses a file over 100 MB with 413 and stores nothing', async () => {

@@ -25,7 +25,8 @@ async function demoTeamId(page: Page): Promise<string> {
 /** The logged samples drawn on the map: how many points the trace holds and how many markers are on screen. */
 async function loggedPointsDrawn(page: Page): Promise<{ points: number; markers: number }> {
   return page.evaluate(() => {
-    const gd = document.querySelector('[data-testid="logged-map"] .js-plotly-plot') as (HTMLElement & { data?: { name?: string; type?: string; x?: number[] }[] }) | null;
+    const gd = document.querySelector('[data-testid="logged-map"] .js-plotly-plot') as
+      (HTMLElement & { data?: { name?: string; type?: string; x?: number[] }[] }) | null;
     const trace = gd?.data?.find((t) => t.name?.startsWith('Logged samples'));
     const markers = gd?.querySelectorAll('.scatterlayer .trace:last-child .point').length ?? 0;
     return { points: trace?.x?.length ?? 0, markers };
@@ -70,7 +71,8 @@ describe('logged runs', () => {
       await page.getByRole('button', { name: 'Upload the log' }).click();
       await page.waitForFunction(
         () => {
-          const gd = document.querySelector('[data-testid="logged-map"] .js-plotly-plot') as (HTMLElement & { data?: { name?: string; x?: number[] }[] }) | null;
+          const gd = document.querySelector('[data-testid="logged-map"] .js-plotly-plot') as
+            (HTMLElement & { data?: { name?: string; x?: number[] }[] }) | null;
           return gd?.data?.some((t) => t.name?.startsWith('Logged samples') && (t.x?.length ?? 0) > 0) ?? false;
         },
         undefined,
@@ -95,7 +97,9 @@ describe('logged runs', () => {
       // The demo log's engine: the study's 1.05 at 5500 rpm times 0.974 (scripts/generate-demo-log.ts, invented), read about 1 % low through the MAP sensor's offset.
       expect(at5500?.value).toBeGreaterThan(0.99);
       expect(at5500?.value).toBeLessThan(1.03);
-      const revisions = (await (await page.request.get(`${baseUrl()}/api/teams/${teamId}/studies/${studyId}/revisions`)).json()) as { revisions: { message: string }[] };
+      const revisions = (await (await page.request.get(`${baseUrl()}/api/teams/${teamId}/studies/${studyId}/revisions`)).json()) as {
+        revisions: { message: string }[];
+      };
       expect(revisions.revisions.map((r) => r.message)).toContain('Volumetric efficiency fitted from log "hillclimb-pulls"');
       expect(errors).toEqual([]);
     } finally {

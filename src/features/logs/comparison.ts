@@ -6,7 +6,7 @@
 import type { LogChannels } from '#shared/logs/convert';
 import { bandMeans, DEFAULT_FIT_SETTINGS, fitVolumetricEfficiency, measuredBoostThreshold, type VolumetricEfficiencyFit } from '#shared/logs/fit';
 import { placeSamples, type PlacedSamples } from '#shared/logs/place';
-import { detectSegments, usedRows, type LogSegment } from '#shared/logs/segments';
+import { chosenSegments, detectSegments, usedRows, type LogSegment } from '#shared/logs/segments';
 import { boostTargetAt, comparedRowIndex, placementContext, studyStoichiometricAfr } from '#shared/logs/study';
 import type { CompressorMap, SpoolbookMap } from '#shared/maps/types';
 import type { SolvedPoint } from '#shared/matching/result';
@@ -68,8 +68,7 @@ export function compareLog(args: {
 }): LogComparisonResult {
   const { doc, mapsById, channels, rowCount, planIndex, scenarioIndex } = args;
   const segments = detectSegments(channels);
-  const chosen = args.selection ?? segments.filter((s) => s.kind === 'pull');
-  const used = usedRows(rowCount, chosen);
+  const used = usedRows(rowCount, chosenSegments(args.selection, segments));
   const mapId = doc.plans[planIndex]?.compressorMapId;
   const candidate = mapId ? mapsById[mapId] : undefined;
   const map = candidate?.kind === 'compressor' ? candidate : null;

@@ -2,6 +2,7 @@ import { useMemo, useState } from 'react';
 import type { SpoolbookMap } from '#shared/maps/types';
 import type { LogSummary } from '#shared/schemas/logs';
 import type { StudyDetail, StudyDocument } from '#shared/schemas/study';
+import { chosenSegments } from '#shared/logs/segments';
 import { volumetricEfficiencyWithFit } from '#shared/logs/study';
 import { Alert } from '#src/components/Alert';
 import { Button, buttonClass } from '#src/components/Button';
@@ -70,7 +71,7 @@ export function LogView({
   const time = channels.time!;
   const rpm = channels.engineSpeed!;
   const c = comparison;
-  const chosen = log.selection ?? c.segments.filter((s) => s.kind === 'pull').map((s) => ({ start: s.start, end: s.end }));
+  const chosen = (chosenSegments(log.selection, c.segments) ?? []).map((s) => ({ start: s.start, end: s.end }));
   const isChosen = (s: { start: number; end: number }) => chosen.some((r) => r.start === s.start && r.end === s.end);
   const toggle = (s: { start: number; end: number }) => {
     const next = isChosen(s) ? chosen.filter((r) => !(r.start === s.start && r.end === s.end)) : [...chosen, { start: s.start, end: s.end }];
@@ -105,6 +106,9 @@ export function LogView({
               </li>
             ))}
           </ul>
+        )}
+        {c.segments.length > 0 && chosen.length === 0 && (
+          <p className="mt-2 text-sm text-copper-ink">No segment chosen: nothing is compared or fitted. Tick at least one.</p>
         )}
         {updateLog.error && <p className="mt-2 text-sm text-copper-ink">{updateLog.error.message}</p>}
       </Card>
