@@ -25,6 +25,7 @@ import { authRouter } from './routes/auth';
 import { computeRouter } from './routes/compute';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
+import { logPresetsRouter, logsRouter } from './routes/logs';
 import { mapsRouter } from './routes/maps';
 import { shareRouter } from './routes/share';
 import { studiesRouter } from './routes/studies';
@@ -126,6 +127,8 @@ export function createApp({
   api.use('/auth', authRouter(deps));
   api.use('/teams/:teamId/maps', mapsRouter(deps));
   api.use('/teams/:teamId/tracer', tracerRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/logs', logsRouter(deps));
+  api.use('/teams/:teamId/log-presets', logPresetsRouter(deps));
   api.use('/teams/:teamId/studies', studiesRouter(deps));
   api.use('/share', shareRouter(deps));
   api.use('/teams/:teamId/audit', teamAuditRouter(deps));

@@ -1,5 +1,20 @@
 import { sql } from 'drizzle-orm';
-import { bigint, boolean, customType, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, varchar } from 'drizzle-orm/pg-core';
+import {
+  bigint,
+  boolean,
+  customType,
+  date,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/pg-core';
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
@@ -373,4 +388,61 @@ export const traceDrafts = pgTable(
     updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
   },
   (t) => [index('trace_drafts_team_idx').on(t.teamId, t.updatedAt)],
+);
+
+/**
+ * Logged runs uploaded to a study: the mapping they were read with, the source file's checksum, and
+ * the samples in SI, packed per channel (shared/logs/pack.ts) and deflated with node:zlib.
+ */
+export const studyLogs = pgTable(
+  'study_logs',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    studyId: text('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    /** The day the run was logged (ISO date), when given. */
+    loggedOn: date('logged_on', { mode: 'string' }),
+    notes: text('notes').notNull().default(''),
+    /** The column mapping (shared/logs/mapping.ts). */
+    mapping: jsonb('mapping').notNull(),
+    /** SHA-256 of the uploaded file, hex. */
+    sourceChecksum: text('source_checksum').notNull(),
+    sourceName: text('source_name').notNull().default(''),
+    sourceBytes: integer('source_bytes').notNull(),
+    rowCount: integer('row_count').notNull(),
+    /** Seconds from first to last sample. */
+    duration: doublePrecision('duration').notNull(),
+    /** Quantities stored, in shared/logs/quantities.ts order. */
+    channels: jsonb('channels').notNull(),
+    /** Rows left out on reading, with why. */
+    skipped: jsonb('skipped').notNull(),
+    /** The segments chosen for comparison and fit, `[{ start, end }]` rows; null: the detected pulls. */
+    selection: jsonb('selection'),
+    samples: bytea('samples').notNull(),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('study_logs_study_idx').on(t.teamId, t.studyId, t.createdAt)],
+);
+
+/** A team's named column mappings, kept for the next log from the same logger. */
+export const logMappingPresets = pgTable(
+  'log_mapping_presets',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    mapping: jsonb('mapping').notNull(),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('log_mapping_presets_team_name_unique').on(t.teamId, t.name)],
 );

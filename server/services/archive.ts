@@ -11,6 +11,7 @@ import { HttpError, issuesOf } from '../http/errors';
 import { audit } from './audit';
 import { BUILTIN_PREFIX, builtinMap } from './builtin-maps';
 import { validDocument } from './study-documents';
+import { archiveLogsOf, checkArchiveLog, writeArchiveLogs } from './log-archive';
 
 /** A team's archive as a download: its name says which team and when. */
 export function archiveFileName(teamName: string, exportedAt: string) {
@@ -51,6 +52,7 @@ async function teamArchive(db: Db, teamId: string, teamName: string): Promise<Te
         )
         .orderBy(asc(studyRevisions.studyId), asc(studyRevisions.revision))
     : [];
+  const logs = await archiveLogsOf(db, teamId);
   return {
     format: 'spoolbook-team-archive',
     version: 1,
@@ -80,6 +82,7 @@ async function teamArchive(db: Db, teamId: string, teamName: string): Promise<Te
           createdAt: x.r.createdAt.toISOString(),
           document: x.r.document,
         })),
+      logs: logs.get(s.id) ?? [],
     })),
   };
 }
@@ -163,6 +166,11 @@ async function writeArchive(db: Db, teamId: string, importerId: string, raw: unk
       }
     }),
   );
+  archive.studies.forEach((s, i) =>
+    (s.logs ?? []).forEach((log, j) => {
+      for (const message of checkArchiveLog(log).problems) problems.push({ item: `studies[${i}] "${s.title}" logs[${j}] "${log.name}"`, message });
+    }),
+  );
   if (problems.length > 0) {
     throw new HttpError(400, 'invalid_archive', `The archive has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, {
       problems: problems.slice(0, 500),
@@ -229,6 +237,7 @@ async function writeArchive(db: Db, teamId: string, importerId: string, raw: unk
           createdAt: new Date(r.createdAt),
         });
       }
+      await writeArchiveLogs(tx, { teamId, studyId: id, importerId, logs: s.logs ?? [] });
     }
     return { maps: archive.maps.length, studies: archive.studies.length, revisions: archive.studies.reduce((n, s) => n + s.revisions.length, 0) };
   });

@@ -39,6 +39,8 @@ type AuditAction =
   | 'map.uploaded'
   | 'map.deleted'
   | 'study.deleted'
+  | 'log.uploaded'
+  | 'log.deleted'
   | 'share-link.created'
   | 'share-link.revoked'
   | 'share-link.kept'

@@ -32,12 +32,32 @@ export const archiveRevisionSchema = z.strictObject({
   document: z.unknown(),
 });
 
+/** A logged run of a study: its mapping and its stored samples (packed, deflated, base64). */
+export const archiveLogSchema = z.strictObject({
+  name: z.string().min(1).max(120),
+  loggedOn: z.iso.date().nullable(),
+  notes: z.string().max(5000),
+  mapping: z.unknown(),
+  sourceName: z.string().max(200),
+  sourceChecksum: z.string().regex(/^[0-9a-f]{64}$/, 'must be a SHA-256 in hex'),
+  sourceBytes: z.number().int().min(0),
+  selection: z
+    .array(z.strictObject({ start: z.number().int().min(0), end: z.number().int().min(0) }))
+    .max(500)
+    .nullable(),
+  skipped: z.array(z.strictObject({ reason: z.string().max(300), rows: z.number().int().min(0) })).max(20),
+  createdAt: iso,
+  samples: z.base64({ message: 'must be base64' }),
+});
+
 export const archiveStudySchema = z.strictObject({
   id: z.string().min(1).max(80),
   title: z.string().min(1).max(120),
   archived: z.boolean(),
   createdAt: iso,
   revisions: z.array(archiveRevisionSchema).min(1).max(10_000),
+  /** Logged runs; absent in archives from before logs were kept. */
+  logs: z.array(archiveLogSchema).max(200).optional(),
 });
 
 export const teamArchiveSchema = z.strictObject({

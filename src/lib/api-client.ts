@@ -95,7 +95,7 @@ export function apiErrorFrom(status: number, body: unknown, retryAfter: string |
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
-async function request<T>(method: Method, path: string, body: unknown, schema: z.ZodType<T> | null): Promise<T> {
+async function request<T>(method: Method, path: string, body: unknown, schema: z.ZodType<T> | null | 'bytes'): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const init: RequestInit = { method, headers, credentials: 'same-origin' };
   if (body instanceof FormData) {
@@ -117,6 +117,7 @@ async function request<T>(method: Method, path: string, body: unknown, schema: z
     });
   }
 
+  if (response.ok && schema === 'bytes') return (await response.arrayBuffer()) as T;
   const text = await response.text();
   let json: unknown = undefined;
   if (text.length > 0) {
@@ -138,7 +139,7 @@ async function request<T>(method: Method, path: string, body: unknown, schema: z
     throw error;
   }
 
-  if (schema === null) return undefined as T;
+  if (schema === null || schema === 'bytes') return undefined as T;
   const parsed = schema.safeParse(json);
   if (!parsed.success) {
     throw new ApiError({
@@ -159,6 +160,10 @@ async function request<T>(method: Method, path: string, body: unknown, schema: z
 export const api = {
   get<T>(path: string, schema: z.ZodType<T>): Promise<T> {
     return request('GET', path, undefined, schema);
+  },
+  /** GETs a binary answer as its bytes (errors as for JSON). */
+  bytes(path: string): Promise<ArrayBuffer> {
+    return request<ArrayBuffer>('GET', path, undefined, 'bytes');
   },
   post<T = void>(path: string, body?: unknown, schema?: z.ZodType<T>): Promise<T> {
     return request('POST', path, body, schema ?? null);

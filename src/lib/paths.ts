@@ -51,6 +51,11 @@ export const paths = {
     path: '/teams/:teamId/studies/:studyId/compare',
     href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/compare`,
   },
+  /** The logged runs of one study, beside its prediction. */
+  teamStudyLogs: {
+    path: '/teams/:teamId/studies/:studyId/logs',
+    href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/logs`,
+  },
   /** The printable report of one study. */
   teamStudyReport: {
     path: '/teams/:teamId/studies/:studyId/report',
