@@ -2,10 +2,9 @@ import type { Data } from 'plotly.js-dist-min';
 import { finiteIndices, largestTriangleThreeBuckets } from '#shared/logs/downsample';
 import type { SolvedPoint } from '#shared/matching/result';
 import { compressorMapFigure, flowScale, type PlotFigure } from '#src/components/plots/compressor-map-figure';
-import { displayUnitLabel, toDisplay } from '#src/components/plots/quantities';
 import { legendUnderMap, mapPlotPaper, plotAxis, plotColours, plotFont } from '#src/components/plots/style';
 import { mapLineViews } from '#src/components/study/lines';
-import type { UnitSystem } from '#src/lib/units';
+import { displayUnitLabel, toDisplay, type UnitSystem } from '#src/lib/quantities';
 import type { LogComparisonResult } from './comparison';
 
 /**

@@ -4,10 +4,10 @@ import { Alert } from '#src/components/Alert';
 import { Card } from '#src/components/Card';
 import { ConfirmButton } from '#src/components/ConfirmButton';
 import { Loading } from '#src/components/Page';
-import { formatNumber } from '#src/components/plots/quantities';
 import { StudyCaution } from '#src/components/study/StudyCaution';
-import { useUnitSystem } from '#src/lib/units';
-import { useStudy, useStudyMaps } from '#src/features/studies/api';
+import { formatNumber, useUnitSystem } from '#src/lib/quantities';
+import { useMapModels } from '#src/features/maps/api';
+import { useStudy } from '#src/features/studies/api';
 import { useDeleteLog, useLogs } from '../api';
 import { LogView } from './LogView';
 import { UploadLog } from './UploadLog';
@@ -21,7 +21,7 @@ export function LogsPage({ teamId, studyId }: { teamId: string; studyId: string 
   const [chosen, setChosen] = useState<string | null>(null);
   const read = useMemo(() => (study.data ? readStudyDocument(study.data.document) : null), [study.data]);
   const document = read?.ok ? read.document : null;
-  const maps = useStudyMaps(teamId, document ? studyMapIds(document.plans) : []);
+  const maps = useMapModels(teamId, document ? studyMapIds(document.plans) : []);
 
   if (study.isPending || logs.isPending || (document && maps.loading)) return <Loading label="Loading the study and its logs…" />;
   if (study.error || logs.error)
