@@ -4,10 +4,9 @@
  * first, then the earliest boost threshold, the lowest peak drive pressure ratio, the smallest
  * wastegate share at peak power.
  */
-import type { TurbineMap } from '../maps/types';
 import { VERDICT_RANK, planVerdicts } from '../matching/verdict';
 import type { StudyDocument, StudyPlan } from '../schemas/study';
-import type { SpoolbookMap } from '../maps/types';
+import type { SpoolbookMap, TurbineMap } from '../maps/types';
 import { runStudyDocument, type MapModelCache } from '../study/run';
 import { turbineCandidatePlan } from './plan';
 import { candidateVerdict, extremeWhere, peakSpeeds, referenceLine, valueAtSpeed } from './readings';

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { familyMember, moodyEfficiency } from '#shared/maps/family/similarity';
 import { parseMapFile, writeMapFile } from '#shared/maps';
-import { expectClose } from '../../expect-close';
-import { boxMap } from '../../candidates/helpers';
+import { expectClose } from '#tests/unit/expect-close';
+import { boxMap } from '#tests/unit/candidates/helpers';
 
 // The hand-made parent: speed lines 60 000 … 180 000 rpm, flows 0.02 … 1.0 kg/s, efficiency 0.75,
 // rated 200 000 rpm (tests/unit/candidates/helpers.ts).
