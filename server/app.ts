@@ -21,6 +21,7 @@ import { adminRouter } from './routes/admin';
 import { archiveRouter } from './routes/archive';
 import { adminAuditRouter, teamAuditRouter } from './routes/audit';
 import { authRouter } from './routes/auth';
+import { candidateMapsRouter, candidatesRouter } from './routes/candidates';
 import { computeRouter } from './routes/compute';
 import { healthRouter } from './routes/health';
 import { invitationsRouter } from './routes/invitations';
@@ -121,8 +122,10 @@ export function createApp({
   });
   api.use('/health', healthRouter(deps));
   api.use('/auth', authRouter(deps));
+  api.use('/teams/:teamId', candidateMapsRouter(deps));
   api.use('/teams/:teamId/maps', mapsRouter(deps));
   api.use('/teams/:teamId/tracer', tracerRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId', candidatesRouter(deps));
   api.use('/teams/:teamId/studies', studiesRouter(deps));
   api.use('/share', shareRouter(deps));
   api.use('/teams/:teamId/audit', teamAuditRouter(deps));

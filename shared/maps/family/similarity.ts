@@ -32,15 +32,8 @@ export const MOODY_EXPONENT = 0.2;
 
 export type FamilyRule = { kind: 'diameter'; diameterRatio: number; sizeEffect: boolean } | { kind: 'trim'; parentTrim: number; trim: number };
 
-/** What a scaled map says of itself: its parent and the rule, in words too. */
-export interface FamilyEstimate {
-  parentName: string;
-  rule: FamilyRule;
-  /** The rule in one line: "diameter × 1.10 by the similarity laws (flow × 1.21, speed ÷ 1.10, efficiency with Moody's size effect)". */
-  words: string;
-}
-
-export type FamilyResult = { ok: true; map: CompressorMap; estimate: FamilyEstimate } | { ok: false; message: string };
+/** A new map (marked as an estimate of its parent, `map.estimate`), or why the rule does not hold. */
+export type FamilyResult = { ok: true; map: CompressorMap } | { ok: false; message: string };
 
 const fixed = (x: number, digits = 3) => x.toFixed(digits).replace(/0+$/, '').replace(/\.$/, '');
 
@@ -79,7 +72,8 @@ function islandLabel(c: CompressorCurve, efficiency: (eta: number) => number): s
 const outside = (x: number, [low, high]: readonly [number, number]) => !(x >= low && x <= high);
 
 /** A new compressor map from a parent by one rule, or why the rule does not hold there. */
-export function familyMember(parent: CompressorMap, rule: FamilyRule, name: string): FamilyResult {
+export function familyMember(parent: { id: string; map: CompressorMap }, rule: FamilyRule, name: string): FamilyResult {
+  const { id: parentId, map: source } = parent;
   let flowFactor: number;
   let speedFactor: number;
   let efficiency: (eta: number) => number = (eta) => eta;
@@ -117,11 +111,12 @@ export function familyMember(parent: CompressorMap, rule: FamilyRule, name: stri
     words = `trim ${fixed(parentTrim, 1)} → ${fixed(trim, 1)} (flow × ${fixed(ratio)} with the inducer area; speed lines, pressure ratio and efficiency kept)`;
   }
   const map: CompressorMap = {
-    ...parent,
+    ...source,
     name,
-    notes: [`Estimate: made from “${parent.name}” by ${words}. Not a measured map.`, ...parent.notes],
-    maxSpeed: parent.maxSpeed === null ? null : Math.round(parent.maxSpeed * speedFactor),
-    curves: scaleCurves(parent.curves, flowFactor, speedFactor, efficiency),
+    notes: [`Estimate: made from “${source.name}” by ${words}. Not a measured map.`, ...source.notes],
+    maxSpeed: source.maxSpeed === null ? null : Math.round(source.maxSpeed * speedFactor),
+    curves: scaleCurves(source.curves, flowFactor, speedFactor, efficiency),
+    estimate: { parentId, parentName: source.name, rule: words },
   };
-  return { ok: true, map, estimate: { parentName: parent.name, rule, words } };
+  return { ok: true, map };
 }

@@ -10,7 +10,7 @@ const parent = boxMap('Parent', 1);
 const speedLine = (map: typeof parent, i: number) => map.curves.filter((c) => c.kind === 'speed')[i];
 
 describe('a larger wheel by the similarity laws at equal tip speed', () => {
-  const result = familyMember(parent, { kind: 'diameter', diameterRatio: 1.2, sizeEffect: false }, 'Parent × 1.2');
+  const result = familyMember({ id: 'parent', map: parent }, { kind: 'diameter', diameterRatio: 1.2, sizeEffect: false }, 'Parent × 1.2');
   if (!result.ok) throw new Error(result.message);
   const child = result.map;
 
@@ -28,7 +28,7 @@ describe('a larger wheel by the similarity laws at equal tip speed', () => {
   });
 
   it('says it is an estimate, with its parent and rule, and survives the map file', () => {
-    expect(result.estimate.parentName).toBe('Parent');
+    expect(child.estimate).toMatchObject({ parentId: 'parent', parentName: 'Parent' });
     expect(child.notes[0]).toMatch(/^Estimate: made from “Parent” by diameter × 1.2/);
     const reread = parseMapFile(writeMapFile(child));
     expect(reread.ok).toBe(true);
@@ -39,7 +39,7 @@ describe("Moody's size effect on efficiency", () => {
   it('raises a larger wheel’s efficiency by (1 − η₂)/(1 − η₁) = (D₁/D₂)^(1/5)', () => {
     // 1 − 0.25·1.2^(−0.2) = 1 − 0.25·0.964193 = 0.758952 (Moody's formula, Dixon & Hall 7th ed. ch. 1; worked by hand).
     expectClose(moodyEfficiency(0.75, 1.2), 0.758952, 1e-5);
-    const r = familyMember(parent, { kind: 'diameter', diameterRatio: 1.2, sizeEffect: true }, 'Parent × 1.2, size effect');
+    const r = familyMember({ id: 'parent', map: parent }, { kind: 'diameter', diameterRatio: 1.2, sizeEffect: true }, 'Parent × 1.2, size effect');
     if (!r.ok) throw new Error(r.message);
     expectClose(speedLine(r.map, 0).points[0].efficiency!, 0.758952, 1e-5);
   });
@@ -47,7 +47,7 @@ describe("Moody's size effect on efficiency", () => {
 
 describe('a trim change on the same exducer', () => {
   it('scales flow with the inducer area and keeps the speed lines', () => {
-    const r = familyMember(parent, { kind: 'trim', parentTrim: 50, trim: 53 }, 'Parent, trim 53');
+    const r = familyMember({ id: 'parent', map: parent }, { kind: 'trim', parentTrim: 50, trim: 53 }, 'Parent, trim 53');
     if (!r.ok) throw new Error(r.message);
     // ṁ₂ = ṁ₁·53/50 = 0.1·1.06 = 0.106 kg/s (flow with inducer area; common practice, no source).
     expectClose(speedLine(r.map, 2).points[1].correctedMassFlow, 0.106, 1e-12);
@@ -58,7 +58,7 @@ describe('a trim change on the same exducer', () => {
 
 describe('outside the honest range', () => {
   it('refuses a trim change over 10 % with the range it accepts', () => {
-    const r = familyMember(parent, { kind: 'trim', parentTrim: 50, trim: 60 }, 'x');
+    const r = familyMember({ id: 'parent', map: parent }, { kind: 'trim', parentTrim: 50, trim: 60 }, 'x');
     expect(r.ok).toBe(false);
     // 60/50 = 1.2, a 20 % change; the range ±10 % of 50 is 45 to 55 (common practice, no source).
     if (!r.ok) expect(r.message).toContain("20 %; the rule holds only within ±10 % of the parent's trim (45 to 55)");
@@ -66,7 +66,7 @@ describe('outside the honest range', () => {
 
   it('refuses a diameter ratio beyond 0.5 … 2', () => {
     for (const diameterRatio of [0.4, 2.5, Number.NaN]) {
-      const r = familyMember(parent, { kind: 'diameter', diameterRatio, sizeEffect: false }, 'x');
+      const r = familyMember({ id: 'parent', map: parent }, { kind: 'diameter', diameterRatio, sizeEffect: false }, 'x');
       expect(r.ok, String(diameterRatio)).toBe(false);
       if (!r.ok) expect(r.message).toMatch(/^diameterRatio must be between 0.5 and 2/);
     }
