@@ -70,4 +70,29 @@ describe('Candidates in the browser', () => {
     expect(await verdict.getAttribute('data-verdict')).toBe(fitting[0].verdict.status);
     expect(errors).toEqual([]);
   });
+
+  it('makes a family member of a compressor map on its page, saved as an estimate', async () => {
+    const base = baseUrl();
+    const { page, errors } = await suite.demoPage({ width: 1280, height: 900 });
+    // A team of its own, so the demo team's library stays as the other suites read it.
+    const team = await page.request.post(`${base}/api/teams`, { data: { name: 'Family check' }, headers: { Origin: base } });
+    expect(team.status()).toBe(201);
+    const teamId = ((await team.json()) as { team: { id: string } }).team.id;
+    await page.goto(`${base}/teams/${teamId}/maps/builtin-compressor-f60`);
+    const panel = page.getByTestId('family-panel');
+    await panel.waitFor();
+    await panel.getByLabel('Diameter ratio (new ÷ this)').fill('1.2');
+    await panel.getByLabel('Name of the new map').fill('F60 at 72 mm (estimate)');
+    await panel.getByRole('button', { name: 'Make the map' }).click();
+    await panel.getByText('F60 at 72 mm (estimate) is in the library, marked as an estimate').waitFor();
+    await screenshot(page, 'candidates-family');
+    const { maps } = (await (await page.request.get(`${base}/api/teams/${teamId}/candidate-maps?kind=compressor`)).json()) as { maps: CandidateMap[] };
+    const made = maps.find((m) => m.name === 'F60 at 72 mm (estimate)');
+    expect(made?.origin).toBe('estimate');
+    // A ratio outside the rule's range is refused with the range, and nothing is made.
+    await panel.getByLabel('Diameter ratio (new ÷ this)').fill('3');
+    await panel.getByRole('button', { name: 'Make the map' }).click();
+    await panel.getByText(/diameterRatio must be between 0.5 and 2/).waitFor();
+    expect(errors).toEqual([]);
+  });
 });
