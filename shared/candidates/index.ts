@@ -13,6 +13,6 @@ export {
   type CompressorOrder,
   type CompressorRanking,
 } from './compressors';
-export { judgeTurbine, rankTurbines, sortTurbineCandidates, type TurbineRanking } from './turbines';
+export { judgeTurbine, rankTurbines, sortTurbineCandidates } from './turbines';
 export { MAX_PLANS, templatePlan, withCandidatePlan } from './plan';
 export { CANDIDATE_CSV_FIELDS, candidateCsvRows } from './csv';

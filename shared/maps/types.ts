@@ -70,7 +70,7 @@ export interface CompressorMap {
 }
 
 /** Where an estimated map comes from: its parent and the rule, in words too. */
-export interface MapEstimate {
+interface MapEstimate {
   /** The parent's library id (a team map or a built-in one). */
   parentId: string;
   parentName: string;

@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { mapNameSchema } from './map';
 
-export const compressorOrderSchema = z.enum(['smallest', 'surge-margin', 'efficiency', 'outlet-temperature'], {
+const compressorOrderSchema = z.enum(['smallest', 'surge-margin', 'efficiency', 'outlet-temperature'], {
   error: 'order must be smallest, surge-margin, efficiency or outlet-temperature',
 });
 

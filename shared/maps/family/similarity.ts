@@ -28,7 +28,7 @@ export const DIAMETER_RATIO_RANGE = [0.5, 2] as const;
 /** The trim ratios (new trim over the parent's) the rule accepts (common practice, no source). */
 export const TRIM_RATIO_RANGE = [0.9, 1.1] as const;
 /** Moody's exponent of the size effect on efficiency (Dixon & Hall, 7th ed., ch. 1; from memory). */
-export const MOODY_EXPONENT = 0.2;
+const MOODY_EXPONENT = 0.2;
 
 export type FamilyRule = { kind: 'diameter'; diameterRatio: number; sizeEffect: boolean } | { kind: 'trim'; parentTrim: number; trim: number };
 

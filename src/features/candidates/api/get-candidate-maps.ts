@@ -10,11 +10,11 @@ const candidateMapsSchema = z.object({
 });
 
 /** Every parsed map of one kind the team may rank: its own, then the built-in ones. */
-export function getCandidateMaps(teamId: string, kind: 'compressor' | 'turbine'): Promise<CandidateMap[]> {
+function getCandidateMaps(teamId: string, kind: 'compressor' | 'turbine'): Promise<CandidateMap[]> {
   return api.get(`/api/teams/${encodeURIComponent(teamId)}/candidate-maps?kind=${kind}`, candidateMapsSchema).then((body) => body.maps);
 }
 
-export const candidateMapsQueryOptions = (teamId: string, kind: 'compressor' | 'turbine') =>
+const candidateMapsQueryOptions = (teamId: string, kind: 'compressor' | 'turbine') =>
   queryOptions({ queryKey: candidateKeys.maps(teamId, kind), queryFn: () => getCandidateMaps(teamId, kind), staleTime: 60_000 });
 
 export function useCandidateMaps(teamId: string, kind: 'compressor' | 'turbine', options: { enabled?: boolean } = {}) {

@@ -8,7 +8,7 @@ export type FamilyRequest = z.input<typeof familyRequestSchema>;
 const familyAnswerSchema = z.object({ map: z.object({ id: z.string(), name: z.string() }).passthrough() });
 
 /** Makes a new compressor map from one of the library by a family rule; answers the new map's id and name. */
-export function makeFamilyMember(teamId: string, mapId: string, request: FamilyRequest) {
+function makeFamilyMember(teamId: string, mapId: string, request: FamilyRequest) {
   return api.post(`/api/teams/${encodeURIComponent(teamId)}/maps/${encodeURIComponent(mapId)}/family`, request, familyAnswerSchema).then((b) => b.map);
 }
 

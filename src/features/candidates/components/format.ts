@@ -8,7 +8,7 @@ const rpm = (n: number) => Math.round(n).toLocaleString('en-US');
 export const percent = (fraction: number) => `${(fraction * 100).toFixed(1)} %`;
 
 /** Where a value was found: "2,500 rpm, “Sea level, 20 °C” · Full load". */
-export const where = (w: ValueWhere) => `${rpm(w.rpm)} rpm, “${w.scenarioName}” · ${w.rowLabel}`;
+const where = (w: ValueWhere) => `${rpm(w.rpm)} rpm, “${w.scenarioName}” · ${w.rowLabel}`;
 
 /** A worst margin with where it is; "none" when no point has that margin. */
 export const marginText = (m: ValueWhere | null) => (m === null ? 'no margin on the map' : `${percent(m.value)} at ${where(m)}`);
