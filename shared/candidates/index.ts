@@ -11,7 +11,6 @@ export {
   rankCompressors,
   sortCompressorCandidates,
   type CompressorOrder,
-  type CompressorRanking,
 } from './compressors';
 export { judgeTurbine, rankTurbines, sortTurbineCandidates } from './turbines';
 export { MAX_PLANS, templatePlan, withCandidatePlan } from './plan';
