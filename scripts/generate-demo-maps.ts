@@ -86,6 +86,12 @@ interface CompressorSpec {
   chokeFlowCoefficient: number;
   /** Backsweep term κ of the work coefficient σ − κ·φ. */
   backsweep: number;
+  /**
+   * How fast efficiency falls away from its peak towards surge (the coefficient of the quadratic
+   * loss below the optimum flow; 0.45 when absent). A ported shroud keeps the inducer flowing near
+   * surge: less loss there, and the speed lines peak (surge) at lower flow, a wider map.
+   */
+  surgeSideLoss?: number;
   reference: MapReferenceConditions;
   units: CompressorFileUnits;
   islandLevels: number[];
@@ -125,7 +131,7 @@ class CompressorPhysics {
     const mach = this.tipSpeed(speed) / this.soundSpeed;
     const optimum = this.optimumPhi(speed);
     const offPeak = (phi - optimum) / optimum;
-    const flowLoss = (phi < optimum ? 0.45 : 0.5) * offPeak ** 2;
+    const flowLoss = (phi < optimum ? (this.spec.surgeSideLoss ?? 0.45) : 0.5) * offPeak ** 2;
     const machLoss = 0.15 * (mach - DESIGN_TIP_MACH) ** 2;
     const nearChoke = Math.max(0, (phi / this.chokePhi(speed) - 0.75) / 0.25);
     return this.spec.peakEfficiency - flowLoss - machLoss - 0.08 * nearChoke ** 2;
@@ -380,6 +386,41 @@ const COMPRESSORS: CompressorSpec[] = [
   },
 ];
 
+/**
+ * The demo family: one invented wheel design (ported shroud, so a wide map) at ten tip diameters,
+ * each rated at the same tip speed, so that the Candidates view has sizes to choose between.
+ */
+const FAMILY_DIAMETERS_MM = [44, 48, 52, 56, 60, 64, 68, 72, 76, 80];
+/** Rated tip speed of the family, m/s (invented, a usual figure for aluminium wheels). */
+const FAMILY_TIP_SPEED = 560;
+
+function familySpecs(): CompressorSpec[] {
+  return FAMILY_DIAMETERS_MM.map((mm) => ({
+    file: `compressor-f${mm}.csv`,
+    name: `Spoolbook demo compressor F${mm}`,
+    tipDiameter: mm / 1000,
+    // Rated speed for the tip speed, to the nearest 5 000 rpm as makers quote it.
+    maxSpeed: Math.round((FAMILY_TIP_SPEED * 60) / (Math.PI * (mm / 1000)) / 5000) * 5000,
+    speedFractions: [0.35, 0.5, 0.6, 0.7, 0.8, 0.9, 1],
+    peakEfficiency: 0.77,
+    optimumFlowCoefficient: 0.1,
+    chokeFlowCoefficient: 0.17,
+    backsweep: 3,
+    surgeSideLoss: 0.15,
+    reference: reference(298, 'K', 100, 'kPa'),
+    units: {
+      flowAxis: 'corrected-mass',
+      flowUnit: 'kg/s',
+      referenceTemperatureUnit: 'K',
+      referencePressureUnit: 'kPa',
+      efficiency: 'percent',
+      speedUnit: 'rpm',
+      maxSpeedUnit: 'rpm',
+    },
+    islandLevels: [0.6, 0.65, 0.7, 0.73, 0.75, 0.76],
+  }));
+}
+
 // ---------------------------------------------------------------------------------------------
 // Turbine
 
@@ -472,6 +513,27 @@ function turbineSpecs(): TurbineSpec[] {
       });
     }
   }
+  // The demo housings of the Candidates view: the same wheel in five more single-scroll housings
+  // and one more divided one, from a small A/R (early boost, high drive pressure) to a large one.
+  for (const [areaRatio, housing] of [
+    [0.48, 'single'],
+    [0.56, 'single'],
+    [0.56, 'divided'],
+    [0.72, 'single'],
+    [0.92, 'single'],
+    [1.06, 'single'],
+  ] as const) {
+    const tag = String(areaRatio.toFixed(2)).replace('.', '');
+    specs.push({
+      file: `turbine-t64-ar${tag}-${housing}.csv`,
+      name: `Spoolbook demo turbine T64, A/R ${areaRatio}, ${housing === 'single' ? 'single scroll' : 'divided (per scroll)'}`,
+      areaRatio,
+      housing,
+      saturatedFlowParameter: SATURATED_FLOW_PARAMETER_064 * (areaRatio / 0.64) ** 0.85,
+      peakEfficiency: 0.72,
+      flowParameterUnit: 'kg/s K^0.5 / kPa',
+    });
+  }
   return specs;
 }
 
@@ -480,7 +542,7 @@ function turbineSpecs(): TurbineSpec[] {
 /** Every demo map with its file name, in SI; also used by the tests. */
 export function demoMaps(): Array<{ file: string; map: CompressorMap | TurbineMap }> {
   return [
-    ...COMPRESSORS.map((spec) => ({ file: spec.file, map: compressorMap(spec) as CompressorMap | TurbineMap })),
+    ...[...COMPRESSORS, ...familySpecs()].map((spec) => ({ file: spec.file, map: compressorMap(spec) as CompressorMap | TurbineMap })),
     ...turbineSpecs().map((spec) => ({ file: spec.file, map: turbineMap(spec) as CompressorMap | TurbineMap })),
   ];
 }

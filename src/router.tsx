@@ -82,6 +82,7 @@ export const routes = [
               { path: paths.learn.path, lazy: () => import('./routes/learn').then((m) => ({ Component: m.LearnRoute })) },
               { path: paths.teamStudyCompare.path, lazy: () => import('./routes/compare').then((m) => ({ Component: m.CompareRoute })) },
               { path: paths.teamStudyLogs.path, lazy: () => import('./routes/study-logs').then((m) => ({ Component: m.StudyLogsRoute })) },
+              { path: paths.teamStudyCandidates.path, lazy: () => import('./routes/candidates').then((m) => ({ Component: m.CandidatesRoute })) },
               { path: paths.teams.path, element: <TeamsRoute /> },
               { path: paths.team.path, element: <TeamRoute /> },
               { path: paths.settings.path, element: <SettingsRoute /> },

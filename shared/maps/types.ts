@@ -65,6 +65,17 @@ export interface CompressorMap {
   maxSpeed: number | null;
   curves: CompressorCurve[];
   fileUnits: CompressorFileUnits;
+  /** Set on a map made from another by a family rule (shared/maps/family): an estimate, not a measurement. Not part of the file. */
+  estimate?: MapEstimate;
+}
+
+/** Where an estimated map comes from: its parent and the rule, in words too. */
+interface MapEstimate {
+  /** The parent's library id (a team map or a built-in one). */
+  parentId: string;
+  parentName: string;
+  /** The rule in one line, as the map's first note says it. */
+  rule: string;
 }
 
 /** One row of a turbine file. */

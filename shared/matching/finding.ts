@@ -44,7 +44,8 @@ export type FindingCode =
   | 'lean-under-boost-limit'
   | 'off-map-assumption'
   | 'turbine-speed-outside-lines'
-  | 'mechanical-efficiency-in-map';
+  | 'mechanical-efficiency-in-map'
+  | 'map-estimate';
 
 export interface Finding {
   code: FindingCode;

@@ -107,6 +107,7 @@ export const compressorMapSchema = z
     maxSpeed: positive.nullable(),
     curves: z.array(compressorCurveSchema).min(4),
     fileUnits: compressorFileUnitsSchema,
+    estimate: z.strictObject({ parentId: z.string().min(1).max(80), parentName: z.string().max(MAX_MAP_NAME_LENGTH), rule: z.string().max(500) }).optional(),
   })
   .superRefine((map, ctx) => {
     // What compressorModelFromMap relies on: one surge and one choke line with PR rising, and at

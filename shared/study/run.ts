@@ -2,6 +2,7 @@ import { compressorModelFromMap, turbineModelFromMap } from '../maps';
 import type { CompressorMap, SpoolbookMap, TurbineMap } from '../maps/types';
 import type { CompressorModel } from '../matching/compressor/model';
 import type { TurbineModel } from '../matching/exhaust/model';
+import { finding } from '../matching/finding';
 import type { StudyResult } from '../matching/result';
 import { runStudy, type RunStudyOptions } from '../matching/run-study';
 import { toStudyInput, type StudyDocument } from '../schemas/study';
@@ -60,9 +61,34 @@ export function runStudyDocument(
   options: Omit<RunStudyOptions, 'compressorModels' | 'turbineModels'> = {},
   cache?: MapModelCache,
 ): StudyResult {
-  return runStudy(toStudyInput(doc), {
+  const result = runStudy(toStudyInput(doc), {
     ...options,
     compressorModels: planCompressorModels(doc, mapsById, cache),
     turbineModels: planTurbineModels(doc, mapsById, cache),
   });
+  noteEstimatedMaps(doc, mapsById, result);
+  return result;
+}
+
+/**
+ * A plan judged on an estimated compressor map (made from another by a family rule) says so in its
+ * findings: once per line, on its first solved point, as a note the verdict does not count.
+ */
+function noteEstimatedMaps(doc: StudyDocument, mapsById: Record<string, SpoolbookMap | undefined>, result: StudyResult): void {
+  for (const line of result.lines) {
+    const id = doc.plans[line.planIndex]?.compressorMapId;
+    const map = id ? mapsById[id] : undefined;
+    if (map?.kind !== 'compressor' || !map.estimate) continue;
+    const point = line.points.find((p) => p.solved);
+    if (!point) continue;
+    point.findings.push(
+      finding(
+        'map-estimate',
+        'info',
+        `The compressor map “${map.name}” is an estimate made from “${map.estimate.parentName}” by ${map.estimate.rule}, not a measured map: confirm the wheel on its maker's map before buying.`,
+        point.rpm,
+      ),
+    );
+    line.worstSeverity ??= 'info';
+  }
 }

@@ -56,6 +56,11 @@ export const paths = {
     path: '/teams/:teamId/studies/:studyId/logs',
     href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/logs`,
   },
+  /** Candidates: every map of the library ranked against one study. */
+  teamStudyCandidates: {
+    path: '/teams/:teamId/studies/:studyId/candidates',
+    href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/candidates`,
+  },
   /** The printable report of one study. */
   teamStudyReport: {
     path: '/teams/:teamId/studies/:studyId/report',

@@ -73,6 +73,7 @@ const SEVERITY_STYLE: Record<Severity, { mark: string; box: string }> = {
 /** A short name for each kind of finding, to head its list of lines (kinds added later read from their code). */
 export const FINDING_TITLES: Partial<Record<string, string>> = {
   unsolvable: 'No solution at these inputs',
+  'map-estimate': 'Compressor map is an estimate',
   'input-out-of-range': 'Input outside the usual range',
   'injector-duty-high': 'Injector duty above the usual ceiling',
   'injector-duty-limit': 'Injector duty over the limit',

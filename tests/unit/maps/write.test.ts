@@ -15,9 +15,12 @@ describe('round trip: parse → write → parse', () => {
     expect(compressors.length).toBeGreaterThanOrEqual(4); // three sizes plus one in volume flow
     expect(compressors.filter((m) => m.fileUnits.flowAxis === 'volume')).toHaveLength(1); // one map in volume flow (the maps task)
     expect(compressors.every((m) => m.maxSpeed !== null)).toBe(true);
-    expect(turbines).toHaveLength(4); // two A/R sizes, each single and divided per scroll
-    expect(new Set(turbines.map((t) => t.areaRatio)).size).toBe(2); // two A/R sizes (the maps task)
-    expect(turbines.filter((t) => t.housing === 'divided' && t.scrollFeed === 'per-scroll')).toHaveLength(2); // one divided file per A/R
+    // Two A/R sizes, each single and divided per scroll (the maps task), and six more housings for
+    // the Candidates view (issue 17): five single-scroll and one divided.
+    expect(turbines).toHaveLength(10);
+    expect(new Set(turbines.map((t) => t.areaRatio)).size).toBe(7); // A/R 0.48, 0.56, 0.64, 0.72, 0.82, 0.92, 1.06 (the generator's list)
+    expect(turbines.filter((t) => t.housing === 'divided' && t.scrollFeed === 'per-scroll')).toHaveLength(3); // one divided file per A/R 0.56, 0.64, 0.82
+    expect(compressors.filter((m) => /demo compressor F\d+$/.test(m.name))).toHaveLength(10); // the family of ten sizes (issue 17)
     // Clearly different sizes: the largest top-speed choke flow is well over twice the smallest.
     const chokeFlows = compressors.map((m) => Math.max(...m.curves.filter((c) => c.kind === 'choke')[0].points.map((p) => p.correctedMassFlow)));
     expect(Math.max(...chokeFlows) / Math.min(...chokeFlows)).toBeGreaterThan(2);

@@ -14,6 +14,8 @@ export const mapListSummarySchema = z.object({
   topSpeed: z.number().nullable(),
   /** Rated speed limit, rpm (compressor maps that give one). */
   maxSpeed: z.number().nullable(),
+  /** Compressor maps made from another by a family rule: the parent and the rule (absent from older servers). */
+  estimate: z.object({ parentId: z.string(), parentName: z.string(), rule: z.string() }).nullable().optional(),
   housing: z.enum(['single', 'divided']).nullable(),
   areaRatio: z.number().nullable(),
   /** Turbine maps: what the efficiency counts; null when the file does not say (absent from older servers). */

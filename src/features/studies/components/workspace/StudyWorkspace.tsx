@@ -160,6 +160,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
             {study.canEdit && panelButton('share', 'Share')}
             <ButtonLink to={paths.teamStudyCompare.href(teamId, study.id)}>Side by side</ButtonLink>
             <ButtonLink to={paths.teamStudyLogs.href(teamId, study.id)}>Logged runs</ButtonLink>
+            <ButtonLink to={paths.teamStudyCandidates.href(teamId, study.id)}>Candidates</ButtonLink>
             <ButtonLink to={paths.teamStudyReport.href(teamId, study.id)}>Printable report</ButtonLink>
             <a
               href={resultsCsvHref(teamId, study.id)}
