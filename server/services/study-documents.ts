@@ -7,6 +7,7 @@ import type { SpoolbookMap } from '#shared/maps/types';
 import { runStudyDocument } from '#shared/study/run';
 import { resultRecords } from '#shared/matching/results-table';
 import { STUDY_SCHEMA_VERSION, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { fillItemIds } from '#shared/schemas/item-ids';
 import { readStudyDocument, studyMapIds } from '#shared/study/document';
 import type { Db } from '../db/client';
 import { maps } from '../db/schema';
@@ -34,9 +35,12 @@ export function validDocument(raw: unknown): StudyDocument {
   throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
 }
 
-/** Stored documents were valid when saved; only an older version needs bringing up to date on read. */
+/**
+ * Stored documents were valid when saved; only an older version needs bringing up to date on read
+ * (and one saved before scenarios and boost rows had ids gets them).
+ */
 export function storedDocument(raw: unknown): unknown {
-  if ((raw as { schemaVersion?: unknown } | null)?.schemaVersion === STUDY_SCHEMA_VERSION) return raw;
+  if ((raw as { schemaVersion?: unknown } | null)?.schemaVersion === STUDY_SCHEMA_VERSION) return fillItemIds(raw);
   try {
     return validDocument(raw);
   } catch {

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import { planSchema } from '../matching/input/plan';
 import { studyInputSchema, type StudyInput } from '../matching/input/study';
+import { fillItemIds } from './item-ids';
 
 /**
  * The document version. 2: losses are objects that may name the flow they were measured at
@@ -128,7 +129,7 @@ function fixedLoss(value: unknown): unknown {
  * whose plans named their map in `mapId` and had no ids. Version 1 gave the inlet, charge-cooler
  * and after-turbine losses as plain Pa; version 2 states each as `{ pressureLoss }`, the same loss
  * at every flow, so an old study computes exactly as before until its losses are given the flow
- * they were measured at.
+ * they were measured at. Scenarios and boost rows without an id get one (`fillItemIds`).
  */
 export function migrateStudyDocument(raw: unknown): unknown {
   if (!raw || typeof raw !== 'object' || Array.isArray(raw)) return raw;
@@ -167,7 +168,8 @@ export function migrateStudyDocument(raw: unknown): unknown {
       });
     }
   }
-  return doc;
+  // Not a version step: scenario and boost row ids are optional, so any version may lack some.
+  return fillItemIds(doc);
 }
 
 // ——— API shapes ———
