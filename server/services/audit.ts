@@ -39,6 +39,8 @@ type AuditAction =
   | 'map.uploaded'
   | 'map.deleted'
   | 'study.deleted'
+  | 'study.copied-out'
+  | 'study.copied-in'
   | 'share-link.created'
   | 'share-link.revoked'
   | 'share-link.kept'

@@ -3,7 +3,7 @@ import { alias } from 'drizzle-orm/pg-core';
 import type { Request } from 'express';
 import type { User } from 'lucia';
 import type { z } from 'zod';
-import type { StudyDocument, studyListQuerySchema, updateStudyMetaSchema } from '#shared/schemas/study';
+import type { StudyDocument, StudyStart, studyListQuerySchema, updateStudyMetaSchema } from '#shared/schemas/study';
 import { can, type TeamAccess } from '../auth/access';
 import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
@@ -11,7 +11,7 @@ import { studies, studyRevisions, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { audit } from './audit';
 import { likePattern } from './text-search';
-import { assertMapsUsable, demoStudyDocument, mapsOfStudy, resultsCsv, storedDocument, validDocument } from './study-documents';
+import { assertMapsUsable, mapsOfStudy, resultsCsv, startDocument, storedDocument, validDocument } from './study-documents';
 
 /** A team's studies: list, read, create, save a revision (refusing a stale one), rename, duplicate, delete. */
 
@@ -105,12 +105,20 @@ export async function insertStudy(db: Db, input: { teamId: string; userId: strin
   return id;
 }
 
-/** A new study from the given document, or from the demo study when none is given. */
-export async function createStudy(db: Db, input: { access: TeamAccess; user: User; title: string; document?: unknown }) {
+/** The first revision's message of a study started from a template. */
+const STARTED: Record<StudyStart, string> = {
+  'demo-hillclimb': 'Started from the demo study',
+  'demo-exhaust': 'Started from the demo exhaust-side study',
+  blank: 'Started blank',
+};
+
+/** A new study from the given document, or from a template (the demo hill-climb study when none is named). */
+export async function createStudy(db: Db, input: { access: TeamAccess; user: User; title: string; document?: unknown; start?: StudyStart }) {
   const { access, user } = input;
-  const document = input.document === undefined ? demoStudyDocument() : validDocument(input.document);
+  const start = input.start ?? 'demo-hillclimb';
+  const document = input.document === undefined ? startDocument(start) : validDocument(input.document);
   await assertMapsUsable(db, access.teamId, document);
-  const message = input.document === undefined ? 'Started from the demo study' : 'Created';
+  const message = input.document !== undefined ? 'Created' : STARTED[start];
   const id = await insertStudy(db, { teamId: access.teamId, userId: user.id, title: input.title, document, message });
   return studyDetail(db, access, user, id);
 }

@@ -16,3 +16,4 @@ export * from './revoke-share-link';
 export * from './results-csv';
 export * from './get-team-maps';
 export * from './get-map';
+export * from './copy-study';

@@ -36,6 +36,7 @@ import { ConflictDialog } from './ConflictDialog';
 import { HistoryPanel } from './HistoryPanel';
 import { LeaveGuard } from './LeaveGuard';
 import { ProblemsSummary } from './ProblemsSummary';
+import { CopyToTeamDialog, useWritableTeams } from '../CopyToTeamDialog';
 import { SaveControls } from './SaveControls';
 import { SharePanel } from './SharePanel';
 import { StudyPlots } from './StudyPlots';
@@ -79,6 +80,8 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
   const [conflict, setConflict] = useState<StudyDetail | null>(null);
   const [saveError, setSaveError] = useState<string | null>(null);
   const [renaming, setRenaming] = useState(false);
+  const [copying, setCopying] = useState(false);
+  const writableTeams = useWritableTeams(teamId);
   const allowLeave = useRef(false);
 
   const save = useSaveStudy(teamId, study.id);
@@ -169,6 +172,11 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
             >
               Results CSV
             </a>
+            {writableTeams.length > 0 && (
+              <Button variant={study.canEdit ? 'quiet' : 'secondary'} onClick={() => setCopying(true)}>
+                Copy to my team
+              </Button>
+            )}
             {study.canEdit && (
               <>
                 <Button variant="quiet" onClick={() => setRenaming(true)}>
@@ -208,7 +216,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
               ? study.canEdit
                 ? 'Its inputs are locked. Bring it back from the archive to change it.'
                 : 'Nothing can be changed while it is archived.'
-              : 'You are a viewer in this team: you can explore every input and result, and owners and editors change the study.'}
+              : `You are a viewer in this team: you can explore every input and result, and owners and editors change the study.${writableTeams.length > 0 ? ' “Copy to my team” makes a copy you can change.' : ''}`}
           </Alert>
         )}
         {maps.errors.length > 0 && (
@@ -296,6 +304,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
           onSubmit={(title) => meta.mutateAsync({ studyId: study.id, title })}
           onClose={() => setRenaming(false)}
         />
+        <CopyToTeamDialog open={copying} teamId={teamId} studyId={study.id} studyTitle={study.title} onClose={() => setCopying(false)} />
         <ConflictDialog
           theirs={conflict}
           mine={parsed.success ? parsed.data : draft}
