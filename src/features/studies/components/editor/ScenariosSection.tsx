@@ -50,7 +50,7 @@ function BoostRowEditor({ si, ri, row, count }: { si: number; ri: number; row: B
                 rows.filter((_r, k) => k !== ri),
               )
             }
-            aria-label={`Remove boost row ${row.label}`}
+            aria-label={`Remove row: boost row ${row.label}`}
           >
             Remove row
           </Button>

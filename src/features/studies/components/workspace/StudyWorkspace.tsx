@@ -38,6 +38,7 @@ import { LeaveGuard } from './LeaveGuard';
 import { ProblemsSummary } from './ProblemsSummary';
 import { CopyToTeamDialog, useWritableTeams } from '../CopyToTeamDialog';
 import { SaveControls } from './SaveControls';
+import { SkipLink } from '#src/components/Nav';
 import { SharePanel } from './SharePanel';
 import { StudyPlots } from './StudyPlots';
 import { editableDocument, mapIdsOf, useDraft, useStudyCompute } from './use-study-editor';
@@ -140,6 +141,11 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
   return (
     <EditorContext.Provider value={editor}>
       <div className="mx-auto w-full max-w-[112rem] space-y-5" data-testid="study-workspace">
+        {/* With five plans the results hold hundreds of stops: these reach either side at once. */}
+        <nav aria-label="Skip within the study" className="contents">
+          <SkipLink target="study-results">Skip to results</SkipLink>
+          <SkipLink target="study-inputs">Skip to inputs</SkipLink>
+        </nav>
         <header className="space-y-3 border-b border-ink/15 pb-4">
           <div className="flex flex-wrap items-end justify-between gap-4">
             <div className="min-w-0 space-y-1">
@@ -265,7 +271,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
         <StudyCaution />
 
         <div className="grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_24rem] 2xl:grid-cols-[minmax(0,1fr)_28rem]">
-          <div className="min-w-0 space-y-4">
+          <div id="study-results" tabIndex={-1} aria-label="Results" role="region" className="min-w-0 space-y-4 focus:outline-none">
             <ProblemsSummary issues={issues} draft={draft} unitSystem={unitSystem} />
             <StudyPlots
               computed={computed}
@@ -279,7 +285,13 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
               title={study.title}
             />
           </div>
-          <aside aria-label="Inputs" className="space-y-3 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1" data-testid="study-inputs">
+          <aside
+            id="study-inputs"
+            tabIndex={-1}
+            aria-label="Inputs"
+            className="space-y-3 focus:outline-none lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1"
+            data-testid="study-inputs"
+          >
             <h2 className="text-lg font-semibold text-ink">Inputs {readOnly && <span className="text-sm font-normal text-ink-soft">(read only)</span>}</h2>
             <EngineSection />
             <FuelSection />
