@@ -13,12 +13,22 @@ import {
 import type { AppDeps } from '../app-deps';
 import { requireTeamPermission } from '../auth/access';
 import { requireUser } from '../auth/session';
-import { resultsFileName, sendCsv } from '../http/csv';
+import { resultsFileName, sendCsv, sendXlsx } from '../http/csv';
 import { parseOr400 } from '../http/errors';
 import { copyStudyToTeam } from '../services/study-copies';
 import { createShareLink, keepShareLink, listShareLinks, revokeShareLink } from '../services/share-links';
 import { listRevisions, restoreRevision, revisionDetail } from '../services/study-revisions';
-import { createStudy, deleteStudy, duplicateStudy, listStudies, saveStudy, studyDetail, studyResultsCsv, updateStudyMeta } from '../services/studies';
+import {
+  createStudy,
+  deleteStudy,
+  duplicateStudy,
+  listStudies,
+  saveStudy,
+  studyDetail,
+  studyResultsCsv,
+  studyResultsWorkbook,
+  updateStudyMeta,
+} from '../services/studies';
 
 function params(req: { params: unknown }) {
   return req.params as { teamId: string; studyId: string; revision: string; linkId: string };
@@ -112,6 +122,13 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
     const { csv, revision } = await studyResultsCsv(db, access.teamId, params(req).studyId);
     sendCsv(res, resultsFileName(revision), csv);
+  });
+
+  router.get('/:studyId/results.xlsx', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
+    const { workbook, revision } = await studyResultsWorkbook(db, access.teamId, params(req).studyId);
+    sendXlsx(res, resultsFileName(revision).replace(/\.csv$/, '.xlsx'), workbook);
   });
 
   router.get('/:studyId/share-links', async (req, res) => {

@@ -10,6 +10,7 @@ import type { Db } from '../db/client';
 import { studies, studyRevisions, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { audit } from './audit';
+import { resultsWorkbook } from './results-workbook';
 import { likePattern } from './text-search';
 import { assertMapsUsable, mapsOfStudy, resultsCsv, startDocument, storedDocument, validDocument } from './study-documents';
 
@@ -198,6 +199,13 @@ export async function deleteStudy(db: Db, input: { teamId: string; studyId: stri
 }
 
 /** The results of a team's study as CSV, with the revision they were computed from. */
+/** The results of a team's study as a workbook (one sheet per plan, the CSV's columns), with the revision. */
+export async function studyResultsWorkbook(db: Db, teamId: string, studyId: string) {
+  const { study } = await loadStudy(db, teamId, studyId);
+  const document = validDocument(study.document);
+  return { workbook: await resultsWorkbook(document, await mapsOfStudy(db, teamId, document)), revision: study.revision };
+}
+
 export async function studyResultsCsv(db: Db, teamId: string, studyId: string) {
   const { study } = await loadStudy(db, teamId, studyId);
   const document = validDocument(study.document);

@@ -20,7 +20,7 @@ import { useStudyMaps } from '#src/features/studies/api/get-map';
 import { useStudy } from '#src/features/studies/api/get-study';
 import { useCompressorMaps, useTurbineMaps } from '#src/features/studies/api/get-team-maps';
 import { studyKeys } from '#src/features/studies/api/keys';
-import { resultsCsvHref } from '#src/features/studies/api/results-csv';
+import { resultsCsvHref, resultsXlsxHref } from '#src/features/studies/api/results-csv';
 import { staleRevisionOf, useSaveStudy } from '#src/features/studies/api/save-study';
 import { useUpdateStudyMeta } from '#src/features/studies/api/update-study-meta';
 import { AssumptionsSection } from '../editor/AssumptionsSection';
@@ -177,6 +177,14 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
               title="Every point of the last saved revision, in SI units"
             >
               Results CSV
+            </a>
+            <a
+              href={resultsXlsxHref(teamId, study.id)}
+              download
+              className={buttonClass('secondary')}
+              title="The same results as a workbook, one sheet per plan, in SI units"
+            >
+              Results XLSX
             </a>
             {writableTeams.length > 0 && (
               <Button variant={study.canEdit ? 'quiet' : 'secondary'} onClick={() => setCopying(true)}>
