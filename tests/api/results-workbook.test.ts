@@ -13,7 +13,7 @@ afterAll(async () => {
 });
 
 /** A response body as bytes (supertest buffers unknown types only when asked). */
-function binary(res: NodeJS.ReadableStream & { setEncoding: (e: string) => void }, done: (err: Error | null, body: Buffer) => void) {
+function binary(res: NodeJS.ReadableStream, done: (err: Error | null, body: Buffer) => void) {
   const chunks: Buffer[] = [];
   res.on('data', (c: Buffer) => chunks.push(c));
   res.on('end', () => done(null, Buffer.concat(chunks)));
@@ -23,12 +23,15 @@ describe('GET …/results.xlsx', () => {
   it('has one sheet per plan, each with exactly the CSV’s columns and that plan’s rows and numbers', async () => {
     const { owner, teamId, study } = await teamWithStudy(t);
     const url = `/api/teams/${teamId}/studies/${study.id}`;
-    const res = await owner.c.agent.get(`${url}/results.xlsx`).buffer(true).parse(binary);
+    const res = await owner.c.agent
+      .get(`${url}/results.xlsx`)
+      .buffer(true)
+      .parse(binary as never);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
     expect(res.headers['content-disposition']).toBe('attachment; filename="study-results-r1.xlsx"');
     const workbook = new ExcelJS.Workbook();
-    await workbook.xlsx.load(res.body as Buffer);
+    await workbook.xlsx.load(res.body);
     expect(workbook.worksheets.map((s) => s.name)).toEqual(demo.plans.map((p: { name: string }) => p.name));
 
     const csv = await owner.c.get(`${url}/results.csv`);
@@ -62,9 +65,12 @@ describe('GET …/results.xlsx', () => {
     const doc = structuredClone(demo);
     doc.plans[0].name = '=HYPERLINK("http://x")';
     const created = await owner.c.post(`/api/teams/${teamId}/studies`, { title: 'Formula plan', document: doc });
-    const res = await owner.c.agent.get(`/api/teams/${teamId}/studies/${created.body.study.id}/results.xlsx`).buffer(true).parse(binary);
+    const res = await owner.c.agent
+      .get(`/api/teams/${teamId}/studies/${created.body.study.id}/results.xlsx`)
+      .buffer(true)
+      .parse(binary as never);
     const workbook = new ExcelJS.Workbook();
-    await workbook.xlsx.load(res.body as Buffer);
+    await workbook.xlsx.load(res.body);
     const cell = workbook.worksheets[0].getCell('A2');
     expect(cell.type).toBe(ExcelJS.ValueType.String);
     expect(cell.value).toBe('=HYPERLINK("http://x")');
