@@ -68,9 +68,11 @@ async function main() {
   const development = !process.env.DATABASE_URL && (process.env.NODE_ENV ?? 'development') === 'development' && loopback;
   const databaseUrl = await prepareDatabase(root, { demo: development });
   console.log(development ? '[setup] database migrated and demo data in place (development)' : '[setup] database migrated (no demo data outside development)');
+  // Read before the build: Vite's build sets NODE_ENV to production in this process when it is unset.
+  const nodeEnv = process.env.NODE_ENV ?? (development ? 'development' : 'production');
   await buildClientIfStale();
   process.env.DATABASE_URL = databaseUrl;
-  process.env.NODE_ENV ??= development ? 'development' : 'production';
+  process.env.NODE_ENV = nodeEnv;
   const { startServer } = await import('#server/index');
   const server = await startServer();
   mkdirSync(path.dirname(pidFile), { recursive: true });

@@ -40,10 +40,10 @@ export const routes = [
       return null;
     },
     children: [
-      { index: true, element: <HomeRoute /> },
       {
         element: <PublicLayout />,
         children: [
+          { index: true, element: <HomeRoute /> },
           {
             element: <RequireSignedOut />,
             children: [

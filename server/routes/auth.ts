@@ -17,6 +17,7 @@ import { hashToken } from '../auth/tokens';
 import { HttpError, parseOr400 } from '../http/errors';
 import { confirmEmail, createAccount, emailOf, findUserByEmail, meOf, sendConfirmationLink, updateProfile } from '../services/accounts';
 import { audit } from '../services/audit';
+import { DEMO_USER } from '../services/demo';
 import { assertSignInAllowed, signInFailed, signInSucceeded, tooMany } from '../services/limits';
 import { assertCurrentPassword, assertStrongPassword, changePassword, checkPassword, liveResetUser, mailResetLink, resetPassword } from '../services/passwords';
 import { endOtherSessions, endSession, sessionsOf } from '../services/sessions';
@@ -136,6 +137,23 @@ export function authRouter(deps: AppDeps): Router {
     // The browser drops what it kept of this account (OWASP ASVS 5.0 7.4.x).
     res.set('Clear-Site-Data', '"cache", "cookies", "storage"');
     res.status(204).end();
+  });
+
+  // Who is signed in, answered 200 either way: a signed-out visitor's page asks without a 401
+  // in the browser's console. `demo`: the demo sign-in below is open (development only).
+  router.get('/session', async (_req, res) => {
+    const user = res.locals.user;
+    res.json({ me: user ? await meOf(db, user.id) : null, demo: deps.config.development });
+  });
+
+  // One click into the demo for a visitor of a development server (`npm start` on loopback),
+  // where the demo account's password is published anyway. Anywhere else it does not exist.
+  router.post('/demo-sign-in', async (req, res) => {
+    if (!deps.config.development) throw new HttpError(404, 'not_found', 'There is no demo on this server. Create an account instead.');
+    const user = await findUserByEmail(db, DEMO_USER.email);
+    if (!user) throw new HttpError(404, 'not_found', 'The demo account is not there (run npm start to seed it).');
+    if (user.totpEnabledAt) throw new HttpError(409, 'second_factor', 'The demo account has a second factor turned on: sign in with the form.');
+    await signedIn(req, res, user.id, user.email);
   });
 
   router.get('/me', async (_req, res) => {

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import {
   createShareLinkSchema,
+  copyStudySchema,
   createStudySchema,
   keepShareLinkSchema,
   duplicateStudySchema,
@@ -12,11 +13,22 @@ import {
 import type { AppDeps } from '../app-deps';
 import { requireTeamPermission } from '../auth/access';
 import { requireUser } from '../auth/session';
-import { resultsFileName, sendCsv } from '../http/csv';
+import { resultsFileName, sendCsv, sendXlsx } from '../http/csv';
 import { parseOr400 } from '../http/errors';
+import { copyStudyToTeam } from '../services/study-copies';
 import { createShareLink, keepShareLink, listShareLinks, revokeShareLink } from '../services/share-links';
 import { listRevisions, restoreRevision, revisionDetail } from '../services/study-revisions';
-import { createStudy, deleteStudy, duplicateStudy, listStudies, saveStudy, studyAnswerJson, studyResultsCsv, updateStudyMeta } from '../services/studies';
+import {
+  createStudy,
+  deleteStudy,
+  duplicateStudy,
+  listStudies,
+  saveStudy,
+  studyAnswerJson,
+  studyResultsCsv,
+  studyResultsWorkbook,
+  updateStudyMeta,
+} from '../services/studies';
 
 function params(req: { params: unknown }) {
   return req.params as { teamId: string; studyId: string; revision: string; linkId: string };
@@ -37,7 +49,7 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, params(req).teamId, 'content:write');
     const input = parseOr400(createStudySchema, req.body);
-    res.status(201).json({ study: await createStudy(db, { access, user, title: input.title, document: input.document }) });
+    res.status(201).json({ study: await createStudy(db, { access, user, title: input.title, document: input.document, start: input.start }) });
   });
 
   router.get('/:studyId', async (req, res) => {
@@ -79,6 +91,14 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     res.status(201).json({ study: await duplicateStudy(db, { access, user, studyId: params(req).studyId, title: input.title }) });
   });
 
+  router.post('/:studyId/copy', async (req, res) => {
+    const user = requireUser(res);
+    const from = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
+    const input = parseOr400(copyStudySchema, req.body);
+    const to = await requireTeamPermission(db, user, input.teamId, 'content:write');
+    res.status(201).json({ study: await copyStudyToTeam(db, { from, to, user, studyId: params(req).studyId, title: input.title, req }) });
+  });
+
   router.get('/:studyId/revisions', async (req, res) => {
     const user = requireUser(res);
     const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
@@ -104,6 +124,13 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
     const { csv, revision } = await studyResultsCsv(db, access.teamId, params(req).studyId);
     sendCsv(res, resultsFileName(revision), csv);
+  });
+
+  router.get('/:studyId/results.xlsx', async (req, res) => {
+    const user = requireUser(res);
+    const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
+    const { workbook, revision } = await studyResultsWorkbook(db, access.teamId, params(req).studyId);
+    sendXlsx(res, resultsFileName(revision).replace(/\.csv$/, '.xlsx'), workbook);
   });
 
   router.get('/:studyId/share-links', async (req, res) => {

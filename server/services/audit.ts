@@ -41,6 +41,8 @@ type AuditAction =
   | 'study.deleted'
   | 'log.uploaded'
   | 'log.deleted'
+  | 'study.copied-out'
+  | 'study.copied-in'
   | 'share-link.created'
   | 'share-link.revoked'
   | 'share-link.kept'

@@ -3,15 +3,16 @@ import { alias } from 'drizzle-orm/pg-core';
 import type { Request } from 'express';
 import type { User } from 'lucia';
 import type { z } from 'zod';
-import { STUDY_SCHEMA_VERSION, type StudyDocument, type studyListQuerySchema, type updateStudyMetaSchema } from '#shared/schemas/study';
+import { STUDY_SCHEMA_VERSION, type StudyDocument, type StudyStart, type studyListQuerySchema, type updateStudyMetaSchema } from '#shared/schemas/study';
 import { can, decideTeamAccess, type TeamAccess } from '../auth/access';
 import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
 import { studies, studyRevisions, teamMembers, teams, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { audit } from './audit';
+import { resultsWorkbook } from './results-workbook';
 import { likePattern } from './text-search';
-import { assertMapsUsable, demoStudyDocument, mapsOfStudy, resultsCsv, storedDocument, validDocument } from './study-documents';
+import { assertMapsUsable, mapsOfStudy, resultsCsv, startDocument, storedDocument, validDocument } from './study-documents';
 
 /** A team's studies: list, read, create, save a revision (refusing a stale one), rename, duplicate, delete. */
 
@@ -97,7 +98,8 @@ export async function studyDetail(db: Db, access: TeamAccess, user: User, studyI
 /**
  * The study read in one round trip: the team, the user's membership, the study and the names of
  * its authors in one prepared statement; the document leaves PostgreSQL as text and goes into the
- * answer as it is (no parse and re-serialise) when it is already of the current version.
+ * answer as it is (no parse and re-serialise) when it is already of the current version with every
+ * scenario and boost row carrying its id; otherwise it is read as storedDocument reads it.
  */
 function studyReadStatement(db: Db) {
   return db
@@ -118,6 +120,10 @@ function studyReadStatement(db: Db) {
       updatedAt: studies.updatedAt,
       documentVersion: sql<string | null>`(${studies.document} ->> 'schemaVersion')`,
       documentText: sql<string | null>`${studies.document}::text`,
+      /** Scenarios or boost rows saved before they had ids: the reader fills them in. */
+      documentLacksIds: sql<
+        boolean | null
+      >`(jsonb_path_exists(${studies.document}, '$.scenarios[*] ? (!exists(@.id))') or jsonb_path_exists(${studies.document}, '$.scenarios[*].boostSchedule[*] ? (!exists(@.id))'))`,
     })
     .from(teams)
     .leftJoin(teamMembers, and(eq(teamMembers.teamId, teams.id), eq(teamMembers.userId, sql.placeholder('userId'))))
@@ -149,7 +155,8 @@ export async function studyAnswerJson(db: Db, user: User, teamId: string, studyI
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
-  const document = row.documentVersion === String(STUDY_SCHEMA_VERSION) ? row.documentText : JSON.stringify(storedDocument(JSON.parse(row.documentText)));
+  const asStored = row.documentVersion === String(STUDY_SCHEMA_VERSION) && row.documentLacksIds === false;
+  const document = asStored ? row.documentText : JSON.stringify(storedDocument(JSON.parse(row.documentText)));
   const canEdit = can(access.role, 'content:write', user.isAdmin);
   return `{"study":${JSON.stringify(head).slice(0, -1)},"document":${document},"canEdit":${canEdit}}}`;
 }
@@ -165,12 +172,20 @@ export async function insertStudy(db: Db, input: { teamId: string; userId: strin
   return id;
 }
 
-/** A new study from the given document, or from the demo study when none is given. */
-export async function createStudy(db: Db, input: { access: TeamAccess; user: User; title: string; document?: unknown }) {
+/** The first revision's message of a study started from a template. */
+const STARTED: Record<StudyStart, string> = {
+  'demo-hillclimb': 'Started from the demo study',
+  'demo-exhaust': 'Started from the demo exhaust-side study',
+  blank: 'Started blank',
+};
+
+/** A new study from the given document, or from a template (the demo hill-climb study when none is named). */
+export async function createStudy(db: Db, input: { access: TeamAccess; user: User; title: string; document?: unknown; start?: StudyStart }) {
   const { access, user } = input;
-  const document = input.document === undefined ? demoStudyDocument() : validDocument(input.document);
+  const start = input.start ?? 'demo-hillclimb';
+  const document = input.document === undefined ? startDocument(start) : validDocument(input.document);
   await assertMapsUsable(db, access.teamId, document);
-  const message = input.document === undefined ? 'Started from the demo study' : 'Created';
+  const message = input.document !== undefined ? 'Created' : STARTED[start];
   const id = await insertStudy(db, { teamId: access.teamId, userId: user.id, title: input.title, document, message });
   return studyDetail(db, access, user, id);
 }
@@ -250,6 +265,13 @@ export async function deleteStudy(db: Db, input: { teamId: string; studyId: stri
 }
 
 /** The results of a team's study as CSV, with the revision they were computed from. */
+/** The results of a team's study as a workbook (one sheet per plan, the CSV's columns), with the revision. */
+export async function studyResultsWorkbook(db: Db, teamId: string, studyId: string) {
+  const { study } = await loadStudy(db, teamId, studyId);
+  const document = validDocument(study.document);
+  return { workbook: await resultsWorkbook(document, await mapsOfStudy(db, teamId, document)), revision: study.revision };
+}
+
 export async function studyResultsCsv(db: Db, teamId: string, studyId: string) {
   const { study } = await loadStudy(db, teamId, studyId);
   const document = validDocument(study.document);

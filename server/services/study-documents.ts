@@ -6,7 +6,8 @@ import { writeCsv } from '#shared/csv';
 import type { SpoolbookMap } from '#shared/maps/types';
 import { runStudyDocument } from '#shared/study/run';
 import { resultRecords } from '#shared/matching/results-table';
-import { STUDY_SCHEMA_VERSION, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { migrateStudyDocument, STUDY_SCHEMA_VERSION, studyDocumentSchema, type StudyDocument, type StudyStart } from '#shared/schemas/study';
+import { fillItemIds } from '#shared/schemas/item-ids';
 import { readStudyDocument, studyMapIds } from '#shared/study/document';
 import type { Db } from '../db/client';
 import { maps } from '../db/schema';
@@ -14,13 +15,20 @@ import { HttpError } from '../http/errors';
 import { builtinMap, BUILTIN_PREFIX } from './builtin-maps';
 
 const demoDir = fileURLToPath(new URL('../../data/demo/', import.meta.url));
+const templatesDir = fileURLToPath(new URL('../../data/templates/', import.meta.url));
 
 /** The invented demo study documents shipped in data/demo/, by file name. */
 export const DEMO_STUDY_FILES = { compressor: 'hillclimb-study.json', turbineHousing: 'turbine-housing-study.json' } as const;
 
 /** An invented demo study document (by default the compressor study new studies start from). */
 export function demoStudyDocument(file: string = DEMO_STUDY_FILES.compressor): StudyDocument {
-  return studyDocumentSchema.parse(JSON.parse(readFileSync(path.join(demoDir, file), 'utf8')));
+  return studyDocumentSchema.parse(migrateStudyDocument(JSON.parse(readFileSync(path.join(demoDir, file), 'utf8'))));
+}
+
+/** The document a new study starts from, by template. */
+export function startDocument(start: StudyStart): StudyDocument {
+  if (start === 'blank') return studyDocumentSchema.parse(JSON.parse(readFileSync(path.join(templatesDir, 'blank-study.json'), 'utf8')));
+  return demoStudyDocument(start === 'demo-exhaust' ? DEMO_STUDY_FILES.turbineHousing : DEMO_STUDY_FILES.compressor);
 }
 
 /**
@@ -34,9 +42,12 @@ export function validDocument(raw: unknown): StudyDocument {
   throw new HttpError(400, 'invalid_input', `Invalid study: ${issues[0].path}: ${issues[0].message}`, { issues });
 }
 
-/** Stored documents were valid when saved; only an older version needs bringing up to date on read. */
+/**
+ * Stored documents were valid when saved; only an older version needs bringing up to date on read
+ * (and one saved before scenarios and boost rows had ids gets them).
+ */
 export function storedDocument(raw: unknown): unknown {
-  if ((raw as { schemaVersion?: unknown } | null)?.schemaVersion === STUDY_SCHEMA_VERSION) return raw;
+  if ((raw as { schemaVersion?: unknown } | null)?.schemaVersion === STUDY_SCHEMA_VERSION) return fillItemIds(raw);
   try {
     return validDocument(raw);
   } catch {

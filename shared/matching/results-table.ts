@@ -133,7 +133,12 @@ export function reachableText(values: PointValues | null): 'yes' | 'no' {
  * later still (APPENDED_RESULT_COLUMNS): each group is appended, so that earlier columns keep their
  * places.
  */
-export function resultRecords(result: StudyResult): { fields: string[]; data: (string | number | null)[][] } {
+export function resultRecords(result: StudyResult): {
+  fields: string[];
+  data: (string | number | null)[][];
+  /** The plan (its index in the study) of each record, in the same order: the workbook's sheet. */
+  planIndexes: number[];
+} {
   const head = RESULT_COLUMNS.map((c) => {
     const unit = siUnitText(c);
     return unit ? `${c.label} (${unit})` : c.label;
@@ -150,7 +155,8 @@ export function resultRecords(result: StudyResult): { fields: string[]; data: (s
     ...APPENDED_RESULT_COLUMNS.map((c) => c.header),
   ];
   const verdicts = new Map(planVerdicts(result).map((v) => [v.planIndex, v]));
-  const data = resultRows(result).map((r) => {
+  const rows = resultRows(result);
+  const data = rows.map((r) => {
     const verdict = verdicts.get(r.line.planIndex);
     return [
       r.plan,
@@ -170,5 +176,5 @@ export function resultRecords(result: StudyResult): { fields: string[]; data: (s
       }),
     ];
   });
-  return { fields, data };
+  return { fields, data, planIndexes: rows.map((r) => r.line.planIndex) };
 }

@@ -109,6 +109,8 @@ export type TeamSummary = z.infer<typeof teamSummarySchema>;
 
 export const meSchema = z.object({ user: userSchema, teams: z.array(teamSummarySchema) });
 export type Me = z.infer<typeof meSchema>;
+/** `GET /api/auth/session`: who is signed in (null: nobody), and whether the one-click demo sign-in is open. */
+export const sessionStateSchema = z.object({ me: meSchema.nullable(), demo: z.boolean() });
 
 export const teamNameSchema = z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters');
 export const createTeamSchema = z.strictObject({ name: teamNameSchema });

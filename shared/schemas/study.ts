@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import { planSchema } from '../matching/input/plan';
 import { studyInputSchema, type StudyInput } from '../matching/input/study';
+import { fillItemIds } from './item-ids';
 
 /**
  * The document version. 2: losses are objects that may name the flow they were measured at
@@ -128,7 +129,7 @@ function fixedLoss(value: unknown): unknown {
  * whose plans named their map in `mapId` and had no ids. Version 1 gave the inlet, charge-cooler
  * and after-turbine losses as plain Pa; version 2 states each as `{ pressureLoss }`, the same loss
  * at every flow, so an old study computes exactly as before until its losses are given the flow
- * they were measured at.
+ * they were measured at. Scenarios and boost rows without an id get one (`fillItemIds`).
  */
 export function migrateStudyDocument(raw: unknown): unknown {
   if (!raw || typeof raw !== 'object' || Array.isArray(raw)) return raw;
@@ -167,15 +168,48 @@ export function migrateStudyDocument(raw: unknown): unknown {
       });
     }
   }
-  return doc;
+  // Not a version step: scenario and boost row ids are optional, so any version may lack some.
+  return fillItemIds(doc);
 }
 
 // ——— API shapes ———
 
-export const createStudySchema = z.strictObject({
-  title: studyTitleSchema,
-  /** A document to start from; absent starts from the demo study's engine and plans. */
-  document: z.unknown().optional(),
+/** What a new study can start from when no document is given: the blank study or a demo study as a template. */
+export const STUDY_STARTS = {
+  'demo-hillclimb': {
+    title: 'The demo hill-climb study',
+    description:
+      'A 2.0 L four-cylinder hill-climb engine on E85 with three candidate compressors, at sea level, at altitude on a hot day, by gear and at part throttle.',
+  },
+  'demo-exhaust': {
+    title: 'The demo exhaust-side study',
+    description: 'The same engine and mid-size compressor judged on the exhaust side: two turbine housings and their wastegates.',
+  },
+  blank: {
+    title: 'Blank',
+    description: 'One plan without a map and one scenario at sea level, with neutral starting values to replace with your engine’s own.',
+  },
+} as const;
+export type StudyStart = keyof typeof STUDY_STARTS;
+export const studyStartSchema = z.enum(Object.keys(STUDY_STARTS) as [StudyStart, ...StudyStart[]], {
+  error: `start must be one of ${Object.keys(STUDY_STARTS).join(', ')}`,
+});
+
+export const createStudySchema = z
+  .strictObject({
+    title: studyTitleSchema,
+    /** A document to start from; absent starts from `start`. */
+    document: z.unknown().optional(),
+    /** A template to start from when no document is given; both absent start from the demo hill-climb study. */
+    start: studyStartSchema.optional(),
+  })
+  .refine((v) => v.document === undefined || v.start === undefined, { path: ['start'], message: 'give a document or a start, not both' });
+/** A copy of a study into another team the caller may write in. */
+export const copyStudySchema = z.strictObject({
+  /** The team the copy goes into. */
+  teamId: z.string().trim().min(1, 'is required').max(64),
+  /** Absent keeps the study's title. */
+  title: studyTitleSchema.optional(),
 });
 export const saveStudySchema = z.strictObject({
   baseRevision: z.number().int().min(1),

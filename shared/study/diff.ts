@@ -3,9 +3,11 @@
  * "Engine › volumetric efficiency at 4500 rpm: 1.01 → 1.05". Pure; SI values pass through
  * untouched, each with the kind of quantity it is so a screen can show it in the user's units.
  *
- * Tables by rpm are matched by rpm (not by row index), plans by their stable id, scenarios and
- * boost rows by position (their names may be what changed).
+ * Tables by rpm are matched by rpm (not by row index); plans, scenarios and boost rows by their
+ * ids (`shared/schemas/item-ids.ts`), so duplicating a scenario is one addition, a new name is one
+ * renaming and a reordering is no change.
  */
+import { fillItemIds } from '../schemas/item-ids';
 
 /**
  * What a changed value measures. Physical kinds name an SI unit (shared/units); the rest say how
@@ -48,7 +50,8 @@ export interface DocumentChange {
   path: string;
   /** The document keys of the value in the newer document (in the older one for removals). */
   keys: (string | number)[];
-  change: 'changed' | 'added' | 'removed';
+  /** `renamed`: a plan, scenario or boost row kept its identity and changed its name (`before`, `after`: the names). */
+  change: 'changed' | 'added' | 'removed' | 'renamed';
   /** The older value (SI); undefined when added. Whole rows, plans and scenarios are objects. */
   before: unknown;
   /** The newer value (SI); undefined when removed. */
@@ -333,31 +336,42 @@ function diffRpmTable(walk: Walk, labels: string[], keys: Key[], a: Json[], b: J
   }
 }
 
-function diffPlans(walk: Walk, labels: string[], keys: Key[], a: Json[], b: Json[]) {
-  const idOf = (p: Json, i: number) => (isObject(p) && typeof p.id === 'string' ? p.id : `#${i}`);
-  const before = new Map(a.map((p, i) => [idOf(p, i), p] as const));
-  const afterIds = new Set(b.map(idOf));
-  b.forEach((plan, i) => {
-    const id = idOf(plan, i);
-    const old = before.get(id);
-    const label = [...labels.slice(0, -1), `Plan “${nameOf(plan, 'name') ?? nameOf(old, 'name') ?? id}”`];
-    if (old === undefined) push(walk, label, [...keys, i], 'added', undefined, plan);
-    else diffValue(walk, label, [...keys, i], old, plan);
-  });
-  a.forEach((plan, i) => {
-    const id = idOf(plan, i);
-    if (!afterIds.has(id)) push(walk, [...labels.slice(0, -1), `Plan “${nameOf(plan, 'name') ?? id}”`], [...keys, i], 'removed', plan, undefined);
-  });
+/** How items of an identified list are matched and named. */
+interface ListOf {
+  /** The key holding the item's own name: a change of it is reported as one renaming. */
+  nameKey: 'name' | 'label';
+  /** The item's words in a path, e.g. `Scenario 2 “Hot day”`; `i` is its position (from 0) in its own document. */
+  label: (item: Json, i: number) => string;
 }
 
-function diffByPosition(walk: Walk, labels: string[], keys: Key[], a: Json[], b: Json[], itemLabel: (item: Json, i: number) => string) {
-  const n = Math.max(a.length, b.length);
-  for (let i = 0; i < n; i++) {
-    const x = a[i];
-    const y = b[i];
-    // The item's own name replaces the list's word: "Scenario 2 “Hot day”", not "Scenarios › item 2".
-    diffValue(walk, [...labels.slice(0, -1), itemLabel(y ?? x, i)], [...keys, i], x, y);
-  }
+const PLANS: ListOf = { nameKey: 'name', label: (p, i) => `Plan “${nameOf(p, 'name') ?? `#${i + 1}`}”` };
+const SCENARIOS: ListOf = { nameKey: 'name', label: (s, i) => `Scenario ${i + 1} “${nameOf(s, 'name') ?? ''}”` };
+const BOOST_ROWS: ListOf = { nameKey: 'label', label: (r, i) => `boost row “${nameOf(r, 'label') ?? i + 1}”` };
+
+/**
+ * A list whose items carry an `id` (plans, scenarios, boost rows), matched by identity: an item
+ * in both is renamed and/or changed field by field, wherever it stands; an item in one only is
+ * added or removed whole. Newer items in their order first, then the removed ones.
+ */
+function diffById(walk: Walk, labels: string[], keys: Key[], a: Json[], b: Json[], list: ListOf) {
+  const idOf = (item: Json, i: number) => (isObject(item) && typeof item.id === 'string' ? item.id : `#${i}`);
+  const before = new Map(a.map((item, i) => [idOf(item, i), item] as const));
+  const afterIds = new Set(b.map(idOf));
+  const head = labels.slice(0, -1);
+  b.forEach((item, i) => {
+    const old = before.get(idOf(item, i));
+    const label = [...head, list.label(item, i)];
+    if (old === undefined) return push(walk, label, [...keys, i], 'added', undefined, item);
+    if (!isObject(old) || !isObject(item)) return diffValue(walk, label, [...keys, i], old, item);
+    const name = list.nameKey;
+    if (!sameValue(old[name], item[name])) push(walk, label, [...keys, i, name], 'renamed', old[name], item[name]);
+    for (const k of [...new Set([...Object.keys(old), ...Object.keys(item)])]) {
+      if (k !== name && k !== 'id') diffValue(walk, [...label, words(k)], [...keys, i, k], old[k], item[k]);
+    }
+  });
+  a.forEach((item, i) => {
+    if (!afterIds.has(idOf(item, i))) push(walk, [...head, list.label(item, i)], [...keys, i], 'removed', item, undefined);
+  });
 }
 
 function diffValue(walk: Walk, labels: string[], keys: Key[], a: Json, b: Json): void {
@@ -365,13 +379,9 @@ function diffValue(walk: Walk, labels: string[], keys: Key[], a: Json, b: Json):
   if (a === undefined || b === undefined) return leafChange(walk, labels, keys, a, b);
   if (Array.isArray(a) && Array.isArray(b)) {
     if (isRpmTable(keys)) return diffRpmTable(walk, labels, keys, a, b);
-    if (keys.length === 1 && keys[0] === 'plans') return diffPlans(walk, labels, keys, a, b);
-    if (keys.length === 1 && keys[0] === 'scenarios') {
-      return diffByPosition(walk, labels, keys, a, b, (s, i) => `Scenario ${i + 1} “${nameOf(s, 'name') ?? ''}”`);
-    }
-    if (keys.length === 3 && keys[0] === 'scenarios' && keys[2] === 'boostSchedule') {
-      return diffByPosition(walk, labels, keys, a, b, (r, i) => `boost row “${nameOf(r, 'label') ?? i + 1}”`);
-    }
+    if (keys.length === 1 && keys[0] === 'plans') return diffById(walk, labels, keys, a, b, PLANS);
+    if (keys.length === 1 && keys[0] === 'scenarios') return diffById(walk, labels, keys, a, b, SCENARIOS);
+    if (keys.length === 3 && keys[0] === 'scenarios' && keys[2] === 'boostSchedule') return diffById(walk, labels, keys, a, b, BOOST_ROWS);
     // Any other list (the rpm list): one change for the whole list reads better than per item.
     return push(walk, labels, keys, 'changed', a, b);
   }
@@ -387,8 +397,11 @@ function diffValue(walk: Walk, labels: string[], keys: Key[], a: Json, b: Json):
  * Every difference from `a` (older) to `b` (newer), in document order. Equal documents give an
  * empty list. Both are plain JSON (a saved study document); neither is changed.
  */
-export function diffDocuments(a: unknown, b: unknown): DocumentChange[] {
+export function diffDocuments(older: unknown, newer: unknown): DocumentChange[] {
   const walk: Walk = { out: [] };
+  // Documents saved before scenarios and rows had ids get them as every reader gives them.
+  const a = fillItemIds(older);
+  const b = fillItemIds(newer);
   if (isObject(a) && isObject(b)) {
     const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
     for (const k of keys) diffValue(walk, [words(k)], [k], a[k], b[k]);

@@ -5,14 +5,16 @@ export type ButtonVariant = 'primary' | 'secondary' | 'quiet' | 'destructive';
 
 const base =
   'inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-semibold leading-5 ' +
-  'transition-colors disabled:cursor-not-allowed disabled:opacity-60 select-none whitespace-nowrap';
+  'transition-colors disabled:cursor-not-allowed select-none whitespace-nowrap';
 
 // Destructive actions are copper, not red: red is kept for hard engineering limits.
+// A disabled primary button often says a state ("Saved"): teal-dark on teal-light keeps 6.0:1
+// (a faded teal was 2.6:1); the others fade, their text staying above 4.5:1 on paper.
 const variants: Record<ButtonVariant, string> = {
-  primary: 'bg-teal text-white shadow-sm hover:bg-teal-dark',
-  secondary: 'border border-ink/25 bg-white/70 text-ink hover:border-teal hover:text-teal-dark',
-  quiet: 'text-teal-dark underline-offset-4 hover:underline px-2',
-  destructive: 'border border-copper bg-white/70 text-copper-ink hover:bg-copper-light',
+  primary: 'bg-teal text-white shadow-sm not-disabled:hover:bg-teal-dark disabled:bg-teal-light disabled:text-teal-dark disabled:shadow-none',
+  secondary: 'border border-ink/25 bg-white/70 text-ink hover:border-teal hover:text-teal-dark disabled:opacity-75',
+  quiet: 'text-teal-dark underline-offset-4 hover:underline px-2 disabled:opacity-75',
+  destructive: 'border border-copper bg-white/70 text-copper-ink hover:bg-copper-light disabled:opacity-75',
 };
 
 export function buttonClass(variant: ButtonVariant = 'secondary', extra = ''): string {

@@ -48,13 +48,13 @@ export function Nav({ homeHref, items, end }: { homeHref: string; items: readonl
 }
 
 /** A skip link, first in the tab order, for keyboard users to pass the header. */
-export function SkipLink({ target = 'main' }: { target?: string }) {
+export function SkipLink({ target = 'main', children = 'Skip to content' }: { target?: string; children?: string }) {
   return (
     <a
       href={`#${target}`}
       className="sr-only focus:not-sr-only focus:absolute focus:left-3 focus:top-3 focus:z-50 focus:rounded-md focus:bg-white focus:px-3 focus:py-2 focus:shadow"
     >
-      Skip to content
+      {children}
     </a>
   );
 }

@@ -1,18 +1,25 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
-import { meSchema, type Me } from '#shared/schemas/account';
-import { api, isApiError, onTwoFactorRequired, onUnauthorized } from './api-client';
+import { sessionStateSchema, type Me } from '#shared/schemas/account';
+import { api, onTwoFactorRequired, onUnauthorized } from './api-client';
 
 /**
  * Who is signed in, or null when nobody is. Shared by every feature (features may not import
  * each other, and the unit system, the navigation and the guards all need it).
  */
 export async function getMe(): Promise<Me | null> {
-  try {
-    return await api.get('/api/auth/me', meSchema);
-  } catch (error) {
-    if (isApiError(error) && error.status === 401) return null;
-    throw error;
-  }
+  // The session endpoint answers 200 signed out too, so a visitor's console shows no 401.
+  return (await getSessionState()).me;
+}
+
+/** Who is signed in and whether the one-click demo sign-in is open (a development server). */
+export function getSessionState() {
+  return api.get('/api/auth/session', sessionStateSchema);
+}
+
+/** Whether this server offers the one-click demo sign-in (asked once per page load); null until it answers. */
+export function useDemoAvailable(): boolean | null {
+  const state = useQuery({ queryKey: ['session-state'] as const, queryFn: getSessionState, staleTime: Infinity });
+  return state.data ? state.data.demo : state.isError ? false : null;
 }
 
 export const meQueryOptions = () =>

@@ -1,9 +1,10 @@
 import { Navigate } from 'react-router';
-import { homeAfterSignIn, paths } from '../lib/paths';
+import { Landing } from '../features/landing/components/Landing';
+import { homeAfterSignIn } from '../lib/paths';
 import { useMe } from '../lib/session';
 
-/** `/`: the Studies area when signed in, sign-in otherwise. */
+/** `/`: the Studies area when signed in; what Spoolbook does, with the demo a click away, otherwise. */
 export function HomeRoute() {
   const me = useMe();
-  return <Navigate to={me.data ? homeAfterSignIn : paths.signIn.href()} replace />;
+  return me.data ? <Navigate to={homeAfterSignIn} replace /> : <Landing />;
 }

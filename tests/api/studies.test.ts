@@ -178,6 +178,21 @@ describe('reading a study fast: stored JSON, ETag, compression', () => {
     expect(res.body.study.document.losses.inlet).toEqual({ pressureLoss: 2500 });
   });
 
+  it('gives ids to the scenarios and boost rows of a current document stored without them', async () => {
+    const { owner, teamId, study } = await teamWithStudy(t);
+    const stored = structuredClone(demo);
+    for (const scenario of stored.scenarios) {
+      delete scenario.id;
+      for (const row of scenario.boostSchedule) delete row.id;
+    }
+    await t.database.db.update(studies).set({ document: stored }).where(eq(studies.id, study.id));
+    const res = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}`);
+    expect(res.status).toBe(200);
+    const ids = res.body.study.document.scenarios.flatMap((s: { id: string; boostSchedule: { id: string }[] }) => [s.id, ...s.boostSchedule.map((r) => r.id)]);
+    expect(ids.every((id: unknown) => typeof id === 'string' && id.length > 0)).toBe(true);
+    expect(new Set(ids).size).toBe(ids.length);
+  });
+
   it('answers 404 for a study of another team read through this team, and for a team the user is not in', async () => {
     const a = await teamWithStudy(t);
     const b = await teamWithStudy(t);

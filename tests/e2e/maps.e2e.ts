@@ -105,10 +105,10 @@ describe('map library in the browser', () => {
     await screenshot(page, 'maps-plot');
 
     // Export with our own buttons: an SVG drawing and a PNG image named after the map.
-    const [svg] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save the plot as an SVG drawing' }).click()]);
+    const [svg] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save SVG of the plot (a drawing)' }).click()]);
     expect(svg.suggestedFilename()).toBe(`${name.replace(/ /g, '-')}.svg`);
     expect(readFileSync(await svg.path(), 'utf8')).toContain('<svg');
-    const [png] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save the plot as a PNG image' }).click()]);
+    const [png] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save PNG of the plot (an image)' }).click()]);
     expect(png.suggestedFilename()).toBe(`${name.replace(/ /g, '-')}.png`);
     // The PNG signature, first eight bytes of every PNG file (ISO/IEC 15948, 5.2).
     expect([...readFileSync(await png.path()).subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);

@@ -26,6 +26,14 @@ export const name = (what: string) =>
     .min(1, `${what} must not be empty`)
     .max(100, `${what} must be at most 100 characters`);
 
+/** An optional identity of a list item (a scenario, a boost row): any short text, unique in its list. */
+export const itemId = (what: string) =>
+  z
+    .string({ error: `${what} must be text` })
+    .min(1, `${what} must not be empty`)
+    .max(64, `${what} must be at most 64 characters`)
+    .optional();
+
 /** Whether a value is a finite number (cross-field checks read values a field check may have refused). */
 export const isNum = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
 

@@ -1,7 +1,7 @@
 /** A Scenario: the day's ambient and the boost schedule, one operating line per row. */
 import { z } from 'zod';
 import { ambientSchema } from './ambient';
-import { count, name, num } from './fields';
+import { count, itemId, name, num } from './fields';
 import { rpmTableSchema } from './rpm';
 
 const MAX_BOOST_ROWS = 20;
@@ -14,6 +14,8 @@ export const boostSchema = num('boost')
 /** One row of a boost schedule: its own operating line. */
 const boostRowSchema = z
   .strictObject({
+    /** Stable within its scenario, so history can tell a renamed row from a new one (filled on read where absent). */
+    id: itemId('boost row id'),
     label: name('label'),
     kind: z.enum(['full-load', 'gear', 'part-throttle'], { error: 'row kind must be full-load, gear or part-throttle' }),
     /** Gear number when kind is "gear". */
@@ -28,6 +30,8 @@ const boostRowSchema = z
 export type BoostRowKind = z.output<typeof boostRowSchema>['kind'];
 
 export const scenarioSchema = z.strictObject({
+  /** Stable within the study, so history can tell a renamed scenario from a new one (filled on read where absent). */
+  id: itemId('scenario id'),
   name: name('scenario name'),
   ambient: ambientSchema,
   boostSchedule: z

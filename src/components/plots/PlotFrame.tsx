@@ -82,10 +82,10 @@ export function PlotFrame({
       <div className="flex flex-wrap items-center justify-between gap-3">
         <div className="flex flex-wrap items-center gap-3">{controls}</div>
         <div className="flex flex-wrap items-center gap-2" role="group" aria-label="Save the plot">
-          <Button onClick={() => save('png')} disabled={!ready} pending={exporting === 'png'} aria-label="Save the plot as a PNG image">
+          <Button onClick={() => save('png')} disabled={!ready} pending={exporting === 'png'} aria-label="Save PNG of the plot (an image)">
             Save PNG
           </Button>
-          <Button onClick={() => save('svg')} disabled={!ready} pending={exporting === 'svg'} aria-label="Save the plot as an SVG drawing">
+          <Button onClick={() => save('svg')} disabled={!ready} pending={exporting === 'svg'} aria-label="Save SVG of the plot (a drawing)">
             Save SVG
           </Button>
         </div>

@@ -66,7 +66,7 @@ function rpmSpan(rpms: number[]): string {
 
 const SEVERITY_STYLE: Record<Severity, { mark: string; box: string }> = {
   limit: { mark: 'bg-limit text-white', box: 'border-limit/40' },
-  warning: { mark: 'bg-copper text-white', box: 'border-copper/40' },
+  warning: { mark: 'bg-copper-ink text-white', box: 'border-copper/40' },
   info: { mark: 'bg-teal-light text-teal-dark', box: 'border-paper-line' },
 };
 
@@ -129,14 +129,16 @@ function LineFinding({ group, selected, onSelect }: { group: FindingGroup; selec
         type="button"
         onClick={() => onSelect({ lineKey: group.line.key, rpm: rpms[0] })}
         className="block w-full rounded-md px-3 py-1.5 text-left hover:bg-paper-deep/40"
-        aria-label={`${findingTitle(group.code)}: ${group.line.label}, ${rpmSpan(rpms)}. ${message} Show on the plots.`}
       >
+        {/* The name read out is the visible text with the finding's title before it (WCAG 2.5.3). */}
+        <span className="sr-only">{findingTitle(group.code)}: </span>
         <span className="flex items-start gap-2">
           <span aria-hidden="true" className="mt-1.5 inline-block size-2.5 shrink-0 rounded-full" style={{ background: planColour(group.line.planIndex) }} />
           <span className="min-w-0">
             <span className="text-ink">{group.line.label}</span>
             <span className="text-ink-soft"> · {rpmSpan(rpms)}</span>
             <span className="block text-xs text-ink-soft">{message}</span>
+            <span className="sr-only"> Show on the plots.</span>
           </span>
         </span>
       </button>
@@ -151,7 +153,7 @@ function LineFinding({ group, selected, onSelect }: { group: FindingGroup; selec
                 aria-pressed={here}
                 aria-label={`${formatNumber(rpm, 21)} rpm`}
                 onClick={() => onSelect({ lineKey: group.line.key, rpm })}
-                className={`numeric rounded border px-1.5 py-0.5 text-xs ${here ? 'border-teal bg-teal text-white' : 'border-ink/15 bg-white text-ink-soft hover:border-teal hover:text-teal-dark'}`}
+                className={`numeric min-h-6 min-w-6 rounded border px-1.5 py-0.5 text-xs ${here ? 'border-teal bg-teal text-white' : 'border-ink/15 bg-white text-ink-soft hover:border-teal hover:text-teal-dark'}`}
               >
                 {formatNumber(rpm, 21)}
               </button>

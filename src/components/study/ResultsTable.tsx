@@ -99,7 +99,7 @@ function buildColumns(system: UnitSystem) {
       cell: (info) => {
         const r = info.row.original;
         if (r.findingCount === 0) return <span className="text-ink-faint">none</span>;
-        const tone = r.severity === 'limit' ? 'bg-limit text-white' : r.severity === 'warning' ? 'bg-copper text-white' : 'bg-teal-light text-teal-dark';
+        const tone = r.severity === 'limit' ? 'bg-limit text-white' : r.severity === 'warning' ? 'bg-copper-ink text-white' : 'bg-teal-light text-teal-dark';
         return (
           <span title={r.findings} className={`whitespace-nowrap rounded px-1.5 py-0.5 text-xs font-semibold ${tone}`}>
             {r.findingCount} · {r.severity}
@@ -243,7 +243,7 @@ export function ResultsTable({
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end justify-between gap-3">
-        <div className="space-y-1">
+        <div className="min-w-0 max-w-full space-y-1">
           <label htmlFor={filterId} className="block text-sm font-semibold text-ink">
             Lines shown
           </label>

@@ -2,7 +2,7 @@ import type { CompressorMap } from '#shared/maps/types';
 import { pointWorking } from '#shared/matching/explain-point';
 import type { LineContext } from '#shared/matching/line-context';
 import type { OperatingPoint } from '#shared/matching/result';
-import type { WorkingStep } from '#shared/matching/working';
+import { SOURCES, type WorkingStep } from '#shared/matching/working';
 import type { StudyDocument } from '#shared/schemas/study';
 import { runStudyDocument } from '#shared/study/run';
 import { LEARN_MAP_ID } from './api/get-demo-map';
@@ -92,7 +92,21 @@ export function runLesson(inputs: LessonInputs, map: CompressorMap | null): Less
   const result = runStudyDocument(lessonDocument(inputs, map !== null), map ? { [LEARN_MAP_ID]: map } : {});
   const [yours, standard] = result.lines;
   const point = yours.points[0];
-  return { context: yours.context, point, standardDay: standard.points[0], steps: pointWorking(yours.context, point) };
+  const steps = pointWorking(yours.context, point).map((step) => ({ ...step, source: lessonSource(step.source) }));
+  return { context: yours.context, point, standardDay: standard.points[0], steps };
+}
+
+/** The Working's sources that speak of a Study or a Plan, as they read on this page, which has neither. */
+const LESSON_SOURCES: Partial<Record<string, string>> = {
+  [SOURCES.given]: 'Set in this lesson (the controls above, or the lesson’s engine)',
+  [SOURCES.interpolation]: 'Linear interpolation in the lesson engine’s table by rpm, held flat outside its range',
+  [SOURCES.assumption]: 'Assumption of this lesson',
+  [SOURCES.map]: 'The demo compressor map shown here',
+};
+
+/** A step's source in the lesson's words. */
+export function lessonSource(source: string): string {
+  return LESSON_SOURCES[source] ?? source;
 }
 
 /** The steps of the Working a section of the lesson shows, in the order given (missing ones skipped). */

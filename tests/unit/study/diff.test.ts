@@ -2,7 +2,9 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
+import { fillItemIds, fillListIds } from '#shared/schemas/item-ids';
 import { diffDocuments, kindOfPath } from '#shared/study/diff';
+import { readStudyDocument } from '#shared/study/document';
 
 const demoPath = path.resolve(import.meta.dirname, '..', '..', '..', 'data', 'demo', 'hillclimb-study.json');
 const demoJson = () => JSON.parse(readFileSync(demoPath, 'utf8')) as StudyDocument;
@@ -59,7 +61,7 @@ describe('diffDocuments', () => {
     ]);
   });
 
-  it('matches plans by id, so reordering them is no change and a rename is one change', () => {
+  it('matches plans by id, so reordering them is no change and a rename is one renaming', () => {
     const a = demoJson();
     const b = demoJson();
     b.plans.reverse();
@@ -68,7 +70,7 @@ describe('diffDocuments', () => {
     b.plans[0].maxShaftSpeed = 150_000;
     const changes = diffDocuments(a, b);
     expect(changes.map((c) => [c.path, c.change, c.before, c.after, c.kind])).toEqual([
-      ['Plan “L76 race wheel, ported shroud” › name', 'changed', 'L76 race wheel', 'L76 race wheel, ported shroud', 'text'],
+      ['Plan “L76 race wheel, ported shroud”', 'renamed', 'L76 race wheel', 'L76 race wheel, ported shroud', 'text'],
       ['Plan “L76 race wheel, ported shroud” › max wheel speed', 'added', undefined, 150_000, 'speed'],
     ]);
   });
@@ -127,6 +129,98 @@ describe('diffDocuments', () => {
     expect(changes.map((c) => [c.path, c.kind])).toEqual([['Fuel system › injectors › primary set › rated flow', 'injectorFlow']]);
     expect(JSON.stringify(a)).toBe(frozenA);
     expect(JSON.stringify(b)).toBe(frozenB);
+  });
+});
+
+describe('diffDocuments by identity of scenarios and boost rows', () => {
+  it('reports a duplicated scenario as one added, not as the scenarios after it renamed', () => {
+    // The editor holds a stored document as every reader gives it (ids filled), and duplicates
+    // with a deep copy (its id too) placed right after the original.
+    const a = fillItemIds(demoJson());
+    const b = structuredClone(a);
+    b.scenarios.splice(1, 0, { ...structuredClone(b.scenarios[0]), name: `${b.scenarios[0].name} (copy)` });
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.change, c.keys])).toEqual([['Scenario 2 “Sea level, 20 °C (copy)”', 'added', ['scenarios', 1]]]);
+  });
+
+  it('reports the same when both documents already carry ids (read back after a save)', () => {
+    const a = readStudyDocument(demoJson());
+    if (!a.ok) throw new Error(a.message);
+    const b = structuredClone(a.document);
+    b.scenarios.splice(1, 0, { ...structuredClone(b.scenarios[0]), name: 'Copy' });
+    const saved = readStudyDocument(b);
+    if (!saved.ok) throw new Error(saved.message);
+    expect(diffDocuments(a.document, saved.document).map((c) => [c.path, c.change])).toEqual([['Scenario 2 “Copy”', 'added']]);
+  });
+
+  it('reports a removed middle scenario as one removal, and a renamed one as one renaming', () => {
+    // Ids as every reader fills them; the edit keeps them, as the editor does.
+    const a = fillItemIds(demoJson());
+    const b = structuredClone(a);
+    const [removed] = b.scenarios.splice(1, 1);
+    b.scenarios[1].name = 'Sea level, every gear';
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.change, c.before, c.after])).toEqual([
+      ['Scenario 2 “Sea level, every gear”', 'renamed', 'Sea level, by gear', 'Sea level, every gear'],
+      ['Scenario 2 “1,500 m, 35 °C”', 'removed', removed, undefined],
+    ]);
+  });
+
+  it('matches boost rows by id inside their scenario: a renamed row with a changed boost is a renaming and one change', () => {
+    const a = fillItemIds(demoJson());
+    const b = structuredClone(a);
+    const rows = b.scenarios[2].boostSchedule;
+    rows[1].label = 'Second gear';
+    rows[1].boost[1].value = 110_000;
+    rows.reverse();
+    const changes = diffDocuments(a, b);
+    expect(changes.map((c) => [c.path, c.change, c.before, c.after, c.kind])).toEqual([
+      ['Scenario 3 “Sea level, by gear” › boost row “Second gear”', 'renamed', '2nd gear', 'Second gear', 'text'],
+      // demo document value (data/demo/hillclimb-study.json): 100 kPa gauge at 4500 rpm
+      ['Scenario 3 “Sea level, by gear” › boost row “Second gear” › boost at 4500 rpm', 'changed', 100_000, 110_000, 'pressureGauge'],
+    ]);
+    // The keys point at the row where it stands in the newer document.
+    expect(changes[1].keys.slice(0, 4)).toEqual(['scenarios', 2, 'boostSchedule', rows.length - 2]);
+  });
+
+  it('reports an added boost row once, even when it copies the row before it', () => {
+    const a = demoJson();
+    const b = demoJson();
+    const rows = b.scenarios[0].boostSchedule;
+    rows.push({ ...structuredClone(rows[rows.length - 1]), label: 'Row 2' });
+    expect(diffDocuments(a, b).map((c) => [c.path, c.change])).toEqual([['Scenario 1 “Sea level, 20 °C” › boost row “Row 2”', 'added']]);
+  });
+});
+
+describe('fillItemIds', () => {
+  it('gives every scenario and boost row of a document without ids an id by position, the same on every read', () => {
+    const doc = fillItemIds(demoJson());
+    expect(doc.scenarios.map((s) => s.id)).toEqual(doc.scenarios.map((_s, i) => `scenario-${i + 1}`));
+    expect(doc.scenarios[2].boostSchedule.map((r) => r.id)).toEqual(doc.scenarios[2].boostSchedule.map((_r, i) => `row-${i + 1}`));
+    expect(fillItemIds(demoJson())).toEqual(doc);
+    // A document whose ids are all present and distinct comes back as it was.
+    expect(fillItemIds(doc)).toBe(doc);
+  });
+
+  it('keeps the first of two items sharing an id and gives the copy the first free one', () => {
+    const list = fillListIds([{ id: 'a' }, { id: 'a' }, {}, { id: 'row-2' }], 'row');
+    expect(list).toEqual([{ id: 'a' }, { id: 'row-3' }, { id: 'row-4' }, { id: 'row-2' }]);
+  });
+
+  it('keeps saved documents valid: the filled document passes the study schema and keeps its ids', () => {
+    const read = readStudyDocument(demoJson());
+    if (!read.ok) throw new Error(read.message);
+    expect(read.document.scenarios[0].id).toBe('scenario-1');
+    expect(read.document.scenarios[0].boostSchedule[0].id).toBe('row-1');
+  });
+
+  it('replaces an id that is not short text, so a stored document never fails on its ids', () => {
+    const doc = demoJson() as unknown as { scenarios: { id: unknown }[] };
+    doc.scenarios[0].id = 7;
+    doc.scenarios[1].id = 'x'.repeat(65);
+    const read = readStudyDocument(doc);
+    if (!read.ok) throw new Error(read.message);
+    expect(read.document.scenarios.slice(0, 2).map((s) => s.id)).toEqual(['scenario-1', 'scenario-2']);
   });
 });
 

@@ -14,7 +14,8 @@ export function CombinationPicker({ document, selected, onToggle }: { document: 
   );
   const full = selected.length >= MAX_COMBINATIONS;
   return (
-    <fieldset className="space-y-2">
+    // min-w-0: a fieldset is otherwise as wide as its widest content, and the table scrolls inside it.
+    <fieldset className="min-w-0 space-y-2">
       <legend className="text-sm text-ink-soft">
         Tick {MIN_COMBINATIONS} to {MAX_COMBINATIONS} plan × scenario × boost row combinations.{' '}
         <span className="font-semibold text-ink" aria-live="polite">

@@ -157,12 +157,12 @@ export function CompareView({
             <div className="space-y-3">
               <div className="flex flex-wrap items-center gap-x-6 gap-y-2 text-sm">
                 {usedMaps.length > 1 && (
-                  <label className="flex items-center gap-2">
+                  <label className="flex min-w-0 max-w-full flex-wrap items-center gap-2">
                     <span className="font-semibold text-ink">Map drawn</span>
                     <select
                       value={drawn?.mapId ?? ''}
                       onChange={(e) => setDrawnChoice(e.target.value)}
-                      className="rounded-md border border-ink/25 bg-white px-2 py-1 text-sm"
+                      className="max-w-full rounded-md border border-ink/25 bg-white px-2 py-1 text-sm"
                     >
                       {usedMaps.map((m) => (
                         <option key={m.mapId} value={m.mapId}>
@@ -213,12 +213,12 @@ export function CompareView({
             <Card title="On the turbine map">
               <div className="space-y-3" data-testid="compare-turbine-map">
                 {usedTurbineMaps.length > 1 && (
-                  <label className="flex items-center gap-2 text-sm">
+                  <label className="flex min-w-0 max-w-full flex-wrap items-center gap-2 text-sm">
                     <span className="font-semibold text-ink">Turbine map drawn</span>
                     <select
                       value={drawnTurbine.mapId}
                       onChange={(e) => setTurbineChoice(e.target.value)}
-                      className="rounded-md border border-ink/25 bg-white px-2 py-1 text-sm"
+                      className="max-w-full rounded-md border border-ink/25 bg-white px-2 py-1 text-sm"
                     >
                       {usedTurbineMaps.map((m) => (
                         <option key={m.mapId} value={m.mapId}>

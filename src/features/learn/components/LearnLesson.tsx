@@ -283,11 +283,11 @@ export function LearnLesson({ map, mapLoading, mapError }: { map: CompressorMap 
           Where the formulas come from
         </h3>
         <p>
-          Each step names its source under it. The model behind them is written out in the project’s physics notes (docs/physics.md): the standard atmosphere
-          (ISO 2533 / ICAO Doc 7488) in section 1, engine air flow (Heywood, <em>Internal Combustion Engine Fundamentals</em>, 1988, §2.10) in section 2, and
-          corrected flow, pressure ratio and outlet temperature (NASA Glenn Research Center’s pages on corrected airflow and compressor thermodynamics;
-          Isermann, <em>Combustion Engine Diagnosis</em>, 2017, eqs. 5.4.14–15) in section 3. Static pressures stand in for total pressures, and each engine
-          speed is worked on its own (quasi-steady).
+          Each step names its source under it. The air around the engine follows the standard atmosphere (ISO 2533:1975, with ICAO Doc 7488, the troposphere);
+          the air the engine takes in follows Heywood, <em>Internal Combustion Engine Fundamentals</em> (1st edition, 1988), section 2.10; corrected flow,
+          pressure ratio and outlet temperature follow NASA Glenn Research Center’s pages on corrected airflow and on compressor thermodynamics, and Isermann,{' '}
+          <em>Combustion Engine Diagnosis</em> (2017), equations 5.4.14 and 5.4.15. Static pressures stand in for total pressures, and each engine speed is
+          worked on its own (quasi-steady).
         </p>
       </section>
     </div>

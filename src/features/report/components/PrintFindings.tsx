@@ -7,7 +7,7 @@ import { formatNumber, useUnitSystem } from '#src/lib/quantities';
 
 const SECTIONS: { severity: Severity; title: string; mark: string }[] = [
   { severity: 'limit', title: 'Limits crossed', mark: 'bg-limit text-white' },
-  { severity: 'warning', title: 'Warnings', mark: 'bg-copper text-white' },
+  { severity: 'warning', title: 'Warnings', mark: 'bg-copper-ink text-white' },
   { severity: 'info', title: 'Notes', mark: 'bg-teal-light text-teal-dark' },
 ];
 

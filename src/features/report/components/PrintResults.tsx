@@ -58,7 +58,8 @@ export function PrintResults({ lines }: { lines: readonly StudyLine[] }) {
               {line.label}
             </h3>
             {blocks.map((block, b) => (
-              <div key={b} className="overflow-x-auto">
+              // Focusable so that a keyboard can scroll a table wider than the screen.
+              <div key={b} className="overflow-x-auto" tabIndex={0} role="region" aria-label={`${line.label}, columns ${b + 1} of ${blocks.length}`}>
                 <table className="report-results w-full border-collapse text-xs">
                   <caption className="sr-only">
                     {line.label}, columns {b + 1} of {blocks.length}

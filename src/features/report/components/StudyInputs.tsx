@@ -34,7 +34,7 @@ export function RpmTableView({
   const system = useUnitSystem();
   const unit = quantityUnit(quantity, system);
   return (
-    <div className="space-y-1">
+    <div className="space-y-1 overflow-x-auto print:overflow-visible" tabIndex={0} role="region" aria-label={caption}>
       {chunks(table, RPM_COLUMNS_PER_BLOCK).map((block, i) => (
         <table key={i} className="report-rpm-table border-collapse text-sm">
           {i === 0 && <caption className="pb-1 text-left text-sm font-semibold text-ink">{caption}</caption>}
@@ -346,49 +346,51 @@ export function StudyInputs({ data }: { data: Pick<StudyViewData, 'document' | '
         </div>
       </InputBlock>
       <InputBlock title="Plans">
-        <table className="w-full border-collapse text-left text-sm">
-          <thead className="border-b-2 border-ink/20 text-xs uppercase tracking-wider text-ink-soft">
-            <tr>
-              <th scope="col" className="px-2 py-1.5">
-                Plan
-              </th>
-              <th scope="col" className="px-2 py-1.5">
-                Compressor map
-              </th>
-              <th scope="col" className="px-2 py-1.5 text-right">
-                Turbochargers
-              </th>
-              <th scope="col" className="px-2 py-1.5 text-right">
-                Default efficiency
-              </th>
-              <th scope="col" className="px-2 py-1.5 text-right">
-                Off-map efficiency (assumption)
-              </th>
-              <th scope="col" className="px-2 py-1.5 text-right">
-                Shaft speed limit
-              </th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-paper-line">
-            {doc.plans.map((plan, i) => (
-              <tr key={plan.id}>
-                <td className="px-2 py-1.5">
-                  <span className="flex items-center gap-1.5">
-                    <span aria-hidden="true" className="inline-block size-2.5 rounded-full" style={{ background: planColour(i) }} />
-                    {plan.name}
-                  </span>
-                </td>
-                <td className="px-2 py-1.5">{plan.compressorMapId ? mapName(plan.compressorMapId, data.mapsById, data.mapNames) : 'None'}</td>
-                <td className="numeric px-2 py-1.5 text-right">{plan.turbochargers}</td>
-                <td className="numeric px-2 py-1.5 text-right">{v(plan.compressorEfficiency, 'fraction')}</td>
-                <td className="numeric px-2 py-1.5 text-right">
-                  {plan.offMapEfficiency !== undefined ? v(plan.offMapEfficiency, 'fraction') : 'None: off the map is not reachable'}
-                </td>
-                <td className="numeric px-2 py-1.5 text-right">{plan.maxShaftSpeed !== undefined ? v(plan.maxShaftSpeed, 'speed') : 'From the map'}</td>
+        <div className="overflow-x-auto print:overflow-visible" tabIndex={0} role="region" aria-label="Plans">
+          <table className="w-full border-collapse text-left text-sm">
+            <thead className="border-b-2 border-ink/20 text-xs uppercase tracking-wider text-ink-soft">
+              <tr>
+                <th scope="col" className="px-2 py-1.5">
+                  Plan
+                </th>
+                <th scope="col" className="px-2 py-1.5">
+                  Compressor map
+                </th>
+                <th scope="col" className="px-2 py-1.5 text-right">
+                  Turbochargers
+                </th>
+                <th scope="col" className="px-2 py-1.5 text-right">
+                  Default efficiency
+                </th>
+                <th scope="col" className="px-2 py-1.5 text-right">
+                  Off-map efficiency (assumption)
+                </th>
+                <th scope="col" className="px-2 py-1.5 text-right">
+                  Shaft speed limit
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody className="divide-y divide-paper-line">
+              {doc.plans.map((plan, i) => (
+                <tr key={plan.id}>
+                  <td className="px-2 py-1.5">
+                    <span className="flex items-center gap-1.5">
+                      <span aria-hidden="true" className="inline-block size-2.5 rounded-full" style={{ background: planColour(i) }} />
+                      {plan.name}
+                    </span>
+                  </td>
+                  <td className="px-2 py-1.5">{plan.compressorMapId ? mapName(plan.compressorMapId, data.mapsById, data.mapNames) : 'None'}</td>
+                  <td className="numeric px-2 py-1.5 text-right">{plan.turbochargers}</td>
+                  <td className="numeric px-2 py-1.5 text-right">{v(plan.compressorEfficiency, 'fraction')}</td>
+                  <td className="numeric px-2 py-1.5 text-right">
+                    {plan.offMapEfficiency !== undefined ? v(plan.offMapEfficiency, 'fraction') : 'None: off the map is not reachable'}
+                  </td>
+                  <td className="numeric px-2 py-1.5 text-right">{plan.maxShaftSpeed !== undefined ? v(plan.maxShaftSpeed, 'speed') : 'From the map'}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       </InputBlock>
       <InputBlock title="Required margins">
         <Facts items={requirementFacts(doc.requirements, system)} />

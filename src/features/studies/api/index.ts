@@ -14,3 +14,4 @@ export * from './get-share-links';
 export * from './create-share-link';
 export * from './revoke-share-link';
 export * from './results-csv';
+export * from './copy-study';

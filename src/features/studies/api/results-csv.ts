@@ -7,3 +7,8 @@ import { studyUrl } from './keys';
 export function resultsCsvHref(teamId: string, studyId: string): string {
   return `${studyUrl(teamId, studyId)}/results.csv`;
 }
+
+/** The same results as an Excel workbook: one sheet per plan with the CSV's columns. */
+export function resultsXlsxHref(teamId: string, studyId: string): string {
+  return `${studyUrl(teamId, studyId)}/results.xlsx`;
+}

@@ -1,6 +1,6 @@
 import { useEffect, useId, useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router';
-import type { StudySummary } from '#shared/schemas/study';
+import { STUDY_STARTS, type StudyStart, type StudySummary } from '#shared/schemas/study';
 import { Alert } from '#src/components/Alert';
 import { Badge } from '#src/components/Badge';
 import { Button } from '#src/components/Button';
@@ -144,6 +144,28 @@ function StudyActions({ teamId, study }: { teamId: string; study: StudySummary }
   );
 }
 
+/** What a new study starts from: blank or a demo study as a template. */
+function StartChoice({ value, onChange }: { value: StudyStart; onChange: (start: StudyStart) => void }) {
+  const order: StudyStart[] = ['blank', 'demo-hillclimb', 'demo-exhaust'];
+  return (
+    <fieldset className="space-y-2">
+      <legend className="text-sm font-semibold text-ink">Start from</legend>
+      {order.map((start) => (
+        <label
+          key={start}
+          className="flex cursor-pointer items-start gap-2 rounded-md border border-paper-line bg-white/70 p-2 text-sm has-[:checked]:border-teal"
+        >
+          <input type="radio" name="start" value={start} checked={value === start} onChange={() => onChange(start)} className="mt-1 accent-teal" />
+          <span>
+            <span className="block font-semibold text-ink">{STUDY_STARTS[start].title}</span>
+            <span className="block text-ink-soft">{STUDY_STARTS[start].description}</span>
+          </span>
+        </label>
+      ))}
+    </fieldset>
+  );
+}
+
 /**
  * The team's studies: search by title and engine, filter by author and archived, newest change
  * first, paged by the server. Owners and editors create, rename, duplicate, archive and delete.
@@ -156,6 +178,7 @@ export function StudyList({ teamId }: { teamId: string }) {
   const studies = useStudies(teamId, { ...params, pageSize: PAGE_SIZE });
   const create = useCreateStudy(teamId);
   const [creating, setCreating] = useState(false);
+  const [start, setStart] = useState<StudyStart>('demo-hillclimb');
   const authorId = useId();
   const archivedId = useId();
 
@@ -223,7 +246,7 @@ export function StudyList({ teamId }: { teamId: string }) {
           ) : (
             <>
               <p className="font-semibold text-ink">No studies in this team yet.</p>
-              <p className="mt-1">{canEdit ? 'Start one from the demo hill-climb study with “New study”.' : 'Owners and editors of the team can start one.'}</p>
+              <p className="mt-1">{canEdit ? 'Start one blank or from a demo study with “New study”.' : 'Owners and editors of the team can start one.'}</p>
             </>
           )}
         </div>
@@ -301,15 +324,17 @@ export function StudyList({ teamId }: { teamId: string }) {
       <TitleDialog
         open={creating}
         title="New study"
-        description="The new study starts from the demo: a 2.0 L four-cylinder hill-climb engine on E85 with three candidate compressors, at sea level, at altitude on a hot day, by gear and at part throttle. Change anything once it opens."
-        initialTitle="New hill-climb study"
+        description="Start blank or from one of the demo studies as a template. Change anything once it opens."
+        initialTitle="New study"
         submitLabel="Create study"
         onSubmit={async (title) => {
-          const study = await create.mutateAsync({ title });
+          const study = await create.mutateAsync({ title, start });
           navigate(paths.teamStudy.href(teamId, study.id));
         }}
         onClose={() => setCreating(false)}
-      />
+      >
+        <StartChoice value={start} onChange={setStart} />
+      </TitleDialog>
     </Page>
   );
 }

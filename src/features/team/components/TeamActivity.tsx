@@ -20,6 +20,8 @@ const actionWords: Record<string, string> = {
   'map.uploaded': 'added a map',
   'map.deleted': 'deleted a map',
   'study.deleted': 'deleted a study',
+  'study.copied-out': 'copied a study to another team',
+  'study.copied-in': 'copied a study in from another team',
   'share-link.created': 'created a share link',
   'share-link.revoked': 'revoked a share link',
 };

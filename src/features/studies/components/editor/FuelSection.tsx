@@ -47,7 +47,7 @@ export function FuelSection() {
             <Button
               className="mb-5"
               onClick={() => editor.update(['fuelSystem', 'fuel', 'ethanolPercent'], 85)}
-              aria-label="Set the ethanol content to 85 percent (E85)"
+              aria-label="E85: set the ethanol content to 85 percent"
             >
               E85
             </Button>

@@ -48,7 +48,7 @@ function BoostRowEditor({ si, ri, row, rows }: { si: number; ri: number; row: Bo
                 rows.filter((_r, k) => k !== ri),
               )
             }
-            aria-label={`Remove boost row ${row.label}`}
+            aria-label={`Remove row: boost row ${row.label}`}
           >
             Remove row
           </Button>

@@ -122,8 +122,8 @@ export function StudyPlots({
         data-testid="study-map"
         actions={
           !sharedMap ? (
-            <div className="flex flex-wrap items-end gap-3 text-sm">
-              <div className="space-y-1">
+            <div className="flex min-w-0 max-w-full flex-wrap items-end gap-3 text-sm">
+              <div className="min-w-0 max-w-full space-y-1">
                 <label htmlFor={mapChoiceId} className="block font-semibold text-ink">
                   Map drawn
                 </label>
@@ -131,7 +131,7 @@ export function StudyPlots({
                   id={mapChoiceId}
                   value={drawnPlan?.id ?? ''}
                   onChange={(e) => setMapPlanId(e.target.value)}
-                  className="rounded-md border border-ink/25 bg-white px-2 py-1.5"
+                  className="max-w-full rounded-md border border-ink/25 bg-white px-2 py-1.5"
                 >
                   {plans.map((p) => (
                     <option key={p.id} value={p.id}>
@@ -184,7 +184,7 @@ export function StudyPlots({
           data-testid="study-turbine-map"
           actions={
             !sharedTurbineMap ? (
-              <div className="space-y-1 text-sm">
+              <div className="min-w-0 max-w-full space-y-1 text-sm">
                 <label htmlFor={turbineChoiceId} className="block font-semibold text-ink">
                   Map drawn
                 </label>
@@ -192,7 +192,7 @@ export function StudyPlots({
                   id={turbineChoiceId}
                   value={turbinePlan.id}
                   onChange={(e) => setTurbinePlanId(e.target.value)}
-                  className="rounded-md border border-ink/25 bg-white px-2 py-1.5"
+                  className="max-w-full rounded-md border border-ink/25 bg-white px-2 py-1.5"
                 >
                   {turbinePlans.map((p) => (
                     <option key={p.id} value={p.id}>

@@ -18,7 +18,7 @@ import { useCreateStudy } from '#src/features/studies/api/create-study';
 import { useDeleteStudy } from '#src/features/studies/api/delete-study';
 import { useStudy } from '#src/features/studies/api/get-study';
 import { studyKeys } from '#src/features/studies/api/keys';
-import { resultsCsvHref } from '#src/features/studies/api/results-csv';
+import { resultsCsvHref, resultsXlsxHref } from '#src/features/studies/api/results-csv';
 import { staleRevisionOf, useSaveStudy } from '#src/features/studies/api/save-study';
 import { useUpdateStudyMeta } from '#src/features/studies/api/update-study-meta';
 import { AssumptionsSection } from '../editor/AssumptionsSection';
@@ -34,7 +34,9 @@ import { ConflictDialog } from './ConflictDialog';
 import { HistoryPanel } from './HistoryPanel';
 import { LeaveGuard } from './LeaveGuard';
 import { ProblemsSummary } from './ProblemsSummary';
+import { CopyToTeamDialog, useWritableTeams } from '../CopyToTeamDialog';
 import { SaveControls } from './SaveControls';
+import { SkipLink } from '#src/components/Nav';
 import { SharePanel } from './SharePanel';
 import { StudyPlots } from './StudyPlots';
 import { editableDocument, mapIdsOf, useDraft, useStudyCompute } from './use-study-editor';
@@ -78,6 +80,8 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
   const [conflict, setConflict] = useState<StudyDetail | null>(null);
   const [saveError, setSaveError] = useState<string | null>(null);
   const [renaming, setRenaming] = useState(false);
+  const [copying, setCopying] = useState(false);
+  const writableTeams = useWritableTeams(teamId);
   const allowLeave = useRef(false);
 
   const save = useSaveStudy(teamId, study.id);
@@ -136,6 +140,11 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
   return (
     <EditorContext.Provider value={editor}>
       <div className="mx-auto w-full max-w-[112rem] space-y-5" data-testid="study-workspace">
+        {/* With five plans the results hold hundreds of stops: these reach either side at once. */}
+        <nav aria-label="Skip within the study" className="contents">
+          <SkipLink target="study-results">Skip to results</SkipLink>
+          <SkipLink target="study-inputs">Skip to inputs</SkipLink>
+        </nav>
         <header className="space-y-3 border-b border-ink/15 pb-4">
           <div className="flex flex-wrap items-end justify-between gap-4">
             <div className="min-w-0 space-y-1">
@@ -170,6 +179,19 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
             >
               Results CSV
             </a>
+            <a
+              href={resultsXlsxHref(teamId, study.id)}
+              download
+              className={buttonClass('secondary')}
+              title="The same results as a workbook, one sheet per plan, in SI units"
+            >
+              Results XLSX
+            </a>
+            {writableTeams.length > 0 && (
+              <Button variant={study.canEdit ? 'quiet' : 'secondary'} onClick={() => setCopying(true)}>
+                Copy to my team
+              </Button>
+            )}
             {study.canEdit && (
               <>
                 <Button variant="quiet" onClick={() => setRenaming(true)}>
@@ -209,7 +231,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
               ? study.canEdit
                 ? 'Its inputs are locked. Bring it back from the archive to change it.'
                 : 'Nothing can be changed while it is archived.'
-              : 'You are a viewer in this team: you can explore every input and result, and owners and editors change the study.'}
+              : `You are a viewer in this team: you can explore every input and result, and owners and editors change the study.${writableTeams.length > 0 ? ' “Copy to my team” makes a copy you can change.' : ''}`}
           </Alert>
         )}
         {maps.errors.length > 0 && (
@@ -258,7 +280,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
         <StudyCaution />
 
         <div className="grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_24rem] 2xl:grid-cols-[minmax(0,1fr)_28rem]">
-          <div className="min-w-0 space-y-4">
+          <div id="study-results" tabIndex={-1} aria-label="Results" role="region" className="min-w-0 space-y-4 focus:outline-none">
             <ProblemsSummary issues={issues} draft={draft} />
             <StudyPlots
               computed={computed}
@@ -271,7 +293,13 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
               title={study.title}
             />
           </div>
-          <aside aria-label="Inputs" className="space-y-3 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1" data-testid="study-inputs">
+          <aside
+            id="study-inputs"
+            tabIndex={-1}
+            aria-label="Inputs"
+            className="space-y-3 focus:outline-none lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1"
+            data-testid="study-inputs"
+          >
             <h2 className="text-lg font-semibold text-ink">Inputs {readOnly && <span className="text-sm font-normal text-ink-soft">(read only)</span>}</h2>
             <EngineSection />
             <FuelSection />
@@ -296,6 +324,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
           onSubmit={(title) => meta.mutateAsync({ studyId: study.id, title })}
           onClose={() => setRenaming(false)}
         />
+        <CopyToTeamDialog open={copying} teamId={teamId} studyId={study.id} studyTitle={study.title} onClose={() => setCopying(false)} />
         <ConflictDialog
           theirs={conflict}
           mine={parsed.success ? parsed.data : draft}
