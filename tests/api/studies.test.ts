@@ -188,9 +188,11 @@ describe('reading a study fast: stored JSON, ETag, compression', () => {
     await t.database.db.update(studies).set({ document: stored }).where(eq(studies.id, study.id));
     const res = await owner.c.get(`/api/teams/${teamId}/studies/${study.id}`);
     expect(res.status).toBe(200);
-    const ids = res.body.study.document.scenarios.flatMap((s: { id: string; boostSchedule: { id: string }[] }) => [s.id, ...s.boostSchedule.map((r) => r.id)]);
-    expect(ids.every((id: unknown) => typeof id === 'string' && id.length > 0)).toBe(true);
-    expect(new Set(ids).size).toBe(ids.length);
+    const scenarios = res.body.study.document.scenarios as { id?: unknown; boostSchedule: { id?: unknown }[] }[];
+    const named = (xs: { id?: unknown }[]) => xs.every((x) => typeof x.id === 'string' && x.id.length > 0) && new Set(xs.map((x) => x.id)).size === xs.length;
+    // Scenario ids are unique in the study; a boost row's id is unique within its scenario.
+    expect(named(scenarios)).toBe(true);
+    for (const scenario of scenarios) expect(named(scenario.boostSchedule)).toBe(true);
   });
 
   it('answers 404 for a study of another team read through this team, and for a team the user is not in', async () => {

@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useDeferredValue, useMemo, useState } from 'react';
 import type { SpoolbookMap } from '#shared/maps/types';
 import type { StudyResult } from '#shared/matching/result';
 import { migrateStudyDocument, studyDocumentSchema, type StudyDocument } from '#shared/schemas/study';
@@ -64,11 +64,14 @@ export function mapIdsOf(draft: StudyDraft): string[] {
 export function useStudyCompute(draft: StudyDraft, mapsById: Record<string, SpoolbookMap | undefined>, mapsReady: boolean) {
   const parsed = useMemo(() => studyDocumentSchema.safeParse(draft), [draft]);
   const issues = useMemo(() => (parsed.success ? {} : issuesByPath(parsed.error.issues)), [parsed]);
+  // Typing paints first: the study is computed and drawn in a later render that React may put
+  // off while keys keep coming (saving and the problems list read `parsed`, never this).
+  const deferred = useDeferredValue(parsed);
   const computedNow = useMemo<Computed | null>(() => {
-    if (!parsed.success || !mapsReady) return null;
-    const result = runStudyLive(parsed.data, mapsById);
-    return { doc: parsed.data, result, lines: studyLines(result, parsed.data.plans) };
-  }, [parsed, mapsById, mapsReady]);
+    if (!deferred.success || !mapsReady) return null;
+    const result = runStudyLive(deferred.data, mapsById);
+    return { doc: deferred.data, result, lines: studyLines(result, deferred.data.plans) };
+  }, [deferred, mapsById, mapsReady]);
   const [lastGood, setLastGood] = useState<Computed | null>(null);
   if (computedNow && computedNow !== lastGood) setLastGood(computedNow);
   return { parsed, issues, valid: parsed.success, computed: computedNow ?? lastGood, stale: computedNow === null };
