@@ -3,6 +3,7 @@ import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
 import { studies, teamMembers, teams } from '../db/schema';
 import { createAccount, findUserByEmail } from './accounts';
+import { addDemoVehicles } from './demo-drive';
 import { insertStudy } from './studies';
 import { DEMO_STUDY_FILES, demoStudyDocument } from './study-documents';
 
@@ -58,5 +59,6 @@ export async function seedDemo(db: Db) {
     const document = demoStudyDocument(demo.file);
     await insertStudy(db, { teamId: team.id, userId: demoId, title: demo.title, document, message: 'Demo study' });
   }
+  await addDemoVehicles(db, team.id, DEMO_STUDIES, demoId);
   return { demoTeamId: team.id };
 }

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import { planSchema } from '../matching/input/plan';
 import { studyInputSchema, type StudyInput } from '../matching/input/study';
+import { vehicleSchema, type Vehicle } from '../drive/vehicle';
 
 /**
  * The document version. 2: losses are objects that may name the flow they were measured at
@@ -40,6 +41,8 @@ const documentShape = z.strictObject({
   plans: z.array(studyPlanSchema.passthrough()).min(1, 'a study needs at least one plan').max(10, 'at most 10 plans'),
   /** The study's required margins and limits (checked by the engine's own schema); absent takes the defaults. */
   requirements: z.unknown().optional(),
+  /** The car the engine drives (checked below); absent: no drive figures. */
+  vehicle: z.unknown().optional(),
 });
 
 /** The engine's view of a document: plans without their ids and map references. */
@@ -85,6 +88,7 @@ export const studyDocumentSchema = documentShape
     });
     const input = studyInputSchema.safeParse(studyInputOf(doc));
     if (!input.success) for (const issue of input.error.issues) ctx.addIssue(issue as never);
+    if (doc.vehicle !== undefined) vehicleIssues(doc, ctx);
   })
   .transform((doc, ctx) => {
     // zod still runs a transform when the only issues are unrecognised keys: never throw here.
@@ -100,7 +104,13 @@ export const studyDocumentSchema = documentShape
       compressorMapId: p.compressorMapId,
       ...(p.turbineMapId !== undefined ? { turbineMapId: p.turbineMapId } : {}),
     }));
-    return { schemaVersion: doc.schemaVersion, engineLabel: doc.engineLabel, notes: doc.notes, ...input, plans } as StudyDocument;
+    let vehicle = {};
+    if (doc.vehicle !== undefined) {
+      const v = vehicleSchema.safeParse(doc.vehicle);
+      if (!v.success) return z.NEVER; // its issues were added above
+      vehicle = { vehicle: v.data };
+    }
+    return { schemaVersion: doc.schemaVersion, engineLabel: doc.engineLabel, notes: doc.notes, ...input, plans, ...vehicle } as StudyDocument;
   });
 
 export interface StudyDocument extends Omit<StudyInput, 'plans'> {
@@ -108,6 +118,28 @@ export interface StudyDocument extends Omit<StudyInput, 'plans'> {
   engineLabel: string;
   notes: string;
   plans: StudyPlan[];
+  /** The car the engine drives; absent: no drive figures. */
+  vehicle?: Vehicle;
+}
+
+/** The vehicle's own checks, and the scenario and plans it names, by their document paths (`vehicle.gearRatios.2`). */
+function vehicleIssues(doc: z.output<typeof documentShape>, ctx: z.RefinementCtx) {
+  const parsed = vehicleSchema.safeParse(doc.vehicle);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) ctx.addIssue({ ...issue, path: ['vehicle', ...issue.path] } as never);
+    return;
+  }
+  const v = parsed.data;
+  const scenarios = Array.isArray(doc.scenarios) ? (doc.scenarios as { name?: unknown }[]) : [];
+  if (v.scenario !== undefined && !scenarios.some((s) => s?.name === v.scenario))
+    ctx.addIssue({ code: 'custom', path: ['vehicle', 'scenario'], message: `no scenario is named "${v.scenario}"` });
+  const planIds = new Set(doc.plans.map((p) => p.id));
+  const seen = new Set<string>();
+  v.rotors?.forEach((r, i) => {
+    if (!planIds.has(r.planId)) ctx.addIssue({ code: 'custom', path: ['vehicle', 'rotors', i, 'planId'], message: `no plan has the id "${r.planId}"` });
+    if (seen.has(r.planId)) ctx.addIssue({ code: 'custom', path: ['vehicle', 'rotors', i, 'planId'], message: 'two rotors name this plan' });
+    seen.add(r.planId);
+  });
 }
 
 /** The engine input of a valid document. */
