@@ -26,6 +26,7 @@ export const DEMO_VEHICLES: Record<string, Vehicle> = {
     dragArea: 0.65,
     rollingResistance: 0.013,
     spool: { gear: 3, startRpm: 4500 },
+    launchRpm: 4500,
     runSpeed: 100 / 3.6,
     rotors: [
       { planId: 'plan-s44', wheelDiameter: 0.044 },
@@ -48,6 +49,7 @@ export const DEMO_VEHICLES: Record<string, Vehicle> = {
     dragArea: 0.62,
     rollingResistance: 0.013,
     spool: { gear: 3, startRpm: 4500 },
+    launchRpm: 4500,
     runSpeed: 100 / 3.6,
     rotors: [
       { planId: 'plan-single', wheelDiameter: 0.058 },

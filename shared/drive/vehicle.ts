@@ -84,6 +84,8 @@ export const vehicleSchema = z
         startRpm: rpm('spool start rpm'),
       })
       .optional(),
+    /** The acceleration run lets the clutch slip at this engine speed until the car catches up with it, rpm; absent: the study's lowest rpm. */
+    launchRpm: rpm('launch rpm').optional(),
     /** The acceleration run ends at this road speed, m/s. */
     runSpeed: positive('run speed', 'm/s (100 km/h = 27.8 m/s)', 150).optional(),
     /** Each plan's rotor, by plan id; a plan not listed takes its map's inertia or the default. */

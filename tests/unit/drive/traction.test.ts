@@ -69,7 +69,7 @@ describe('the traction limit with longitudinal load transfer', () => {
     expectClose(all, 16548.72, 1e-5, { what: 'all-wheel-drive limit' });
   });
 
-  it('says when the front lifts before a rear-drive car\'s tyres slip', () => {
+  it("says when the front lifts before a rear-drive car's tyres slip", () => {
     // μ·h/L = 2·0.6/1 ≥ 1: the rear gains load faster than it needs it; the front axle's load reaches 0
     // at F = s·W·L/h (moments about the rear contact, by hand: 0.5·14 709.975·1/0.6 = 12 258.31 N).
     const limit = tractionLimit(car({ drivenAxle: 'rear', drivenAxleWeightShare: 0.5, grip: 2, cgHeight: 0.6, wheelbase: 1 }), still);
