@@ -14,6 +14,7 @@ import { requireTeamPermission } from '../auth/access';
 import { requireUser } from '../auth/session';
 import { resultsFileName, sendCsv } from '../http/csv';
 import { parseOr400 } from '../http/errors';
+import { studyDriveCsv } from '../services/drive';
 import { createShareLink, keepShareLink, listShareLinks, revokeShareLink } from '../services/share-links';
 import { listRevisions, restoreRevision, revisionDetail } from '../services/study-revisions';
 import { createStudy, deleteStudy, duplicateStudy, listStudies, saveStudy, studyDetail, studyResultsCsv, updateStudyMeta } from '../services/studies';
@@ -103,6 +104,14 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const { csv, revision } = await studyResultsCsv(db, access.teamId, params(req).studyId);
     sendCsv(res, resultsFileName(revision), csv);
   });
+
+  for (const which of ['drive', 'spool'] as const)
+    router.get(`/:studyId/${which}.csv`, async (req, res) => {
+      const user = requireUser(res);
+      const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
+      const { csv, revision } = await studyDriveCsv(db, access.teamId, params(req).studyId, which);
+      sendCsv(res, `study-${which}-r${revision}.csv`, csv);
+    });
 
   router.get('/:studyId/share-links', async (req, res) => {
     const user = requireUser(res);
