@@ -160,6 +160,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
             {panelButton('history', 'History')}
             {study.canEdit && panelButton('share', 'Share')}
             <ButtonLink to={paths.teamStudyCompare.href(teamId, study.id)}>Side by side</ButtonLink>
+            <ButtonLink to={paths.teamStudyDrive.href(teamId, study.id)}>Drive</ButtonLink>
             <ButtonLink to={paths.teamStudyReport.href(teamId, study.id)}>Printable report</ButtonLink>
             <a
               href={resultsCsvHref(teamId, study.id)}
