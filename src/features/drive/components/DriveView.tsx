@@ -1,17 +1,15 @@
 import { useMemo, useState } from 'react';
 import type { DriveFigures } from '#shared/drive/figures';
-import { studyDriveWithMaps } from '#shared/drive/study-drive';
 import { withUsableBoostByGear } from '#shared/drive/write-boost';
 import type { SpoolbookMap } from '#shared/maps/types';
 import type { StudyDetail, StudyDocument } from '#shared/schemas/study';
-import { mapModelCache } from '#shared/study/run';
 import { Alert } from '#src/components/Alert';
 import { Button, buttonClass } from '#src/components/Button';
 import { Card } from '#src/components/Card';
 import { PlotFrame } from '#src/components/plots/PlotFrame';
 import { formatNumber } from '#src/components/plots/quantities';
 import { SelectField } from '#src/components/SelectField';
-import { runStudyLive } from '#src/components/study/run';
+import { runStudyLive, studyDriveLive } from '#src/components/study/run';
 import { StudyCaution } from '#src/components/study/StudyCaution';
 import { Table, td, th } from '#src/components/Table';
 import { useSaveStudy } from '#src/features/studies/api';
@@ -23,8 +21,6 @@ import { draftOf, vehicleOf, type VehicleDraft } from '../vehicle-draft';
 import { VehicleForm } from './VehicleForm';
 
 const PLOT_HEIGHT = 420;
-// The drive view keeps its own map models: built once per loaded map, reused on every keystroke.
-const cache = mapModelCache();
 
 const INERTIA_WORDS = {
   study: 'given in the study',
@@ -61,7 +57,7 @@ export function DriveView({
   const parsed = useMemo(() => vehicleOf(draft), [draft]);
   const live = useMemo(() => (parsed.ok ? { ...document, vehicle: parsed.vehicle } : null), [parsed, document]);
   const result = useMemo(() => (live ? runStudyLive(live, mapsById) : null), [live, mapsById]);
-  const drive = useMemo(() => (live && result ? studyDriveWithMaps(live, result, mapsById, cache) : null), [live, result, mapsById]);
+  const drive = useMemo(() => (live && result ? studyDriveLive(live, result, mapsById) : null), [live, result, mapsById]);
   const dirty = parsed.ok && JSON.stringify(parsed.vehicle) !== JSON.stringify(document.vehicle ?? null);
   const readOnly = !study.canEdit;
 
