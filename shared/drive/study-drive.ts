@@ -52,5 +52,9 @@ export function studyDriveWithMaps(
   return studyDrive(doc, result, {
     compressorModels: planCompressorModels(doc, mapsById, cache),
     turbineModels: planTurbineModels(doc, mapsById, cache),
+    mapInertias: doc.plans.map((p) => {
+      const map = p.compressorMapId ? mapsById[p.compressorMapId] : undefined;
+      return map?.kind === 'compressor' ? (map.rotorInertia ?? null) : null;
+    }),
   });
 }

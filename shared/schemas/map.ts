@@ -105,6 +105,7 @@ export const compressorMapSchema = z
     notes: z.array(z.string()),
     reference: mapReferenceSchema,
     maxSpeed: positive.nullable(),
+    rotorInertia: positive.max(0.01).optional(),
     curves: z.array(compressorCurveSchema).min(4),
     fileUnits: compressorFileUnitsSchema,
   })
