@@ -94,6 +94,25 @@ describe('the Drive view in the browser', () => {
       "Gear 3 (tyres' grip)",
       "Gear 4 (tyres' grip)",
     ]);
+    // The study page's verdicts name each plan's time to boost with the car (unknown here: the plans have no turbine).
+    await page.goto(`${base}/teams/${teamId}/studies/${study.id}`);
+    await expect.poll(() => page.getByTestId('verdict-time-to-boost').count(), POLL).toBe(3);
+    expect(await page.getByTestId('verdict-time-to-boost').first().textContent()).toMatch(/unknown \(the plan has no exhaust side/);
+
+    // The seeded turbine housing study has its rear-drive car: both housings get a time.
+    const list = (await (await page.request.get(`${base}/api/teams/${teamId}/studies?q=housing`)).json()) as { studies: { id: string }[] };
+    await page.goto(`${base}/teams/${teamId}/studies/${list.studies[0].id}`);
+    await expect
+      .poll(
+        () =>
+          page
+            .getByTestId('verdict-time-to-boost')
+            .filter({ hasText: /: \d[\d.]* s$/ })
+            .count(),
+        POLL,
+      )
+      .toBe(2);
+    await screenshot(page, 'drive-verdicts-time-to-boost');
     expect(errors).toEqual([]);
   });
 });

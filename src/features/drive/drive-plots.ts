@@ -58,36 +58,33 @@ export function wheelForceFigure(figures: DriveFigures, planIndex: number, syste
   return { data, layout: layoutOf(height, `Road speed (${speed.label})`, `Force at the wheels (${force.label})`) };
 }
 
+/** One line per plan against time, in the plan's colour. */
+function linesAgainstTime(plans: { planIndex: number; planName: string; points: { time: number; value: number }[] }[], unit: string): Data[] {
+  return plans.map((p) => ({
+    type: 'scatter',
+    mode: 'lines',
+    name: p.planName,
+    x: p.points.map((x) => x.time),
+    y: p.points.map((x) => x.value),
+    line: { color: planColour(p.planIndex), width: 2 },
+    hovertemplate: `${p.planName}<br>%{x:.2f} s<br>%{y:.1f} ${unit}<extra></extra>`,
+  }));
+}
+
 /** Boost against time from the spool start, one line per plan with an estimate. */
 export function spoolFigure(spools: PlanSpool[], system: UnitSystem, height: number): PlotFigure {
   const boost = boostUnit(system);
-  const data: Data[] = spools
+  const plans = spools
     .filter((s) => s.samples.length > 0)
-    .map((s) => ({
-      type: 'scatter',
-      mode: 'lines',
-      name: s.planName,
-      x: s.samples.map((x) => x.time),
-      y: s.samples.map((x) => boost.fromSI(x.boost)),
-      line: { color: planColour(s.planIndex), width: 2 },
-      hovertemplate: `${s.planName}<br>%{x:.2f} s<br>%{y:.1f} ${boost.label}<extra></extra>`,
-    }));
-  return { data, layout: layoutOf(height, 'Time from the start (s)', `Boost (${boost.label})`) };
+    .map((s) => ({ ...s, points: s.samples.map((x) => ({ time: x.time, value: boost.fromSI(x.boost) })) }));
+  return { data: linesAgainstTime(plans, boost.label), layout: layoutOf(height, 'Time from the start (s)', `Boost (${boost.label})`) };
 }
 
-/** Road speed against time through the gears, one line per plan that finishes or gets some way. */
+/** Road speed against time through the gears, one line per plan that gets some way. */
 export function runFigure(runs: PlanRun[], system: UnitSystem, height: number): PlotFigure {
   const speed = speedUnit(system);
-  const data: Data[] = runs
+  const plans = runs
     .filter((r) => r.samples.length > 1)
-    .map((r) => ({
-      type: 'scatter',
-      mode: 'lines',
-      name: r.planName,
-      x: r.samples.map((x) => x.time),
-      y: r.samples.map((x) => speed.fromSI(x.roadSpeed)),
-      line: { color: planColour(r.planIndex), width: 2 },
-      hovertemplate: `${r.planName}<br>%{x:.2f} s<br>%{y:.1f} ${speed.label}<extra></extra>`,
-    }));
-  return { data, layout: layoutOf(height, 'Time from rest (s)', `Road speed (${speed.label})`) };
+    .map((r) => ({ ...r, points: r.samples.map((x) => ({ time: x.time, value: speed.fromSI(x.roadSpeed) })) }));
+  return { data: linesAgainstTime(plans, speed.label), layout: layoutOf(height, 'Time from rest (s)', `Road speed (${speed.label})`) };
 }
