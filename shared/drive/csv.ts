@@ -2,7 +2,7 @@
 import { writeCsv } from '../csv';
 import type { StudyDrive } from './study-drive';
 
-export const DRIVE_CSV_COLUMNS = [
+const DRIVE_CSV_COLUMNS = [
   'Plan',
   'Gear',
   'Road speed (m/s)',
@@ -12,7 +12,7 @@ export const DRIVE_CSV_COLUMNS = [
   'Usable boost (Pa gauge)',
 ] as const;
 
-export const SPOOL_CSV_COLUMNS = ['Plan', 'Time (s)', 'Boost (Pa gauge)', 'Shaft speed (rpm)'] as const;
+const SPOOL_CSV_COLUMNS = ['Plan', 'Time (s)', 'Boost (Pa gauge)', 'Shaft speed (rpm)'] as const;
 
 /** One row per plan, gear and road speed; a point that gives no force leaves its force and usable boost empty. */
 export function driveCsv(drive: StudyDrive): string {

@@ -16,7 +16,7 @@ import { roadLoad, tractionLimit, type TractionLimit } from './traction';
 import type { Vehicle } from './vehicle';
 
 /** One engine speed in one gear. */
-export interface DrivePoint {
+interface DrivePoint {
   /** Engine speed, rpm. */
   rpm: number;
   /** Road speed, m/s. */
@@ -99,7 +99,7 @@ export function wheelForceOf(torque: number, overallRatio: number, drivetrainLos
 }
 
 /** Why a point gives no torque, in words; null when it gives one. */
-export function noTorqueWhy(p: OperatingPoint): string | null {
+function noTorqueWhy(p: OperatingPoint): string | null {
   if (!p.solved) return `not solved: ${p.findings[0]?.message ?? 'no physical state'}`;
   const v = p.values;
   if (v.reachable === false)

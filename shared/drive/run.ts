@@ -10,9 +10,9 @@ import { roadLoad, tractionLimit } from './traction';
 import { VEHICLE_DEFAULTS } from './vehicle';
 
 /** What limits the car at a moment. */
-export type RunLimit = 'traction' | 'boost' | 'engine' | 'shift';
+type RunLimit = 'traction' | 'boost' | 'engine' | 'shift';
 
-export interface RunPhase {
+interface RunPhase {
   gear: number;
   limitedBy: RunLimit;
   /** s */

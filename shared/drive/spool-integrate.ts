@@ -57,7 +57,7 @@ export interface SpoolSettings {
 }
 
 /** Share of the target that counts as "on boost". */
-export const ON_BOOST_SHARE = 0.9;
+const ON_BOOST_SHARE = 0.9;
 const RAD_PER_S_TO_RPM = 60 / (2 * Math.PI);
 const fmtKpa = (pa: number) => `${(pa / 1000).toFixed(0)} kPa`;
 

@@ -27,7 +27,7 @@ import { roadLoad, tractionLimit } from './traction';
 import type { Vehicle } from './vehicle';
 
 /** Compressor wheel exducer diameter assumed when neither the study nor the map says, m (common practice, no source). */
-export const DEFAULT_WHEEL_DIAMETER = 0.055;
+const DEFAULT_WHEEL_DIAMETER = 0.055;
 
 /**
  * Rotor inertia from the compressor wheel's size, kg·m²: 3·10⁻⁵ kg·m² at a 55 mm wheel, scaling
@@ -39,7 +39,7 @@ export function rotorInertiaFromWheel(wheelDiameter: number): number {
   return 3e-5 * Math.pow(wheelDiameter / DEFAULT_WHEEL_DIAMETER, 5);
 }
 
-export type InertiaSource = 'study' | 'map' | 'wheel-size' | 'default-wheel';
+type InertiaSource = 'study' | 'map' | 'wheel-size' | 'default-wheel';
 
 export interface PlanSpool {
   planIndex: number;
@@ -64,7 +64,7 @@ export interface SpoolInputs {
 }
 
 /** The spool settings a vehicle gives, with defaults: second gear (first when there is one), from the study's lowest rpm. */
-export function spoolSettingsOf(doc: StudyDocument, vehicle: Vehicle): { gear: number; startRpm: number } {
+function spoolSettingsOf(doc: StudyDocument, vehicle: Vehicle): { gear: number; startRpm: number } {
   if (vehicle.spool) return vehicle.spool;
   const rpm = doc.engine.rpm;
   const lowest = rpm.kind === 'list' ? rpm.values[0] : rpm.min;

@@ -34,7 +34,7 @@ export interface TractionLimit {
 }
 
 /** The share of drive torque on the front axle and the static share of weight on it. */
-export function axleShares(vehicle: Pick<Vehicle, 'drivenAxle' | 'frontTorqueShare' | 'drivenAxleWeightShare'>): { frontTorque: number; frontWeight: number } {
+function axleShares(vehicle: Pick<Vehicle, 'drivenAxle' | 'frontTorqueShare' | 'drivenAxleWeightShare'>): { frontTorque: number; frontWeight: number } {
   if (vehicle.drivenAxle === 'front') return { frontTorque: 1, frontWeight: vehicle.drivenAxleWeightShare };
   if (vehicle.drivenAxle === 'rear') return { frontTorque: 0, frontWeight: 1 - vehicle.drivenAxleWeightShare };
   return { frontTorque: vehicle.frontTorqueShare ?? 0.5, frontWeight: vehicle.drivenAxleWeightShare };

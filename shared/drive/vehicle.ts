@@ -30,7 +30,6 @@ const rotorSchema = z.strictObject({
   /** Compressor wheel exducer diameter, m: estimates the inertia when none is given (here or in the map). */
   wheelDiameter: positive('wheel diameter', 'm (60 mm = 0.06 m)', 0.3, 0.01).optional(),
 });
-export type RotorInput = z.output<typeof rotorSchema>;
 
 export const vehicleSchema = z
   .strictObject({
