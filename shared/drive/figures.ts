@@ -56,6 +56,8 @@ export interface DriveFigures {
   vehicle: Vehicle;
   scenarioIndex: number;
   scenarioName: string;
+  /** The car names a scenario the study no longer has (renamed or deleted): the first one is used. */
+  scenarioMissing: boolean;
   /** Drivetrain loss used, fraction of brake torque. */
   drivetrainLoss: number;
   /** Density of the ambient air for drag, kg/m³. */
@@ -167,5 +169,6 @@ export function driveFigures(doc: StudyDocument, result: StudyResult): DriveFigu
       });
     });
   });
-  return { vehicle, scenarioIndex, scenarioName: scenario.name, drivetrainLoss, airDensity, gears };
+  const scenarioMissing = vehicle.scenario !== undefined && scenario.name !== vehicle.scenario;
+  return { vehicle, scenarioIndex, scenarioName: scenario.name, scenarioMissing, drivetrainLoss, airDensity, gears };
 }

@@ -74,7 +74,7 @@ export const vehicleSchema = z
     dragArea: num('drag area').min(0, 'drag area must be 0 m² or more').max(5, 'drag area Cd·A is in m², at most 5 m²'),
     /** Rolling resistance coefficient, dimensionless. */
     rollingResistance: num('rolling resistance').min(0, 'rolling resistance must be 0 or more').max(0.1, 'rolling resistance is a coefficient, at most 0.1'),
-    /** The scenario whose ambient and boost rows the drive figures use; absent: the first scenario. */
+    /** The scenario whose ambient and boost rows the drive figures use; absent, or no longer in the study: the first scenario. */
     scenario: name('scenario').optional(),
     /** The time-to-boost estimate: the gear held and the engine speed it starts from. */
     spool: z
@@ -87,7 +87,7 @@ export const vehicleSchema = z
     launchRpm: rpm('launch rpm').optional(),
     /** The acceleration run ends at this road speed, m/s. */
     runSpeed: positive('run speed', 'm/s (100 km/h = 27.8 m/s)', 150).optional(),
-    /** Each plan's rotor, by plan id; a plan not listed takes its map's inertia or the default. */
+    /** Each plan's rotor, by plan id; a plan not listed takes its map's inertia or the default (a rotor of a plan no longer in the study is not used). */
     rotors: z.array(rotorSchema).max(10, 'at most 10 rotors').optional(),
   })
   .superRefine((v, ctx) => {

@@ -122,21 +122,20 @@ export interface StudyDocument extends Omit<StudyInput, 'plans'> {
   vehicle?: Vehicle;
 }
 
-/** The vehicle's own checks, and the scenario and plans it names, by their document paths (`vehicle.gearRatios.2`). */
+/**
+ * The vehicle's own checks by their document paths (`vehicle.gearRatios.2`). The scenario and plans
+ * it names are not held against the rest of the document: renaming a scenario or deleting a plan in
+ * the study must never block its saving. A scenario that has gone gives way to the first (the Drive
+ * view says so) and a rotor of a plan that has gone is not used.
+ */
 function vehicleIssues(doc: z.output<typeof documentShape>, ctx: z.RefinementCtx) {
   const parsed = vehicleSchema.safeParse(doc.vehicle);
   if (!parsed.success) {
     for (const issue of parsed.error.issues) ctx.addIssue({ ...issue, path: ['vehicle', ...issue.path] } as never);
     return;
   }
-  const v = parsed.data;
-  const scenarios = Array.isArray(doc.scenarios) ? (doc.scenarios as { name?: unknown }[]) : [];
-  if (v.scenario !== undefined && !scenarios.some((s) => s?.name === v.scenario))
-    ctx.addIssue({ code: 'custom', path: ['vehicle', 'scenario'], message: `no scenario is named "${v.scenario}"` });
-  const planIds = new Set(doc.plans.map((p) => p.id));
   const seen = new Set<string>();
-  v.rotors?.forEach((r, i) => {
-    if (!planIds.has(r.planId)) ctx.addIssue({ code: 'custom', path: ['vehicle', 'rotors', i, 'planId'], message: `no plan has the id "${r.planId}"` });
+  parsed.data.rotors?.forEach((r, i) => {
     if (seen.has(r.planId)) ctx.addIssue({ code: 'custom', path: ['vehicle', 'rotors', i, 'planId'], message: 'two rotors name this plan' });
     seen.add(r.planId);
   });

@@ -77,7 +77,8 @@ export function draftOf(vehicle: Vehicle | undefined, doc: StudyDocument): Vehic
     shiftTime: text(v.shiftTime),
     dragArea: text(v.dragArea),
     rollingResistance: text(v.rollingResistance),
-    scenario: v.scenario ?? '',
+    // A scenario the study no longer has shows as the first one (the figures use it too).
+    scenario: v.scenario !== undefined && doc.scenarios.some((s) => s.name === v.scenario) ? v.scenario : '',
     spoolGear: text(v.spool?.gear),
     spoolStartRpm: text(v.spool?.startRpm),
     launchRpm: text(v.launchRpm),

@@ -50,6 +50,7 @@ const figures = (gears: DriveGear[], change: Partial<Vehicle> = {}): DriveFigure
   vehicle: { ...vehicle, ...change },
   scenarioIndex: 0,
   scenarioName: 'Sea level',
+  scenarioMissing: false,
   drivetrainLoss: 0,
   airDensity: 1.2,
   gears,

@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { demoStudyDocument } from '#server/services/study-documents';
 import { DEMO_VEHICLES } from '#server/services/demo-drive';
+import { driveFigures } from '#shared/drive/figures';
 import { readStudyDocument } from '#shared/study/document';
+import { computed } from './helpers';
 
 const withVehicle = (change: Record<string, unknown>) => {
   const vehicle = { ...Object.values(DEMO_VEHICLES)[0], ...change };
@@ -35,11 +37,16 @@ describe('the vehicle in a study document', () => {
     expect(firstIssue({ wheels: 4 }).path).toBe('vehicle');
   });
 
-  it('names only scenarios and plans the study has', () => {
-    expect(firstIssue({ scenario: 'Monza' })).toEqual({ path: 'vehicle.scenario', message: 'no scenario is named "Monza"' });
-    expect(firstIssue({ rotors: [{ planId: 'plan-x', rotorInertia: 3e-5 }] })).toEqual({
-      path: 'vehicle.rotors.0.planId',
-      message: 'no plan has the id "plan-x"',
+  it('never blocks the study when a scenario it names is renamed or a plan it names is deleted', () => {
+    const read = withVehicle({ scenario: 'Monza', rotors: [{ planId: 'plan-gone', rotorInertia: 3e-5 }] });
+    expect(read.ok).toBe(true);
+    if (!read.ok) return;
+    const figures = driveFigures(read.document, computed(read.document).result)!;
+    expect(figures.scenarioIndex).toBe(0);
+    expect(figures.scenarioMissing).toBe(true);
+    expect(firstIssue({ rotors: [{ planId: 'plan-s44' }, { planId: 'plan-s44' }] })).toEqual({
+      path: 'vehicle.rotors.1.planId',
+      message: 'two rotors name this plan',
     });
   });
 });

@@ -118,8 +118,10 @@ export function DriveView({
                 options={document.plans.map((p, i) => ({ value: String(i), label: p.name }))}
               />
               <p className="max-w-prose text-sm text-ink-soft">
-                Scenario “{drive.figures.scenarioName}”. Each gear runs on its boost row; where the compressor cannot give a point, the line leaves a gap. The
-                limit counts the load moving off the front and onto the rear axle as the car accelerates (Gillespie 1992, ch. 2), on a level road.
+                Scenario “{drive.figures.scenarioName}”
+                {drive.figures.scenarioMissing ? ` (the car's scenario “${drive.figures.vehicle.scenario}” is no longer in the study)` : ''}. Each gear runs on
+                its boost row; where the compressor cannot give a point, the line leaves a gap. The limit counts the load moving off the front and onto the rear
+                axle as the car accelerates (Gillespie 1992, ch. 2), on a level road.
               </p>
             </div>
             <PlotFrame figure={wheelForceFigure(drive.figures, planIndex, system, PLOT_HEIGHT)} height={PLOT_HEIGHT} label="Force at the wheels" />
