@@ -80,6 +80,7 @@ export const routes = [
               { path: paths.teamTracer.path, lazy: () => import('./routes/tracer').then((m) => ({ Component: m.TracerRoute })) },
               { path: paths.teamTracerDraft.path, lazy: () => import('./routes/tracer-draft').then((m) => ({ Component: m.TracerDraftRoute })) },
               { path: paths.learn.path, lazy: () => import('./routes/learn').then((m) => ({ Component: m.LearnRoute })) },
+              { path: paths.teamStudyDrive.path, lazy: () => import('./routes/drive').then((m) => ({ Component: m.DriveRoute })) },
               { path: paths.teamStudyCompare.path, lazy: () => import('./routes/compare').then((m) => ({ Component: m.CompareRoute })) },
               { path: paths.teamStudyLogs.path, lazy: () => import('./routes/study-logs').then((m) => ({ Component: m.StudyLogsRoute })) },
               { path: paths.teamStudyCandidates.path, lazy: () => import('./routes/candidates').then((m) => ({ Component: m.CandidatesRoute })) },

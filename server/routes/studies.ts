@@ -16,6 +16,7 @@ import { requireUser } from '../auth/session';
 import { resultsFileName, sendCsv, sendXlsx } from '../http/csv';
 import { parseOr400 } from '../http/errors';
 import { copyStudyToTeam } from '../services/study-copies';
+import { studyDriveCsv } from '../services/drive';
 import { createShareLink, keepShareLink, listShareLinks, revokeShareLink } from '../services/share-links';
 import { listRevisions, restoreRevision, revisionDetail } from '../services/study-revisions';
 import {
@@ -132,6 +133,13 @@ export function studiesRouter({ db, config }: AppDeps): Router {
     const { workbook, revision } = await studyResultsWorkbook(db, access.teamId, params(req).studyId);
     sendXlsx(res, resultsFileName(revision).replace(/\.csv$/, '.xlsx'), workbook);
   });
+  for (const which of ['drive', 'spool'] as const)
+    router.get(`/:studyId/${which}.csv`, async (req, res) => {
+      const user = requireUser(res);
+      const access = await requireTeamPermission(db, user, params(req).teamId, 'content:read');
+      const { csv, revision } = await studyDriveCsv(db, access.teamId, params(req).studyId, which);
+      sendCsv(res, `study-${which}-r${revision}.csv`, csv);
+    });
 
   router.get('/:studyId/share-links', async (req, res) => {
     const user = requireUser(res);

@@ -4,6 +4,7 @@ import type { Db } from '../db/client';
 import { studies, teamMembers, teams } from '../db/schema';
 import { createAccount, findUserByEmail } from './accounts';
 import { seedDemoLog } from './demo-logs';
+import { addDemoVehicles } from './demo-drive';
 import { insertStudy } from './studies';
 import { DEMO_STUDY_FILES, demoStudyDocument } from './study-documents';
 
@@ -60,5 +61,6 @@ export async function seedDemo(db: Db) {
     await insertStudy(db, { teamId: team.id, userId: demoId, title: demo.title, document, message: 'Demo study' });
   }
   await seedDemoLog(db, team.id, demoId, DEMO_STUDY_TITLE);
+  await addDemoVehicles(db, team.id, DEMO_STUDIES, demoId);
   return { demoTeamId: team.id };
 }

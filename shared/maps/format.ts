@@ -62,6 +62,7 @@ export const HEADER_KEYS = {
   referenceTemperature: 'reference temperature',
   referencePressure: 'reference pressure',
   maxSpeed: 'max speed',
+  rotorInertia: 'rotor inertia',
   flowParameter: 'flow parameter',
   housing: 'housing',
   scrollFeed: 'scroll feed',
@@ -81,7 +82,7 @@ export const COMPRESSOR_REQUIRED_KEYS = [
 ] as const;
 
 /** Keys a compressor file may carry besides the required ones (`note` may repeat). */
-export const COMPRESSOR_OPTIONAL_KEYS = [HEADER_KEYS.maxSpeed, HEADER_KEYS.speed, HEADER_KEYS.note] as const;
+export const COMPRESSOR_OPTIONAL_KEYS = [HEADER_KEYS.maxSpeed, HEADER_KEYS.rotorInertia, HEADER_KEYS.speed, HEADER_KEYS.note] as const;
 
 /** Keys a turbine file must carry (`scroll feed` too when the housing is divided). */
 export const TURBINE_REQUIRED_KEYS = [
@@ -138,4 +139,5 @@ export const UNIT_EXAMPLES = {
   pressure: ['Pa', 'kPa', 'bar', 'psi', 'inHg'],
   speed: ['rpm', 'krpm'],
   flowParameter: ['kg/s K^0.5 / kPa', 'kg/s K^0.5 / Pa', 'lb/min degR^0.5 / psi'],
+  inertia: ['kg m^2', 'g cm^2', 'lb in^2'],
 } as const;

@@ -110,6 +110,20 @@ function readMaxSpeed(section: HeaderSection, problems: ProblemList): Quantity |
   return quantity;
 }
 
+/** Most rotor inertia a file may give, kg·m² (far beyond any turbocharger's). */
+const MAX_ROTOR_INERTIA = 0.01;
+
+function readRotorInertia(section: HeaderSection, problems: ProblemList): Quantity | null {
+  const entry = section.entries.get(HEADER_KEYS.rotorInertia);
+  if (!entry) return null;
+  const quantity = readQuantity(entry, 'inertia', '3.2e-5 kg m^2', problems);
+  if (quantity && !(quantity.si > 0 && quantity.si <= MAX_ROTOR_INERTIA)) {
+    problems.add('out-of-range', entry.line, null, `rotor inertia ${entry.value} must be above 0 and at most ${MAX_ROTOR_INERTIA} kg m^2`);
+    return null;
+  }
+  return quantity;
+}
+
 function checkRow(row: DataRow, common: CommonHeader, problems: ProblemList): void {
   const [flow, pressureRatio, efficiency, speed] = row.values;
   if (flow === null) problems.add('missing-value', row.line, 3, 'flow is empty; every row needs a flow');
@@ -144,6 +158,7 @@ export function readCompressor(
   const flow = readFlowHeader(section, problems);
   const reference = readReference(section, problems);
   const maxSpeed = readMaxSpeed(section, problems);
+  const rotorInertia = readRotorInertia(section, problems);
 
   const scaleLine = section.entries.get(HEADER_KEYS.efficiency)?.line ?? null;
   const wrongScale = checkEfficiencyScale(rows, common.efficiency, scaleLine, problems);
@@ -216,6 +231,7 @@ export function readCompressor(
     notes: common.notes,
     reference: referenceSI,
     maxSpeed: maxSpeed?.si ?? null,
+    ...(rotorInertia ? { rotorInertia: rotorInertia.si } : {}),
     curves,
     fileUnits: {
       flowAxis: flow.axis,

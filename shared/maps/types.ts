@@ -63,6 +63,8 @@ export interface CompressorMap {
   reference: MapReferenceConditions;
   /** The wheel's rated speed limit, rpm; null when the file gives none. */
   maxSpeed: number | null;
+  /** Polar moment of inertia of the whole rotor, kg·m², when the file gives it (time to boost reads it). */
+  rotorInertia?: number;
   curves: CompressorCurve[];
   fileUnits: CompressorFileUnits;
   /** Set on a map made from another by a family rule (shared/maps/family): an estimate, not a measurement. Not part of the file. */

@@ -2,10 +2,12 @@ import { math, toSI, fromSI } from '../units';
 import { UNIT_EXAMPLES } from './format';
 
 /** The kinds of quantity a map file names units for. */
-export type MapQuantity = 'massFlow' | 'volumeFlow' | 'temperature' | 'pressure' | 'speed' | 'flowParameter';
+export type MapQuantity = 'massFlow' | 'volumeFlow' | 'temperature' | 'pressure' | 'speed' | 'flowParameter' | 'inertia';
 
 /** SI unit of the flow parameter ṁ·√T/p inside shared/. */
 export const FLOW_PARAMETER_SI_UNIT = 'kg K^0.5 / (s Pa)';
+/** SI unit of a rotor's polar moment of inertia. */
+const INERTIA_SI_UNIT = 'kg m^2';
 
 const QUANTITY_WORDS: Record<MapQuantity, string> = {
   massFlow: 'mass flow',
@@ -14,6 +16,7 @@ const QUANTITY_WORDS: Record<MapQuantity, string> = {
   pressure: 'pressure',
   speed: 'shaft speed',
   flowParameter: 'flow parameter (mass flow · √temperature / pressure)',
+  inertia: 'moment of inertia (mass · length²)',
 };
 
 const EXAMPLES: Record<MapQuantity, readonly string[]> = {
@@ -23,6 +26,7 @@ const EXAMPLES: Record<MapQuantity, readonly string[]> = {
   pressure: UNIT_EXAMPLES.pressure,
   speed: UNIT_EXAMPLES.speed,
   flowParameter: UNIT_EXAMPLES.flowParameter,
+  inertia: UNIT_EXAMPLES.inertia,
 };
 
 export function quantityWords(kind: MapQuantity): string {
@@ -79,14 +83,14 @@ export function readUnit(text: string, kind: MapQuantity): UnitReading {
     return fail('unknown-unit', text, kind);
   }
   try {
-    unit.toNumber(kind === 'flowParameter' ? FLOW_PARAMETER_SI_UNIT : siTarget(kind));
+    unit.toNumber(kind === 'flowParameter' ? FLOW_PARAMETER_SI_UNIT : kind === 'inertia' ? INERTIA_SI_UNIT : siTarget(kind));
   } catch {
     return fail('wrong-unit-kind', text, kind);
   }
   return { ok: true, unit: text.trim() };
 }
 
-function siTarget(kind: Exclude<MapQuantity, 'flowParameter'>): string {
+function siTarget(kind: Exclude<MapQuantity, 'flowParameter' | 'inertia'>): string {
   return { massFlow: 'kg/s', volumeFlow: 'm^3/s', temperature: 'K', pressure: 'Pa', speed: 'rpm' }[kind];
 }
 
@@ -100,6 +104,7 @@ function requireMathText(unitText: string): string {
 export function mapValueToSI(value: number, unitText: string, kind: MapQuantity): number {
   const mathText = requireMathText(unitText);
   if (kind === 'flowParameter') return math.unit(value, mathText).toNumber(FLOW_PARAMETER_SI_UNIT);
+  if (kind === 'inertia') return math.unit(value, mathText).toNumber(INERTIA_SI_UNIT);
   return toSI(value, mathText, kind);
 }
 
@@ -107,6 +112,7 @@ export function mapValueToSI(value: number, unitText: string, kind: MapQuantity)
 export function mapValueFromSI(value: number, unitText: string, kind: MapQuantity): number {
   const mathText = requireMathText(unitText);
   if (kind === 'flowParameter') return math.unit(value, FLOW_PARAMETER_SI_UNIT).toNumber(mathText);
+  if (kind === 'inertia') return math.unit(value, INERTIA_SI_UNIT).toNumber(mathText);
   return fromSI(value, mathText, kind);
 }
 

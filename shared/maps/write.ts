@@ -66,6 +66,8 @@ function writeCompressor(map: CompressorMap): string {
     [HEADER_KEYS.efficiency, units.efficiency],
   ];
   if (map.maxSpeed !== null) entries.push([HEADER_KEYS.maxSpeed, quantityText(map.maxSpeed, units.maxSpeedUnit, 'speed')]);
+  // Written in SI: the file's own unit for it is not kept (it reads back to the same value).
+  if (map.rotorInertia !== undefined) entries.push([HEADER_KEYS.rotorInertia, `${map.rotorInertia} kg m^2`]);
   entries.push([HEADER_KEYS.speed, units.speedUnit]);
 
   const flowFactor = compressorFlowScale(units, map.reference);

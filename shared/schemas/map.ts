@@ -105,6 +105,7 @@ export const compressorMapSchema = z
     notes: z.array(z.string()),
     reference: mapReferenceSchema,
     maxSpeed: positive.nullable(),
+    rotorInertia: positive.max(0.01).optional(),
     curves: z.array(compressorCurveSchema).min(4),
     fileUnits: compressorFileUnitsSchema,
     estimate: z.strictObject({ parentId: z.string().min(1).max(80), parentName: z.string().max(MAX_MAP_NAME_LENGTH), rule: z.string().max(500) }).optional(),

@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { planSchema } from '../matching/input/plan';
 import { studyInputSchema, type StudyInput } from '../matching/input/study';
 import { fillItemIds } from './item-ids';
+import { vehicleSchema, type Vehicle } from '../drive/vehicle';
 
 /**
  * The document version. 2: losses are objects that may name the flow they were measured at
@@ -41,6 +42,8 @@ const documentShape = z.strictObject({
   plans: z.array(studyPlanSchema.passthrough()).min(1, 'a study needs at least one plan').max(10, 'at most 10 plans'),
   /** The study's required margins and limits (checked by the engine's own schema); absent takes the defaults. */
   requirements: z.unknown().optional(),
+  /** The car the engine drives (checked below); absent: no drive figures. */
+  vehicle: z.unknown().optional(),
 });
 
 /** The engine's view of a document: plans without their ids and map references. */
@@ -86,6 +89,7 @@ export const studyDocumentSchema = documentShape
     });
     const input = studyInputSchema.safeParse(studyInputOf(doc));
     if (!input.success) for (const issue of input.error.issues) ctx.addIssue(issue as never);
+    if (doc.vehicle !== undefined) vehicleIssues(doc, ctx);
   })
   .transform((doc, ctx) => {
     // zod still runs a transform when the only issues are unrecognised keys: never throw here.
@@ -101,7 +105,13 @@ export const studyDocumentSchema = documentShape
       compressorMapId: p.compressorMapId,
       ...(p.turbineMapId !== undefined ? { turbineMapId: p.turbineMapId } : {}),
     }));
-    return { schemaVersion: doc.schemaVersion, engineLabel: doc.engineLabel, notes: doc.notes, ...input, plans } as StudyDocument;
+    let vehicle = {};
+    if (doc.vehicle !== undefined) {
+      const v = vehicleSchema.safeParse(doc.vehicle);
+      if (!v.success) return z.NEVER; // its issues were added above
+      vehicle = { vehicle: v.data };
+    }
+    return { schemaVersion: doc.schemaVersion, engineLabel: doc.engineLabel, notes: doc.notes, ...input, plans, ...vehicle } as StudyDocument;
   });
 
 export interface StudyDocument extends Omit<StudyInput, 'plans'> {
@@ -109,6 +119,27 @@ export interface StudyDocument extends Omit<StudyInput, 'plans'> {
   engineLabel: string;
   notes: string;
   plans: StudyPlan[];
+  /** The car the engine drives; absent: no drive figures. */
+  vehicle?: Vehicle;
+}
+
+/**
+ * The vehicle's own checks by their document paths (`vehicle.gearRatios.2`). The scenario and plans
+ * it names are not held against the rest of the document: renaming a scenario or deleting a plan in
+ * the study must never block its saving. A scenario that has gone gives way to the first (the Drive
+ * view says so) and a rotor of a plan that has gone is not used.
+ */
+function vehicleIssues(doc: z.output<typeof documentShape>, ctx: z.RefinementCtx) {
+  const parsed = vehicleSchema.safeParse(doc.vehicle);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) ctx.addIssue({ ...issue, path: ['vehicle', ...issue.path] } as never);
+    return;
+  }
+  const seen = new Set<string>();
+  parsed.data.rotors?.forEach((r, i) => {
+    if (seen.has(r.planId)) ctx.addIssue({ code: 'custom', path: ['vehicle', 'rotors', i, 'planId'], message: 'two rotors name this plan' });
+    seen.add(r.planId);
+  });
 }
 
 /** The engine input of a valid document. */

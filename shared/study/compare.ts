@@ -35,6 +35,9 @@ export type CompareRowKey =
   | 'wastegateDiameterNeeded'
   | 'wastegateDiameterFitted'
   | 'turbineInletPressureAtPeakPower'
+  | 'timeToBoost'
+  | 'runTime'
+  | 'runDistance'
   | 'pointsAtLimit'
   | 'pointsWithWarnings'
   | 'pointsWithNotes';
@@ -59,7 +62,7 @@ export interface CompareCell {
   excluded?: boolean;
 }
 
-export type CompareCellNote = 'not-reached' | 'no-exhaust' | 'no-boost-asked';
+export type CompareCellNote = 'not-reached' | 'no-exhaust' | 'no-boost-asked' | 'unknown';
 
 export interface CompareRow {
   key: CompareRowKey;
@@ -83,7 +86,29 @@ export type ComparableLine = Pick<OperatingLine, 'points'> & {
   exhaust?: ExhaustLineSummary | null;
   /** The verdict of the line's plan (planVerdicts); absent: not judged here, and nothing is excluded for it. */
   planVerdict?: VerdictStatus | null;
+  /** The drive figures of the line's plan (the study's vehicle); absent or null: the study has no vehicle. */
+  drive?: PlanDriveFigures | null;
 };
+
+/** A plan's drive figures as Side by side reads them (shared/drive), SI; null where unknown, `why` saying so. */
+export interface PlanDriveFigures {
+  /** Time to 90 % of the boost target from the spool start, s. */
+  timeToBoost: number | null;
+  timeToBoostWhy: string | null;
+  /** Time and distance of the acceleration run, s and m. */
+  runTime: number | null;
+  runDistance: number | null;
+  runWhy: string | null;
+}
+
+const driveRows: { key: CompareRowKey; label: string; bestMeaning: string; value: (d: PlanDriveFigures) => number | null }[] = [
+  { key: 'timeToBoost', label: 'Time to 90 % boost', bestMeaning: 'lowest: boost arrives sooner', value: (d) => d.timeToBoost },
+  { key: 'runTime', label: 'Acceleration run time', bestMeaning: 'lowest: the car gets to the end speed sooner', value: (d) => d.runTime },
+  { key: 'runDistance', label: 'Acceleration run distance', bestMeaning: 'lowest: the car gets to the end speed in less road', value: (d) => d.runDistance },
+];
+
+/** The drive rows, in order; compareLines adds them before the counts when some line has drive figures. */
+export const DRIVE_ROW_KEYS: readonly CompareRowKey[] = driveRows.map((r) => r.key);
 
 type Extreme = 'min' | 'max';
 
@@ -434,6 +459,26 @@ export function compareLines(lines: readonly ComparableLine[]): CompareRow[] {
     }
     if (spec.key === 'peakPressureRatio' && lines.some((l) => l.exhaust)) {
       for (const x of exhaustRows) rows.push(exhaustRow(x, lines));
+    }
+  }
+  if (lines.some((l) => l.drive)) {
+    for (const spec of driveRows) {
+      const cells = excludeUnfit(
+        lines.map((line): CompareCell => {
+          const value = line.drive ? spec.value(line.drive) : null;
+          return value !== null ? { value, rpm: null } : { value: null, rpm: null, note: 'unknown' };
+        }),
+        lines,
+      );
+      rows.push({
+        key: spec.key,
+        label: spec.label,
+        kind: 'none',
+        best: 'lowest',
+        bestMeaning: spec.bestMeaning,
+        cells,
+        bestIndices: bestIndicesOf(cells, 'lowest'),
+      });
     }
   }
   for (const spec of severityRows) {

@@ -47,6 +47,10 @@ export const paths = {
   /** A team's study list. */
   teamStudies: { path: '/teams/:teamId/studies', href: (teamId: string) => `/teams/${encodeURIComponent(teamId)}/studies` },
   /** Side by side: plans and scenarios of one study on one map and in one table. */
+  teamStudyDrive: {
+    path: '/teams/:teamId/studies/:studyId/drive',
+    href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/drive`,
+  },
   teamStudyCompare: {
     path: '/teams/:teamId/studies/:studyId/compare',
     href: (teamId: string, studyId: string) => `/teams/${encodeURIComponent(teamId)}/studies/${encodeURIComponent(studyId)}/compare`,

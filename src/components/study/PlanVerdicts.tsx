@@ -1,6 +1,7 @@
 import { useMemo } from 'react';
 import { REQUIREMENT_DEFAULTS, type Requirements } from '#shared/matching/input/requirements';
 import { planVerdicts, reasonWhere, VERDICT_WORDS, type PlanVerdict, type VerdictReason, type VerdictStatus } from '#shared/matching/verdict';
+import type { PlanDriveFigures } from '#shared/study/compare';
 import { sameRpm, type PointRef, type StudyLine } from './lines';
 import { PlanSwatch } from './PlanSwatch';
 import { formatNumber } from '#src/lib/quantities';
@@ -82,16 +83,32 @@ function ReasonButton({ reason, onSelect, selected }: { reason: VerdictReason; o
   );
 }
 
+/** The time-to-boost line of a plan whose study has a car: the figure, or why there is none. */
+function TimeToBoost({ drive }: { drive: PlanDriveFigures }) {
+  return (
+    <p className="mt-0.5 text-xs text-ink-soft @3xl:pl-[calc(10rem+0.75rem)]" data-testid="verdict-time-to-boost">
+      Time to 90 % boost with the study&apos;s car:{' '}
+      {drive.timeToBoost !== null ? (
+        <span className="numeric font-semibold text-ink">{formatNumber(drive.timeToBoost, 3)} s</span>
+      ) : (
+        `unknown (${drive.timeToBoostWhy})`
+      )}
+    </p>
+  );
+}
+
 function PlanVerdictRow({
   verdict,
   lines,
   selected,
   onSelect,
+  drive,
 }: {
   verdict: PlanVerdict;
   lines: readonly StudyLine[];
   selected: PointRef | null;
   onSelect?: (point: PointRef) => void;
+  drive?: PlanDriveFigures;
 }) {
   const [first, ...more] = verdict.reasons;
   const point = (r: VerdictReason) => reasonPoint(lines, verdict.planIndex, r);
@@ -154,6 +171,7 @@ function PlanVerdictRow({
           and {more.length} more {more.length === 1 ? 'reason' : 'reasons'}, every one among the findings
         </p>
       )}
+      {drive && <TimeToBoost drive={drive} />}
     </li>
   );
 }
@@ -179,10 +197,13 @@ export function PlanVerdicts({
   lines,
   selected = null,
   onSelect,
+  drive,
 }: {
   lines: readonly StudyLine[];
   selected?: PointRef | null;
   onSelect?: (point: PointRef) => void;
+  /** Each plan's drive figures by plan index, when the study has a car: the time to boost joins its verdict. */
+  drive?: readonly PlanDriveFigures[] | null;
 }) {
   const verdicts = useMemo(() => verdictsOfLines(lines), [lines]);
   if (verdicts.length === 0) return null;
@@ -197,7 +218,7 @@ export function PlanVerdicts({
       </div>
       <ul className="space-y-1.5">
         {verdicts.map((v) => (
-          <PlanVerdictRow key={v.planIndex} verdict={v} lines={lines} selected={selected} onSelect={onSelect} />
+          <PlanVerdictRow key={v.planIndex} verdict={v} lines={lines} selected={selected} onSelect={onSelect} drive={drive?.[v.planIndex]} />
         ))}
       </ul>
     </section>

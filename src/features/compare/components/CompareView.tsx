@@ -11,7 +11,7 @@ import { planColour } from '#src/components/plots/style';
 import { TurbineMapPlot } from '#src/components/plots/TurbineMapPlot';
 import { mapLineViews, studyLines, turbineLineViews } from '#src/components/study/lines';
 import { RpmCurves } from '#src/components/study/RpmCurves';
-import { runStudyLive } from '#src/components/study/run';
+import { runStudyLive, studyDriveLive } from '#src/components/study/run';
 import { StudyCaution } from '#src/components/study/StudyCaution';
 import { compareFigure, type OverlaidMap } from '../compare-figure';
 import { allCombinations, MIN_COMBINATIONS, toggleCombination } from '../selection';
@@ -52,6 +52,7 @@ export function CompareView({
 }) {
   const system = useUnitSystem();
   const result = useMemo(() => runStudyLive(document, mapsById), [document, mapsById]);
+  const drive = useMemo(() => studyDriveLive(document, result, mapsById), [document, result, mapsById]);
   const lines = useMemo(() => studyLines(result, document.plans), [result, document]);
   // Each plan judged over all its scenarios and boost rows: a line is only as good as its plan.
   const verdicts = useMemo(() => new Map(planVerdicts(result).map((v) => [v.planIndex, v])), [result]);
@@ -75,8 +76,14 @@ export function CompareView({
   // The table reads what fits first (stable: the chosen order within one verdict); each line keeps its own colour and marker.
   const rankedChosen = useMemo(() => rankByVerdict(chosen), [chosen]);
   const rows = useMemo(
-    () => compareLines(rankedChosen.map((c) => ({ ...chosenLines[c.index].line, planVerdict: c.verdict?.status ?? null }))),
-    [rankedChosen, chosenLines],
+    () =>
+      compareLines(
+        rankedChosen.map((c) => {
+          const line = chosenLines[c.index].line;
+          return { ...line, planVerdict: c.verdict?.status ?? null, drive: drive?.byPlan[line.planIndex] ?? null };
+        }),
+      ),
+    [rankedChosen, chosenLines, drive],
   );
 
   // The maps the chosen lines were read from, in the order of the lines.

@@ -27,6 +27,9 @@ const RATIO_UNIT: Partial<Record<CompareRowKey, { unit: string; words: string }>
   peakDrivePressureRatio: { unit: 'p₃/p_man (ratio)', words: 'exhaust over intake manifold' },
 };
 
+/** The drive rows' units: seconds and metres in both systems (they are read as times and lengths of road). */
+const DRIVE_UNIT: Partial<Record<CompareRowKey, string>> = { timeToBoost: 's', runTime: 's', runDistance: 'm' };
+
 function quantityOf(row: CompareRow): StudyQuantity {
   return ROW_QUANTITY[row.key] ?? QUANTITY[row.kind] ?? 'ratio';
 }
@@ -34,6 +37,7 @@ function quantityOf(row: CompareRow): StudyQuantity {
 /** The unit a row is read in: the user's unit, or words for plain numbers. */
 export function rowUnit(row: CompareRow, system: UnitSystem): string {
   if (row.key === 'planVerdict') return '';
+  if (DRIVE_UNIT[row.key]) return DRIVE_UNIT[row.key]!;
   if (row.kind === 'ratio') return RATIO_UNIT[row.key]?.unit ?? 'p₂/p₁ (ratio)';
   if (row.kind === 'count') return 'count';
   const label = quantityUnit(quantityOf(row), system).label;
@@ -51,6 +55,7 @@ export function emptyCellWords(row: CompareRow, cell: CompareCell): string | nul
   if (cell.note === 'not-reached') return 'not reached';
   if (cell.note === 'no-exhaust') return 'no exhaust side';
   if (cell.note === 'no-boost-asked') return 'no boost asked';
+  if (cell.note === 'unknown') return 'unknown (see Drive)';
   return /margin|shaft/i.test(row.label) ? 'no map' : 'not computed';
 }
 
@@ -58,6 +63,7 @@ export function emptyCellWords(row: CompareRow, cell: CompareCell): string | nul
 export function rowValueText(row: CompareRow, value: number | null, system: UnitSystem): string {
   if (value === null) return '—';
   if (row.kind === 'count') return formatNumber(value, 21);
+  if (DRIVE_UNIT[row.key]) return formatNumber(value, 3);
   const shown = quantityUnit(quantityOf(row), system).fromSI(value);
   return row.kind === 'speed' ? formatNumber(Math.round(shown), 21) : formatNumber(shown, 4);
 }

@@ -11,6 +11,7 @@ import { findPoint, mapLineViews, turbineLineViews, type PointRef } from '#src/c
 import { PlanVerdicts } from '#src/components/study/PlanVerdicts';
 import { ResultsTable } from '#src/components/study/ResultsTable';
 import { RpmCurves } from '#src/components/study/RpmCurves';
+import { studyDriveLive } from '#src/components/study/run';
 import { WorkingPanel } from '#src/components/study/WorkingPanel';
 import type { Computed } from './use-study-editor';
 
@@ -82,6 +83,8 @@ export function StudyPlots({
     return turbineLineViews(computed.lines.filter((l) => computed.doc.plans[l.planIndex]?.turbineMapId === turbineMapId));
   }, [computed, turbineMapId]);
 
+  // With a car in the study, each plan's time to boost joins its verdict.
+  const drive = useMemo(() => (later?.doc.vehicle ? studyDriveLive(later.doc, later.result, mapsById) : null), [later, mapsById]);
   const selectedPoint = computed ? findPoint(computed.lines, selected) : null;
   const highlight = useMemo(() => (selected ? { lineKey: selected.lineKey, rpm: selected.rpm } : null), [selected]);
 
@@ -115,7 +118,7 @@ export function StudyPlots({
   return (
     <div className={`space-y-5 transition-opacity ${stale ? 'opacity-60' : ''}`} aria-busy={stale}>
       <Card>
-        <MemoVerdicts lines={(later ?? computed).lines} selected={selected} onSelect={select} />
+        <MemoVerdicts lines={(later ?? computed).lines} selected={selected} onSelect={select} drive={drive?.byPlan} />
       </Card>
       <Card
         title="Compressor map"

@@ -170,6 +170,7 @@ function LoadedStudy({ teamId, study }: { teamId: string; study: StudyDetail }) 
             <ButtonLink to={paths.teamStudyCompare.href(teamId, study.id)}>Side by side</ButtonLink>
             <ButtonLink to={paths.teamStudyLogs.href(teamId, study.id)}>Logged runs</ButtonLink>
             <ButtonLink to={paths.teamStudyCandidates.href(teamId, study.id)}>Candidates</ButtonLink>
+            <ButtonLink to={paths.teamStudyDrive.href(teamId, study.id)}>Drive</ButtonLink>
             <ButtonLink to={paths.teamStudyReport.href(teamId, study.id)}>Printable report</ButtonLink>
             <a
               href={resultsCsvHref(teamId, study.id)}
