@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { planVerdicts, reasonText, VERDICT_RANK } from '#shared/matching/verdict';
 import { migrateStudyDocument, studyDocumentSchema } from '#shared/schemas/study';
+import { studyDriveWithMaps } from '#shared/drive/study-drive';
 import { compareLines } from '#shared/study/compare';
 import { runStudyDocument } from '#shared/study/run';
 import { DEMO_STUDY_TITLE } from '#server/services/demo';
@@ -79,7 +80,9 @@ describe('verdicts in the browser', () => {
     const chosen = [s44.planIndex, doc.plans.indexOf(m58)]
       .map((planIndex, i) => ({ i, planIndex, line: result.lines.find((l) => l.planIndex === planIndex && l.scenarioIndex === 0 && l.rowIndex === 0)! }))
       .sort((a, b) => VERDICT_RANK[statusOf.get(a.planIndex)!] - VERDICT_RANK[statusOf.get(b.planIndex)!] || a.i - b.i);
-    const rows = compareLines(chosen.map((c) => ({ ...c.line, planVerdict: statusOf.get(c.planIndex) })));
+    // The demo study has its car: Side by side adds each plan's drive figures, as here.
+    const drive = studyDriveWithMaps(doc, result, maps);
+    const rows = compareLines(chosen.map((c) => ({ ...c.line, planVerdict: statusOf.get(c.planIndex), drive: drive?.byPlan[c.planIndex] ?? null })));
     const s44Column = chosen.findIndex((c) => c.planIndex === s44.planIndex);
     expect(
       await table
