@@ -135,5 +135,7 @@ describe('owner changes are serialised: never a 500', () => {
       const owners = await t.database.db.select().from(teamMembers).where(eq(teamMembers.teamId, teamId));
       expect(owners.filter((m) => m.role === 'owner')).toHaveLength(1);
     }
-  });
+    // 30 sign-ups (argon2id, slow on purpose) and 15 invitations: on a busy machine this takes
+    // longer than the default 30 s; it checks outcomes, never time.
+  }, 180_000);
 });
