@@ -4,6 +4,7 @@ import { logPointsQuerySchema, MAX_LOG_BYTES, savePresetSchema, updateLogSchema,
 import type { AppDeps } from '../app-deps';
 import { requireTeamPermission, type TeamAccess } from '../auth/access';
 import { requireUser } from '../auth/session';
+import { teamWriteGate } from '../auth/write-gate';
 import { sendCsv } from '../http/csv';
 import { HttpError, parseOr400 } from '../http/errors';
 import { countUpload } from '../services/limits';
@@ -64,15 +65,7 @@ function params(req: { params: unknown }) {
 export function logsRouter({ db, limits }: AppDeps): Router {
   const router = Router({ mergeParams: true });
 
-  // Access is decided before the upload is read, so a viewer's or outsider's file is never buffered.
-  const canWrite: RequestHandler = (req, res, next) => {
-    requireTeamPermission(db, requireUser(res), params(req).teamId, 'content:write')
-      .then((access) => {
-        res.locals.access = access;
-        next();
-      })
-      .catch(next);
-  };
+  const canWrite = teamWriteGate(db);
 
   router.post('/', canWrite, countUpload(limits), singleLog, async (req, res) => {
     const access = res.locals.access as TeamAccess;

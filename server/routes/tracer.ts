@@ -7,6 +7,7 @@ import type { AppDeps } from '../app-deps';
 import { countUpload } from '../services/limits';
 import { requireTeamPermission, type TeamAccess } from '../auth/access';
 import { requireUser } from '../auth/session';
+import { teamWriteGate } from '../auth/write-gate';
 import { HttpError, notFound, parseOr400 } from '../http/errors';
 import {
   createDraft,
@@ -80,15 +81,7 @@ function pathId(value: string | undefined, what: string): string {
 export function tracerRouter({ db, limits }: AppDeps): Router {
   const router = Router({ mergeParams: true });
 
-  // Access is decided before the upload is read, so a viewer's or outsider's picture is never buffered.
-  const canWrite: RequestHandler = (req, res, next) => {
-    requireTeamPermission(db, requireUser(res), params(req).teamId, 'content:write')
-      .then((access) => {
-        res.locals.access = access;
-        next();
-      })
-      .catch(next);
-  };
+  const canWrite = teamWriteGate(db);
 
   router.post('/images', canWrite, countUpload(limits), singlePicture, async (req, res) => {
     const user = requireUser(res);
